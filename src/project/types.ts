@@ -1,0 +1,95 @@
+/**
+ * The normalized project: what a project file means, in SI base units (V, s, Hz, ohm, F, A).
+ * Produced by `loadProject`, consumed by the engine, design, tolerance and report layers.
+ */
+import type { Stage } from '../circuit/ladder.js';
+
+export type Alignment = 'edge' | 'center';
+
+export interface PwmSettings {
+  /** PWM frequency in Hz (given, or derived from clock, prescaler, bits and alignment). */
+  frequency: number;
+  /** Timer clock in Hz, when given. */
+  clock?: number;
+  /** Resolution in bits, when known. */
+  bits?: number;
+  prescaler: number;
+  alignment: Alignment;
+  high: number;
+  low: number;
+  driver: { high: number; low: number };
+  /** Used duty range, fractions 0..1. */
+  duty: { min: number; max: number };
+}
+
+export interface LoadSettings {
+  /** ohm; undefined = open output. */
+  resistance?: number;
+  /** F, 0 when not given. */
+  capacitance: number;
+}
+
+/** Settling requirement, all in SI: band in V, time in s, from/to as duty fractions. */
+export interface SettlingSpec {
+  band: number;
+  time?: number;
+  /** Both undefined: the default step (full used range, rising and falling). */
+  from?: number;
+  to?: number;
+}
+
+/** Spec limits, already converted to volts (LSB and % of full scale resolved). */
+export interface Spec {
+  /** Peak-to-peak ripple limit, V. */
+  ripple?: number;
+  /** Largest DC error allowed over the used range, V. */
+  droop?: number;
+  settling?: SettlingSpec;
+  /** Largest INL allowed, V (endpoint fit). */
+  inl?: number;
+}
+
+export interface SearchSettings {
+  stages: number[];
+  series: 'E3' | 'E6' | 'E12' | 'E24' | 'E48' | 'E96' | 'E192';
+  resistance: { min: number; max: number };
+  capacitance: { min: number; max: number };
+  /** Largest pin peak current allowed, A. */
+  pinCurrent?: number;
+  /** With pwm.clock: the resolutions the search may choose. */
+  bits?: { min: number; max: number };
+}
+
+export interface ToleranceSettings {
+  /** Relative tolerance of resistors (0.01 = 1 %). */
+  resistor: number;
+  /** Relative tolerance of capacitors. */
+  capacitor: number;
+  /** Per-stage overrides, index = stage number - 1. */
+  stages?: Array<{ resistor?: number; capacitor?: number } | undefined>;
+  /** Driver resistance ranges, ohm. */
+  driver?: { high: { min: number; max: number }; low: { min: number; max: number } };
+  /** Relative tolerance of the high level (supply). */
+  supply?: number;
+  /** Relative tolerance of the load resistance. */
+  load?: number;
+  distribution: 'normal' | 'uniform';
+  samples: number;
+  seed: number;
+  /** Required overall yield, fraction 0..1. */
+  yield?: number;
+}
+
+/** A loaded, validated, normalized project file. */
+export interface Project {
+  /** Path the project was read from (for messages). */
+  file: string;
+  pwm: PwmSettings;
+  load: LoadSettings;
+  filter: { stages: Stage[] };
+  spec: Spec;
+  search?: SearchSettings;
+  tolerance?: ToleranceSettings;
+  /** LSB in V when bits is known: (high - low) / 2^bits. */
+  lsb?: number;
+}
