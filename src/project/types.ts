@@ -92,4 +92,9 @@ export interface Project {
   tolerance?: ToleranceSettings;
   /** LSB in V when bits is known: (high - low) / 2^bits. */
   lsb?: number;
+  /**
+   * Spec limits that the file gave in LSB, as LSB counts, so that a search over the resolution can
+   * rescale them with the LSB of each resolution (a limit in V or % of full scale stays fixed).
+   */
+  specInLsb?: { ripple?: number; droop?: number; inl?: number; band?: number };
 }

@@ -1,0 +1,91 @@
+import type { Argv, CommandModule } from 'yargs';
+import { parseDuties } from './duty.js';
+import { EXIT_PASS, EXIT_SPEC_FAILS } from './errors.js';
+
+export interface AnalyzeArgs {
+  file: string;
+  duty?: string | string[];
+  format: 'text' | 'json' | 'markdown';
+  charts: boolean;
+  csv?: string;
+}
+
+/** What a command hands back to the shell: text for stdout and stderr, and the exit code. */
+export interface CommandOutput {
+  stdout: string;
+  stderr: string;
+  code: number;
+}
+
+/**
+ * Run `analyze`: load the project, analyse it, render the report; heavy modules load here, lazily,
+ * so that `--help` stays quick.
+ *
+ * Syntax: runAnalyze(args, { color })
+ * Example: await runAnalyze({ file: 'p.yaml', format: 'json', charts: true }, { color: false })
+ */
+export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean }): Promise<CommandOutput> {
+  const duties = parseDuties(args.duty);
+  const [{ loadProject }, { analyzeProject }] = await Promise.all([
+    import('../project/index.js'),
+    import('../engine/analyze.js'),
+  ]);
+  const project = loadProject(args.file);
+  const analysis = analyzeProject(project, duties ? { duties } : {});
+  let stdout: string;
+  if (args.format === 'json') {
+    stdout = (await import('../report/json.js')).jsonReport(project, analysis);
+  } else if (args.format === 'markdown') {
+    stdout = (await import('../report/markdown.js')).markdownReport(project, analysis, { charts: args.charts });
+  } else {
+    stdout = (await import('../report/text.js')).textReport(project, analysis, { charts: args.charts, color: tty.color });
+  }
+  let stderr = '';
+  if (args.csv !== undefined) {
+    const [{ writeFileSync }, { waveformCsv }] = await Promise.all([import('node:fs'), import('../report/csv.js')]);
+    writeFileSync(args.csv, waveformCsv(analysis));
+    stderr = `waveforms written to ${args.csv}\n`;
+  }
+  return { stdout, stderr, code: analysis.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
+}
+
+/**
+ * The `analyze` command for yargs: options, help and examples; the handler runs `runAnalyze`
+ * through `run` (which prints and sets the exit code).
+ *
+ * Syntax: analyzeCommand(run)
+ * Example: yargs(argv).command(analyzeCommand(run))
+ */
+export function analyzeCommand(
+  run: (work: () => Promise<CommandOutput>) => Promise<void>,
+  color: () => boolean,
+): CommandModule<object, AnalyzeArgs> {
+  return {
+    command: 'analyze <file>',
+    describe: 'Exact ripple, DC error, settling, cutoff and spec checks of a filter project',
+    builder: (y: Argv) =>
+      y
+        .positional('file', { describe: 'Project file (YAML)', type: 'string', demandOption: true })
+        .option('duty', {
+          describe: 'Duty to evaluate, fraction or percent; repeat for more (default: 11 over the used range)',
+          type: 'string',
+          requiresArg: true,
+        })
+        .option('format', {
+          describe: 'Report format',
+          choices: ['text', 'json', 'markdown'] as const,
+          default: 'text' as const,
+        })
+        .option('charts', { describe: 'Draw ASCII charts (--no-charts to leave them out)', type: 'boolean', default: true })
+        .option('csv', {
+          describe: 'Also write the waveforms to this CSV file (time_s,output_V,waveform,duty)',
+          type: 'string',
+          requiresArg: true,
+        })
+        .example('$0 analyze board.yaml', 'Full report with charts')
+        .example('$0 analyze board.yaml --duty 25% --duty 0.75', 'Report at two chosen duties')
+        .example('$0 analyze board.yaml --format json', 'One JSON object, SI units')
+        .example('$0 analyze board.yaml --no-charts --csv w.csv', 'Tables only; waveforms to w.csv') as unknown as Argv<AnalyzeArgs>,
+    handler: (args) => run(() => runAnalyze(args, { color: args.format === 'text' && color() })),
+  };
+}

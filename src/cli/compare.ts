@@ -1,0 +1,98 @@
+import type { Argv, CommandModule } from 'yargs';
+import type { CommandOutput } from './analyze.js';
+import { EXIT_PASS, EXIT_SPEC_FAILS, UsageError } from './errors.js';
+import type { CompareFormat } from '../report/compare.js';
+
+export interface CompareArgs {
+  base: string;
+  head?: string;
+  git?: string;
+  format: CompareFormat;
+  quiet: boolean;
+}
+
+/**
+ * Run `compare`: two project files, or one file against its version at a git revision
+ * (`--git REF`: the base is `git show REF:path`, the head the file as it is now).
+ * The exit code is the head's spec status.
+ *
+ * Syntax: runCompare(args, { color })
+ * Example: await runCompare({ base: 'dac.yaml', git: 'main', format: 'markdown', quiet: false }, { color: false })
+ */
+export async function runCompare(args: CompareArgs, tty: { color: boolean }): Promise<CommandOutput> {
+  if (args.git !== undefined && args.head !== undefined) {
+    throw new UsageError('compare --git takes one file (compared with itself at that revision), not two');
+  }
+  if (args.git === undefined && args.head === undefined) {
+    throw new UsageError('compare needs two files (BASE HEAD), or one file and --git REF');
+  }
+  const [{ loadProject, parseProject }, { analyzeProject }, { compareReport }] = await Promise.all([
+    import('../project/index.js'),
+    import('../engine/analyze.js'),
+    import('../report/compare.js'),
+  ]);
+
+  let base;
+  let head;
+  let baseLabel: string;
+  if (args.git !== undefined) {
+    const { fileAtRevision, GitShowError } = await import('../project/gitShow.js');
+    head = loadProject(args.base); // first, so that a missing file is named as such
+    let old;
+    try {
+      old = fileAtRevision(args.base, args.git);
+    } catch (error) {
+      if (error instanceof GitShowError) throw new UsageError(`compare --git ${args.git}: ${error.message}`);
+      throw error;
+    }
+    base = parseProject(old.text, old.label);
+    baseLabel = old.label;
+  } else {
+    base = loadProject(args.base);
+    head = loadProject(args.head as string);
+    baseLabel = args.base;
+  }
+  const headLabel = args.head ?? args.base;
+  const headAnalysis = analyzeProject(head);
+  const stdout = args.quiet
+    ? ''
+    : compareReport(
+        { label: baseLabel, project: base, analysis: analyzeProject(base) },
+        { label: headLabel, project: head, analysis: headAnalysis },
+        args.format,
+        { color: tty.color },
+      );
+  return { stdout, stderr: '', code: headAnalysis.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
+}
+
+/**
+ * The `compare` command for yargs: what a change to a project file does to its figures and checks.
+ *
+ * Syntax: compareCommand(run, color)
+ * Example: yargs(argv).command(compareCommand(run, color))
+ */
+export function compareCommand(
+  run: (work: () => Promise<CommandOutput>) => Promise<void>,
+  color: () => boolean,
+): CommandModule<object, CompareArgs> {
+  return {
+    command: 'compare <base> [head]',
+    describe: 'Compare two versions of a project: changed inputs, figures side by side, checks, overlay charts',
+    builder: (y: Argv) =>
+      y
+        .positional('base', { describe: 'Base project file (with --git: the file to compare with its older version)', type: 'string', demandOption: true })
+        .positional('head', { describe: 'Head project file', type: 'string' })
+        .option('git', { describe: 'Compare the file with its version at this git revision (branch, tag, commit)', type: 'string', requiresArg: true })
+        .option('format', {
+          describe: 'Output format',
+          choices: ['text', 'json', 'markdown'] as const,
+          default: 'text' as const,
+        })
+        .option('quiet', { alias: 'q', describe: "Print nothing but errors; the exit code is the head's spec status", type: 'boolean', default: false })
+        .example('$0 compare old.yaml new.yaml', 'Two files side by side')
+        .example('$0 compare dacsmith.yaml --git main', 'The file against its version on branch main')
+        .example('$0 compare dacsmith.yaml --git HEAD --format markdown >> "$GITHUB_STEP_SUMMARY"', 'Uncommitted changes, as Markdown for a CI summary')
+        .epilogue("Exit codes: 0 the head passes its spec, 1 it fails, 2 bad input (a file, or git).") as unknown as Argv<CompareArgs>,
+    handler: (args) => run(() => runCompare(args, { color: args.format === 'text' && color() })),
+  };
+}

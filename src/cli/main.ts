@@ -1,0 +1,65 @@
+import yargs from 'yargs';
+import { hideBin } from 'yargs/helpers';
+import pkg from '../../package.json' with { type: 'json' };
+import { colorWanted } from '../report/color.js';
+import { analyzeCommand, type CommandOutput } from './analyze.js';
+import { checkCommand } from './check.js';
+import { compareCommand } from './compare.js';
+import { initCommand } from './init.js';
+import { describeError, UsageError } from './errors.js';
+
+/** Print what a command produced and set the exit code; map thrown errors to messages and codes. */
+async function run(work: () => Promise<CommandOutput>): Promise<void> {
+  try {
+    const out = await work();
+    if (out.stderr) process.stderr.write(out.stderr);
+    process.stdout.write(out.stdout);
+    process.exitCode = out.code;
+  } catch (error) {
+    const { code, message } = describeError(error);
+    process.stderr.write(`${message}\n`);
+    process.exitCode = code;
+  }
+}
+
+/**
+ * The command-line shell: parse arguments with yargs and dispatch to one command module per file.
+ * Argument errors print the message and a hint on standard error and exit 2.
+ *
+ * Syntax: main(argv)
+ * Example: await main(['analyze', 'sample-configs/greenhouse-heater.yaml', '--format', 'json'])
+ */
+export async function main(argv: string[]): Promise<void> {
+  const color = () => colorWanted(process.stdout.isTTY, process.env);
+  const cli = yargs(argv)
+    .scriptName('dacsmith')
+    .usage('$0 <command> [options]\n\nPlan the RC filter that turns a PWM output into an analog voltage.')
+    .command(analyzeCommand(run, color))
+    .command(checkCommand(run, color))
+    .command(compareCommand(run, color))
+    .command(initCommand(run))
+    .demandCommand(1, 'Name a command.')
+    .recommendCommands()
+    .strict()
+    .help()
+    .alias('h', 'help')
+    .version(pkg.version)
+    .example('$0 analyze board.yaml', 'Analyse the filter of board.yaml')
+    .example('$0 analyze --help', 'Options and examples of analyze')
+    .epilogue('Exit codes: 0 every spec holds, 1 a spec fails, 2 the input or the command line is wrong.')
+    .wrap(Math.min(100, process.stdout.columns ?? 100))
+    .fail((message, error) => {
+      // yargs goes on to the command after fail() returns: stop it by throwing.
+      if (!message && error) throw error;
+      throw new UsageError(`${message}\nRun 'dacsmith --help' for usage.`);
+    });
+  try {
+    await cli.parseAsync();
+  } catch (error) {
+    const { code, message } = describeError(error);
+    process.stderr.write(`${message}\n`);
+    process.exitCode = code;
+  }
+}
+
+await main(hideBin(process.argv));

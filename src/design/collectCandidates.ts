@@ -1,0 +1,277 @@
+import type { DesignProblem } from './designProblem.js';
+import { fastLadder, type FastLadder } from './fast/fastLadder.js';
+import { fastSettlingBound } from './fast/fastSettlingBound.js';
+import { fastSteadyState, type FastSteady } from './fast/fastSteadyState.js';
+import { fastWorstRipple } from './fast/fastWorstRipple.js';
+import { tupleBounds, type TupleBounds } from './settlingBounds.js';
+import { slowestTimeConstant } from './slowestTimeConstant.js';
+
+/** Relative allowance between the fast model and the engine (both exact; rounding differs). */
+export const REL = 1e-6;
+/** Absolute allowance on times, s. */
+const ABS_T = 1e-12;
+
+/** A candidate the fast model could not rule out, with its settling lower bound. */
+export interface FastEntry {
+  r: number[];
+  c: number[];
+  /** Lower bound on the settling time, s (equal to it in the usual case). */
+  lb: number;
+  totalC: number;
+  /** Fast worst ripple (a lower bound), V, once computed. */
+  worst?: number;
+  /** Ruled out by the fast worst ripple. */
+  ruledOut?: boolean;
+}
+
+/** Shared state of one search (all stage counts of one problem). */
+export interface CollectState {
+  top: number;
+  /** Candidates whose settling lower bound exceeds theta are not collected, s. */
+  theta: number;
+  /** Lower theta to the top-th best fast estimate as candidates come in. */
+  dynamic: boolean;
+  /** Ascending fast settling estimates of candidates that pass every fast check. */
+  best: number[];
+  entries: FastEntry[];
+  /** Keys of candidates already collected (a second pass skips them). */
+  seen: Set<string>;
+  /** Fast-model evaluations (ladders built). */
+  evaluated: number;
+}
+
+/** A fresh state: theta starts at the settling-time limit (nothing slower is feasible). */
+export function newCollectState(problem: DesignProblem, top: number): CollectState {
+  const cap = problem.limits.settlingTime;
+  return {
+    top,
+    theta: cap === undefined ? Infinity : cap * (1 + REL) + ABS_T,
+    dynamic: true,
+    best: [],
+    entries: [],
+    seen: new Set(),
+    evaluated: 0,
+  };
+}
+
+const exceeds = (value: number, limit: number | undefined) => limit !== undefined && value > limit * (1 + REL) + 1e-300;
+
+/**
+ * Collect every `stages`-stage candidate of the problem's discrete space that the fast model cannot
+ * rule out and whose settling lower bound is at most state.theta (which may fall as candidates
+ * come in). Ruled out: pin peak current over the limit (R1 only), droop over the limit (resistors
+ * only, time-invariant case; else from the fast averages at the range ends), a ripple lower bound
+ * over the limit, never settling, settling lower bound over the time limit.
+ *
+ * Method: resistor tuples in ascending order of a lower bound on their best settling time
+ * (settlingBounds.ts); the walk stops when that bound passes theta. For each tuple, capacitor
+ * space by monotone structure: the ripple at the duty nearest 50 % falls when any capacitor grows,
+ * so the feasible region of the last two capacitors is bounded below by a staircase, walked once
+ * per tuple (last capacitor from the previous column's step upward, columns from the largest
+ * first capacitor down); the settling lower bound tau_slow * factor - slack grows with every
+ * capacitor (Rayleigh quotient, slowestTimeConstant.ts), which cuts each column and ends the walk.
+ * Staircase points are evaluated first, so theta falls before the inner points are visited.
+ * Survivors get the exact fast settling bound (fast/fastSettlingBound.ts).
+ *
+ * Syntax: collectCandidates(problem, stages, state[, onTuple])
+ * Example: collectCandidates(problem, 2, newCollectState(problem, 10)); state.entries.length
+ */
+export function collectCandidates(
+  problem: DesignProblem,
+  stages: number,
+  state: CollectState,
+  onTuple?: (done: number, total: number) => void,
+): void {
+  const { rValues: R, cValues: C, limits, project } = problem;
+  const { pwm, load } = project;
+  const lti = pwm.driver.high === pwm.driver.low;
+  const span = Math.abs(pwm.high - pwm.low);
+  const nR = R.length;
+  const nC = C.length;
+  const loadR = load.resistance ?? null;
+  const loadC = load.capacitance;
+  const dNear = Math.min(problem.dutyMax, Math.max(problem.dutyMin, 0.5));
+  const toDuties = [...new Set(problem.steps.map((s) => s[1]))];
+  const checkTo = limits.ripple === undefined || problem.band * 2 < limits.ripple;
+  const droopOfGain = (gain: number) =>
+    (1 - gain) * Math.max(Math.abs(pwm.low + problem.dutyMin * (pwm.high - pwm.low)), Math.abs(pwm.low + problem.dutyMax * (pwm.high - pwm.low)));
+
+  // Resistor tuples that pass the pin current and (time-invariant) droop limits, with bounds.
+  const tuples: number[][] = [];
+  const bounds: TupleBounds[] = [];
+  const keys: number[] = [];
+  const minC = new Array<number>(stages).fill(C[0]);
+  const idx = new Array<number>(stages).fill(0);
+  const total = nR ** stages;
+  for (let count = 0; count < total; count++) {
+    let rest = count;
+    for (let k = stages - 1; k >= 0; k--) {
+      idx[k] = rest % nR;
+      rest = Math.floor(rest / nR);
+    }
+    const rs = idx.map((i) => R[i]);
+    if (limits.pinCurrent !== undefined && exceeds(span / (Math.min(pwm.driver.high, pwm.driver.low) + rs[0]), limits.pinCurrent)) continue;
+    if (lti && limits.droop !== undefined && loadR !== null) {
+      let series = pwm.driver.high;
+      for (const r of rs) series += r;
+      if (exceeds(droopOfGain(loadR / (loadR + series)), limits.droop)) continue;
+    }
+    const tb = tupleBounds(problem, rs);
+    const tauFloor = Math.max(tb.tauMin, slowestTimeConstant(rs, minC, tb.driver, loadR, loadC));
+    tuples.push(rs);
+    bounds.push(tb);
+    keys.push(tauFloor * tb.factor - tb.slack);
+  }
+  const order = keys.map((_, i) => i).sort((a, b) => keys[a] - keys[b]);
+
+  // One-entry model cache: the staircase check is usually followed by the full evaluation.
+  let cachedKey = '';
+  let cachedModel: FastLadder | null = null;
+  let cachedSteady = new Map<number, FastSteady>();
+  const modelOf = (rs: number[], cs: number[]): { model: FastLadder; steady: (d: number) => FastSteady } => {
+    const key = `${rs.join(',')}|${cs.join(',')}`;
+    if (key !== cachedKey || cachedModel === null) {
+      cachedKey = key;
+      cachedModel = fastLadder(problem.ladderOf(rs, cs));
+      cachedSteady = new Map();
+      state.evaluated++;
+    }
+    const model = cachedModel;
+    const steadyMap = cachedSteady;
+    return {
+      model,
+      steady: (d: number) => {
+        let s = steadyMap.get(d);
+        if (!s) {
+          s = fastSteadyState(model, d);
+          steadyMap.set(d, s);
+        }
+        return s;
+      },
+    };
+  };
+
+  const rippleOk = (rs: number[], cs: number[]): boolean => {
+    const { steady } = modelOf(rs, cs);
+    if (limits.ripple !== undefined && exceeds(steady(dNear).ripple, limits.ripple)) return false;
+    if (checkTo) for (const d of toDuties) if (exceeds(steady(d).ripple, 2 * problem.band)) return false;
+    return true;
+  };
+
+  const evaluate = (rs: number[], cs: number[]): void => {
+    const key = `${rs.join(',')}|${cs.join(',')}`;
+    if (state.seen.has(key)) return;
+    const { model, steady } = modelOf(rs, cs);
+    if (!lti && limits.droop !== undefined) {
+      for (const d of [problem.dutyMin, problem.dutyMax]) {
+        const ideal = pwm.low + d * (pwm.high - pwm.low);
+        if (exceeds(Math.abs(ideal - steady(d).average), limits.droop)) return;
+      }
+    }
+    let lb = 0;
+    for (const [from, to] of problem.steps) {
+      lb = Math.max(lb, fastSettlingBound(model, from, to, problem.band, steady(from), steady(to)));
+      if (lb === Infinity) return;
+    }
+    if (exceeds(lb, limits.settlingTime)) return;
+    if (lb > state.theta) return;
+    let totalC = 0;
+    for (const c of cs) totalC += c;
+    const entry: FastEntry = { r: [...rs], c: [...cs], lb, totalC };
+    state.seen.add(key);
+    state.entries.push(entry);
+    if (state.dynamic && (state.best.length < state.top || lb < state.best[state.top - 1])) {
+      entry.worst = fastWorstRipple(model, problem.dutyMin, problem.dutyMax);
+      if (exceeds(entry.worst, limits.ripple)) {
+        entry.ruledOut = true;
+        return;
+      }
+      let at = state.best.length;
+      while (at > 0 && state.best[at - 1] > lb) at--;
+      state.best.splice(at, 0, lb);
+      if (state.best.length > state.top) state.best.length = state.top;
+      if (state.best.length === state.top) state.theta = Math.min(state.theta, state.best[state.top - 1] * (1 + REL) + ABS_T);
+    }
+  };
+
+  const walk = (rs: number[], tb: TupleBounds): void => {
+    const bound = (cs: number[]) => slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) * tb.factor - tb.slack;
+    const within = (cs: number[]) => bound(cs) <= state.theta;
+    const cs = new Array<number>(stages).fill(C[0]);
+    if (stages === 1) {
+      let s = firstTrue(nC, (i) => rippleOk(rs, [C[i]]));
+      for (; s < nC; s++) {
+        if (!within([C[s]])) break;
+        evaluate(rs, [C[s]]);
+      }
+      return;
+    }
+    // Outer capacitors (three stages: the first) by plain loop, inner two by staircase walk.
+    const outer = stages - 2;
+    const recurse = (depth: number): void => {
+      if (depth < outer) {
+        for (let i = 0; i < nC; i++) {
+          cs[depth] = C[i];
+          for (let k = depth + 1; k < stages; k++) cs[k] = C[0];
+          if (!within(cs)) break;
+          recurse(depth + 1);
+        }
+        return;
+      }
+      walkLastTwo(rs, cs, outer, within);
+    };
+    recurse(0);
+  };
+
+  /** The staircase walk over capacitors a = cs[p], b = cs[p + 1] with cs[0..p-1] fixed. */
+  const walkLastTwo = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean): void => {
+    const at = (a: number, b: number) => {
+      const v = cs.slice();
+      v[p] = C[a];
+      v[p + 1] = C[b];
+      return v;
+    };
+    if (!within(at(0, 0))) return;
+    // Largest first capacitor whose column can still be within theta.
+    const top = firstTrue(nC, (i) => !within(at(i, 0))) - 1;
+    const columns: Array<[number, number]> = [];
+    let s = -1;
+    for (let a = top; a >= 0; a--) {
+      if (s < 0) s = firstTrue(nC, (b) => rippleOk(rs, at(a, b)));
+      else while (s < nC && !rippleOk(rs, at(a, s))) s++;
+      if (s >= nC) break; // smaller first capacitors only raise the ripple
+      if (!within(at(0, s))) break; // every remaining column starts at or above s
+      if (within(at(a, s))) {
+        columns.push([a, s]);
+        evaluate(rs, at(a, s));
+      }
+    }
+    for (const [a, s0] of columns) {
+      for (let b = s0 + 1; b < nC; b++) {
+        const v = at(a, b);
+        if (!within(v)) break;
+        evaluate(rs, v);
+      }
+    }
+  };
+
+  for (let k = 0; k < order.length; k++) {
+    const i = order[k];
+    if (keys[i] > state.theta) break;
+    walk(tuples[i], bounds[i]);
+    onTuple?.(k + 1, order.length);
+  }
+  onTuple?.(order.length, order.length);
+}
+
+/** Smallest i in [0, n) with pred(i) true for a predicate false...false true...true; n if none. */
+function firstTrue(n: number, pred: (i: number) => boolean): number {
+  let lo = 0;
+  let hi = n;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (pred(mid)) hi = mid;
+    else lo = mid + 1;
+  }
+  return lo;
+}

@@ -1,0 +1,105 @@
+import type { Ladder } from '../circuit/ladder.js';
+import { defaultBand } from '../engine/analyze.js';
+import type { Project } from '../project/types.js';
+import { seriesValues } from '../units/index.js';
+import { DesignInputError } from './designInputError.js';
+import { projectAtResolution } from './projectAtResolution.js';
+import type { DesignLimits } from './types.js';
+
+/** One design problem: the project at one resolution, reduced to the numbers the search needs. */
+export interface DesignProblem {
+  /** The project at this resolution (pwm.bits, pwm.frequency, lsb and LSB limits adjusted). */
+  project: Project;
+  bits: number | null;
+  lsb: number | null;
+  frequency: number;
+  period: number;
+  dutyMin: number;
+  dutyMax: number;
+  limits: DesignLimits;
+  /** Settling band, V. */
+  band: number;
+  /** Settling steps [from, to]; the slowest counts (two for the default full-range step). */
+  steps: Array<[number, number]>;
+  /** Whether `steps` is the default full-range step (rising and falling). */
+  defaultStep: boolean;
+  stageCounts: number[];
+  series: string;
+  rValues: number[];
+  cValues: number[];
+  /** A ladder of the project's circuit with other stages (unbuffered). */
+  ladderOf(r: ArrayLike<number>, c: ArrayLike<number>): Ladder;
+}
+
+/**
+ * The design problem of a project, optionally at another resolution `bits` (search over pwm.bits
+ * with pwm.clock): the PWM frequency follows from the timer (derivePwmFrequency, common practice),
+ * limits the file gave in LSB (project.specInLsb) scale with the new LSB, limits in V stay.
+ *
+ * Settling step and band as `analyze` uses them (engine/analyze.ts): spec.settling.from/to when
+ * given (a missing end takes that end of the used range), else the full used range rising and
+ * falling; band from the spec, else 0.5 LSB, else 0.1 % of full scale.
+ *
+ * Syntax: designProblem(project[, bits])
+ * Example: designProblem(loadProject('board.yaml'), 12).frequency   // clock / 4096 for edge PWM
+ */
+export function designProblem(project: Project, bits?: number): DesignProblem {
+  const search = project.search;
+  if (!search) throw new DesignInputError(`${project.file}: search: missing; add a search section (stages, series, resistance, capacitance) to design a filter`);
+  const at = bits === undefined ? project : projectAtResolution(project, bits);
+  const { pwm, spec } = at;
+  const rValues = seriesValues(search.series, search.resistance.min, search.resistance.max);
+  const cValues = seriesValues(search.series, search.capacitance.min, search.capacitance.max);
+  if (rValues.length === 0) throw new DesignInputError(`${project.file}: search.resistance: no ${search.series} value lies in the range`);
+  if (cValues.length === 0) throw new DesignInputError(`${project.file}: search.capacitance: no ${search.series} value lies in the range`);
+  for (const n of search.stages) {
+    if (!Number.isInteger(n) || n < 1 || n > 3) throw new DesignInputError(`${project.file}: search.stages: ${n} is not 1, 2 or 3`);
+  }
+  const { min: dutyMin, max: dutyMax } = pwm.duty;
+  const settling = spec.settling;
+  const hasStep = settling?.from !== undefined || settling?.to !== undefined;
+  const steps: Array<[number, number]> = hasStep
+    ? [[settling?.from ?? dutyMin, settling?.to ?? dutyMax]]
+    : [
+        [dutyMin, dutyMax],
+        [dutyMax, dutyMin],
+      ];
+  const limits: DesignLimits = {
+    ...(spec.ripple !== undefined && { ripple: spec.ripple }),
+    ...(spec.droop !== undefined && { droop: spec.droop }),
+    ...(spec.inl !== undefined && { inl: spec.inl }),
+    ...(settling?.time !== undefined && { settlingTime: settling.time }),
+    ...(search.pinCurrent !== undefined && { pinCurrent: search.pinCurrent }),
+  };
+  const base = {
+    period: 1 / pwm.frequency,
+    high: pwm.high,
+    low: pwm.low,
+    driverHigh: pwm.driver.high,
+    driverLow: pwm.driver.low,
+    loadResistance: at.load.resistance ?? null,
+    loadCapacitance: at.load.capacitance,
+  };
+  return {
+    project: at,
+    bits: pwm.bits ?? null,
+    lsb: at.lsb ?? null,
+    frequency: pwm.frequency,
+    period: 1 / pwm.frequency,
+    dutyMin,
+    dutyMax,
+    limits,
+    band: settling?.band ?? defaultBand(at),
+    steps,
+    defaultStep: !hasStep,
+    stageCounts: [...search.stages].sort((a, b) => a - b),
+    series: search.series,
+    rValues,
+    cValues,
+    ladderOf: (r, c) => {
+      const stages = [];
+      for (let k = 0; k < r.length; k++) stages.push({ r: r[k], c: c[k], buffered: false });
+      return { ...base, stages };
+    },
+  };
+}

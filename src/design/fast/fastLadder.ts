@@ -1,0 +1,124 @@
+import type { Ladder } from '../../circuit/ladder.js';
+import { symmetricEigen } from './symmetricEigen.js';
+
+/** One pin state (high or low) of an unbuffered ladder, in symmetric coordinates y = C^(1/2) x. */
+export interface FastPhase {
+  /** Decay rates 1/tau of the modes, ascending (slowest first), 1/s. */
+  rate: Float64Array;
+  /** Orthonormal modes, row-major: mode[k * n + i] is node k of mode i. */
+  mode: Float64Array;
+  /** Output (last node, in V) per unit of each mode's coordinate. */
+  out: Float64Array;
+  /** DC state of this pin state alone, symmetric coordinates. */
+  yEq: Float64Array;
+}
+
+/** An unbuffered ladder prepared for fast exact evaluation (see fastSteadyState, fastSettlingBound). */
+export interface FastLadder {
+  n: number;
+  period: number;
+  high: number;
+  low: number;
+  /** Equal driver resistances: the circuit is linear time-invariant and both phases share modes. */
+  lti: boolean;
+  /** sqrt of the node capacitances (load capacitance included at the last node). */
+  sqrtC: Float64Array;
+  pinHigh: FastPhase;
+  pinLow: FastPhase;
+  /** yEq(high) - yEq(low), formed without subtraction when the drivers are equal. */
+  delta: Float64Array;
+}
+
+/**
+ * Prepare an unbuffered RC ladder (1 to 4 stages) for the design search's fast exact model: the
+ * same circuit and definitions as the engine (model.md), specialised so that one steady state costs
+ * microseconds.
+ *
+ * Method: nodal analysis C x' = -G_p x + b_p per pin state p (driver in series with R1, load at the
+ * last node); with y = C^(1/2) x the system matrix becomes the symmetric S_p = C^(-1/2) G_p C^(-1/2),
+ * a positive definite Jacobi (tridiagonal) matrix, so its eigenvalues are real, positive and
+ * distinct and exp(-S_p t) = U exp(-Lambda t) U^T exactly (symmetricEigen.ts). DC states from the
+ * tridiagonal solve G_p x = b_p (Thomas algorithm).
+ *
+ * Syntax: fastLadder(ladder)
+ * Example: fastLadder({ period: 5e-5, high: 3.3, low: 0, driverHigh: 0, driverLow: 0,
+ *            stages: [{ r: 1e3, c: 1e-6, buffered: false }], loadResistance: null, loadCapacitance: 0 })
+ *          .pinHigh.rate   // [1000]
+ */
+export function fastLadder(ladder: Ladder): FastLadder {
+  const n = ladder.stages.length;
+  if (n < 1 || n > 4) throw new RangeError(`fastLadder: 1 to 4 stages, got ${n}`);
+  if (ladder.stages.some((s, k) => s.buffered && k < n - 1)) {
+    throw new RangeError('fastLadder: buffered stages inside the ladder are not supported');
+  }
+  const sqrtC = new Float64Array(n);
+  for (let k = 0; k < n; k++) sqrtC[k] = Math.sqrt(ladder.stages[k].c + (k === n - 1 ? ladder.loadCapacitance : 0));
+  const lti = ladder.driverHigh === ladder.driverLow;
+  let pinHigh: FastPhase;
+  let pinLow: FastPhase;
+  let delta: Float64Array;
+  if (lti) {
+    // One set of modes; DC states per volt of the source, so Delta needs no subtraction.
+    const perVolt = phase(ladder, sqrtC, ladder.driverHigh, 1);
+    pinHigh = { ...perVolt, yEq: scaled(perVolt.yEq, ladder.high) };
+    pinLow = { ...perVolt, yEq: scaled(perVolt.yEq, ladder.low) };
+    delta = scaled(perVolt.yEq, ladder.high - ladder.low);
+  } else {
+    pinHigh = phase(ladder, sqrtC, ladder.driverHigh, ladder.high);
+    pinLow = phase(ladder, sqrtC, ladder.driverLow, ladder.low);
+    delta = new Float64Array(n);
+    for (let i = 0; i < n; i++) delta[i] = pinHigh.yEq[i] - pinLow.yEq[i];
+  }
+  return { n, period: ladder.period, high: ladder.high, low: ladder.low, lti, sqrtC, pinHigh, pinLow, delta };
+}
+
+function scaled(v: Float64Array, k: number): Float64Array {
+  const out = new Float64Array(v.length);
+  for (let i = 0; i < v.length; i++) out[i] = v[i] * k;
+  return out;
+}
+
+function phase(ladder: Ladder, sqrtC: Float64Array, driver: number, source: number): FastPhase {
+  const { stages } = ladder;
+  const n = stages.length;
+  // Conductance matrix G (tridiagonal): g[k] links node k-1 (k = 0: the pin) to node k.
+  const g = new Float64Array(n);
+  for (let k = 0; k < n; k++) g[k] = 1 / (stages[k].r + (k === 0 ? driver : 0));
+  const gLoad = ladder.loadResistance === null ? 0 : 1 / ladder.loadResistance;
+  const diag = new Float64Array(n);
+  const off = new Float64Array(n); // off[k] = G[k][k+1]
+  for (let k = 0; k < n; k++) {
+    diag[k] = g[k] + (k < n - 1 ? g[k + 1] : gLoad);
+    if (k < n - 1) off[k] = -g[k + 1];
+  }
+  const s = new Float64Array(n * n);
+  for (let k = 0; k < n; k++) {
+    s[k * n + k] = diag[k] / (sqrtC[k] * sqrtC[k]);
+    if (k < n - 1) {
+      const v = off[k] / (sqrtC[k] * sqrtC[k + 1]);
+      s[k * n + k + 1] = v;
+      s[(k + 1) * n + k] = v;
+    }
+  }
+  const { values, vectors } = symmetricEigen(s, n);
+  const out = new Float64Array(n);
+  for (let i = 0; i < n; i++) out[i] = vectors[(n - 1) * n + i] / sqrtC[n - 1];
+  // DC state: G x = e_0 g_0 source (Thomas algorithm; G is an M-matrix, no pivoting needed).
+  const cp = new Float64Array(n);
+  const dp = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    const rhs = k === 0 ? g[0] * source : 0;
+    const lower = k > 0 ? off[k - 1] : 0;
+    const denom = diag[k] - lower * (k > 0 ? cp[k - 1] : 0);
+    cp[k] = k < n - 1 ? off[k] / denom : 0;
+    dp[k] = (rhs - lower * (k > 0 ? dp[k - 1] : 0)) / denom;
+  }
+  const yEq = new Float64Array(n);
+  let next = 0;
+  for (let k = n - 1; k >= 0; k--) {
+    const x = dp[k] - cp[k] * next;
+    next = x;
+    yEq[k] = x * sqrtC[k];
+  }
+  return { rate: values, mode: vectors, out, yEq };
+}

@@ -1,0 +1,98 @@
+import type { DesignProblem } from './designProblem.js';
+
+/**
+ * The pieces of the search's lower bounds on the settling time of one resistor choice
+ * (any capacitors): settling >= tauSlow * factor - slack, and tauSlow >= ripple-implied minimum.
+ */
+export interface TupleBounds {
+  /** Driver resistance the time constants are taken with (the smaller one), ohm. */
+  driver: number;
+  /** ln(...) multiplier of the slowest time constant (0: no bound). */
+  factor: number;
+  /** s subtracted from tau * factor (0 when the circuit is time-invariant). */
+  slack: number;
+  /** Lower bound on the slowest time constant of any feasible capacitor choice, s. */
+  tauMin: number;
+}
+
+/**
+ * Lower bounds for one resistor choice r (pin side first) that hold for every capacitor choice
+ * that can meet the ripple limit and settle at all.
+ *
+ * Method (settling). For equal driver resistances the circuit is linear and time-invariant; its
+ * transfer function is all-pole with real poles, H = g / prod(1 + s tau_i), so it is a cascade
+ * of first-order sections with positive impulse responses. After a rising step the output is
+ * v = v_ss(to) - z(t), z the response to the input difference of the periods before the step
+ * (a positive pulse train), and z(t) >= z(0) exp(-t / tau_slow) (convolution of a positive
+ * signal with the slowest section). Settled at t needs z(t) <= band + (largest excursion of the
+ * steady state above its average) <= band + P, and z(0) >= S - 2P with S = g |to - from| (high -
+ * low) and P = min(band, ripple limit): hence t_s >= tau_slow ln((S - 2P) / (band + P)).
+ * (Falling steps by symmetry.) With unequal drivers the circuit switches between two linear
+ * systems; the bound is applied with the smaller driver resistance and a slack of two periods,
+ * a heuristic that the tests check against exhaustive search.
+ *
+ * Method (ripple). Peak-to-peak >= (pi/2) |fundamental| for any periodic signal; the PWM input's
+ * fundamental is (2/pi) (high - low) sin(pi D), so ripple >= (high - low) sin(pi D) |H(j w)|.
+ * A ripple limit (and settling at all: ripple <= 2 band at the target duty) caps |H(j w)| at h*,
+ * so prod(1 + w^2 tau_i^2) >= (g / h*)^2 = Gamma. One stage: tau >= sqrt(Gamma - 1) / w. Two
+ * stages: with tau_a >= tau_b, tau_a + tau_b = trace(G^-1 C) >= 2 sqrt(kappa tau_a tau_b),
+ * kappa = (G^-1)_11 (G^-1)_22 / det(G^-1), so tau_b <= tau_a / phi^2 with phi = sqrt(kappa) +
+ * sqrt(kappa - 1), and (1 + u)(1 + u / phi^4) >= Gamma with u = w^2 tau_a^2. Three stages:
+ * (1 + u)^3 >= Gamma.
+ *
+ * Syntax: tupleBounds(problem, r)
+ * Example: tupleBounds(problem, [4700, 47e3]).tauMin   // s
+ */
+export function tupleBounds(problem: DesignProblem, r: ArrayLike<number>): TupleBounds {
+  const { project, limits, band, steps, dutyMin, dutyMax, period } = problem;
+  const { pwm, load } = project;
+  const span = Math.abs(pwm.high - pwm.low);
+  const lti = pwm.driver.high === pwm.driver.low;
+  const driver = Math.min(pwm.driver.high, pwm.driver.low);
+  const n = r.length;
+  let series = Math.max(pwm.driver.high, pwm.driver.low);
+  for (let k = 0; k < n; k++) series += r[k];
+  const gain = load.resistance === undefined ? 1 : load.resistance / (load.resistance + series);
+
+  const inRange = (d: number) => d >= dutyMin && d <= dutyMax;
+  const rippleCap = (d: number) => (limits.ripple !== undefined && inRange(d) ? limits.ripple : Infinity);
+  let factor = 0;
+  for (const [from, to] of steps) {
+    const step = gain * Math.abs(to - from) * span;
+    const pTo = Math.min(band, rippleCap(to));
+    const pFrom = Math.min(problem.defaultStep ? band : Infinity, rippleCap(from));
+    const ratio = (step - pTo - pFrom) / (band + pTo);
+    if (ratio > 1) factor = Math.max(factor, Math.log(ratio));
+  }
+
+  // |H(j w)| cap from the ripple limit and from settling at all.
+  let hStar = Infinity;
+  if (limits.ripple !== undefined) {
+    const dNear = Math.min(dutyMax, Math.max(dutyMin, 0.5));
+    const sine = Math.sin(Math.PI * dNear);
+    if (sine > 0) hStar = limits.ripple / (span * sine);
+  }
+  for (const [, to] of steps) {
+    const sine = Math.sin(Math.PI * to);
+    if (sine > 0) hStar = Math.min(hStar, (2 * band) / (span * sine));
+  }
+  let tauMin = 0;
+  const gamma = (gain / hStar) ** 2;
+  if (gamma > 1) {
+    const omega = (2 * Math.PI) / period;
+    let u: number;
+    if (n === 1) u = gamma - 1;
+    else if (n === 2) {
+      const g1 = 1 / (r[0] + driver);
+      const g2 = 1 / r[1];
+      const gL = load.resistance === undefined ? 0 : 1 / load.resistance;
+      const kappa = ((g1 + g2) * (g2 + gL)) / (g1 * g2 + g1 * gL + g2 * gL);
+      const phi = Math.sqrt(kappa) + Math.sqrt(Math.max(0, kappa - 1));
+      const q = phi ** -4;
+      u = (2 * (gamma - 1)) / (1 + q + Math.sqrt((1 + q) ** 2 + 4 * q * (gamma - 1)));
+    } else u = Math.cbrt(gamma) - 1;
+    tauMin = Math.sqrt(u) / omega;
+  }
+  if (!lti) tauMin *= 0.8;
+  return { driver, factor, slack: lti ? 0 : 2 * period, tauMin };
+}

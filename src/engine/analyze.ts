@@ -1,0 +1,110 @@
+import { ladderFromProject } from '../circuit/fromProject.js';
+import type { Ladder } from '../circuit/ladder.js';
+import type { Project } from '../project/types.js';
+import {
+  cutoff as cutoffFrequency,
+  dcTransfer,
+  defaultSettling,
+  magnitude,
+  pinPeakCurrent as pinPeak,
+  settlingTime,
+  steadyState,
+  timeConstants as ladderTimeConstants,
+  worstRipple as findWorstRipple,
+} from './index.js';
+import { specChecks, type Check } from './checks.js';
+import type { DcTransfer, OperatingPoint, Settling, WorstRipple } from './types.js';
+
+export type { Check } from './checks.js';
+
+/** Everything `analyze` reports about one project, SI base units throughout. */
+export interface Analysis {
+  /** The circuit that was analysed. */
+  ladder: Ladder;
+  /** Periodic steady state at each requested duty (or on the default grid). */
+  points: OperatingPoint[];
+  worstRipple: WorstRipple;
+  dc: DcTransfer;
+  settling: Settling;
+  /** -3 dB frequency, Hz. */
+  cutoff: number;
+  /** Small-signal gain at the PWM frequency relative to DC, dB (negative). */
+  attenuation: number;
+  /** A. */
+  pinPeakCurrent: number;
+  /** s, as the engine reports them. */
+  timeConstants: number[];
+  /** V, or null when the resolution is unknown. */
+  lsb: number | null;
+  checks: Check[];
+  /** Every check passes (true when there are no checks). */
+  pass: boolean;
+}
+
+export interface AnalyzeOptions {
+  /** Duties to evaluate (fractions 0..1); default: a grid over the used range. */
+  duties?: number[];
+  /** Number of grid duties when `duties` is not given (default 11). */
+  grid?: number;
+}
+
+/** Settling band when the spec gives none: 0.5 LSB, else 0.1 % of full scale (common practice). */
+export function defaultBand(project: Project): number {
+  const fullScale = Math.abs(project.pwm.high - project.pwm.low);
+  return project.lsb !== undefined ? 0.5 * project.lsb : 1e-3 * fullScale;
+}
+
+/**
+ * Analyse a project: operating points, worst ripple, DC transfer, settling, cutoff, attenuation at
+ * the PWM frequency, pin current, time constants, and the spec checks.
+ *
+ * Method: every figure comes from the exact engine (src/engine); this function only chooses the
+ * duties and the settling step and compares the results with the spec (see checks.ts).
+ * Settling step: `spec.settling.from`/`to` when given (a missing end defaults to that end of the used
+ * duty range), else the slower of the full-range rising and falling steps. Band: `spec.settling.band`,
+ * else 0.5 LSB when `pwm.bits` is known, else 0.1 % of full scale.
+ *
+ * Syntax: analyzeProject(project[, { duties, grid }])
+ * Example: analyzeProject(p, { duties: [0.25, 0.5] }).worstRipple.ripple   // V peak-to-peak
+ */
+export function analyzeProject(project: Project, options: AnalyzeOptions = {}): Analysis {
+  const ladder = ladderFromProject(project);
+  const { min: dMin, max: dMax } = project.pwm.duty;
+  const duties = options.duties ?? dutyGrid(dMin, dMax, options.grid ?? 11);
+  for (const d of duties) {
+    if (!(d >= 0 && d <= 1)) throw new RangeError(`duty ${d} is outside 0..1`);
+  }
+
+  const settlingSpec = project.spec.settling;
+  const band = settlingSpec?.band ?? defaultBand(project);
+  const hasStep = settlingSpec?.from !== undefined || settlingSpec?.to !== undefined;
+  const settling = hasStep
+    ? settlingTime(ladder, settlingSpec?.from ?? dMin, settlingSpec?.to ?? dMax, band)
+    : defaultSettling(ladder, dMin, dMax, band);
+
+  const worstRipple = findWorstRipple(ladder, dMin, dMax);
+  const dc = dcTransfer(ladder, dMin, dMax);
+  const peak = pinPeak(ladder);
+  const checks = specChecks(project, { worstRipple, dc, settling, pinPeakCurrent: peak });
+
+  return {
+    ladder,
+    points: duties.map((d) => steadyState(ladder, d)),
+    worstRipple,
+    dc,
+    settling,
+    cutoff: cutoffFrequency(ladder),
+    attenuation: 20 * Math.log10(magnitude(ladder, 1 / ladder.period)),
+    pinPeakCurrent: peak,
+    timeConstants: ladderTimeConstants(ladder),
+    lsb: project.lsb ?? null,
+    checks,
+    pass: checks.every((c) => c.pass),
+  };
+}
+
+/** `n` evenly spaced duties from `min` to `max` inclusive (one point when they coincide). */
+export function dutyGrid(min: number, max: number, n: number): number[] {
+  if (max <= min || n < 2) return [min];
+  return Array.from({ length: n }, (_, i) => (i === n - 1 ? max : min + ((max - min) * i) / (n - 1)));
+}

@@ -1,0 +1,15 @@
+import type { Prepared } from './prepare.js';
+import { dutyPlan } from './dutyPlan.js';
+import { oneStageSteadyState } from './oneStage.js';
+
+/**
+ * Time-average output in periodic steady state at a duty, V, without computing extremes.
+ *
+ * Method: the average of dutyPlan.ts (closed form for one stage, oneStage.ts).
+ *
+ * Syntax: averageOutput(prepared, duty)
+ * Example: averageOutput(prepare(ladder), 0.25)  // 0.825 for 3.3 V, no load, equal drivers
+ */
+export function averageOutput(p: Prepared, duty: number): number {
+  return p.n === 1 ? oneStageSteadyState(p, duty).average : dutyPlan(p, duty).average;
+}

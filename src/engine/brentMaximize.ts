@@ -1,0 +1,81 @@
+/** A located maximum. */
+export interface Maximum {
+  x: number;
+  value: number;
+}
+
+/**
+ * A local maximum of f inside [a, b] (the end points themselves are not evaluated; callers
+ * compare with them).
+ *
+ * Method: Brent's minimizer on -f, golden-section search with parabolic interpolation
+ * (R. P. Brent, "Algorithms for Minimization without Derivatives", Prentice-Hall 1973, ch. 5,
+ * procedure localmin). Stops when the bracket is within 2 (sqrt(eps) |x| + xtol/3).
+ *
+ * Syntax: brentMaximize(f, a, b[, xtol])
+ * Example: brentMaximize((x) => -(x - 1) ** 2, 0, 3).x  // 1
+ */
+export function brentMaximize(f: (x: number) => number, a: number, b: number, xtol = 1e-10): Maximum {
+  const golden = 0.5 * (3 - Math.sqrt(5));
+  const g = (x: number) => -f(x);
+  let x = a + golden * (b - a);
+  let w = x;
+  let v = x;
+  let fx = g(x);
+  let fw = fx;
+  let fv = fx;
+  let d = 0;
+  let e = 0;
+  for (let iter = 0; iter < 200; iter++) {
+    const xm = 0.5 * (a + b);
+    const tol1 = Math.sqrt(Number.EPSILON) * Math.abs(x) + xtol / 3;
+    const tol2 = 2 * tol1;
+    if (Math.abs(x - xm) <= tol2 - 0.5 * (b - a)) break;
+    let useGolden = true;
+    if (Math.abs(e) > tol1) {
+      let r = (x - w) * (fx - fv);
+      let q = (x - v) * (fx - fw);
+      let p = (x - v) * q - (x - w) * r;
+      q = 2 * (q - r);
+      if (q > 0) p = -p;
+      q = Math.abs(q);
+      r = e;
+      e = d;
+      if (Math.abs(p) < Math.abs(0.5 * q * r) && p > q * (a - x) && p < q * (b - x)) {
+        d = p / q;
+        const u = x + d;
+        if (u - a < tol2 || b - u < tol2) d = xm >= x ? tol1 : -tol1;
+        useGolden = false;
+      }
+    }
+    if (useGolden) {
+      e = x >= xm ? a - x : b - x;
+      d = golden * e;
+    }
+    const u = x + (Math.abs(d) >= tol1 ? d : d >= 0 ? tol1 : -tol1);
+    const fu = g(u);
+    if (fu <= fx) {
+      if (u >= x) a = x;
+      else b = x;
+      v = w;
+      fv = fw;
+      w = x;
+      fw = fx;
+      x = u;
+      fx = fu;
+    } else {
+      if (u < x) a = u;
+      else b = u;
+      if (fu <= fw || w === x) {
+        v = w;
+        fv = fw;
+        w = u;
+        fw = fu;
+      } else if (fu <= fv || v === x || v === w) {
+        v = u;
+        fv = fu;
+      }
+    }
+  }
+  return { x, value: -fx };
+}

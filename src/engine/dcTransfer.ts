@@ -1,0 +1,45 @@
+import type { Ladder } from '../circuit/ladder.js';
+import type { DcTransfer } from './types.js';
+import { averageOutput } from './averageOutput.js';
+import { checkRange } from './checkDuty.js';
+import { maximizeOnInterval } from './maximizeOnInterval.js';
+import { prepare } from './prepare.js';
+
+/**
+ * DC transfer errors of the PWM DAC over the used range [dutyMin, dutyMax], all in V:
+ * - droop: the DC error ideal - average with the largest magnitude (sign kept) and its duty,
+ *   ideal = low + D (high - low);
+ * - endpoint fit: the line through average(dutyMin) and average(dutyMax); offsetError =
+ *   fit(0) - ideal(0), gainError = (fit(1) - fit(0)) - (high - low);
+ * - inl: the largest deviation average - fit (sign kept) and its duty.
+ * With a single duty (dutyMin = dutyMax) the fit takes the ideal slope.
+ *
+ * Method: exact averages (dutyPlan.ts). With unequal high and low driver resistances average(D)
+ * is not affine, so the extremes are searched: 16-cell grid plus Brent refinement
+ * (maximizeOnInterval.ts). Endpoint-fit terms as DAC data sheets define them (common practice).
+ *
+ * Syntax: dcTransfer(ladder, dutyMin, dutyMax)
+ * Example: dcTransfer(loadedLadder, 0.05, 0.95).droop  // { duty: 0.95, error: 0.03 }
+ */
+export function dcTransfer(ladder: Ladder, dutyMin: number, dutyMax: number): DcTransfer {
+  checkRange(dutyMin, dutyMax);
+  const p = prepare(ladder);
+  const span = ladder.high - ladder.low;
+  const ideal = (d: number) => ladder.low + d * span;
+  const average = (d: number) => averageOutput(p, d);
+  const error = (d: number) => ideal(d) - average(d);
+
+  const droopAt = maximizeOnInterval((d) => Math.abs(error(d)), dutyMin, dutyMax).x;
+  const yMin = average(dutyMin);
+  const yMax = average(dutyMax);
+  const slope = dutyMax > dutyMin ? (yMax - yMin) / (dutyMax - dutyMin) : span;
+  const fit = (d: number) => yMin + slope * (d - dutyMin);
+  const deviation = (d: number) => average(d) - fit(d);
+  const inlAt = maximizeOnInterval((d) => Math.abs(deviation(d)), dutyMin, dutyMax).x;
+  return {
+    droop: { duty: droopAt, error: error(droopAt) },
+    offsetError: fit(0) - ideal(0),
+    gainError: slope - span,
+    inl: { duty: inlAt, error: deviation(inlAt) },
+  };
+}

@@ -1,0 +1,224 @@
+/**
+ * Small dense linear algebra for the engine: square matrices of order n <= 12 stored row-major in a
+ * Float64Array (entry (i, j) at i * n + j), vectors as Float64Array. Hand-written because the
+ * matrices are tiny and called millions of times: a general library's overhead would dominate.
+ *
+ * Method: textbook kernels (Golub & Van Loan, "Matrix Computations", 4th ed., ch. 1 and 3):
+ * ijk products, LU factorization with partial pivoting (Algorithm 3.4.1) and triangular solves.
+ */
+
+/** Row-major square matrix of order n. */
+export type Matrix = Float64Array;
+/** Column vector. */
+export type Vector = Float64Array;
+
+/**
+ * The identity of order n.
+ *
+ * Syntax: identity(n)
+ * Example: identity(2)  // Float64Array [1, 0, 0, 1]
+ */
+export function identity(n: number): Matrix {
+  const m = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) m[i * n + i] = 1;
+  return m;
+}
+
+/**
+ * Matrix product a b of two n x n matrices, written into `out` (must not alias a or b).
+ *
+ * Syntax: matmul(a, b, n[, out])
+ * Example: matmul(identity(2), m, 2)  // a copy of m
+ */
+export function matmul(a: Matrix, b: Matrix, n: number, out: Matrix = new Float64Array(n * n)): Matrix {
+  for (let i = 0; i < n; i++) {
+    const row = i * n;
+    for (let j = 0; j < n; j++) out[row + j] = 0;
+    for (let k = 0; k < n; k++) {
+      const aik = a[row + k];
+      if (aik === 0) continue;
+      const bk = k * n;
+      for (let j = 0; j < n; j++) out[row + j] += aik * b[bk + j];
+    }
+  }
+  return out;
+}
+
+/**
+ * Matrix-vector product a x.
+ *
+ * Syntax: matvec(a, x, n[, out])
+ * Example: matvec(identity(2), Float64Array.of(1, 2), 2)  // [1, 2]
+ */
+export function matvec(a: Matrix, x: Vector, n: number, out: Vector = new Float64Array(n)): Vector {
+  for (let i = 0; i < n; i++) {
+    let s = 0;
+    const row = i * n;
+    for (let k = 0; k < n; k++) s += a[row + k] * x[k];
+    out[i] = s;
+  }
+  return out;
+}
+
+/**
+ * Row i of a times x: (a x)_i, without forming the whole product.
+ *
+ * Syntax: rowDot(a, i, x, n)
+ * Example: rowDot(identity(2), 1, Float64Array.of(3, 4), 2)  // 4
+ */
+export function rowDot(a: Matrix, i: number, x: Vector, n: number): number {
+  let s = 0;
+  const row = i * n;
+  for (let k = 0; k < n; k++) s += a[row + k] * x[k];
+  return s;
+}
+
+/**
+ * Maximum absolute column sum, the matrix 1-norm.
+ *
+ * Syntax: norm1(a, n)
+ * Example: norm1(Float64Array.of(1, -2, 3, 4), 2)  // 6
+ */
+export function norm1(a: Matrix, n: number): number {
+  let best = 0;
+  for (let j = 0; j < n; j++) {
+    let s = 0;
+    for (let i = 0; i < n; i++) s += Math.abs(a[i * n + j]);
+    if (s > best) best = s;
+  }
+  return best;
+}
+
+/**
+ * Maximum absolute row sum, the matrix infinity-norm.
+ *
+ * Syntax: normInf(a, n)
+ * Example: normInf(Float64Array.of(1, -2, 3, 4), 2)  // 7
+ */
+export function normInf(a: Matrix, n: number): number {
+  let best = 0;
+  for (let i = 0; i < n; i++) {
+    let s = 0;
+    for (let j = 0; j < n; j++) s += Math.abs(a[i * n + j]);
+    if (s > best) best = s;
+  }
+  return best;
+}
+
+/**
+ * Largest absolute entry of a vector.
+ *
+ * Syntax: vectorNormInf(x)
+ * Example: vectorNormInf(Float64Array.of(1, -3))  // 3
+ */
+export function vectorNormInf(x: Vector): number {
+  let best = 0;
+  for (let i = 0; i < x.length; i++) {
+    const v = Math.abs(x[i]);
+    if (v > best) best = v;
+  }
+  return best;
+}
+
+/** An LU factorization P a = L U, L unit lower triangular, both packed in `lu`. */
+export interface LuFactors {
+  n: number;
+  lu: Matrix;
+  /** Row i of the factored matrix is row piv[i] of a. */
+  piv: Int32Array;
+}
+
+/**
+ * LU factorization with partial pivoting (Golub & Van Loan, Algorithm 3.4.1). Throws on an exactly
+ * singular matrix; the engine's matrices are nonsingular by construction.
+ *
+ * Syntax: luFactor(a, n)
+ * Example: luSolve(luFactor(a, 2), b)  // x with a x = b
+ */
+export function luFactor(a: Matrix, n: number): LuFactors {
+  const lu = Float64Array.from(a);
+  const piv = new Int32Array(n);
+  for (let i = 0; i < n; i++) piv[i] = i;
+  for (let k = 0; k < n; k++) {
+    let p = k;
+    let big = Math.abs(lu[k * n + k]);
+    for (let i = k + 1; i < n; i++) {
+      const v = Math.abs(lu[i * n + k]);
+      if (v > big) {
+        big = v;
+        p = i;
+      }
+    }
+    if (big === 0) throw new RangeError('singular matrix in luFactor');
+    if (p !== k) {
+      for (let j = 0; j < n; j++) {
+        const t = lu[k * n + j];
+        lu[k * n + j] = lu[p * n + j];
+        lu[p * n + j] = t;
+      }
+      const t = piv[k];
+      piv[k] = piv[p];
+      piv[p] = t;
+    }
+    const pivot = lu[k * n + k];
+    for (let i = k + 1; i < n; i++) {
+      const m = lu[i * n + k] / pivot;
+      lu[i * n + k] = m;
+      if (m === 0) continue;
+      for (let j = k + 1; j < n; j++) lu[i * n + j] -= m * lu[k * n + j];
+    }
+  }
+  return { n, lu, piv };
+}
+
+/**
+ * Solve a x = b from the LU factors of a.
+ *
+ * Syntax: luSolve(factors, b)
+ * Example: luSolve(luFactor(Float64Array.of(2, 0, 0, 4), 2), Float64Array.of(2, 2))  // [1, 0.5]
+ */
+export function luSolve(f: LuFactors, b: Vector): Vector {
+  const { n, lu, piv } = f;
+  const x = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    let s = b[piv[i]];
+    for (let k = 0; k < i; k++) s -= lu[i * n + k] * x[k];
+    x[i] = s;
+  }
+  for (let i = n - 1; i >= 0; i--) {
+    let s = x[i];
+    for (let k = i + 1; k < n; k++) s -= lu[i * n + k] * x[k];
+    x[i] = s / lu[i * n + i];
+  }
+  return x;
+}
+
+/**
+ * Solve a X = B for a square matrix B (all columns at once).
+ *
+ * Syntax: luSolveMatrix(factors, b)
+ * Example: luSolveMatrix(luFactor(a, n), identity(n))  // the inverse of a
+ */
+export function luSolveMatrix(f: LuFactors, b: Matrix): Matrix {
+  const { n, lu, piv } = f;
+  const x = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) {
+    const src = piv[i] * n;
+    for (let j = 0; j < n; j++) x[i * n + j] = b[src + j];
+    for (let k = 0; k < i; k++) {
+      const m = lu[i * n + k];
+      if (m === 0) continue;
+      for (let j = 0; j < n; j++) x[i * n + j] -= m * x[k * n + j];
+    }
+  }
+  for (let i = n - 1; i >= 0; i--) {
+    for (let k = i + 1; k < n; k++) {
+      const m = lu[i * n + k];
+      if (m === 0) continue;
+      for (let j = 0; j < n; j++) x[i * n + j] -= m * x[k * n + j];
+    }
+    const d = lu[i * n + i];
+    for (let j = 0; j < n; j++) x[i * n + j] /= d;
+  }
+  return x;
+}

@@ -1,0 +1,129 @@
+import { luFactor, luSolve, matmul, matvec, normInf, type Matrix, type Vector } from './dense.js';
+import { doubleFlow, flow, type Flow } from './flow.js';
+import { PLAN_CACHE_SIZE, type Prepared } from './prepare.js';
+import type { PeriodExtrema } from './periodTrajectory.js';
+
+/** One phase (pin high or low) of a period at a given duty. */
+export interface PhasePlan {
+  A: Matrix;
+  /** Phase length, s (0 at duty 0 or 1). */
+  t: number;
+  /** Grid cells and their length t / cells. */
+  cells: number;
+  h: number;
+  /** Flow over one cell (marching) and over the whole phase. */
+  step: Flow;
+  full: Flow;
+  /**
+   * Flows over h 2^-K, h 2^-(K-1), ..., h/2: the first cell is marched on the geometric grid
+   * 0, h 2^-K, h 2^-(K-1), ..., h so that turning points caused by time constants far shorter than
+   * a cell are bracketed too. Empty when h is short against every time constant.
+   */
+  fine: Flow[];
+}
+
+/** Periodic steady state at one duty, without extrema; quantities in deviation form. */
+export interface DutyPlan {
+  duty: number;
+  high: PhasePlan;
+  low: PhasePlan;
+  /** S = I - E_l E_h = K_l + E_l K_h: the one-period map of deviations is I - S. */
+  S: Matrix;
+  /** u = x_s - x_l, x_s the state at the rising edge. */
+  u: Vector;
+  /** Delta - u = x_h - x_s, what drives the high phase. */
+  vHigh: Vector;
+  /** x_s = x_l + u. */
+  xStart: Vector;
+  /** Output at the rising edge, V. */
+  yStart: number;
+  /** average - yStart, V (a small quantity, kept separately for relative accuracy). */
+  meanOffset: number;
+  /** Time-average output, V. */
+  average: number;
+  /** Steady-state extrema, filled on first use. */
+  extrema?: PeriodExtrema;
+}
+
+/**
+ * Periodic steady state of the ladder at duty D, in deviations from the DC state of the low phase.
+ *
+ * Method: exact per-phase flows (flow.ts). With Delta = x_h - x_l, t1 = D T, t2 = (1 - D) T,
+ * u = x_s - x_l solves (K_l + E_l K_h) u = E_l K_h Delta (I - E_l E_h written as K_l + E_l K_h so
+ * nothing cancels when the time constants dwarf T), and Delta - u = (K_l + E_l K_h)^{-1} K_l Delta. The deviation from x_s is K_h(t)(Delta - u) in
+ * the high phase; the average is y_s + c^T [J_h (Delta - u) + t2 w_a + J_l (-u - w_a)] / T with
+ * w_a = K_h(t1)(Delta - u). Whole-phase flows come from the cell flow by exact doubling, so the
+ * grid used for extrema costs nothing extra.
+ *
+ * Syntax: dutyPlan(prepared, duty)
+ * Example: dutyPlan(prepare(ladder), 0.5).average  // V
+ */
+export function dutyPlan(p: Prepared, duty: number): DutyPlan {
+  const hit = p.plans.get(duty);
+  if (hit) return hit;
+  const { n, period } = p;
+  const t1 = duty * period;
+  const t2 = (1 - duty) * period;
+  const high = phasePlan(p.system.high.A, n, t1, p.cells);
+  const low = phasePlan(p.system.low.A, n, t2, p.cells);
+  const Kh = high.full.K;
+  const El = low.full.E;
+  const ElKh = matmul(El, Kh, n);
+  const S = new Float64Array(n * n);
+  for (let i = 0; i < n * n; i++) S[i] = low.full.K[i] + ElKh[i];
+  const factors = luFactor(S, n);
+  const u = luSolve(factors, matvec(ElKh, p.delta, n));
+  const out = p.system.output;
+  // Delta - u = S^{-1} K_l Delta: no subtraction, so it keeps its digits near duty 1 where u ~ Delta.
+  const vHigh = luSolve(factors, matvec(low.full.K, p.delta, n));
+  const wA = matvec(Kh, vHigh, n);
+  const vLow = u.map((ui, i) => -ui - wA[i]);
+  const integral =
+    rowOf(high.full.J as Matrix, out, vHigh, n) + t2 * wA[out] + rowOf(low.full.J as Matrix, out, vLow, n);
+  const meanOffset = integral / period;
+  const yStart = p.xLow[out] + u[out];
+  const plan: DutyPlan = {
+    duty,
+    high,
+    low,
+    S,
+    u,
+    vHigh,
+    xStart: u.map((ui, i) => p.xLow[i] + ui),
+    yStart,
+    meanOffset,
+    average: yStart + meanOffset,
+  };
+  if (p.plans.size >= PLAN_CACHE_SIZE) p.plans.clear();
+  p.plans.set(duty, plan);
+  return plan;
+}
+
+function rowOf(m: Matrix, i: number, x: Vector, n: number): number {
+  let s = 0;
+  for (let k = 0; k < n; k++) s += m[i * n + k] * x[k];
+  return s;
+}
+
+/**
+ * Flows over the geometric sub-grid of the first cell, one cell and the whole phase, all by exact
+ * doubling from one flow over h 2^-K (cells is a power of two). K makes h 2^-K ||A||_inf <= 1/4,
+ * and ||A||_inf >= 1/tau_min, so the finest step is below a quarter of the fastest time constant.
+ */
+function phasePlan(A: Matrix, n: number, t: number, cells: number): PhasePlan {
+  const h = t / cells;
+  const levels = n === 1 || t === 0 ? 0 : Math.min(MAX_FINE_LEVELS, Math.max(0, Math.ceil(Math.log2(4 * h * normInf(A, n)))));
+  let f = flow(A, n, h / 2 ** levels, true);
+  const fine: Flow[] = [];
+  for (let k = 0; k < levels; k++) {
+    fine.push(f);
+    f = doubleFlow(f, n);
+  }
+  const step = f;
+  let full = step;
+  for (let c = 1; c < cells; c *= 2) full = doubleFlow(full, n);
+  return { A, t, cells, h, step, full, fine };
+}
+
+/** Deepest geometric refinement of the first cell (2^-60 of a cell). */
+const MAX_FINE_LEVELS = 60;

@@ -1,0 +1,13 @@
+/** The exact engine: periodic steady state, settling, DC transfer and small-signal figures. */
+export { steadyState } from './steadyState.js';
+export { worstRipple } from './worstRipple.js';
+export { dcTransfer } from './dcTransfer.js';
+export { settlingTime } from './settlingTime.js';
+export { defaultSettling } from './defaultSettling.js';
+export { cutoff } from './cutoff.js';
+export { magnitude } from './magnitude.js';
+export { pinPeakCurrent } from './pinPeakCurrent.js';
+export { timeConstants } from './timeConstants.js';
+export { steadyWaveform } from './steadyWaveform.js';
+export { stepWaveform } from './stepWaveform.js';
+export type { OperatingPoint, WorstRipple, DcTransfer, Settling, Waveform } from './types.js';

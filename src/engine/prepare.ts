@@ -1,0 +1,69 @@
+import type { Ladder } from '../circuit/ladder.js';
+import { stateSpace, type StateSpace } from '../circuit/stateSpace.js';
+import { luFactor, luSolve, type Vector } from './dense.js';
+import type { DutyPlan } from './dutyPlan.js';
+
+/** Everything about a ladder that does not depend on the duty, computed once per ladder object. */
+export interface Prepared {
+  ladder: Ladder;
+  n: number;
+  period: number;
+  system: StateSpace;
+  /** DC state of each phase alone: x_p = -A_p^{-1} b_p. */
+  xHigh: Vector;
+  xLow: Vector;
+  /** xHigh - xLow, formed from the per-volt gains so equal drivers give no subtraction. */
+  delta: Vector;
+  /** Grid cells per phase for locating turning points (1 for one stage: none exist). */
+  cells: number;
+  /** Per-duty work, reused by several calls on the same ladder (bounded size). */
+  plans: Map<number, DutyPlan>;
+  /** Lazily filled: time constants, slowest first. */
+  timeConstants?: number[];
+}
+
+const cache = new WeakMap<Ladder, Prepared>();
+
+/** Largest number of cached duty plans per ladder before the cache is cleared. */
+export const PLAN_CACHE_SIZE = 64;
+
+/**
+ * The duty-independent data of a ladder (state equations, DC states), cached per ladder object.
+ * Ladders are treated as immutable: a ladder changed after its first use keeps its old cache.
+ *
+ * Method: DC gain per volt g_p from an LU solve of A_p g = -input_p (dense.ts); x_p = V_p g_p.
+ * Delta = (V_h - V_l) g when both drivers are equal (no subtraction of nearly equal states),
+ * else V_h g_h - V_l g_l.
+ *
+ * Syntax: prepare(ladder)
+ * Example: prepare(ladder).xHigh  // node voltages if the pin stayed high forever
+ */
+export function prepare(ladder: Ladder): Prepared {
+  const hit = cache.get(ladder);
+  if (hit) return hit;
+  const system = stateSpace(ladder);
+  const { n } = system;
+  const gainPerVolt = (A: Float64Array, input: Float64Array): Vector =>
+    luSolve(luFactor(A, n), input.map((v) => -v));
+  const gHigh = gainPerVolt(system.high.A, system.high.input);
+  const gLow =
+    ladder.driverHigh === ladder.driverLow ? gHigh : gainPerVolt(system.low.A, system.low.input);
+  const span = ladder.high - ladder.low;
+  const delta =
+    ladder.driverHigh === ladder.driverLow
+      ? gHigh.map((g) => g * span)
+      : gHigh.map((g, i) => g * ladder.high - gLow[i] * ladder.low);
+  const prepared: Prepared = {
+    ladder,
+    n,
+    period: ladder.period,
+    system,
+    xHigh: gHigh.map((g) => g * ladder.high),
+    xLow: gLow.map((g) => g * ladder.low),
+    delta,
+    cells: n === 1 ? 1 : n === 2 ? 8 : 32,
+    plans: new Map(),
+  };
+  cache.set(ladder, prepared);
+  return prepared;
+}

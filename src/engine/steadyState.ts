@@ -1,0 +1,38 @@
+import type { Ladder } from '../circuit/ladder.js';
+import type { OperatingPoint } from './types.js';
+import { checkDuty } from './checkDuty.js';
+import { dutyPlan } from './dutyPlan.js';
+import { oneStageSteadyState } from './oneStage.js';
+import { periodTrajectory } from './periodTrajectory.js';
+import { prepare } from './prepare.js';
+
+/**
+ * Periodic steady state of the filter output at a duty D (0..1): average, extremes, ripple and
+ * where in the period (s from the rising edge) the extremes occur.
+ *
+ * Method: exact per-phase matrix exponentials and the fixed point of the one-period map, in
+ * deviations from the DC states so that a ripple of 1e-9 of the level keeps its digits (dutyPlan.ts);
+ * extremes from phase boundaries and the refined zeros of the output's derivative
+ * (periodTrajectory.ts); closed form for one stage (oneStage.ts). The ripple is computed from the
+ * deviations, never as max - min of the levels.
+ *
+ * Syntax: steadyState(ladder, duty)
+ * Example: steadyState(ladder, 0.5)  // { duty: 0.5, average: 1.65, min, max, ripple, tMin, tMax }
+ */
+export function steadyState(ladder: Ladder, duty: number): OperatingPoint {
+  checkDuty(duty, 'duty');
+  const p = prepare(ladder);
+  if (p.n === 1) return oneStageSteadyState(p, duty);
+  const plan = dutyPlan(p, duty);
+  plan.extrema ??= periodTrajectory(p, plan);
+  const { minW, maxW, tMin, tMax } = plan.extrema;
+  return {
+    duty,
+    average: plan.average,
+    min: plan.yStart + minW,
+    max: plan.yStart + maxW,
+    ripple: maxW - minW,
+    tMin,
+    tMax,
+  };
+}

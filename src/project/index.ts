@@ -1,0 +1,8 @@
+/** The project file: loading, validation and normalization to SI (model.md, version 1). */
+export { loadProject } from './loadProject.js';
+export { parseProject } from './parseProject.js';
+export { ProjectError, formatIssue, type ProjectIssue } from './projectError.js';
+export { derivePwmFrequency } from './derivePwmFrequency.js';
+export { lsbOf } from './lsbOf.js';
+export { parseSpecLevel, type SpecLevel } from './parseSpecLevel.js';
+export type * from './types.js';

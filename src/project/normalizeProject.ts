@@ -1,0 +1,333 @@
+import type { Stage } from '../circuit/ladder.js';
+import { formatEng, parseQuantity, QuantityError, type Dimension, type ParseQuantityOptions } from '../units/index.js';
+import { agreesAsWritten } from './agreesAsWritten.js';
+import { derivePwmFrequency } from './derivePwmFrequency.js';
+import { parseSpecLevel, type SpecLevel } from './parseSpecLevel.js';
+import type { IssueDraft } from './projectError.js';
+import type {
+  Alignment,
+  LoadSettings,
+  Project,
+  PwmSettings,
+  SearchSettings,
+  SettlingSpec,
+  Spec,
+  ToleranceSettings,
+} from './types.js';
+
+type Path = ReadonlyArray<string | number>;
+type Range = { min: number; max: number };
+
+const percent = (fraction: number): string => `${Number((fraction * 100).toPrecision(6))} %`;
+
+/** Reads values out of schema-checked raw data, collecting every problem instead of stopping. */
+class Reader {
+  readonly issues: IssueDraft[] = [];
+  constructor(private readonly root: Record<string, unknown>) {}
+
+  raw(path: Path): unknown {
+    let node: unknown = this.root;
+    for (const segment of path) {
+      if (node === null || typeof node !== 'object') return undefined;
+      node = (node as Record<string | number, unknown>)[segment];
+    }
+    return node;
+  }
+
+  has(path: Path): boolean {
+    return this.raw(path) !== undefined && this.raw(path) !== null;
+  }
+
+  fail(path: Path, message: string, at: 'key' | 'value' = 'value'): void {
+    this.issues.push({ path, message, at });
+  }
+
+  /** The quantity at `path` in SI, undefined when absent or wrong (then an issue is recorded). */
+  quantity(path: Path, dimension: Dimension, opts?: ParseQuantityOptions): number | undefined {
+    const value = this.raw(path);
+    if (value === undefined || value === null) return undefined;
+    try {
+      return parseQuantity(value as string | number, dimension, opts);
+    } catch (error) {
+      if (!(error instanceof QuantityError)) throw error;
+      this.fail(path, error.message);
+      return undefined;
+    }
+  }
+
+  level(path: Path, scale: { fullScale: number; lsb?: number }): SpecLevel | undefined {
+    const value = this.raw(path);
+    if (value === undefined || value === null) return undefined;
+    try {
+      return parseSpecLevel(value as string | number, scale);
+    } catch (error) {
+      if (!(error instanceof QuantityError)) throw error;
+      this.fail(path, error.message);
+      return undefined;
+    }
+  }
+
+  /** {min, max} with min <= max (or < when `strict`). */
+  range(path: Path, dimension: Dimension, unit: string, opts: ParseQuantityOptions, strict: boolean): Range | undefined {
+    const min = this.quantity([...path, 'min'], dimension, opts);
+    const max = this.quantity([...path, 'max'], dimension, opts);
+    if (min === undefined || max === undefined) return undefined;
+    if (strict ? !(min < max) : !(min <= max)) {
+      this.fail([...path, 'min'], `min (${formatEng(min, unit)}) must be ${strict ? 'below' : 'at most'} max (${formatEng(max, unit)})`);
+      return undefined;
+    }
+    return { min, max };
+  }
+
+  /** A relative tolerance: a fraction below 1 (100 %). */
+  tolerance(path: Path): number | undefined {
+    const value = this.quantity(path, 'fraction');
+    if (value !== undefined && value >= 1) {
+      this.fail(path, `a tolerance must be below 100 %, got '${String(this.raw(path))}'`);
+      return undefined;
+    }
+    return value;
+  }
+}
+
+/**
+ * Turn schema-checked project data into the `Project` the engine uses: every quantity in SI
+ * base units, defaults filled in (model.md, project file version 1), the PWM frequency derived
+ * from the timer when a clock is given, spec levels in volts, and the cross-key rules checked
+ * (high above low, duty min below max, clock and frequency agreeing, LSB limits needing bits).
+ *
+ * Syntax: normalizeProject(data, file)
+ * Example: normalizeProject({ pwm: { frequency: '20 kHz', high: '3.3 V' }, filter: { stages: [{ r: '4k7', c: '100n' }] } }, 'p.yaml')
+ *          // { project: { pwm: { frequency: 20000, high: 3.3, low: 0, ... }, ... }, issues: [] }
+ */
+export function normalizeProject(data: Record<string, unknown>, file: string): { project?: Project; issues: IssueDraft[] } {
+  const read = new Reader(data);
+  const pwm = readPwm(read);
+  const lsb = pwm && pwm.bits !== undefined ? (pwm.high - pwm.low) / 2 ** pwm.bits : undefined;
+  const load = readLoad(read);
+  const stages = readStages(read);
+  const { spec, specInLsb } = readSpec(read, pwm, lsb);
+  const search = read.has(['search']) ? readSearch(read, pwm) : undefined;
+  const tolerance = read.has(['tolerance']) ? readTolerance(read, pwm) : undefined;
+
+  if (read.issues.length > 0 || !pwm || !stages) return { issues: read.issues };
+  const project: Project = {
+    file,
+    pwm,
+    load,
+    filter: { stages },
+    spec,
+    ...(search && { search }),
+    ...(tolerance && { tolerance }),
+    ...(lsb !== undefined && { lsb }),
+    ...(Object.keys(specInLsb).length > 0 && { specInLsb }),
+  };
+  return { project, issues: [] };
+}
+
+function readPwm(read: Reader): PwmSettings | undefined {
+  const high = read.quantity(['pwm', 'high'], 'voltage');
+  const low = read.quantity(['pwm', 'low'], 'voltage') ?? (read.has(['pwm', 'low']) ? undefined : 0);
+  if (high !== undefined && low !== undefined && !(high > low)) {
+    read.fail(['pwm', 'high'], `the high level (${formatEng(high, 'V')}) must be above the low level (${formatEng(low, 'V')})`);
+  }
+
+  const driverRaw = read.raw(['pwm', 'driver']);
+  let driver: { high: number; low: number } | undefined = { high: 0, low: 0 };
+  if (driverRaw !== null && typeof driverRaw === 'object') {
+    const dh = read.quantity(['pwm', 'driver', 'high'], 'resistance', { sign: 'nonNegative' });
+    const dl = read.quantity(['pwm', 'driver', 'low'], 'resistance', { sign: 'nonNegative' });
+    driver = dh !== undefined && dl !== undefined ? { high: dh, low: dl } : undefined;
+  } else if (driverRaw !== undefined && driverRaw !== null) {
+    const both = read.quantity(['pwm', 'driver'], 'resistance', { sign: 'nonNegative' });
+    driver = both !== undefined ? { high: both, low: both } : undefined;
+  }
+
+  const dutyMin = read.has(['pwm', 'duty', 'min']) ? read.quantity(['pwm', 'duty', 'min'], 'fraction') : 0;
+  const dutyMax = read.has(['pwm', 'duty', 'max']) ? read.quantity(['pwm', 'duty', 'max'], 'fraction') : 1;
+  if (dutyMin !== undefined && dutyMax !== undefined && !(dutyMin < dutyMax)) {
+    read.fail(['pwm', 'duty', 'min'], `min (${percent(dutyMin)}) must be below max (${percent(dutyMax)})`);
+  }
+
+  const bits = read.raw(['pwm', 'bits']) as number | undefined;
+  const prescaler = (read.raw(['pwm', 'prescaler']) as number | undefined) ?? 1;
+  const alignment = (read.raw(['pwm', 'alignment']) as Alignment | undefined) ?? 'edge';
+  const clock = read.quantity(['pwm', 'clock'], 'frequency', { sign: 'positive' });
+  const given = read.quantity(['pwm', 'frequency'], 'frequency', { sign: 'positive' });
+
+  let frequency = given;
+  if (clock !== undefined && bits !== undefined) {
+    const derived = derivePwmFrequency({ clock, bits, prescaler, alignment });
+    const written = read.raw(['pwm', 'frequency']) as string | number | undefined;
+    if (given !== undefined && written !== undefined && !agreesAsWritten(written, given, derived)) {
+      read.fail(
+        ['pwm', 'frequency'],
+        `${formatEng(given, 'Hz', 6)} does not match the timer: clock / (${alignment === 'center' ? '2 * ' : ''}prescaler * 2^bits) = ` +
+          `${formatEng(clock, 'Hz', 6)} / (${alignment === 'center' ? '2 * ' : ''}${prescaler} * 2^${bits}) = ${formatEng(derived, 'Hz', 6)}; ` +
+          'correct one of them, or give only one',
+      );
+    }
+    frequency = derived;
+  } else if (given === undefined && !read.has(['pwm', 'frequency'])) {
+    const message = read.has(['pwm', 'clock'])
+      ? 'missing; with pwm.clock, give pwm.bits (and pwm.prescaler) so that the frequency follows, or give pwm.frequency'
+      : "missing; give pwm.frequency (e.g. '19.5 kHz'), or pwm.clock and pwm.bits (and pwm.prescaler)";
+    read.fail(['pwm', 'frequency'], message, 'key');
+  }
+
+  if (high === undefined || low === undefined || !(high > low) || !driver || frequency === undefined) return undefined;
+  if (dutyMin === undefined || dutyMax === undefined || !(dutyMin < dutyMax)) return undefined;
+  return {
+    frequency,
+    ...(clock !== undefined && { clock }),
+    ...(bits !== undefined && { bits }),
+    prescaler,
+    alignment,
+    high,
+    low,
+    driver,
+    duty: { min: dutyMin, max: dutyMax },
+  };
+}
+
+function readLoad(read: Reader): LoadSettings {
+  const resistance = read.quantity(['load', 'resistance'], 'resistance', { sign: 'positive' });
+  const capacitance = read.quantity(['load', 'capacitance'], 'capacitance', { sign: 'nonNegative' }) ?? 0;
+  return { ...(resistance !== undefined && { resistance }), capacitance };
+}
+
+function readStages(read: Reader): Stage[] | undefined {
+  const list = read.raw(['filter', 'stages']);
+  if (!Array.isArray(list)) {
+    if (!read.has(['search'])) {
+      read.fail(['filter'], 'missing; give filter.stages (1 to 4 RC stages), or a search section to design a filter', 'key');
+      return undefined;
+    }
+    return []; // design only: the search proposes the stages
+  }
+  const stages: Stage[] = [];
+  let complete = true;
+  list.forEach((_, i) => {
+    const r = read.quantity(['filter', 'stages', i, 'r'], 'resistance', { sign: 'positive' });
+    const c = read.quantity(['filter', 'stages', i, 'c'], 'capacitance', { sign: 'positive' });
+    const buffered = (read.raw(['filter', 'stages', i, 'buffered']) as boolean | undefined) ?? false;
+    if (r === undefined || c === undefined) complete = false;
+    else stages.push({ r, c, buffered });
+  });
+  return complete ? stages : undefined;
+}
+
+function readSpec(
+  read: Reader,
+  pwm: PwmSettings | undefined,
+  lsb: number | undefined,
+): { spec: Spec; specInLsb: NonNullable<Project['specInLsb']> } {
+  const spec: Spec = {};
+  const specInLsb: NonNullable<Project['specInLsb']> = {};
+  if (!read.has(['spec'])) return { spec, specInLsb };
+  // Without a valid pwm section there is no full scale (its issues are reported already): read the
+  // limits against a stand-in scale, to report their own mistakes, and discard the numbers.
+  const scale = pwm ? { fullScale: pwm.high - pwm.low, lsb } : { fullScale: 1, lsb: 1 };
+  for (const key of ['ripple', 'droop', 'inl'] as const) {
+    const level = read.level(['spec', key], scale);
+    if (level) {
+      spec[key] = level.volts;
+      if (level.lsb !== undefined) specInLsb[key] = level.lsb;
+    }
+  }
+  if (read.has(['spec', 'settling'])) {
+    const band = read.level(['spec', 'settling', 'band'], scale);
+    const time = read.quantity(['spec', 'settling', 'time'], 'time', { sign: 'positive' });
+    const from = read.quantity(['spec', 'settling', 'from'], 'fraction');
+    const to = read.quantity(['spec', 'settling', 'to'], 'fraction');
+    if (from !== undefined && to !== undefined && from === to) {
+      read.fail(['spec', 'settling', 'to'], `from and to are the same duty (${percent(from)}); a step needs two different duties`);
+    }
+    if (band) {
+      const settling: SettlingSpec = {
+        band: band.volts,
+        ...(time !== undefined && { time }),
+        ...(from !== undefined && to !== undefined && { from, to }),
+      };
+      spec.settling = settling;
+      if (band.lsb !== undefined) specInLsb.band = band.lsb;
+    }
+  }
+  return { spec, specInLsb };
+}
+
+function readSearch(read: Reader, pwm: PwmSettings | undefined): SearchSettings | undefined {
+  const stages = (read.raw(['search', 'stages']) as number[] | undefined) ?? [1, 2];
+  const series = (read.raw(['search', 'series']) as SearchSettings['series'] | undefined) ?? 'E24';
+  const resistance = read.range(['search', 'resistance'], 'resistance', 'ohm', { sign: 'positive' }, true);
+  const capacitance = read.range(['search', 'capacitance'], 'capacitance', 'F', { sign: 'positive' }, true);
+  const pinCurrent = read.quantity(['search', 'pin_current'], 'current', { sign: 'positive' });
+  let bits: Range | undefined;
+  if (read.has(['search', 'bits'])) {
+    const min = read.raw(['search', 'bits', 'min']) as number;
+    const max = read.raw(['search', 'bits', 'max']) as number;
+    if (!(min <= max)) read.fail(['search', 'bits', 'min'], `min (${min}) must be at most max (${max})`);
+    else bits = { min, max };
+    if (!read.has(['pwm', 'clock'])) {
+      read.fail(['search', 'bits'], 'needs pwm.clock: the frequency at each resolution follows from the timer clock', 'key');
+    }
+  }
+  if (!resistance || !capacitance || !pwm) return undefined;
+  return {
+    stages: [...stages],
+    series,
+    resistance,
+    capacitance,
+    ...(pinCurrent !== undefined && { pinCurrent }),
+    ...(bits && { bits }),
+  };
+}
+
+function readTolerance(read: Reader, pwm: PwmSettings | undefined): ToleranceSettings | undefined {
+  const resistor = read.tolerance(['tolerance', 'resistor']);
+  const capacitor = read.tolerance(['tolerance', 'capacitor']);
+
+  let stages: ToleranceSettings['stages'];
+  const stageList = read.raw(['tolerance', 'stages']);
+  if (Array.isArray(stageList)) {
+    stages = stageList.map((entry, i) => {
+      if (entry === null || entry === undefined) return undefined;
+      const r = read.tolerance(['tolerance', 'stages', i, 'resistor']);
+      const c = read.tolerance(['tolerance', 'stages', i, 'capacitor']);
+      return { ...(r !== undefined && { resistor: r }), ...(c !== undefined && { capacitor: c }) };
+    });
+  }
+
+  let driver: ToleranceSettings['driver'];
+  if (read.has(['tolerance', 'driver'])) {
+    const nominal = pwm?.driver ?? { high: 0, low: 0 };
+    const side = (name: 'high' | 'low'): Range | undefined =>
+      read.has(['tolerance', 'driver', name])
+        ? read.range(['tolerance', 'driver', name], 'resistance', 'ohm', { sign: 'nonNegative' }, false)
+        : { min: nominal[name], max: nominal[name] };
+    const high = side('high');
+    const low = side('low');
+    if (high && low) driver = { high, low };
+  }
+
+  const supply = read.tolerance(['tolerance', 'supply']);
+  const load = read.tolerance(['tolerance', 'load']);
+  const yieldRequired = read.quantity(['tolerance', 'yield'], 'fraction');
+  const distribution = (read.raw(['tolerance', 'distribution']) as ToleranceSettings['distribution'] | undefined) ?? 'normal';
+  const samples = (read.raw(['tolerance', 'samples']) as number | undefined) ?? 10000;
+  const seed = (read.raw(['tolerance', 'seed']) as number | undefined) ?? 1;
+
+  if (resistor === undefined || capacitor === undefined) return undefined;
+  return {
+    resistor,
+    capacitor,
+    ...(stages && { stages }),
+    ...(driver && { driver }),
+    ...(supply !== undefined && { supply }),
+    ...(load !== undefined && { load }),
+    distribution,
+    samples,
+    seed,
+    ...(yieldRequired !== undefined && { yield: yieldRequired }),
+  };
+}

@@ -1,0 +1,437 @@
+import { plot } from 'asciichart';
+import type { Analysis } from '../engine/analyze.js';
+import { stepWaveform, steadyWaveform } from '../engine/index.js';
+import type { Waveform } from '../engine/types.js';
+import type { Project } from '../project/types.js';
+import { formatEng } from '../units/index.js';
+import { axisFormatter } from './axis.js';
+import { palette, type Palette } from './color.js';
+import { table } from './table.js';
+
+/** One side of a comparison: where it came from, the project and its analysis. */
+export interface CompareSide {
+  /** 'base.yaml', or 'main:boards/dac.yaml' for a file at a git revision. */
+  label: string;
+  project: Project;
+  analysis: Analysis;
+}
+
+export type CompareFormat = 'text' | 'markdown' | 'json';
+
+export interface CompareOptions {
+  /** ANSI colour in the text format (default false). */
+  color?: boolean;
+  /** Plot columns per chart (default 72). */
+  columns?: number;
+  /** Plot rows per chart (default 12). */
+  height?: number;
+}
+
+type InputValue = number | string | boolean | null;
+
+/** An input that differs between the two files (`key` is the project-file path). */
+interface InputRow {
+  key: string;
+  label: string;
+  unit: string;
+  base: InputValue;
+  head: InputValue;
+}
+
+/** A figure of the analysis on both sides; null when it does not exist (never settles). */
+interface MetricRow {
+  key: string;
+  label: string;
+  unit: string;
+  base: number | null;
+  head: number | null;
+  delta: number | null;
+  /** Relative change, % of |base|; null when base is 0 or missing, or for logarithmic units. */
+  deltaPercent: number | null;
+}
+
+type CheckStatus = 'passes' | 'still fails' | 'now FAILS' | 'now passes' | 'new, passes' | 'new, FAILS' | 'removed';
+
+interface CheckSide {
+  value: number | null;
+  limit: number;
+  pass: boolean;
+}
+
+interface CheckRow {
+  name: string;
+  unit: string;
+  base: CheckSide | null;
+  head: CheckSide | null;
+  status: CheckStatus;
+}
+
+interface Overlay {
+  t: number[];
+  base: number[];
+  head: number[];
+}
+
+// ---------------------------------------------------------------- inputs
+
+/** Every input the comparison looks at, in file order, with its SI unit ('fraction' for 0..1, '' for none). */
+function inputsOf(p: Project, stageCount: number): InputRow[] {
+  const { pwm, load, spec } = p;
+  const rows: Array<Omit<InputRow, 'head' | 'base'> & { value: InputValue }> = [
+    { key: 'pwm.frequency', label: 'PWM frequency', unit: 'Hz', value: pwm.frequency },
+    { key: 'pwm.clock', label: 'timer clock', unit: 'Hz', value: pwm.clock ?? null },
+    { key: 'pwm.bits', label: 'resolution (bits)', unit: '', value: pwm.bits ?? null },
+    { key: 'pwm.prescaler', label: 'prescaler', unit: '', value: pwm.prescaler },
+    { key: 'pwm.alignment', label: 'alignment', unit: '', value: pwm.alignment },
+    { key: 'pwm.high', label: 'high level', unit: 'V', value: pwm.high },
+    { key: 'pwm.low', label: 'low level', unit: 'V', value: pwm.low },
+    { key: 'pwm.driver.high', label: 'driver resistance, high', unit: 'ohm', value: pwm.driver.high },
+    { key: 'pwm.driver.low', label: 'driver resistance, low', unit: 'ohm', value: pwm.driver.low },
+    { key: 'pwm.duty.min', label: 'duty min', unit: 'fraction', value: pwm.duty.min },
+    { key: 'pwm.duty.max', label: 'duty max', unit: 'fraction', value: pwm.duty.max },
+    { key: 'load.resistance', label: 'load resistance', unit: 'ohm', value: load.resistance ?? null },
+    { key: 'load.capacitance', label: 'load capacitance', unit: 'F', value: load.capacitance },
+  ];
+  for (let i = 0; i < stageCount; i++) {
+    const s = p.filter.stages[i];
+    const k = `filter.stages[${i}]`;
+    rows.push(
+      { key: `${k}.r`, label: `R${i + 1}`, unit: 'ohm', value: s?.r ?? null },
+      { key: `${k}.c`, label: `C${i + 1}`, unit: 'F', value: s?.c ?? null },
+      { key: `${k}.buffered`, label: `follower after stage ${i + 1}`, unit: '', value: s ? s.buffered : null },
+    );
+  }
+  rows.push(
+    { key: 'spec.ripple', label: 'ripple limit', unit: 'V', value: spec.ripple ?? null },
+    { key: 'spec.droop', label: 'droop limit', unit: 'V', value: spec.droop ?? null },
+    { key: 'spec.inl', label: 'INL limit', unit: 'V', value: spec.inl ?? null },
+    { key: 'spec.settling.band', label: 'settling band', unit: 'V', value: spec.settling?.band ?? null },
+    { key: 'spec.settling.time', label: 'settling time limit', unit: 's', value: spec.settling?.time ?? null },
+    { key: 'spec.settling.from', label: 'settling step from', unit: 'fraction', value: spec.settling?.from ?? null },
+    { key: 'spec.settling.to', label: 'settling step to', unit: 'fraction', value: spec.settling?.to ?? null },
+    { key: 'search.pin_current', label: 'pin current limit', unit: 'A', value: p.search?.pinCurrent ?? null },
+  );
+  return rows.map(({ value, ...r }) => ({ ...r, base: value, head: value }));
+}
+
+/** Equal to the last few of 15 significant digits (both parsed from text, so noise is tiny). */
+function same(a: InputValue, b: InputValue): boolean {
+  if (typeof a === 'number' && typeof b === 'number') return Math.abs(a - b) <= 1e-12 * Math.max(Math.abs(a), Math.abs(b));
+  return a === b;
+}
+
+function changedInputs(base: Project, head: Project): InputRow[] {
+  const n = Math.max(base.filter.stages.length, head.filter.stages.length);
+  const b = inputsOf(base, n);
+  const h = inputsOf(head, n);
+  return b.map((row, i) => ({ ...row, head: h[i].head })).filter((r) => !same(r.base, r.head));
+}
+
+// ---------------------------------------------------------------- figures and checks
+
+const FIGURES: Array<{ key: string; label: string; unit: string; get: (a: Analysis) => number | null }> = [
+  { key: 'worstRipple', label: 'worst ripple (peak-to-peak)', unit: 'V', get: (a) => a.worstRipple.ripple },
+  { key: 'droop', label: 'droop (largest DC error)', unit: 'V', get: (a) => Math.abs(a.dc.droop.error) },
+  { key: 'inl', label: 'INL (endpoint fit)', unit: 'V', get: (a) => Math.abs(a.dc.inl.error) },
+  { key: 'settlingTime', label: 'settling time', unit: 's', get: (a) => a.settling.time },
+  { key: 'cutoff', label: 'cutoff (-3 dB)', unit: 'Hz', get: (a) => a.cutoff },
+  { key: 'attenuation', label: 'attenuation at the PWM frequency', unit: 'dB', get: (a) => a.attenuation },
+  { key: 'pinPeakCurrent', label: 'pin peak current', unit: 'A', get: (a) => a.pinPeakCurrent },
+];
+
+function metrics(base: Analysis, head: Analysis): MetricRow[] {
+  return FIGURES.map(({ key, label, unit, get }) => {
+    const b = get(base);
+    const h = get(head);
+    const delta = b !== null && h !== null ? h - b : null;
+    const deltaPercent = delta !== null && b !== 0 && unit !== 'dB' ? (100 * delta) / Math.abs(b as number) : null;
+    return { key, label, unit, base: b, head: h, delta, deltaPercent };
+  });
+}
+
+function checkRows(base: Analysis, head: Analysis): CheckRow[] {
+  const names = [...new Set([...base.checks, ...head.checks].map((c) => c.name))];
+  return names.map((name) => {
+    const b = base.checks.find((c) => c.name === name);
+    const h = head.checks.find((c) => c.name === name);
+    const side = (c: typeof b): CheckSide | null => (c ? { value: c.value, limit: c.limit, pass: c.pass } : null);
+    let status: CheckStatus;
+    if (!h) status = 'removed';
+    else if (!b) status = h.pass ? 'new, passes' : 'new, FAILS';
+    else if (b.pass) status = h.pass ? 'passes' : 'now FAILS';
+    else status = h.pass ? 'now passes' : 'still fails';
+    return { name, unit: (h ?? b)!.unit, base: side(b), head: side(h), status };
+  });
+}
+
+// ---------------------------------------------------------------- waveforms
+
+/** Linear interpolation of a sampled waveform at time t (held flat beyond its ends). */
+function valueAt(w: Waveform, t: number): number {
+  const { t: ts, v } = w;
+  if (t <= ts[0]) return v[0];
+  if (t >= ts[ts.length - 1]) return v[v.length - 1];
+  let lo = 0;
+  let hi = ts.length - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (ts[mid] <= t) lo = mid;
+    else hi = mid;
+  }
+  const f = (t - ts[lo]) / (ts[hi] - ts[lo] || 1);
+  return v[lo] + f * (v[hi] - v[lo]);
+}
+
+const grid = (end: number, n: number) => Array.from({ length: n }, (_, i) => (end * i) / (n - 1));
+
+/**
+ * Both steady states at the same duty over the same window (two periods of the slower PWM),
+ * as output minus ideal output, so that ripple and DC error both show.
+ */
+function steadyOverlay(base: CompareSide, head: CompareSide, duty: number, columns: number): Overlay {
+  const window = 2 * Math.max(base.analysis.ladder.period, head.analysis.ladder.period);
+  const t = grid(window, columns);
+  const side = (s: CompareSide) => {
+    const { ladder } = s.analysis;
+    const periods = Math.max(1, Math.ceil(window / ladder.period - 1e-9));
+    // A multiple of (columns - 1) samples per period puts every grid instant on a sample
+    // whenever the window holds a whole number of this side's periods (then nothing is interpolated).
+    const m = Math.max(1, Math.min(Math.ceil(200 / (columns - 1)), Math.floor(20_000 / (periods * (columns - 1)))));
+    const perPeriod = (columns - 1) * m;
+    const wave = steadyWaveform(ladder, duty, periods, perPeriod);
+    const ideal = ladder.low + duty * (ladder.high - ladder.low);
+    return t.map((x) => valueAt(wave, x) - ideal);
+  };
+  return { t, base: side(base), head: side(head) };
+}
+
+/** Both step responses for the same duty step over the same time, long enough for the slower. */
+function stepOverlay(base: CompareSide, head: CompareSide, from: number, to: number, columns: number): Overlay {
+  const length = (a: Analysis) =>
+    a.settling.time !== null ? 1.25 * a.settling.time : 8 * a.timeConstants.reduce((x, y) => x + y, 0);
+  const period = Math.max(base.analysis.ladder.period, head.analysis.ladder.period);
+  const duration = Math.max(4 * period, length(base.analysis), length(head.analysis));
+  const t = grid(duration, columns);
+  const side = (s: CompareSide) => {
+    const wave = stepWaveform(s.analysis.ladder, from, to, duration, columns);
+    return t.map((x) => valueAt(wave, x));
+  };
+  return { t, base: side(base), head: side(head) };
+}
+
+// asciichart symbols: axis (2), unused (2), then the line glyphs. The head is drawn with heavy
+// box-drawing glyphs so that the two curves stay apart without colour.
+const THIN = ['┼', '┤', '╶', '╴', '─', '╰', '╭', '╮', '╯', '│'] as const;
+const HEAVY = ['┼', '┤', '╶', '╴', '━', '┗', '┏', '┓', '┛', '┃'] as const;
+const HEAVY_LINE = new Set<string>(HEAVY.slice(4));
+const THIN_LINE = new Set<string>(THIN.slice(4));
+
+/** Two series in one ASCII chart: base thin, head heavy (drawn over the base), shared axes. */
+function overlayChart(o: Overlay, yUnit: string, yPrefixed: boolean, height: number, paint: Palette, colored: boolean): string {
+  const values = [...o.base, ...o.head].filter(Number.isFinite);
+  let min = Math.min(...values);
+  let max = Math.max(...values);
+  if (!(max > min)) {
+    const half = Math.abs(min) * 1e-3 || 1e-12;
+    min -= half;
+    max += half;
+  }
+  const label = axisFormatter(min, max, height, yUnit, yPrefixed);
+  const width = Math.max(label(min).length, label(max).length, label(0).length) + 1;
+  const config = { height, offset: 2, min, max, format: (y: number) => label(y).padStart(width) };
+  const thin = plot([o.base], { ...config, symbols: [...THIN] }).split('\n');
+  const heavy = plot([o.head], { ...config, symbols: [...HEAVY] }).split('\n');
+  const rows = thin.map((row, r) => {
+    const a = [...row];
+    const b = [...(heavy[r] ?? '')];
+    return a
+      .map((ch, i) => {
+        if (HEAVY_LINE.has(b[i])) return colored ? paint.accent(b[i]) : b[i];
+        return colored && THIN_LINE.has(ch) ? paint.warn(ch) : ch;
+      })
+      .join('')
+      .replace(/\s+$/, '');
+  });
+  const n = o.t.length;
+  const x = axisFormatter(o.t[0], o.t[n - 1], 4, 's');
+  const left = x(o.t[0]);
+  const right = x(o.t[n - 1]);
+  rows.push(' '.repeat(width) + '└' + '─'.repeat(n - 1));
+  rows.push(' '.repeat(width) + left + ' '.repeat(Math.max(1, n + 1 - left.length - right.length)) + right);
+  return rows.join('\n');
+}
+
+// ---------------------------------------------------------------- text
+
+const pct = (d: number) => `${(100 * d).toFixed(1)} %`;
+
+/** Unit symbol for display. */
+const symbol = (unit: string) => (unit === 'ohm' ? 'Ω' : unit);
+
+function showInput(v: InputValue, unit: string, key: string): string {
+  if (v === null) return key === 'load.resistance' ? 'open' : key.startsWith('filter.') ? '(no stage)' : '(none)';
+  if (typeof v === 'boolean') return v ? 'yes' : 'no';
+  if (typeof v === 'string') return v;
+  if (unit === 'fraction') return pct(v);
+  if (unit === '') return String(v);
+  return formatEng(v, symbol(unit), 4);
+}
+
+const signed = (text: string, x: number) => (x > 0 ? `+${text}` : text);
+
+function showDelta(delta: number | null, deltaPercent: number | null, unit: string): string {
+  if (delta === null) return '-';
+  if (delta === 0) return '0';
+  const abs =
+    unit === 'dB' ? `${delta.toFixed(1)} dB` : unit === 'fraction' ? `${(100 * delta).toFixed(1)} points` : formatEng(delta, symbol(unit), 3);
+  const rel = deltaPercent === null ? '' : ` (${signed(deltaPercent.toFixed(deltaPercent !== 0 && Math.abs(deltaPercent) < 1 ? 2 : 1), deltaPercent)} %)`;
+  return `${signed(abs, delta)}${rel}`;
+}
+
+function inputDelta(r: InputRow): string {
+  if (typeof r.base !== 'number' || typeof r.head !== 'number') return '-';
+  const delta = r.head - r.base;
+  if (r.unit === '') return signed(String(delta), delta); // counts: bits, prescaler
+  return showDelta(delta, r.unit === 'fraction' || r.base === 0 ? null : (100 * delta) / Math.abs(r.base), r.unit);
+}
+
+function showFigure(v: number | null, unit: string, key: string): string {
+  if (v === null) return key === 'settlingTime' ? 'never settles' : '-';
+  return unit === 'dB' ? `${v.toFixed(1)} dB` : formatEng(v, unit, 4);
+}
+
+function showCheckSide(c: CheckSide | null, unit: string): string {
+  if (c === null) return '-';
+  const value = c.value === null ? 'never settles' : formatEng(c.value, unit, 3);
+  return `${value} ${c.pass ? 'pass' : 'FAIL'}`;
+}
+
+function showLimit(r: CheckRow): string {
+  const b = r.base ? formatEng(r.base.limit, r.unit, 3) : null;
+  const h = r.head ? formatEng(r.head.limit, r.unit, 3) : null;
+  if (b === null) return h as string;
+  if (h === null || b === h) return b;
+  return `${b} -> ${h}`;
+}
+
+/** The document both text renderers draw. */
+interface Sections {
+  title: string;
+  verdict: string;
+  inputs: { header: string[]; rows: string[][] };
+  figures: { header: string[]; rows: string[][] };
+  checks: { header: string[]; rows: string[][] };
+  charts: Array<{ title: string; body: string }>;
+}
+
+function verdictText(checks: CheckRow[], headPass: boolean, inputsChanged: number): string {
+  const live = checks.filter((c) => c.head !== null);
+  const changed = checks.filter((c) => c.status === 'now FAILS' || c.status === 'now passes' || c.status.startsWith('new') || c.status === 'removed');
+  const changes = changed.length > 0 ? `; ${changed.map((c) => `${c.name} ${c.status}`).join(', ')}` : '';
+  const inputs = `${inputsChanged} input${inputsChanged === 1 ? '' : 's'} changed`;
+  if (live.length === 0) return `PASS: head has no spec limits (${inputs}${changes})`;
+  if (headPass) return `PASS: head holds all ${live.length} spec check${live.length > 1 ? 's' : ''} (${inputs}${changes})`;
+  const failing = live.filter((c) => !c.head!.pass).map((c) => c.name);
+  return `FAIL: head fails ${failing.join(', ')} (${inputs}${changes})`;
+}
+
+// ---------------------------------------------------------------- main
+
+/**
+ * Compare two versions of a project (base, then head): the inputs that changed, every figure side
+ * by side with its change (absolute and %), each spec check with a change of status called out
+ * ('now FAILS', 'now passes'), and two overlay charts: the steady states at the head's
+ * worst-ripple duty (output minus ideal, two periods of the slower PWM) and the step responses to
+ * the head's settling step. Base is drawn thin (─), head heavy (━).
+ *
+ * Formats: `text` for a terminal; `markdown` for a pull-request comment or a CI job summary (a
+ * heading, a verdict line, GFM tables, charts in fenced blocks); `json`: { base, head, inputs,
+ * figures, checks, waveforms, pass }, SI units, `pass` being the head's.
+ *
+ * Method: every number comes from the engine's analyses; charts sample the engine's waveforms
+ * (`steadyWaveform`, `stepWaveform`) on one time grid for both sides, by linear interpolation.
+ *
+ * Syntax: compareReport(base, head, format[, { color, columns, height }])
+ * Example: compareReport({ label: 'a.yaml', project: a, analysis: analyzeProject(a) },
+ *                        { label: 'b.yaml', project: b, analysis: analyzeProject(b) }, 'markdown')
+ */
+export function compareReport(base: CompareSide, head: CompareSide, format: CompareFormat, options: CompareOptions = {}): string {
+  const columns = options.columns ?? 72;
+  const height = options.height ?? 12;
+  const inputs = changedInputs(base.project, head.project);
+  const figures = metrics(base.analysis, head.analysis);
+  const checks = checkRows(base.analysis, head.analysis);
+  const duty = head.analysis.worstRipple.duty;
+  const { from, to } = head.analysis.settling;
+  const steady = steadyOverlay(base, head, duty, columns);
+  const step = stepOverlay(base, head, from, to, columns);
+  const pass = head.analysis.pass;
+
+  if (format === 'json') {
+    const side = (s: CompareSide) => ({ label: s.label, file: s.project.file, pass: s.analysis.pass });
+    const body = {
+      base: side(base),
+      head: side(head),
+      inputs,
+      figures,
+      checks,
+      waveforms: { steady: { duty, ...steady, quantity: 'output minus ideal, V' }, step: { from, to, ...step, quantity: 'output, V' } },
+      pass,
+    };
+    return JSON.stringify(body, (_k, v) => (typeof v === 'number' && !Number.isFinite(v) ? null : v), 2) + '\n';
+  }
+
+  const colored = format === 'text' && (options.color ?? false);
+  const paint = palette(colored);
+  const status = (s: CheckStatus) => (s === 'now FAILS' || s === 'new, FAILS' || s === 'still fails' ? paint.bad(s) : s === 'now passes' ? paint.good(s) : s);
+  const doc: Sections = {
+    title: `dacsmith compare: ${base.label} -> ${head.label}`,
+    verdict: verdictText(checks, pass, inputs.length),
+    inputs: {
+      header: ['input', 'base', 'head', 'change'],
+      rows: inputs.map((r) => [r.label, showInput(r.base, r.unit, r.key), showInput(r.head, r.unit, r.key), inputDelta(r)]),
+    },
+    figures: {
+      header: ['figure', 'base', 'head', 'change'],
+      rows: figures.map((m) => [m.label, showFigure(m.base, m.unit, m.key), showFigure(m.head, m.unit, m.key), showDelta(m.delta, m.deltaPercent, m.unit)]),
+    },
+    checks: {
+      header: ['check', 'limit', 'base', 'head', 'status'],
+      rows: checks.map((c) => [c.name, showLimit(c), showCheckSide(c.base, c.unit), showCheckSide(c.head, c.unit), status(c.status)]),
+    },
+    charts: [
+      {
+        title: `Steady state at duty ${pct(duty)} (head's worst ripple): output minus ideal`,
+        body: overlayChart(steady, 'V', true, height, paint, colored),
+      },
+      {
+        title: `Step response ${pct(from)} -> ${pct(to)} (head's settling step): output`,
+        body: overlayChart(step, 'V', true, height, paint, colored),
+      },
+    ],
+  };
+  const legend = `─ base: ${base.label}    ━ head: ${head.label}`;
+
+  if (format === 'markdown') {
+    const esc = (s: string) => s.replace(/\\/g, '\\\\').replace(/\|/g, '\\|');
+    const gfm = (t: { header: string[]; rows: string[][] }) => {
+      const align = t.header.map((h, i) => (i === 0 || h === 'status' ? ':---' : '---:'));
+      const line = (cells: string[]) => `| ${cells.map(esc).join(' | ')} |`;
+      return [line(t.header), `|${align.join('|')}|`, ...t.rows.map(line)].join('\n');
+    };
+    const out = [`## ${doc.title}`, '', `**${doc.verdict}**`, '', '### Inputs changed', ''];
+    out.push(doc.inputs.rows.length > 0 ? gfm(doc.inputs) : 'No input changed.');
+    out.push('', '### Figures', '', gfm(doc.figures), '', '### Spec checks', '');
+    out.push(doc.checks.rows.length > 0 ? gfm(doc.checks) : 'Neither file states a spec limit.');
+    for (const c of doc.charts) out.push('', `**${c.title}**`, '', '```text', c.body, legend, '```');
+    return out.join('\n') + '\n';
+  }
+
+  const out = [paint.bold(doc.title), '', pass ? paint.good(doc.verdict) : paint.bad(doc.verdict), '', paint.bold('Inputs changed')];
+  out.push(doc.inputs.rows.length > 0 ? table(doc.inputs.header, doc.inputs.rows) : '  No input changed.');
+  out.push('', paint.bold('Figures'), table(doc.figures.header, doc.figures.rows));
+  out.push('', paint.bold('Spec checks'));
+  out.push(doc.checks.rows.length > 0 ? table(doc.checks.header, doc.checks.rows, { align: ['left', 'right', 'right', 'right', 'left'] }) : '  Neither file states a spec limit.');
+  for (const c of doc.charts) out.push('', `  ${paint.accent(c.title)}`, c.body, `  ${legend}`);
+  return out.join('\n') + '\n';
+}

@@ -1,0 +1,162 @@
+import type { Analysis } from '../engine/analyze.js';
+import type { Project } from '../project/types.js';
+import { formatEng, formatIec60062 } from '../units/index.js';
+import { cautions } from './cautions.js';
+import { reportCharts } from './charts.js';
+import type { Block, ReportDocument, Section } from './document.js';
+import { checkQuantity, lsbCount, millivolts, percent, tidy, voltsAndLsb } from './quantities.js';
+
+export interface ContentOptions {
+  /** Include the ASCII charts (default true). */
+  charts?: boolean;
+  /** asciichart colour codes for chart series (terminal only). */
+  chartColors?: string[];
+}
+
+function inputsSection(project: Project, analysis: Analysis): Section {
+  const { pwm, load } = project;
+  const timer =
+    pwm.clock !== undefined
+      ? `clock ${formatEng(pwm.clock, 'Hz', 4)}, prescaler ${pwm.prescaler}, ${pwm.alignment}-aligned`
+      : `${pwm.alignment}-aligned`;
+  const resolution =
+    pwm.bits !== undefined && analysis.lsb !== null
+      ? `${pwm.bits} bits (${2 ** pwm.bits} steps), LSB ${formatEng(analysis.lsb, 'V', 4)}`
+      : 'not given (pwm.bits): errors shown in volts only';
+  const loadText =
+    (load.resistance !== undefined ? formatEng(load.resistance, 'Ω', 3) : 'open (no resistance)') +
+    (load.capacitance > 0 ? ` in parallel with ${formatEng(load.capacitance, 'F', 3)}` : '');
+  const pairs: Array<[string, string]> = [
+    ['File', project.file],
+    ['PWM frequency', `${formatEng(pwm.frequency, 'Hz', 4)} (period ${formatEng(1 / pwm.frequency, 's', 4)})`],
+    ['Timer', timer],
+    ['Resolution', resolution],
+    ['Levels', `low ${formatEng(pwm.low, 'V', 4)}, high ${formatEng(pwm.high, 'V', 4)}`],
+    ['Duty range', `${percent(pwm.duty.min)} to ${percent(pwm.duty.max)}`],
+    ['Driver', `high ${formatEng(pwm.driver.high, 'Ω', 3)}, low ${formatEng(pwm.driver.low, 'Ω', 3)}`],
+    ['Load', loadText],
+    ['Time constants', analysis.timeConstants.map((t) => formatEng(t, 's', 3)).join(', ')],
+  ];
+  const stages: Block = {
+    kind: 'table',
+    header: ['stage', 'R', 'R code', 'C', 'C code', 'R x C', 'follower after'],
+    rows: project.filter.stages.map((s, i) => [
+      String(i + 1),
+      formatEng(s.r, 'Ω', 3),
+      formatIec60062(s.r, 'resistance'),
+      formatEng(s.c, 'F', 3),
+      formatIec60062(s.c, 'capacitance'),
+      formatEng(s.r * s.c, 's', 3),
+      s.buffered ? 'yes' : 'no',
+    ]),
+    align: ['left', 'right', 'right', 'right', 'right', 'right', 'left'],
+  };
+  return { title: 'Inputs', blocks: [{ kind: 'pairs', pairs }, stages] };
+}
+
+function pointsSection(project: Project, analysis: Analysis): Section {
+  const { lsb } = analysis;
+  const { high, low } = project.pwm;
+  const withLsb = lsb !== null;
+  const header = ['duty (%)', 'average (V)', 'ideal (V)', 'DC error (mV)', ...(withLsb ? ['DC error (LSB)'] : []), 'ripple (mV)', ...(withLsb ? ['ripple (LSB)'] : [])];
+  const rows = analysis.points.map((p) => {
+    const ideal = low + p.duty * (high - low);
+    const error = tidy(ideal - p.average, high - low);
+    return [
+      (100 * p.duty).toFixed(1),
+      p.average.toFixed(5),
+      ideal.toFixed(5),
+      millivolts(error),
+      ...(withLsb ? [lsbCount(error, lsb)] : []),
+      millivolts(p.ripple),
+      ...(withLsb ? [lsbCount(p.ripple, lsb)] : []),
+    ];
+  });
+  return {
+    title: 'Operating points (periodic steady state)',
+    blocks: [{ kind: 'table', header, rows, align: header.map(() => 'right') }],
+  };
+}
+
+function specSection(project: Project, analysis: Analysis): Section {
+  const fullScale = project.pwm.high - project.pwm.low;
+  if (analysis.checks.length === 0) {
+    return {
+      title: 'Spec',
+      blocks: [{ kind: 'text', text: 'No limits given (spec.ripple, spec.droop, spec.inl, spec.settling.time, search.pin_current).' }],
+    };
+  }
+  const rows = analysis.checks.map((c) => {
+    const value = c.value === null ? null : c.unit === 'V' ? tidy(c.value, fullScale) : c.value;
+    const margin =
+      value === null ? '-' : `${c.limit - value >= 0 ? '+' : ''}${checkQuantity(c.limit - value, c.unit, analysis.lsb)}`;
+    return [
+      c.name,
+      value === null ? 'never settles' : checkQuantity(value, c.unit, analysis.lsb),
+      checkQuantity(c.limit, c.unit, analysis.lsb),
+      margin,
+      c.pass ? 'PASS' : 'FAIL',
+    ];
+  });
+  return {
+    title: 'Spec',
+    blocks: [{ kind: 'table', header: ['check', 'value', 'limit', 'margin', 'result'], rows, align: ['left', 'right', 'right', 'right', 'left'] }],
+  };
+}
+
+function figuresSection(project: Project, analysis: Analysis): Section {
+  const { lsb, dc, settling, worstRipple } = analysis;
+  const fullScale = project.pwm.high - project.pwm.low;
+  const v = (x: number) => voltsAndLsb(tidy(x, fullScale), lsb);
+  // Where an error peaks means nothing when it is zero.
+  const at = (x: number, duty: number) => (tidy(x, fullScale) === 0 ? '' : ` at duty ${percent(duty)}`);
+  const settlingText =
+    settling.time === null ? 'never settles: ripple exceeds the band' : formatEng(settling.time, 's', 3);
+  const pairs: Array<[string, string]> = [
+    ['Worst ripple (peak-to-peak)', `${voltsAndLsb(worstRipple.ripple, lsb)} at duty ${percent(worstRipple.duty)}`],
+    ['Droop (largest DC error)', `${v(dc.droop.error)}${at(dc.droop.error, dc.droop.duty)}`],
+    ['Offset error (endpoint fit)', v(dc.offsetError)],
+    ['Gain error (endpoint fit)', v(dc.gainError)],
+    ['INL (endpoint fit)', `${v(dc.inl.error)}${at(dc.inl.error, dc.inl.duty)}`],
+    ['Cutoff (-3 dB)', formatEng(analysis.cutoff, 'Hz', 3)],
+    ['Attenuation at the PWM frequency', `${analysis.attenuation.toFixed(1)} dB`],
+    ['Pin peak current', formatEng(analysis.pinPeakCurrent, 'A', 3)],
+    [
+      `Settling ${percent(settling.from)} -> ${percent(settling.to)} (band ±${formatEng(settling.band, 'V', 3)})`,
+      settlingText,
+    ],
+  ];
+  return { title: 'Figures', blocks: [{ kind: 'pairs', pairs }] };
+}
+
+/**
+ * The analysis report as a document (sections of tables, lists and charts), ready for the text or
+ * Markdown renderer: inputs and stages, operating points, spec checks, other figures, charts and
+ * cautions, and a one-line verdict.
+ *
+ * Syntax: reportDocument(project, analysis[, { charts, chartColors }])
+ * Example: reportDocument(p, analyzeProject(p), { charts: false }).verdict.pass
+ */
+export function reportDocument(project: Project, analysis: Analysis, options: ContentOptions = {}): ReportDocument {
+  const sections = [
+    inputsSection(project, analysis),
+    pointsSection(project, analysis),
+    specSection(project, analysis),
+    figuresSection(project, analysis),
+  ];
+  if (options.charts ?? true) {
+    const charts = reportCharts(analysis, project.pwm.duty, { colors: options.chartColors });
+    sections.push({ title: 'Charts', blocks: charts.map((c) => ({ kind: 'chart', title: c.title, body: c.body })) });
+  }
+  sections.push({ title: 'Cautions', blocks: [{ kind: 'list', items: cautions(project, analysis) }] });
+
+  const failed = analysis.checks.filter((c) => !c.pass).map((c) => c.name);
+  const n = analysis.checks.length;
+  const text =
+    n === 0
+      ? 'No spec limits given: nothing to check.'
+      : failed.length === 0
+        ? `PASS: all ${n} spec check${n > 1 ? 's' : ''} hold.`
+        : `FAIL: ${failed.join(', ')} (${failed.length} of ${n} spec checks).`;
+  return { title: `dacsmith analysis of ${project.file}`, sections, verdict: { pass: analysis.pass, text } };
+}

@@ -1,0 +1,25 @@
+import type { Analysis } from '../engine/analyze.js';
+import type { Project } from '../project/types.js';
+import { cautions } from './cautions.js';
+
+/**
+ * The analysis as one JSON object (the machine-readable contract of `analyze --format json` in
+ * the design notes), numbers in SI base units: `points` {duty, average, min, max, ripple, tMin, tMax},
+ * `worstRipple` {duty, ripple}, `settling` {from, to, band, time|null}, `cutoff`, `checks`
+ * [{name, value, limit, pass, unit}], `pass`; and more: `dc`, `attenuation` (dB), `pinPeakCurrent`,
+ * `timeConstants`, `lsb` (null when unknown), `cautions` and the normalized `inputs`.
+ * Non-finite numbers become null (JSON has none).
+ *
+ * Syntax: jsonReport(project, analysis)
+ * Example: JSON.parse(jsonReport(p, a)).worstRipple.ripple
+ */
+export function jsonReport(project: Project, analysis: Analysis): string {
+  const { ladder: _ladder, ...figures } = analysis;
+  const { file, pwm, load, filter, spec, lsb } = project;
+  const body = {
+    ...figures,
+    cautions: cautions(project, analysis),
+    inputs: { file, pwm, load, stages: filter.stages, spec, lsb: lsb ?? null },
+  };
+  return JSON.stringify(body, null, 2) + '\n';
+}

@@ -1,0 +1,57 @@
+import type { Analysis } from '../engine/analyze.js';
+import { stepWaveform, steadyState, steadyWaveform } from '../engine/index.js';
+import type { Waveform } from '../engine/types.js';
+
+/** Longest step record drawn or written, samples (keeps reports quick on very slow filters). */
+const MAX_STEP_SAMPLES = 20_000;
+
+/**
+ * Length of the step record shown for the settling step: 1.25 x the settling time, or, when the
+ * output never settles, 8 x the sum of the time constants; at least 4 PWM periods.
+ *
+ * Syntax: stepDuration(analysis)
+ * Example: stepDuration(a)   // s
+ */
+export function stepDuration(analysis: Analysis): number {
+  const period = analysis.ladder.period;
+  const tauSum = analysis.timeConstants.reduce((a, b) => a + b, 0);
+  const base = analysis.settling.time !== null ? 1.25 * analysis.settling.time : 8 * tauSum;
+  return Math.max(4 * period, base);
+}
+
+/** The settling step as a record: waveform plus what it should settle to. */
+export interface StepRecord {
+  wave: Waveform;
+  from: number;
+  to: number;
+  /** Steady-state average at `to`, V. */
+  final: number;
+  band: number;
+  time: number | null;
+}
+
+/**
+ * Sample the settling step of an analysis (engine `stepWaveform`) densely enough to show the ripple
+ * (about 16 samples per PWM period, at most 20 000 samples).
+ *
+ * Syntax: stepRecord(analysis[, minSamples])
+ * Example: stepRecord(a).wave.v.at(-1)   // close to stepRecord(a).final
+ */
+export function stepRecord(analysis: Analysis, minSamples = 600): StepRecord {
+  const { ladder, settling } = analysis;
+  const duration = stepDuration(analysis);
+  const samples = Math.min(MAX_STEP_SAMPLES, Math.max(minSamples, Math.ceil((16 * duration) / ladder.period)));
+  return {
+    wave: stepWaveform(ladder, settling.from, settling.to, duration, samples),
+    from: settling.from,
+    to: settling.to,
+    final: steadyState(ladder, settling.to).average,
+    band: settling.band,
+    time: settling.time,
+  };
+}
+
+/** Two periods of the periodic steady state at the worst-ripple duty. */
+export function worstRippleWave(analysis: Analysis, samplesPerPeriod: number): Waveform {
+  return steadyWaveform(analysis.ladder, analysis.worstRipple.duty, 2, samplesPerPeriod);
+}

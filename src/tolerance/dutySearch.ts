@@ -1,0 +1,83 @@
+import { brentMaximize, type Maximum } from '../engine/brentMaximize.js';
+import { maximizeOnInterval } from '../engine/maximizeOnInterval.js';
+
+/** Grid cells of the duty searches, as in the engine (maximizeOnInterval). */
+export const DUTY_CELLS = 16;
+
+/**
+ * The duties of the local maxima of f over [a, b] that lie inside the range.
+ *
+ * Method: f on the engine's 16-cell grid; each interior grid local maximum refined by Brent's
+ * method (brentMaximize, Brent 1973 ch. 5) between its neighbours.
+ *
+ * Syntax: gridPeaks(f, a, b)
+ * Example: gridPeaks((d) => d * (1 - d), 0, 1)  // [0.5]
+ */
+export function gridPeaks(f: (d: number) => number, a: number, b: number): number[] {
+  if (!(b > a)) return [];
+  const xs = Array.from({ length: DUTY_CELLS + 1 }, (_, i) =>
+    i === DUTY_CELLS ? b : a + ((b - a) * i) / DUTY_CELLS,
+  );
+  const fs = xs.map(f);
+  const peaks: number[] = [];
+  for (let i = 1; i < DUTY_CELLS; i++) {
+    if (fs[i] >= fs[i - 1] && fs[i] >= fs[i + 1]) peaks.push(brentMaximize(f, xs[i - 1], xs[i + 1], 1e-9).x);
+  }
+  return peaks;
+}
+
+/**
+ * The largest value of f over [a, b], searched from known peak positions (hints) of a similar f.
+ *
+ * Method: both ends, then from each hint a bracket walk (three points one grid cell apart,
+ * stepped uphill until the middle one is highest or a range end is reached: the bracketing phase
+ * of Brent-type minimizers, Press et al., "Numerical Recipes", 3rd ed., 2007, section 10.1) and
+ * Brent's maximization (brentMaximize) inside the bracket. A walk longer than the whole range gives
+ * up and the engine's full search decides (16-cell grid plus Brent refinement of the two best grid
+ * peaks, maximizeOnInterval). With no hints (the similar f peaked only at the ends) f is also
+ * checked at the three inner points of a 4-cell grid, and the full search runs if one of them beats
+ * both ends; hints = null always runs the full search.
+ *
+ * Syntax: maximizeFromHints(f, a, b, hints)
+ * Example: maximizeFromHints((d) => d * (1 - d), 0, 1, [0.48]).x  // 0.5
+ */
+export function maximizeFromHints(f: (d: number) => number, a: number, b: number, hints: number[] | null): Maximum {
+  if (!(b > a)) return { x: a, value: f(a) };
+  const full = () => maximizeOnInterval(f, a, b, DUTY_CELLS, 2, 1e-9);
+  if (hints === null) return full();
+  let best: Maximum = { x: a, value: f(a) };
+  const atB = f(b);
+  if (atB > best.value) best = { x: b, value: atB };
+  if (hints.length === 0) {
+    for (let i = 1; i < 4; i++) if (f(a + ((b - a) * i) / 4) > best.value) return full();
+    return best;
+  }
+  const step = (b - a) / DUTY_CELLS;
+  for (const hint of hints) {
+    let x2 = Math.min(b - step, Math.max(a + step, hint));
+    let x1 = x2 - step;
+    let x3 = x2 + step;
+    let f1 = f(x1);
+    let f2 = f(x2);
+    let f3 = f(x3);
+    let walked = 0;
+    while (!(f2 >= f1 && f2 >= f3)) {
+      if (++walked > DUTY_CELLS) return full();
+      if (f1 > f3) {
+        if (x1 - a < 0.5 * step) break; // uphill into the range end, already a candidate
+        [x3, f3, x2, f2] = [x2, f2, x1, f1];
+        x1 = Math.max(a, x1 - step);
+        f1 = f(x1);
+      } else {
+        if (b - x3 < 0.5 * step) break;
+        [x1, f1, x2, f2] = [x2, f2, x3, f3];
+        x3 = Math.min(b, x3 + step);
+        f3 = f(x3);
+      }
+    }
+    const top = f2 >= f1 && f2 >= f3 ? brentMaximize(f, x1, x3, 1e-9) : { x: x2, value: f2 };
+    const bracketBest = [top, { x: x1, value: f1 }, { x: x3, value: f3 }].reduce((p, q) => (q.value > p.value ? q : p));
+    if (bracketBest.value > best.value) best = bracketBest;
+  }
+  return best;
+}

@@ -1,0 +1,121 @@
+import type { Ladder } from '../circuit/ladder.js';
+import { dcTransfer, settlingTime, worstRipple } from '../engine/index.js';
+import type { MetricPlan } from './metricPlan.js';
+import { maximizeFromHints } from './dutySearch.js';
+import { modalLadder, type ModalLadder } from './modal/modalLadder.js';
+import { rippleAt } from './modal/rippleAt.js';
+import { averageOutput } from './modal/averageOutput.js';
+import type { PeriodicState } from './modal/periodicState.js';
+import { modalSettling } from './modal/settling.js';
+
+/** The figures a tolerance study checks for one ladder (SI: V, s). */
+export interface LadderMetrics {
+  /** Largest ripple over the used duty range and where. */
+  worstRipple: { duty: number; ripple: number };
+  /** DC error (ideal - average) of largest magnitude over the range, sign kept, and where. */
+  droop: { duty: number; error: number };
+  /** Largest deviation from the endpoint line (sign kept), when the plan asks for it. */
+  inl: { duty: number; error: number } | null;
+  /** Slowest settling time over the plan's steps, s; null = never settles. */
+  settlingTime: number | null;
+  /** Some figure needed the engine's matrix-exponential path (a follower inside the ladder, ...). */
+  usedEngine: boolean;
+}
+
+export interface LadderMetricsOptions {
+  /** Use the engine for every figure (a reference; slow). */
+  engineOnly?: boolean;
+}
+
+/**
+ * Worst ripple, droop, INL and settling time of one ladder, exactly, for tolerance studies.
+ *
+ * Method: the modal fast path (modal/*) when the ladder has no follower inside it, the engine
+ * otherwise (or for a settling step the fast path declines). Worst ripple: Brent's maximization
+ * from the nominal ripple peaks in the plan (maximizeFromHints), falling back to the engine's full
+ * grid search when a peak has moved too far. Droop and INL: with equal driver resistances
+ * average(D) is affine in D (the circuit is then linear time-invariant, and its mean output is the
+ * DC gain times the mean pin voltage), so both extremes are at the range ends; otherwise the same
+ * hinted search on the exact averages. Settling: modalSettling per step, slowest counts.
+ *
+ * Syntax: ladderMetrics(ladder, plan[, { engineOnly }])
+ * Example: ladderMetrics(ladder, metricPlan(p, ladder)).worstRipple.ripple  // V
+ */
+export function ladderMetrics(ladder: Ladder, plan: MetricPlan, options: LadderMetricsOptions = {}): LadderMetrics {
+  const m = options.engineOnly ? null : modalLadder(ladder);
+  if (m === null) return engineMetrics(ladder, plan);
+  let usedEngine = false;
+  let settling: number | null = 0;
+  const states = new Map<number, PeriodicState>();
+  for (const { from, to } of plan.steps) {
+    let t = modalSettling(m, from, to, plan.band, states);
+    if (t === undefined) {
+      usedEngine = true;
+      t = settlingTime(ladder, from, to, plan.band).time;
+    }
+    if (t === null) {
+      settling = null;
+      break;
+    }
+    settling = Math.max(settling, t);
+  }
+  const dc = modalDc(m, ladder, plan);
+  return {
+    worstRipple: modalWorstRipple(m, plan),
+    droop: dc.droop,
+    inl: dc.inl,
+    settlingTime: settling,
+    usedEngine,
+  };
+}
+
+function engineMetrics(ladder: Ladder, plan: MetricPlan): LadderMetrics {
+  const dc = dcTransfer(ladder, plan.dutyMin, plan.dutyMax);
+  let settling: number | null = 0;
+  for (const { from, to } of plan.steps) {
+    const t = settlingTime(ladder, from, to, plan.band).time;
+    if (t === null) {
+      settling = null;
+      break;
+    }
+    settling = Math.max(settling, t);
+  }
+  return {
+    worstRipple: worstRipple(ladder, plan.dutyMin, plan.dutyMax),
+    droop: dc.droop,
+    inl: plan.inl ? dc.inl : null,
+    settlingTime: settling,
+    usedEngine: true,
+  };
+}
+
+function modalWorstRipple(m: ModalLadder, plan: MetricPlan): { duty: number; ripple: number } {
+  const best = maximizeFromHints((d) => rippleAt(m, d), plan.dutyMin, plan.dutyMax, plan.rippleHints);
+  return { duty: best.x, ripple: best.value };
+}
+
+function modalDc(
+  m: ModalLadder,
+  ladder: Ladder,
+  plan: MetricPlan,
+): { droop: { duty: number; error: number }; inl: { duty: number; error: number } | null } {
+  const { dutyMin: a, dutyMax: b } = plan;
+  const span = ladder.high - ladder.low;
+  const average = (d: number) => averageOutput(m, d);
+  const error = (d: number) => ladder.low + d * span - average(d);
+  const yA = average(a);
+  const yB = average(b);
+  const errA = ladder.low + a * span - yA;
+  const errB = ladder.low + b * span - yB;
+  if (ladder.driverHigh === ladder.driverLow || !(b > a)) {
+    const droop = Math.abs(errB) > Math.abs(errA) ? { duty: b, error: errB } : { duty: a, error: errA };
+    return { droop, inl: plan.inl ? { duty: a, error: 0 } : null };
+  }
+  const droopAt = maximizeFromHints((d) => Math.abs(error(d)), a, b, plan.droopHints).x;
+  const droop = { duty: droopAt, error: error(droopAt) };
+  if (!plan.inl) return { droop, inl: null };
+  const slope = (yB - yA) / (b - a);
+  const deviation = (d: number) => average(d) - (yA + slope * (d - a));
+  const inlAt = maximizeFromHints((d) => Math.abs(deviation(d)), a, b, plan.inlHints).x;
+  return { droop, inl: { duty: inlAt, error: deviation(inlAt) } };
+}

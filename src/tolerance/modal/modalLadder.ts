@@ -1,0 +1,131 @@
+import type { Ladder } from '../../circuit/ladder.js';
+import { symmetricEigen } from './symmetricEigen.js';
+
+/** The modes of one pin state: x' = A x + b with A = Cs^-1 Q diag(rate) Q^T Cs. */
+export interface PhaseModes {
+  /** Eigenvalues of A, 1/s (negative). */
+  rate: Float64Array;
+  /** Orthonormal eigenvectors of the symmetric form Cs A Cs^-1 (row-major, column i = mode i). */
+  basis: Float64Array;
+  /** Output (last node) per unit of each modal coordinate: g_i = basis[n-1][i] / Cs[n-1]. */
+  out: Float64Array;
+}
+
+/**
+ * A follower-free ladder in modal form, both pin states. Modal coordinates of a state deviation z
+ * in the high-phase basis are Qh^T (Cs z); `mix` = Ql^T Qh turns them into low-phase ones.
+ */
+export interface ModalLadder {
+  n: number;
+  period: number;
+  high: number;
+  low: number;
+  /** sqrt of each node capacitance, sqrt(F). */
+  cs: Float64Array;
+  hi: PhaseModes;
+  lo: PhaseModes;
+  mix: Float64Array;
+  /** DC state of the high phase minus that of the low phase, in high-phase modal coordinates. */
+  delta: Float64Array;
+  /** Output at the DC state of the low phase, V. */
+  outLow: number;
+}
+
+/**
+ * The modal form of a ladder, or null when it does not apply: a follower inside the ladder makes
+ * the state matrix block-triangular, its modes may coincide (a Jordan block), and the engine's
+ * matrix-exponential path must be used instead. A follower after the last stage is fine (it only
+ * disconnects the load, as in the engine's state equations).
+ *
+ * Method: nodal state equations C x' = -G x + g (Kirchhoff's current law at each capacitor node, as
+ * in circuit/stateSpace.ts). With Cs = diag(sqrt C),
+ * S = Cs A Cs^-1 = -Cs^-1 G Cs^-1 is symmetric (G is), so A has real negative eigenvalues and
+ * Cs^-1-scaled orthonormal eigenvectors; a follower-free RC ladder gives an irreducible tridiagonal
+ * S, whose eigenvalues are distinct (an unreduced symmetric tridiagonal has simple eigenvalues:
+ * B. N. Parlett, "The Symmetric Eigenvalue Problem", SIAM 1998, ch. 7; cited from memory).
+ * Eigen-decomposition by Jacobi rotations (symmetricEigen).
+ *
+ * Syntax: modalLadder(ladder)
+ * Example: modalLadder(oneStage).hi.rate  // [-1 / ((R + Rd) C)]
+ */
+export function modalLadder(ladder: Ladder): ModalLadder | null {
+  const { stages } = ladder;
+  const n = stages.length;
+  for (let k = 0; k < n - 1; k++) if (stages[k].buffered) return null;
+  for (const st of stages) {
+    if (!(st.r > 0) || !(st.c > 0)) throw new RangeError('invalid ladder: every stage needs r > 0 and c > 0');
+  }
+  // Nodal equations as in circuit/stateSpace.ts: conductance into node k from the node before
+  // (node 0: from the pin through driver + R1), load at the last node unless a follower drives it.
+  const loaded = !stages[n - 1].buffered;
+  const gLoad = loaded && ladder.loadResistance !== null ? 1 / ladder.loadResistance : 0;
+  const cs = new Float64Array(n);
+  for (let k = 0; k < n; k++) cs[k] = Math.sqrt(stages[k].c + (k === n - 1 && loaded ? ladder.loadCapacitance : 0));
+  const gIn = new Float64Array(n + 1);
+  for (let k = 1; k < n; k++) gIn[k] = 1 / stages[k].r;
+  gIn[n] = gLoad;
+  const phase = (driver: number, source: number): { modes: PhaseModes; dc: Float64Array } => {
+    gIn[0] = 1 / (stages[0].r + driver);
+    const S = new Float64Array(n * n);
+    for (let k = 0; k < n; k++) {
+      S[k * n + k] = -(gIn[k] + gIn[k + 1]) / (cs[k] * cs[k]);
+      if (k + 1 < n) {
+        const off = gIn[k + 1] / (cs[k] * cs[k + 1]);
+        S[k * n + k + 1] = off;
+        S[(k + 1) * n + k] = off;
+      }
+    }
+    const { values, vectors } = symmetricEigen(S, n);
+    const out = new Float64Array(n);
+    for (let i = 0; i < n; i++) out[i] = vectors[(n - 1) * n + i] / cs[n - 1];
+    return { modes: { rate: values, basis: vectors, out }, dc: dcState(gIn, n, source) };
+  };
+  const high = phase(ladder.driverHigh, ladder.high);
+  const low = phase(ladder.driverLow, ladder.low);
+  const hi = high.modes;
+  const lo = low.modes;
+  const mix = new Float64Array(n * n);
+  const delta = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      let s = 0;
+      for (let k = 0; k < n; k++) s += lo.basis[k * n + i] * hi.basis[k * n + j];
+      mix[i * n + j] = s;
+      delta[i] += hi.basis[j * n + i] * cs[j] * (high.dc[j] - low.dc[j]);
+    }
+  }
+  return {
+    n,
+    period: ladder.period,
+    high: ladder.high,
+    low: ladder.low,
+    cs,
+    hi,
+    lo,
+    mix,
+    delta,
+    outLow: low.dc[n - 1],
+  };
+}
+
+/**
+ * DC node voltages of the resistive ladder fed with `source` through conductance gIn[0]:
+ * G x = gIn[0] source e_1 with G tridiagonal (diagonal gIn[k] + gIn[k+1], off-diagonal -gIn[k+1]),
+ * by the Thomas algorithm (forward elimination and back substitution; G is diagonally dominant,
+ * so no pivoting is needed: Golub & Van Loan, 4th ed., Algorithm 4.3.6 and section 4.1).
+ */
+function dcState(gIn: Float64Array, n: number, source: number): Float64Array {
+  const x = new Float64Array(n);
+  const diag = new Float64Array(n);
+  const rhs = new Float64Array(n);
+  for (let k = 0; k < n; k++) diag[k] = gIn[k] + gIn[k + 1];
+  rhs[0] = gIn[0] * source;
+  for (let k = 1; k < n; k++) {
+    const f = -gIn[k] / diag[k - 1];
+    diag[k] -= f * -gIn[k];
+    rhs[k] -= f * rhs[k - 1];
+  }
+  x[n - 1] = rhs[n - 1] / diag[n - 1];
+  for (let k = n - 2; k >= 0; k--) x[k] = (rhs[k] + gIn[k + 1] * x[k + 1]) / diag[k];
+  return x;
+}

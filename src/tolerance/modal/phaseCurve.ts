@@ -1,0 +1,120 @@
+import { expSumRoots } from './expSumRoots.js';
+
+/**
+ * The output during one phase of one period as an exact function of the time tau since the phase
+ * began: value(tau) = offset + sum_i gain[i] * expm1(rate[i] * tau), 0 <= tau <= length.
+ * Writing it with expm1 keeps tiny deviations (ripple 1e-9 of the level) to full precision.
+ */
+export interface PhaseCurve {
+  offset: number;
+  gain: Float64Array;
+  rate: Float64Array;
+  length: number;
+}
+
+/** Extremes of a curve over its phase and where they happen. */
+export interface CurveExtrema {
+  max: number;
+  tMax: number;
+  min: number;
+  tMin: number;
+}
+
+/**
+ * Value of a phase curve at tau.
+ *
+ * Syntax: curveValue(curve, tau)
+ * Example: curveValue({ offset: 1, gain: [-1], rate: [-1], length: 1 }, 0)  // 1
+ */
+export function curveValue(c: PhaseCurve, tau: number): number {
+  let v = c.offset;
+  for (let i = 0; i < c.gain.length; i++) v += c.gain[i] * Math.expm1(c.rate[i] * tau);
+  return v;
+}
+
+/**
+ * The turning points of a phase curve inside (0, length): the roots of its derivative
+ * sum_i gain[i] rate[i] exp(rate[i] tau), found exactly by expSumRoots.
+ *
+ * Syntax: curveTurningPoints(curve)
+ * Example: curveTurningPoints(oneStageCurve)  // [] (a single exponential is monotone)
+ */
+export function curveTurningPoints(c: PhaseCurve): number[] {
+  if (c.gain.length < 2 || !(c.length > 0)) return [];
+  if (c.gain.length === 2) {
+    const t = twoTermTurningPoint(c);
+    return t > 0 ? [t] : [];
+  }
+  const slope = new Float64Array(c.gain.length);
+  for (let i = 0; i < slope.length; i++) slope[i] = c.gain[i] * c.rate[i];
+  return expSumRoots(slope, c.rate, c.length);
+}
+
+/**
+ * Largest and smallest value of a phase curve over [0, length].
+ *
+ * Method: the extremes of a differentiable function on a closed interval lie at its ends or at
+ * turning points (Fermat); the turning points are exact roots of the derivative (curveTurningPoints).
+ *
+ * Syntax: curveExtrema(curve)
+ * Example: curveExtrema(curve).max - curveExtrema(curve).min  // the swing within the phase
+ */
+export function curveExtrema(c: PhaseCurve): CurveExtrema {
+  if (c.gain.length <= 2) return smallCurveExtrema(c);
+  let max = c.offset;
+  let min = c.offset;
+  let tMax = 0;
+  let tMin = 0;
+  const visit = (t: number) => {
+    const v = curveValue(c, t);
+    if (v > max) {
+      max = v;
+      tMax = t;
+    }
+    if (v < min) {
+      min = v;
+      tMin = t;
+    }
+  };
+  if (c.length > 0) {
+    visit(c.length);
+    for (const t of curveTurningPoints(c)) visit(t);
+  }
+  return { max, tMax, min, tMin };
+}
+
+/**
+ * The turning point of a two-term curve inside (0, length), or -1: the root of
+ * g0 r0 e^(r0 t) + g1 r1 e^(r1 t), t = ln(-g1 r1 / (g0 r0)) / (r0 - r1) (closed form; rates distinct).
+ */
+function twoTermTurningPoint(c: PhaseCurve): number {
+  const d0 = c.gain[0] * c.rate[0];
+  const d1 = c.gain[1] * c.rate[1];
+  if (d0 === 0 || d1 === 0) return -1;
+  const ratio = -d1 / d0;
+  if (!(ratio > 0)) return -1;
+  const t = Math.log(ratio) / (c.rate[0] - c.rate[1]);
+  return t > 0 && t < c.length ? t : -1;
+}
+
+/** curveExtrema for one or two terms without allocating: ends and the closed-form turning point. */
+function smallCurveExtrema(c: PhaseCurve): CurveExtrema {
+  let max = c.offset;
+  let min = c.offset;
+  let tMax = 0;
+  let tMin = 0;
+  if (c.length > 0) {
+    const end = curveValue(c, c.length);
+    if (end > max) [max, tMax] = [end, c.length];
+    if (end < min) [min, tMin] = [end, c.length];
+    if (c.gain.length === 2) {
+      const t = twoTermTurningPoint(c);
+      if (t > 0) {
+        const v = curveValue(c, t);
+        if (v > max) [max, tMax] = [v, t];
+        if (v < min) [min, tMin] = [v, t];
+      }
+    }
+  }
+  return { max, tMax, min, tMin };
+}

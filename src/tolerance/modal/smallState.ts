@@ -1,0 +1,136 @@
+import { phi2 } from '../../engine/phi2.js';
+import type { ModalLadder } from './modalLadder.js';
+
+/**
+ * The periodic steady state of a one- or two-mode ladder at one duty, as plain numbers: output
+ * deviation from the rising edge is -(aHigh0 expm1(rh0 tau) + aHigh1 expm1(rh1 tau)) in the high
+ * phase and yEnd - (aLow0 expm1(rl0 s) + aLow1 expm1(rl1 s)) in the low phase (a single mode has
+ * the second coefficients 0).
+ */
+export interface SmallState {
+  t1: number;
+  t2: number;
+  yStart: number;
+  average: number;
+  yEnd: number;
+  aHigh0: number;
+  aHigh1: number;
+  aLow0: number;
+  aLow1: number;
+  rh0: number;
+  rh1: number;
+  rl0: number;
+  rl1: number;
+}
+
+/**
+ * periodicState (same method, same numbers) written out with scalars for ladders of one or two
+ * stages, which are most tolerance samples: no arrays are allocated, so millions of calls stay cheap.
+ *
+ * Syntax: smallState(modal, duty)
+ * Example: smallState(modalLadder(oneStage)!, 0.5).average  // V
+ */
+export function smallState(m: ModalLadder, duty: number): SmallState {
+  const { period, hi, lo, mix, delta } = m;
+  const two = m.n === 2;
+  const t1 = duty * period;
+  const t2 = (1 - duty) * period;
+  const rh0 = hi.rate[0];
+  const rl0 = lo.rate[0];
+  const rh1 = two ? hi.rate[1] : 0;
+  const rl1 = two ? lo.rate[1] : 0;
+  const kh0 = -Math.expm1(rh0 * t1);
+  const kl0 = -Math.expm1(rl0 * t2);
+  const el0 = Math.exp(rl0 * t2);
+  let u0: number;
+  let u1 = 0;
+  let kh1 = 0;
+  let x00 = mix[0];
+  let x01 = 0;
+  let x10 = 0;
+  let x11 = 0;
+  let d1 = 0;
+  if (!two) {
+    u0 = (el0 * kh0 * delta[0]) / (kl0 + el0 * kh0);
+  } else {
+    kh1 = -Math.expm1(rh1 * t1);
+    const kl1 = -Math.expm1(rl1 * t2);
+    const el1 = Math.exp(rl1 * t2);
+    [x00, x01, x10, x11] = [mix[0], mix[1], mix[2], mix[3]];
+    // (K_l + E_l K_h) u = E_l K_h Delta in modal coordinates; elimination with partial pivoting
+    let a = x00 * (kl0 + el0 * kh0);
+    let b = x01 * (kl0 + el0 * kh1);
+    let c = x10 * (kl1 + el1 * kh0);
+    let d = x11 * (kl1 + el1 * kh1);
+    let e = el0 * (x00 * kh0 * delta[0] + x01 * kh1 * delta[1]);
+    let f = el1 * (x10 * kh0 * delta[0] + x11 * kh1 * delta[1]);
+    if (Math.abs(c) > Math.abs(a)) [a, b, c, d, e, f] = [c, d, a, b, f, e];
+    const l = c / a;
+    u1 = (f - l * e) / (d - l * b);
+    u0 = (e - b * u1) / a;
+    d1 = delta[1] - u1;
+  }
+  const d0 = delta[0] - u0;
+  const aHigh0 = hi.out[0] * d0;
+  const aHigh1 = two ? hi.out[1] * d1 : 0;
+  const w0 = kh0 * d0;
+  const w1 = kh1 * d1;
+  const yEnd = aHigh0 * kh0 + aHigh1 * kh1;
+  const aLow0 = lo.out[0] * -(x00 * (u0 + w0) + x01 * (u1 + w1));
+  const aLow1 = two ? lo.out[1] * -(x10 * (u0 + w0) + x11 * (u1 + w1)) : 0;
+  let integral = t2 * yEnd - aHigh0 * rh0 * t1 * t1 * phi2(rh0 * t1) - aLow0 * rl0 * t2 * t2 * phi2(rl0 * t2);
+  if (two) integral -= aHigh1 * rh1 * t1 * t1 * phi2(rh1 * t1) + aLow1 * rl1 * t2 * t2 * phi2(rl1 * t2);
+  const yStart = m.outLow + hi.out[0] * u0 + (two ? hi.out[1] * u1 : 0);
+  return {
+    t1,
+    t2,
+    yStart,
+    average: yStart + integral / period,
+    yEnd,
+    aHigh0,
+    aHigh1,
+    aLow0,
+    aLow1,
+    rh0,
+    rh1,
+    rl0,
+    rl1,
+  };
+}
+
+/**
+ * Peak-to-peak ripple (V) of a SmallState: the extremes lie among the phase ends and the one
+ * turning point each two-term phase curve can have, t = ln(-a1 r1 / (a0 r0)) / (r0 - r1).
+ *
+ * Syntax: smallRipple(state)
+ * Example: smallRipple(smallState(modal, 0.5))  // V
+ */
+export function smallRipple(s: SmallState): number {
+  let max = Math.max(0, s.yEnd);
+  let min = Math.min(0, s.yEnd);
+  if (s.aHigh1 !== 0) {
+    const t = turningPoint(s.aHigh0 * s.rh0, s.aHigh1 * s.rh1, s.rh0, s.rh1, s.t1);
+    if (t > 0) {
+      const v = -(s.aHigh0 * Math.expm1(s.rh0 * t) + s.aHigh1 * Math.expm1(s.rh1 * t));
+      if (v > max) max = v;
+      if (v < min) min = v;
+    }
+  }
+  if (s.aLow1 !== 0) {
+    const t = turningPoint(s.aLow0 * s.rl0, s.aLow1 * s.rl1, s.rl0, s.rl1, s.t2);
+    if (t > 0) {
+      const v = s.yEnd - (s.aLow0 * Math.expm1(s.rl0 * t) + s.aLow1 * Math.expm1(s.rl1 * t));
+      if (v > max) max = v;
+      if (v < min) min = v;
+    }
+  }
+  return max - min;
+}
+
+function turningPoint(d0: number, d1: number, r0: number, r1: number, length: number): number {
+  if (d0 === 0) return -1;
+  const ratio = -d1 / d0;
+  if (!(ratio > 0)) return -1;
+  const t = Math.log(ratio) / (r0 - r1);
+  return t > 0 && t < length ? t : -1;
+}

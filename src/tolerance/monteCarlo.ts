@@ -1,0 +1,134 @@
+import { ladderFromProject } from '../circuit/fromProject.js';
+import type { Ladder } from '../circuit/ladder.js';
+import type { Project, ToleranceSettings } from '../project/types.js';
+import { drawDeviates, type Distribution } from './deviates.js';
+import { evaluateSamples, type SampleTable } from './evaluateSamples.js';
+import { metricPlan, type MetricPlan } from './metricPlan.js';
+import { toleranceParameters, type ToleranceParameter } from './parameters.js';
+import { summarizeSamples, type SampleSummary } from './summarizeSamples.js';
+
+export interface MonteCarloOptions {
+  /** Sample count (default: tolerance.samples). */
+  samples?: number;
+  /** Seed (default: tolerance.seed); the same seed gives the same result. */
+  seed?: number;
+  distribution?: Distribution;
+  /** Called now and then with (samples done, total). */
+  onProgress?: (done: number, total: number) => void;
+}
+
+/** A Monte Carlo tolerance run. */
+export interface MonteCarloResult extends SampleSummary {
+  samples: number;
+  seed: number;
+  distribution: Distribution;
+  parameters: ToleranceParameter[];
+  plan: MetricPlan;
+  /** The yield the project asks for, or null. */
+  target: number | null;
+  /** yield >= target (true without a target). */
+  pass: boolean;
+  /** Every sample's figures. */
+  values: SampleTable;
+}
+
+/** Everything a run needs, shared by the in-process and the worker-thread runs. */
+export interface MonteCarloSetup {
+  ladder: Ladder;
+  parameters: ToleranceParameter[];
+  plan: MetricPlan;
+  deviates: Float64Array;
+  samples: number;
+  seed: number;
+  distribution: Distribution;
+  target: number | null;
+}
+
+/**
+ * Monte Carlo tolerance analysis of a ladder (default: the project's filter): draw every part
+ * value from its distribution, compute each sample's exact worst ripple, droop, INL (when the spec
+ * limits it) and settling time, and count the yield against the spec.
+ *
+ * Method: deviates from drawDeviates (xoroshiro128+, Box-Muller, truncation by rejection), drawn
+ * up front in one stream so the result depends on the seed only, not on how the work is split;
+ * figures by ladderMetrics (exact modal fast path, engine fallback); summary by summarizeSamples.
+ * Runs in the calling thread; monteCarloParallel spreads the same work over worker threads.
+ *
+ * Syntax: monteCarlo(project[, ladder, { samples, seed, distribution, onProgress }])
+ * Example: monteCarlo(p, undefined, { samples: 1000, seed: 7 }).yield  // 0.998
+ */
+export function monteCarlo(project: Project, ladder?: Ladder, options: MonteCarloOptions = {}): MonteCarloResult {
+  const setup = monteCarloSetup(project, ladder, options);
+  const { onProgress } = options;
+  const table = evaluateSamples(
+    setup.ladder,
+    setup.parameters,
+    setup.plan,
+    setup.deviates,
+    0,
+    setup.samples,
+    onProgress && ((done) => onProgress(done, setup.samples)),
+  );
+  return monteCarloResult(setup, table);
+}
+
+/**
+ * The shared set-up of a run: parameters, plan and deviates.
+ *
+ * Syntax: monteCarloSetup(project[, ladder, options])
+ * Example: monteCarloSetup(p).deviates.length  // samples * parameters
+ */
+export function monteCarloSetup(project: Project, ladder?: Ladder, options: MonteCarloOptions = {}): MonteCarloSetup {
+  const settings = requireTolerance(project);
+  const nominal = ladder ?? ladderFromProject(project);
+  const samples = options.samples ?? settings.samples;
+  const seed = options.seed ?? settings.seed;
+  const distribution = options.distribution ?? settings.distribution;
+  if (!Number.isInteger(samples) || samples < 1) throw new ToleranceInputError(`samples must be a whole number >= 1, got ${samples}`);
+  if (!Number.isInteger(seed) || seed < 0 || seed > 0xffffffff) {
+    throw new ToleranceInputError(`seed must be a whole number from 0 to 4294967295, got ${seed}`);
+  }
+  const parameters = toleranceParameters(settings, nominal);
+  return {
+    ladder: nominal,
+    parameters,
+    plan: metricPlan(project, nominal),
+    deviates: drawDeviates(samples, parameters.length, seed, distribution),
+    samples,
+    seed,
+    distribution,
+    target: settings.yield ?? null,
+  };
+}
+
+/**
+ * Assemble the result of a run from its set-up and its sample table.
+ *
+ * Syntax: monteCarloResult(setup, table)
+ * Example: monteCarloResult(setup, table).pass
+ */
+export function monteCarloResult(setup: MonteCarloSetup, table: SampleTable): MonteCarloResult {
+  const summary = summarizeSamples(table, setup.plan);
+  return {
+    ...summary,
+    samples: setup.samples,
+    seed: setup.seed,
+    distribution: setup.distribution,
+    parameters: setup.parameters,
+    plan: setup.plan,
+    target: setup.target,
+    pass: setup.target === null || summary.yield >= setup.target,
+    values: table,
+  };
+}
+
+/** The project's tolerance block, or a clear error naming the missing key. */
+export function requireTolerance(project: Project): ToleranceSettings {
+  if (!project.tolerance) throw new ToleranceInputError(`${project.file}: tolerance: the project has no tolerance block`);
+  return project.tolerance;
+}
+
+/** Input that makes a tolerance study impossible (exit code 2 in the command line). */
+export class ToleranceInputError extends Error {
+  override name = 'ToleranceInputError';
+}

@@ -1,0 +1,260 @@
+import { ladderFromProject } from '../circuit/fromProject.js';
+import type { Ladder } from '../circuit/ladder.js';
+import { brentMaximize } from '../engine/brentMaximize.js';
+import type { Project } from '../project/types.js';
+import { ladderMetrics, type LadderMetrics } from './ladderMetrics.js';
+import { metricPlan, type MetricPlan } from './metricPlan.js';
+import { requireTolerance } from './monteCarlo.js';
+import { ladderAt, toleranceParameters, type ToleranceParameter } from './parameters.js';
+
+export type Figure = 'ripple' | 'droop' | 'inl' | 'settling';
+
+/** How raising a parameter across its range moves a figure's severity. */
+export type Effect = 'raises' | 'lowers' | 'none' | 'mixed';
+
+/** The worst case of one figure over the tolerance box. */
+export interface WorstCaseFigure {
+  figure: Figure;
+  /** V (ripple; signed error for droop and INL) or s (settling; null = never settles). */
+  value: number | null;
+  /** Duty where the figure occurs (ripple, droop, INL), else null. */
+  duty: number | null;
+  /** The worst point: deviates in [-1, 1] and part values, one per parameter. */
+  z: number[];
+  values: number[];
+  /** Effect of each parameter, from the sign scan. */
+  effects: Effect[];
+  /** `corner` when every parameter acts one way; `search` when some were searched along. */
+  method: 'corner' | 'search';
+  /** Keys of the parameters searched along (their effect changes sign). */
+  searched: string[];
+  /** The sweep over all corners found a point worse than the scan predicted (reported value). */
+  cornerSweepWorse: boolean;
+  limit: number | null;
+  /** Within the limit at the worst case (null when the spec has no limit). */
+  pass: boolean | null;
+}
+
+export interface WorstCaseResult {
+  parameters: ToleranceParameter[];
+  plan: MetricPlan;
+  nominal: LadderMetrics;
+  worstRipple: WorstCaseFigure;
+  droop: WorstCaseFigure;
+  inl: WorstCaseFigure | null;
+  settlingTime: WorstCaseFigure;
+  /** Every limited figure passes at its worst case. */
+  pass: boolean;
+  /** Ladders evaluated. */
+  evaluations: number;
+}
+
+export interface WorstCaseOptions {
+  /** Also evaluate all 2^P corners as a check (default: when P <= 10). */
+  cornerSweep?: boolean;
+  /** Recompute each worst point with the engine's matrix-exponential path (default false). */
+  confirmWithEngine?: boolean;
+}
+
+const SCAN_LEVELS = [-1, 0, 1];
+const LINE_POINTS = 9;
+
+/**
+ * Worst case of worst ripple, droop, INL (when limited) and settling time over the tolerance box
+ * of a ladder (default: the project's filter).
+ *
+ * Method: (1) sign scan: at several points of the box (centre, all-low and all-high corners, two
+ * alternating corners, a half-and-half corner) each parameter is set to its minimum, centre and
+ * maximum; the signs of the two differences of each figure's severity (ripple, |droop|, |INL|,
+ * settling time) classify the parameter as raising, lowering, not affecting or mixed. (2) Monotone
+ * parameters go to the bound that makes the figure worse; mixed ones are searched along their range
+ * (9-point line plus Brent's maximization, brentMaximize, coordinate by coordinate, two rounds).
+ * (3) Unless disabled, all 2^P corners are evaluated too and a worse corner replaces the result
+ * (flagged). Figures come from ladderMetrics (exact); optionally each worst point is recomputed
+ * by the engine alone.
+ *
+ * Syntax: worstCase(project[, ladder, { cornerSweep, confirmWithEngine }])
+ * Example: worstCase(p).worstRipple.value  // V at the worst corner
+ */
+export function worstCase(project: Project, ladder?: Ladder, options: WorstCaseOptions = {}): WorstCaseResult {
+  const settings = requireTolerance(project);
+  const nominalLadder = ladder ?? ladderFromProject(project);
+  const parameters = toleranceParameters(settings, nominalLadder);
+  const plan = metricPlan(project, nominalLadder);
+  const P = parameters.length;
+  const memo = new Map<string, LadderMetrics>();
+  const evaluate = (z: number[]): LadderMetrics => {
+    const key = z.join(',');
+    let m = memo.get(key);
+    if (!m) {
+      m = ladderMetrics(ladderAt(nominalLadder, parameters, z), plan);
+      memo.set(key, m);
+    }
+    return m;
+  };
+
+  const figures: Figure[] = ['ripple', 'droop', ...(plan.inl ? (['inl'] as Figure[]) : []), 'settling'];
+  const scanPoints = distinctPoints([
+    new Array(P).fill(0),
+    new Array(P).fill(-1),
+    new Array(P).fill(1),
+    Array.from({ length: P }, (_, p) => (p % 2 === 0 ? 1 : -1)),
+    Array.from({ length: P }, (_, p) => (p % 2 === 0 ? -1 : 1)),
+    Array.from({ length: P }, (_, p) => (p < P / 2 ? 1 : -1)),
+  ]);
+  const effects = new Map<Figure, Effect[]>(figures.map((f) => [f, new Array<Effect>(P).fill('none')]));
+  for (let p = 0; p < P; p++) {
+    const signs = new Map<Figure, Set<number>>(figures.map((f) => [f, new Set<number>()]));
+    for (const x of scanPoints) {
+      const line = SCAN_LEVELS.map((level) => evaluate(withCoordinate(x, p, level)));
+      for (const f of figures) {
+        const s = line.map((m) => severity(m, f));
+        signs.get(f)!.add(compare(s[1], s[0])).add(compare(s[2], s[1]));
+      }
+    }
+    for (const f of figures) {
+      const set = signs.get(f)!;
+      set.delete(0);
+      effects.get(f)![p] = set.size === 0 ? 'none' : set.size === 2 ? 'mixed' : set.has(1) ? 'raises' : 'lowers';
+    }
+  }
+
+  const results = new Map<Figure, { z: number[]; searched: string[]; sweptWorse: boolean }>();
+  for (const f of figures) {
+    const eff = effects.get(f)!;
+    let z: number[] = eff.map((e) => (e === 'raises' ? 1 : e === 'lowers' ? -1 : 0));
+    const mixed = eff.flatMap((e, p) => (e === 'mixed' ? [p] : []));
+    for (let round = 0; round < (mixed.length > 1 ? 2 : 1); round++) {
+      for (const p of mixed) z = lineSearch(z, p, (y) => severity(evaluate(y), f));
+    }
+    results.set(f, { z, searched: mixed.map((p) => parameters[p].key), sweptWorse: false });
+  }
+
+  if (options.cornerSweep ?? P <= 10) {
+    for (let mask = 0; mask < 2 ** P; mask++) {
+      const corner = Array.from({ length: P }, (_, p) => ((mask >> p) & 1 ? 1 : -1));
+      const m = evaluate(corner);
+      for (const f of figures) {
+        const r = results.get(f)!;
+        if (compare(severity(m, f), severity(evaluate(r.z), f)) > 0) {
+          results.set(f, { ...r, z: corner, sweptWorse: true });
+        }
+      }
+    }
+  }
+
+  const figureResult = (f: Figure): WorstCaseFigure => {
+    const r = results.get(f)!;
+    const worstLadder = ladderAt(nominalLadder, parameters, r.z);
+    const m = options.confirmWithEngine ? ladderMetrics(worstLadder, plan, { engineOnly: true }) : evaluate(r.z);
+    const { value, duty } = figureValue(m, f);
+    const limit = limitOf(plan, f);
+    return {
+      figure: f,
+      value,
+      duty,
+      z: r.z,
+      values: parameters.map((q, p) => 0.5 * (q.min + q.max) + r.z[p] * 0.5 * (q.max - q.min)),
+      effects: effects.get(f)!,
+      method: r.searched.length > 0 ? 'search' : 'corner',
+      searched: r.searched,
+      cornerSweepWorse: r.sweptWorse,
+      limit,
+      pass: limit === null ? null : value !== null && Math.abs(value) <= limit,
+    };
+  };
+  const worstRipple = figureResult('ripple');
+  const droop = figureResult('droop');
+  const inl = plan.inl ? figureResult('inl') : null;
+  const settlingTime = figureResult('settling');
+  const all = [worstRipple, droop, inl, settlingTime].filter((x): x is WorstCaseFigure => x !== null);
+  return {
+    parameters,
+    plan,
+    nominal: ladderMetrics(nominalLadder, plan),
+    worstRipple,
+    droop,
+    inl,
+    settlingTime,
+    pass: all.every((x) => x.pass !== false),
+    evaluations: memo.size,
+  };
+}
+
+/** How bad a figure is: larger is worse (a step that never settles is infinitely bad). */
+function severity(m: LadderMetrics, f: Figure): number {
+  switch (f) {
+    case 'ripple':
+      return m.worstRipple.ripple;
+    case 'droop':
+      return Math.abs(m.droop.error);
+    case 'inl':
+      return Math.abs(m.inl?.error ?? 0);
+    case 'settling':
+      return m.settlingTime ?? Infinity;
+  }
+}
+
+function figureValue(m: LadderMetrics, f: Figure): { value: number | null; duty: number | null } {
+  switch (f) {
+    case 'ripple':
+      return { value: m.worstRipple.ripple, duty: m.worstRipple.duty };
+    case 'droop':
+      return { value: m.droop.error, duty: m.droop.duty };
+    case 'inl':
+      return { value: m.inl?.error ?? 0, duty: m.inl?.duty ?? null };
+    case 'settling':
+      return { value: m.settlingTime, duty: null };
+  }
+}
+
+function limitOf(plan: MetricPlan, f: Figure): number | null {
+  const l = plan.limits;
+  const v = f === 'ripple' ? l.ripple : f === 'droop' ? l.droop : f === 'inl' ? l.inl : l.settling;
+  return v ?? null;
+}
+
+/** Sign of b - a, treating differences below 1e-9 of the larger magnitude as no change. */
+function compare(b: number, a: number): number {
+  if (a === b) return 0;
+  if (!Number.isFinite(a) || !Number.isFinite(b)) return b > a ? 1 : -1;
+  const scale = Math.max(Math.abs(a), Math.abs(b));
+  if (Math.abs(b - a) <= 1e-9 * scale) return 0;
+  return b > a ? 1 : -1;
+}
+
+function withCoordinate(z: number[], p: number, value: number): number[] {
+  const y = z.slice();
+  y[p] = value;
+  return y;
+}
+
+function distinctPoints(points: number[][]): number[][] {
+  const seen = new Set<string>();
+  return points.filter((x) => {
+    const key = x.join(',');
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
+  });
+}
+
+/** Maximize g along coordinate p of z over [-1, 1]: a 9-point line, then Brent around the best. */
+function lineSearch(z: number[], p: number, g: (y: number[]) => number): number[] {
+  const xs = Array.from({ length: LINE_POINTS }, (_, i) => -1 + (2 * i) / (LINE_POINTS - 1));
+  const gs = xs.map((x) => g(withCoordinate(z, p, x)));
+  let best = 0;
+  for (let i = 1; i < xs.length; i++) if (compare(gs[i], gs[best]) > 0) best = i;
+  let bestX = xs[best];
+  let bestG = gs[best];
+  if (Number.isFinite(bestG)) {
+    const lo = xs[Math.max(best - 1, 0)];
+    const hi = xs[Math.min(best + 1, xs.length - 1)];
+    const refined = brentMaximize((x) => g(withCoordinate(z, p, x)), lo, hi, 1e-7);
+    if (compare(refined.value, bestG) > 0) {
+      bestX = refined.x;
+      bestG = refined.value;
+    }
+  }
+  return withCoordinate(z, p, bestX);
+}

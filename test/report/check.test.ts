@@ -1,0 +1,73 @@
+/** renderCheck: the one-line-per-file text, the Markdown table and the JSON shape. */
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import type { Check } from '../../src/engine/checks.js';
+import { renderCheck, type CheckedFile } from '../../src/report/check.js';
+
+const ripple = (value: number | null, limit: number): Check => ({ name: 'ripple', value, limit, unit: 'V', pass: value !== null && value <= limit });
+const settling = (value: number | null, limit: number): Check => ({ name: 'settling', value, limit, unit: 's', pass: value !== null && value <= limit });
+const file = (name: string, checks: Check[]): CheckedFile => ({ file: name, pass: checks.every((c) => c.pass), checks, lsb: 3.3 / 1024 });
+
+describe('renderCheck text', () => {
+  it('writes PASS with the number of checks, FAIL with each failing spec, value > limit', () => {
+    const out = renderCheck(
+      [file('a.yaml', [ripple(1e-3, 3.22e-3)]), file('bb.yaml', [ripple(4.12e-3, 1.61e-3), settling(null, 0.02), settling(0.01, 0.02)])],
+      'text',
+    );
+    expect(out).toBe('PASS  a.yaml   (1 check holds)\nFAIL  bb.yaml  ripple 4.12 mV > 1.61 mV, settling never settles (limit 20 ms)\n');
+  });
+
+  it('prints enough digits that a value just over its limit does not read as equal', () => {
+    const out = renderCheck([file('a.yaml', [ripple(1.6113e-3, 1.611e-3)])], 'text');
+    expect(out).toContain('ripple 1.6113 mV > 1.611 mV');
+  });
+
+  it('leaves invalid files to standard error and colours only when asked', () => {
+    const bad: CheckedFile = { file: 'bad.yaml', pass: false, checks: [], lsb: null, error: 'bad.yaml:1:1: pwm: required' };
+    expect(renderCheck([bad], 'text')).toBe('');
+    const good = [file('a.yaml', [ripple(1e-3, 2e-3)])];
+    expect(renderCheck(good, 'text', { color: false })).not.toMatch(/\x1b\[/);
+    expect(renderCheck(good, 'text', { color: true })).toMatch(/\x1b\[32mPASS/);
+  });
+});
+
+describe('renderCheck JSON and Markdown', () => {
+  it('JSON holds files [{ file, pass, checks, error? }] and pass', () => {
+    const bad: CheckedFile = { file: 'bad.yaml', pass: false, checks: [], lsb: null, error: 'bad.yaml:1:1: pwm: required' };
+    const j = JSON.parse(renderCheck([file('a.yaml', [ripple(1e-3, 2e-3)]), bad], 'json'));
+    expect(j).toEqual({
+      files: [
+        { file: 'a.yaml', pass: true, checks: [ripple(1e-3, 2e-3)] },
+        { file: 'bad.yaml', pass: false, checks: [], error: 'bad.yaml:1:1: pwm: required' },
+      ],
+      pass: false,
+    });
+  });
+
+  it('Markdown keeps one row per file with three cells, whatever the file names hold', () => {
+    // GFM spec 0.29, 4.10 Tables: a pipe inside a cell must be escaped; a backslash escapes the
+    // next character. Split like cmark-gfm: skip escaped pairs, cut at bare pipes (from memory).
+    const split = (row: string) => {
+      const cells: string[] = [];
+      let cell = '';
+      for (let i = 1; i < row.length; i++) {
+        if (row[i] === '\\') {
+          cell += row[i] + (row[i + 1] ?? '');
+          i++;
+        } else if (row[i] === '|') {
+          cells.push(cell);
+          cell = '';
+        } else cell += row[i];
+      }
+      return cells;
+    };
+    fc.assert(
+      fc.property(fc.array(fc.string({ minLength: 1, maxLength: 12 }), { minLength: 1, maxLength: 5 }), (names) => {
+        const md = renderCheck(names.map((n) => file(n, [ripple(1e-3, 2e-3)])), 'markdown');
+        const rows = md.split('\n').filter((l) => l.startsWith('|'));
+        expect(rows).toHaveLength(names.length + 2);
+        for (const r of rows) expect(split(r)).toHaveLength(3);
+      }),
+    );
+  });
+});
