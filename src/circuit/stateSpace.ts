@@ -1,11 +1,12 @@
 import type { Ladder } from './ladder.js';
+import { checkLadder } from './checkLadder.js';
 
 /** x' = A x + b for one pin state; A row-major n x n. */
 export interface PhaseSystem {
-  A: Float64Array;
-  b: Float64Array;
+  A: number[];
+  b: number[];
   /** b per volt of source (b = input * source). */
-  input: Float64Array;
+  input: number[];
 }
 
 /** Nodes first..last (inclusive, 0-based) that no follower separates. */
@@ -25,7 +26,7 @@ export interface StateSpace {
   /** Small-signal system: driver = mean of high and low, b for a 1 V source. */
   mean: PhaseSystem;
   /** Capacitance at each node, F (load capacitance included at an unbuffered last node). */
-  capacitance: Float64Array;
+  capacitance: number[];
   /** Follower-free sections; A restricted to one is C^{-1} G with G symmetric. */
   sections: Section[];
   /** Index of the output node (the last). */
@@ -48,8 +49,8 @@ export interface StateSpace {
 export function phaseSystem(ladder: Ladder, driver: number, source: number): PhaseSystem {
   const { stages } = ladder;
   const n = stages.length;
-  const A = new Float64Array(n * n);
-  const input = new Float64Array(n);
+  const A: number[] = new Array<number>(n * n).fill(0);
+  const input: number[] = new Array<number>(n).fill(0);
   const cap = nodeCapacitance(ladder);
   for (let k = 0; k < n; k++) {
     const gIn = 1 / (stages[k].r + (k === 0 ? driver : 0));
@@ -99,27 +100,9 @@ export function stateSpace(ladder: Ladder): StateSpace {
   };
 }
 
-function nodeCapacitance(ladder: Ladder): Float64Array {
+function nodeCapacitance(ladder: Ladder): number[] {
   const n = ladder.stages.length;
-  const cap = Float64Array.from(ladder.stages, (s) => s.c);
+  const cap = ladder.stages.map((s) => s.c);
   if (!ladder.stages[n - 1].buffered) cap[n - 1] += ladder.loadCapacitance;
   return cap;
-}
-
-function checkLadder(ladder: Ladder): void {
-  const bad = (what: string) => {
-    throw new RangeError(`invalid ladder: ${what}`);
-  };
-  if (!(ladder.period > 0) || !Number.isFinite(ladder.period)) bad('period must be > 0');
-  if (!Number.isFinite(ladder.high) || !Number.isFinite(ladder.low)) bad('levels must be finite');
-  if (!(ladder.driverHigh >= 0) || !(ladder.driverLow >= 0)) bad('driver resistance must be >= 0');
-  if (!Number.isFinite(ladder.driverHigh) || !Number.isFinite(ladder.driverLow)) bad('driver must be finite');
-  if (ladder.stages.length === 0) bad('at least one stage');
-  for (const s of ladder.stages) {
-    if (!(s.r > 0) || !(s.c > 0) || !Number.isFinite(s.r) || !Number.isFinite(s.c)) {
-      bad('every stage needs finite r > 0 and c > 0');
-    }
-  }
-  if (ladder.loadResistance !== null && !(ladder.loadResistance > 0)) bad('load resistance must be > 0');
-  if (!(ladder.loadCapacitance >= 0)) bad('load capacitance must be >= 0');
 }

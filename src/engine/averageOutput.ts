@@ -1,3 +1,4 @@
+import type { Ladder } from '../circuit/ladder.js';
 import type { Prepared } from './prepare.js';
 import { dutyPlan } from './dutyPlan.js';
 import { oneStageSteadyState } from './oneStage.js';
@@ -7,9 +8,9 @@ import { oneStageSteadyState } from './oneStage.js';
  *
  * Method: the average of dutyPlan.ts (closed form for one stage, oneStage.ts).
  *
- * Syntax: averageOutput(prepared, duty)
- * Example: averageOutput(prepare(ladder), 0.25)  // 0.825 for 3.3 V, no load, equal drivers
+ * Syntax: averageOutput(ladder, prepared, duty)
+ * Example: averageOutput(ladder, prepare(ladder), 0.25)  // 0.825 for 3.3 V, no load, equal drivers
  */
-export function averageOutput(p: Prepared, duty: number): number {
-  return p.n === 1 ? oneStageSteadyState(p, duty).average : dutyPlan(p, duty).average;
+export function averageOutput(ladder: Ladder, p: Prepared, duty: number): number {
+  return p.n === 1 ? oneStageSteadyState(ladder, duty).average : dutyPlan(p, duty).average;
 }

@@ -26,7 +26,7 @@ export function dcTransfer(ladder: Ladder, dutyMin: number, dutyMax: number): Dc
   const p = prepare(ladder);
   const span = ladder.high - ladder.low;
   const ideal = (d: number) => ladder.low + d * span;
-  const average = (d: number) => averageOutput(p, d);
+  const average = (d: number) => averageOutput(ladder, p, d);
   const error = (d: number) => ideal(d) - average(d);
 
   const droopAt = maximizeOnInterval((d) => Math.abs(error(d)), dutyMin, dutyMax).x;

@@ -1,25 +1,39 @@
 /**
  * Small dense linear algebra for the engine: square matrices of order n <= 12 stored row-major in a
- * Float64Array (entry (i, j) at i * n + j), vectors as Float64Array. Hand-written because the
+ * plain number[] (entry (i, j) at i * n + j), vectors as number[]. Hand-written because the
  * matrices are tiny and called millions of times: a general library's overhead would dominate.
+ * Plain arrays rather than Float64Array: V8 allocates small typed arrays off the managed heap,
+ * which made allocation and garbage collection the largest cost of the engine.
  *
  * Method: textbook kernels (Golub & Van Loan, "Matrix Computations", 4th ed., ch. 1 and 3):
  * ijk products, LU factorization with partial pivoting (Algorithm 3.4.1) and triangular solves.
  */
 
 /** Row-major square matrix of order n. */
-export type Matrix = Float64Array;
+export type Matrix = number[];
 /** Column vector. */
-export type Vector = Float64Array;
+export type Vector = number[];
+
+/**
+ * A vector of n zeros (packed, so V8 keeps it as an unboxed double array once written).
+ *
+ * Syntax: zeros(n)
+ * Example: zeros(3)  // [0, 0, 0]
+ */
+export function zeros(n: number): number[] {
+  const v: number[] = [];
+  for (let i = 0; i < n; i++) v.push(0);
+  return v;
+}
 
 /**
  * The identity of order n.
  *
  * Syntax: identity(n)
- * Example: identity(2)  // Float64Array [1, 0, 0, 1]
+ * Example: identity(2)  // [1, 0, 0, 1]
  */
 export function identity(n: number): Matrix {
-  const m = new Float64Array(n * n);
+  const m = zeros(n * n);
   for (let i = 0; i < n; i++) m[i * n + i] = 1;
   return m;
 }
@@ -30,7 +44,7 @@ export function identity(n: number): Matrix {
  * Syntax: matmul(a, b, n[, out])
  * Example: matmul(identity(2), m, 2)  // a copy of m
  */
-export function matmul(a: Matrix, b: Matrix, n: number, out: Matrix = new Float64Array(n * n)): Matrix {
+export function matmul(a: Matrix, b: Matrix, n: number, out: Matrix = zeros(n * n)): Matrix {
   for (let i = 0; i < n; i++) {
     const row = i * n;
     for (let j = 0; j < n; j++) out[row + j] = 0;
@@ -48,9 +62,9 @@ export function matmul(a: Matrix, b: Matrix, n: number, out: Matrix = new Float6
  * Matrix-vector product a x.
  *
  * Syntax: matvec(a, x, n[, out])
- * Example: matvec(identity(2), Float64Array.of(1, 2), 2)  // [1, 2]
+ * Example: matvec(identity(2), [1, 2], 2)  // [1, 2]
  */
-export function matvec(a: Matrix, x: Vector, n: number, out: Vector = new Float64Array(n)): Vector {
+export function matvec(a: Matrix, x: Vector, n: number, out: Vector = zeros(n)): Vector {
   for (let i = 0; i < n; i++) {
     let s = 0;
     const row = i * n;
@@ -64,7 +78,7 @@ export function matvec(a: Matrix, x: Vector, n: number, out: Vector = new Float6
  * Row i of a times x: (a x)_i, without forming the whole product.
  *
  * Syntax: rowDot(a, i, x, n)
- * Example: rowDot(identity(2), 1, Float64Array.of(3, 4), 2)  // 4
+ * Example: rowDot(identity(2), 1, [3, 4], 2)  // 4
  */
 export function rowDot(a: Matrix, i: number, x: Vector, n: number): number {
   let s = 0;
@@ -77,7 +91,7 @@ export function rowDot(a: Matrix, i: number, x: Vector, n: number): number {
  * Maximum absolute column sum, the matrix 1-norm.
  *
  * Syntax: norm1(a, n)
- * Example: norm1(Float64Array.of(1, -2, 3, 4), 2)  // 6
+ * Example: norm1([1, -2, 3, 4], 2)  // 6
  */
 export function norm1(a: Matrix, n: number): number {
   let best = 0;
@@ -93,7 +107,7 @@ export function norm1(a: Matrix, n: number): number {
  * Maximum absolute row sum, the matrix infinity-norm.
  *
  * Syntax: normInf(a, n)
- * Example: normInf(Float64Array.of(1, -2, 3, 4), 2)  // 7
+ * Example: normInf([1, -2, 3, 4], 2)  // 7
  */
 export function normInf(a: Matrix, n: number): number {
   let best = 0;
@@ -109,7 +123,7 @@ export function normInf(a: Matrix, n: number): number {
  * Largest absolute entry of a vector.
  *
  * Syntax: vectorNormInf(x)
- * Example: vectorNormInf(Float64Array.of(1, -3))  // 3
+ * Example: vectorNormInf([1, -3])  // 3
  */
 export function vectorNormInf(x: Vector): number {
   let best = 0;
@@ -136,7 +150,7 @@ export interface LuFactors {
  * Example: luSolve(luFactor(a, 2), b)  // x with a x = b
  */
 export function luFactor(a: Matrix, n: number): LuFactors {
-  const lu = Float64Array.from(a);
+  const lu = a.slice();
   const piv = new Int32Array(n);
   for (let i = 0; i < n; i++) piv[i] = i;
   for (let k = 0; k < n; k++) {
@@ -175,11 +189,11 @@ export function luFactor(a: Matrix, n: number): LuFactors {
  * Solve a x = b from the LU factors of a.
  *
  * Syntax: luSolve(factors, b)
- * Example: luSolve(luFactor(Float64Array.of(2, 0, 0, 4), 2), Float64Array.of(2, 2))  // [1, 0.5]
+ * Example: luSolve(luFactor([2, 0, 0, 4], 2), [2, 2])  // [1, 0.5]
  */
 export function luSolve(f: LuFactors, b: Vector): Vector {
   const { n, lu, piv } = f;
-  const x = new Float64Array(n);
+  const x = zeros(n);
   for (let i = 0; i < n; i++) {
     let s = b[piv[i]];
     for (let k = 0; k < i; k++) s -= lu[i * n + k] * x[k];
@@ -201,7 +215,7 @@ export function luSolve(f: LuFactors, b: Vector): Vector {
  */
 export function luSolveMatrix(f: LuFactors, b: Matrix): Matrix {
   const { n, lu, piv } = f;
-  const x = new Float64Array(n * n);
+  const x = zeros(n * n);
   for (let i = 0; i < n; i++) {
     const src = piv[i] * n;
     for (let j = 0; j < n; j++) x[i * n + j] = b[src + j];

@@ -1,4 +1,4 @@
-import { luFactor, luSolve, matmul, matvec, normInf, type Matrix, type Vector } from './dense.js';
+import { luFactor, luSolve, matmul, matvec, normInf, zeros, type Matrix, type Vector } from './dense.js';
 import { doubleFlow, flow, type Flow } from './flow.js';
 import { PLAN_CACHE_SIZE, type Prepared } from './prepare.js';
 import type { PeriodExtrema } from './periodTrajectory.js';
@@ -69,7 +69,7 @@ export function dutyPlan(p: Prepared, duty: number): DutyPlan {
   const Kh = high.full.K;
   const El = low.full.E;
   const ElKh = matmul(El, Kh, n);
-  const S = new Float64Array(n * n);
+  const S = zeros(n * n);
   for (let i = 0; i < n * n; i++) S[i] = low.full.K[i] + ElKh[i];
   const factors = luFactor(S, n);
   const u = luSolve(factors, matvec(ElKh, p.delta, n));

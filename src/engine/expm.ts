@@ -1,4 +1,4 @@
-import { matmul, norm1, type Matrix } from './dense.js';
+import { matmul, norm1, zeros, type Matrix } from './dense.js';
 
 /**
  * Padé coefficients b_0..b_m of the diagonal [m/m] approximant of exp, scaled so that b_m = 1
@@ -35,9 +35,9 @@ const THETA_13 = 5.371920351148152;
  * matrices millions of times and allocation would dominate.
  *
  * Syntax: expm(a, n[, out])
- * Example: expm(Float64Array.of(-1, 0, 0, -2), 2)  // diag(e^-1, e^-2)
+ * Example: expm([-1, 0, 0, -2], 2)  // diag(e^-1, e^-2)
  */
-export function expm(a: Matrix, n: number, out: Matrix = new Float64Array(n * n)): Matrix {
+export function expm(a: Matrix, n: number, out: Matrix = zeros(n * n)): Matrix {
   const eta = norm1(a, n);
   if (!Number.isFinite(eta)) throw new RangeError('expm: matrix has non-finite entries');
   const ws = workspace(n);
@@ -89,7 +89,7 @@ function workspace(n: number): Workspace {
   let ws = workspaces.get(n);
   if (!ws) {
     const nn = n * n;
-    const m = () => new Float64Array(nn);
+    const m = () => zeros(nn);
     ws = { scaled: m(), square: m(), a2: m(), a4: m(), a6: m(), a8: m(), u: m(), v: m(), t1: m(), t2: m(), piv: new Int32Array(n) };
     workspaces.set(n, ws);
   }

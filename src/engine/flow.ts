@@ -1,4 +1,4 @@
-import { matmul, type Matrix } from './dense.js';
+import { identity, matmul, zeros, type Matrix } from './dense.js';
 import { expm } from './expm.js';
 
 /**
@@ -28,18 +28,15 @@ export interface Flow {
  * Higham's 2005 scaling and squaring (see expm.ts).
  *
  * Syntax: flow(A, n, t[, withIntegral])
- * Example: flow(Float64Array.of(-1), 1, 1e-12).K  // [1e-12 * (1 - 5e-13)], to full precision
+ * Example: flow([-1], 1, 1e-12).K  // [1e-12 * (1 - 5e-13)], to full precision
  */
 export function flow(A: Matrix, n: number, t: number, withIntegral = true): Flow {
   const blocks = withIntegral ? 3 : 2;
   const m = blocks * n;
   if (t === 0) {
-    const zero = new Float64Array(n * n);
-    const e = new Float64Array(n * n);
-    for (let i = 0; i < n; i++) e[i * n + i] = 1;
-    return { t, E: e, K: zero, J: withIntegral ? new Float64Array(n * n) : null };
+    return { t, E: identity(n), K: zeros(n * n), J: withIntegral ? zeros(n * n) : null };
   }
-  const z = new Float64Array(m * m);
+  const z = zeros(m * m);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       const x = t * A[i * n + j];
@@ -49,9 +46,9 @@ export function flow(A: Matrix, n: number, t: number, withIntegral = true): Flow
   }
   if (withIntegral) for (let i = 0; i < n; i++) z[(n + i) * m + 2 * n + i] = 1;
   const ez = expm(z, m);
-  const E = new Float64Array(n * n);
-  const K = new Float64Array(n * n);
-  const J = withIntegral ? new Float64Array(n * n) : null;
+  const E = zeros(n * n);
+  const K = zeros(n * n);
+  const J = withIntegral ? zeros(n * n) : null;
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       E[i * n + j] = ez[i * m + j];
@@ -74,12 +71,12 @@ export function doubleFlow(f: Flow, n: number): Flow {
   const nn = n * n;
   const E = matmul(f.E, f.E, n);
   const EK = matmul(f.E, f.K, n);
-  const K = new Float64Array(nn);
+  const K = zeros(nn);
   for (let i = 0; i < nn; i++) K[i] = f.K[i] + EK[i];
   let J: Matrix | null = null;
   if (f.J) {
     const EJ = matmul(f.E, f.J, n);
-    J = new Float64Array(nn);
+    J = zeros(nn);
     for (let i = 0; i < nn; i++) J[i] = f.J[i] + f.t * f.K[i] + EJ[i];
   }
   return { t: 2 * f.t, E, K, J };

@@ -1,5 +1,5 @@
 import type { Ladder } from '../circuit/ladder.js';
-import { luFactor, luSolve } from './dense.js';
+import { luFactor, luSolve, zeros } from './dense.js';
 import { prepare, type Prepared } from './prepare.js';
 
 /**
@@ -25,7 +25,7 @@ export function relativeGain(p: Prepared, w: number): number {
   const { n, output } = p.system;
   const { A, input } = p.system.mean;
   const m = 2 * n;
-  const big = new Float64Array(m * m);
+  const big = zeros(m * m);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       big[i * m + j] = -A[i * n + j];
@@ -34,8 +34,8 @@ export function relativeGain(p: Prepared, w: number): number {
     big[i * m + n + i] = -w;
     big[(n + i) * m + i] = w;
   }
-  const rhs = new Float64Array(m);
-  rhs.set(input, 0);
+  const rhs = zeros(m);
+  for (let i = 0; i < n; i++) rhs[i] = input[i];
   const z = luSolve(luFactor(big, m), rhs);
   const dc = luSolve(luFactor(A.map((v) => -v), n), input)[output];
   return Math.hypot(z[output], z[n + output]) / Math.abs(dc);

@@ -1,4 +1,4 @@
-import { matvec, rowDot, type Vector } from './dense.js';
+import { matvec, rowDot, zeros, type Matrix, type Vector } from './dense.js';
 import { expm } from './expm.js';
 import { flow } from './flow.js';
 import { brentRoot } from './brentRoot.js';
@@ -27,9 +27,9 @@ export interface PeriodTrajectory extends PeriodExtrema {
 interface PhaseTrack {
   phase: PhasePlan;
   t0: number;
-  /** q_j = E(j h) v and w_j = w(t0 + j h), j = 0..cells, n entries each. */
-  q: Float64Array;
-  w: Float64Array;
+  /** q_j = E(j h) v and w_j = w(t0 + j h), j = 0..cells. */
+  q: Vector[];
+  w: Vector[];
 }
 
 /**
@@ -52,16 +52,16 @@ interface PhaseTrack {
 export function periodTrajectory(p: Prepared, plan: DutyPlan, e: Vector | null = null): PeriodTrajectory {
   const { n } = p;
   const out = p.system.output;
-  const vHigh = new Float64Array(n);
+  const vHigh = zeros(n);
   for (let i = 0; i < n; i++) vHigh[i] = plan.vHigh[i] - (e ? e[i] : 0);
   const acc: PeriodExtrema & { knots: number[] } = { minW: 0, maxW: 0, tMin: 0, tMax: 0, knots: [0] };
-  const zero = new Float64Array(n);
+  const zero = zeros(n);
   const high = walkPhase(p, plan.high, 0, vHigh, zero, acc);
   const wA = matvec(plan.high.full.K, vHigh, n);
   const t1 = plan.high.t;
   consider(acc, wA[out], t1);
   if (t1 > 0 && plan.low.t > 0) acc.knots.push(t1);
-  const vLow = new Float64Array(n);
+  const vLow = zeros(n);
   for (let i = 0; i < n; i++) vLow[i] = -plan.u[i] - (e ? e[i] : 0) - wA[i];
   const low = walkPhase(p, plan.low, t1, vLow, wA, acc);
   const kEnd = matvec(plan.low.full.K, vLow, n);
@@ -77,10 +77,10 @@ export function periodTrajectory(p: Prepared, plan: DutyPlan, e: Vector | null =
     const s = Math.min(Math.max(tau - t0, 0), phase.t);
     const j = Math.min(Math.floor(s / phase.h), phase.cells - 1);
     const delta = s - j * phase.h;
-    const base = track.w[j * n + out];
+    const base = track.w[j][out];
     if (delta === 0) return base;
     const k = flow(phase.A, n, delta, false).K;
-    return base + rowDot(k, out, track.q.subarray(j * n, j * n + n), n);
+    return base + rowDot(k, out, track.q[j], n);
   };
   return { minW: acc.minW, maxW: acc.maxW, tMin: acc.tMin, tMax: acc.tMax, knots: acc.knots, wEnd, valueAt };
 }
@@ -109,25 +109,22 @@ function walkPhase(
   const { n } = p;
   const out = p.system.output;
   const { cells, h, A, fine } = phase;
-  const q = new Float64Array((cells + 1) * n);
-  const w = new Float64Array((cells + 1) * n);
-  q.set(v, 0);
-  w.set(w0, 0);
+  const q: Vector[] = [v.slice()];
+  const w: Vector[] = [w0.slice()];
   const slopes = n > 1;
   // The first cell on its geometric grid: steps h 2^-K, h 2^-K, h 2^-(K-1), ..., h/2.
   const firstCell = fine.length === 0 ? [phase.step] : [fine[0], ...fine];
-  let qCur = Float64Array.from(v);
-  let wCur = Float64Array.from(w0);
+  let qCur = v.slice();
+  let wCur = w0.slice();
   let tCur = t0;
   let dPrev = slopes ? -rowDot(A, out, qCur, n) : 0;
-  const qNext = new Float64Array(n);
-  const kq = new Float64Array(n);
+  const kq = zeros(n);
   for (let j = 0; j < cells; j++) {
     const steps = j === 0 ? firstCell : [phase.step];
     for (let s = 0; s < steps.length; s++) {
       const f = steps[s];
       matvec(f.K, qCur, n, kq);
-      matvec(f.E, qCur, n, qNext);
+      const qNext = matvec(f.E, qCur, n);
       const wNextOut = wCur[out] + kq[out];
       const last = j === cells - 1 && s === steps.length - 1;
       if (!last) consider(acc, wNextOut, tCur + f.t);
@@ -138,12 +135,14 @@ function walkPhase(
         }
         dPrev = dNext;
       }
-      for (let i = 0; i < n; i++) wCur[i] += kq[i];
-      qCur.set(qNext);
+      const wNext = zeros(n);
+      for (let i = 0; i < n; i++) wNext[i] = wCur[i] + kq[i];
+      wCur = wNext;
+      qCur = qNext;
       tCur += f.t;
     }
-    q.set(qCur, (j + 1) * n);
-    w.set(wCur, (j + 1) * n);
+    q.push(qCur);
+    w.push(wCur);
   }
   return { phase, t0, q, w };
 }
@@ -151,7 +150,7 @@ function walkPhase(
 /** Refine the zero of the output's slope -c^T A E(delta) q inside a step of length len. */
 function turningPoint(
   p: Prepared,
-  A: Float64Array,
+  A: Matrix,
   q: Vector,
   wOut: number,
   tStart: number,
@@ -162,7 +161,7 @@ function turningPoint(
 ): void {
   const { n } = p;
   const out = p.system.output;
-  const qCopy = Float64Array.from(q);
+  const qCopy = q.slice();
   const slope = (delta: number): number => {
     const ed = expm(A.map((a) => a * delta), n);
     return -rowDot(A, out, matvec(ed, qCopy, n), n);

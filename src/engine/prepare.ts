@@ -5,7 +5,6 @@ import type { DutyPlan } from './dutyPlan.js';
 
 /** Everything about a ladder that does not depend on the duty, computed once per ladder object. */
 export interface Prepared {
-  ladder: Ladder;
   n: number;
   period: number;
   system: StateSpace;
@@ -30,6 +29,8 @@ export const PLAN_CACHE_SIZE = 64;
 /**
  * The duty-independent data of a ladder (state equations, DC states), cached per ladder object.
  * Ladders are treated as immutable: a ladder changed after its first use keeps its old cache.
+ * The cached value holds no reference back to its ladder (a WeakMap value that points at its own
+ * key makes V8's garbage collector slow when millions of ladders pass through).
  *
  * Method: DC gain per volt g_p from an LU solve of A_p g = -input_p (dense.ts); x_p = V_p g_p.
  * Delta = (V_h - V_l) g when both drivers are equal (no subtraction of nearly equal states),
@@ -43,7 +44,7 @@ export function prepare(ladder: Ladder): Prepared {
   if (hit) return hit;
   const system = stateSpace(ladder);
   const { n } = system;
-  const gainPerVolt = (A: Float64Array, input: Float64Array): Vector =>
+  const gainPerVolt = (A: number[], input: number[]): Vector =>
     luSolve(luFactor(A, n), input.map((v) => -v));
   const gHigh = gainPerVolt(system.high.A, system.high.input);
   const gLow =
@@ -54,7 +55,6 @@ export function prepare(ladder: Ladder): Prepared {
       ? gHigh.map((g) => g * span)
       : gHigh.map((g, i) => g * ladder.high - gLow[i] * ladder.low);
   const prepared: Prepared = {
-    ladder,
     n,
     period: ladder.period,
     system,

@@ -21,8 +21,8 @@ import { prepare } from './prepare.js';
  */
 export function steadyState(ladder: Ladder, duty: number): OperatingPoint {
   checkDuty(duty, 'duty');
+  if (ladder.stages.length === 1) return oneStageSteadyState(ladder, duty);
   const p = prepare(ladder);
-  if (p.n === 1) return oneStageSteadyState(p, duty);
   const plan = dutyPlan(p, duty);
   plan.extrema ??= periodTrajectory(p, plan);
   const { minW, maxW, tMin, tMax } = plan.extrema;

@@ -8,10 +8,10 @@
  * 1992), which matters here because time constants may span many decades.
  *
  * Syntax: symmetricEigenvalues(a, n)
- * Example: symmetricEigenvalues(Float64Array.of(2, 1, 1, 2), 2)  // [1, 3]
+ * Example: symmetricEigenvalues([2, 1, 1, 2], 2)  // [1, 3]
  */
-export function symmetricEigenvalues(a: Float64Array, n: number): number[] {
-  const m = Float64Array.from(a);
+export function symmetricEigenvalues(a: number[], n: number): number[] {
+  const m = a.slice();
   for (let sweep = 0; sweep < 60; sweep++) {
     let off = 0;
     for (let p = 0; p < n; p++) for (let q = p + 1; q < n; q++) off += m[p * n + q] ** 2;

@@ -23,7 +23,7 @@ export function timeConstants(ladder: Ladder): number[] {
     const taus: number[] = [];
     for (const { first, last } of sections) {
       const m = last - first + 1;
-      const s = new Float64Array(m * m);
+      const s: number[] = new Array<number>(m * m).fill(0);
       for (let i = 0; i < m; i++) {
         for (let j = 0; j < m; j++) {
           const gi = first + i;

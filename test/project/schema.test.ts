@@ -1,6 +1,9 @@
+import ajv2020Module from 'ajv/dist/2020.js';
 import { describe, expect, it } from 'vitest';
 import schema from '../../schemas/project.schema.json' with { type: 'json' };
-import { validateSchema } from '../../src/project/validateSchema.js';
+import { AJV_OPTIONS, validateSchema } from '../../src/project/validateSchema.js';
+
+const Ajv2020 = ((ajv2020Module as unknown as { default?: unknown }).default ?? ajv2020Module) as typeof ajv2020Module.default;
 
 type Node = Record<string, unknown>;
 
@@ -16,8 +19,17 @@ function objectSchemas(node: Node, path: string, out: Array<{ path: string; node
 }
 
 describe('schemas/project.schema.json', () => {
-  it('is JSON Schema 2020-12', () => {
+  it('is valid JSON Schema 2020-12 and passes Ajv strict mode (what the loader skips at run time)', () => {
+    // Reference: the JSON Schema 2020-12 meta-schema, as bundled with Ajv.
     expect(schema.$schema).toBe('https://json-schema.org/draft/2020-12/schema');
+    const ajv = new Ajv2020({ ...AJV_OPTIONS, validateSchema: true, code: { optimize: true } });
+    ajv.addKeyword({ keyword: 'x-unit', schemaType: 'string' });
+    expect(ajv.validateSchema(schema)).toBe(true);
+    expect(ajv.errors ?? null).toBeNull();
+    expect(() => ajv.compile(schema)).not.toThrow();
+    // A broken copy must be caught by the same check, or the check proves nothing.
+    const broken = { ...schema, properties: { ...schema.properties, version: { type: 'integr' } } };
+    expect(ajv.validateSchema(broken)).toBe(false);
   });
 
   it('closes every mapping with additionalProperties: false', () => {

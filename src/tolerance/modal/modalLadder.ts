@@ -1,14 +1,15 @@
+import { zeros } from './zeros.js';
 import type { Ladder } from '../../circuit/ladder.js';
 import { symmetricEigen } from './symmetricEigen.js';
 
 /** The modes of one pin state: x' = A x + b with A = Cs^-1 Q diag(rate) Q^T Cs. */
 export interface PhaseModes {
   /** Eigenvalues of A, 1/s (negative). */
-  rate: Float64Array;
+  rate: number[];
   /** Orthonormal eigenvectors of the symmetric form Cs A Cs^-1 (row-major, column i = mode i). */
-  basis: Float64Array;
+  basis: number[];
   /** Output (last node) per unit of each modal coordinate: g_i = basis[n-1][i] / Cs[n-1]. */
-  out: Float64Array;
+  out: number[];
 }
 
 /**
@@ -21,12 +22,12 @@ export interface ModalLadder {
   high: number;
   low: number;
   /** sqrt of each node capacitance, sqrt(F). */
-  cs: Float64Array;
+  cs: number[];
   hi: PhaseModes;
   lo: PhaseModes;
-  mix: Float64Array;
+  mix: number[];
   /** DC state of the high phase minus that of the low phase, in high-phase modal coordinates. */
-  delta: Float64Array;
+  delta: number[];
   /** Output at the DC state of the low phase, V. */
   outLow: number;
 }
@@ -59,14 +60,14 @@ export function modalLadder(ladder: Ladder): ModalLadder | null {
   // (node 0: from the pin through driver + R1), load at the last node unless a follower drives it.
   const loaded = !stages[n - 1].buffered;
   const gLoad = loaded && ladder.loadResistance !== null ? 1 / ladder.loadResistance : 0;
-  const cs = new Float64Array(n);
+  const cs = zeros(n);
   for (let k = 0; k < n; k++) cs[k] = Math.sqrt(stages[k].c + (k === n - 1 && loaded ? ladder.loadCapacitance : 0));
-  const gIn = new Float64Array(n + 1);
+  const gIn = zeros(n + 1);
   for (let k = 1; k < n; k++) gIn[k] = 1 / stages[k].r;
   gIn[n] = gLoad;
-  const phase = (driver: number, source: number): { modes: PhaseModes; dc: Float64Array } => {
+  const phase = (driver: number, source: number): { modes: PhaseModes; dc: number[] } => {
     gIn[0] = 1 / (stages[0].r + driver);
-    const S = new Float64Array(n * n);
+    const S = zeros(n * n);
     for (let k = 0; k < n; k++) {
       S[k * n + k] = -(gIn[k] + gIn[k + 1]) / (cs[k] * cs[k]);
       if (k + 1 < n) {
@@ -76,7 +77,7 @@ export function modalLadder(ladder: Ladder): ModalLadder | null {
       }
     }
     const { values, vectors } = symmetricEigen(S, n);
-    const out = new Float64Array(n);
+    const out = zeros(n);
     for (let i = 0; i < n; i++) out[i] = vectors[(n - 1) * n + i] / cs[n - 1];
     return { modes: { rate: values, basis: vectors, out }, dc: dcState(gIn, n, source) };
   };
@@ -84,8 +85,8 @@ export function modalLadder(ladder: Ladder): ModalLadder | null {
   const low = phase(ladder.driverLow, ladder.low);
   const hi = high.modes;
   const lo = low.modes;
-  const mix = new Float64Array(n * n);
-  const delta = new Float64Array(n);
+  const mix = zeros(n * n);
+  const delta = zeros(n);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       let s = 0;
@@ -114,10 +115,10 @@ export function modalLadder(ladder: Ladder): ModalLadder | null {
  * by the Thomas algorithm (forward elimination and back substitution; G is diagonally dominant,
  * so no pivoting is needed: Golub & Van Loan, 4th ed., Algorithm 4.3.6 and section 4.1).
  */
-function dcState(gIn: Float64Array, n: number, source: number): Float64Array {
-  const x = new Float64Array(n);
-  const diag = new Float64Array(n);
-  const rhs = new Float64Array(n);
+function dcState(gIn: number[], n: number, source: number): number[] {
+  const x = zeros(n);
+  const diag = zeros(n);
+  const rhs = zeros(n);
   for (let k = 0; k < n; k++) diag[k] = gIn[k] + gIn[k + 1];
   rhs[0] = gIn[0] * source;
   for (let k = 1; k < n; k++) {

@@ -1,3 +1,4 @@
+import { zeros } from './zeros.js';
 import { luFactor, luSolve } from '../../engine/dense.js';
 import { phi2 } from '../../engine/phi2.js';
 import type { ModalLadder } from './modalLadder.js';
@@ -10,7 +11,7 @@ export interface PeriodicState {
   t1: number;
   t2: number;
   /** State at the rising edge minus the DC state of the low phase, high-phase modal coordinates. */
-  start: Float64Array;
+  start: number[];
   /** Output at the rising edge, V. */
   yStart: number;
   /** Time average minus yStart, V (kept apart: it is tiny next to the level when ripple is). */
@@ -42,18 +43,18 @@ export function periodicState(m: ModalLadder, duty: number): PeriodicState {
   const { n, period, hi, lo, mix, delta } = m;
   const t1 = duty * period;
   const t2 = (1 - duty) * period;
-  const kh = new Float64Array(n);
-  const kl = new Float64Array(n);
-  const el = new Float64Array(n);
+  const kh = zeros(n);
+  const kl = zeros(n);
+  const el = zeros(n);
   for (let i = 0; i < n; i++) {
     kh[i] = -Math.expm1(hi.rate[i] * t1);
     kl[i] = -Math.expm1(lo.rate[i] * t2);
     el[i] = Math.exp(lo.rate[i] * t2);
   }
-  let start: Float64Array;
+  let start: number[];
   if (n === 1) {
     const den = kl[0] + el[0] * kh[0];
-    start = Float64Array.of((el[0] * kh[0] * delta[0]) / den);
+    start = [(el[0] * kh[0] * delta[0]) / den];
   } else if (n === 2) {
     start = solveTwoByTwo(
       mix[0] * (kl[0] + el[0] * kh[0]),
@@ -64,8 +65,8 @@ export function periodicState(m: ModalLadder, duty: number): PeriodicState {
       el[1] * (mix[2] * kh[0] * delta[0] + mix[3] * kh[1] * delta[1]),
     );
   } else {
-    const Y = new Float64Array(n * n);
-    const r = new Float64Array(n);
+    const Y = zeros(n * n);
+    const r = zeros(n);
     for (let i = 0; i < n; i++) {
       let s = 0;
       for (let j = 0; j < n; j++) {
@@ -77,8 +78,8 @@ export function periodicState(m: ModalLadder, duty: number): PeriodicState {
     }
     start = luSolve(luFactor(Y, n), r);
   }
-  const aHigh = new Float64Array(n);
-  const wEnd = new Float64Array(n);
+  const aHigh = zeros(n);
+  const wEnd = zeros(n);
   let yEnd = 0;
   let yStartDev = 0;
   for (let i = 0; i < n; i++) {
@@ -88,7 +89,7 @@ export function periodicState(m: ModalLadder, duty: number): PeriodicState {
     yEnd += aHigh[i] * kh[i];
     yStartDev += hi.out[i] * start[i];
   }
-  const aLow = new Float64Array(n);
+  const aLow = zeros(n);
   for (let i = 0; i < n; i++) {
     let s = 0;
     for (let j = 0; j < n; j++) s -= mix[i * n + j] * (start[j] + wEnd[j]);
@@ -117,9 +118,9 @@ export function periodicState(m: ModalLadder, duty: number): PeriodicState {
 }
 
 /** [a b; c d] x = [e; f] by Gaussian elimination with partial pivoting (Golub & Van Loan, Alg. 3.4.1). */
-function solveTwoByTwo(a: number, b: number, c: number, d: number, e: number, f: number): Float64Array {
+function solveTwoByTwo(a: number, b: number, c: number, d: number, e: number, f: number): number[] {
   if (Math.abs(c) > Math.abs(a)) [a, b, c, d, e, f] = [c, d, a, b, f, e];
   const l = c / a;
   const x1 = (f - l * e) / (d - l * b);
-  return Float64Array.of((e - b * x1) / a, x1);
+  return [(e - b * x1) / a, x1];
 }

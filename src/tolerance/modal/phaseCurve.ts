@@ -1,3 +1,4 @@
+import { zeros } from './zeros.js';
 import { expSumRoots } from './expSumRoots.js';
 
 /**
@@ -7,8 +8,8 @@ import { expSumRoots } from './expSumRoots.js';
  */
 export interface PhaseCurve {
   offset: number;
-  gain: Float64Array;
-  rate: Float64Array;
+  gain: number[];
+  rate: number[];
   length: number;
 }
 
@@ -45,7 +46,7 @@ export function curveTurningPoints(c: PhaseCurve): number[] {
     const t = twoTermTurningPoint(c);
     return t > 0 ? [t] : [];
   }
-  const slope = new Float64Array(c.gain.length);
+  const slope = zeros(c.gain.length);
   for (let i = 0; i < slope.length; i++) slope[i] = c.gain[i] * c.rate[i];
   return expSumRoots(slope, c.rate, c.length);
 }

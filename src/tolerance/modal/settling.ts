@@ -1,3 +1,4 @@
+import { zeros } from './zeros.js';
 import { brentRoot } from '../../engine/brentRoot.js';
 import type { ModalLadder } from './modalLadder.js';
 import { curveExtrema, curveTurningPoints, curveValue, type PhaseCurve } from './phaseCurve.js';
@@ -68,7 +69,7 @@ export function modalSettling(
   const below = Math.min(eh.min, el.min);
   if (above > band || below < -band) return null;
 
-  const e0 = new Float64Array(n);
+  const e0 = zeros(n);
   for (let i = 0; i < n; i++) e0[i] = source.start[i] - target.start[i];
   if (e0.every((v) => v === 0)) return 0;
 
@@ -77,15 +78,15 @@ export function modalSettling(
   if (fastest > MAX_HALF_PHASE_DECAY) return undefined;
 
   // The period map's modes: N = M - I in the symmetric form, then q_j = D^-1 z_j, p_j = D z_j.
-  const kh = new Float64Array(n);
-  const half = new Float64Array(n);
-  const kl = new Float64Array(n);
+  const kh = zeros(n);
+  const half = zeros(n);
+  const kl = zeros(n);
   for (let i = 0; i < n; i++) {
     kh[i] = -Math.expm1(hi.rate[i] * t1);
     half[i] = Math.exp(0.5 * hi.rate[i] * t1);
     kl[i] = -Math.expm1(lo.rate[i] * t2);
   }
-  const N = new Float64Array(n * n);
+  const N = zeros(n * n);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       let s = 0;
@@ -96,10 +97,10 @@ export function modalSettling(
   const { values: nu, vectors: Z } = symmetricEigen(N, n);
   const logMu = Array.from(nu, (v) => (v > -1 ? Math.log1p(v) : -Infinity));
   const power = (j: number, k: number) => (k === 0 ? 1 : Math.exp(k * logMu[j]));
-  const zeta = new Float64Array(n);
-  const etaHigh = new Float64Array(n * n); // [j * n + i]: mode j's output weight on rate i
-  const etaLow = new Float64Array(n * n);
-  const bound = new Float64Array(n);
+  const zeta = zeros(n);
+  const etaHigh = zeros(n * n); // [j * n + i]: mode j's output weight on rate i
+  const etaLow = zeros(n * n);
+  const bound = zeros(n);
   for (let j = 0; j < n; j++) {
     let z = 0;
     for (let i = 0; i < n; i++) z += half[i] * Z[i * n + j] * e0[i];
@@ -120,9 +121,9 @@ export function modalSettling(
 
   // Error curves of one period for mode coefficients c_j (zeta_j mu_j^k, or a mid value); the two
   // curve objects are refilled on each call (each is used up before the next call).
-  const errHigh: PhaseCurve = { offset: 0, gain: new Float64Array(n), rate: hi.rate, length: t1 };
-  const errLow: PhaseCurve = { offset: 0, gain: new Float64Array(n), rate: lo.rate, length: t2 };
-  const curves = (c: Float64Array): [PhaseCurve, PhaseCurve] => {
+  const errHigh: PhaseCurve = { offset: 0, gain: zeros(n), rate: hi.rate, length: t1 };
+  const errLow: PhaseCurve = { offset: 0, gain: zeros(n), rate: lo.rate, length: t2 };
+  const curves = (c: number[]): [PhaseCurve, PhaseCurve] => {
     let oHigh = ssHigh.offset;
     let oLow = ssLow.offset;
     for (let i = 0; i < n; i++) {
@@ -165,7 +166,7 @@ export function modalSettling(
   const safe = high; // no period from here on can leave the band
 
   let evaluations = 0;
-  const coef = new Float64Array(n);
+  const coef = zeros(n);
   const leaves = (a: number, b: number): boolean => {
     evaluations++;
     let slack = 0;

@@ -1,9 +1,11 @@
+import { zeros } from './zeros.js';
+
 /** Eigenvalues and orthonormal eigenvectors of a small symmetric matrix. */
 export interface SymmetricEigen {
   /** Eigenvalues, in no particular order. */
-  values: Float64Array;
+  values: number[];
   /** Row-major n x n; column j is the unit eigenvector of values[j]. */
-  vectors: Float64Array;
+  vectors: number[];
 }
 
 /**
@@ -16,11 +18,11 @@ export interface SymmetricEigen {
  * a stiff ladder are the ones settling depends on.
  *
  * Syntax: symmetricEigen(a, n)
- * Example: symmetricEigen(Float64Array.of(2, 1, 1, 2), 2).values  // [1, 3]
+ * Example: symmetricEigen([2, 1, 1, 2], 2).values  // [1, 3]
  */
 export function symmetricEigen(a: ArrayLike<number>, n: number): SymmetricEigen {
-  const m = Float64Array.from({ length: n * n }, (_, i) => a[i]);
-  const v = new Float64Array(n * n);
+  const m = Array.from({ length: n * n }, (_, i) => a[i]);
+  const v = zeros(n * n);
   for (let i = 0; i < n; i++) v[i * n + i] = 1;
   for (let sweep = 0; sweep < 60; sweep++) {
     let rotated = false;
@@ -68,7 +70,7 @@ export function symmetricEigen(a: ArrayLike<number>, n: number): SymmetricEigen 
     }
     if (!rotated) break;
   }
-  const values = new Float64Array(n);
+  const values = zeros(n);
   for (let i = 0; i < n; i++) values[i] = m[i * n + i];
   return { values, vectors: v };
 }

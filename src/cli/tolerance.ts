@@ -1,0 +1,126 @@
+import type { Argv, CommandModule } from 'yargs';
+import type { CommandOutput } from './analyze.js';
+import { EXIT_PASS, EXIT_SPEC_FAILS, UsageError } from './errors.js';
+
+export interface ToleranceArgs {
+  file: string;
+  samples?: number;
+  seed?: number;
+  distribution?: 'normal' | 'uniform';
+  workers?: number;
+  format: 'text' | 'json' | 'markdown';
+  charts: boolean;
+}
+
+/** Where progress goes: a terminal line that is redrawn in place, or nowhere. */
+export interface ProgressSink {
+  isTTY: boolean;
+  write: (s: string) => boolean;
+}
+
+/**
+ * Run `tolerance`: load the project, run the worst case and the Monte Carlo study, render the
+ * report. A progress bar is drawn on standard error only when it is a terminal.
+ *
+ * Syntax: await runTolerance(args, { color, progress })
+ * Example: await runTolerance({ file: 'p.yaml', format: 'json', charts: true }, { color: false })
+ */
+export async function runTolerance(
+  args: ToleranceArgs,
+  tty: { color: boolean; progress?: ProgressSink },
+): Promise<CommandOutput> {
+  for (const [name, value, min] of [
+    ['--samples', args.samples, 1],
+    ['--seed', args.seed, 0],
+    ['--workers', args.workers, 1],
+  ] as const) {
+    if (value !== undefined && !(Number.isInteger(value) && value >= min)) {
+      throw new UsageError(`${name} must be a whole number >= ${min}, got ${value}`);
+    }
+  }
+  const [{ loadProject }, { toleranceStudy, ToleranceInputError }, { toleranceReport }, { availableParallelism }] =
+    await Promise.all([
+      import('../project/index.js'),
+      import('../tolerance/index.js'),
+      import('../report/tolerance.js'),
+      import('node:os'),
+    ]);
+  const project = loadProject(args.file);
+  const bar = tty.progress?.isTTY ? progressBar(tty.progress) : undefined;
+  let study;
+  try {
+    study = await toleranceStudy(project, undefined, {
+      ...(args.samples !== undefined ? { samples: args.samples } : {}),
+      ...(args.seed !== undefined ? { seed: args.seed } : {}),
+      ...(args.distribution !== undefined ? { distribution: args.distribution } : {}),
+      workers: args.workers ?? Math.min(4, availableParallelism()),
+      ...(bar ? { onProgress: bar.update } : {}),
+    });
+  } catch (error) {
+    if (error instanceof ToleranceInputError) throw new UsageError(error.message);
+    throw error;
+  } finally {
+    bar?.clear();
+  }
+  const stdout = toleranceReport(project, study, args.format, { charts: args.charts, color: tty.color });
+  return { stdout, stderr: '', code: study.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
+}
+
+/** A one-line progress bar redrawn at most every 100 ms. */
+function progressBar(sink: ProgressSink): { update: (done: number, total: number) => void; clear: () => void } {
+  let last = 0;
+  let drawn = false;
+  return {
+    update(done, total) {
+      const now = Date.now();
+      if (now - last < 100 && done < total) return;
+      last = now;
+      const width = 30;
+      const filled = Math.round((width * done) / total);
+      sink.write(`\r  Monte Carlo [${'#'.repeat(filled)}${'.'.repeat(width - filled)}] ${done}/${total}`);
+      drawn = true;
+    },
+    clear() {
+      if (drawn) sink.write('\r\x1b[2K');
+    },
+  };
+}
+
+/**
+ * The `tolerance` command for yargs: options, help and examples; the handler runs runTolerance
+ * through `run` (which prints and sets the exit code).
+ *
+ * Syntax: toleranceCommand(run, color)
+ * Example: yargs(argv).command(toleranceCommand(run, color))
+ */
+export function toleranceCommand(
+  run: (work: () => Promise<CommandOutput>) => Promise<void>,
+  color: () => boolean,
+): CommandModule<object, ToleranceArgs> {
+  return {
+    command: 'tolerance <file>',
+    describe: 'Worst case over the part tolerances and Monte Carlo yield against the spec',
+    builder: (y: Argv) =>
+      y
+        .positional('file', { describe: 'Project file (YAML) with a tolerance block', type: 'string', demandOption: true })
+        .option('samples', { describe: 'Monte Carlo samples (default: tolerance.samples, else 10000)', type: 'number', requiresArg: true })
+        .option('seed', { describe: 'Random seed; the same seed gives the same result (default: tolerance.seed)', type: 'number', requiresArg: true })
+        .option('distribution', {
+          describe: 'Part value distribution (default: tolerance.distribution)',
+          choices: ['normal', 'uniform'] as const,
+        })
+        .option('workers', { describe: 'Worker threads for the Monte Carlo run (default: cores, at most 4)', type: 'number', requiresArg: true })
+        .option('format', { describe: 'Report format', choices: ['text', 'json', 'markdown'] as const, default: 'text' as const })
+        .option('charts', { describe: 'Draw the histograms (--no-charts to leave them out)', type: 'boolean', default: true })
+        .example('$0 tolerance board.yaml', 'Worst case, yield and histograms')
+        .example('$0 tolerance board.yaml --samples 100000 --seed 7', 'A larger, reproducible run')
+        .example('$0 tolerance board.yaml --format json', 'One JSON object, SI units') as unknown as Argv<ToleranceArgs>,
+    handler: (args) =>
+      run(() =>
+        runTolerance(args, {
+          color: args.format === 'text' && color(),
+          progress: { isTTY: process.stderr.isTTY === true, write: (s) => process.stderr.write(s) },
+        }),
+      ),
+  };
+}

@@ -1,0 +1,411 @@
+import type { Project } from '../project/types.js';
+import type { MonteCarloResult } from '../tolerance/monteCarlo.js';
+import type { ToleranceParameter } from '../tolerance/parameters.js';
+import type { ToleranceStudyResult } from '../tolerance/study.js';
+import { histogram, type Percentiles } from '../tolerance/statistics.js';
+import type { Effect, WorstCaseFigure, WorstCaseResult } from '../tolerance/worstCase.js';
+import { formatEng } from '../units/index.js';
+import { palette } from './color.js';
+import type { Block, ReportDocument, Section } from './document.js';
+import { percent, voltsAndLsb } from './quantities.js';
+import { table, type Align } from './table.js';
+
+type ToleranceStudy = ToleranceStudyResult;
+
+export type ToleranceFormat = 'text' | 'markdown' | 'json';
+
+export interface ToleranceReportOptions {
+  /** Include the histograms (default true). */
+  charts?: boolean;
+  /** ANSI colour in text (default false). */
+  color?: boolean;
+  /** Rows of each histogram (default 12). */
+  bins?: number;
+}
+
+/**
+ * The report of a tolerance study as text (aligned tables, ASCII histograms with the spec limit
+ * marked), GitHub-flavoured Markdown (the same content), or one JSON object in SI units holding
+ * at least worstCase.{worstRipple, droop, settlingTime} and monteCarlo.{samples, seed, yield}.
+ *
+ * Syntax: toleranceReport(project, study, format[, { charts, color, bins }])
+ * Example: toleranceReport(p, study, 'json')  // '{ "worstCase": { "worstRipple": { "value": ...'
+ */
+export function toleranceReport(
+  project: Project,
+  study: ToleranceStudy,
+  format: ToleranceFormat,
+  options: ToleranceReportOptions = {},
+): string {
+  if (format === 'json') return toleranceJson(project, study, options.bins ?? 12);
+  const doc = toleranceDocument(project, study, { charts: options.charts ?? true, bins: options.bins ?? 12 });
+  return format === 'markdown' ? renderMarkdown(doc) : renderText(doc, options.color ?? false);
+}
+
+// ---------------------------------------------------------------------------------------------
+// Content
+
+const FIGURE_NAMES: Record<WorstCaseFigure['figure'], string> = {
+  ripple: 'worst ripple',
+  droop: 'droop (DC error)',
+  inl: 'INL',
+  settling: 'settling time',
+};
+
+function toleranceDocument(
+  project: Project,
+  study: ToleranceStudy,
+  options: { charts: boolean; bins: number },
+): ReportDocument {
+  const { worstCase: wc, monteCarlo: mc } = study;
+  const lsb = project.lsb ?? null;
+  const sections: Section[] = [
+    parametersSection(wc.parameters, mc),
+    worstCaseSection(wc, lsb),
+    monteCarloSection(mc, lsb),
+  ];
+  if (options.charts) sections.push(histogramSection(mc, options.bins));
+  return {
+    title: `Tolerance study: ${project.file}`,
+    sections,
+    verdict: { pass: study.pass, text: verdictText(study) },
+  };
+}
+
+function parametersSection(parameters: ToleranceParameter[], mc: MonteCarloResult): Section {
+  const unit = (p: ToleranceParameter) => (p.unit === 'ohm' ? 'Ω' : p.unit);
+  const spread = mc.distribution === 'normal' ? 'normal, σ = range/6, cut at the ends' : 'uniform over the range';
+  const rows = parameters.map((p) => {
+    const centre = 0.5 * (p.min + p.max);
+    const rel = centre !== 0 ? `±${((100 * (p.max - p.min)) / (2 * centre)).toPrecision(2)} %` : '';
+    return [p.label, formatEng(p.nominal, unit(p), 4), formatEng(p.min, unit(p), 4), formatEng(p.max, unit(p), 4), rel];
+  });
+  const blocks: Block[] =
+    parameters.length === 0
+      ? [{ kind: 'text', text: 'No part has a tolerance: every sample is the nominal circuit.' }]
+      : [
+          { kind: 'table', header: ['part', 'nominal', 'min', 'max', 'spread'], rows },
+          { kind: 'text', text: `Monte Carlo draws each part independently: ${spread}.` },
+        ];
+  return { title: 'Parts and tolerances', blocks };
+}
+
+function figureText(f: WorstCaseFigure | { figure: WorstCaseFigure['figure']; value: number | null }, lsb: number | null): string {
+  if (f.value === null) return 'never settles';
+  return f.figure === 'settling' ? formatEng(f.value, 's', 4) : voltsAndLsb(f.value, lsb);
+}
+
+function limitText(f: WorstCaseFigure, lsb: number | null): string {
+  if (f.limit === null) return '-';
+  return f.figure === 'settling' ? formatEng(f.limit, 's', 4) : voltsAndLsb(f.limit, lsb);
+}
+
+const verdictCell = (pass: boolean | null) => (pass === null ? '-' : pass ? 'PASS' : 'FAIL');
+
+function worstCaseSection(wc: WorstCaseResult, lsb: number | null): Section {
+  const figures = [wc.worstRipple, wc.droop, ...(wc.inl ? [wc.inl] : []), wc.settlingTime];
+  const nominalValue = (f: WorstCaseFigure): number | null => {
+    const n = wc.nominal;
+    switch (f.figure) {
+      case 'ripple':
+        return n.worstRipple.ripple;
+      case 'droop':
+        return n.droop.error;
+      case 'inl':
+        return n.inl?.error ?? 0;
+      case 'settling':
+        return n.settlingTime;
+    }
+  };
+  const rows = figures.map((f) => [
+    FIGURE_NAMES[f.figure],
+    figureText({ figure: f.figure, value: nominalValue(f) }, lsb),
+    figureText(f, lsb),
+    limitText(f, lsb),
+    verdictCell(f.pass),
+    f.duty === null ? '-' : percent(f.duty),
+    f.method === 'corner' ? 'corner' : `searched ${f.searched.join(', ')}`,
+  ]);
+  const blocks: Block[] = [
+    {
+      kind: 'table',
+      header: ['figure', 'nominal', 'worst case', 'limit', 'check', 'at duty', 'how found'],
+      rows,
+      align: ['left', 'right', 'right', 'right', 'left', 'right', 'left'],
+    },
+  ];
+  if (wc.parameters.length > 0) {
+    const place = (f: WorstCaseFigure, p: number) => {
+      const z = f.z[p];
+      const q = wc.parameters[p];
+      const where = z === -1 ? 'min' : z === 1 ? 'max' : z === 0 ? 'centre' : formatEng(f.values[p], q.unit === 'ohm' ? 'Ω' : q.unit, 4);
+      return `${where} (${EFFECT_WORDS[f.effects[p]]})`;
+    };
+    blocks.push({
+      kind: 'table',
+      header: ['part', ...figures.map((f) => FIGURE_NAMES[f.figure])],
+      rows: wc.parameters.map((q, p) => [q.label, ...figures.map((f) => place(f, p))]),
+      align: ['left', ...figures.map((): Align => 'left')],
+    });
+    blocks.push({
+      kind: 'text',
+      text:
+        'Each cell: where the part sits at that figure\'s worst case, and how raising the part moves the figure ' +
+        '(from the sign of its effect at several points of the tolerance box; "mixed" parts were searched along their range).',
+    });
+    const swept = figures.filter((f) => f.cornerSweepWorse).map((f) => FIGURE_NAMES[f.figure]);
+    if (swept.length > 0) {
+      blocks.push({
+        kind: 'text',
+        text: `The sweep over all corners found a worse corner than the sign scan predicted for: ${swept.join(', ')} (shown).`,
+      });
+    }
+  }
+  blocks.push({ kind: 'text', text: `${wc.evaluations} circuits evaluated exactly.` });
+  return { title: 'Worst case over the tolerance box', blocks };
+}
+
+const EFFECT_WORDS: Record<Effect, string> = {
+  raises: 'raising it worsens',
+  lowers: 'raising it improves',
+  none: 'no effect',
+  mixed: 'mixed',
+};
+
+function monteCarloSection(mc: MonteCarloResult, lsb: number | null): Section {
+  const [lo, hi] = mc.yieldInterval;
+  const yieldText = `${percent4(mc.yield)} (${mc.passed} of ${mc.samples}; 95 % interval ${percent4(lo)} to ${percent4(hi)})`;
+  const pairs: Array<[string, string]> = [
+    ['samples', `${mc.samples}, seed ${mc.seed}, ${mc.distribution} distribution`],
+    ['yield', yieldText],
+    ['yield target', mc.target === null ? 'none set (tolerance.yield)' : `${percent4(mc.target)}: ${mc.pass ? 'met' : 'NOT met'}`],
+  ];
+  if (mc.target !== null && mc.target > lo && mc.target < hi) {
+    pairs.push(['note', 'the target lies inside the 95 % interval: more samples would settle it']);
+  }
+  if (mc.values.engineSamples > 0) {
+    pairs.push(['note', `${mc.values.engineSamples} samples used the engine's matrix-exponential path`]);
+  }
+  const specRows = (['ripple', 'droop', 'inl', 'settling'] as const)
+    .filter((k) => mc.yieldBySpec[k] !== undefined)
+    .map((k) => [FIGURE_NAMES[k], percent4(mc.yieldBySpec[k]!)]);
+  const volts = (v: number) => voltsAndLsb(v, lsb);
+  const seconds = (s: number) => (Number.isFinite(s) ? formatEng(s, 's', 4) : 'never');
+  const row = (name: string, p: Percentiles, fmt: (v: number) => string, limit: number | undefined) => [
+    name,
+    fmt(p.p50),
+    fmt(p.p99),
+    fmt(p.p999),
+    limit === undefined ? '-' : fmt(limit),
+  ];
+  const { limits } = mc.plan;
+  const percentileRows = [
+    row('worst ripple', mc.percentiles.worstRipple, volts, limits.ripple),
+    row('|droop|', mc.percentiles.droop, volts, limits.droop),
+    ...(mc.percentiles.inl ? [row('|INL|', mc.percentiles.inl, volts, limits.inl)] : []),
+    row('settling time', mc.percentiles.settlingTime, seconds, limits.settling),
+  ];
+  const blocks: Block[] = [{ kind: 'pairs', pairs }];
+  if (specRows.length > 0) blocks.push({ kind: 'table', header: ['spec', 'yield'], rows: specRows });
+  else blocks.push({ kind: 'text', text: 'The spec sets no limit: every sample counts as passing.' });
+  blocks.push({ kind: 'table', header: ['figure', 'p50', 'p99', 'p99.9', 'limit'], rows: percentileRows });
+  if (mc.neverSettles > 0) {
+    blocks.push({ kind: 'text', text: `${mc.neverSettles} samples never settle: their ripple alone leaves the settling band.` });
+  }
+  return { title: 'Monte Carlo', blocks };
+}
+
+function histogramSection(mc: MonteCarloResult, bins: number): Section {
+  const { limits } = mc.plan;
+  const volts = (v: number) => formatEng(v, 'V', 3);
+  const charts: Block[] = [
+    { kind: 'chart', title: 'Worst ripple', body: histogramChart(mc.values.worstRipple, bins, limits.ripple, volts) },
+    {
+      kind: 'chart',
+      title: '|DC error| (droop)',
+      body: histogramChart(mc.values.droop.map(Math.abs), bins, limits.droop, volts),
+    },
+    {
+      kind: 'chart',
+      title: 'Settling time',
+      body: histogramChart(mc.values.settlingTime, bins, limits.settling, (s) => formatEng(s, 's', 3)),
+    },
+  ];
+  return { title: 'Distributions', blocks: charts };
+}
+
+/**
+ * A horizontal ASCII histogram over the range of the data: one row per bin (range, bar, count),
+ * bins beyond the limit drawn with `x` instead of `#`, and a rule where the limit lies. When the
+ * limit falls inside the data the bins are shifted so that it lies on a bin edge; a limit outside
+ * the data gets its rule above or below the bins with the margin to the nearest sample.
+ */
+function histogramChart(values: ArrayLike<number>, bins: number, limit: number | undefined, fmt: (v: number) => string): string {
+  const h = histogram(values, bins);
+  let { lo, hi } = h;
+  let counts = h.counts;
+  const inside = limit !== undefined && limit > lo && limit < hi;
+  if (inside) {
+    const width = (hi - lo) / bins;
+    lo = limit - Math.ceil((limit - lo) / width - 1e-9) * width;
+    const n = Math.max(1, Math.ceil((hi - lo) / width - 1e-9));
+    hi = lo + n * width;
+    counts = new Array<number>(n).fill(0);
+    for (let i = 0; i < values.length; i++) {
+      const v = values[i];
+      if (Number.isFinite(v)) counts[Math.min(n - 1, Math.max(0, Math.floor((v - lo) / width)))]++;
+    }
+  }
+  const width = (hi - lo) / counts.length;
+  const most = Math.max(1, ...counts, h.notFinite);
+  const barWidth = 40;
+  const labels = counts.map((_, i) => `${fmt(lo + i * width)} .. ${fmt(lo + (i + 1) * width)}`);
+  const labelWidth = Math.max(13, ...labels.map((l) => l.length));
+  const rule = (text: string) => `  ${'-'.repeat(labelWidth)}  ${text}`;
+  const bar = (c: number, ch: string) => ch.repeat(c === 0 ? 0 : Math.max(1, Math.round((barWidth * c) / most)));
+  const lines: string[] = [];
+  if (limit !== undefined && !inside && limit <= lo) lines.push(rule(`limit ${fmt(limit)}: every sample is beyond it`));
+  let ruled = false;
+  counts.forEach((c, i) => {
+    const beyond = limit !== undefined && lo + i * width >= limit - 1e-9 * width;
+    if (inside && beyond && !ruled) {
+      lines.push(rule(`limit ${fmt(limit!)}`));
+      ruled = true;
+    }
+    lines.push(`  ${labels[i].padStart(labelWidth)} |${bar(c, beyond ? 'x' : '#').padEnd(barWidth)} ${c}`);
+  });
+  if (limit !== undefined && !inside && limit >= hi) {
+    lines.push(rule(`limit ${fmt(limit)}: every sample is within it (largest ${fmt(hi)})`));
+  }
+  if (h.notFinite > 0) lines.push(`  ${'never settles'.padStart(labelWidth)} |${bar(h.notFinite, 'x').padEnd(barWidth)} ${h.notFinite}`);
+  return lines.join('\n');
+}
+
+const percent4 = (x: number) => `${(100 * x).toFixed(2)} %`;
+
+function verdictText(study: ToleranceStudy): string {
+  const { worstCase: wc, monteCarlo: mc } = study;
+  const failing = [wc.worstRipple, wc.droop, wc.inl, wc.settlingTime]
+    .filter((f): f is WorstCaseFigure => f !== null && f.pass === false)
+    .map((f) => FIGURE_NAMES[f.figure]);
+  const parts: string[] = [];
+  if (failing.length > 0) parts.push(`worst case fails: ${failing.join(', ')}`);
+  if (!mc.pass) parts.push(`yield ${percent4(mc.yield)} is below the target ${percent4(mc.target ?? 0)}`);
+  return parts.length === 0
+    ? `PASS: every limit holds at the worst case${mc.target !== null ? ' and the yield meets its target' : ''}`
+    : `FAIL: ${parts.join('; ')}`;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Renderers
+
+function renderText(doc: ReportDocument, color: boolean): string {
+  const paint = palette(color);
+  const block = (b: Block): string => {
+    switch (b.kind) {
+      case 'table': {
+        const rows = b.rows.map((r) => r.map((c) => (c === 'PASS' ? paint.good(c) : c === 'FAIL' ? paint.bad(c) : c)));
+        return table(b.header, rows, { align: b.align });
+      }
+      case 'pairs':
+        return table([], b.pairs.map(([k, v]) => [`${k}:`, v]), { align: ['left', 'left'] });
+      case 'list':
+        return b.items.map((i) => `  - ${i}`).join('\n');
+      case 'text':
+        return `  ${b.text}`;
+      case 'chart':
+        return `  ${paint.accent(b.title)}\n${b.body}`;
+    }
+  };
+  const out = [paint.bold(doc.title)];
+  for (const s of doc.sections) {
+    out.push('', paint.bold(s.title), ...s.blocks.flatMap((b, i) => (i > 0 ? ['', block(b)] : [block(b)])));
+  }
+  out.push('', doc.verdict.pass ? paint.good(doc.verdict.text) : paint.bad(doc.verdict.text));
+  return out.join('\n') + '\n';
+}
+
+function renderMarkdown(doc: ReportDocument): string {
+  const cell = (s: string) => s.replace(/\\/g, '\\\\').replace(/\|/g, '\\|');
+  const gfm = (header: string[], rows: string[][], align: Align[] = []) => {
+    const rule = header.map((_, i) => ((align[i] ?? (i === 0 ? 'left' : 'right')) === 'right' ? '---:' : ':---'));
+    const line = (cells: string[]) => `| ${cells.map(cell).join(' | ')} |`;
+    return [line(header), `|${rule.join('|')}|`, ...rows.map(line)].join('\n');
+  };
+  const block = (b: Block): string => {
+    switch (b.kind) {
+      case 'table':
+        return gfm(b.header, b.rows, b.align);
+      case 'pairs':
+        return gfm(['item', 'value'], b.pairs, ['left', 'left']);
+      case 'list':
+        return b.items.map((i) => `- ${i}`).join('\n');
+      case 'text':
+        return b.text;
+      case 'chart':
+        return `**${b.title}**\n\n\`\`\`text\n${b.body}\n\`\`\``;
+    }
+  };
+  const out = [`# ${doc.title}`];
+  for (const s of doc.sections) out.push('', `## ${s.title}`, ...s.blocks.flatMap((b) => ['', block(b)]));
+  out.push('', `**${doc.verdict.text}**`);
+  return out.join('\n') + '\n';
+}
+
+// ---------------------------------------------------------------------------------------------
+// JSON
+
+function toleranceJson(project: Project, study: ToleranceStudy, bins: number): string {
+  const { worstCase: wc, monteCarlo: mc } = study;
+  const keyed = <T>(values: T[]) => Object.fromEntries(wc.parameters.map((p, i) => [p.key, values[i]]));
+  const figure = (f: WorstCaseFigure | null) =>
+    f && {
+      value: f.value,
+      duty: f.duty,
+      limit: f.limit,
+      pass: f.pass,
+      method: f.method,
+      searched: f.searched,
+      at: keyed(f.values),
+      effects: keyed(f.effects),
+      cornerSweepWorse: f.cornerSweepWorse,
+    };
+  const { limits } = mc.plan;
+  const body = {
+    file: project.file,
+    parameters: wc.parameters.map(({ key, label, unit, nominal, min, max }) => ({ key, label, unit, nominal, min, max })),
+    settling: { band: mc.plan.band, steps: mc.plan.steps },
+    limits,
+    worstCase: {
+      nominal: wc.nominal,
+      worstRipple: figure(wc.worstRipple),
+      droop: figure(wc.droop),
+      inl: figure(wc.inl),
+      settlingTime: figure(wc.settlingTime),
+      evaluations: wc.evaluations,
+      pass: wc.pass,
+    },
+    monteCarlo: {
+      samples: mc.samples,
+      seed: mc.seed,
+      distribution: mc.distribution,
+      yield: mc.yield,
+      passed: mc.passed,
+      yieldInterval: mc.yieldInterval,
+      yieldBySpec: mc.yieldBySpec,
+      target: mc.target,
+      pass: mc.pass,
+      percentiles: mc.percentiles,
+      neverSettles: mc.neverSettles,
+      engineSamples: mc.values.engineSamples,
+      histograms: {
+        worstRipple: histogram(mc.values.worstRipple, bins, limits.ripple === undefined ? [] : [limits.ripple]),
+        droop: histogram(mc.values.droop.map(Math.abs), bins, limits.droop === undefined ? [] : [limits.droop]),
+        settlingTime: histogram(mc.values.settlingTime, bins, limits.settling === undefined ? [] : [limits.settling]),
+      },
+    },
+    pass: study.pass,
+  };
+  // JSON has no Infinity: a step that never settles is null.
+  return JSON.stringify(body, (_k, v) => (typeof v === 'number' && !Number.isFinite(v) ? null : v), 2) + '\n';
+}

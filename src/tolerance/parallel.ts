@@ -1,0 +1,124 @@
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { Worker } from 'node:worker_threads';
+import type { Ladder } from '../circuit/ladder.js';
+import type { Project } from '../project/types.js';
+import { evaluateSamples, type SampleTable } from './evaluateSamples.js';
+import type { MetricPlan } from './metricPlan.js';
+import { monteCarloResult, monteCarloSetup, type MonteCarloOptions, type MonteCarloResult } from './monteCarlo.js';
+import type { ToleranceParameter } from './parameters.js';
+
+/** What one worker evaluates. */
+export interface WorkerJob {
+  ladder: Ladder;
+  parameters: ToleranceParameter[];
+  plan: MetricPlan;
+  deviates: Float64Array;
+  count: number;
+}
+
+export type WorkerMessage = { kind: 'progress'; done: number } | { kind: 'done'; table: SampleTable };
+
+export interface ParallelOptions extends MonteCarloOptions {
+  /** Worker threads (default 1: in the calling thread). */
+  workers?: number;
+  /** The worker script; default: tolerance-worker.js next to this module (the bundle), else worker.ts via tsx. */
+  workerUrl?: URL;
+}
+
+/** Fewer samples than this per worker are not worth a thread's start-up. */
+const MIN_SAMPLES_PER_WORKER = 500;
+
+/**
+ * monteCarlo spread over worker threads. The deviates are drawn in the calling thread and each
+ * worker evaluates one contiguous block with the same code (evaluateSamples), so the result is
+ * identical to the in-process run for the same seed, whatever the number of workers. Runs in
+ * process when workers <= 1, when the sample count is small, or when no worker script is found.
+ *
+ * Syntax: await monteCarloParallel(project[, ladder, { workers, samples, seed, distribution, onProgress }])
+ * Example: (await monteCarloParallel(p, undefined, { workers: 2 })).yield
+ */
+export async function monteCarloParallel(
+  project: Project,
+  ladder?: Ladder,
+  options: ParallelOptions = {},
+): Promise<MonteCarloResult> {
+  const setup = monteCarloSetup(project, ladder, options);
+  const { samples, parameters } = setup;
+  const workers = Math.min(options.workers ?? 1, Math.floor(samples / MIN_SAMPLES_PER_WORKER));
+  const script = workers <= 1 ? null : options.workerUrl ? { url: options.workerUrl, execArgv: [] } : findWorkerScript();
+  const progress = options.onProgress;
+  if (workers <= 1 || script === null) {
+    const table = evaluateSamples(setup.ladder, parameters, setup.plan, setup.deviates, 0, samples, progress && ((d) => progress(d, samples)));
+    return monteCarloResult(setup, table);
+  }
+  const width = parameters.length;
+  const bounds = Array.from({ length: workers + 1 }, (_, w) => Math.round((samples * w) / workers));
+  const done = new Array<number>(workers).fill(0);
+  const tables = await Promise.all(
+    bounds.slice(0, -1).map((first, w) => {
+      const count = bounds[w + 1] - first;
+      const job: WorkerJob = {
+        ladder: setup.ladder,
+        parameters,
+        plan: setup.plan,
+        deviates: setup.deviates.slice(first * width, (first + count) * width),
+        count,
+      };
+      return new Promise<SampleTable>((resolve, reject) => {
+        const worker = new Worker(script.url, {
+          workerData: job,
+          transferList: [job.deviates.buffer as ArrayBuffer],
+          execArgv: script.execArgv,
+        });
+        worker.on('message', (m: WorkerMessage) => {
+          if (m.kind === 'progress') {
+            done[w] = m.done;
+            progress?.(done.reduce((a, b) => a + b, 0), samples);
+          } else {
+            resolve(m.table);
+            void worker.terminate();
+          }
+        });
+        worker.on('error', reject);
+        worker.on('exit', (code) => {
+          if (code !== 0) reject(new Error(`tolerance worker stopped with exit code ${code}`));
+        });
+      });
+    }),
+  );
+  return monteCarloResult(setup, concatTables(tables));
+}
+
+function concatTables(tables: SampleTable[]): SampleTable {
+  const join = (pick: (t: SampleTable) => Float64Array) => {
+    const out = new Float64Array(tables.reduce((n, t) => n + pick(t).length, 0));
+    let at = 0;
+    for (const t of tables) {
+      out.set(pick(t), at);
+      at += pick(t).length;
+    }
+    return out;
+  };
+  return {
+    worstRipple: join((t) => t.worstRipple),
+    droop: join((t) => t.droop),
+    inl: tables[0].inl ? join((t) => t.inl!) : null,
+    settlingTime: join((t) => t.settlingTime),
+    engineSamples: tables.reduce((n, t) => n + t.engineSamples, 0),
+  };
+}
+
+/**
+ * The worker entry: `tolerance-worker.js` beside this module (the esbuild bundle puts it beside
+ * dist/cli.js), else the TypeScript source run through tsx (development and tests).
+ */
+function findWorkerScript(): { url: URL; execArgv: string[] } | null {
+  const bundled = new URL('./tolerance-worker.js', import.meta.url);
+  if (existsSync(fileURLToPath(bundled))) return { url: bundled, execArgv: [] };
+  const compiled = new URL('./worker.js', import.meta.url);
+  if (existsSync(fileURLToPath(compiled))) return { url: compiled, execArgv: [] };
+  const source = new URL('./worker.ts', import.meta.url);
+  if (existsSync(fileURLToPath(source))) return { url: source, execArgv: ['--import', 'tsx'] };
+  return null;
+}
