@@ -34,7 +34,7 @@ export interface CollectState {
   /** Ascending fast settling estimates of candidates that pass every fast check. */
   best: number[];
   entries: FastEntry[];
-  /** Keys of candidates already collected (a second pass skips them). */
+  /** Keys of candidates already collected (filled when `dynamic` ends: later rounds skip them). */
   seen: Set<string>;
   /** Fast-model evaluations (ladders built). */
   evaluated: number;
@@ -93,8 +93,9 @@ export function collectCandidates(
   const dNear = Math.min(problem.dutyMax, Math.max(problem.dutyMin, 0.5));
   const toDuties = [...new Set(problem.steps.map((s) => s[1]))];
   const checkTo = limits.ripple === undefined || problem.band * 2 < limits.ripple;
-  const droopOfGain = (gain: number) =>
-    (1 - gain) * Math.max(Math.abs(pwm.low + problem.dutyMin * (pwm.high - pwm.low)), Math.abs(pwm.low + problem.dutyMax * (pwm.high - pwm.low)));
+  // Droop lower bound from the resistors alone (droopBound below).
+  const droopFloorApplies = pwm.driver.high >= pwm.driver.low && pwm.low >= 0 && loadR !== null && limits.droop !== undefined;
+  const idealTop = Math.max(pwm.low + problem.dutyMin * (pwm.high - pwm.low), pwm.low + problem.dutyMax * (pwm.high - pwm.low));
 
   // Resistor tuples that pass the pin current and (time-invariant) droop limits, with bounds.
   const tuples: number[][] = [];
@@ -111,10 +112,10 @@ export function collectCandidates(
     }
     const rs = idx.map((i) => R[i]);
     if (limits.pinCurrent !== undefined && exceeds(span / (Math.min(pwm.driver.high, pwm.driver.low) + rs[0]), limits.pinCurrent)) continue;
-    if (lti && limits.droop !== undefined && loadR !== null) {
-      let series = pwm.driver.high;
+    if (droopFloorApplies) {
+      let series = pwm.driver.low;
       for (const r of rs) series += r;
-      if (exceeds(droopOfGain(loadR / (loadR + series)), limits.droop)) continue;
+      if (exceeds((idealTop * series) / (loadR! + series), limits.droop)) continue;
     }
     const tb = tupleBounds(problem, rs);
     const tauFloor = Math.max(tb.tauMin, slowestTimeConstant(rs, minC, tb.driver, loadR, loadC));
@@ -125,43 +126,47 @@ export function collectCandidates(
   const order = keys.map((_, i) => i).sort((a, b) => keys[a] - keys[b]);
 
   // One-entry model cache: the staircase check is usually followed by the full evaluation.
-  let cachedKey = '';
-  let cachedModel: FastLadder | null = null;
-  let cachedSteady = new Map<number, FastSteady>();
-  const modelOf = (rs: number[], cs: number[]): { model: FastLadder; steady: (d: number) => FastSteady } => {
-    const key = `${rs.join(',')}|${cs.join(',')}`;
-    if (key !== cachedKey || cachedModel === null) {
-      cachedKey = key;
-      cachedModel = fastLadder(problem.ladderOf(rs, cs));
-      cachedSteady = new Map();
+  let lastR: number[] = [];
+  let lastC: number[] = [];
+  let model: FastLadder | null = null;
+  let steadyDuty: number[] = [];
+  let steadyOf: FastSteady[] = [];
+  const sameAs = (x: number[], y: number[]) => {
+    if (x.length !== y.length) return false;
+    for (let k = 0; k < x.length; k++) if (x[k] !== y[k]) return false;
+    return true;
+  };
+  const use = (rs: number[], cs: number[]): FastLadder => {
+    if (model === null || !sameAs(rs, lastR) || !sameAs(cs, lastC)) {
+      lastR = rs;
+      lastC = cs.slice();
+      model = fastLadder(problem.ladderOf(rs, cs));
+      steadyDuty = [];
+      steadyOf = [];
       state.evaluated++;
     }
-    const model = cachedModel;
-    const steadyMap = cachedSteady;
-    return {
-      model,
-      steady: (d: number) => {
-        let s = steadyMap.get(d);
-        if (!s) {
-          s = fastSteadyState(model, d);
-          steadyMap.set(d, s);
-        }
-        return s;
-      },
-    };
+    return model;
+  };
+  /** Steady state of the model last used, per duty (computed once). */
+  const steady = (d: number): FastSteady => {
+    for (let k = 0; k < steadyDuty.length; k++) if (steadyDuty[k] === d) return steadyOf[k];
+    const s = fastSteadyState(model!, d);
+    steadyDuty.push(d);
+    steadyOf.push(s);
+    return s;
   };
 
   const rippleOk = (rs: number[], cs: number[]): boolean => {
-    const { steady } = modelOf(rs, cs);
+    use(rs, cs);
     if (limits.ripple !== undefined && exceeds(steady(dNear).ripple, limits.ripple)) return false;
     if (checkTo) for (const d of toDuties) if (exceeds(steady(d).ripple, 2 * problem.band)) return false;
     return true;
   };
 
   const evaluate = (rs: number[], cs: number[]): void => {
-    const key = `${rs.join(',')}|${cs.join(',')}`;
-    if (state.seen.has(key)) return;
-    const { model, steady } = modelOf(rs, cs);
+    const key = state.dynamic ? '' : keyOf(rs, cs);
+    if (!state.dynamic && state.seen.has(key)) return;
+    const model = use(rs, cs);
     if (!lti && limits.droop !== undefined) {
       for (const d of [problem.dutyMin, problem.dutyMax]) {
         const ideal = pwm.low + d * (pwm.high - pwm.low);
@@ -178,7 +183,7 @@ export function collectCandidates(
     let totalC = 0;
     for (const c of cs) totalC += c;
     const entry: FastEntry = { r: [...rs], c: [...cs], lb, totalC };
-    state.seen.add(key);
+    if (!state.dynamic) state.seen.add(key);
     state.entries.push(entry);
     if (state.dynamic && (state.best.length < state.top || lb < state.best[state.top - 1])) {
       entry.worst = fastWorstRipple(model, problem.dutyMin, problem.dutyMax);
@@ -194,19 +199,38 @@ export function collectCandidates(
     }
   };
 
-  const walk = (rs: number[], tb: TupleBounds): void => {
+  /** Inner points of a column: capacitor `p` from index `from` upward while the bound allows. */
+  interface Column {
+    rs: number[];
+    cs: number[];
+    p: number;
+    from: number;
+    within: (cs: number[]) => boolean;
+  }
+  const deferred: Column[] = [];
+  const finishColumn = (col: Column): void => {
+    for (let b = col.from; b < nC; b++) {
+      const v = col.cs.slice();
+      v[col.p] = C[b];
+      if (!col.within(v)) break;
+      evaluate(col.rs, v);
+    }
+  };
+
+  const walk = (rs: number[], tb: TupleBounds): Column[] => {
     const bound = (cs: number[]) => slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) * tb.factor - tb.slack;
     const within = (cs: number[]) => bound(cs) <= state.theta;
-    const cs = new Array<number>(stages).fill(C[0]);
+    const columns: Column[] = [];
     if (stages === 1) {
-      let s = firstTrue(nC, (i) => rippleOk(rs, [C[i]]));
-      for (; s < nC; s++) {
-        if (!within([C[s]])) break;
+      const s = firstTrue(nC, (i) => rippleOk(rs, [C[i]]));
+      if (s < nC && within([C[s]])) {
         evaluate(rs, [C[s]]);
+        columns.push({ rs, cs: [C[s]], p: 0, from: s + 1, within });
       }
-      return;
+      return columns;
     }
     // Outer capacitors (three stages: the first) by plain loop, inner two by staircase walk.
+    const cs = new Array<number>(stages).fill(C[0]);
     const outer = stages - 2;
     const recurse = (depth: number): void => {
       if (depth < outer) {
@@ -218,13 +242,17 @@ export function collectCandidates(
         }
         return;
       }
-      walkLastTwo(rs, cs, outer, within);
+      walkLastTwo(rs, cs, outer, within, columns);
     };
     recurse(0);
+    return columns;
   };
 
-  /** The staircase walk over capacitors a = cs[p], b = cs[p + 1] with cs[0..p-1] fixed. */
-  const walkLastTwo = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean): void => {
+  /**
+   * The staircase walk over capacitors a = cs[p], b = cs[p + 1] with cs[0..p-1] fixed: evaluates
+   * the lowest ripple-feasible point of each column and returns the columns for their inner points.
+   */
+  const walkLastTwo = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean, columns: Column[]): void => {
     const at = (a: number, b: number) => {
       const v = cs.slice();
       v[p] = C[a];
@@ -234,7 +262,6 @@ export function collectCandidates(
     if (!within(at(0, 0))) return;
     // Largest first capacitor whose column can still be within theta.
     const top = firstTrue(nC, (i) => !within(at(i, 0))) - 1;
-    const columns: Array<[number, number]> = [];
     let s = -1;
     for (let a = top; a >= 0; a--) {
       if (s < 0) s = firstTrue(nC, (b) => rippleOk(rs, at(a, b)));
@@ -242,26 +269,33 @@ export function collectCandidates(
       if (s >= nC) break; // smaller first capacitors only raise the ripple
       if (!within(at(0, s))) break; // every remaining column starts at or above s
       if (within(at(a, s))) {
-        columns.push([a, s]);
         evaluate(rs, at(a, s));
-      }
-    }
-    for (const [a, s0] of columns) {
-      for (let b = s0 + 1; b < nC; b++) {
-        const v = at(a, b);
-        if (!within(v)) break;
-        evaluate(rs, v);
+        columns.push({ rs, cs: at(a, s), p: p + 1, from: s + 1, within });
       }
     }
   };
 
+  // Staircase points first; inner points at once when theta is finite, else once it is (or at the end).
   for (let k = 0; k < order.length; k++) {
     const i = order[k];
     if (keys[i] > state.theta) break;
-    walk(tuples[i], bounds[i]);
+    const columns = walk(tuples[i], bounds[i]);
+    if (state.theta === Infinity) deferred.push(...columns);
+    else {
+      while (deferred.length > 0) finishColumn(deferred.pop()!);
+      for (const col of columns) finishColumn(col);
+    }
     onTuple?.(k + 1, order.length);
   }
+  while (deferred.length > 0) finishColumn(deferred.pop()!);
   onTuple?.(order.length, order.length);
+}
+
+/** Identity of a candidate across collection rounds. */
+export function keyOf(r: ArrayLike<number>, c: ArrayLike<number>): string {
+  let key = '';
+  for (let k = 0; k < r.length; k++) key += `${r[k]}/${c[k]};`;
+  return key;
 }
 
 /** Smallest i in [0, n) with pred(i) true for a predicate false...false true...true; n if none. */

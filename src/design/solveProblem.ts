@@ -1,4 +1,4 @@
-import { collectCandidates, newCollectState, REL, type FastEntry } from './collectCandidates.js';
+import { collectCandidates, keyOf, newCollectState, REL, type FastEntry } from './collectCandidates.js';
 import type { DesignProblem } from './designProblem.js';
 import { exactCandidate } from './exactCandidate.js';
 import { fastLadder } from './fast/fastLadder.js';
@@ -81,6 +81,7 @@ export function solveProblem(
     // The walk pruned with a threshold below the truth: walk again with theta = t_N (or the cap).
     state.theta = Math.min(cap, tN * (1 + REL) + 1e-12);
     state.dynamic = false;
+    for (const e of state.entries) state.seen.add(keyOf(e.r, e.c));
     collectAll();
   }
 

@@ -56,7 +56,7 @@ export function reportCharts(
   // (a) Steady state: deviation from the average, so the ripple fills the chart.
   const wDuty = analysis.worstRipple.duty;
   const steady = worstRippleWave(analysis, Math.round(COLUMNS / 2));
-  const avg = steadyState(ladder, wDuty).average;
+  const avg = tidy(steadyState(ladder, wDuty).average, ladder.high - ladder.low);
   charts.push({
     title: `Output minus its average (${formatEng(avg, 'V', 5)}) over two PWM periods at duty ${pct(wDuty)} (worst ripple)`,
     body: lineChart([steady.v.map((v) => v - avg)], {
@@ -87,11 +87,13 @@ export function reportCharts(
     title: `Step response (${what}); ripple drawn as its envelope`,
     body: lineChart([upper, lower], { height, yUnit: 'V', x: xAxis, markers, levels, colors }),
   });
-  const zoom = 8 * step.band;
+  // Zoom so that one band is exactly two rows: the band lines then sit symmetric about the final row.
+  const zoomHeight = 12;
+  const zoom = (zoomHeight / 4) * step.band;
   charts.push({
     title: `Step response near the final value (±${formatEng(zoom, 'V', 3)}, clipped)`,
     body: lineChart([upper, lower], {
-      height,
+      height: zoomHeight,
       yUnit: 'V',
       x: xAxis,
       markers,

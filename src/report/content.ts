@@ -4,7 +4,7 @@ import { formatEng, formatIec60062 } from '../units/index.js';
 import { cautions } from './cautions.js';
 import { reportCharts } from './charts.js';
 import type { Block, ReportDocument, Section } from './document.js';
-import { checkQuantity, lsbCount, millivolts, percent, tidy, voltsAndLsb } from './quantities.js';
+import { checkQuantity, fixed, lsbCount, millivolts, percent, tidy, voltsAndLsb } from './quantities.js';
 
 export interface ContentOptions {
   /** Include the ASCII charts (default true). */
@@ -64,8 +64,8 @@ function pointsSection(project: Project, analysis: Analysis): Section {
     const error = tidy(ideal - p.average, high - low);
     return [
       (100 * p.duty).toFixed(1),
-      p.average.toFixed(5),
-      ideal.toFixed(5),
+      fixed(p.average, 5),
+      fixed(ideal, 5),
       millivolts(error),
       ...(withLsb ? [lsbCount(error, lsb)] : []),
       millivolts(p.ripple),

@@ -4,8 +4,8 @@ import { formatEng } from '../units/index.js';
 /** Duty as percent with one decimal: 0.255 -> '25.5 %'. */
 export const percent = (d: number): string => `${(100 * d).toFixed(1)} %`;
 
-/** Fixed-point text without a minus sign on a value that rounds to zero. */
-const fixed = (x: number, decimals: number): string => {
+/** Fixed-point text without a minus sign on a value that rounds to zero: fixed(-1e-9, 3) -> '0.000'. */
+export const fixed = (x: number, decimals: number): string => {
   const text = x.toFixed(decimals);
   return /^-0\.?0*$/.test(text) ? text.slice(1) : text;
 };

@@ -217,7 +217,7 @@ function monteCarloSection(mc: MonteCarloResult, lsb: number | null): Section {
 
 function histogramSection(mc: MonteCarloResult, bins: number): Section {
   const { limits } = mc.plan;
-  const volts = (v: number) => formatEng(v, 'V', 3);
+  const volts = (v: number, digits: number) => formatEng(v, 'V', digits);
   const charts: Block[] = [
     { kind: 'chart', title: 'Worst ripple', body: histogramChart(mc.values.worstRipple, bins, limits.ripple, volts) },
     {
@@ -228,7 +228,7 @@ function histogramSection(mc: MonteCarloResult, bins: number): Section {
     {
       kind: 'chart',
       title: 'Settling time',
-      body: histogramChart(mc.values.settlingTime, bins, limits.settling, (s) => formatEng(s, 's', 3)),
+      body: histogramChart(mc.values.settlingTime, bins, limits.settling, (t, digits) => formatEng(t, 's', digits)),
     },
   ];
   return { title: 'Distributions', blocks: charts };
@@ -240,7 +240,12 @@ function histogramSection(mc: MonteCarloResult, bins: number): Section {
  * limit falls inside the data the bins are shifted so that it lies on a bin edge; a limit outside
  * the data gets its rule above or below the bins with the margin to the nearest sample.
  */
-function histogramChart(values: ArrayLike<number>, bins: number, limit: number | undefined, fmt: (v: number) => string): string {
+function histogramChart(
+  values: ArrayLike<number>,
+  bins: number,
+  limit: number | undefined,
+  fmtDigits: (v: number, digits: number) => string,
+): string {
   const h = histogram(values, bins);
   let { lo, hi } = h;
   let counts = h.counts;
@@ -257,6 +262,9 @@ function histogramChart(values: ArrayLike<number>, bins: number, limit: number |
     }
   }
   const width = (hi - lo) / counts.length;
+  // Enough significant digits that neighbouring bin edges read differently.
+  const digits = Math.min(6, Math.max(3, Math.ceil(Math.log10(Math.max(Math.abs(lo), Math.abs(hi)) / width)) + 1));
+  const fmt = (v: number) => fmtDigits(v, digits);
   const most = Math.max(1, ...counts, h.notFinite);
   const barWidth = 40;
   const labels = counts.map((_, i) => `${fmt(lo + i * width)} .. ${fmt(lo + (i + 1) * width)}`);

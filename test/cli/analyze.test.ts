@@ -12,8 +12,12 @@ const work = mkdtempSync(join(tmpdir(), 'dacsmith-cli-'));
 
 /** Run the built command like a user would, without a terminal and without colour. */
 function dacsmith(...args: string[]) {
+  return dacsmithIn(root, ...args);
+}
+
+function dacsmithIn(cwd: string, ...args: string[]) {
   const r = spawnSync(process.execPath, [bin, ...args], {
-    cwd: root,
+    cwd,
     encoding: 'utf8',
     env: { ...process.env, NO_COLOR: '1' },
   });
@@ -120,6 +124,14 @@ describe('dacsmith analyze', () => {
     expect(unknown.code).toBe(2);
     expect(unknown.stderr).toMatch(/Unknown argument/i);
     expect(dacsmith().code).toBe(2);
+  });
+
+  it('is self-contained: runs from another directory with a relative path', () => {
+    project('here.yaml', GOOD);
+    const r = dacsmithIn(work, 'analyze', 'here.yaml', '--format', 'json');
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    expect(JSON.parse(r.stdout).inputs.file).toBe('here.yaml');
   });
 
   it('shows an example in --help', () => {

@@ -1,3 +1,5 @@
+import { zeros } from './smallLinear.js';
+
 /**
  * All zeros in [0, length] of an exponential sum f(t) = sum_i a_i exp(-r_i t), rates r_i >= 0
  * distinct and ascending (a rate of 0 is a constant term), in ascending order.
@@ -25,8 +27,8 @@ export function expSumRoots(a: ArrayLike<number>, r: ArrayLike<number>, length: 
     const t = Math.log(ratio) / d;
     return t >= 0 && t <= length ? [t] : [];
   }
-  const da = new Float64Array(m - 1);
-  const dr = new Float64Array(m - 1);
+  const da = zeros(m - 1);
+  const dr = zeros(m - 1);
   for (let i = 1; i < m; i++) {
     dr[i - 1] = r[i] - r0;
     da[i - 1] = -a[i] * dr[i - 1];

@@ -1,16 +1,17 @@
 import type { Ladder } from '../../circuit/ladder.js';
 import { symmetricEigen } from './symmetricEigen.js';
+import { type Vec, zeros } from './smallLinear.js';
 
 /** One pin state (high or low) of an unbuffered ladder, in symmetric coordinates y = C^(1/2) x. */
 export interface FastPhase {
   /** Decay rates 1/tau of the modes, ascending (slowest first), 1/s. */
-  rate: Float64Array;
+  rate: Vec;
   /** Orthonormal modes, row-major: mode[k * n + i] is node k of mode i. */
-  mode: Float64Array;
+  mode: Vec;
   /** Output (last node, in V) per unit of each mode's coordinate. */
-  out: Float64Array;
+  out: Vec;
   /** DC state of this pin state alone, symmetric coordinates. */
-  yEq: Float64Array;
+  yEq: Vec;
 }
 
 /** An unbuffered ladder prepared for fast exact evaluation (see fastSteadyState, fastSettlingBound). */
@@ -22,11 +23,11 @@ export interface FastLadder {
   /** Equal driver resistances: the circuit is linear time-invariant and both phases share modes. */
   lti: boolean;
   /** sqrt of the node capacitances (load capacitance included at the last node). */
-  sqrtC: Float64Array;
+  sqrtC: Vec;
   pinHigh: FastPhase;
   pinLow: FastPhase;
   /** yEq(high) - yEq(low), formed without subtraction when the drivers are equal. */
-  delta: Float64Array;
+  delta: Vec;
 }
 
 /**
@@ -51,12 +52,12 @@ export function fastLadder(ladder: Ladder): FastLadder {
   if (ladder.stages.some((s, k) => s.buffered && k < n - 1)) {
     throw new RangeError('fastLadder: buffered stages inside the ladder are not supported');
   }
-  const sqrtC = new Float64Array(n);
+  const sqrtC = zeros(n);
   for (let k = 0; k < n; k++) sqrtC[k] = Math.sqrt(ladder.stages[k].c + (k === n - 1 ? ladder.loadCapacitance : 0));
   const lti = ladder.driverHigh === ladder.driverLow;
   let pinHigh: FastPhase;
   let pinLow: FastPhase;
-  let delta: Float64Array;
+  let delta: Vec;
   if (lti) {
     // One set of modes; DC states per volt of the source, so Delta needs no subtraction.
     const perVolt = phase(ladder, sqrtC, ladder.driverHigh, 1);
@@ -66,32 +67,32 @@ export function fastLadder(ladder: Ladder): FastLadder {
   } else {
     pinHigh = phase(ladder, sqrtC, ladder.driverHigh, ladder.high);
     pinLow = phase(ladder, sqrtC, ladder.driverLow, ladder.low);
-    delta = new Float64Array(n);
+    delta = zeros(n);
     for (let i = 0; i < n; i++) delta[i] = pinHigh.yEq[i] - pinLow.yEq[i];
   }
   return { n, period: ladder.period, high: ladder.high, low: ladder.low, lti, sqrtC, pinHigh, pinLow, delta };
 }
 
-function scaled(v: Float64Array, k: number): Float64Array {
-  const out = new Float64Array(v.length);
+function scaled(v: Vec, k: number): Vec {
+  const out = zeros(v.length);
   for (let i = 0; i < v.length; i++) out[i] = v[i] * k;
   return out;
 }
 
-function phase(ladder: Ladder, sqrtC: Float64Array, driver: number, source: number): FastPhase {
+function phase(ladder: Ladder, sqrtC: Vec, driver: number, source: number): FastPhase {
   const { stages } = ladder;
   const n = stages.length;
   // Conductance matrix G (tridiagonal): g[k] links node k-1 (k = 0: the pin) to node k.
-  const g = new Float64Array(n);
+  const g = zeros(n);
   for (let k = 0; k < n; k++) g[k] = 1 / (stages[k].r + (k === 0 ? driver : 0));
   const gLoad = ladder.loadResistance === null ? 0 : 1 / ladder.loadResistance;
-  const diag = new Float64Array(n);
-  const off = new Float64Array(n); // off[k] = G[k][k+1]
+  const diag = zeros(n);
+  const off = zeros(n); // off[k] = G[k][k+1]
   for (let k = 0; k < n; k++) {
     diag[k] = g[k] + (k < n - 1 ? g[k + 1] : gLoad);
     if (k < n - 1) off[k] = -g[k + 1];
   }
-  const s = new Float64Array(n * n);
+  const s = zeros(n * n);
   for (let k = 0; k < n; k++) {
     s[k * n + k] = diag[k] / (sqrtC[k] * sqrtC[k]);
     if (k < n - 1) {
@@ -101,11 +102,11 @@ function phase(ladder: Ladder, sqrtC: Float64Array, driver: number, source: numb
     }
   }
   const { values, vectors } = symmetricEigen(s, n);
-  const out = new Float64Array(n);
+  const out = zeros(n);
   for (let i = 0; i < n; i++) out[i] = vectors[(n - 1) * n + i] / sqrtC[n - 1];
   // DC state: G x = e_0 g_0 source (Thomas algorithm; G is an M-matrix, no pivoting needed).
-  const cp = new Float64Array(n);
-  const dp = new Float64Array(n);
+  const cp = zeros(n);
+  const dp = zeros(n);
   for (let k = 0; k < n; k++) {
     const rhs = k === 0 ? g[0] * source : 0;
     const lower = k > 0 ? off[k - 1] : 0;
@@ -113,7 +114,7 @@ function phase(ladder: Ladder, sqrtC: Float64Array, driver: number, source: numb
     cp[k] = k < n - 1 ? off[k] / denom : 0;
     dp[k] = (rhs - lower * (k > 0 ? dp[k - 1] : 0)) / denom;
   }
-  const yEq = new Float64Array(n);
+  const yEq = zeros(n);
   let next = 0;
   for (let k = n - 1; k >= 0; k--) {
     const x = dp[k] - cp[k] * next;

@@ -2,7 +2,7 @@ import type { FastLadder } from './fastLadder.js';
 import { expSumRoots } from './expSumRoots.js';
 import { fastSteadyState, type FastSteady, type PhaseAtDuty } from './fastSteadyState.js';
 import { symmetricEigen } from './symmetricEigen.js';
-import { matMul, matVec, spectralMatrix, transposeVec } from './smallLinear.js';
+import { type Vec, matMul, matVec, spectralMatrix, transposeVec, zeros } from './smallLinear.js';
 
 /** Largest period index the search looks at (2^52: beyond it a period count is no longer exact). */
 const MAX_PERIODS = 2 ** 52;
@@ -41,7 +41,7 @@ export function fastSettlingBound(
   const below = plan.meanOffset - plan.minDev;
   if (above > band || below > band) return Infinity;
   const margin = band - Math.max(above, below, 0);
-  const e0 = new Float64Array(n);
+  const e0 = zeros(n);
   for (let i = 0; i < n; i++) e0[i] = steadyFrom.u[i] - plan.u[i];
 
   const { high, low } = plan;
@@ -55,7 +55,7 @@ export function fastSettlingBound(
   }
 
   /** The latest violating instant inside a period that starts with deviation e, or -1. */
-  const lastViolation = (e: Float64Array): number => {
+  const lastViolation = (e: Vec): number => {
     const eFall = matVec(phiH, e, n);
     const inLow = lateCrossing(low, kLow, plan.wLow, eFall, band, n);
     if (inLow === Infinity) return period;
@@ -66,7 +66,7 @@ export function fastSettlingBound(
   };
 
   // Period powers through the symmetric B = I - N.
-  const sqrtDecayL = new Float64Array(n);
+  const sqrtDecayL = zeros(n);
   for (let i = 0; i < n; i++) sqrtDecayL[i] = Math.sqrt(low.decay[i]);
   const halfL = spectralMatrix(low.ph.mode, sqrtDecayL, n);
   const psiH = spectralMatrix(high.ph.mode, high.gone, n);
@@ -81,13 +81,13 @@ export function fastSettlingBound(
     }
   }
   const { values: nu, vectors: v } = symmetricEigen(nMat, n);
-  const logBeta = new Float64Array(n);
+  const logBeta = zeros(n);
   for (let i = 0; i < n; i++) logBeta[i] = Math.log1p(-Math.min(nu[i], 1 - 1e-16));
   const z = transposeVec(v, matVec(halfL, matVec(phiH, e0, n), n), n);
   const g = matMul(halfL, v, n); // column j: the state shape of mode j
-  const stateAt = (k: number): Float64Array => {
+  const stateAt = (k: number): Vec => {
     if (k === 0) return e0;
-    const e = new Float64Array(n);
+    const e = zeros(n);
     for (let j = 0; j < n; j++) {
       const amp = z[j] * Math.exp((k - 1) * logBeta[j]);
       if (amp === 0) continue;
@@ -142,11 +142,11 @@ export function fastSettlingBound(
  * Returns Infinity if it is outside the band at the phase end, else the last band crossing
  * inside the phase, or -1 when the whole phase stays inside.
  */
-function lateCrossing(p: PhaseAtDuty, c: number, w: Float64Array, e: Float64Array, band: number, n: number): number {
+function lateCrossing(p: PhaseAtDuty, c: number, w: Vec, e: Vec, band: number, n: number): number {
   if (p.t <= 0) return -1;
   const modal = transposeVec(p.ph.mode, e, n);
-  const b = new Float64Array(n + 1);
-  const rate = new Float64Array(n + 1);
+  const b = zeros(n + 1);
+  const rate = zeros(n + 1);
   let end = c;
   for (let i = 0; i < n; i++) {
     b[i + 1] = p.ph.out[i] * modal[i] - w[i];

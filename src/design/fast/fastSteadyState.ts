@@ -1,6 +1,6 @@
 import type { FastLadder, FastPhase } from './fastLadder.js';
 import { expSumRoots } from './expSumRoots.js';
-import { matMul, matVec, solveSmall, spectralMatrix, transposeVec } from './smallLinear.js';
+import { type Vec, matMul, matVec, solveSmall, spectralMatrix, transposeVec, zeros } from './smallLinear.js';
 
 /** One phase of a period at a given duty, ready to be evaluated at any time inside it. */
 export interface PhaseAtDuty {
@@ -8,8 +8,8 @@ export interface PhaseAtDuty {
   /** Length, s. */
   t: number;
   /** exp(-rate t) and 1 - exp(-rate t) per mode. */
-  decay: Float64Array;
-  gone: Float64Array;
+  decay: Vec;
+  gone: Vec;
 }
 
 /** Periodic steady state at one duty, output quantities relative to the output at the rising edge. */
@@ -18,17 +18,17 @@ export interface FastSteady {
   high: PhaseAtDuty;
   low: PhaseAtDuty;
   /** y_s - yEq(low): state at the rising edge, symmetric coordinates, as a deviation. */
-  u: Float64Array;
+  u: Vec;
   /** Output at the rising edge, V. */
   yStart: number;
   /** Output deviation in the high phase: sum_i wHigh_i (1 - exp(-rate_i s)). */
-  wHigh: Float64Array;
+  wHigh: Vec;
   /** Output deviation at the falling edge. */
   aOut: number;
   /** State deviation at the falling edge, symmetric coordinates. */
-  a: Float64Array;
+  a: Vec;
   /** Output deviation in the low phase: aOut + sum_i wLow_i (1 - exp(-rate_i s)). */
-  wLow: Float64Array;
+  wLow: Vec;
   /** Largest and smallest output deviation over the period (from yStart), V. */
   maxDev: number;
   minDev: number;
@@ -65,11 +65,11 @@ export function fastSteadyState(model: FastLadder, duty: number): FastSteady {
 
   const last = n - 1;
   // High phase: y(s) - y_s = Psi_h(s) (Delta - u).
-  const vHigh = new Float64Array(n);
+  const vHigh = zeros(n);
   for (let i = 0; i < n; i++) vHigh[i] = model.delta[i] - u[i];
   const cHigh = transposeVec(high.ph.mode, vHigh, n);
-  const wHigh = new Float64Array(n);
-  const a = new Float64Array(n);
+  const wHigh = zeros(n);
+  const a = zeros(n);
   for (let i = 0; i < n; i++) wHigh[i] = cHigh[i] * high.ph.out[i];
   for (let k = 0; k < n; k++) {
     let s = 0;
@@ -78,10 +78,10 @@ export function fastSteadyState(model: FastLadder, duty: number): FastSteady {
   }
   const aOut = a[last] / model.sqrtC[last];
   // Low phase: y(s) - y_s = a + Psi_l(s) (-u - a).
-  const vLow = new Float64Array(n);
+  const vLow = zeros(n);
   for (let i = 0; i < n; i++) vLow[i] = -u[i] - a[i];
   const cLow = transposeVec(low.ph.mode, vLow, n);
-  const wLow = new Float64Array(n);
+  const wLow = zeros(n);
   for (let i = 0; i < n; i++) wLow[i] = cLow[i] * low.ph.out[i];
 
   const ext = [Math.max(0, aOut), Math.min(0, aOut)];
@@ -116,8 +116,8 @@ export function fastSteadyState(model: FastLadder, duty: number): FastSteady {
 }
 
 /** Extremes of offset + sum_i w_i (1 - exp(-rate_i s)) at its turning points in (0, t), into ext. */
-function scanPhase(w: Float64Array, rate: Float64Array, t: number, offset: number, n: number, ext: number[]): void {
-  const slope = new Float64Array(n);
+function scanPhase(w: Vec, rate: Vec, t: number, offset: number, n: number, ext: number[]): void {
+  const slope = zeros(n);
   for (let i = 0; i < n; i++) slope[i] = w[i] * rate[i];
   for (const s of expSumRoots(slope, rate, t)) {
     let v = offset;
@@ -130,8 +130,8 @@ function scanPhase(w: Float64Array, rate: Float64Array, t: number, offset: numbe
 /** A phase of length t: per-mode decay factors. */
 export function phaseAt(ph: FastPhase, t: number): PhaseAtDuty {
   const n = ph.rate.length;
-  const decay = new Float64Array(n);
-  const gone = new Float64Array(n);
+  const decay = zeros(n);
+  const gone = zeros(n);
   for (let i = 0; i < n; i++) {
     decay[i] = Math.exp(-ph.rate[i] * t);
     gone[i] = -Math.expm1(-ph.rate[i] * t);

@@ -1,3 +1,18 @@
+/** A small vector or row-major matrix (plain arrays: cheaper than typed arrays at this size). */
+export type Vec = number[];
+
+/** n zeros. */
+export function zeros(n: number): Vec {
+  const out = new Array<number>(n);
+  for (let i = 0; i < n; i++) out[i] = 0;
+  return out;
+}
+
+/** A vector of the given entries. */
+export function vec(...xs: number[]): Vec {
+  return xs;
+}
+
 /**
  * Small dense linear algebra for the fast model (row-major n x n, n <= 4): products, the
  * phase operators U diag(d) U^T, and a solve.
@@ -6,11 +21,11 @@
  * 4th ed., Algorithm 3.4.1) for `solveSmall`; the rest is plain arithmetic.
  *
  * Syntax: solveSmall(a, b, n)
- * Example: solveSmall(Float64Array.of(2, 0, 0, 4), Float64Array.of(2, 2), 2)   // [1, 0.5]
+ * Example: solveSmall(vec(2, 0, 0, 4), vec(2, 2), 2)   // [1, 0.5]
  */
-export function solveSmall(a: Float64Array, b: Float64Array, n: number): Float64Array {
-  const m = Float64Array.from(a);
-  const x = Float64Array.from(b);
+export function solveSmall(a: Vec, b: Vec, n: number): Vec {
+  const m = a.slice();
+  const x = b.slice();
   for (let k = 0; k < n; k++) {
     let p = k;
     for (let i = k + 1; i < n; i++) if (Math.abs(m[i * n + k]) > Math.abs(m[p * n + k])) p = i;
@@ -41,8 +56,8 @@ export function solveSmall(a: Float64Array, b: Float64Array, n: number): Float64
 }
 
 /** U diag(d) U^T for orthonormal U (row-major). */
-export function spectralMatrix(u: Float64Array, d: ArrayLike<number>, n: number): Float64Array {
-  const out = new Float64Array(n * n);
+export function spectralMatrix(u: Vec, d: ArrayLike<number>, n: number): Vec {
+  const out = zeros(n * n);
   for (let i = 0; i < n; i++) {
     for (let j = i; j < n; j++) {
       let s = 0;
@@ -55,8 +70,8 @@ export function spectralMatrix(u: Float64Array, d: ArrayLike<number>, n: number)
 }
 
 /** a b (both n x n). */
-export function matMul(a: Float64Array, b: Float64Array, n: number): Float64Array {
-  const out = new Float64Array(n * n);
+export function matMul(a: Vec, b: Vec, n: number): Vec {
+  const out = zeros(n * n);
   for (let i = 0; i < n; i++) {
     for (let k = 0; k < n; k++) {
       const aik = a[i * n + k];
@@ -68,8 +83,8 @@ export function matMul(a: Float64Array, b: Float64Array, n: number): Float64Arra
 }
 
 /** a x. */
-export function matVec(a: Float64Array, x: ArrayLike<number>, n: number): Float64Array {
-  const out = new Float64Array(n);
+export function matVec(a: Vec, x: ArrayLike<number>, n: number): Vec {
+  const out = zeros(n);
   for (let i = 0; i < n; i++) {
     let s = 0;
     for (let k = 0; k < n; k++) s += a[i * n + k] * x[k];
@@ -79,8 +94,8 @@ export function matVec(a: Float64Array, x: ArrayLike<number>, n: number): Float6
 }
 
 /** U^T x (coordinates in the orthonormal basis U). */
-export function transposeVec(u: Float64Array, x: ArrayLike<number>, n: number): Float64Array {
-  const out = new Float64Array(n);
+export function transposeVec(u: Vec, x: ArrayLike<number>, n: number): Vec {
+  const out = zeros(n);
   for (let i = 0; i < n; i++) {
     let s = 0;
     for (let k = 0; k < n; k++) s += u[k * n + i] * x[k];

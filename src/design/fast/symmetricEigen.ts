@@ -1,3 +1,4 @@
+import { type Vec, vec, zeros } from './smallLinear.js';
 /**
  * Eigenvalues and eigenvectors of a small real symmetric matrix (row-major, order n, n <= 4).
  *
@@ -8,15 +9,15 @@
  * the time constants of a ladder may span many decades.
  *
  * Syntax: symmetricEigen(a, n)
- * Example: symmetricEigen(Float64Array.of(2, 1, 1, 2), 2)
+ * Example: symmetricEigen(vec(2, 1, 1, 2), 2)
  *          // { values: [1, 3], vectors: column j is the unit eigenvector of values[j] }
  */
-export function symmetricEigen(a: ArrayLike<number>, n: number): { values: Float64Array; vectors: Float64Array } {
-  if (n === 1) return { values: Float64Array.of(a[0]), vectors: Float64Array.of(1) };
+export function symmetricEigen(a: ArrayLike<number>, n: number): { values: Vec; vectors: Vec } {
+  if (n === 1) return { values: vec(a[0]), vectors: vec(1) };
   if (n === 2) return eigen2(a[0], a[1], a[3]);
-  const m = new Float64Array(n * n);
+  const m = zeros(n * n);
   for (let i = 0; i < n * n; i++) m[i] = a[i];
-  const v = new Float64Array(n * n);
+  const v = zeros(n * n);
   for (let i = 0; i < n; i++) v[i * n + i] = 1;
   for (let sweep = 0; sweep < 50; sweep++) {
     let rotated = false;
@@ -62,7 +63,7 @@ export function symmetricEigen(a: ArrayLike<number>, n: number): { values: Float
     if (!rotated) break;
   }
   // Ascending order (insertion sort of the indices).
-  const order = new Int32Array(n);
+  const order = zeros(n);
   for (let i = 0; i < n; i++) {
     let j = i;
     while (j > 0 && m[order[j - 1] * n + order[j - 1]] > m[i * n + i]) {
@@ -71,8 +72,8 @@ export function symmetricEigen(a: ArrayLike<number>, n: number): { values: Float
     }
     order[j] = i;
   }
-  const values = new Float64Array(n);
-  const vectors = new Float64Array(n * n);
+  const values = zeros(n);
+  const vectors = zeros(n * n);
   for (let dst = 0; dst < n; dst++) {
     const src = order[dst];
     values[dst] = m[src * n + src];
@@ -82,11 +83,11 @@ export function symmetricEigen(a: ArrayLike<number>, n: number): { values: Float
 }
 
 /** Order 2: one Jacobi rotation is exact. */
-function eigen2(app: number, apq: number, aqq: number): { values: Float64Array; vectors: Float64Array } {
+function eigen2(app: number, apq: number, aqq: number): { values: Vec; vectors: Vec } {
   if (apq === 0) {
     return app <= aqq
-      ? { values: Float64Array.of(app, aqq), vectors: Float64Array.of(1, 0, 0, 1) }
-      : { values: Float64Array.of(aqq, app), vectors: Float64Array.of(0, 1, 1, 0) };
+      ? { values: vec(app, aqq), vectors: vec(1, 0, 0, 1) }
+      : { values: vec(aqq, app), vectors: vec(0, 1, 1, 0) };
   }
   const zeta = (aqq - app) / (2 * apq);
   const t = (zeta >= 0 ? 1 : -1) / (Math.abs(zeta) + Math.sqrt(1 + zeta * zeta));
@@ -95,6 +96,6 @@ function eigen2(app: number, apq: number, aqq: number): { values: Float64Array; 
   const l1 = app - t * apq; // eigenvector (c, -s)
   const l2 = aqq + t * apq; // eigenvector (s, c)
   return l1 <= l2
-    ? { values: Float64Array.of(l1, l2), vectors: Float64Array.of(c, s, -s, c) }
-    : { values: Float64Array.of(l2, l1), vectors: Float64Array.of(s, c, c, -s) };
+    ? { values: vec(l1, l2), vectors: vec(c, s, -s, c) }
+    : { values: vec(l2, l1), vectors: vec(s, c, c, -s) };
 }

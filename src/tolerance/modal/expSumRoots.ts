@@ -26,8 +26,12 @@ export function expSumRoots(
   const c: number[] = [];
   const r: number[] = [];
   let top = -1;
+  // Terms below 1e-200 of the largest are dropped: dividing by them would overflow, and where they
+  // could matter the whole sum is below 1e-200 of its scale, far under what callers can resolve.
+  let largest = 0;
+  for (let i = 0; i < coef.length; i++) largest = Math.max(largest, Math.abs(coef[i]));
   for (let i = 0; i < coef.length; i++) {
-    if (coef[i] === 0 || !Number.isFinite(coef[i])) continue;
+    if (!(Math.abs(coef[i]) > 1e-200 * largest) || !Number.isFinite(coef[i])) continue;
     c.push(coef[i]);
     r.push(rate[i]);
     if (top < 0 || rate[i] > r[top]) top = c.length - 1;

@@ -1,0 +1,74 @@
+import { describe, expect, it } from 'vitest';
+import { modalLadder } from '../../../src/tolerance/modal/modalLadder.js';
+import { modalOperatingPoint } from '../../../src/tolerance/modal/operatingPoint.js';
+import { averageOutput } from '../../../src/tolerance/modal/averageOutput.js';
+import { rippleAt } from '../../../src/tolerance/modal/rippleAt.js';
+import { integratePeriod, ladder, oneStageRipple, stage } from '../reference.js';
+
+const T = 1 / 20e3;
+
+describe('modal steady state of one stage', () => {
+  it('ripple equals the closed form V(1-e^-DT/tau)(1-e^-(1-D)T/tau)/(1-e^-T/tau) for tau/T from 1e-2 to 1e9', () => {
+    // textbook first-order response to a rectangular wave (common practice)
+    for (const tauOverT of [1e-2, 0.1, 1, 10, 1e3, 1e6, 1e9]) {
+      const R = 4.7e3;
+      const tau = tauOverT * T;
+      const m = modalLadder(ladder([stage(R, tau / R)]))!;
+      for (const D of [0.05, 0.3, 0.5, 0.9]) {
+        const ref = oneStageRipple(3.3, T, D, tau);
+        expect(Math.abs(modalOperatingPoint(m, D).ripple - ref) / ref).toBeLessThan(1e-12);
+        expect(Math.abs(rippleAt(m, D) - ref) / ref).toBeLessThan(1e-12);
+      }
+    }
+  });
+
+  it('average is the ideal output with no load and equal drivers, and the divider R_L/(R_L+R+Rd) times it with a load', () => {
+    // mean of a linear circuit in periodic steady state = DC gain x mean input (superposition);
+    // the DC gain of the loaded stage is the resistive divider (Ohm's law)
+    const open = modalLadder(ladder([stage(10e3, 1e-6)], { driverHigh: 30, driverLow: 30 }))!;
+    const loaded = modalLadder(ladder([stage(10e3, 1e-6)], { driverHigh: 30, driverLow: 30, loadResistance: 100e3 }))!;
+    for (const D of [0, 0.2, 0.5, 0.77, 1]) {
+      expect(averageOutput(open, D)).toBeCloseTo(3.3 * D, 13);
+      expect(averageOutput(loaded, D)).toBeCloseTo((3.3 * D * 100e3) / (100e3 + 10e3 + 30), 13);
+      expect(modalOperatingPoint(loaded, D).average).toBeCloseTo(averageOutput(loaded, D), 14);
+    }
+  });
+});
+
+describe('modal steady state against time-domain integration (ODEX, npm odex)', () => {
+  // The periodic state is reached by integrating period after period from 0 V: moderate time
+  // constants (a few periods) so that it converges quickly; min, max from dense output on a
+  // 1/2000-period grid (so the reference max may sit up to one grid step below the true one).
+  const cases: Array<[string, ReturnType<typeof ladder>, number]> = [
+    ['two stages, asymmetric drivers, loaded', ladder([stage(1e3, 47e-9), stage(4.7e3, 10e-9)], { driverHigh: 60, driverLow: 25, loadResistance: 47e3, loadCapacitance: 1e-9 }), 0.3],
+    ['three stages, low level above 0 V', ladder([stage(470, 100e-9), stage(2.2e3, 22e-9), stage(10e3, 4.7e-9)], { low: 0.4, driverHigh: 10, driverLow: 40 }), 0.65],
+    ['two stages, follower after the last stage', ladder([stage(2.2e3, 47e-9), stage(10e3, 10e-9, true)], { loadResistance: 1e3, loadCapacitance: 1e-6 }), 0.5],
+  ];
+  for (const [name, l, D] of cases) {
+    it(name, () => {
+      const n = l.stages.length;
+      let x = new Array<number>(n).fill(0);
+      // the follower after the last stage disconnects the load (model.md): integrate without it
+      const lRef = l.stages[n - 1].buffered ? { ...l, loadResistance: null, loadCapacitance: 0 } : l;
+      for (let k = 0; k < 400; k++) {
+        const next = integratePeriod(lRef, D, x, 4).end;
+        const change = Math.max(...next.map((v, i) => Math.abs(v - x[i])));
+        x = next;
+        if (change < 1e-13) break;
+      }
+      const { out } = integratePeriod(lRef, D, x, 2000);
+      const refMax = Math.max(...out);
+      const refMin = Math.min(...out);
+      const op = modalOperatingPoint(modalLadder(l)!, D);
+      const ripple = refMax - refMin;
+      expect(Math.abs(op.max - refMax)).toBeLessThan(1e-6 * ripple);
+      expect(Math.abs(op.min - refMin)).toBeLessThan(1e-6 * ripple);
+      expect(Math.abs(op.ripple - ripple) / ripple).toBeLessThan(2e-6);
+      expect(Math.abs(rippleAt(modalLadder(l)!, D) - op.ripple) / op.ripple).toBeLessThan(1e-12);
+    });
+  }
+
+  it('declines a ladder with a follower inside it (the engine takes those)', () => {
+    expect(modalLadder(ladder([stage(1e3, 1e-7, true), stage(1e3, 1e-7)]))).toBeNull();
+  });
+});
