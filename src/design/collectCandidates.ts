@@ -1,5 +1,5 @@
 import type { DesignProblem } from './designProblem.js';
-import { fastLadder, type FastLadder } from './fast/fastLadder.js';
+import { fastLadderOf, type FastLadder } from './fast/fastLadder.js';
 import { fastSettlingBound } from './fast/fastSettlingBound.js';
 import { fastSteadyState, type FastSteady } from './fast/fastSteadyState.js';
 import { fastWorstRipple } from './fast/fastWorstRipple.js';
@@ -140,7 +140,7 @@ export function collectCandidates(
     if (model === null || !sameAs(rs, lastR) || !sameAs(cs, lastC)) {
       lastR = rs;
       lastC = cs.slice();
-      model = fastLadder(problem.ladderOf(rs, cs));
+      model = fastLadderOf(problem.circuit, rs, cs);
       steadyDuty = [];
       steadyOf = [];
       state.evaluated++;
@@ -163,7 +163,7 @@ export function collectCandidates(
     return true;
   };
 
-  const evaluate = (rs: number[], cs: number[]): void => {
+  const evaluate = (rs: number[], cs: number[], tb: TupleBounds): void => {
     const key = state.dynamic ? '' : keyOf(rs, cs);
     if (!state.dynamic && state.seen.has(key)) return;
     const model = use(rs, cs);
@@ -172,6 +172,15 @@ export function collectCandidates(
         const ideal = pwm.low + d * (pwm.high - pwm.low);
         if (exceeds(Math.abs(ideal - steady(d).average), limits.droop)) return;
       }
+    }
+    // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
+    const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);
+    for (const [from, to] of problem.steps) {
+      const a = steady(from);
+      const b = steady(to);
+      const z0 = Math.abs(b.yStart - a.yStart);
+      const excursion = b.yStart > a.yStart ? b.maxDev - b.meanOffset : b.meanOffset - b.minDev;
+      if (z0 > problem.band + excursion && tau * Math.log(z0 / (problem.band + excursion)) - tb.slack > state.theta) return;
     }
     let lb = 0;
     for (const [from, to] of problem.steps) {
@@ -206,6 +215,7 @@ export function collectCandidates(
     p: number;
     from: number;
     within: (cs: number[]) => boolean;
+    tb: TupleBounds;
   }
   const deferred: Column[] = [];
   const finishColumn = (col: Column): void => {
@@ -213,7 +223,7 @@ export function collectCandidates(
       const v = col.cs.slice();
       v[col.p] = C[b];
       if (!col.within(v)) break;
-      evaluate(col.rs, v);
+      evaluate(col.rs, v, col.tb);
     }
   };
 
@@ -224,8 +234,8 @@ export function collectCandidates(
     if (stages === 1) {
       const s = firstTrue(nC, (i) => rippleOk(rs, [C[i]]));
       if (s < nC && within([C[s]])) {
-        evaluate(rs, [C[s]]);
-        columns.push({ rs, cs: [C[s]], p: 0, from: s + 1, within });
+        evaluate(rs, [C[s]], tb);
+        columns.push({ rs, cs: [C[s]], p: 0, from: s + 1, within, tb });
       }
       return columns;
     }
@@ -242,7 +252,7 @@ export function collectCandidates(
         }
         return;
       }
-      walkLastTwo(rs, cs, outer, within, columns);
+      walkLastTwo(rs, cs, outer, within, columns, tb);
     };
     recurse(0);
     return columns;
@@ -252,7 +262,7 @@ export function collectCandidates(
    * The staircase walk over capacitors a = cs[p], b = cs[p + 1] with cs[0..p-1] fixed: evaluates
    * the lowest ripple-feasible point of each column and returns the columns for their inner points.
    */
-  const walkLastTwo = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean, columns: Column[]): void => {
+  const walkLastTwo = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean, columns: Column[], tb: TupleBounds): void => {
     const at = (a: number, b: number) => {
       const v = cs.slice();
       v[p] = C[a];
@@ -269,8 +279,8 @@ export function collectCandidates(
       if (s >= nC) break; // smaller first capacitors only raise the ripple
       if (!within(at(0, s))) break; // every remaining column starts at or above s
       if (within(at(a, s))) {
-        evaluate(rs, at(a, s));
-        columns.push({ rs, cs: at(a, s), p: p + 1, from: s + 1, within });
+        evaluate(rs, at(a, s), tb);
+        columns.push({ rs, cs: at(a, s), p: p + 1, from: s + 1, within, tb });
       }
     }
   };

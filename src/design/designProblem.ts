@@ -27,6 +27,8 @@ export interface DesignProblem {
   series: string;
   rValues: number[];
   cValues: number[];
+  /** The project's circuit around the ladder (PWM source, load). */
+  circuit: Omit<Ladder, 'stages'>;
   /** A ladder of the project's circuit with other stages (unbuffered). */
   ladderOf(r: ArrayLike<number>, c: ArrayLike<number>): Ladder;
 }
@@ -96,6 +98,7 @@ export function designProblem(project: Project, bits?: number): DesignProblem {
     series: search.series,
     rValues,
     cValues,
+    circuit: base,
     ladderOf: (r, c) => {
       const stages = [];
       for (let k = 0; k < r.length; k++) stages.push({ r: r[k], c: c[k], buffered: false });

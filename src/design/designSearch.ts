@@ -53,7 +53,7 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
   let shown = candidates;
   let diagnosis: string[] = [];
   if (!feasible && (options.diagnose ?? true)) {
-    const explained = explainInfeasible(problems, outcomes, stageCounts, top);
+    const explained = explainInfeasible(project, problems, stageCounts);
     diagnosis = explained.lines;
     shown = explained.closest;
   }

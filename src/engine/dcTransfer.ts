@@ -1,7 +1,7 @@
 import type { Ladder } from '../circuit/ladder.js';
 import type { DcTransfer } from './types.js';
 import { averageOutput } from './averageOutput.js';
-import { checkRange } from './checkDuty.js';
+import { checkRange } from './checkArguments.js';
 import { maximizeOnInterval } from './maximizeOnInterval.js';
 import { prepare } from './prepare.js';
 

@@ -1,6 +1,6 @@
 import type { Ladder } from '../circuit/ladder.js';
 import type { Settling } from './types.js';
-import { checkRange } from './checkDuty.js';
+import { checkRange } from './checkArguments.js';
 import { settlingTime } from './settlingTime.js';
 
 /**

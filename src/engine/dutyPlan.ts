@@ -33,7 +33,7 @@ export interface DutyPlan {
   u: Vector;
   /** Delta - u = x_h - x_s, what drives the high phase. */
   vHigh: Vector;
-  /** x_s = x_l + u. */
+  /** x_s = x_l + u = x_h - vHigh (whichever adds the smaller correction). */
   xStart: Vector;
   /** Output at the rising edge, V. */
   yStart: number;
@@ -64,8 +64,8 @@ export function dutyPlan(p: Prepared, duty: number): DutyPlan {
   const { n, period } = p;
   const t1 = duty * period;
   const t2 = (1 - duty) * period;
-  const high = phasePlan(p.system.high.A, n, t1, p.cells);
-  const low = phasePlan(p.system.low.A, n, t2, p.cells);
+  const high = phasePlan(p.system.high.A, n, t1, p.cells, p.balance);
+  const low = phasePlan(p.system.low.A, n, t2, p.cells, p.balance);
   const Kh = high.full.K;
   const El = low.full.E;
   const ElKh = matmul(El, Kh, n);
@@ -81,7 +81,10 @@ export function dutyPlan(p: Prepared, duty: number): DutyPlan {
   const integral =
     rowOf(high.full.J as Matrix, out, vHigh, n) + t2 * wA[out] + rowOf(low.full.J as Matrix, out, vLow, n);
   const meanOffset = integral / period;
-  const yStart = p.xLow[out] + u[out];
+  // x_s = x_l + u = x_h - (Delta - u): take the form whose correction is the smaller one.
+  const fromHigh = duty > 0.5;
+  const xStart = fromHigh ? vHigh.map((v, i) => p.xHigh[i] - v) : u.map((v, i) => p.xLow[i] + v);
+  const yStart = xStart[out];
   const plan: DutyPlan = {
     duty,
     high,
@@ -89,7 +92,7 @@ export function dutyPlan(p: Prepared, duty: number): DutyPlan {
     S,
     u,
     vHigh,
-    xStart: u.map((ui, i) => p.xLow[i] + ui),
+    xStart,
     yStart,
     meanOffset,
     average: yStart + meanOffset,
@@ -106,22 +109,28 @@ function rowOf(m: Matrix, i: number, x: Vector, n: number): number {
 }
 
 /**
- * Flows over the geometric sub-grid of the first cell, one cell and the whole phase, all by exact
- * doubling from one flow over h 2^-K (cells is a power of two). K makes h 2^-K ||A||_inf <= 1/4,
- * and ||A||_inf >= 1/tau_min, so the finest step is below a quarter of the fastest time constant.
+ * Flows over one cell (one exponential) and, by exact doubling, over the phase (cells is a power
+ * of two, so this is the squaring phase of the exponential of the whole phase). The geometric
+ * sub-grid of the first cell gets its own chain, started from one exponential over h 2^-K and
+ * doubled up to h/2, with K such that h 2^-K ||A||_inf <= 1/4 (||A||_inf >= 1/tau_min, so the
+ * finest step is below a quarter of the fastest time constant). Keeping the two chains apart
+ * matters: squaring amplifies rounding by about 2 per step in the slow components, so the phase
+ * flows must not inherit the extra K squarings of the sub-grid.
  */
-function phasePlan(A: Matrix, n: number, t: number, cells: number): PhasePlan {
+function phasePlan(A: Matrix, n: number, t: number, cells: number, balance: number[]): PhasePlan {
   const h = t / cells;
-  const levels = n === 1 || t === 0 ? 0 : Math.min(MAX_FINE_LEVELS, Math.max(0, Math.ceil(Math.log2(4 * h * normInf(A, n)))));
-  let f = flow(A, n, h / 2 ** levels, true);
-  const fine: Flow[] = [];
-  for (let k = 0; k < levels; k++) {
-    fine.push(f);
-    f = doubleFlow(f, n);
-  }
-  const step = f;
+  const step = flow(A, n, h, true, balance);
   let full = step;
   for (let c = 1; c < cells; c *= 2) full = doubleFlow(full, n);
+  const levels = n === 1 || t === 0 ? 0 : Math.min(MAX_FINE_LEVELS, Math.max(0, Math.ceil(Math.log2(4 * h * normInf(A, n)))));
+  const fine: Flow[] = [];
+  if (levels > 0) {
+    let f = flow(A, n, h / 2 ** levels, false, balance);
+    for (let k = 0; k < levels; k++) {
+      fine.push(f);
+      if (k + 1 < levels) f = doubleFlow(f, n);
+    }
+  }
   return { A, t, cells, h, step, full, fine };
 }
 

@@ -25,12 +25,16 @@ export interface Flow {
  * the exponential deliver e^X - I and phi1(X) - I directly, so K = -(e^X - I) and
  * J = -t (phi1(X) - I) are never formed by subtracting nearly equal numbers nor by a product with
  * A: K keeps full relative accuracy when t is 1e-9 of the time constant. The exponential is
- * Higham's 2005 scaling and squaring (see expm.ts).
+ * Higham's 2005 scaling and squaring (see expm.ts). With `scale` = d the exponential is taken of
+ * the balanced D A D^{-1} (D = diag(d)) and transformed back, M_ij = M~_ij d_j / d_i: for an RC
+ * ladder d_i = sqrt(C_i) makes D A D^{-1} symmetric (A = -C^{-1} G), which keeps the Padé solve and
+ * the squarings accurate when the capacitors differ by decades (balancing before the exponential:
+ * R. C. Ward, SIAM J. Numer. Anal. 14(4), 1977).
  *
- * Syntax: flow(A, n, t[, withIntegral])
+ * Syntax: flow(A, n, t[, withIntegral, scale])
  * Example: flow([-1], 1, 1e-12).K  // [1e-12 * (1 - 5e-13)], to full precision
  */
-export function flow(A: Matrix, n: number, t: number, withIntegral = true): Flow {
+export function flow(A: Matrix, n: number, t: number, withIntegral = true, scale?: number[]): Flow {
   const blocks = withIntegral ? 3 : 2;
   const m = blocks * n;
   if (t === 0) {
@@ -39,7 +43,7 @@ export function flow(A: Matrix, n: number, t: number, withIntegral = true): Flow
   const z = zeros(m * m);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
-      const x = t * A[i * n + j];
+      const x = scale ? (t * A[i * n + j] * scale[i]) / scale[j] : t * A[i * n + j];
       z[i * m + j] = x;
       z[i * m + n + j] = x;
     }
@@ -51,9 +55,10 @@ export function flow(A: Matrix, n: number, t: number, withIntegral = true): Flow
   const J = withIntegral ? zeros(n * n) : null;
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
-      E[i * n + j] = ez[i * m + j];
-      K[i * n + j] = -ez[i * m + n + j];
-      if (J) J[i * n + j] = -t * ez[i * m + 2 * n + j];
+      const back = scale ? scale[j] / scale[i] : 1;
+      E[i * n + j] = ez[i * m + j] * back;
+      K[i * n + j] = -ez[i * m + n + j] * back;
+      if (J) J[i * n + j] = -t * ez[i * m + 2 * n + j] * back;
     }
   }
   return { t, E, K, J };

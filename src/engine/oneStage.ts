@@ -27,10 +27,9 @@ export function oneStageSteadyState(ladder: Ladder, duty: number): OperatingPoin
   const gHigh = 1 / (r + ladder.driverHigh);
   const gLow = 1 / (r + ladder.driverLow);
   const xLow = (ladder.low * gLow) / (gLow + gLoad);
+  const xHigh = (ladder.high * gHigh) / (gHigh + gLoad);
   const delta =
-    ladder.driverHigh === ladder.driverLow
-      ? ((ladder.high - ladder.low) * gHigh) / (gHigh + gLoad)
-      : (ladder.high * gHigh) / (gHigh + gLoad) - xLow;
+    ladder.driverHigh === ladder.driverLow ? ((ladder.high - ladder.low) * gHigh) / (gHigh + gLoad) : xHigh - xLow;
   const t1 = duty * ladder.period;
   const t2 = (1 - duty) * ladder.period;
   const zH = (-(gHigh + gLoad) / cap) * t1;
@@ -45,7 +44,7 @@ export function oneStageSteadyState(ladder: Ladder, duty: number): OperatingPoin
   const vLow = -u - wA;
   const jH = -t1 * zH * phi2(zH);
   const jL = -t2 * zL * phi2(zL);
-  const yStart = xLow + u;
+  const yStart = duty > 0.5 ? xHigh - vHigh : xLow + u; // the smaller correction
   const meanOffset = (jH * vHigh + t2 * wA + jL * vLow) / ladder.period;
   const rises = wA >= 0;
   return {

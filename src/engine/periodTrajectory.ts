@@ -38,13 +38,15 @@ interface PhaseTrack {
  *
  * Method: in each phase x(t) = x(0) + w(t), w(t) = w(t0) + K(t - t0) v with v = x_p - x(t0), so
  * the output is a constant plus a sum of n decaying exponentials, whose derivative has at most
- * n - 1 real zeros (Descartes' rule of signs for exponential sums: G. Pólya & G. Szegő, "Problems
- * and Theorems in Analysis II", part V, problem 75). The derivative -c^T A E(t) v is sampled on a
- * uniform grid of 2^k cells per phase (exact marching: q <- E(h) q, w <- w + K(h) q), each sign
- * change is bracketed and refined by Brent's method (brentRoot.ts) on the exact derivative, and
- * the extremes are taken over phase boundaries, grid points and turning points. A pair of turning
- * points inside one cell (a dip smaller than the cell's variation) can be missed; with 8 cells for
- * two stages (one turning point per phase at most) nothing is missed.
+ * n - 1 real zeros (generalized Descartes rule of signs for exponential sums; reference from
+ * memory: G. Pólya & G. Szegő, "Problems and Theorems in Analysis II", part V). The derivative
+ * -c^T A E(t) v is sampled on a uniform grid of 2^k cells per phase, the first cell subdivided
+ * geometrically down to a quarter of the fastest time constant (dutyPlan.ts), by exact marching
+ * (q <- E(h) q, w <- w + K(h) q); each sign change is bracketed and refined by Brent's method
+ * (brentRoot.ts) on the exact derivative, and the extremes are taken over phase boundaries, grid
+ * points and turning points. A pair of turning points inside one grid step (a dip smaller than
+ * the step's variation) can be missed; with two stages (one turning point per phase at most)
+ * nothing is missed.
  *
  * Syntax: periodTrajectory(prepared, plan[, e])
  * Example: periodTrajectory(p, dutyPlan(p, 0.5)).maxW  // V above the rising-edge value
@@ -79,7 +81,7 @@ export function periodTrajectory(p: Prepared, plan: DutyPlan, e: Vector | null =
     const delta = s - j * phase.h;
     const base = track.w[j][out];
     if (delta === 0) return base;
-    const k = flow(phase.A, n, delta, false).K;
+    const k = flow(phase.A, n, delta, false, p.balance).K;
     return base + rowDot(k, out, track.q[j], n);
   };
   return { minW: acc.minW, maxW: acc.maxW, tMin: acc.tMin, tMax: acc.tMax, knots: acc.knots, wEnd, valueAt };
@@ -162,12 +164,23 @@ function turningPoint(
   const { n } = p;
   const out = p.system.output;
   const qCopy = q.slice();
+  const d = p.balance;
+  const scaled = zeros(n * n);
+  const ed = zeros(n * n);
+  // slope from the balanced exponential: E = D^{-1} e^{delta D A D^{-1}} D (see flow.ts)
   const slope = (delta: number): number => {
-    const ed = expm(A.map((a) => a * delta), n);
-    return -rowDot(A, out, matvec(ed, qCopy, n), n);
+    for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) scaled[i * n + j] = (delta * A[i * n + j] * d[i]) / d[j];
+    expm(scaled, n, ed);
+    let s = 0;
+    for (let i = 0; i < n; i++) {
+      let edq = 0;
+      for (let j = 0; j < n; j++) edq += (ed[i * n + j] * d[j] * qCopy[j]) / d[i];
+      s += A[out * n + i] * edq;
+    }
+    return -s;
   };
   const delta = brentRoot(slope, 0, len, len * 1e-12, dStart, dEnd);
-  const k = flow(A, n, delta, false).K;
+  const k = flow(A, n, delta, false, d).K;
   consider(acc, wOut + rowDot(k, out, qCopy, n), tStart + delta);
   acc.knots.push(tStart + delta);
 }

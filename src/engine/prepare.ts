@@ -1,6 +1,7 @@
 import type { Ladder } from '../circuit/ladder.js';
 import { stateSpace, type StateSpace } from '../circuit/stateSpace.js';
-import { luFactor, luSolve, type Vector } from './dense.js';
+import { dcGain } from '../circuit/dcGain.js';
+import type { Vector } from './dense.js';
 import type { DutyPlan } from './dutyPlan.js';
 
 /** Everything about a ladder that does not depend on the duty, computed once per ladder object. */
@@ -13,6 +14,8 @@ export interface Prepared {
   xLow: Vector;
   /** xHigh - xLow, formed from the per-volt gains so equal drivers give no subtraction. */
   delta: Vector;
+  /** Balancing scale sqrt(C_i) of each node (see flow.ts). */
+  balance: number[];
   /** Grid cells per phase for locating turning points (1 for one stage: none exist). */
   cells: number;
   /** Per-duty work, reused by several calls on the same ladder (bounded size). */
@@ -38,7 +41,8 @@ export const PLAN_CACHE_SIZE = 64;
  * recently used ladder objects. Ladders are treated as immutable: a ladder changed in place after
  * its first use keeps its old cache while it stays among the recent ones.
  *
- * Method: DC gain per volt g_p from an LU solve of A_p g = -input_p (dense.ts); x_p = V_p g_p.
+ * Method: DC gain per volt g_p of the resistive chain (dcGain.ts); x_p = V_p g_p, the state where
+ * A_p x + b_p = 0.
  * Delta = (V_h - V_l) g when both drivers are equal (no subtraction of nearly equal states),
  * else V_h g_h - V_l g_l.
  *
@@ -58,11 +62,8 @@ export function prepare(ladder: Ladder): Prepared {
   }
   const system = stateSpace(ladder);
   const { n } = system;
-  const gainPerVolt = (A: number[], input: number[]): Vector =>
-    luSolve(luFactor(A, n), input.map((v) => -v));
-  const gHigh = gainPerVolt(system.high.A, system.high.input);
-  const gLow =
-    ladder.driverHigh === ladder.driverLow ? gHigh : gainPerVolt(system.low.A, system.low.input);
+  const gHigh = dcGain(ladder, ladder.driverHigh);
+  const gLow = ladder.driverHigh === ladder.driverLow ? gHigh : dcGain(ladder, ladder.driverLow);
   const span = ladder.high - ladder.low;
   const delta =
     ladder.driverHigh === ladder.driverLow
@@ -75,6 +76,7 @@ export function prepare(ladder: Ladder): Prepared {
     xHigh: gHigh.map((g) => g * ladder.high),
     xLow: gLow.map((g) => g * ladder.low),
     delta,
+    balance: system.capacitance.map(Math.sqrt),
     cells: n === 1 ? 1 : n === 2 ? 8 : 32,
     plans: new Map(),
   };

@@ -1,7 +1,7 @@
 import type { Ladder } from '../circuit/ladder.js';
 import type { Settling } from './types.js';
 import { brentRoot } from './brentRoot.js';
-import { checkDuty } from './checkDuty.js';
+import { checkDuty } from './checkArguments.js';
 import { vectorNormInf, type Vector } from './dense.js';
 import { dutyPlan, type DutyPlan } from './dutyPlan.js';
 import { periodPowers } from './periodPowers.js';
@@ -48,7 +48,7 @@ function settleSeconds(p: Prepared, from: number, to: number, band: number): num
   const below = plan.meanOffset - plan.extrema.minW;
   if (above > band || below > band) return null;
   const margin = band - Math.max(above, below, 0);
-  const e0 = dutyPlan(p, from).u.map((v, i) => v - plan.u[i]);
+  const e0 = dutyPlan(p, from).xStart.map((v, i) => v - plan.xStart[i]);
   if (vectorNormInf(e0) <= margin) return 0;
 
   const powers = periodPowers(plan.S, n);

@@ -1,6 +1,6 @@
 import type { Ladder } from '../circuit/ladder.js';
 import type { OperatingPoint } from './types.js';
-import { checkDuty } from './checkDuty.js';
+import { checkDuty } from './checkArguments.js';
 import { dutyPlan } from './dutyPlan.js';
 import { oneStageSteadyState } from './oneStage.js';
 import { periodTrajectory } from './periodTrajectory.js';

@@ -1,6 +1,6 @@
 import type { Ladder } from '../circuit/ladder.js';
 import type { Waveform } from './types.js';
-import { checkDuty } from './checkDuty.js';
+import { checkCount, checkDuty } from './checkArguments.js';
 import { dutyPlan } from './dutyPlan.js';
 import { periodTrajectory } from './periodTrajectory.js';
 import { prepare } from './prepare.js';
@@ -35,11 +35,4 @@ export function steadyWaveform(ladder: Ladder, duty: number, periods: number, sa
     v.push(one[i % samplesPerPeriod]);
   }
   return { t, v };
-}
-
-/** A positive count (an integer when `integer`). */
-export function checkCount(value: number, name: string, integer: boolean): void {
-  if (!(value > 0) || !Number.isFinite(value) || (integer && !Number.isInteger(value))) {
-    throw new RangeError(`${name} ${value} must be a positive ${integer ? 'integer' : 'number'}`);
-  }
 }

@@ -1,12 +1,11 @@
 import type { Ladder } from '../circuit/ladder.js';
 import type { Waveform } from './types.js';
-import { checkDuty } from './checkDuty.js';
+import { checkCount, checkDuty } from './checkArguments.js';
 import type { Vector } from './dense.js';
 import { dutyPlan } from './dutyPlan.js';
 import { periodPowers } from './periodPowers.js';
 import { periodTrajectory, type PeriodTrajectory } from './periodTrajectory.js';
 import { prepare } from './prepare.js';
-import { checkCount } from './steadyWaveform.js';
 
 /**
  * The output after the duty steps from `from` to `to` at t = 0 (a rising edge), the circuit having
@@ -31,7 +30,7 @@ export function stepWaveform(ladder: Ladder, from: number, to: number, duration:
   const powers = periodPowers(plan.S, p.n);
   const T = p.period;
   let k = 0;
-  let e: Vector = dutyPlan(p, from).u.map((v, i) => v - plan.u[i]);
+  let e: Vector = dutyPlan(p, from).xStart.map((v, i) => v - plan.xStart[i]);
   let traj: PeriodTrajectory = periodTrajectory(p, plan, e);
   const t: number[] = [];
   const v: number[] = [];

@@ -1,6 +1,6 @@
 import type { Ladder } from '../circuit/ladder.js';
 import type { WorstRipple } from './types.js';
-import { checkRange } from './checkDuty.js';
+import { checkRange } from './checkArguments.js';
 import { maximizeOnInterval } from './maximizeOnInterval.js';
 import { steadyState } from './steadyState.js';
 

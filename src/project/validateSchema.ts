@@ -1,8 +1,11 @@
-import ajv2020Module, { type ErrorObject, type ValidateFunction } from 'ajv/dist/2020.js';
+import type { ErrorObject } from 'ajv/dist/2020.js';
 import schema from '../../schemas/project.schema.json' with { type: 'json' };
 import { closestName } from './closestName.js';
 import { formatKeyPath } from './keyPath.js';
 import type { IssueDraft } from './projectError.js';
+import { projectValidator } from './projectValidator.js';
+
+export { AJV_OPTIONS } from './projectValidator.js';
 
 /** The part of a JSON Schema node these messages read. */
 interface SchemaNode {
@@ -16,37 +19,7 @@ interface SchemaNode {
   'x-unit'?: string;
 }
 
-// ajv is CommonJS: its class is the module itself under Node, `.default` under some bundlers.
-const Ajv2020 = ((ajv2020Module as unknown as { default?: unknown }).default ?? ajv2020Module) as typeof ajv2020Module.default;
-
-let validator: ValidateFunction | undefined;
 let homes: Map<string, string[]> | undefined;
-
-/**
- * Ajv options for the project schema. Strict mode, every error, the failing schema node in each
- * error (`verbose`, for messages). The schema is a fixed file whose validity against the 2020-12
- * meta-schema is checked by the tests, so the run-time meta-validation and code optimisation
- * passes are skipped: they cost more than half of the compile time on every CLI start.
- */
-export const AJV_OPTIONS = {
-  strict: true,
-  allErrors: true,
-  verbose: true,
-  allowUnionTypes: true,
-  validateSchema: false,
-  code: { optimize: false },
-} as const;
-
-/** Compile the project schema once, on first use (ajv compiles to code: slow once, fast after). */
-function compiled(): ValidateFunction {
-  if (!validator) {
-    const ajv = new Ajv2020(AJV_OPTIONS);
-    // Annotation only: the SI unit of a key, for people and editors.
-    ajv.addKeyword({ keyword: 'x-unit', schemaType: 'string' });
-    validator = ajv.compile(schema);
-  }
-  return validator as ValidateFunction;
-}
 
 /**
  * Check raw project data against `schemas/project.schema.json` (JSON Schema 2020-12, ajv in
@@ -58,7 +31,7 @@ function compiled(): ValidateFunction {
  *          // [{ path: ['pwm', 'frequncy'], at: 'key', message: "unknown key 'frequncy'; did you mean 'frequency'?" }]
  */
 export function validateSchema(data: unknown): IssueDraft[] {
-  const validate = compiled();
+  const validate = projectValidator();
   if (validate(data)) return [];
   const drafts = (validate.errors ?? []).map((error) => describe(error, data));
   const seen = new Set<string>();

@@ -59,6 +59,25 @@ describe('settlingTime, exact references', () => {
     }
   });
 
+  it('two identical buffered stages (Jordan block): t_s from 1 - e^(-x)(1 + x), x = t/tau', () => {
+    // Source: step response of two cascaded isolated first-order sections with equal tau
+    // (convolution of two exponentials; textbook): tail e^(-x)(1 + x), solved by bisection.
+    const band = 1e-3;
+    for (const ratio of [0.2, 30, 1e6]) {
+      const tau = ratio * T;
+      let lo = 0;
+      let hi = 60;
+      for (let i = 0; i < 200; i++) {
+        const mid = (lo + hi) / 2;
+        if (3.3 * Math.exp(-mid) * (1 + mid) > band) lo = mid;
+        else hi = mid;
+      }
+      const l = ladder([stage(1e3, tau / 1e3, true), stage(1e3, tau / 1e3, true)]);
+      const got = settlingTime(l, 1, 0, band).time as number;
+      expect(Math.abs(got - lo * tau)).toBeLessThan(T / 1e4);
+    }
+  });
+
   it('one stage with ripple lies between the envelope bounds', () => {
     // Derivation (one stage, equal drivers, so one time constant tau in both phases): after the
     // step the output is v_to(t) + e0 e^(-t/tau), v_to the periodic steady state at `to` and

@@ -46,28 +46,43 @@ export function oneStageOrbit(V: number, T: number, D: number, tau: number, t: n
 /**
  * Settling time of one RC stage after the duty steps from `from` to `to` at a rising edge: the
  * output is the new periodic orbit plus the decaying difference of the two orbits' starting
- * values, e0 e^(-t/tau) (superposition in a linear first-order circuit). The last instant with
- * |v - V to| > band is found by a scan from far beyond it on a grid of T/400, then bisection.
+ * values, e0 e^(-t/tau) (superposition in a linear first-order circuit). Within each phase both
+ * parts are a constant plus a multiple of e^(-t/tau), so the error is monotone there and its
+ * extremes sit at the phase boundaries; the transient's magnitude falls period by period, so the
+ * last period leaving the band is found by bisection over periods, and the crossing inside it
+ * by bisection in time on its monotone piece.
  */
 export function oneStageSettling(V: number, T: number, from: number, to: number, tau: number, band: number): number {
   const s0 = (d: number) => oneStageOrbit(V, T, d, tau, 0);
   const e0 = s0(from) - s0(to);
-  const err = (t: number) => oneStageOrbit(V, T, to, tau, t % T) - V * to + e0 * Math.exp(-t / tau);
-  const outside = (t: number) => Math.abs(err(t)) > band;
-  // beyond tFar the transient is below band / 1e3 (the steady ripple is assumed inside the band)
-  const tFar = tau * Math.log((Math.abs(e0) * 1e3) / band) + 2 * T;
-  const h = T / 400;
-  let t = Math.ceil(tFar / h) * h;
-  while (t > 0 && !outside(t)) t -= h;
-  if (t <= 0 && !outside(0)) return 0;
-  let a = t;
-  let b = t + h;
-  for (let i = 0; i < 60; i++) {
-    const m = 0.5 * (a + b);
-    if (outside(m)) a = m;
-    else b = m;
+  const err = (k: number, t: number) => oneStageOrbit(V, T, to, tau, t) - V * to + e0 * Math.exp(-(k * T + t) / tau);
+  const ends = [0, to * T, T];
+  const leaves = (k: number) => ends.some((t) => Math.abs(err(k, t)) > band);
+  if (!leaves(0)) return 0;
+  let lo = 0;
+  let hi = 1;
+  while (leaves(hi)) [lo, hi] = [hi, 2 * hi];
+  while (hi - lo > 1) {
+    const mid = Math.floor((lo + hi) / 2);
+    if (leaves(mid)) lo = mid;
+    else hi = mid;
   }
-  return b;
+  // in period lo: the last phase piece that leaves the band, then bisection on it
+  for (let p = ends.length - 1; p > 0; p--) {
+    let a = ends[p - 1];
+    let b = ends[p];
+    const outA = Math.abs(err(lo, a)) > band;
+    const outB = Math.abs(err(lo, b)) > band;
+    if (outB) return lo * T + b;
+    if (!outA) continue;
+    for (let i = 0; i < 100; i++) {
+      const m = 0.5 * (a + b);
+      if (Math.abs(err(lo, m)) > band) a = m;
+      else b = m;
+    }
+    return lo * T + b;
+  }
+  return lo * T;
 }
 
 /** Nodal equations C x' = currents (Kirchhoff's current law at each node) of a follower-free ladder. */

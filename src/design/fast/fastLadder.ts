@@ -48,25 +48,44 @@ export interface FastLadder {
  */
 export function fastLadder(ladder: Ladder): FastLadder {
   const n = ladder.stages.length;
-  if (n < 1 || n > 4) throw new RangeError(`fastLadder: 1 to 4 stages, got ${n}`);
   if (ladder.stages.some((s, k) => s.buffered && k < n - 1)) {
     throw new RangeError('fastLadder: buffered stages inside the ladder are not supported');
   }
+  return fastLadderOf(
+    ladder,
+    ladder.stages.map((s) => s.r),
+    ladder.stages.map((s) => s.c),
+  );
+}
+
+/** The circuit around the ladder: everything of a Ladder but the stages. */
+export type FastCircuit = Omit<Ladder, 'stages'>;
+
+/**
+ * fastLadder for a circuit and plain resistor and capacitor lists (pin side first), without
+ * building a Ladder; the design search calls this for every candidate.
+ *
+ * Syntax: fastLadderOf(circuit, r, c)
+ * Example: fastLadderOf(circuit, [4700, 47e3], [1e-6, 10e-9]).n   // 2
+ */
+export function fastLadderOf(ladder: FastCircuit, r: ArrayLike<number>, c: ArrayLike<number>): FastLadder {
+  const n = r.length;
+  if (n < 1 || n > 4) throw new RangeError(`fastLadder: 1 to 4 stages, got ${n}`);
   const sqrtC = zeros(n);
-  for (let k = 0; k < n; k++) sqrtC[k] = Math.sqrt(ladder.stages[k].c + (k === n - 1 ? ladder.loadCapacitance : 0));
+  for (let k = 0; k < n; k++) sqrtC[k] = Math.sqrt(c[k] + (k === n - 1 ? ladder.loadCapacitance : 0));
   const lti = ladder.driverHigh === ladder.driverLow;
   let pinHigh: FastPhase;
   let pinLow: FastPhase;
   let delta: Vec;
   if (lti) {
     // One set of modes; DC states per volt of the source, so Delta needs no subtraction.
-    const perVolt = phase(ladder, sqrtC, ladder.driverHigh, 1);
+    const perVolt = phase(ladder, r, sqrtC, ladder.driverHigh, 1);
     pinHigh = { ...perVolt, yEq: scaled(perVolt.yEq, ladder.high) };
     pinLow = { ...perVolt, yEq: scaled(perVolt.yEq, ladder.low) };
     delta = scaled(perVolt.yEq, ladder.high - ladder.low);
   } else {
-    pinHigh = phase(ladder, sqrtC, ladder.driverHigh, ladder.high);
-    pinLow = phase(ladder, sqrtC, ladder.driverLow, ladder.low);
+    pinHigh = phase(ladder, r, sqrtC, ladder.driverHigh, ladder.high);
+    pinLow = phase(ladder, r, sqrtC, ladder.driverLow, ladder.low);
     delta = zeros(n);
     for (let i = 0; i < n; i++) delta[i] = pinHigh.yEq[i] - pinLow.yEq[i];
   }
@@ -79,12 +98,11 @@ function scaled(v: Vec, k: number): Vec {
   return out;
 }
 
-function phase(ladder: Ladder, sqrtC: Vec, driver: number, source: number): FastPhase {
-  const { stages } = ladder;
-  const n = stages.length;
+function phase(ladder: FastCircuit, r: ArrayLike<number>, sqrtC: Vec, driver: number, source: number): FastPhase {
+  const n = r.length;
   // Conductance matrix G (tridiagonal): g[k] links node k-1 (k = 0: the pin) to node k.
   const g = zeros(n);
-  for (let k = 0; k < n; k++) g[k] = 1 / (stages[k].r + (k === 0 ? driver : 0));
+  for (let k = 0; k < n; k++) g[k] = 1 / (r[k] + (k === 0 ? driver : 0));
   const gLoad = ladder.loadResistance === null ? 0 : 1 / ladder.loadResistance;
   const diag = zeros(n);
   const off = zeros(n); // off[k] = G[k][k+1]

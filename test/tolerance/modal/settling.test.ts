@@ -19,8 +19,8 @@ describe('modalSettling, one stage', () => {
         const band = Math.max(1e-3, oneStageRipple(3.3, T, to, tau));
         const ref = oneStageSettling(3.3, T, from, to, tau, band);
         const got = modalSettling(m, from, to, band)!;
-        expect(got).not.toBeNull();
-        expect(Math.abs(got - ref)).toBeLessThan(T * 1e-4 + 1e-9 * ref);
+        expect(got, `tau ${tauOverT} T, ${from} -> ${to}`).not.toBeNull();
+        expect(Math.abs(got - ref), `tau ${tauOverT} T, ${from} -> ${to}`).toBeLessThan(T * 1e-4 + 1e-9 * ref);
       }
     }
   });

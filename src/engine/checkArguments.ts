@@ -1,3 +1,5 @@
+/** Argument checks shared by the public engine functions (RangeError with the argument named). */
+
 /**
  * Reject a duty outside 0..1 (or not a number) with a RangeError naming the argument.
  *
@@ -18,4 +20,16 @@ export function checkRange(dutyMin: number, dutyMax: number): void {
   checkDuty(dutyMin, 'dutyMin');
   checkDuty(dutyMax, 'dutyMax');
   if (dutyMin > dutyMax) throw new RangeError(`dutyMin ${dutyMin} is above dutyMax ${dutyMax}`);
+}
+
+/**
+ * Reject a count that is not a positive finite number (or not an integer when `integer`).
+ *
+ * Syntax: checkCount(value, name, integer)
+ * Example: checkCount(0, 'samples', true)  // throws RangeError
+ */
+export function checkCount(value: number, name: string, integer: boolean): void {
+  if (!(value > 0) || !Number.isFinite(value) || (integer && !Number.isInteger(value))) {
+    throw new RangeError(`${name} ${value} must be a positive ${integer ? 'integer' : 'number'}`);
+  }
 }

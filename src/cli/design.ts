@@ -1,0 +1,140 @@
+import type { Argv, CommandModule } from 'yargs';
+import type { CommandOutput } from './analyze.js';
+import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_SPEC_FAILS, UsageError } from './errors.js';
+
+export interface DesignArgs {
+  file: string;
+  format: 'text' | 'json' | 'markdown';
+  top: number;
+  write?: string;
+  force: boolean;
+  charts: boolean;
+}
+
+/** A progress bar on a terminal stream: redrawn at most every 100 ms, erased when done. */
+function progressBar(stream: NodeJS.WriteStream): { update: (f: number) => void; done: () => void } {
+  let last = 0;
+  let shown = false;
+  return {
+    update: (f) => {
+      const now = Date.now();
+      if (now - last < 100 && f < 1) return;
+      last = now;
+      const width = 30;
+      const filled = Math.round(Math.min(1, Math.max(0, f)) * width);
+      stream.write(`\rsearching [${'#'.repeat(filled)}${'.'.repeat(width - filled)}] ${Math.round(100 * f)} %`);
+      shown = true;
+    },
+    done: () => {
+      if (shown) stream.write(`\r${' '.repeat(50)}\r`);
+    },
+  };
+}
+
+/**
+ * Run `design`: load the project, search the standard-value filters, render the report, and with
+ * `--write` save design #1 as a project file (never over an existing file without `--force`).
+ * Exit 0 when a design meets every limit, 1 when none does, 2 for bad input.
+ *
+ * Syntax: runDesign(args, { color, progress })
+ * Example: await runDesign({ file: 'p.yaml', format: 'json', top: 5, force: false, charts: false }, { color: false })
+ */
+export async function runDesign(
+  args: DesignArgs,
+  tty: { color: boolean; progress?: NodeJS.WriteStream },
+): Promise<CommandOutput> {
+  if (!Number.isInteger(args.top) || args.top < 1) throw new UsageError(`--top ${args.top}: give a whole number of at least 1`);
+  const fs = await import('node:fs');
+  if (args.write !== undefined && !args.force && fs.existsSync(args.write)) {
+    return { stdout: '', stderr: `dacsmith: ${args.write} exists; use --force to overwrite it\n`, code: EXIT_BAD_INPUT };
+  }
+  const [{ loadProject }, { designSearch, DesignInputError, tradeoffCurves }, { designReport }] = await Promise.all([
+    import('../project/index.js'),
+    import('../design/index.js'),
+    import('../report/design.js'),
+  ]);
+  const project = loadProject(args.file);
+  const bar = tty.progress ? progressBar(tty.progress) : null;
+  let result;
+  let tradeoff;
+  try {
+    const share = args.charts ? 0.5 : 1;
+    result = designSearch(project, { top: args.top, ...(bar && { onProgress: (f: number) => bar.update(share * f) }) });
+    if (args.charts) {
+      const best = result.candidates[0];
+      const atBits = result.resolutions.length > 0 && best?.bits != null ? best.bits : undefined;
+      const ripple = result.basis.limits.ripple;
+      const lsbAt = result.resolutions.find((r) => r.bits === atBits)?.lsb;
+      const inLsb = project.specInLsb?.ripple;
+      const center = ripple === undefined ? best?.worstRipple : inLsb !== undefined && lsbAt !== undefined ? inLsb * lsbAt : ripple;
+      if (center !== undefined && center > 0) {
+        tradeoff = tradeoffCurves(project, result.basis.stageCounts, center, {
+          ...(atBits !== undefined && { bits: atBits }),
+          ...(bar && { onProgress: (f: number) => bar.update(0.5 + 0.5 * f) }),
+        });
+      }
+    }
+  } catch (error) {
+    if (error instanceof DesignInputError) throw new UsageError(error.message);
+    throw error;
+  } finally {
+    bar?.done();
+  }
+
+  let written: string | undefined;
+  let stderr = '';
+  if (args.write !== undefined) {
+    if (result.feasible) {
+      const { withDesign } = await import('../report/designYaml.js');
+      const best = result.candidates[0];
+      const note = `chosen by dacsmith design: settles in ${best.settlingTime?.toPrecision(4)} s, worst ripple ${best.worstRipple.toPrecision(4)} V`;
+      fs.writeFileSync(args.write, withDesign(fs.readFileSync(args.file, 'utf8'), best, note), { flag: args.force ? 'w' : 'wx' });
+      written = args.write;
+      stderr = `design #1 written to ${args.write}\n`;
+    } else {
+      stderr = `dacsmith: no feasible design, nothing written to ${args.write}\n`;
+    }
+  }
+  const stdout = designReport(project, result, args.format, {
+    ...(tradeoff && { tradeoff }),
+    color: args.format === 'text' && tty.color,
+    ...(written && { written }),
+  });
+  return { stdout, stderr, code: result.feasible ? EXIT_PASS : EXIT_SPEC_FAILS };
+}
+
+/**
+ * The `design` command for yargs: options, help and examples; the handler runs `runDesign`
+ * through `run` (which prints and sets the exit code).
+ *
+ * Syntax: designCommand(run, color)
+ * Example: yargs(argv).command(designCommand(run, color))
+ */
+export function designCommand(
+  run: (work: () => Promise<CommandOutput>) => Promise<void>,
+  color: () => boolean,
+): CommandModule<object, DesignArgs> {
+  return {
+    command: 'design <file>',
+    describe: 'Recommend standard-value RC filters that meet the spec (search over the search: section)',
+    builder: (y: Argv) =>
+      y
+        .positional('file', { describe: 'Project file (YAML) with a search: section', type: 'string', demandOption: true })
+        .option('format', { describe: 'Report format', choices: ['text', 'json', 'markdown'] as const, default: 'text' as const })
+        .option('top', { describe: 'Number of designs to list', type: 'number', default: 10, requiresArg: true })
+        .option('write', { describe: 'Write design #1 as a project file (the original with filter.stages replaced)', type: 'string', requiresArg: true })
+        .option('force', { describe: 'Let --write replace an existing file', type: 'boolean', default: false })
+        .option('charts', { describe: 'Compute and draw the settling/ripple trade-off (--no-charts: faster)', type: 'boolean', default: true })
+        .example('$0 design sample-configs/design-tight-ripple.yaml', 'Ranked designs, trade-off chart, comparison')
+        .example('$0 design board.yaml --top 3 --no-charts', 'Three best designs, no trade-off curves')
+        .example('$0 design board.yaml --write board-designed.yaml', 'Save design #1 as a new project file')
+        .example('$0 design board.yaml --format json > designs.json', 'Machine-readable result (SI units)') as unknown as Argv<DesignArgs>,
+    handler: (args) =>
+      run(() =>
+        runDesign(args, {
+          color: args.format === 'text' && color(),
+          ...(process.stderr.isTTY && { progress: process.stderr }),
+        }),
+      ),
+  };
+}

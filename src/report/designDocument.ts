@@ -1,0 +1,228 @@
+import type { TradeoffCurve } from '../design/tradeoffCurves.js';
+import type { Candidate, DesignResult } from '../design/types.js';
+import type { Project } from '../project/types.js';
+import { formatEng, formatIec60062 } from '../units/index.js';
+import type { Block, ReportDocument, Section } from './document.js';
+import { lineChart } from './lineChart.js';
+import { percent } from './quantities.js';
+
+export interface DesignDocumentOptions {
+  /** Trade-off curves to draw (none: no chart section). */
+  tradeoff?: TradeoffCurve[];
+  /** asciichart colour codes per curve (terminal only). */
+  chartColors?: string[];
+  /** The file a chosen design was written to. */
+  written?: string;
+}
+
+/** Check names as the project file spells the limits. */
+const LIMIT_LABEL: Record<string, string> = {
+  ripple: 'ripple',
+  droop: 'droop',
+  inl: 'INL',
+  settling: 'settling',
+  pin_current: 'pin current',
+};
+
+/** A voltage in LSB when the resolution is known (3 significant digits), else in volts. */
+function volts(v: number, lsb: number | null): string {
+  return lsb === null ? formatEng(v, 'V', 3) : `${Number((v / lsb).toPrecision(3))} LSB`;
+}
+
+/** One stage as 'R / C' in engineering form. */
+const stageText = (s: { r: number; c: number; buffered?: boolean }) =>
+  `${formatEng(s.r, 'Ω', 3)} / ${formatEng(s.c, 'F', 3)}${s.buffered ? ' +follower' : ''}`;
+
+/** The stages as IEC 60062 codes: '4k7-100n + 47k-10n'. */
+export const stageCodes = (c: Pick<Candidate, 'stages'>) =>
+  c.stages.map((s) => `${formatIec60062(s.r, 'resistance')}-${formatIec60062(s.c, 'capacitance')}`).join(' + ');
+
+/** Margin to each limit, (limit - value) / limit: positive is room, negative a miss. */
+export function margins(c: Candidate): Record<string, number | null> {
+  const out: Record<string, number | null> = {};
+  for (const k of c.checks) out[k.name] = k.value === null ? null : (k.limit - k.value) / k.limit;
+  return out;
+}
+
+function marginText(c: Candidate): string {
+  const parts = c.checks.map((k) => {
+    const m = k.value === null ? null : (k.limit - k.value) / k.limit;
+    const label = LIMIT_LABEL[k.name] ?? k.name;
+    if (m === null) return `${label}: never settles`;
+    return m >= 0 ? `${label} ${percent(m).replace(' ', '')}` : `${label} MISSES by ${percent(-m).replace(' ', '')}`;
+  });
+  return parts.length > 0 ? parts.join(', ') : '-';
+}
+
+function candidateTable(result: DesignResult, lsbOf: (c: Candidate) => number | null): Block {
+  const width = Math.max(...result.candidates.map((c) => c.stages.length));
+  const withBits = result.resolutions.length > 0;
+  const header = [
+    '#',
+    ...Array.from({ length: width }, (_, i) => `R${i + 1} / C${i + 1}`),
+    'codes (IEC 60062)',
+    ...(withBits ? ['bits', 'PWM'] : []),
+    'settling',
+    'worst ripple',
+    'droop',
+    'pin current',
+    'margin to each limit',
+  ];
+  const rows = result.candidates.map((c, i) => [
+    String(i + 1),
+    ...Array.from({ length: width }, (_, k) => (c.stages[k] ? stageText(c.stages[k]) : '')),
+    stageCodes(c),
+    ...(withBits ? [String(c.bits ?? '-'), formatEng(c.frequency, 'Hz', 4)] : []),
+    c.settlingTime === null ? 'never' : formatEng(c.settlingTime, 's', 4),
+    volts(c.worstRipple, lsbOf(c)),
+    volts(c.droop, lsbOf(c)),
+    formatEng(c.pinCurrent, 'A', 3),
+    marginText(c),
+  ]);
+  const align = header.map((_, i) => (i === 0 || i === header.length - 1 || (i > 0 && i <= width + 1) ? 'left' : 'right')) as Array<
+    'left' | 'right'
+  >;
+  return { kind: 'table', header, rows, align };
+}
+
+function tradeoffSection(curves: TradeoffCurve[], result: DesignResult, options: DesignDocumentOptions): Section | null {
+  if (curves.length === 0 || curves[0].points.length < 2) return null;
+  const ripples = curves[0].points.map((p) => p.ripple);
+  const lsb = result.basis.lsb;
+  const scale = lsb ?? 1;
+  const finite = curves.flatMap((c) => c.points.map((p) => p.settlingTime)).filter((t): t is number => t !== null);
+  if (finite.length === 0) {
+    return { title: 'Trade-off: settling time against allowed ripple', blocks: [{ kind: 'text', text: 'No design is feasible at any of the ripple limits tried.' }] };
+  }
+  const top = Math.max(...finite) * 1.1;
+  const limit = result.basis.limits.ripple;
+  const chart = lineChart(
+    curves.map((c) => c.points.map((p) => p.settlingTime ?? Infinity)),
+    {
+      height: 12,
+      yUnit: 's',
+      yRange: { min: 0, max: top },
+      x: { start: ripples[0] / scale, end: ripples[ripples.length - 1] / scale, unit: lsb === null ? 'V' : 'LSB', log: true, prefixed: lsb === null },
+      markers: limit !== undefined ? [{ x: limit / scale, symbol: '^', label: `spec ripple limit ${volts(limit, lsb)}` }] : [],
+      ...(options.chartColors ? { colors: options.chartColors } : {}),
+    },
+  );
+  const header = ['ripple limit', ...curves.map((c) => `${c.stages} stage${c.stages > 1 ? 's' : ''}`)];
+  const rows = ripples.map((r, i) => [
+    volts(r, lsb),
+    ...curves.map((c) => {
+      const p = c.points[i];
+      return p.settlingTime === null ? 'none' : `${formatEng(p.settlingTime, 's', 3)}  ${p.best ? stageCodes(p.best) : ''}`;
+    }),
+  ]);
+  const names = curves.map((c) => `${c.stages} stage${c.stages > 1 ? 's' : ''}`).join(', ');
+  return {
+    title: 'Trade-off: settling time against allowed ripple',
+    blocks: [
+      {
+        kind: 'text',
+        text: `Best exact settling time at each ripple limit (other limits as specified, no settling-time limit); curves: ${names}. A point at the top edge has no feasible design.`,
+      },
+      { kind: 'chart', title: 'settling time (s) vs ripple limit (log scale)', body: chart },
+      { kind: 'table', header, rows, align: ['left', ...curves.map(() => 'left' as const)] },
+    ],
+  };
+}
+
+function comparisonSection(current: Candidate, best: Candidate | undefined, lsb: number | null): Section {
+  const column = (c: Candidate | undefined, f: (c: Candidate) => string) => (c ? f(c) : '-');
+  const row = (label: string, f: (c: Candidate) => string) => [label, column(current, f), column(best, f)];
+  const rows = [
+    row('stages', (c) => c.stages.map(stageText).join(' + ')),
+    row('settling', (c) => (c.settlingTime === null ? 'never' : formatEng(c.settlingTime, 's', 4))),
+    row('worst ripple', (c) => volts(c.worstRipple, lsb)),
+    row('droop', (c) => volts(c.droop, lsb)),
+    row('INL', (c) => volts(c.inl, lsb)),
+    row('pin current', (c) => formatEng(c.pinCurrent, 'A', 3)),
+    row('total capacitance', (c) => formatEng(c.totalCapacitance, 'F', 3)),
+    row('meets every limit', (c) => (c.pass ? 'PASS' : 'FAIL')),
+  ];
+  return {
+    title: 'Compared with the filter: design',
+    blocks: [{ kind: 'table', header: ['', 'filter: (project)', best ? 'recommended #1' : 'closest #1'], rows, align: ['left', 'left', 'left'] }],
+  };
+}
+
+/**
+ * The design result as a report document (the same blocks for text and Markdown): search basis and
+ * effort, the ranked designs with values, IEC 60062 codes and margins, the trade-off chart, the
+ * best design per resolution, the comparison with the project's `filter:` design, and, when nothing
+ * is feasible, what binds.
+ *
+ * Syntax: designDocument(project, result[, { tradeoff, chartColors, written }])
+ * Example: designDocument(p, designSearch(p)).verdict.pass   // true when a design meets every limit
+ */
+export function designDocument(project: Project, result: DesignResult, options: DesignDocumentOptions = {}): ReportDocument {
+  const { basis, stats } = result;
+  const lsb = basis.lsb;
+  const lsbByBits = new Map(result.resolutions.map((r) => [r.bits, r.lsb]));
+  const lsbOf = (c: Candidate) => (c.bits !== null && lsbByBits.has(c.bits) ? lsbByBits.get(c.bits)! : lsb);
+  const L = basis.limits;
+  const limitList = [
+    L.ripple !== undefined ? `ripple ${volts(L.ripple, lsb)}` : null,
+    L.droop !== undefined ? `droop ${volts(L.droop, lsb)}` : null,
+    L.inl !== undefined ? `INL ${volts(L.inl, lsb)}` : null,
+    L.settlingTime !== undefined ? `settling ${formatEng(L.settlingTime, 's', 4)}` : null,
+    L.pinCurrent !== undefined ? `pin current ${formatEng(L.pinCurrent, 'A', 3)}` : null,
+  ].filter((s): s is string => s !== null);
+  const step =
+    basis.steps.length === 2
+      ? `${percent(basis.steps[0][0])} to ${percent(basis.steps[0][1])} and back (slower counts)`
+      : `${percent(basis.steps[0][0])} to ${percent(basis.steps[0][1])}`;
+  const pairs: Array<[string, string]> = [
+    ['File', project.file],
+    ['Stages tried', basis.stageCounts.join(', ')],
+    ['Values', `${basis.series} (IEC 60063), R ${formatEng(basis.resistance.min, 'Ω', 3)} to ${formatEng(basis.resistance.max, 'Ω', 3)}, C ${formatEng(basis.capacitance.min, 'F', 3)} to ${formatEng(basis.capacitance.max, 'F', 3)}`],
+    ['Limits', limitList.length > 0 ? limitList.join(', ') : 'none'],
+    ['Settling', `to within ${volts(basis.band, lsb)} after a step ${step}`],
+    ['Ranking', 'settling time, then fewer stages, then smaller total capacitance'],
+    [
+      'Search',
+      `${stats.space.toExponential(2).replace('e+', 'e')} candidates, ${stats.evaluated} evaluated by the fast model, ${stats.verified} by the exact engine, ${formatEng(stats.elapsed, 's', 3)}`,
+    ],
+  ];
+  const sections: Section[] = [{ title: 'Search', blocks: [{ kind: 'pairs', pairs }] }];
+
+  if (result.feasible) {
+    sections.push({ title: 'Recommended designs (exact figures)', blocks: [candidateTable(result, lsbOf)] });
+  } else {
+    const blocks: Block[] = [{ kind: 'list', items: result.diagnosis }];
+    if (result.candidates.length > 0) blocks.push(candidateTable(result, lsbOf));
+    sections.push({ title: 'No design meets every limit', blocks });
+  }
+  const chart = tradeoffSection(options.tradeoff ?? [], result, options);
+  if (chart) sections.push(chart);
+  if (result.resolutions.length > 0) {
+    sections.push({
+      title: 'Best design per resolution',
+      blocks: [
+        {
+          kind: 'table',
+          header: ['bits', 'PWM frequency', 'LSB', 'best design', 'settling', 'worst ripple'],
+          rows: result.resolutions.map((r) => [
+            String(r.bits),
+            formatEng(r.frequency, 'Hz', 4),
+            formatEng(r.lsb, 'V', 3),
+            r.best ? stageCodes(r.best) : 'none feasible',
+            r.best?.settlingTime != null ? formatEng(r.best.settlingTime, 's', 4) : '-',
+            r.best ? volts(r.best.worstRipple, r.lsb) : '-',
+          ]),
+          align: ['right', 'right', 'right', 'left', 'right', 'right'],
+        },
+      ],
+    });
+  }
+  if (result.current) sections.push(comparisonSection(result.current, result.candidates[0], lsb));
+  if (options.written) sections.push({ title: 'Written', blocks: [{ kind: 'text', text: `Design #1 written to ${options.written}` }] });
+
+  const best = result.candidates[0];
+  const verdict = result.feasible
+    ? { pass: true, text: `PASS: ${result.candidates.length} design${result.candidates.length > 1 ? 's' : ''} meet every limit; #1 settles in ${formatEng(best.settlingTime ?? NaN, 's', 4)}` }
+    : { pass: false, text: 'FAIL: no design in the search space meets every limit' };
+  return { title: `dacsmith design: ${project.file}`, sections, verdict };
+}
