@@ -4,7 +4,7 @@
 //
 // Start-up is what this file tunes (measured with `npm run bench` and node --cpu-prof on the bundle):
 // the project schema is compiled to a standalone validator here instead of by ajv at every start,
-// the nested string-width copies are replaced by the hoisted one, and the bundle is minified.
+// terminal widths of plain ASCII text skip string-width, and the bundle is minified.
 import { build } from 'esbuild';
 import { createRequire } from 'node:module';
 import { mkdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
@@ -93,27 +93,45 @@ function projectValidatorAtBuildTime(source) {
         loader: 'js',
         resolveDir: root,
       }));
-      b.onResolve({ filter: /^dacsmith:project-validator$/ }, () => ({ path: 'project-validator', namespace: 'dacsmith' }));
-      b.onLoad({ filter: /.*/, namespace: 'dacsmith' }, () => ({ contents: source, loader: 'js', resolveDir: root }));
+      b.onResolve({ filter: /^dacsmith:project-validator$/ }, () => ({ path: 'project-validator', namespace: 'dacsmith-validator' }));
+      b.onLoad({ filter: /^project-validator$/, namespace: 'dacsmith-validator' }, () => ({ contents: source, loader: 'js', resolveDir: root }));
     },
   };
 }
 
 /**
- * cliui and wrap-ansi (under yargs) pin string-width 7, which segments every string with
- * Intl.Segmenter and tests each character against the emoji regular expression. yargs renders
- * the command's help text after every command (to have it ready should the command fail), and
- * that spent ~100 ms per start (measured with --cpu-prof). The hoisted string-width 8 has the same
- * API (default export `stringWidth(text, { ambiguousIsNarrow, countAnsiEscapeCodes })`) and
- * returns at once for printable ASCII, so every importer gets that one copy.
+ * Terminal width of text for yargs' help layout (cliui, wrap-ansi). yargs renders the command's
+ * help after every command (to have it ready should the command fail), and the string-width 7
+ * copies under cliui and wrap-ansi segment every string with Intl.Segmenter and test each
+ * character against the emoji regular expression: ~100 ms per start (node --cpu-prof). The hoisted
+ * string-width 8 answers printable ASCII at once, but builds its emoji property sets (ICU) when the
+ * module loads. So every importer gets this front: printable ASCII (U+0020..U+007E, no escape
+ * sequences) is one column per character (common practice, as string-width itself); anything else
+ * goes to the hoisted string-width, required on first use (esbuild evaluates a required ES module
+ * lazily). Same API: default export `stringWidth(text, options)`.
  */
-const oneStringWidth = {
-  name: 'one-string-width',
-  setup(b) {
-    const hoisted = require.resolve('string-width', { paths: [root] });
-    b.onResolve({ filter: /^string-width$/ }, () => ({ path: hoisted }));
-  },
-};
+function lazyStringWidth() {
+  const hoisted = require.resolve('string-width', { paths: [root] });
+  return {
+    name: 'lazy-string-width',
+    setup(b) {
+      b.onResolve({ filter: /^string-width$/ }, (args) =>
+        args.namespace === 'dacsmith-width' ? { path: hoisted } : { path: 'string-width', namespace: 'dacsmith-width' },
+      );
+      b.onLoad({ filter: /^string-width$/, namespace: 'dacsmith-width' }, () => ({
+        contents: [
+          'const PRINTABLE_ASCII = /^[\\u0020-\\u007E]*$/;',
+          'export default function stringWidth(text, options) {',
+          "  if (typeof text === 'string' && PRINTABLE_ASCII.test(text)) return text.length;",
+          "  return require('string-width').default(text, options);",
+          '}',
+        ].join('\n'),
+        loader: 'js',
+        resolveDir: root,
+      }));
+    },
+  };
+}
 
 /**
  * Bundle src/cli/main.ts into dist/cli.js (ESM, Node 20, minified, external source map).
@@ -137,7 +155,7 @@ export async function buildCli({ outfile: target = outfile, minify = true } = {}
     minifySyntax: true,
     write: false,
     logLevel: 'warning',
-    plugins: [bundleLazyImportsStatically, projectValidatorAtBuildTime(await standaloneProjectValidator()), oneStringWidth],
+    plugins: [bundleLazyImportsStatically, projectValidatorAtBuildTime(await standaloneProjectValidator()), lazyStringWidth()],
     // Some dependencies are CommonJS and call require() for Node built-ins: give the ESM bundle one.
     banner: {
       js: "import { createRequire as __dacsmithCreateRequire } from 'node:module';\nconst require = __dacsmithCreateRequire(import.meta.url);",

@@ -3,6 +3,7 @@ import { fastLadderOf, type FastLadder } from './fast/fastLadder.js';
 import { fastSettlingBound } from './fast/fastSettlingBound.js';
 import { fastSteadyState, type FastSteady } from './fast/fastSteadyState.js';
 import { fastWorstRipple } from './fast/fastWorstRipple.js';
+import { twoStageSteady, type TwoStageSteady } from './fast/twoStageSteady.js';
 import { tupleBounds, type TupleBounds } from './settlingBounds.js';
 import { slowestTimeConstant } from './slowestTimeConstant.js';
 
@@ -156,32 +157,39 @@ export function collectCandidates(
     return s;
   };
 
-  const rippleOk = (rs: number[], cs: number[]): boolean => {
+  /** Steady-state figures for the cheap checks: scalar code for two stages, else the full model. */
+  const lite = (rs: number[], cs: number[], d: number): TwoStageSteady => {
+    if (stages === 2) return twoStageSteady(problem.circuit, rs[0], cs[0], rs[1], cs[1], d);
     use(rs, cs);
-    if (limits.ripple !== undefined && exceeds(steady(dNear).ripple, limits.ripple)) return false;
-    if (checkTo) for (const d of toDuties) if (exceeds(steady(d).ripple, 2 * problem.band)) return false;
+    const s = steady(d);
+    return { ripple: s.ripple, average: s.average, yStart: s.yStart, above: s.maxDev - s.meanOffset, below: s.meanOffset - s.minDev };
+  };
+
+  const rippleOk = (rs: number[], cs: number[]): boolean => {
+    if (limits.ripple !== undefined && exceeds(lite(rs, cs, dNear).ripple, limits.ripple)) return false;
+    if (checkTo) for (const d of toDuties) if (exceeds(lite(rs, cs, d).ripple, 2 * problem.band)) return false;
     return true;
   };
 
   const evaluate = (rs: number[], cs: number[], tb: TupleBounds): void => {
     const key = state.dynamic ? '' : keyOf(rs, cs);
     if (!state.dynamic && state.seen.has(key)) return;
-    const model = use(rs, cs);
     if (!lti && limits.droop !== undefined) {
       for (const d of [problem.dutyMin, problem.dutyMax]) {
         const ideal = pwm.low + d * (pwm.high - pwm.low);
-        if (exceeds(Math.abs(ideal - steady(d).average), limits.droop)) return;
+        if (exceeds(Math.abs(ideal - lite(rs, cs, d).average), limits.droop)) return;
       }
     }
     // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
     const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);
     for (const [from, to] of problem.steps) {
-      const a = steady(from);
-      const b = steady(to);
+      const a = lite(rs, cs, from);
+      const b = lite(rs, cs, to);
       const z0 = Math.abs(b.yStart - a.yStart);
-      const excursion = b.yStart > a.yStart ? b.maxDev - b.meanOffset : b.meanOffset - b.minDev;
+      const excursion = b.yStart > a.yStart ? b.above : b.below;
       if (z0 > problem.band + excursion && tau * Math.log(z0 / (problem.band + excursion)) - tb.slack > state.theta) return;
     }
+    const model = use(rs, cs);
     let lb = 0;
     for (const [from, to] of problem.steps) {
       lb = Math.max(lb, fastSettlingBound(model, from, to, problem.band, steady(from), steady(to)));

@@ -46,7 +46,7 @@ export async function monteCarloParallel(
   const setup = monteCarloSetup(project, ladder, options);
   const { samples, parameters } = setup;
   const workers = Math.min(options.workers ?? 1, Math.floor(samples / MIN_SAMPLES_PER_WORKER));
-  const script = workers <= 1 ? null : options.workerUrl ? { url: options.workerUrl, execArgv: [] } : findWorkerScript();
+  const script = workers <= 1 ? null : options.workerUrl ? { url: options.workerUrl, viaTsx: false } : findWorkerScript();
   const progress = options.onProgress;
   if (workers <= 1 || script === null) {
     const table = evaluateSamples(setup.ladder, parameters, setup.plan, setup.deviates, 0, samples, progress && ((d) => progress(d, samples)));
@@ -66,11 +66,14 @@ export async function monteCarloParallel(
         count,
       };
       return new Promise<SampleTable>((resolve, reject) => {
-        const worker = new Worker(script.url, {
-          workerData: job,
-          transferList: [job.deviates.buffer as ArrayBuffer],
-          execArgv: script.execArgv,
-        });
+        const options = { workerData: job, transferList: [job.deviates.buffer as ArrayBuffer] };
+        // The TypeScript source needs tsx's loader registered inside the worker first.
+        const worker = script.viaTsx
+          ? new Worker(
+              `import('tsx/esm/api').then(({ register }) => { register(); return import(${JSON.stringify(script.url.href)}); })`,
+              { ...options, eval: true },
+            )
+          : new Worker(script.url, options);
         worker.on('message', (m: WorkerMessage) => {
           if (m.kind === 'progress') {
             done[w] = m.done;
@@ -113,12 +116,10 @@ function concatTables(tables: SampleTable[]): SampleTable {
  * The worker entry: `tolerance-worker.js` beside this module (the esbuild bundle puts it beside
  * dist/cli.js), else the TypeScript source run through tsx (development and tests).
  */
-function findWorkerScript(): { url: URL; execArgv: string[] } | null {
+function findWorkerScript(): { url: URL; viaTsx: boolean } | null {
   const bundled = new URL('./tolerance-worker.js', import.meta.url);
-  if (existsSync(fileURLToPath(bundled))) return { url: bundled, execArgv: [] };
-  const compiled = new URL('./worker.js', import.meta.url);
-  if (existsSync(fileURLToPath(compiled))) return { url: compiled, execArgv: [] };
+  if (existsSync(fileURLToPath(bundled))) return { url: bundled, viaTsx: false };
   const source = new URL('./worker.ts', import.meta.url);
-  if (existsSync(fileURLToPath(source))) return { url: source, execArgv: ['--import', 'tsx'] };
+  if (existsSync(fileURLToPath(source))) return { url: source, viaTsx: true };
   return null;
 }

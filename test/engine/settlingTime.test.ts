@@ -112,8 +112,8 @@ describe('settlingTime, exact references', () => {
  * Brute force: sample the output every T/400 period after period, with one-sample maps from
  * mathjs expm (x -> x_p + e^{A_p h}(x - x_p), x_p = -A_p^{-1} b_p by mathjs lusolve, A and b read
  * off the independent nodal equations of ladders.ts). The start is the periodic steady state at
- * `from` (iterated to convergence); the settling time is bracketed by the last sample outside the
- * band and the sample after it.
+ * `from` (fixed point of the sampled one-period map); the settling time is bracketed by the last
+ * sample outside the band and the sample after it.
  */
 function bruteForce(l: Ladder, from: number, to: number, band: number) {
   const n = l.stages.length;
@@ -138,15 +138,15 @@ function bruteForce(l: Ladder, from: number, to: number, band: number) {
     }
     return x;
   };
+  // Periodic steady state: fixed point of the affine one-period map x -> M x + g, with M and g
+  // measured by running the sampled period from 0 and from each unit vector (mathjs lusolve).
   const settle = (d: number) => {
-    let x = new Array(n).fill(0);
-    for (let i = 0; i < 20000; i++) {
-      const next = period(x, d);
-      const change = Math.max(...next.map((v, k) => Math.abs(v - x[k])));
-      x = next;
-      if (change < 1e-15) break;
-    }
-    return x;
+    const g = period(new Array(n).fill(0), d);
+    const cols = Array.from({ length: n }, (_, j) =>
+      period(Array.from({ length: n }, (_, i) => (i === j ? 1 : 0)), d).map((v, i) => v - g[i]),
+    );
+    const iMinusM = Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? 1 : 0) - cols[j][i]));
+    return (lusolve(iMinusM, g) as number[][]).map((r) => r[0]);
   };
   const xTo = settle(to);
   // Trapezoid rule over one period: for a periodic signal it is the plain mean of the m samples.

@@ -1,0 +1,74 @@
+/** Bench section: the standard-value design search (src/design), when that module is present. */
+import { existsSync } from 'node:fs';
+import { loadProject } from '../src/project/index.js';
+import type { Project, SearchSettings } from '../src/project/types.js';
+import { sampleProjects, wideSearch } from './bench-cases.js';
+import { median, timeOnce } from './bench-measure.js';
+import type { BenchSection } from './bench-table.js';
+
+/** The part of src/design's result the bench reads (imported by name at run time: the module may be absent). */
+interface DesignRun {
+  feasible: boolean;
+  candidates: unknown[];
+  stats: { space: number; evaluated: number; verified: number };
+}
+type DesignSearch = (project: Project, options?: { compare?: boolean }) => DesignRun;
+
+export interface DesignCost {
+  name: string;
+  file: string;
+  series: SearchSettings['series'];
+  stages: 1 | 2;
+  /** Median wall time of one designSearch call, s. */
+  seconds: number;
+  space: number;
+  evaluated: number;
+  verified: number;
+  feasible: boolean;
+}
+
+const MODULE = '../src/design/index.js';
+
+/**
+ * Time of designSearch over the wide space (R 100 ohm..1 Mohm, C 100 pF..100 uF): one stage from
+ * E96 on the one-stage sample, two stages from E24 on the two-stage sample, each the median of 3
+ * runs, with the candidates in the space, evaluated by the fast model and verified by the engine.
+ * `null` data and a "skipped" note when src/design/index.ts is not there (or lacks designSearch).
+ *
+ * Syntax: await designCost()
+ * Example: (await designCost()).data?.[1].seconds   // 0.6
+ */
+export async function designCost(): Promise<{ data: DesignCost[] | null; section: BenchSection }> {
+  const title = 'Design search, wide space (R 100 ohm..1 Mohm, C 100 pF..100 uF)';
+  const columns = ['case', 'project', 'space', 'evaluated', 'engine-verified', 'feasible', 'time (ms)'];
+  const search = await loadDesignSearch();
+  if (typeof search === 'string') return { data: null, section: { title, columns, rows: [], notes: [`skipped: ${search}`] } };
+  const cases = [
+    { name: '1 stage, E96', file: sampleProjects.oneStage, stages: 1 as const, series: 'E96' as const },
+    { name: '2 stages, E24', file: sampleProjects.twoStage, stages: 2 as const, series: 'E24' as const },
+  ];
+  const data = cases.map(({ name, file, stages, series }): DesignCost => {
+    const project = wideSearch(loadProject(file), stages, series);
+    const runs = [0, 1, 2].map(() => timeOnce(() => search(project, { compare: false })));
+    const { stats, feasible } = runs[0].value;
+    return { name, file, series, stages, seconds: median(runs.map((r) => r.seconds)), ...stats, feasible };
+  });
+  return {
+    data,
+    section: {
+      title,
+      columns,
+      rows: data.map((d) => [d.name, d.file, d.space, d.evaluated, d.verified, d.feasible ? 'yes' : 'no', d.seconds * 1e3]),
+      notes: ["each project's own spec; designSearch with its default options, the project's own filter not compared"],
+    },
+  };
+}
+
+/** designSearch from src/design/index.ts, or why it is not available. */
+async function loadDesignSearch(): Promise<DesignSearch | string> {
+  const file = new URL('../src/design/index.ts', import.meta.url);
+  if (!existsSync(file)) return 'module not present (src/design/index.ts)';
+  const module = (await import(MODULE)) as { designSearch?: unknown };
+  if (typeof module.designSearch !== 'function') return 'module not present (src/design/index.ts exports no designSearch)';
+  return module.designSearch as DesignSearch;
+}

@@ -1,0 +1,87 @@
+/** Bench section: Monte Carlo tolerance samples per second (src/tolerance), when that module is present. */
+import { existsSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
+import { performance } from 'node:perf_hooks';
+import { loadProject } from '../src/project/index.js';
+import type { Project } from '../src/project/types.js';
+import { sampleProjects } from './bench-cases.js';
+import { median, timeOnce } from './bench-measure.js';
+import type { BenchSection } from './bench-table.js';
+
+interface RunOptions {
+  samples?: number;
+  seed?: number;
+  workers?: number;
+}
+/** The parts of src/tolerance the bench calls (imported by name at run time: the module may be absent). */
+interface ToleranceModule {
+  monteCarlo: (project: Project, ladder?: undefined, options?: RunOptions) => { yield: number };
+  monteCarloParallel?: (project: Project, ladder?: undefined, options?: RunOptions) => Promise<{ yield: number }>;
+}
+
+export interface MonteCarloRate {
+  name: string;
+  file: string;
+  /** In the calling thread: samples per second (median of 3 runs of RATE_SAMPLES). */
+  rate: number;
+  /** 100 000 samples with monteCarloParallel on every core (null when it is not exported), s. */
+  hundredThousand: number | null;
+  workers: number;
+}
+
+const RATE_SAMPLES = 10_000;
+const MODULE = '../src/tolerance/index.js';
+
+/**
+ * Monte Carlo throughput on the one-stage and the two-stage sample (their own tolerances, seed 1):
+ * samples per second of monteCarlo in the calling thread, and the wall time of a 100 000-sample
+ * run spread over all cores by monteCarloParallel. `null` data and a "skipped" note when
+ * src/tolerance/index.ts is not there (or lacks monteCarlo).
+ *
+ * Syntax: await monteCarloRate()
+ * Example: (await monteCarloRate()).data?.[0].rate   // 6e4 (samples/s)
+ */
+export async function monteCarloRate(): Promise<{ data: MonteCarloRate[] | null; section: BenchSection }> {
+  const title = 'Monte Carlo tolerance analysis (exact figures per sample)';
+  const columns = ['case', 'project', 'samples/s (1 thread)', '100 000 samples (s)', 'workers'];
+  const tolerance = await loadTolerance();
+  if (typeof tolerance === 'string') return { data: null, section: { title, columns, rows: [], notes: [`skipped: ${tolerance}`] } };
+  const workers = availableParallelism();
+  const cases = [
+    { name: '1 stage', file: sampleProjects.oneStage },
+    { name: '2 stages', file: sampleProjects.twoStage },
+  ];
+  const data: MonteCarloRate[] = [];
+  for (const { name, file } of cases) {
+    const project = loadProject(file);
+    tolerance.monteCarlo(project, undefined, { samples: 1000, seed: 1 }); // warm-up
+    const seconds = median([0, 1, 2].map(() => timeOnce(() => tolerance.monteCarlo(project, undefined, { samples: RATE_SAMPLES, seed: 1 })).seconds));
+    let hundredThousand: number | null = null;
+    if (tolerance.monteCarloParallel) {
+      const start = performance.now();
+      await tolerance.monteCarloParallel(project, undefined, { samples: 100_000, seed: 1, workers });
+      hundredThousand = (performance.now() - start) / 1000;
+    }
+    data.push({ name, file, rate: RATE_SAMPLES / seconds, hundredThousand, workers });
+  }
+  return {
+    data,
+    section: {
+      title,
+      columns,
+      rows: data.map((d) => [d.name, d.file, d.rate, d.hundredThousand ?? 'n/a', d.workers]),
+      notes: [
+        `samples/s: monteCarlo in the calling thread, ${RATE_SAMPLES} samples, median of 3 runs;`,
+        '100 000 samples: one monteCarloParallel run on every core (worker threads, including their start-up).',
+      ],
+    },
+  };
+}
+
+async function loadTolerance(): Promise<ToleranceModule | string> {
+  const file = new URL('../src/tolerance/index.ts', import.meta.url);
+  if (!existsSync(file)) return 'module not present (src/tolerance/index.ts)';
+  const module = (await import(MODULE)) as Partial<ToleranceModule>;
+  if (typeof module.monteCarlo !== 'function') return 'module not present (src/tolerance/index.ts exports no monteCarlo)';
+  return module as ToleranceModule;
+}

@@ -1,0 +1,88 @@
+/** Bench section: the exact engine against time-stepping with a general-purpose ODE solver. */
+import { steadyState, timeConstants } from '../src/engine/index.js';
+import { freshLadder, odeCases } from './bench-cases.js';
+import { median, timeOnce, timePerCall } from './bench-measure.js';
+import { odeRipple } from './bench-ode.js';
+import type { BenchSection } from './bench-table.js';
+
+/** The accuracy both routes must reach: ripple to this relative difference. */
+export const MATCHED_ACCURACY = 1e-6;
+
+export interface OdeRace {
+  name: string;
+  duty: number;
+  /** Slowest time constant in PWM periods. */
+  tauPeriods: number;
+  /** Engine ripple, V. */
+  ripple: number;
+  /** Median time of steadyState on a fresh ladder, s. */
+  engine: number;
+  /** Median time of the ODE route at the loosest tolerance that matches, s; null when none matched. */
+  ode: number | null;
+  /** ode / engine. */
+  ratio: number | null;
+  /** ODEX tolerance used (relative; absolute the same in V). */
+  tolerance: number | null;
+  /** |ripple_ode - ripple_engine| / ripple_engine at that tolerance. */
+  difference: number | null;
+  periods: number | null;
+  steps: number | null;
+}
+
+/**
+ * The same periodic steady-state ripple by the exact engine (steadyState) and by integrating the
+ * circuit period by period with ODEX until the periodic state is reached (bench-ode.ts), at
+ * matched accuracy: the ODE route gets the loosest tolerance of 1e-6, 1e-7, ..., 1e-13 whose ripple
+ * agrees with the engine's to MATCHED_ACCURACY relative (its settle threshold a tenth of that),
+ * so it is not slowed down by more accuracy than the comparison asks for. Each route's time is a
+ * median (engine: 7 runs of many calls; ODE: 3 runs).
+ *
+ * Syntax: engineVersusOde()
+ * Example: engineVersusOde().data[0].ratio   // 2.5e4
+ */
+export function engineVersusOde(): { data: OdeRace[]; section: BenchSection } {
+  const data = odeCases.map(({ name, ladder, duty }): OdeRace => {
+    const reference = steadyState(freshLadder(ladder), duty).ripple;
+    const engine = timePerCall(() => steadyState(freshLadder(ladder), duty), { runs: 7, runSeconds: 0.05 }).perCall;
+    const tauPeriods = timeConstants(freshLadder(ladder))[0] / ladder.period;
+    const scale = Math.abs(ladder.high - ladder.low);
+    let match: { tolerance: number; difference: number; periods: number; steps: number } | null = null;
+    for (let k = 6; k <= 13 && !match; k++) {
+      const tolerance = 10 ** -k;
+      const run = odeRipple(ladder, duty, { relativeTolerance: tolerance, absoluteTolerance: tolerance * scale, settle: MATCHED_ACCURACY / 10 });
+      const difference = Math.abs(run.ripple - reference) / reference;
+      if (difference <= MATCHED_ACCURACY) match = { tolerance, difference, periods: run.periods, steps: run.steps };
+    }
+    if (!match) {
+      return { name, duty, tauPeriods, ripple: reference, engine, ode: null, ratio: null, tolerance: null, difference: null, periods: null, steps: null };
+    }
+    const options = { relativeTolerance: match.tolerance, absoluteTolerance: match.tolerance * scale, settle: MATCHED_ACCURACY / 10 };
+    const ode = median([0, 1, 2].map(() => timeOnce(() => odeRipple(ladder, duty, options)).seconds));
+    return { name, duty, tauPeriods, ripple: reference, engine, ode, ratio: ode / engine, ...match };
+  });
+  return {
+    data,
+    section: {
+      title: `Periodic steady-state ripple: exact engine against ODEX time-stepping from power-up, matched to ${MATCHED_ACCURACY} relative`,
+      columns: ['case', 'tau/T', 'duty', 'ripple (V)', 'engine (us)', 'ODE (ms)', 'ODE/engine', 'ODE periods', 'ODE steps', 'ODE tol', 'rel. diff'],
+      rows: data.map((d) => [
+        d.name,
+        d.tauPeriods,
+        d.duty,
+        d.ripple,
+        d.engine * 1e6,
+        d.ode === null ? 'no match' : d.ode * 1e3,
+        d.ratio ?? '-',
+        d.periods ?? '-',
+        d.steps ?? '-',
+        d.tolerance ?? '-',
+        d.difference ?? '-',
+      ]),
+      notes: [
+        'engine: steadyState on a fresh ladder object per call (no cached preparation);',
+        'ODE: npm odex (GBS extrapolation), loosest tolerance of 1e-6..1e-13 that matches, stop when the',
+        'estimated distance to the periodic state is below 1e-7 of the ripple; extrema from dense output.',
+      ],
+    },
+  };
+}

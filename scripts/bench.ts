@@ -1,0 +1,134 @@
+/**
+ * `npm run bench [-- --json]`: how fast dacsmith is, on this machine. Prints a table (or, with
+ * --json, one JSON object) of medians over several runs: the full analysis in process, the exact
+ * engine against ODE time-stepping, settling cost against the time constant, the design search,
+ * Monte Carlo throughput, and the whole `dacsmith analyze` process against a bare Node start;
+ * then the project's targets and whether this run met them. Progress goes to standard error.
+ * Runs through tsx (TypeScript sources); the whole-process figure uses the bundle, rebuilt first.
+ */
+import { cpus, loadavg, platform, release } from 'node:os';
+import { performance } from 'node:perf_hooks';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { analyzeCost } from './bench-analyze.js';
+import { designCost } from './bench-design.js';
+import { monteCarloRate } from './bench-monte-carlo.js';
+import { engineVersusOde } from './bench-ode-race.js';
+import { processStart } from './bench-process.js';
+import { settlingCost } from './bench-settling.js';
+import { benchTable, formatNumber, type BenchReport, type BenchSection, type BenchTarget } from './bench-table.js';
+// @ts-expect-error -- plain JavaScript build script without type declarations
+import { buildCli } from './build.mjs';
+
+const root = join(dirname(fileURLToPath(import.meta.url)), '..');
+const SAMPLE = join('sample-configs', 'greenhouse-heater.yaml');
+
+/**
+ * Run every bench section and return the report (machine, sections, targets, raw data).
+ *
+ * Syntax: await runBench()
+ * Example: (await runBench()).targets.map((t) => t.met)   // [true, true, true, false, true]
+ */
+export async function runBench(): Promise<BenchReport> {
+  const started = performance.now();
+  const loadBefore = loadavg()[0];
+  const step = (what: string) => process.stderr.write(`bench: ${what}\n`);
+  const sections: BenchSection[] = [];
+  const data: Record<string, unknown> = {};
+
+  step('full analysis in process');
+  const analyze = analyzeCost();
+  sections.push(analyze.section);
+  data.analyze = analyze.data;
+
+  step('exact engine against ODE time-stepping (a few seconds)');
+  const ode = engineVersusOde();
+  sections.push(ode.section);
+  data.ode = ode.data;
+
+  step('settling cost against the time constant');
+  const settling = settlingCost();
+  sections.push(settling.section);
+  data.settling = settling.data;
+
+  step('design search');
+  const design = await designCost();
+  sections.push(design.section);
+  data.design = design.data;
+
+  step('Monte Carlo');
+  const monteCarlo = await monteCarloRate();
+  sections.push(monteCarlo.section);
+  data.monteCarlo = monteCarlo.data;
+
+  step('whole process: build the bundle, then dacsmith analyze against node -e ""');
+  let start: ReturnType<typeof processStart> | string;
+  try {
+    await buildCli();
+    start = processStart([join('bin', 'dacsmith.js'), 'analyze', SAMPLE], { runs: 9, cwd: root });
+  } catch (error) {
+    start = `failed: ${(error as Error).message.split('\n')[0]}`;
+  }
+  sections.push({
+    title: 'Whole process, wall time (spawnSync, 9 runs each, interleaved)',
+    columns: ['command', 'median (ms)', 'x bare node'],
+    rows:
+      typeof start === 'string'
+        ? []
+        : [
+            [`node bin/dacsmith.js analyze ${SAMPLE}`, start.command * 1e3, start.ratio],
+            ["node -e ''", start.bare * 1e3, 1],
+          ],
+    notes: typeof start === 'string' ? [start] : ['NODE_OPTIONS and NODE_EXTRA_CA_CERTS removed from both environments'],
+  });
+  data.process = start;
+
+  const two = design.data?.find((d) => d.stages === 2);
+  const slowestMc = monteCarlo.data?.map((d) => d.hundredThousand).filter((s): s is number => s !== null);
+  const worstRatio = ode.data.every((d) => d.ratio !== null) ? Math.min(...ode.data.map((d) => d.ratio!)) : null;
+  const spread = Math.max(settling.data.spread.oneStage, settling.data.spread.twoStage);
+  const targets: BenchTarget[] = [
+    {
+      name: 'exact engine vs ODE route',
+      goal: '>= 1000x faster at matched accuracy',
+      measured: worstRatio === null ? 'ODE route did not match' : `${formatNumber(worstRatio)}x (slowest case)`,
+      met: worstRatio === null ? null : worstRatio >= 1000,
+    },
+    {
+      name: 'settling cost vs tau',
+      goal: 'flat over 10..1e7 periods (largest/smallest <= 2)',
+      measured: `largest/smallest ${spread.toFixed(2)}`,
+      met: spread <= 2,
+    },
+    {
+      name: 'design search, 2 stages E24 wide',
+      goal: '< 1 s',
+      measured: two ? `${formatNumber(two.seconds)} s` : 'skipped',
+      met: two ? two.seconds < 1 : null,
+    },
+    {
+      name: 'Monte Carlo, 100 000 samples',
+      goal: '< 2 s',
+      measured: slowestMc && slowestMc.length > 0 ? `${formatNumber(Math.max(...slowestMc))} s (slower case)` : 'skipped',
+      met: slowestMc && slowestMc.length > 0 ? Math.max(...slowestMc) < 2 : null,
+    },
+    {
+      name: 'dacsmith analyze, whole process',
+      goal: '<= 3x bare node',
+      measured: typeof start === 'string' ? start : `${formatNumber(start.ratio)}x`,
+      met: typeof start === 'string' ? null : start.ratio <= 3,
+    },
+  ];
+
+  const model = cpus()[0]?.model.trim() ?? 'unknown CPU';
+  return {
+    machine: { cpu: model, cores: cpus().length, node: process.version, platform: `${platform()} ${release()}`, loadBefore, loadAfter: loadavg()[0] },
+    sections,
+    targets,
+    seconds: (performance.now() - started) / 1000,
+    data,
+  };
+}
+
+const report = await runBench();
+process.stdout.write(process.argv.includes('--json') ? `${JSON.stringify(report, null, 2)}\n` : benchTable(report));

@@ -1,0 +1,51 @@
+import { designProblem } from '../../src/design/designProblem.js';
+import { exactCandidate } from '../../src/design/exactCandidate.js';
+import { rankCandidates, SETTLING_TIE } from '../../src/design/rankCandidates.js';
+import type { Candidate } from '../../src/design/types.js';
+import { defaultSettling, settlingTime } from '../../src/engine/index.js';
+import type { Project } from '../../src/project/types.js';
+
+/**
+ * Exhaustive reference for the design search: every candidate of the discrete space gets the exact
+ * engine's settling time; then, in ascending settling order, full engine evaluations until `top`
+ * feasible designs are found and the next settling time is beyond the top-th (the ranking puts
+ * settling time first, so nothing later can enter). No bounds, no fast model.
+ */
+export function bruteForce(project: Project, top: number, bits?: number): { ranked: Candidate[]; count: number } {
+  const p = designProblem(project, bits);
+  const all: Array<{ r: number[]; c: number[]; t: number }> = [];
+  const R = p.rValues;
+  const C = p.cValues;
+  for (const n of p.stageCounts) {
+    const total = (R.length * C.length) ** n;
+    for (let k = 0; k < total; k++) {
+      let rest = k;
+      const r: number[] = [];
+      const c: number[] = [];
+      for (let s = 0; s < n; s++) {
+        r.push(R[rest % R.length]);
+        rest = Math.floor(rest / R.length);
+        c.push(C[rest % C.length]);
+        rest = Math.floor(rest / C.length);
+      }
+      const l = p.ladderOf(r, c);
+      const s = p.defaultStep ? defaultSettling(l, p.dutyMin, p.dutyMax, p.band) : settlingTime(l, p.steps[0][0], p.steps[0][1], p.band);
+      all.push({ r, c, t: s.time ?? Infinity });
+    }
+  }
+  all.sort((a, b) => a.t - b.t);
+  const feasible: Candidate[] = [];
+  let tN = Infinity;
+  for (const e of all) {
+    if (e.t === Infinity || e.t > tN * (1 + 10 * SETTLING_TIE)) break;
+    const cand = exactCandidate(p, p.ladderOf(e.r, e.c));
+    if (!cand.pass) continue;
+    feasible.push(cand);
+    const ranked = rankCandidates(feasible);
+    if (ranked.length >= top) tN = ranked[top - 1].settlingTime ?? Infinity;
+  }
+  return { ranked: rankCandidates(feasible).slice(0, top), count: all.length };
+}
+
+/** A design as text, for comparing lists. */
+export const designKey = (c: Pick<Candidate, 'stages'>) => c.stages.map((s) => `${s.r}/${s.c}`).join(' + ');

@@ -1,0 +1,213 @@
+import { describe, expect, it } from 'vitest';
+import { designSearch } from '../../src/design/designSearch.js';
+import { fastLadder } from '../../src/design/fast/fastLadder.js';
+import { fastSteadyState } from '../../src/design/fast/fastSteadyState.js';
+import { slowestTimeConstant } from '../../src/design/slowestTimeConstant.js';
+import { loadProject, parseProject } from '../../src/project/index.js';
+import { seriesValues } from '../../src/units/index.js';
+import { bruteForce, designKey } from './bruteForce.js';
+
+/** An invented project with a search section; `o` overrides pieces of the YAML. */
+function project(o: Record<string, string>) {
+  const yaml = `
+pwm: { frequency: ${o.f ?? '20 kHz'}, bits: ${o.bits ?? 10}, high: 3.3 V, low: 0 V, driver: ${o.driver ?? '0 ohm'}, duty: { min: ${o.dmin ?? '5 %'}, max: ${o.dmax ?? '95 %'} } }
+${o.load ? `load: ${o.load}` : ''}
+spec:
+  ripple: ${o.ripple ?? '0.5 LSB'}
+${o.droop ? `  droop: ${o.droop}` : ''}
+${o.settling ? `  settling: ${o.settling}` : ''}
+search:
+  stages: ${o.stages ?? '[1, 2]'}
+  series: ${o.series ?? 'E3'}
+  resistance: { min: ${o.rmin ?? '1k'}, max: ${o.rmax ?? '10k'} }
+  capacitance: { min: ${o.cmin ?? '10n'}, max: ${o.cmax ?? '1u'} }
+${o.pin ? `  pin_current: ${o.pin}` : ''}
+`;
+  return parseProject(yaml, 'invented.yaml');
+}
+
+describe('designSearch finds the exhaustive optimum (brute force with the engine in the test)', () => {
+  it('one stage, E12 over four decades of R and C, unequal drivers and a load', () => {
+    const p = project({
+      stages: '[1]',
+      series: 'E12',
+      rmin: '100',
+      rmax: '100k',
+      cmin: '1n',
+      cmax: '10u',
+      driver: '{ high: 40 ohm, low: 25 ohm }',
+      load: '{ resistance: 470k, capacitance: 100p }',
+      droop: '2 %',
+    });
+    const found = designSearch(p, { top: 5, compare: false });
+    const brute = bruteForce(p, 5);
+    expect(brute.count).toBe(seriesValues('E12', 100, 100e3).length * seriesValues('E12', 1e-9, 10e-6).length);
+    expect(brute.ranked.length).toBe(5);
+    expect(found.candidates.map(designKey)).toEqual(brute.ranked.map(designKey));
+    expect(found.candidates.map((c) => c.settlingTime)).toEqual(brute.ranked.map((c) => c.settlingTime));
+  });
+
+  const twoStage: Array<[string, Record<string, string>]> = [
+    ['ideal driver, open output', {}],
+    ['unequal drivers, loaded', { driver: '{ high: 40 ohm, low: 25 ohm }', load: '{ resistance: 100k, capacitance: 100p }' }],
+    [
+      'step from the spec, time limit, pin current limit, low-side driver weaker',
+      { f: '10 kHz', driver: '{ high: 20 ohm, low: 60 ohm }', ripple: '2 mV', rmin: '220', rmax: '22k', cmin: '22n', cmax: '2.2u', settling: '{ band: 1 LSB, time: 20 ms, from: 20 %, to: 60 % }', pin: '5 mA' },
+    ],
+    ['droop limit with a heavy load', { f: '50 kHz', driver: '30 ohm', ripple: '1 LSB', droop: '4 LSB', series: 'E6', rmax: '4.7k', cmax: '220n', load: '{ resistance: 1M }', stages: '[2]' }],
+  ];
+  for (const [name, o] of twoStage) {
+    it(`one and two stages: ${name}`, () => {
+      const p = project(o);
+      const found = designSearch(p, { top: 5, compare: false });
+      const brute = bruteForce(p, 5);
+      expect(brute.ranked.length).toBeGreaterThan(0);
+      expect(found.candidates.map(designKey)).toEqual(brute.ranked.map(designKey));
+      expect(found.stats.verified).toBeLessThan(brute.count / 10);
+    });
+  }
+});
+
+describe('three stages', () => {
+  it('finds the exhaustive optimum of a small two- and three-stage space', () => {
+    const p = project({ stages: '[2, 3]', ripple: '0.1 LSB', rmin: '2.2k', cmin: '47n', driver: '{ high: 40 ohm, low: 25 ohm }', load: '{ resistance: 1M }' });
+    const found = designSearch(p, { top: 3, compare: false });
+    const brute = bruteForce(p, 3);
+    expect(found.candidates.map(designKey)).toEqual(brute.ranked.map(designKey));
+    expect(found.candidates[0].stages).toHaveLength(3);
+  });
+});
+
+describe('what the search reports', () => {
+  it('ranks by settling time, then fewer stages, then smaller total capacitance', () => {
+    const p = project({ series: 'E6', stages: '[1, 2]' });
+    const { candidates } = designSearch(p, { top: 10, compare: false });
+    expect(candidates.length).toBe(10);
+    for (let i = 1; i < candidates.length; i++) {
+      const a = candidates[i - 1];
+      const b = candidates[i];
+      expect(a.settlingTime!).toBeLessThanOrEqual(b.settlingTime! * (1 + 1e-9));
+      if (Math.abs(a.settlingTime! - b.settlingTime!) <= 1e-9 * b.settlingTime!) {
+        expect(a.stages.length * 1e3 + a.totalCapacitance).toBeLessThanOrEqual(b.stages.length * 1e3 + b.totalCapacitance);
+      }
+    }
+    expect(candidates.every((c) => c.pass)).toBe(true);
+  });
+
+  it('counts evaluated candidates and stays far below the raw space', () => {
+    const r = designSearch(project({ series: 'E12', rmin: '100', rmax: '1M', cmin: '100p', cmax: '100u', stages: '[2]' }), { top: 3, compare: false });
+    expect(r.stats.space).toBe((seriesValues('E12', 100, 1e6).length * seriesValues('E12', 100e-12, 100e-6).length) ** 2);
+    expect(r.stats.evaluated).toBeGreaterThan(0);
+    expect(r.stats.evaluated).toBeLessThan(r.stats.space / 100);
+    expect(r.stats.verified).toBeGreaterThanOrEqual(3);
+  });
+
+  it('compares with the filter: design of the project', () => {
+    const r = designSearch(loadProject('sample-configs/design-tight-ripple.yaml'), { top: 1 });
+    expect(r.current?.stages).toEqual([
+      { r: 10e3, c: 1e-6 },
+      { r: 10e3, c: 1e-6 },
+    ]);
+    expect(r.current!.settlingTime!).toBeGreaterThan(r.candidates[0].settlingTime!);
+  });
+});
+
+describe('when nothing is feasible', () => {
+  it('names a settling-time limit that binds and shows the closest designs with their misses', () => {
+    const p = project({ ripple: '0.1 LSB', settling: '{ band: 0.5 LSB, time: 2 ms }', stages: '[1, 2]' });
+    const r = designSearch(p, { top: 5 });
+    expect(r.feasible).toBe(false);
+    expect(r.diagnosis.some((l) => l.startsWith('settling binds'))).toBe(true);
+    expect(r.candidates.length).toBeGreaterThan(0);
+    for (const c of r.candidates) {
+      expect(c.pass).toBe(false);
+      expect(c.checks.some((k) => !k.pass)).toBe(true);
+    }
+  });
+
+  it('says how much time constant one stage needs for the ripple and what the parts allow', () => {
+    // 0.05 LSB at 20 kHz with at most 10 kohm and 100 nF: tau = 1 ms available
+    const p = project({ ripple: '0.05 LSB', stages: '[1]', cmax: '100n' });
+    const r = designSearch(p, { top: 3 });
+    expect(r.feasible).toBe(false);
+    const line = r.diagnosis.find((l) => l.includes('needs a time constant of about'));
+    expect(line).toBeDefined();
+    // Textbook estimate for tau >> T: ripple = (high - low) d (1 - d) T / tau at d = 0.5 (common practice)
+    const lsb = 3.3 / 1024;
+    const tauEstimate = (3.3 * 0.25 * (1 / 20e3)) / (0.05 * lsb);
+    const said = Number(/about ([\d.]+) (m?)s/.exec(line!)![1]) * (/about [\d.]+ ms/.test(line!) ? 1e-3 : 1);
+    expect(Math.abs(said / tauEstimate - 1)).toBeLessThan(0.02);
+    expect(line).toContain('give 1 ms');
+  });
+
+  it('names the pin current limit when no allowed R1 can meet it', () => {
+    const p = project({ pin: '100 uA' }); // needs R1 >= 33 kohm, range ends at 10 kohm
+    const r = designSearch(p, { top: 3 });
+    expect(r.feasible).toBe(false);
+    expect(r.diagnosis.some((l) => l.startsWith('pin current binds'))).toBe(true);
+    expect(r.diagnosis.some((l) => /needs R1 >= 33 kΩ/.test(l))).toBe(true);
+  });
+});
+
+describe('search over the resolution', () => {
+  const yaml = `
+pwm: { clock: 16 MHz, bits: 10, prescaler: 1, alignment: edge, high: 3.3 V, low: 0 V, driver: 25 ohm, duty: { min: 5 %, max: 95 % } }
+load: { resistance: 1M }
+spec:
+  ripple: 0.5 LSB
+  droop: 10 mV
+  settling: { band: 0.5 LSB }
+search:
+  stages: [2]
+  series: E6
+  resistance: { min: 1k, max: 100k }
+  capacitance: { min: 1n, max: 1u }
+  bits: { min: 8, max: 11 }
+`;
+  it('rescales LSB limits with each resolution and keeps limits in volts', () => {
+    const p = parseProject(yaml, 'bits.yaml');
+    const r = designSearch(p, { top: 3, compare: false });
+    expect(r.resolutions.map((x) => x.bits)).toEqual([8, 9, 10, 11]);
+    for (const row of r.resolutions) {
+      // timer frequency, edge-aligned: clock / (prescaler 2^bits) (common practice)
+      expect(row.frequency).toBeCloseTo(16e6 / 2 ** row.bits, 6);
+      expect(row.lsb).toBeCloseTo(3.3 / 2 ** row.bits, 15);
+      expect(row.best).not.toBeNull();
+      const checks = Object.fromEntries(row.best!.checks.map((k) => [k.name, k.limit]));
+      expect(checks.ripple).toBeCloseTo(0.5 * row.lsb, 15);
+      expect(checks.droop).toBe(0.01);
+      expect(row.best!.worstRipple).toBeLessThanOrEqual(0.5 * row.lsb);
+    }
+    // the ranking is by settling time, across resolutions
+    expect(r.candidates[0].settlingTime).toBe(Math.min(...r.resolutions.map((x) => x.best!.settlingTime!)));
+  });
+
+  it("each row is the best design of that resolution's own search", () => {
+    const p = parseProject(yaml, 'bits.yaml');
+    const r = designSearch(p, { top: 1, compare: false });
+    const fixed = parseProject(yaml.replace('bits: { min: 8, max: 11 }', '').replace('bits: 10,', 'bits: 9,'), 'nine.yaml');
+    const nine = designSearch(fixed, { top: 1, compare: false });
+    expect(designKey(r.resolutions.find((x) => x.bits === 9)!.best!)).toBe(designKey(nine.candidates[0]));
+  });
+});
+
+describe('sample-configs/design-tight-ripple.yaml', () => {
+  const p = loadProject('sample-configs/design-tight-ripple.yaml');
+  const one = designSearch(p, { top: 1, stageCounts: [1], compare: false });
+  const two = designSearch(p, { top: 1, stageCounts: [2], compare: false });
+
+  it('a two-stage design settles measurably faster than the best one-stage design', () => {
+    expect(one.feasible && two.feasible).toBe(true);
+    expect(two.candidates[0].settlingTime! * 10).toBeLessThan(one.candidates[0].settlingTime!);
+  });
+
+  it('the one-stage optimum settles about tau ln(S / band) (textbook first-order step, common practice)', () => {
+    const best = one.candidates[0];
+    const { pwm, load } = p;
+    const tau = slowestTimeConstant([best.stages[0].r], [best.stages[0].c], (pwm.driver.high + pwm.driver.low) / 2, load.resistance ?? null, load.capacitance);
+    const m = fastLadder({ period: 1 / pwm.frequency, high: pwm.high, low: pwm.low, driverHigh: pwm.driver.high, driverLow: pwm.driver.low, stages: [{ ...best.stages[0], buffered: false }], loadResistance: load.resistance ?? null, loadCapacitance: load.capacitance });
+    const step = fastSteadyState(m, pwm.duty.max).average - fastSteadyState(m, pwm.duty.min).average;
+    const estimate = tau * Math.log(step / p.spec.settling!.band);
+    expect(Math.abs(best.settlingTime! / estimate - 1)).toBeLessThan(0.1);
+  });
+});

@@ -1,0 +1,90 @@
+import { describe, expect, it } from 'vitest';
+import { designSearch } from '../../src/design/designSearch.js';
+import { tradeoffCurves } from '../../src/design/tradeoffCurves.js';
+import { parseProject } from '../../src/project/index.js';
+import { designReport } from '../../src/report/design.js';
+import { withDesign } from '../../src/report/designYaml.js';
+import { formatIec60062 } from '../../src/units/index.js';
+
+const yaml = `# invented scenario: a small design problem
+pwm: { frequency: 20 kHz, bits: 10, high: 3.3 V, low: 0 V, driver: 30 ohm, duty: { min: 5 %, max: 95 % } }
+load: { resistance: 220k }
+filter:
+  stages:
+    - { r: 10k, c: 1u }   # the schematic's first guess
+spec:
+  ripple: 0.5 LSB
+  droop: 2 %
+search:
+  stages: [1, 2]
+  series: E6
+  resistance: { min: 1k, max: 10k }
+  capacitance: { min: 10n, max: 1u }
+`;
+const project = parseProject(yaml, 'invented.yaml');
+const result = designSearch(project, { top: 3 });
+
+describe('designReport', () => {
+  it('JSON holds the contract of model.md: candidates best first with stages, worstRipple, settlingTime, droop, pass; evaluated', () => {
+    const body = JSON.parse(designReport(project, result, 'json'));
+    expect(body.candidates).toHaveLength(3);
+    for (const c of body.candidates) {
+      expect(Object.keys(c)).toEqual(expect.arrayContaining(['stages', 'worstRipple', 'settlingTime', 'droop', 'pass']));
+      expect(c.stages.every((s: { r: unknown; c: unknown }) => typeof s.r === 'number' && typeof s.c === 'number')).toBe(true);
+    }
+    expect(body.candidates[0].settlingTime).toBeLessThanOrEqual(body.candidates[1].settlingTime);
+    expect(body.evaluated).toBe(result.stats.evaluated);
+    expect(body.pass).toBe(true);
+    expect(body.current.stages).toEqual([{ r: 10e3, c: 1e-6 }]);
+  });
+
+  it('text and Markdown show the values, IEC 60062 codes, margins and the comparison', () => {
+    const best = result.candidates[0];
+    const text = designReport(project, result, 'text');
+    const md = designReport(project, result, 'markdown');
+    for (const out of [text, md]) {
+      expect(out).toContain('Recommended designs');
+      expect(out).toContain('Compared with the filter: design');
+      expect(out).toMatch(/ripple \d+(\.\d+)?%/); // margin to the ripple limit
+    }
+    // IEC 60062 letter codes of design #1, e.g. 4k7-100n (codes from src/units, tested against IEC 60062)
+    const codes = best.stages.map((s) => `${formatIec60062(s.r, 'resistance')}-${formatIec60062(s.c, 'capacitance')}`).join(' + ');
+    expect(text).toContain(codes);
+    expect(md).toContain(codes);
+    expect(md).toMatch(/^\| # \| R1 \/ C1/m);
+  });
+
+  it('draws the trade-off chart with the spec marked, one column per stage count', () => {
+    const curves = tradeoffCurves(project, [1, 2], project.spec.ripple!, { points: 5 });
+    const text = designReport(project, result, 'text', { tradeoff: curves });
+    expect(text).toContain('Trade-off: settling time against allowed ripple');
+    expect(text).toContain('^ spec ripple limit 0.5 LSB');
+    expect(text).toMatch(/ripple limit\s+1 stage\s+2 stages/);
+    // a looser ripple limit never makes the best settling slower
+    for (const c of curves) {
+      const t = c.points.map((p) => p.settlingTime ?? Infinity);
+      for (let i = 1; i < t.length; i++) expect(t[i]).toBeLessThanOrEqual(t[i - 1] * (1 + 1e-12));
+    }
+  });
+});
+
+describe('withDesign', () => {
+  it('replaces filter.stages, keeps comments and everything else, and reads back to the same values', () => {
+    const best = result.candidates[0];
+    const text = withDesign(yaml, best, 'chosen by dacsmith design');
+    expect(text).toContain('# invented scenario: a small design problem');
+    expect(text).toContain('# chosen by dacsmith design');
+    expect(text).not.toContain("the schematic's first guess");
+    const again = parseProject(text, 'again.yaml');
+    expect(again.filter.stages.map((s) => ({ r: s.r, c: s.c }))).toEqual(best.stages);
+    expect(again.spec).toEqual(project.spec);
+    expect(again.search).toEqual(project.search);
+  });
+
+  it('sets pwm.bits (and a stated frequency) for a design at another resolution', () => {
+    const src = 'pwm:\n  clock: 16 MHz\n  bits: 10\n  high: 3.3 V\n  low: 0 V\n  driver: 25 ohm\nfilter:\n  stages: []\n';
+    const out = withDesign(src, { stages: [{ r: 4.7e3, c: 100e-9 }], bits: 8, frequency: 62500 });
+    expect(out).toMatch(/bits: 8/);
+    expect(out).toMatch(/- \{ r: 4k7, c: 100n \}/);
+  });
+});

@@ -1,0 +1,67 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import type { Ladder } from '../../src/circuit/ladder.js';
+import { ladderMetrics } from '../../src/tolerance/ladderMetrics.js';
+import type { MetricPlan } from '../../src/tolerance/metricPlan.js';
+import { metricPlan } from '../../src/tolerance/metricPlan.js';
+import { ladder, stage } from './reference.js';
+import { project } from './projectFixture.js';
+
+/**
+ * The modal fast path against the engine's matrix-exponential path (engineOnly), on random
+ * follower-free ladders: two independent exact methods for the same figures must agree. (The
+ * engine is checked against textbook formulas and ODEX in test/engine.)
+ */
+const planFor = (l: Ladder, inl: boolean, from?: number, to?: number): MetricPlan => {
+  const p = project(l.stages, { driver: { high: { min: 0, max: 80 }, low: { min: 0, max: 80 } } }, {
+    pwm: { frequency: 1 / l.period, prescaler: 1, alignment: 'edge', high: l.high, low: l.low, driver: { high: l.driverHigh, low: l.driverLow }, duty: { min: 0.05, max: 0.95 } },
+    spec: { ...(inl ? { inl: 1e-3 } : {}), settling: { band: 2e-3, ...(from !== undefined ? { from, to } : {}) } },
+  });
+  return metricPlan(p, l);
+};
+
+describe('ladderMetrics: modal fast path against the engine', () => {
+  it('random follower-free ladders of 1 to 3 stages', () => {
+    const arbStage = fc.record({
+      r: fc.double({ min: Math.log(220), max: Math.log(100e3), noNaN: true }).map(Math.exp),
+      c: fc.double({ min: Math.log(1e-9), max: Math.log(2e-6), noNaN: true }).map(Math.exp),
+    });
+    fc.assert(
+      fc.property(
+        fc.array(arbStage, { minLength: 1, maxLength: 3 }),
+        fc.double({ min: 0, max: 80, noNaN: true }),
+        fc.double({ min: 0, max: 80, noNaN: true }),
+        fc.option(fc.double({ min: Math.log(1e3), max: Math.log(1e6), noNaN: true }).map(Math.exp), { nil: null }),
+        fc.boolean(),
+        (stages, dh, dl, load, inl) => {
+          const l = ladder(
+            stages.map((s) => stage(s.r, s.c)),
+            { driverHigh: dh, driverLow: dl, loadResistance: load },
+          );
+          // keep the time constants within 1 to 2000 periods so the engine's run stays short
+          const tau = stages.reduce((a, s) => a + s.r * s.c, 0);
+          fc.pre(tau > l.period && tau < 2000 * l.period);
+          const plan = planFor(l, inl);
+          const fast = ladderMetrics(l, plan);
+          const ref = ladderMetrics(l, plan, { engineOnly: true });
+          const fs = l.high - l.low;
+          expect(fast.usedEngine).toBe(false);
+          expect(Math.abs(fast.worstRipple.ripple - ref.worstRipple.ripple)).toBeLessThan(1e-9 * ref.worstRipple.ripple + 1e-15 * fs);
+          expect(Math.abs(fast.droop.error - ref.droop.error)).toBeLessThan(1e-9 * Math.abs(ref.droop.error) + 1e-13 * fs);
+          if (inl) expect(Math.abs(fast.inl!.error - ref.inl!.error)).toBeLessThan(1e-9 * Math.abs(ref.inl!.error) + 1e-13 * fs);
+          if (ref.settlingTime === null) expect(fast.settlingTime).toBeNull();
+          else expect(Math.abs(fast.settlingTime! - ref.settlingTime)).toBeLessThan(1e-6 * l.period + 1e-9 * ref.settlingTime);
+        },
+      ),
+      { numRuns: 40, seed: 20261201 },
+    );
+  });
+
+  it('a follower inside the ladder goes to the engine', () => {
+    const l = ladder([stage(4.7e3, 220e-9, true), stage(470, 1e-6)], { driverHigh: 60, driverLow: 30, loadResistance: 47e3 });
+    const plan = planFor(l, false, 0.1, 0.9);
+    const m = ladderMetrics(l, plan);
+    expect(m.usedEngine).toBe(true);
+    expect(m).toEqual(ladderMetrics(l, plan, { engineOnly: true }));
+  });
+});
