@@ -30,11 +30,11 @@ export const freshLadder = (l: Ladder): Ladder => ({ ...l, stages: l.stages.map(
 /** Ripple cases for the ODE comparison: slowest time constant a few tens of periods. */
 export const odeCases: Array<{ name: string; ladder: Ladder; duty: number }> = [
   // 10 kohm, 150 nF: tau = 1.5 ms = 30 periods of 50 us.
-  { name: '1 stage, tau 30 T', ladder: demoLadder([stage(10e3, 150e-9)]), duty: 0.3 },
-  // 3.3 kohm / 150 nF then 33 kohm / 15 nF, 25 ohm driver, 1 Mohm load.
+  { name: '1 stage', ladder: demoLadder([stage(10e3, 150e-9)]), duty: 0.3 },
+  // 3.3 kohm / 330 nF then 33 kohm / 33 nF, 25 ohm driver, 1 Mohm load: slowest tau about 29 periods.
   {
-    name: '2 stages, tau 26 T',
-    ladder: demoLadder([stage(3.3e3, 150e-9), stage(33e3, 15e-9)], { driverHigh: 25, driverLow: 25, loadResistance: 1e6 }),
+    name: '2 stages',
+    ladder: demoLadder([stage(3.3e3, 330e-9), stage(33e3, 33e-9)], { driverHigh: 25, driverLow: 25, loadResistance: 1e6 }),
     duty: 0.3,
   },
 ];

@@ -17,7 +17,6 @@ import { engineVersusOde } from './bench-ode-race.js';
 import { processStart } from './bench-process.js';
 import { settlingCost } from './bench-settling.js';
 import { benchTable, formatNumber, type BenchReport, type BenchSection, type BenchTarget } from './bench-table.js';
-// @ts-expect-error -- plain JavaScript build script without type declarations
 import { buildCli } from './build.mjs';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');

@@ -1,4 +1,5 @@
-// Bundle the command line into dist/cli.js (plus its external source map) with esbuild; nothing else.
+// Bundle the command line into dist/cli.js (and the tolerance worker into dist/tolerance-worker.js),
+// with external source maps, using esbuild.
 // Output is written next to the target and renamed into place, so a concurrent reader never sees
 // half a file. Usage: node scripts/build.mjs
 //
@@ -7,12 +8,12 @@
 // terminal widths of plain ASCII text skip string-width, and the bundle is minified.
 import { build } from 'esbuild';
 import { createRequire } from 'node:module';
-import { mkdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
-const outfile = join(root, 'dist', 'cli.js');
+const dist = join(root, 'dist');
 const require = createRequire(import.meta.url);
 
 /**
@@ -60,7 +61,7 @@ export async function standaloneProjectValidator() {
     logLevel: 'warning',
   });
   // Beside the package so that the external imports (ajv) resolve from node_modules.
-  const temp = join(root, 'dist', `.projectValidator.${process.pid}.mjs`);
+  const temp = join(dist, `.projectValidator.${process.pid}.mjs`);
   mkdirSync(dirname(temp), { recursive: true });
   writeFileSync(temp, setup.outputFiles[0].contents);
   try {
@@ -110,7 +111,7 @@ function projectValidatorAtBuildTime(source) {
  * goes to the hoisted string-width, required on first use (esbuild evaluates a required ES module
  * lazily). Same API: default export `stringWidth(text, options)`.
  */
-function lazyStringWidth() {
+export function lazyStringWidth() {
   const hoisted = require.resolve('string-width', { paths: [root] });
   return {
     name: 'lazy-string-width',
@@ -134,17 +135,21 @@ function lazyStringWidth() {
 }
 
 /**
- * Bundle src/cli/main.ts into dist/cli.js (ESM, Node 20, minified, external source map).
+ * Bundle the command line: src/cli/main.ts into cli.js and, when the tolerance module has its
+ * worker (src/tolerance/worker.ts), that into tolerance-worker.js beside it, where
+ * monteCarloParallel looks for it. ESM for Node 20, minified, external source maps. `minify: false`
+ * keeps names readable for profiling (node --cpu-prof); `outdir` builds elsewhere (default dist/).
  *
- * `minify: false` keeps names readable for profiling (node --cpu-prof).
- *
- * Syntax: await buildCli([{ outfile, minify }])
- * Example: await buildCli({ outfile: '/tmp/cli.js', minify: false })   // { outfile: '/tmp/cli.js', bytes: 1210000 }
+ * Syntax: await buildCli([{ outdir, minify }])
+ * Example: await buildCli({ outdir: '/tmp/b', minify: false })   // [{ file: '/tmp/b/cli.js', bytes: 1150000 }, ...]
  */
-export async function buildCli({ outfile: target = outfile, minify = true } = {}) {
+export async function buildCli({ outdir = dist, minify = true } = {}) {
+  const entryPoints = { cli: join(root, 'src', 'cli', 'main.ts') };
+  const worker = join(root, 'src', 'tolerance', 'worker.ts');
+  if (existsSync(worker)) entryPoints['tolerance-worker'] = worker;
   const result = await build({
-    entryPoints: [join(root, 'src', 'cli', 'main.ts')],
-    outfile: target,
+    entryPoints,
+    outdir,
     bundle: true,
     platform: 'node',
     format: 'esm',
@@ -162,15 +167,15 @@ export async function buildCli({ outfile: target = outfile, minify = true } = {}
     },
   });
 
-  mkdirSync(dirname(target), { recursive: true });
-  let bytes = 0;
+  mkdirSync(outdir, { recursive: true });
+  const written = [];
   for (const file of result.outputFiles) {
     const temp = `${file.path}.${process.pid}.tmp`;
     writeFileSync(temp, file.contents);
     renameSync(temp, file.path);
-    if (file.path === target) bytes = file.contents.length;
+    if (file.path.endsWith('.js')) written.push({ file: file.path, bytes: file.contents.length });
   }
-  return { outfile: target, bytes };
+  return written;
 }
 
 if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {

@@ -203,7 +203,7 @@ export function collectCandidates(
     if (!state.dynamic) state.seen.add(key);
     state.entries.push(entry);
     if (state.dynamic && (state.best.length < state.top || lb < state.best[state.top - 1])) {
-      entry.worst = fastWorstRipple(model, problem.dutyMin, problem.dutyMax);
+      entry.worst = fastWorstRipple((d) => lite(rs, cs, d).ripple, problem.dutyMin, problem.dutyMax);
       if (exceeds(entry.worst, limits.ripple)) {
         entry.ruledOut = true;
         return;

@@ -1,8 +1,10 @@
 import { collectCandidates, keyOf, newCollectState, REL, type FastEntry } from './collectCandidates.js';
 import type { DesignProblem } from './designProblem.js';
 import { exactCandidate } from './exactCandidate.js';
-import { fastLadder } from './fast/fastLadder.js';
+import { fastLadderOf } from './fast/fastLadder.js';
+import { fastSteadyState } from './fast/fastSteadyState.js';
 import { fastWorstRipple } from './fast/fastWorstRipple.js';
+import { twoStageSteady } from './fast/twoStageSteady.js';
 import { rankCandidates, SETTLING_TIE } from './rankCandidates.js';
 import type { Candidate } from './types.js';
 
@@ -62,7 +64,7 @@ export function solveProblem(
       if (e.lb > tN * (1 + REL) + 1e-12) break;
       if (e.ruledOut || verified.has(e)) continue;
       if (problem.limits.ripple !== undefined) {
-        e.worst ??= fastWorstRipple(fastLadder(problem.ladderOf(e.r, e.c)), problem.dutyMin, problem.dutyMax);
+        e.worst ??= worstRippleOf(problem, e.r, e.c);
         if (e.worst > problem.limits.ripple * (1 + REL)) {
           e.ruledOut = true;
           continue;
@@ -88,4 +90,14 @@ export function solveProblem(
   let space = 0;
   for (const n of stageCounts) space += (problem.rValues.length * problem.cValues.length) ** n;
   return { feasible: ranked, failing, evaluated: state.evaluated, verified: verified.size, space };
+}
+
+/** The fast worst ripple (a lower bound) of a candidate: scalar code for two stages. */
+function worstRippleOf(problem: DesignProblem, r: number[], c: number[]): number {
+  if (r.length === 2) {
+    const k = problem.circuit;
+    return fastWorstRipple((d) => twoStageSteady(k, r[0], c[0], r[1], c[1], d).ripple, problem.dutyMin, problem.dutyMax);
+  }
+  const model = fastLadderOf(problem.circuit, r, c);
+  return fastWorstRipple((d) => fastSteadyState(model, d).ripple, problem.dutyMin, problem.dutyMax);
 }

@@ -206,33 +206,3 @@ export function luSolve(f: LuFactors, b: Vector): Vector {
   }
   return x;
 }
-
-/**
- * Solve a X = B for a square matrix B (all columns at once).
- *
- * Syntax: luSolveMatrix(factors, b)
- * Example: luSolveMatrix(luFactor(a, n), identity(n))  // the inverse of a
- */
-export function luSolveMatrix(f: LuFactors, b: Matrix): Matrix {
-  const { n, lu, piv } = f;
-  const x = zeros(n * n);
-  for (let i = 0; i < n; i++) {
-    const src = piv[i] * n;
-    for (let j = 0; j < n; j++) x[i * n + j] = b[src + j];
-    for (let k = 0; k < i; k++) {
-      const m = lu[i * n + k];
-      if (m === 0) continue;
-      for (let j = 0; j < n; j++) x[i * n + j] -= m * x[k * n + j];
-    }
-  }
-  for (let i = n - 1; i >= 0; i--) {
-    for (let k = i + 1; k < n; k++) {
-      const m = lu[i * n + k];
-      if (m === 0) continue;
-      for (let j = 0; j < n; j++) x[i * n + j] -= m * x[k * n + j];
-    }
-    const d = lu[i * n + i];
-    for (let j = 0; j < n; j++) x[i * n + j] /= d;
-  }
-  return x;
-}

@@ -1,4 +1,4 @@
-import { luFactor, luSolve, matmul, matvec, normInf, zeros, type Matrix, type Vector } from './dense.js';
+import { luFactor, luSolve, matmul, matvec, normInf, rowDot, zeros, type Matrix, type Vector } from './dense.js';
 import { doubleFlow, flow, type Flow } from './flow.js';
 import { PLAN_CACHE_SIZE, type Prepared } from './prepare.js';
 import type { PeriodExtrema } from './periodTrajectory.js';
@@ -50,8 +50,8 @@ export interface DutyPlan {
  *
  * Method: exact per-phase flows (flow.ts). With Delta = x_h - x_l, t1 = D T, t2 = (1 - D) T,
  * u = x_s - x_l solves (K_l + E_l K_h) u = E_l K_h Delta (I - E_l E_h written as K_l + E_l K_h so
- * nothing cancels when the time constants dwarf T), and Delta - u = (K_l + E_l K_h)^{-1} K_l Delta. The deviation from x_s is K_h(t)(Delta - u) in
- * the high phase; the average is y_s + c^T [J_h (Delta - u) + t2 w_a + J_l (-u - w_a)] / T with
+ * nothing cancels when the time constants dwarf T), and Delta - u = (K_l + E_l K_h)^{-1} K_l Delta
+ * with the same factors. The deviation from x_s is K_h(t)(Delta - u) in the high phase; the average is y_s + c^T [J_h (Delta - u) + t2 w_a + J_l (-u - w_a)] / T with
  * w_a = K_h(t1)(Delta - u). Whole-phase flows come from the cell flow by exact doubling, so the
  * grid used for extrema costs nothing extra.
  *
@@ -79,7 +79,7 @@ export function dutyPlan(p: Prepared, duty: number): DutyPlan {
   const wA = matvec(Kh, vHigh, n);
   const vLow = u.map((ui, i) => -ui - wA[i]);
   const integral =
-    rowOf(high.full.J as Matrix, out, vHigh, n) + t2 * wA[out] + rowOf(low.full.J as Matrix, out, vLow, n);
+    rowDot(high.full.J as Matrix, out, vHigh, n) + t2 * wA[out] + rowDot(low.full.J as Matrix, out, vLow, n);
   const meanOffset = integral / period;
   // x_s = x_l + u = x_h - (Delta - u): take the form whose correction is the smaller one.
   const fromHigh = duty > 0.5;
@@ -100,12 +100,6 @@ export function dutyPlan(p: Prepared, duty: number): DutyPlan {
   if (p.plans.size >= PLAN_CACHE_SIZE) p.plans.clear();
   p.plans.set(duty, plan);
   return plan;
-}
-
-function rowOf(m: Matrix, i: number, x: Vector, n: number): number {
-  let s = 0;
-  for (let k = 0; k < n; k++) s += m[i * n + k] * x[k];
-  return s;
 }
 
 /**

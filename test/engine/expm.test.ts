@@ -44,7 +44,7 @@ describe('expm (Higham 2005 scaling and squaring)', () => {
           return err <= 1e-9 * refNorm;
         },
       ),
-      { numRuns: 200 },
+      { numRuns: 100 },
     );
   });
 });

@@ -26,7 +26,7 @@ describe('engine properties over random valid ladders (fast-check)', () => {
         const after = steadyState(bigger, d).ripple;
         return after <= before * (1 + 1e-6) + 1e-15 * l.high;
       }),
-      { numRuns: 300 },
+      { numRuns: 150 },
     );
   });
 
@@ -45,7 +45,7 @@ describe('engine properties over random valid ladders (fast-check)', () => {
         const inside = (v: number) => v >= lowest - slack && v <= highest + slack;
         return inside(op.average) && inside(op.min) && inside(op.max);
       }),
-      { numRuns: 300 },
+      { numRuns: 150 },
     );
   });
 
@@ -77,7 +77,7 @@ describe('engine properties over random valid ladders (fast-check)', () => {
           taus.every((t) => Number.isFinite(t) && t > 0)
         );
       }),
-      { numRuns: 60 },
+      { numRuns: 40 },
     );
   });
 });

@@ -1,5 +1,3 @@
-import type { FastLadder } from './fastLadder.js';
-import { fastSteadyState } from './fastSteadyState.js';
 
 const GRID = 8;
 const INV_PHI = (Math.sqrt(5) - 1) / 2;
@@ -13,11 +11,10 @@ const INV_PHI = (Math.sqrt(5) - 1) / 2;
  * Press et al., Numerical Recipes, 3rd ed., section 10.2) on the two cells around the best grid
  * point, to 1e-7 in duty.
  *
- * Syntax: fastWorstRipple(model, dutyMin, dutyMax)
- * Example: fastWorstRipple(fastLadder(ladder), 0.05, 0.95)   // V, at least the ripple at any duty
+ * Syntax: fastWorstRipple(rippleAt, dutyMin, dutyMax)
+ * Example: fastWorstRipple((d) => fastSteadyState(model, d).ripple, 0.05, 0.95)   // V, at least the ripple at any duty
  */
-export function fastWorstRipple(model: FastLadder, dutyMin: number, dutyMax: number): number {
-  const ripple = (d: number) => fastSteadyState(model, d).ripple;
+export function fastWorstRipple(ripple: (duty: number) => number, dutyMin: number, dutyMax: number): number {
   if (!(dutyMax > dutyMin)) return ripple(dutyMin);
   const h = (dutyMax - dutyMin) / GRID;
   let bestI = 0;
