@@ -4,16 +4,18 @@ import { performance } from 'node:perf_hooks';
 export interface TimingOptions {
   /** Timed runs; the median is reported (default 7). */
   runs?: number;
-  /** Each run repeats the call until this much time has passed, s (default 0.05). */
+  /** Each run repeats the call until this much wall time has passed, s (default 0.05). */
   runSeconds?: number;
   /** Untimed calls first, so that the JIT has compiled the code (default: one run's worth). */
   warmup?: boolean;
 }
 
 export interface Timing {
-  /** Median over the runs of the time per call, s. */
+  /** Median over the runs of the CPU time per call (process user + system), s. */
   perCall: number;
-  /** Every run's time per call, s. */
+  /** Median over the runs of the wall time per call, s. */
+  wallPerCall: number;
+  /** Every run's CPU time per call, s. */
   runs: number[];
   /** Calls made in all timed runs. */
   calls: number;
@@ -25,7 +27,12 @@ export interface Timing {
  * `work` should build what it needs fresh (e.g. a new ladder object) so that caches keyed on
  * object identity cannot answer from an earlier call.
  *
- * Method: median of per-run means (robust against runs slowed down by other processes).
+ * The figure is CPU time (process.cpuUsage: user + system of the whole process): on a machine
+ * shared with other work, wall time also counts the time the process waits for a core, which
+ * says nothing about the code. On an idle machine the two agree for single-threaded work; the
+ * wall-time median is kept beside it.
+ *
+ * Method: median of per-run means (robust against runs disturbed by other processes or GC).
  *
  * Syntax: timePerCall(work[, { runs, runSeconds, warmup }])
  * Example: timePerCall(() => steadyState(freshLadder(), 0.5)).perCall   // 2.1e-5 (s)
@@ -34,28 +41,32 @@ export function timePerCall(work: () => unknown, options: TimingOptions = {}): T
   const runs = options.runs ?? 7;
   const runSeconds = options.runSeconds ?? 0.05;
   if (options.warmup ?? true) oneRun(work, runSeconds);
-  const perRun: number[] = [];
+  const cpu: number[] = [];
+  const wall: number[] = [];
   let calls = 0;
   for (let r = 0; r < runs; r++) {
     const run = oneRun(work, runSeconds);
-    perRun.push(run.seconds / run.calls);
+    cpu.push(run.cpu / run.calls);
+    wall.push(run.wall / run.calls);
     calls += run.calls;
   }
-  return { perCall: median(perRun), runs: perRun, calls };
+  return { perCall: median(cpu), wallPerCall: median(wall), runs: cpu, calls };
 }
 
-function oneRun(work: () => unknown, runSeconds: number): { seconds: number; calls: number } {
+function oneRun(work: () => unknown, runSeconds: number): { wall: number; cpu: number; calls: number } {
   let calls = 0;
   let sink: unknown;
+  const cpuStart = process.cpuUsage();
   const start = performance.now();
-  let elapsed = 0;
+  let wall = 0;
   do {
     sink = work();
     calls++;
-    elapsed = (performance.now() - start) / 1000;
-  } while (elapsed < runSeconds);
+    wall = (performance.now() - start) / 1000;
+  } while (wall < runSeconds);
+  const used = process.cpuUsage(cpuStart);
   keep(sink);
-  return { seconds: elapsed, calls };
+  return { wall, cpu: (used.user + used.system) / 1e6, calls };
 }
 
 let kept: unknown;
@@ -66,15 +77,19 @@ function keep(value: unknown): void {
 export const lastKept = (): unknown => kept;
 
 /**
- * Wall time of one call, s, with the call's result.
+ * Wall time and CPU time (process user + system, all threads of this process) of one call, s,
+ * with the call's result. Work in worker threads counts in `cpu`, so `cpu` may exceed `wall`.
  *
- * Syntax: timeOnce(work)
- * Example: timeOnce(() => designSearch(p)).seconds   // 0.42
+ * Syntax: await timeOnce(work)
+ * Example: (await timeOnce(() => designSearch(p))).wall   // 0.42
  */
-export function timeOnce<T>(work: () => T): { seconds: number; value: T } {
+export async function timeOnce<T>(work: () => T | Promise<T>): Promise<{ wall: number; cpu: number; value: T }> {
+  const cpuStart = process.cpuUsage();
   const start = performance.now();
-  const value = work();
-  return { seconds: (performance.now() - start) / 1000, value };
+  const value = await work();
+  const wall = (performance.now() - start) / 1000;
+  const used = process.cpuUsage(cpuStart);
+  return { wall, cpu: (used.user + used.system) / 1e6, value };
 }
 
 /** Median of a non-empty list (mean of the middle two for an even count). */

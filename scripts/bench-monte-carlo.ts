@@ -12,6 +12,7 @@ interface RunOptions {
   samples?: number;
   seed?: number;
   workers?: number;
+  workerUrl?: URL;
 }
 /** The parts of src/tolerance the bench calls (imported by name at run time: the module may be absent). */
 interface ToleranceModule {
@@ -22,11 +23,15 @@ interface ToleranceModule {
 export interface MonteCarloRate {
   name: string;
   file: string;
-  /** In the calling thread: samples per second (median of 3 runs of RATE_SAMPLES). */
+  /** In the calling thread: samples per CPU second (median of 3 runs of RATE_SAMPLES). */
   rate: number;
-  /** 100 000 samples with monteCarloParallel on every core (null when it is not exported), s. */
+  /** The same per wall-clock second. */
+  wallRate: number;
+  /** 100 000 samples with monteCarloParallel on every core (null when it is not exported), wall s. */
   hundredThousand: number | null;
   workers: number;
+  /** The worker script: the bundled dist/tolerance-worker.js, or null for the module's default. */
+  worker: string | null;
 }
 
 const RATE_SAMPLES = 10_000;
@@ -34,19 +39,21 @@ const MODULE = '../src/tolerance/index.js';
 
 /**
  * Monte Carlo throughput on the one-stage and the two-stage sample (their own tolerances, seed 1):
- * samples per second of monteCarlo in the calling thread, and the wall time of a 100 000-sample
- * run spread over all cores by monteCarloParallel. `null` data and a "skipped" note when
- * src/tolerance/index.ts is not there (or lacks monteCarlo).
+ * samples per CPU second of monteCarlo in the calling thread, and the wall time of a 100 000-sample
+ * run spread over all cores by monteCarloParallel, its workers running the bundled worker script
+ * (dist/tolerance-worker.js, as `dacsmith` does) when `bundledWorker` exists. `null` data and a
+ * "skipped" note when src/tolerance/index.ts is not there (or lacks monteCarlo).
  *
- * Syntax: await monteCarloRate()
- * Example: (await monteCarloRate()).data?.[0].rate   // 6e4 (samples/s)
+ * Syntax: await monteCarloRate([bundledWorker])
+ * Example: (await monteCarloRate(new URL('../dist/tolerance-worker.js', import.meta.url))).data?.[0].rate   // 6e4
  */
-export async function monteCarloRate(): Promise<{ data: MonteCarloRate[] | null; section: BenchSection }> {
+export async function monteCarloRate(bundledWorker?: URL): Promise<{ data: MonteCarloRate[] | null; section: BenchSection }> {
   const title = 'Monte Carlo tolerance analysis (exact figures per sample)';
-  const columns = ['case', 'project', 'samples/s (1 thread)', '100 000 samples (s)', 'workers'];
+  const columns = ['case', 'project', 'samples/CPU s (1 thread)', '100 000 samples, wall (s)', 'workers'];
   const tolerance = await loadTolerance();
   if (typeof tolerance === 'string') return { data: null, section: { title, columns, rows: [], notes: [`skipped: ${tolerance}`] } };
   const workers = availableParallelism();
+  const workerUrl = bundledWorker && existsSync(bundledWorker) ? bundledWorker : undefined;
   const cases = [
     { name: '1 stage', file: sampleProjects.oneStage },
     { name: '2 stages', file: sampleProjects.twoStage },
@@ -55,14 +62,17 @@ export async function monteCarloRate(): Promise<{ data: MonteCarloRate[] | null;
   for (const { name, file } of cases) {
     const project = loadProject(file);
     tolerance.monteCarlo(project, undefined, { samples: 1000, seed: 1 }); // warm-up
-    const seconds = median([0, 1, 2].map(() => timeOnce(() => tolerance.monteCarlo(project, undefined, { samples: RATE_SAMPLES, seed: 1 })).seconds));
+    const runs = [];
+    for (let i = 0; i < 3; i++) runs.push(await timeOnce(() => tolerance.monteCarlo(project, undefined, { samples: RATE_SAMPLES, seed: 1 })));
     let hundredThousand: number | null = null;
     if (tolerance.monteCarloParallel) {
       const start = performance.now();
-      await tolerance.monteCarloParallel(project, undefined, { samples: 100_000, seed: 1, workers });
+      await tolerance.monteCarloParallel(project, undefined, { samples: 100_000, seed: 1, workers, workerUrl });
       hundredThousand = (performance.now() - start) / 1000;
     }
-    data.push({ name, file, rate: RATE_SAMPLES / seconds, hundredThousand, workers });
+    const rate = RATE_SAMPLES / median(runs.map((r) => r.cpu));
+    const worker = workerUrl ? 'dist/tolerance-worker.js' : null;
+    data.push({ name, file, rate, wallRate: RATE_SAMPLES / median(runs.map((r) => r.wall)), hundredThousand, workers, worker });
   }
   return {
     data,
@@ -71,8 +81,9 @@ export async function monteCarloRate(): Promise<{ data: MonteCarloRate[] | null;
       columns,
       rows: data.map((d) => [d.name, d.file, d.rate, d.hundredThousand ?? 'n/a', d.workers]),
       notes: [
-        `samples/s: monteCarlo in the calling thread, ${RATE_SAMPLES} samples, median of 3 runs;`,
-        '100 000 samples: one monteCarloParallel run on every core (worker threads, including their start-up).',
+        `samples/CPU s: monteCarlo in the calling thread, ${RATE_SAMPLES} samples, median of 3 runs;`,
+        `100 000 samples: one monteCarloParallel run on every core (worker threads, including their start-up; ` +
+          `worker script ${workerUrl ? 'dist/tolerance-worker.js' : "the module's default"}).`,
       ],
     },
   };

@@ -15,10 +15,13 @@ export interface OdeRace {
   tauPeriods: number;
   /** Engine ripple, V. */
   ripple: number;
-  /** Median time of steadyState on a fresh ladder, s. */
+  /** Median CPU time of steadyState on a fresh ladder, s. */
   engine: number;
-  /** Median time of the ODE route at the loosest tolerance that matches, s; null when none matched. */
+  /** Median CPU time of the ODE route at the loosest tolerance that matches, s; null when none matched. */
   ode: number | null;
+  /** The same two as wall time, s. */
+  engineWall: number;
+  odeWall: number | null;
   /** ode / engine. */
   ratio: number | null;
   /** ODEX tolerance used (relative; absolute the same in V). */
@@ -35,15 +38,18 @@ export interface OdeRace {
  * matched accuracy: the ODE route gets the loosest tolerance of 1e-6, 1e-7, ..., 1e-13 whose ripple
  * agrees with the engine's to MATCHED_ACCURACY relative (its settle threshold a tenth of that),
  * so it is not slowed down by more accuracy than the comparison asks for. Each route's time is a
- * median (engine: 7 runs of many calls; ODE: 3 runs).
+ * median CPU time (engine: 7 runs of many calls; ODE: 3 runs); the ratio is of CPU times.
  *
- * Syntax: engineVersusOde()
- * Example: engineVersusOde().data[0].ratio   // 2.5e4
+ * Syntax: await engineVersusOde()
+ * Example: (await engineVersusOde()).data[0].ratio   // 2.5e4
  */
-export function engineVersusOde(): { data: OdeRace[]; section: BenchSection } {
-  const data = odeCases.map(({ name, ladder, duty }): OdeRace => {
+export async function engineVersusOde(): Promise<{ data: OdeRace[]; section: BenchSection }> {
+  const data: OdeRace[] = [];
+  for (const { name, ladder, duty } of odeCases) {
     const reference = steadyState(freshLadder(ladder), duty).ripple;
-    const engine = timePerCall(() => steadyState(freshLadder(ladder), duty), { runs: 7, runSeconds: 0.05 }).perCall;
+    const timing = timePerCall(() => steadyState(freshLadder(ladder), duty), { runs: 7, runSeconds: 0.05 });
+    const engine = timing.perCall;
+    const engineWall = timing.wallPerCall;
     const tauPeriods = timeConstants(freshLadder(ladder))[0] / ladder.period;
     const scale = Math.abs(ladder.high - ladder.low);
     let match: { tolerance: number; difference: number; periods: number; steps: number } | null = null;
@@ -54,12 +60,15 @@ export function engineVersusOde(): { data: OdeRace[]; section: BenchSection } {
       if (difference <= MATCHED_ACCURACY) match = { tolerance, difference, periods: run.periods, steps: run.steps };
     }
     if (!match) {
-      return { name, duty, tauPeriods, ripple: reference, engine, ode: null, ratio: null, tolerance: null, difference: null, periods: null, steps: null };
+      data.push({ name, duty, tauPeriods, ripple: reference, engine, engineWall, ode: null, odeWall: null, ratio: null, tolerance: null, difference: null, periods: null, steps: null });
+      continue;
     }
     const options = { relativeTolerance: match.tolerance, absoluteTolerance: match.tolerance * scale, settle: MATCHED_ACCURACY / 10 };
-    const ode = median([0, 1, 2].map(() => timeOnce(() => odeRipple(ladder, duty, options)).seconds));
-    return { name, duty, tauPeriods, ripple: reference, engine, ode, ratio: ode / engine, ...match };
-  });
+    const runs = [];
+    for (let i = 0; i < 3; i++) runs.push(await timeOnce(() => odeRipple(ladder, duty, options)));
+    const ode = median(runs.map((r) => r.cpu));
+    data.push({ name, duty, tauPeriods, ripple: reference, engine, engineWall, ode, odeWall: median(runs.map((r) => r.wall)), ratio: ode / engine, ...match });
+  }
   return {
     data,
     section: {
@@ -79,7 +88,7 @@ export function engineVersusOde(): { data: OdeRace[]; section: BenchSection } {
         d.difference ?? '-',
       ]),
       notes: [
-        'engine: steadyState on a fresh ladder object per call (no cached preparation);',
+        'CPU times; engine: steadyState on a fresh ladder object per call (no cached preparation);',
         'ODE: npm odex (GBS extrapolation), loosest tolerance of 1e-6..1e-13 that matches, stop when the',
         'estimated distance to the periodic state is below 1e-7 of the ripple; extrema from dense output.',
       ],

@@ -1,13 +1,14 @@
 /** Bench section: cost of settlingTime as the time constant grows from 10 to 1e7 periods. */
+import { performance } from 'node:perf_hooks';
 import { settlingTime, steadyState } from '../src/engine/index.js';
 import { freshLadder, ladderWithSlowestTau } from './bench-cases.js';
-import { timePerCall } from './bench-measure.js';
+import { median, timePerCall } from './bench-measure.js';
 import type { BenchSection } from './bench-table.js';
 
 export interface SettlingCostRow {
   /** Slowest time constant, PWM periods. */
   tauPeriods: number;
-  /** Median time of one settlingTime call, s, for one and two stages. */
+  /** Median CPU time of one settlingTime call, s, for one and two stages. */
   oneStage: number;
   twoStage: number;
   /** Settling time found, in periods (null: never settles), for one and two stages. */
@@ -19,6 +20,8 @@ export interface SettlingCost {
   rows: SettlingCostRow[];
   /** Least-squares slope of time against log10(tau), s per decade, one and two stages. */
   perDecade: { oneStage: number; twoStage: number };
+  /** perDecade / median time: the share by which the cost grows per decade of tau. */
+  relativePerDecade: { oneStage: number; twoStage: number };
   /** Largest / smallest time over the range, one and two stages. */
   spread: { oneStage: number; twoStage: number };
 }
@@ -32,21 +35,32 @@ const TO = 0.9;
  * constant of 10, 100, ..., 1e7 PWM periods, one and two stages; the cost per decade is the
  * least-squares slope against log10(tau). The band is 0.5 LSB of 10 bits, widened to twice the
  * ripple at 90 % where the ripple is larger (short time constants), so that every case settles and
- * the full search runs.
+ * the full search runs. All cases run for a second before the timing starts (JIT warm-up).
  *
  * Syntax: settlingCost()
  * Example: settlingCost().perDecade.twoStage   // 1e-6 (s per decade)
  */
 export function settlingCost(): { data: SettlingCost; section: BenchSection } {
   const taus = [1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7];
-  const measure = (stages: 1 | 2, tau: number) => {
+  const setup = (stages: 1 | 2, tau: number) => {
     const ladder = ladderWithSlowestTau(stages, tau);
     const lsb = (ladder.high - ladder.low) / 1024;
-    const band = Math.max(lsb / 2, 2 * steadyState(freshLadder(ladder), TO).ripple);
+    return { ladder, band: Math.max(lsb / 2, 2 * steadyState(freshLadder(ladder), TO).ripple) };
+  };
+  const warm = (stages: 1 | 2, tau: number) => {
+    const { ladder, band } = setup(stages, tau);
+    for (let i = 0; i < 10; i++) settlingTime(freshLadder(ladder), FROM, TO, band);
+  };
+  const measure = (stages: 1 | 2, tau: number) => {
+    const { ladder, band } = setup(stages, tau);
     const settled = settlingTime(freshLadder(ladder), FROM, TO, band).time;
-    const { perCall } = timePerCall(() => settlingTime(freshLadder(ladder), FROM, TO, band), { runs: 7, runSeconds: 0.04 });
+    const { perCall } = timePerCall(() => settlingTime(freshLadder(ladder), FROM, TO, band), { runs: 9, runSeconds: 0.03 });
     return { perCall, settled: settled === null ? null : settled / ladder.period };
   };
+  // Every case, round after round for a second, before any timing: the first cases must not pay
+  // for the JIT's warm-up.
+  const warmUntil = performance.now() + 1000;
+  while (performance.now() < warmUntil) for (const tau of taus) for (const stages of [1, 2] as const) warm(stages, tau);
   const rows = taus.map((tauPeriods): SettlingCostRow => {
     const one = measure(1, tauPeriods);
     const two = measure(2, tauPeriods);
@@ -54,22 +68,29 @@ export function settlingCost(): { data: SettlingCost; section: BenchSection } {
   });
   const x = taus.map(Math.log10);
   const perDecade = { oneStage: slope(x, rows.map((r) => r.oneStage)), twoStage: slope(x, rows.map((r) => r.twoStage)) };
+  const relativePerDecade = {
+    oneStage: perDecade.oneStage / median(rows.map((r) => r.oneStage)),
+    twoStage: perDecade.twoStage / median(rows.map((r) => r.twoStage)),
+  };
   const spreadOf = (ys: number[]) => Math.max(...ys) / Math.min(...ys);
   const spread = { oneStage: spreadOf(rows.map((r) => r.oneStage)), twoStage: spreadOf(rows.map((r) => r.twoStage)) };
   const periods = (p: number | null) => (p === null ? 'never' : p);
   return {
-    data: { rows, perDecade, spread },
+    data: { rows, perDecade, relativePerDecade, spread },
     section: {
       title: 'Settling-time cost against the time constant (settlingTime, 10 % -> 90 % duty)',
-      columns: ['tau/T', '1 stage (us)', 'settles after (T)', '2 stages (us)', 'settles after (T)'],
+      columns: ['tau/T', '1 stage, CPU (us)', 'settles after (T)', '2 stages, CPU (us)', 'settles after (T)'],
       rows: rows.map((r) => [r.tauPeriods, r.oneStage * 1e6, periods(r.settledOne), r.twoStage * 1e6, periods(r.settledTwo)]),
       notes: [
-        `cost per decade of tau (least-squares slope): 1 stage ${(perDecade.oneStage * 1e6).toFixed(2)} us, 2 stages ${(perDecade.twoStage * 1e6).toFixed(2)} us`,
+        `cost per decade of tau (least-squares slope): 1 stage ${(perDecade.oneStage * 1e6).toFixed(2)} us ` +
+          `(${percent(relativePerDecade.oneStage)} of the median), 2 stages ${(perDecade.twoStage * 1e6).toFixed(2)} us (${percent(relativePerDecade.twoStage)})`,
         `largest / smallest cost over 10..1e7 periods: 1 stage ${spread.oneStage.toFixed(2)}, 2 stages ${spread.twoStage.toFixed(2)}`,
       ],
     },
   };
 }
+
+const percent = (x: number) => `${(100 * x).toFixed(1)} %`;
 
 /** Least-squares slope of y against x. */
 function slope(x: number[], y: number[]): number {

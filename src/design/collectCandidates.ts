@@ -2,7 +2,7 @@ import type { DesignProblem } from './designProblem.js';
 import { fastLadderOf, type FastLadder } from './fast/fastLadder.js';
 import { fastSettlingBound } from './fast/fastSettlingBound.js';
 import { fastSteadyState, type FastSteady } from './fast/fastSteadyState.js';
-import { fastWorstRipple } from './fast/fastWorstRipple.js';
+import { maximizeOverDuty } from './fast/maximizeOverDuty.js';
 import { twoStageSteady, type TwoStageSteady } from './fast/twoStageSteady.js';
 import { tupleBounds, type TupleBounds } from './settlingBounds.js';
 import { slowestTimeConstant } from './slowestTimeConstant.js';
@@ -174,11 +174,14 @@ export function collectCandidates(
   const evaluate = (rs: number[], cs: number[], tb: TupleBounds): void => {
     const key = state.dynamic ? '' : keyOf(rs, cs);
     if (!state.dynamic && state.seen.has(key)) return;
+    // Unequal drivers: droop depends on the capacitors and may peak inside the range; its maximum
+    // over the duty (a lower bound: a value at some duty) rules a candidate out before settling.
+    let droop = 0;
     if (!lti && limits.droop !== undefined) {
-      for (const d of [problem.dutyMin, problem.dutyMax]) {
-        const ideal = pwm.low + d * (pwm.high - pwm.low);
-        if (exceeds(Math.abs(ideal - lite(rs, cs, d).average), limits.droop)) return;
-      }
+      const error = (d: number) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - lite(rs, cs, d).average);
+      if (exceeds(Math.max(error(problem.dutyMin), error(problem.dutyMax)), limits.droop)) return;
+      droop = maximizeOverDuty(error, problem.dutyMin, problem.dutyMax);
+      if (exceeds(droop, limits.droop)) return;
     }
     // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
     const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);
@@ -203,7 +206,8 @@ export function collectCandidates(
     if (!state.dynamic) state.seen.add(key);
     state.entries.push(entry);
     if (state.dynamic && (state.best.length < state.top || lb < state.best[state.top - 1])) {
-      entry.worst = fastWorstRipple((d) => lite(rs, cs, d).ripple, problem.dutyMin, problem.dutyMax);
+      // Before this candidate may lower theta: its worst ripple and (unequal drivers) worst droop.
+      entry.worst = maximizeOverDuty((d) => lite(rs, cs, d).ripple, problem.dutyMin, problem.dutyMax);
       if (exceeds(entry.worst, limits.ripple)) {
         entry.ruledOut = true;
         return;

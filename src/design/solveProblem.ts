@@ -3,7 +3,7 @@ import type { DesignProblem } from './designProblem.js';
 import { exactCandidate } from './exactCandidate.js';
 import { fastLadderOf } from './fast/fastLadder.js';
 import { fastSteadyState } from './fast/fastSteadyState.js';
-import { fastWorstRipple } from './fast/fastWorstRipple.js';
+import { maximizeOverDuty } from './fast/maximizeOverDuty.js';
 import { twoStageSteady } from './fast/twoStageSteady.js';
 import { rankCandidates, SETTLING_TIE } from './rankCandidates.js';
 import type { Candidate } from './types.js';
@@ -20,8 +20,8 @@ export interface ProblemOutcome {
   space: number;
 }
 
-/** Collection rounds before giving up on lowering work (each round widens theta to the truth). */
-const MAX_ROUNDS = 4;
+/** Growth of theta per extra collection round when the walk's threshold proved too low. */
+const WIDEN = 2;
 
 /**
  * The `top` best feasible designs of one design problem, each evaluated by the exact engine, and
@@ -33,7 +33,9 @@ const MAX_ROUNDS = 4;
  * then evaluates them in ascending order of the bound until the bound exceeds the top-th best
  * exact settling time t_N (a candidate below the bound cannot beat t_N). If t_N came out above the
  * theta the walk used (fast estimates too optimistic, e.g. a design that fails INL, which only the
- * engine checks), the walk runs again with theta = t_N, so no pruning rested on a wrong threshold.
+ * engine checks), the walk runs again with a wider theta (t_N, or twice the old theta while fewer
+ * than `top` designs are known, up to the settling-time limit), until t_N <= theta: no pruning
+ * rests on a wrong threshold.
  *
  * Syntax: solveProblem(problem, top[, stageCounts][, onProgress])
  * Example: solveProblem(designProblem(p), 10).feasible[0].settlingTime   // s
@@ -45,6 +47,7 @@ export function solveProblem(
   onProgress?: (fraction: number) => void,
 ): ProblemOutcome {
   const state = newCollectState(problem, top);
+  const cap = state.theta; // the settling-time limit (or Infinity) before any lowering
   const collectAll = () => {
     stageCounts.forEach((n, i) =>
       collectCandidates(problem, n, state, (done, total) => onProgress?.((i + done / Math.max(1, total)) / stageCounts.length)),
@@ -55,9 +58,8 @@ export function solveProblem(
   const verified = new Map<FastEntry, Candidate>();
   const feasible: Candidate[] = [];
   const failing: Candidate[] = [];
-  const cap = state.theta; // the settling-time limit (or Infinity) before any lowering
   let ranked: Candidate[] = [];
-  for (let round = 0; round < MAX_ROUNDS; round++) {
+  for (;;) {
     const entries = [...state.entries].sort((a, b) => a.lb - b.lb || a.r.length - b.r.length || a.totalC - b.totalC);
     let tN = ranked.length === top ? (ranked[top - 1].settlingTime ?? Infinity) : Infinity;
     for (const e of entries) {
@@ -70,6 +72,10 @@ export function solveProblem(
           continue;
         }
       }
+      if (droopExceeds(problem, e.r, e.c)) {
+        e.ruledOut = true;
+        continue;
+      }
       const candidate = exactCandidate(problem, problem.ladderOf(e.r, e.c));
       verified.set(e, candidate);
       (candidate.pass ? feasible : failing).push(candidate);
@@ -80,8 +86,8 @@ export function solveProblem(
     }
     const thetaUsed = state.theta;
     if (tN * (1 + 10 * SETTLING_TIE) <= thetaUsed || thetaUsed >= cap) break;
-    // The walk pruned with a threshold below the truth: walk again with theta = t_N (or the cap).
-    state.theta = Math.min(cap, tN * (1 + REL) + 1e-12);
+    // The walk pruned with a threshold below the truth: walk again with a wider one.
+    state.theta = Math.min(cap, tN < Infinity ? tN * (1 + REL) + 1e-12 : Math.max(thetaUsed * WIDEN, 1e-9));
     state.dynamic = false;
     for (const e of state.entries) state.seen.add(keyOf(e.r, e.c));
     collectAll();
@@ -92,12 +98,26 @@ export function solveProblem(
   return { feasible: ranked, failing, evaluated: state.evaluated, verified: verified.size, space };
 }
 
-/** The fast worst ripple (a lower bound) of a candidate: scalar code for two stages. */
+/** Fast steady state (ripple, average) of a candidate at a duty: scalar code for two stages. */
+function fastPoint(problem: DesignProblem, r: number[], c: number[]): (d: number) => { ripple: number; average: number } {
+  const k = problem.circuit;
+  if (r.length === 2) return (d) => twoStageSteady(k, r[0], c[0], r[1], c[1], d);
+  const model = fastLadderOf(k, r, c);
+  return (d) => fastSteadyState(model, d);
+}
+
+/** The fast worst ripple (a lower bound) of a candidate. */
 function worstRippleOf(problem: DesignProblem, r: number[], c: number[]): number {
-  if (r.length === 2) {
-    const k = problem.circuit;
-    return fastWorstRipple((d) => twoStageSteady(k, r[0], c[0], r[1], c[1], d).ripple, problem.dutyMin, problem.dutyMax);
-  }
-  const model = fastLadderOf(problem.circuit, r, c);
-  return fastWorstRipple((d) => fastSteadyState(model, d).ripple, problem.dutyMin, problem.dutyMax);
+  const at = fastPoint(problem, r, c);
+  return maximizeOverDuty((d) => at(d).ripple, problem.dutyMin, problem.dutyMax);
+}
+
+/** Unequal drivers: the fast worst droop (a lower bound) is over the limit. */
+function droopExceeds(problem: DesignProblem, r: number[], c: number[]): boolean {
+  const { pwm } = problem.project;
+  const limit = problem.limits.droop;
+  if (limit === undefined || pwm.driver.high === pwm.driver.low) return false;
+  const at = fastPoint(problem, r, c);
+  const droop = maximizeOverDuty((d) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - at(d).average), problem.dutyMin, problem.dutyMax);
+  return droop > limit * (1 + REL) + 1e-15;
 }

@@ -3,18 +3,18 @@ const GRID = 8;
 const INV_PHI = (Math.sqrt(5) - 1) / 2;
 
 /**
- * The largest ripple the fast model finds over [dutyMin, dutyMax]: a lower bound on the worst
- * ripple (every value returned is the ripple at some duty of the range), equal to it when the
- * maximum lies in the bracket found on the grid.
+ * The largest value of f(duty) found over [dutyMin, dutyMax], e.g. the ripple or the |DC error| of
+ * the fast model: a lower bound on the maximum (every value returned is f at some duty of the
+ * range), equal to it when the maximum lies in the bracket found on the grid.
  *
  * Method: ripple at GRID + 1 evenly spaced duties, then golden-section search (Kiefer 1953;
  * Press et al., Numerical Recipes, 3rd ed., section 10.2) on the two cells around the best grid
  * point, to 1e-7 in duty.
  *
- * Syntax: fastWorstRipple(rippleAt, dutyMin, dutyMax)
- * Example: fastWorstRipple((d) => fastSteadyState(model, d).ripple, 0.05, 0.95)   // V, at least the ripple at any duty
+ * Syntax: maximizeOverDuty(f, dutyMin, dutyMax)
+ * Example: maximizeOverDuty((d) => fastSteadyState(model, d).ripple, 0.05, 0.95)   // worst ripple, V (a lower bound)
  */
-export function fastWorstRipple(ripple: (duty: number) => number, dutyMin: number, dutyMax: number): number {
+export function maximizeOverDuty(ripple: (duty: number) => number, dutyMin: number, dutyMax: number): number {
   if (!(dutyMax > dutyMin)) return ripple(dutyMin);
   const h = (dutyMax - dutyMin) / GRID;
   let bestI = 0;
