@@ -69,25 +69,42 @@ export async function runBench(): Promise<BenchReport> {
   sections.push(monteCarlo.section);
   data.monteCarlo = monteCarlo.data;
 
-  step('whole process: dacsmith analyze against node -e ""');
+  step('whole process: dacsmith against node -e ""');
+  const dacsmith = join('bin', 'dacsmith.js');
+  const commands = [
+    [dacsmith, 'analyze', SAMPLE],
+    [dacsmith, 'analyze', SAMPLE, '--no-charts'],
+    [dacsmith, 'analyze', SAMPLE, '--format', 'json'],
+    [dacsmith, '--help'],
+  ];
   let start: ReturnType<typeof processStart> | string;
   try {
     if (buildError) throw new Error(buildError);
-    start = processStart([join('bin', 'dacsmith.js'), 'analyze', SAMPLE], { runs: 9, cwd: root });
+    start = processStart(commands, { runs: 9, cwd: root });
   } catch (error) {
     start = `failed: ${(error as Error).message.split('\n')[0]}`;
   }
   sections.push({
-    title: 'Whole process, wall time (spawnSync, 9 runs each, interleaved)',
-    columns: ['command', 'median (ms)', 'x bare node'],
+    title: 'Whole process (spawnSync, 9 runs each, interleaved; medians)',
+    columns: ['command', 'wall (ms)', 'x bare node', 'CPU (ms)', 'x bare node (CPU)'],
     rows:
       typeof start === 'string'
         ? []
+        : [...start.commands, start.bare].map((c) => [
+            `node ${c.args.map((a) => a || "''").join(' ')}`,
+            c.median * 1e3,
+            c.ratio,
+            c.cpu === null ? 'n/a' : c.cpu * 1e3,
+            c.cpuRatio ?? 'n/a',
+          ]),
+    notes:
+      typeof start === 'string'
+        ? [start]
         : [
-            [`node bin/dacsmith.js analyze ${SAMPLE}`, start.command * 1e3, start.ratio],
-            ["node -e ''", start.bare * 1e3, 1],
+            'NODE_OPTIONS and NODE_EXTRA_CA_CERTS removed from every environment; the first row is the target.',
+            'CPU: user + system of the child, all threads, 10 ms ticks (Linux /proc). On a loaded machine wall',
+            'ratios shrink toward 1 (every process waits for a core alike); the CPU ratio does not.',
           ],
-    notes: typeof start === 'string' ? [start] : ['NODE_OPTIONS and NODE_EXTRA_CA_CERTS removed from both environments'],
   });
   data.process = start;
 
@@ -122,9 +139,13 @@ export async function runBench(): Promise<BenchReport> {
     },
     {
       name: 'dacsmith analyze, whole process',
-      goal: '<= 3x bare node',
-      measured: typeof start === 'string' ? start : `${formatNumber(start.ratio)}x`,
-      met: typeof start === 'string' ? null : start.ratio <= 3,
+      goal: '<= 3x bare node (wall and CPU)',
+      measured:
+        typeof start === 'string'
+          ? start
+          : `${formatNumber(start.commands[0].ratio)}x wall` + (start.commands[0].cpuRatio === null ? '' : `, ${formatNumber(start.commands[0].cpuRatio)}x CPU`),
+      // Both must hold: under load the wall ratio alone flatters.
+      met: typeof start === 'string' ? null : start.commands[0].ratio <= 3 && (start.commands[0].cpuRatio ?? 0) <= 3,
     },
   ];
 

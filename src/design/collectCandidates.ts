@@ -21,7 +21,7 @@ export interface FastEntry {
   totalC: number;
   /** Fast worst ripple (a lower bound), V, once computed. */
   worst?: number;
-  /** Ruled out by the fast worst ripple. */
+  /** Ruled out by the fast worst ripple or worst droop. */
   ruledOut?: boolean;
 }
 
@@ -37,7 +37,7 @@ export interface CollectState {
   entries: FastEntry[];
   /** Keys of candidates already collected (filled when `dynamic` ends: later rounds skip them). */
   seen: Set<string>;
-  /** Fast-model evaluations (ladders built). */
+  /** Candidates the fast model evaluated (ripple, droop or settling). */
   evaluated: number;
 }
 
@@ -60,19 +60,29 @@ const exceeds = (value: number, limit: number | undefined) => limit !== undefine
 /**
  * Collect every `stages`-stage candidate of the problem's discrete space that the fast model cannot
  * rule out and whose settling lower bound is at most state.theta (which may fall as candidates
- * come in). Ruled out: pin peak current over the limit (R1 only), droop over the limit (resistors
- * only, time-invariant case; else from the fast averages at the range ends), a ripple lower bound
- * over the limit, never settling, settling lower bound over the time limit.
+ * come in). Ruled out, each by a lower bound on the engine's figure: pin peak current over the
+ * limit (R1 only); droop over the limit (resistors only, below; with unequal drivers also the
+ * fast droop maximised over the duty); the ripple at the duty nearest 50 % over the limit; never
+ * settling; settling lower bound over the time limit.
+ *
+ * Droop floor from the resistors alone (high-side driver resistance >= low-side, low >= 0, a load):
+ * in periodic steady state the capacitors carry no average current, so with I_L = v_out / R_L,
+ * ideal - v_out = I_L (R_dl + sum R) + (R_dh - R_dl) Q_h, Q_h >= 0 the charge per period the pin
+ * delivers while high (the first node never exceeds the high level); hence droop >= ideal R_s /
+ * (R_L + R_s), R_s = R_dl + sum R (exact for equal drivers). Derived here from Kirchhoff's laws;
+ * test/design/settlingBounds.test.ts checks it against the engine.
  *
  * Method: resistor tuples in ascending order of a lower bound on their best settling time
  * (settlingBounds.ts); the walk stops when that bound passes theta. For each tuple, capacitor
- * space by monotone structure: the ripple at the duty nearest 50 % falls when any capacitor grows,
- * so the feasible region of the last two capacitors is bounded below by a staircase, walked once
- * per tuple (last capacitor from the previous column's step upward, columns from the largest
- * first capacitor down); the settling lower bound tau_slow * factor - slack grows with every
- * capacitor (Rayleigh quotient, slowestTimeConstant.ts), which cuts each column and ends the walk.
- * Staircase points are evaluated first, so theta falls before the inner points are visited.
- * Survivors get the exact fast settling bound (fast/fastSettlingBound.ts).
+ * space by monotone structure: the ripple falls when any capacitor grows, so the feasible region
+ * of the last two capacitors is bounded below by a staircase, walked once per tuple (last
+ * capacitor from the previous column's step upward, columns from the largest first capacitor
+ * down); the settling lower bound tau_slow * factor - slack grows with every capacitor (Rayleigh
+ * quotient, slowestTimeConstant.ts), which cuts each column and ends the walk. Staircase points
+ * are evaluated first, so theta falls before the inner points are visited. A point then gets the
+ * cheaper bound tau_slow ln(z0 / (band + excursion)) from its own steady states, and only then the
+ * exact fast settling bound (fast/fastSettlingBound.ts). Two-stage steady states come from scalar
+ * code (fast/twoStageSteady.ts), the rest from fast/fastSteadyState.ts.
  *
  * Syntax: collectCandidates(problem, stages, state[, onTuple])
  * Example: collectCandidates(problem, 2, newCollectState(problem, 10)); state.entries.length
@@ -94,7 +104,7 @@ export function collectCandidates(
   const dNear = Math.min(problem.dutyMax, Math.max(problem.dutyMin, 0.5));
   const toDuties = [...new Set(problem.steps.map((s) => s[1]))];
   const checkTo = limits.ripple === undefined || problem.band * 2 < limits.ripple;
-  // Droop lower bound from the resistors alone (droopBound below).
+  // Droop floor from the resistors alone (see above).
   const droopFloorApplies = pwm.driver.high >= pwm.driver.low && pwm.low >= 0 && loadR !== null && limits.droop !== undefined;
   const idealTop = Math.max(pwm.low + problem.dutyMin * (pwm.high - pwm.low), pwm.low + problem.dutyMax * (pwm.high - pwm.low));
 
@@ -144,7 +154,6 @@ export function collectCandidates(
       model = fastLadderOf(problem.circuit, rs, cs);
       steadyDuty = [];
       steadyOf = [];
-      state.evaluated++;
     }
     return model;
   };
@@ -157,8 +166,19 @@ export function collectCandidates(
     return s;
   };
 
+  // Count each candidate the fast model looks at once (consecutive looks are at the same candidate).
+  let seenR: number[] = [];
+  let seenC: number[] = [];
+  const touch = (rs: number[], cs: number[]) => {
+    if (sameAs(rs, seenR) && sameAs(cs, seenC)) return;
+    seenR = rs;
+    seenC = cs.slice();
+    state.evaluated++;
+  };
+
   /** Steady-state figures for the cheap checks: scalar code for two stages, else the full model. */
   const lite = (rs: number[], cs: number[], d: number): TwoStageSteady => {
+    touch(rs, cs);
     if (stages === 2) return twoStageSteady(problem.circuit, rs[0], cs[0], rs[1], cs[1], d);
     use(rs, cs);
     const s = steady(d);
@@ -174,14 +194,15 @@ export function collectCandidates(
   const evaluate = (rs: number[], cs: number[], tb: TupleBounds): void => {
     const key = state.dynamic ? '' : keyOf(rs, cs);
     if (!state.dynamic && state.seen.has(key)) return;
-    // Unequal drivers: droop depends on the capacitors and may peak inside the range; its maximum
-    // over the duty (a lower bound: a value at some duty) rules a candidate out before settling.
-    let droop = 0;
-    if (!lti && limits.droop !== undefined) {
-      const error = (d: number) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - lite(rs, cs, d).average);
-      if (exceeds(Math.max(error(problem.dutyMin), error(problem.dutyMax)), limits.droop)) return;
-      droop = maximizeOverDuty(error, problem.dutyMin, problem.dutyMax);
-      if (exceeds(droop, limits.droop)) return;
+    // Unequal drivers: droop depends on the capacitors and may peak inside the range. Its largest
+    // value on a 9-point duty grid (a lower bound: values at some duties) rules a candidate out
+    // before settling; the full maximum is taken before the candidate may lower theta.
+    const droopError = (d: number) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - lite(rs, cs, d).average);
+    const checkDroop = !lti && limits.droop !== undefined;
+    if (checkDroop) {
+      for (let i = 0; i <= 8; i++) {
+        if (exceeds(droopError(problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8), limits.droop)) return;
+      }
     }
     // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
     const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);
@@ -208,7 +229,8 @@ export function collectCandidates(
     if (state.dynamic && (state.best.length < state.top || lb < state.best[state.top - 1])) {
       // Before this candidate may lower theta: its worst ripple and (unequal drivers) worst droop.
       entry.worst = maximizeOverDuty((d) => lite(rs, cs, d).ripple, problem.dutyMin, problem.dutyMax);
-      if (exceeds(entry.worst, limits.ripple)) {
+      const droop = checkDroop ? maximizeOverDuty(droopError, problem.dutyMin, problem.dutyMax) : 0;
+      if (exceeds(entry.worst, limits.ripple) || exceeds(droop, limits.droop)) {
         entry.ruledOut = true;
         return;
       }

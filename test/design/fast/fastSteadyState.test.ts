@@ -89,7 +89,8 @@ describe('fastSteadyState: same numbers as the exact engine', () => {
         );
         const e = steadyState(l, x.d);
         const f = fastSteadyState(fastLadder(l), x.d);
-        return Math.abs(f.ripple - e.ripple) <= 1e-7 * e.ripple + 1e-15 && Math.abs(f.average - e.average) <= 1e-11;
+        // 1e-12 V absolute: rounding of 3.3 V signals in stiff corners (T up to 1e5 time constants)
+        return Math.abs(f.ripple - e.ripple) <= 1e-7 * e.ripple + 1e-12 && Math.abs(f.average - e.average) <= 1e-10;
       }),
       { numRuns: 200 },
     );
