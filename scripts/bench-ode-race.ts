@@ -38,7 +38,8 @@ export interface OdeRace {
  * matched accuracy: the ODE route gets the loosest tolerance of 1e-6, 1e-7, ..., 1e-13 whose ripple
  * agrees with the engine's to MATCHED_ACCURACY relative (its settle threshold a tenth of that),
  * so it is not slowed down by more accuracy than the comparison asks for. Each route's time is a
- * median CPU time (engine: 7 runs of many calls; ODE: 3 runs); the ratio is of CPU times.
+ * median CPU time over 3 rounds, each round one engine measurement (3 runs of many calls) and one
+ * ODE run, alternating; the ratio is of CPU times.
  *
  * Syntax: await engineVersusOde()
  * Example: (await engineVersusOde()).data[0].ratio   // 2.5e4
@@ -47,9 +48,8 @@ export async function engineVersusOde(): Promise<{ data: OdeRace[]; section: Ben
   const data: OdeRace[] = [];
   for (const { name, ladder, duty } of odeCases) {
     const reference = steadyState(freshLadder(ladder), duty).ripple;
-    const timing = timePerCall(() => steadyState(freshLadder(ladder), duty), { runs: 7, runSeconds: 0.05 });
-    const engine = timing.perCall;
-    const engineWall = timing.wallPerCall;
+    const engineWork = () => steadyState(freshLadder(ladder), duty);
+    timePerCall(engineWork, { runs: 3 }); // warm-up
     const tauPeriods = timeConstants(freshLadder(ladder))[0] / ladder.period;
     const scale = Math.abs(ladder.high - ladder.low);
     let match: { tolerance: number; difference: number; periods: number; steps: number } | null = null;
@@ -60,14 +60,33 @@ export async function engineVersusOde(): Promise<{ data: OdeRace[]; section: Ben
       if (difference <= MATCHED_ACCURACY) match = { tolerance, difference, periods: run.periods, steps: run.steps };
     }
     if (!match) {
-      data.push({ name, duty, tauPeriods, ripple: reference, engine, engineWall, ode: null, odeWall: null, ratio: null, tolerance: null, difference: null, periods: null, steps: null });
+      const { perCall, wallPerCall } = timePerCall(engineWork, { runs: 7 });
+      data.push({ name, duty, tauPeriods, ripple: reference, engine: perCall, engineWall: wallPerCall, ode: null, odeWall: null, ratio: null, tolerance: null, difference: null, periods: null, steps: null });
       continue;
     }
     const options = { relativeTolerance: match.tolerance, absoluteTolerance: match.tolerance * scale, settle: MATCHED_ACCURACY / 10 };
-    const runs = [];
-    for (let i = 0; i < 3; i++) runs.push(await timeOnce(() => odeRipple(ladder, duty, options)));
-    const ode = median(runs.map((r) => r.cpu));
-    data.push({ name, duty, tauPeriods, ripple: reference, engine, engineWall, ode, odeWall: median(runs.map((r) => r.wall)), ratio: ode / engine, ...match });
+    // Engine and ODE runs alternate, so that a change in machine load hits both routes alike.
+    const engineRuns: Array<{ cpu: number; wall: number }> = [];
+    const odeRuns: Array<{ cpu: number; wall: number }> = [];
+    for (let i = 0; i < 3; i++) {
+      const t = timePerCall(engineWork, { runs: 3, warmup: false });
+      engineRuns.push({ cpu: t.perCall, wall: t.wallPerCall });
+      odeRuns.push(await timeOnce(() => odeRipple(ladder, duty, options)));
+    }
+    const engine = median(engineRuns.map((r) => r.cpu));
+    const ode = median(odeRuns.map((r) => r.cpu));
+    data.push({
+      name,
+      duty,
+      tauPeriods,
+      ripple: reference,
+      engine,
+      engineWall: median(engineRuns.map((r) => r.wall)),
+      ode,
+      odeWall: median(odeRuns.map((r) => r.wall)),
+      ratio: ode / engine,
+      ...match,
+    });
   }
   return {
     data,

@@ -2,7 +2,7 @@
 import { performance } from 'node:perf_hooks';
 import { settlingTime, steadyState } from '../src/engine/index.js';
 import { freshLadder, ladderWithSlowestTau } from './bench-cases.js';
-import { median, timePerCall } from './bench-measure.js';
+import { interleavedTimePerCall, median } from './bench-measure.js';
 import type { BenchSection } from './bench-table.js';
 
 export interface SettlingCostRow {
@@ -35,37 +35,36 @@ const TO = 0.9;
  * constant of 10, 100, ..., 1e7 PWM periods, one and two stages; the cost per decade is the
  * least-squares slope against log10(tau). The band is 0.5 LSB of 10 bits, widened to twice the
  * ripple at 90 % where the ripple is larger (short time constants), so that every case settles and
- * the full search runs. All cases run for a second before the timing starts (JIT warm-up).
+ * the full search runs. All cases run for a second before the timing starts (JIT warm-up), and
+ * their timed runs are interleaved so that a change in load cannot pass for a trend in tau.
  *
  * Syntax: settlingCost()
  * Example: settlingCost().perDecade.twoStage   // 1e-6 (s per decade)
  */
 export function settlingCost(): { data: SettlingCost; section: BenchSection } {
   const taus = [1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7];
-  const setup = (stages: 1 | 2, tau: number) => {
-    const ladder = ladderWithSlowestTau(stages, tau);
-    const lsb = (ladder.high - ladder.low) / 1024;
-    return { ladder, band: Math.max(lsb / 2, 2 * steadyState(freshLadder(ladder), TO).ripple) };
-  };
-  const warm = (stages: 1 | 2, tau: number) => {
-    const { ladder, band } = setup(stages, tau);
-    for (let i = 0; i < 10; i++) settlingTime(freshLadder(ladder), FROM, TO, band);
-  };
-  const measure = (stages: 1 | 2, tau: number) => {
-    const { ladder, band } = setup(stages, tau);
-    const settled = settlingTime(freshLadder(ladder), FROM, TO, band).time;
-    const { perCall } = timePerCall(() => settlingTime(freshLadder(ladder), FROM, TO, band), { runs: 9, runSeconds: 0.03 });
-    return { perCall, settled: settled === null ? null : settled / ladder.period };
-  };
+  const cases = taus.flatMap((tau) =>
+    ([1, 2] as const).map((stages) => {
+      const ladder = ladderWithSlowestTau(stages, tau);
+      const lsb = (ladder.high - ladder.low) / 1024;
+      const band = Math.max(lsb / 2, 2 * steadyState(freshLadder(ladder), TO).ripple);
+      const settled = settlingTime(freshLadder(ladder), FROM, TO, band).time;
+      return { tau, stages, settled: settled === null ? null : settled / ladder.period, work: () => settlingTime(freshLadder(ladder), FROM, TO, band) };
+    }),
+  );
   // Every case, round after round for a second, before any timing: the first cases must not pay
   // for the JIT's warm-up.
   const warmUntil = performance.now() + 1000;
-  while (performance.now() < warmUntil) for (const tau of taus) for (const stages of [1, 2] as const) warm(stages, tau);
-  const rows = taus.map((tauPeriods): SettlingCostRow => {
-    const one = measure(1, tauPeriods);
-    const two = measure(2, tauPeriods);
-    return { tauPeriods, oneStage: one.perCall, twoStage: two.perCall, settledOne: one.settled, settledTwo: two.settled };
-  });
+  while (performance.now() < warmUntil) for (const c of cases) for (let i = 0; i < 10; i++) c.work();
+  const timings = interleavedTimePerCall(cases.map((c) => c.work), { runs: 9, runSeconds: 0.03, warmup: false });
+  const at = (tau: number, stages: 1 | 2) => cases.findIndex((c) => c.tau === tau && c.stages === stages);
+  const rows = taus.map((tauPeriods): SettlingCostRow => ({
+    tauPeriods,
+    oneStage: timings[at(tauPeriods, 1)].perCall,
+    twoStage: timings[at(tauPeriods, 2)].perCall,
+    settledOne: cases[at(tauPeriods, 1)].settled,
+    settledTwo: cases[at(tauPeriods, 2)].settled,
+  }));
   const x = taus.map(Math.log10);
   const perDecade = { oneStage: slope(x, rows.map((r) => r.oneStage)), twoStage: slope(x, rows.map((r) => r.twoStage)) };
   const relativePerDecade = {

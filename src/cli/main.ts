@@ -6,6 +6,7 @@ import { analyzeCommand, type CommandOutput } from './analyze.js';
 import { checkCommand } from './check.js';
 import { compareCommand } from './compare.js';
 import { initCommand } from './init.js';
+import { designCommand } from './design.js';
 import { describeError, UsageError } from './errors.js';
 
 /** Print what a command produced and set the exit code; map thrown errors to messages and codes. */
@@ -35,6 +36,7 @@ export async function main(argv: string[]): Promise<void> {
     .scriptName('dacsmith')
     .usage('$0 <command> [options]\n\nPlan the RC filter that turns a PWM output into an analog voltage.')
     .command(analyzeCommand(run, color))
+    .command(designCommand(run, color))
     .command(checkCommand(run, color))
     .command(compareCommand(run, color))
     .command(initCommand(run))

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { median, timePerCall } from '../../scripts/bench-measure.js';
+import { interleavedTimePerCall, median, timePerCall } from '../../scripts/bench-measure.js';
 import { formatNumber } from '../../scripts/bench-table.js';
 
 describe('bench helpers', () => {
@@ -16,6 +16,19 @@ describe('bench helpers', () => {
     expect(t.runs).toHaveLength(3);
     expect(t.calls).toBe(calls);
     expect(t.perCall).toBe(median(t.runs));
+  });
+
+  it('interleavedTimePerCall keeps each piece of work apart and runs them in turn', () => {
+    const order: string[] = [];
+    const counts = { a: 0, b: 0 };
+    const works = (['a', 'b'] as const).map((k) => () => {
+      if (order.at(-1) !== k) order.push(k);
+      counts[k]++;
+    });
+    const [a, b] = interleavedTimePerCall(works, { runs: 2, runSeconds: 0.001, warmup: false });
+    expect(order).toEqual(['a', 'b', 'a', 'b']);
+    expect([a.calls, b.calls]).toEqual([counts.a, counts.b]);
+    expect(a.runs).toHaveLength(2);
   });
 
   it('formatNumber: three significant digits, exponent outside 1e-3..1e6', () => {

@@ -53,7 +53,7 @@ describe('ladderMetrics: modal fast path against the engine', () => {
           else expect(Math.abs(fast.settlingTime! - ref.settlingTime)).toBeLessThan(1e-6 * l.period + 1e-9 * ref.settlingTime);
         },
       ),
-      { numRuns: 40, seed: 20261201 },
+      { numRuns: 40, seed: 20261201, endOnFailure: true },
     );
   });
 

@@ -58,6 +58,10 @@ export function oneStageSettling(V: number, T: number, from: number, to: number,
   const err = (k: number, t: number) => oneStageOrbit(V, T, to, tau, t) - V * to + e0 * Math.exp(-(k * T + t) / tau);
   const ends = [0, to * T, T];
   const leaves = (k: number) => ends.some((t) => Math.abs(err(k, t)) > band);
+  // the orbit's extremes are at the phase ends (monotone phases)
+  const above = oneStageOrbit(V, T, to, tau, to * T) - V * to;
+  const below = V * to - oneStageOrbit(V, T, to, tau, 0);
+  if (above >= band || below >= band) throw new RangeError('reference: the ripple alone leaves the band');
   if (!leaves(0)) return 0;
   let lo = 0;
   let hi = 1;

@@ -6,41 +6,42 @@ import { periodicState, type PeriodicState } from './periodicState.js';
 import { symmetricEigen } from './symmetricEigen.js';
 
 /**
- * The fast path stops (returns undefined) when a mode decays by more than e^-40 within the high
- * phase: its eigenvector of the period map would then need factors above e^20, too ill-conditioned
- * to call exact. The engine then takes over. Also when the search needs more than this many
- * period evaluations (never seen in practice; a safety net).
+ * A safety net on the branch and bound: beyond this many period evaluations (never seen in
+ * practice) the fast path gives up and the engine takes over.
  */
-const MAX_HALF_PHASE_DECAY = 20;
 const MAX_PERIOD_EVALUATIONS = 4000;
 
 /**
  * Settling time (s) after the duty steps from `from` to `to` at the start of a period, the ladder
  * having been in periodic steady state at `from`: the smallest t with |v(t') - average(to)| <= band
  * for all t' >= t (model.md). null when the steady state at `to` itself leaves the band; 0 when the
- * output never leaves it; undefined when this fast path does not apply (see MAX_HALF_PHASE_DECAY)
- * and the caller must use the engine.
+ * output never leaves it; undefined when the search gives up (see MAX_PERIOD_EVALUATIONS) and the
+ * caller must use the engine.
  *
  * Method: in period k after the step the state deviation from the periodic orbit at `to` is
- * M^k e_0, M = E_l E_h. In high-phase modal coordinates M = X^T diag(e_l) X diag(e_h) is similar to
- * the symmetric D X^T diag(e_l) X D, D = diag(e_h)^(1/2); its difference from I,
+ * e_k = M^k e_0, M = E_l E_h. In high-phase modal coordinates M = X^T diag(e_l) X diag(e_h) is
+ * similar to the symmetric D X^T diag(e_l) X D, D = diag(e_h)^(1/2); its difference from I,
  * N = -(diag(k_h) + D X^T diag(k_l) X D) (all k = -expm1(rate t) >= 0), is formed without
- * cancellation and diagonalized by Jacobi (symmetricEigen), so M^k = sum_j mu_j^k q_j p_j^T with
- * mu_j^k = exp(k log1p(nu_j)) exact for any k. The error in period k is then
- * s(tau) + sum_j zeta_j mu_j^k h_j(tau), exponential sums in tau (phaseCurve.ts).
+ * cancellation and diagonalized by Jacobi (symmetricEigen): N z_j = nu_j z_j, mu_j = 1 + nu_j.
+ * Then e_0 = sum_j zeta_j q_j with zeta_j = z_j^T D e_0 and q_j = D^-1 z_j; to avoid D^-1 (huge for
+ * a mode that dies within the phase) period k >= 1 uses e_k = sum_j zeta_j mu_j^(k-1) r_j with
+ * r_j = M q_j = X^T diag(e_l) X D z_j, and period 0 uses e_0 itself; mu_j^k = exp(k log1p(nu_j)).
+ * The error in a period is then s(tau) plus an exponential sum in tau (phaseCurve.ts), whose
+ * extremes are exact.
  * Last violating period: branch and bound over period ranges [a, b], latest first. Over a range
- * each coefficient zeta_j mu_j^k moves monotonically between its end values, so
- * error <= s + sum_j m_j h_j + sum_j |zeta_j| H_j (mu_j^a - mu_j^b) / 2 with m_j the mid value and
- * H_j >= max |h_j| (and likewise from below); a range whose bound stays inside the band is
- * discarded, and a single period (a = b) is decided exactly. The search starts below the first
- * period K where sum_j |zeta_j| H_j mu_j^K fits in the margin the steady-state ripple leaves, after
- * which nothing can leave the band. Inside the last violating period the error is monotone between
- * turning points, and Brent's method (brentRoot) finds the last band crossing.
+ * each coefficient zeta_j mu_j^(k-1) moves monotonically between its end values, so
+ * error <= s + sum_j m_j h_j + sum_j |zeta_j| H_j (end-value difference) / 2, m_j the mid value,
+ * H_j >= max |h_j| (h_j the output of r_j through the period), and likewise from below; a range
+ * whose bound stays inside the band is discarded, and a single period is decided exactly. The
+ * search runs leftwards in blocks of 1, 2, 4, ... periods from the first period K where
+ * sum_j |zeta_j| H_j mu_j^(K-1) fits in the margin the steady-state ripple leaves (nothing later
+ * can leave the band). Inside the last violating period the error is monotone between turning
+ * points, and Brent's method (brentRoot) finds the last band crossing.
  *
  * Pass a map to share periodic states between calls on the same ladder (keyed by duty).
  *
  * Syntax: modalSettling(modal, from, to, band[, states])
- * Example: modalSettling(modalLadder(ladder)!, 0.1, 0.9, 1.6e-3)  // s, or null, or undefined
+ * Example: modalSettling(modalLadder(ladder)!, 0.1, 0.9, 1.6e-3)  // s, or null
  */
 export function modalSettling(
   m: ModalLadder,
@@ -73,18 +74,16 @@ export function modalSettling(
   for (let i = 0; i < n; i++) e0[i] = source.start[i] - target.start[i];
   if (e0.every((v) => v === 0)) return 0;
 
-  let fastest = 0;
-  for (let i = 0; i < n; i++) fastest = Math.max(fastest, -hi.rate[i] * t1 * 0.5);
-  if (fastest > MAX_HALF_PHASE_DECAY) return undefined;
-
-  // The period map's modes: N = M - I in the symmetric form, then q_j = D^-1 z_j, p_j = D z_j.
+  // The period map's modes, in the symmetric form.
   const kh = zeros(n);
   const half = zeros(n);
   const kl = zeros(n);
+  const elow = zeros(n);
   for (let i = 0; i < n; i++) {
     kh[i] = -Math.expm1(hi.rate[i] * t1);
     half[i] = Math.exp(0.5 * hi.rate[i] * t1);
     kl[i] = -Math.expm1(lo.rate[i] * t2);
+    elow[i] = Math.exp(lo.rate[i] * t2);
   }
   const N = zeros(n * n);
   for (let i = 0; i < n; i++) {
@@ -96,51 +95,93 @@ export function modalSettling(
   }
   const { values: nu, vectors: Z } = symmetricEigen(N, n);
   const logMu = Array.from(nu, (v) => (v > -1 ? Math.log1p(v) : -Infinity));
-  const power = (j: number, k: number) => (k === 0 ? 1 : Math.exp(k * logMu[j]));
+  /** mu_j^(k-1) for period k >= 1. */
+  const power = (j: number, k: number) => (k === 1 ? 1 : Math.exp((k - 1) * logMu[j]));
+
+  // Output weights (per rate i) of a state w given in high-phase modal coordinates, in each phase.
+  const highWeights = (w: number[], out: number[]) => {
+    for (let i = 0; i < n; i++) out[i] = hi.out[i] * w[i];
+  };
+  const lowWeights = (w: number[], out: number[]) => {
+    for (let i = 0; i < n; i++) {
+      let s = 0; // low-phase coordinates of the state at the end of the high phase
+      for (let k = 0; k < n; k++) s += mix[i * n + k] * half[k] * half[k] * w[k];
+      out[i] = lo.out[i] * s;
+    }
+  };
   const zeta = zeros(n);
-  const etaHigh = zeros(n * n); // [j * n + i]: mode j's output weight on rate i
-  const etaLow = zeros(n * n);
+  const etaHigh: number[][] = [];
+  const etaLow: number[][] = [];
   const bound = zeros(n);
+  const r = zeros(n);
+  const xr = zeros(n);
   for (let j = 0; j < n; j++) {
     let z = 0;
     for (let i = 0; i < n; i++) z += half[i] * Z[i * n + j] * e0[i];
     zeta[j] = z;
-    let sumHigh = 0;
-    let sumLow = 0;
+    // r_j = X^T diag(e_l) X D z_j
     for (let i = 0; i < n; i++) {
-      const w = hi.out[i] * (Z[i * n + j] / half[i]);
-      etaHigh[j * n + i] = w;
-      sumHigh += Math.abs(w);
-      let s = 0; // low-phase coordinates of the state at the end of the high phase
+      let s = 0;
       for (let k = 0; k < n; k++) s += mix[i * n + k] * half[k] * Z[k * n + j];
-      etaLow[j * n + i] = lo.out[i] * s;
-      sumLow += Math.abs(etaLow[j * n + i]);
+      xr[i] = elow[i] * s;
     }
-    bound[j] = Math.max(sumHigh, sumLow);
+    for (let i = 0; i < n; i++) {
+      let s = 0;
+      for (let k = 0; k < n; k++) s += mix[k * n + i] * xr[k];
+      r[i] = s;
+    }
+    const wh = zeros(n);
+    const wl = zeros(n);
+    highWeights(r, wh);
+    lowWeights(r, wl);
+    etaHigh.push(wh);
+    etaLow.push(wl);
+    bound[j] = Math.max(
+      wh.reduce((a, v) => a + Math.abs(v), 0),
+      wl.reduce((a, v) => a + Math.abs(v), 0),
+    );
   }
 
-  // Error curves of one period for mode coefficients c_j (zeta_j mu_j^k, or a mid value); the two
-  // curve objects are refilled on each call (each is used up before the next call).
+  // Error curves of one period from the output weights of its starting state; the two curve
+  // objects are refilled on each call (each is used up before the next call).
   const errHigh: PhaseCurve = { offset: 0, gain: zeros(n), rate: hi.rate, length: t1 };
   const errLow: PhaseCurve = { offset: 0, gain: zeros(n), rate: lo.rate, length: t2 };
-  const curves = (c: number[]): [PhaseCurve, PhaseCurve] => {
+  const bh = zeros(n);
+  const bl = zeros(n);
+  const curves = (): [PhaseCurve, PhaseCurve] => {
     let oHigh = ssHigh.offset;
     let oLow = ssLow.offset;
     for (let i = 0; i < n; i++) {
-      let bh = 0;
-      let bl = 0;
-      for (let j = 0; j < n; j++) {
-        bh += c[j] * etaHigh[j * n + i];
-        bl += c[j] * etaLow[j * n + i];
-      }
-      errHigh.gain[i] = ssHigh.gain[i] + bh;
-      errLow.gain[i] = ssLow.gain[i] + bl;
-      oHigh += bh;
-      oLow += bl;
+      errHigh.gain[i] = ssHigh.gain[i] + bh[i];
+      errLow.gain[i] = ssLow.gain[i] + bl[i];
+      oHigh += bh[i];
+      oLow += bl[i];
     }
     errHigh.offset = oHigh;
     errLow.offset = oLow;
     return [errHigh, errLow];
+  };
+  const weightsFromModes = (c: number[]) => {
+    for (let i = 0; i < n; i++) {
+      let h = 0;
+      let l = 0;
+      for (let j = 0; j < n; j++) {
+        h += c[j] * etaHigh[j][i];
+        l += c[j] * etaLow[j][i];
+      }
+      bh[i] = h;
+      bl[i] = l;
+    }
+  };
+  const leavesWith = (slack: number): boolean => {
+    const [ch, cl] = curves();
+    const xh = curveExtrema(ch);
+    const xl = curveExtrema(cl);
+    return Math.max(xh.max, xl.max) + slack > band || Math.min(xh.min, xl.min) - slack < -band;
+  };
+  const firstPeriod = () => {
+    highWeights(e0, bh);
+    lowWeights(e0, bl);
   };
 
   const margin = Math.min(band - above, band + below);
@@ -149,64 +190,67 @@ export function modalSettling(
     for (let j = 0; j < n; j++) s += Math.abs(zeta[j]) * bound[j] * power(j, k);
     return s;
   };
-  if (envelope(0) <= margin) return 0;
-  if (!(margin > 0)) return undefined;
-  let low = 0;
-  let high = 1;
-  while (envelope(high) > margin) {
-    low = high;
-    high *= 2;
-    if (high > 2 ** 52) return undefined;
-  }
-  while (high - low > 1) {
-    const mid = Math.floor((low + high) / 2);
-    if (envelope(mid) > margin) low = mid;
-    else high = mid;
-  }
-  const safe = high; // no period from here on can leave the band
-
-  let evaluations = 0;
-  const coef = zeros(n);
-  const leaves = (a: number, b: number): boolean => {
-    evaluations++;
-    let slack = 0;
-    for (let j = 0; j < n; j++) {
-      const pa = power(j, a);
-      const pb = power(j, b);
-      coef[j] = zeta[j] * 0.5 * (pa + pb);
-      slack += Math.abs(zeta[j]) * bound[j] * 0.5 * (pa - pb);
-    }
-    const [ch, cl] = curves(coef);
-    const xh = curveExtrema(ch);
-    const xl = curveExtrema(cl);
-    return (
-      Math.max(xh.max, xl.max) + slack > band || Math.min(xh.min, xl.min) - slack < -band
-    );
-  };
-  // Right-first branch and bound inside [a, b], which is known to leave the band somewhere.
-  const lastLeaving = (a: number, b: number): number => {
-    if (evaluations > MAX_PERIOD_EVALUATIONS) return Number.NaN;
-    if (a === b) return a;
-    const mid = Math.floor((a + b) / 2);
-    if (leaves(mid + 1, b)) return lastLeaving(mid + 1, b);
-    return leaves(a, mid) ? lastLeaving(a, mid) : -1;
-  };
-  // Blocks of 1, 2, 4, ... periods leftwards from `safe`: the envelope bound is usually tight, so
-  // the last violation is found within a few periods of it.
   let last = -1;
-  for (let end = safe - 1, width = 1; end >= 0; width *= 2) {
-    const start = Math.max(0, end - width + 1);
-    if (leaves(start, end)) {
-      last = lastLeaving(start, end);
-      break;
+  if (envelope(1) > margin) {
+    if (!(margin > 0)) return undefined;
+    let low = 1;
+    let high = 2;
+    while (envelope(high) > margin) {
+      low = high;
+      high *= 2;
+      if (high > 2 ** 52) return undefined;
     }
-    end = start - 1;
-  }
-  if (Number.isNaN(last)) return undefined;
-  if (last < 0) return 0;
+    while (high - low > 1) {
+      const mid = Math.floor((low + high) / 2);
+      if (envelope(mid) > margin) low = mid;
+      else high = mid;
+    }
+    const safe = high; // no period from here on can leave the band
 
-  for (let j = 0; j < n; j++) coef[j] = zeta[j] * power(j, last);
-  const [ch, cl] = curves(coef);
+    let evaluations = 0;
+    const coef = zeros(n);
+    const leaves = (a: number, b: number): boolean => {
+      evaluations++;
+      let slack = 0;
+      for (let j = 0; j < n; j++) {
+        const pa = power(j, a);
+        const pb = power(j, b);
+        coef[j] = zeta[j] * 0.5 * (pa + pb);
+        slack += Math.abs(zeta[j]) * bound[j] * 0.5 * (pa - pb);
+      }
+      weightsFromModes(coef);
+      return leavesWith(slack);
+    };
+    // Right-first branch and bound inside [a, b], which is known to leave the band somewhere.
+    const lastLeaving = (a: number, b: number): number => {
+      if (evaluations > MAX_PERIOD_EVALUATIONS) return Number.NaN;
+      if (a === b) return a;
+      const mid = Math.floor((a + b) / 2);
+      if (leaves(mid + 1, b)) return lastLeaving(mid + 1, b);
+      return leaves(a, mid) ? lastLeaving(a, mid) : -1;
+    };
+    // Blocks of 1, 2, 4, ... periods leftwards from `safe`: the envelope bound is usually tight, so
+    // the last violation is found within a few periods of it.
+    for (let end = safe - 1, width = 1; end >= 1; width *= 2) {
+      const start = Math.max(1, end - width + 1);
+      if (leaves(start, end)) {
+        last = lastLeaving(start, end);
+        break;
+      }
+      end = start - 1;
+    }
+    if (Number.isNaN(last)) return undefined;
+  }
+  if (last < 0) {
+    firstPeriod();
+    if (!leavesWith(0)) return 0;
+    last = 0;
+  } else {
+    const coef = zeros(n);
+    for (let j = 0; j < n; j++) coef[j] = zeta[j] * power(j, last);
+    weightsFromModes(coef);
+  }
+  const [ch, cl] = curves();
   const inLow = lastExit(cl, band, period);
   if (inLow >= 0) return last * period + t1 + inLow;
   const inHigh = lastExit(ch, band, period);
