@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import type { Ladder } from '../../src/circuit/ladder.js';
+import { steadyState } from '../../src/engine/index.js';
 import { ladderMetrics } from '../../src/tolerance/ladderMetrics.js';
 import type { MetricPlan } from '../../src/tolerance/metricPlan.js';
 import { metricPlan } from '../../src/tolerance/metricPlan.js';
@@ -42,6 +43,14 @@ describe('ladderMetrics: modal fast path against the engine', () => {
           const tau = stages.reduce((a, s) => a + s.r * s.c, 0);
           fc.pre(tau > l.period && tau < 2000 * l.period);
           const plan = planFor(l, inl);
+          // Skip knife edges where the steady-state excursion equals the band to rounding: there
+          // "never settles" and "settles" are both right within floating point.
+          for (const { to } of plan.steps) {
+            const op = steadyState(l, to);
+            for (const excursion of [op.max - op.average, op.average - op.min]) {
+              fc.pre(Math.abs(excursion - plan.band) > 1e-9 * plan.band);
+            }
+          }
           const fast = ladderMetrics(l, plan);
           const ref = ladderMetrics(l, plan, { engineOnly: true });
           const fs = l.high - l.low;
@@ -53,7 +62,7 @@ describe('ladderMetrics: modal fast path against the engine', () => {
           else expect(Math.abs(fast.settlingTime! - ref.settlingTime)).toBeLessThan(1e-6 * l.period + 1e-9 * ref.settlingTime);
         },
       ),
-      { numRuns: 40, seed: 20261201, endOnFailure: true },
+      { numRuns: 150, seed: 20261201 },
     );
   });
 
