@@ -32,7 +32,8 @@ export function gridPeaks(f: (d: number) => number, a: number, b: number): numbe
  * Method: both ends, then from each hint a bracket walk (three points one grid cell apart,
  * stepped uphill until the middle one is highest or a range end is reached: the bracketing phase
  * of Brent-type minimizers, Press et al., "Numerical Recipes", 3rd ed., 2007, section 10.1) and
- * Brent's maximization (brentMaximize) inside the bracket. A walk longer than the whole range gives
+ * Brent's maximization (brentMaximize) inside the bracket, or inside the last cell when the walk
+ * ran into a range end. A walk longer than the whole range gives
  * up and the engine's full search decides (16-cell grid plus Brent refinement of the two best grid
  * peaks, maximizeOnInterval). With no hints (the similar f peaked only at the ends) f is also
  * checked at the three inner points of a 4-cell grid, and the full search runs if one of them beats
@@ -61,21 +62,29 @@ export function maximizeFromHints(f: (d: number) => number, a: number, b: number
     let f2 = f(x2);
     let f3 = f(x3);
     let walked = 0;
+    // Uphill into a range end: the peak may still lie inside that last cell, so search it too.
+    let lastCell: [number, number] | null = null;
     while (!(f2 >= f1 && f2 >= f3)) {
       if (++walked > DUTY_CELLS) return full();
       if (f1 > f3) {
-        if (x1 - a < 0.5 * step) break; // uphill into the range end, already a candidate
+        if (x1 - a < 0.5 * step) {
+          lastCell = [a, x2];
+          break;
+        }
         [x3, f3, x2, f2] = [x2, f2, x1, f1];
         x1 = Math.max(a, x1 - step);
         f1 = f(x1);
       } else {
-        if (b - x3 < 0.5 * step) break;
+        if (b - x3 < 0.5 * step) {
+          lastCell = [x2, b];
+          break;
+        }
         [x1, f1, x2, f2] = [x2, f2, x3, f3];
         x3 = Math.min(b, x3 + step);
         f3 = f(x3);
       }
     }
-    const top = f2 >= f1 && f2 >= f3 ? brentMaximize(f, x1, x3, 1e-9) : { x: x2, value: f2 };
+    const top = lastCell ? brentMaximize(f, lastCell[0], lastCell[1], 1e-9) : brentMaximize(f, x1, x3, 1e-9);
     const bracketBest = [top, { x: x1, value: f1 }, { x: x3, value: f3 }].reduce((p, q) => (q.value > p.value ? q : p));
     if (bracketBest.value > best.value) best = bracketBest;
   }

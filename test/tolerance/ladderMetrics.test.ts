@@ -55,14 +55,16 @@ describe('ladderMetrics: modal fast path against the engine', () => {
           const ref = ladderMetrics(l, plan, { engineOnly: true });
           const fs = l.high - l.low;
           expect(fast.usedEngine).toBe(false);
-          expect(Math.abs(fast.worstRipple.ripple - ref.worstRipple.ripple)).toBeLessThan(1e-9 * ref.worstRipple.ripple + 1e-15 * fs);
+          // ripple 1e-5 of the level or less keeps fewer digits in both methods (cancellation inside the
+          // period map, about eps (tau/T)^(n-1)): 1e-8 relative
+          expect(Math.abs(fast.worstRipple.ripple - ref.worstRipple.ripple)).toBeLessThan(1e-8 * ref.worstRipple.ripple + 1e-15 * fs);
           expect(Math.abs(fast.droop.error - ref.droop.error)).toBeLessThan(1e-9 * Math.abs(ref.droop.error) + 1e-13 * fs);
           if (inl) expect(Math.abs(fast.inl!.error - ref.inl!.error)).toBeLessThan(1e-9 * Math.abs(ref.inl!.error) + 1e-13 * fs);
           if (ref.settlingTime === null) expect(fast.settlingTime).toBeNull();
           else expect(Math.abs(fast.settlingTime! - ref.settlingTime)).toBeLessThan(1e-6 * l.period + 1e-9 * ref.settlingTime);
         },
       ),
-      { numRuns: 150, seed: 20261201 },
+      { numRuns: 400, seed: 1 },
     );
   });
 

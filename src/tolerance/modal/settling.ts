@@ -221,22 +221,24 @@ export function modalSettling(
       weightsFromModes(coef);
       return leavesWith(slack);
     };
-    // Right-first branch and bound inside [a, b], which is known to leave the band somewhere.
+    // Right-first branch and bound inside [a, b], whose bound leaves the band (exactly so when
+    // a = b). A half whose bound leaves may still hold no violating period: then the other half.
     const lastLeaving = (a: number, b: number): number => {
       if (evaluations > MAX_PERIOD_EVALUATIONS) return Number.NaN;
       if (a === b) return a;
       const mid = Math.floor((a + b) / 2);
-      if (leaves(mid + 1, b)) return lastLeaving(mid + 1, b);
+      if (leaves(mid + 1, b)) {
+        const right = lastLeaving(mid + 1, b);
+        if (right !== -1) return right;
+      }
       return leaves(a, mid) ? lastLeaving(a, mid) : -1;
     };
     // Blocks of 1, 2, 4, ... periods leftwards from `safe`: the envelope bound is usually tight, so
     // the last violation is found within a few periods of it.
-    for (let end = safe - 1, width = 1; end >= 1; width *= 2) {
+    for (let end = safe - 1, width = 1; end >= 1 && last === -1; width *= 2) {
       const start = Math.max(1, end - width + 1);
-      if (leaves(start, end)) {
-        last = lastLeaving(start, end);
-        break;
-      }
+      // a block whose bound leaves the band may still hold no violating period: then go on left
+      if (leaves(start, end)) last = lastLeaving(start, end);
       end = start - 1;
     }
     if (Number.isNaN(last)) return undefined;
