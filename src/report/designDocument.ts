@@ -96,8 +96,12 @@ function tradeoffSection(curves: TradeoffCurve[], result: DesignResult, options:
   }
   const top = Math.max(...finite) * 1.1;
   const limit = result.basis.limits.ripple;
+  // asciichart draws one column per sample: hold each computed point over several columns so the
+  // chart is as wide as the others (no values are invented between the points).
+  const hold = Math.max(1, Math.floor(64 / ripples.length));
+  const widen = (ys: number[]) => ys.flatMap((y) => Array.from({ length: hold }, () => y));
   const chart = lineChart(
-    curves.map((c) => c.points.map((p) => p.settlingTime ?? Infinity)),
+    curves.map((c) => widen(c.points.map((p) => p.settlingTime ?? Infinity))),
     {
       height: 12,
       yUnit: 's',

@@ -64,7 +64,7 @@ describe('ladderMetrics: modal fast path against the engine', () => {
           else expect(Math.abs(fast.settlingTime! - ref.settlingTime)).toBeLessThan(1e-6 * l.period + 1e-9 * ref.settlingTime);
         },
       ),
-      { numRuns: 400, seed: 1 },
+      { numRuns: 400, seed: 4 },
     );
   });
 
