@@ -1,28 +1,14 @@
 /**
  * The circuits and projects `npm run bench` times. All are invented demo scenarios; the projects
- * are the bundled samples (sample-configs/), the ladders are made up here.
+ * are the bundled samples (sample-configs/), the ladders are made up here on the demo pin of the
+ * engine tests (test/engine/ladders.ts).
  */
 import { join } from 'node:path';
-import type { Ladder, Stage } from '../src/circuit/ladder.js';
+import type { Ladder } from '../src/circuit/ladder.js';
 import { timeConstants } from '../src/engine/index.js';
 import type { Project, SearchSettings } from '../src/project/types.js';
-
-/** A 20 kHz, 3.3 V PWM pin with the given stages, open output unless `extra` says otherwise. */
-export function demoLadder(stages: Stage[], extra: Partial<Ladder> = {}): Ladder {
-  return {
-    period: 50e-6,
-    high: 3.3,
-    low: 0,
-    driverHigh: 0,
-    driverLow: 0,
-    stages,
-    loadResistance: null,
-    loadCapacitance: 0,
-    ...extra,
-  };
-}
-
-const stage = (r: number, c: number): Stage => ({ r, c, buffered: false });
+// The demo pin (20 kHz, 3.3 V, open output unless overridden), shared with the engine tests.
+import { ladder, stage } from '../test/engine/ladders.js';
 
 /** A deep copy, so that caches keyed on the ladder object cannot answer for it. */
 export const freshLadder = (l: Ladder): Ladder => ({ ...l, stages: l.stages.map((s) => ({ ...s })) });
@@ -30,11 +16,11 @@ export const freshLadder = (l: Ladder): Ladder => ({ ...l, stages: l.stages.map(
 /** Ripple cases for the ODE comparison: slowest time constant a few tens of periods. */
 export const odeCases: Array<{ name: string; ladder: Ladder; duty: number }> = [
   // 10 kohm, 150 nF: tau = 1.5 ms = 30 periods of 50 us.
-  { name: '1 stage', ladder: demoLadder([stage(10e3, 150e-9)]), duty: 0.3 },
+  { name: '1 stage', ladder: ladder([stage(10e3, 150e-9)]), duty: 0.3 },
   // 3.3 kohm / 330 nF then 33 kohm / 33 nF, 25 ohm driver, 1 Mohm load: slowest tau about 29 periods.
   {
     name: '2 stages',
-    ladder: demoLadder([stage(3.3e3, 330e-9), stage(33e3, 33e-9)], { driverHigh: 25, driverLow: 25, loadResistance: 1e6 }),
+    ladder: ladder([stage(3.3e3, 330e-9), stage(33e3, 33e-9)], { driverHigh: 25, driverLow: 25, loadResistance: 1e6 }),
     duty: 0.3,
   },
 ];
@@ -50,8 +36,8 @@ export const odeCases: Array<{ name: string; ladder: Ladder; duty: number }> = [
 export function ladderWithSlowestTau(stages: 1 | 2, periods: number): Ladder {
   const shape =
     stages === 1
-      ? demoLadder([stage(10e3, 1e-9)], { driverHigh: 30, driverLow: 30 })
-      : demoLadder([stage(1e3, 10e-9), stage(10e3, 1e-9)], { driverHigh: 30, driverLow: 30, loadResistance: 100e3 });
+      ? ladder([stage(10e3, 1e-9)], { driverHigh: 30, driverLow: 30 })
+      : ladder([stage(1e3, 10e-9), stage(10e3, 1e-9)], { driverHigh: 30, driverLow: 30, loadResistance: 100e3 });
   const scale = (periods * shape.period) / timeConstants(shape)[0];
   return { ...shape, stages: shape.stages.map((s) => ({ ...s, c: s.c * scale })) };
 }

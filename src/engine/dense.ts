@@ -75,6 +75,43 @@ export function matvec(a: Matrix, x: Vector, n: number, out: Vector = zeros(n)):
 }
 
 /**
+ * Transposed matrix-vector product a^T x; with orthonormal columns in a, the coordinates of x in
+ * that basis.
+ *
+ * Syntax: transposeMatvec(a, x, n[, out])
+ * Example: transposeMatvec([0, 1, 1, 0], [1, 2], 2)  // [2, 1]
+ */
+export function transposeMatvec(a: Matrix, x: ArrayLike<number>, n: number, out: Vector = zeros(n)): Vector {
+  for (let i = 0; i < n; i++) {
+    let s = 0;
+    for (let k = 0; k < n; k++) s += a[k * n + i] * x[k];
+    out[i] = s;
+  }
+  return out;
+}
+
+/**
+ * U diag(d) U^T for an orthonormal eigenvector matrix U (columns): f(S) = U f(Lambda) U^T for a
+ * symmetric S = U Lambda U^T with d = f(Lambda) (spectral theorem, Golub & Van Loan, Theorem
+ * 8.1.1). Symmetric by construction: only the upper triangle is summed.
+ *
+ * Syntax: spectralMatrix(u, d, n)
+ * Example: spectralMatrix(identity(2), [2, 3], 2)  // [2, 0, 0, 3]
+ */
+export function spectralMatrix(u: Matrix, d: ArrayLike<number>, n: number): Matrix {
+  const out = zeros(n * n);
+  for (let i = 0; i < n; i++) {
+    for (let j = i; j < n; j++) {
+      let s = 0;
+      for (let k = 0; k < n; k++) s += u[i * n + k] * d[k] * u[j * n + k];
+      out[i * n + j] = s;
+      out[j * n + i] = s;
+    }
+  }
+  return out;
+}
+
+/**
  * Row i of a times x: (a x)_i, without forming the whole product.
  *
  * Syntax: rowDot(a, i, x, n)

@@ -1,6 +1,6 @@
 import type { Ladder } from '../circuit/ladder.js';
 import { prepare } from './prepare.js';
-import { symmetricEigenvalues } from './symmetricEigenvalues.js';
+import { symmetricEigen } from './symmetricEigen.js';
 
 /**
  * Time constants of the filter with the driver at the mean of its high and low resistances, s,
@@ -9,7 +9,7 @@ import { symmetricEigenvalues } from './symmetricEigenvalues.js';
  * Method: A is block lower triangular over the follower-free sections, so its eigenvalues are
  * those of the diagonal blocks. On a section A = -C^{-1} G with G symmetric (nodal conductance
  * matrix) and C diagonal, similar to the symmetric S = C^{-1/2} G C^{-1/2}, whose entries are
- * S_ij = -A_ij sqrt(C_i / C_j); its eigenvalues come from cyclic Jacobi (symmetricEigenvalues.ts).
+ * S_ij = -A_ij sqrt(C_i / C_j); its eigenvalues come from cyclic Jacobi (symmetricEigen.ts).
  * All are real and positive: the circuit is passive RC (common practice).
  *
  * Syntax: timeConstants(ladder)
@@ -39,7 +39,7 @@ export function timeConstants(ladder: Ladder): number[] {
           s[j * m + i] = v;
         }
       }
-      for (const lambda of symmetricEigenvalues(s, m)) taus.push(1 / lambda);
+      for (const lambda of symmetricEigen(s, m).values) taus.push(1 / lambda);
     }
     p.timeConstants = taus.sort((x, y) => y - x);
   }

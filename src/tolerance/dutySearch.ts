@@ -37,7 +37,8 @@ export function gridPeaks(f: (d: number) => number, a: number, b: number): numbe
  * up and the engine's full search decides (16-cell grid plus Brent refinement of the two best grid
  * peaks, maximizeOnInterval). With no hints (the similar f peaked only at the ends) f is also
  * checked at the three inner points of a 4-cell grid, and the full search runs if one of them beats
- * both ends; hints = null always runs the full search.
+ * both ends; hints = null always runs the full search. When an end wins but f rises just inside it,
+ * that end's grid cell is searched by Brent too (a peak just inside the range).
  *
  * Syntax: maximizeFromHints(f, a, b, hints)
  * Example: maximizeFromHints((d) => d * (1 - d), 0, 1, [0.48]).x  // 0.5
@@ -49,11 +50,20 @@ export function maximizeFromHints(f: (d: number) => number, a: number, b: number
   let best: Maximum = { x: a, value: f(a) };
   const atB = f(b);
   if (atB > best.value) best = { x: b, value: atB };
+  const step = (b - a) / DUTY_CELLS;
+  // An end that wins may hide a slightly higher peak just inside the range: when f falls toward
+  // that end, its grid cell is searched (the engine's search refines that cell too).
+  const refineEnd = (m: Maximum): Maximum => {
+    if (m.x !== a && m.x !== b) return m;
+    const inside = m.x === a ? a + 1e-7 * step : b - 1e-7 * step;
+    if (!(f(inside) > m.value)) return m;
+    const inCell = m.x === a ? brentMaximize(f, a, a + step, 1e-9) : brentMaximize(f, b - step, b, 1e-9);
+    return inCell.value > m.value ? inCell : m;
+  };
   if (hints.length === 0) {
     for (let i = 1; i < 4; i++) if (f(a + ((b - a) * i) / 4) > best.value) return full();
-    return best;
+    return refineEnd(best);
   }
-  const step = (b - a) / DUTY_CELLS;
   for (const hint of hints) {
     let x2 = Math.min(b - step, Math.max(a + step, hint));
     let x1 = x2 - step;
@@ -88,5 +98,5 @@ export function maximizeFromHints(f: (d: number) => number, a: number, b: number
     const bracketBest = [top, { x: x1, value: f1 }, { x: x3, value: f3 }].reduce((p, q) => (q.value > p.value ? q : p));
     if (bracketBest.value > best.value) best = bracketBest;
   }
-  return best;
+  return refineEnd(best);
 }

@@ -1,4 +1,4 @@
-/** Invented demo circuits for the engine tests (not taken from any product or data sheet). */
+/** Invented demo circuits for the engine tests and the bench (not taken from any product or data sheet). */
 import type { Ladder, Stage } from '../../src/circuit/ladder.js';
 
 export const stage = (r: number, c: number, buffered = false): Stage => ({ r, c, buffered });

@@ -1,21 +1,9 @@
 import { expm, lusolve, matrix, multiply, type Matrix } from 'mathjs';
 import { describe, expect, it } from 'vitest';
 import { odeRipple } from '../../scripts/bench-ode.js';
-import type { Ladder, Stage } from '../../src/circuit/ladder.js';
-
-/** Invented demo circuits: 20 kHz, 3.3 V PWM. */
-const ladder = (stages: Stage[], extra: Partial<Ladder> = {}): Ladder => ({
-  period: 50e-6,
-  high: 3.3,
-  low: 0,
-  driverHigh: 0,
-  driverLow: 0,
-  stages,
-  loadResistance: null,
-  loadCapacitance: 0,
-  ...extra,
-});
-const relative = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
+import type { Ladder } from '../../src/circuit/ladder.js';
+// Invented demo circuits: 20 kHz, 3.3 V PWM (shared engine-test fixtures).
+import { ladder, relative } from '../engine/ladders.js';
 
 /**
  * Periodic steady-state ripple of one RC stage, closed form. Each phase is a first-order step

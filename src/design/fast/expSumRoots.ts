@@ -1,4 +1,4 @@
-import { zeros } from './smallLinear.js';
+import { zeros } from '../../engine/dense.js';
 
 /**
  * All zeros in [0, length] of an exponential sum f(t) = sum_i a_i exp(-r_i t), rates r_i >= 0

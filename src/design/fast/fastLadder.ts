@@ -1,17 +1,17 @@
 import type { Ladder } from '../../circuit/ladder.js';
-import { symmetricEigen } from './symmetricEigen.js';
-import { type Vec, zeros } from './smallLinear.js';
+import { symmetricEigen } from '../../engine/symmetricEigen.js';
+import { zeros } from '../../engine/dense.js';
 
 /** One pin state (high or low) of an unbuffered ladder, in symmetric coordinates y = C^(1/2) x. */
 export interface FastPhase {
   /** Decay rates 1/tau of the modes, ascending (slowest first), 1/s. */
-  rate: Vec;
+  rate: number[];
   /** Orthonormal modes, row-major: mode[k * n + i] is node k of mode i. */
-  mode: Vec;
+  mode: number[];
   /** Output (last node, in V) per unit of each mode's coordinate. */
-  out: Vec;
+  out: number[];
   /** DC state of this pin state alone, symmetric coordinates. */
-  yEq: Vec;
+  yEq: number[];
 }
 
 /** An unbuffered ladder prepared for fast exact evaluation (see fastSteadyState, fastSettlingBound). */
@@ -23,11 +23,11 @@ export interface FastLadder {
   /** Equal driver resistances: the circuit is linear time-invariant and both phases share modes. */
   lti: boolean;
   /** sqrt of the node capacitances (load capacitance included at the last node). */
-  sqrtC: Vec;
+  sqrtC: number[];
   pinHigh: FastPhase;
   pinLow: FastPhase;
   /** yEq(high) - yEq(low), formed without subtraction when the drivers are equal. */
-  delta: Vec;
+  delta: number[];
 }
 
 /**
@@ -38,7 +38,7 @@ export interface FastLadder {
  * Method: nodal analysis C x' = -G_p x + b_p per pin state p (driver in series with R1, load at the
  * last node); with y = C^(1/2) x the system matrix becomes the symmetric S_p = C^(-1/2) G_p C^(-1/2),
  * a positive definite Jacobi (tridiagonal) matrix, so its eigenvalues are real, positive and
- * distinct and exp(-S_p t) = U exp(-Lambda t) U^T exactly (symmetricEigen.ts). DC states from the
+ * distinct and exp(-S_p t) = U exp(-Lambda t) U^T exactly (engine/symmetricEigen.ts). DC states from the
  * tridiagonal solve G_p x = b_p (Thomas algorithm).
  *
  * Syntax: fastLadder(ladder)
@@ -76,7 +76,7 @@ export function fastLadderOf(ladder: FastCircuit, r: ArrayLike<number>, c: Array
   const lti = ladder.driverHigh === ladder.driverLow;
   let pinHigh: FastPhase;
   let pinLow: FastPhase;
-  let delta: Vec;
+  let delta: number[];
   if (lti) {
     // One set of modes; DC states per volt of the source, so Delta needs no subtraction.
     const perVolt = phase(ladder, r, sqrtC, ladder.driverHigh, 1);
@@ -92,13 +92,13 @@ export function fastLadderOf(ladder: FastCircuit, r: ArrayLike<number>, c: Array
   return { n, period: ladder.period, high: ladder.high, low: ladder.low, lti, sqrtC, pinHigh, pinLow, delta };
 }
 
-function scaled(v: Vec, k: number): Vec {
+function scaled(v: number[], k: number): number[] {
   const out = zeros(v.length);
   for (let i = 0; i < v.length; i++) out[i] = v[i] * k;
   return out;
 }
 
-function phase(ladder: FastCircuit, r: ArrayLike<number>, sqrtC: Vec, driver: number, source: number): FastPhase {
+function phase(ladder: FastCircuit, r: ArrayLike<number>, sqrtC: number[], driver: number, source: number): FastPhase {
   const n = r.length;
   // Conductance matrix G (tridiagonal): g[k] links node k-1 (k = 0: the pin) to node k.
   const g = zeros(n);
@@ -119,7 +119,7 @@ function phase(ladder: FastCircuit, r: ArrayLike<number>, sqrtC: Vec, driver: nu
       s[(k + 1) * n + k] = v;
     }
   }
-  const { values, vectors } = symmetricEigen(s, n);
+  const { values, vectors } = symmetricEigen(s, n, { vectors: true });
   const out = zeros(n);
   for (let i = 0; i < n; i++) out[i] = vectors[(n - 1) * n + i] / sqrtC[n - 1];
   // DC state: G x = e_0 g_0 source (Thomas algorithm; G is an M-matrix, no pivoting needed).

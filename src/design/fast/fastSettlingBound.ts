@@ -1,8 +1,8 @@
 import type { FastLadder } from './fastLadder.js';
 import { expSumRoots } from './expSumRoots.js';
 import { fastSteadyState, type FastSteady, type PhaseAtDuty } from './fastSteadyState.js';
-import { symmetricEigen } from './symmetricEigen.js';
-import { type Vec, matMul, matVec, spectralMatrix, transposeVec, zeros } from './smallLinear.js';
+import { symmetricEigen } from '../../engine/symmetricEigen.js';
+import { matmul, matvec, spectralMatrix, transposeMatvec, zeros } from '../../engine/dense.js';
 
 /** Largest period index the search looks at (2^52: beyond it a period count is no longer exact). */
 const MAX_PERIODS = 2 ** 52;
@@ -55,8 +55,8 @@ export function fastSettlingBound(
   }
 
   /** The latest violating instant inside a period that starts with deviation e, or -1. */
-  const lastViolation = (e: Vec): number => {
-    const eFall = matVec(phiH, e, n);
+  const lastViolation = (e: number[]): number => {
+    const eFall = matvec(phiH, e, n);
     const inLow = lateCrossing(low, kLow, plan.wLow, eFall, band, n);
     if (inLow === Infinity) return period;
     if (inLow >= 0) return high.t + inLow;
@@ -71,7 +71,7 @@ export function fastSettlingBound(
   const halfL = spectralMatrix(low.ph.mode, sqrtDecayL, n);
   const psiH = spectralMatrix(high.ph.mode, high.gone, n);
   const nMat = spectralMatrix(low.ph.mode, low.gone, n);
-  const inner = matMul(matMul(halfL, psiH, n), halfL, n);
+  const inner = matmul(matmul(halfL, psiH, n), halfL, n);
   for (let i = 0; i < n * n; i++) nMat[i] += inner[i];
   for (let i = 0; i < n; i++) {
     for (let j = i + 1; j < n; j++) {
@@ -80,12 +80,12 @@ export function fastSettlingBound(
       nMat[j * n + i] = v;
     }
   }
-  const { values: nu, vectors: v } = symmetricEigen(nMat, n);
+  const { values: nu, vectors: v } = symmetricEigen(nMat, n, { vectors: true });
   const logBeta = zeros(n);
   for (let i = 0; i < n; i++) logBeta[i] = Math.log1p(-Math.min(nu[i], 1 - 1e-16));
-  const z = transposeVec(v, matVec(halfL, matVec(phiH, e0, n), n), n);
-  const g = matMul(halfL, v, n); // column j: the state shape of mode j
-  const stateAt = (k: number): Vec => {
+  const z = transposeMatvec(v, matvec(halfL, matvec(phiH, e0, n), n), n);
+  const g = matmul(halfL, v, n); // column j: the state shape of mode j
+  const stateAt = (k: number): number[] => {
     if (k === 0) return e0;
     const e = zeros(n);
     for (let j = 0; j < n; j++) {
@@ -142,9 +142,9 @@ export function fastSettlingBound(
  * Returns Infinity if it is outside the band at the phase end, else the last band crossing
  * inside the phase, or -1 when the whole phase stays inside.
  */
-function lateCrossing(p: PhaseAtDuty, c: number, w: Vec, e: Vec, band: number, n: number): number {
+function lateCrossing(p: PhaseAtDuty, c: number, w: number[], e: number[], band: number, n: number): number {
   if (p.t <= 0) return -1;
-  const modal = transposeVec(p.ph.mode, e, n);
+  const modal = transposeMatvec(p.ph.mode, e, n);
   const b = zeros(n + 1);
   const rate = zeros(n + 1);
   let end = c;

@@ -1,6 +1,6 @@
 import type { FastLadder, FastPhase } from './fastLadder.js';
 import { expSumRoots } from './expSumRoots.js';
-import { type Vec, matMul, matVec, solveSmall, spectralMatrix, transposeVec, zeros } from './smallLinear.js';
+import { luFactor, luSolve, matmul, matvec, spectralMatrix, transposeMatvec, zeros } from '../../engine/dense.js';
 
 /** One phase of a period at a given duty, ready to be evaluated at any time inside it. */
 export interface PhaseAtDuty {
@@ -8,8 +8,8 @@ export interface PhaseAtDuty {
   /** Length, s. */
   t: number;
   /** exp(-rate t) and 1 - exp(-rate t) per mode. */
-  decay: Vec;
-  gone: Vec;
+  decay: number[];
+  gone: number[];
 }
 
 /** Periodic steady state at one duty, output quantities relative to the output at the rising edge. */
@@ -18,17 +18,17 @@ export interface FastSteady {
   high: PhaseAtDuty;
   low: PhaseAtDuty;
   /** y_s - yEq(low): state at the rising edge, symmetric coordinates, as a deviation. */
-  u: Vec;
+  u: number[];
   /** Output at the rising edge, V. */
   yStart: number;
   /** Output deviation in the high phase: sum_i wHigh_i (1 - exp(-rate_i s)). */
-  wHigh: Vec;
+  wHigh: number[];
   /** Output deviation at the falling edge. */
   aOut: number;
   /** State deviation at the falling edge, symmetric coordinates. */
-  a: Vec;
+  a: number[];
   /** Output deviation in the low phase: aOut + sum_i wLow_i (1 - exp(-rate_i s)). */
-  wLow: Vec;
+  wLow: number[];
   /** Largest and smallest output deviation over the period (from yStart), V. */
   maxDev: number;
   minDev: number;
@@ -58,16 +58,16 @@ export function fastSteadyState(model: FastLadder, duty: number): FastSteady {
   const low = phaseAt(model.pinLow, (1 - duty) * period);
   const psiH = spectralMatrix(high.ph.mode, high.gone, n);
   const phiL = spectralMatrix(low.ph.mode, low.decay, n);
-  const phiLpsiH = matMul(phiL, psiH, n);
+  const phiLpsiH = matmul(phiL, psiH, n);
   const sys = spectralMatrix(low.ph.mode, low.gone, n);
   for (let i = 0; i < n * n; i++) sys[i] += phiLpsiH[i];
-  const u = solveSmall(sys, matVec(phiLpsiH, model.delta, n), n);
+  const u = luSolve(luFactor(sys, n), matvec(phiLpsiH, model.delta, n));
 
   const last = n - 1;
   // High phase: y(s) - y_s = Psi_h(s) (Delta - u).
   const vHigh = zeros(n);
   for (let i = 0; i < n; i++) vHigh[i] = model.delta[i] - u[i];
-  const cHigh = transposeVec(high.ph.mode, vHigh, n);
+  const cHigh = transposeMatvec(high.ph.mode, vHigh, n);
   const wHigh = zeros(n);
   const a = zeros(n);
   for (let i = 0; i < n; i++) wHigh[i] = cHigh[i] * high.ph.out[i];
@@ -80,7 +80,7 @@ export function fastSteadyState(model: FastLadder, duty: number): FastSteady {
   // Low phase: y(s) - y_s = a + Psi_l(s) (-u - a).
   const vLow = zeros(n);
   for (let i = 0; i < n; i++) vLow[i] = -u[i] - a[i];
-  const cLow = transposeVec(low.ph.mode, vLow, n);
+  const cLow = transposeMatvec(low.ph.mode, vLow, n);
   const wLow = zeros(n);
   for (let i = 0; i < n; i++) wLow[i] = cLow[i] * low.ph.out[i];
 
@@ -116,7 +116,7 @@ export function fastSteadyState(model: FastLadder, duty: number): FastSteady {
 }
 
 /** Extremes of offset + sum_i w_i (1 - exp(-rate_i s)) at its turning points in (0, t), into ext. */
-function scanPhase(w: Vec, rate: Vec, t: number, offset: number, n: number, ext: number[]): void {
+function scanPhase(w: number[], rate: number[], t: number, offset: number, n: number, ext: number[]): void {
   const slope = zeros(n);
   for (let i = 0; i < n; i++) slope[i] = w[i] * rate[i];
   for (const s of expSumRoots(slope, rate, t)) {

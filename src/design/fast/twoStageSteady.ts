@@ -91,7 +91,7 @@ export function twoStageSteady(k: FastCircuit, r1: number, c1: number, r2: numbe
   const m22 = PSI_L[3] + a22;
   const r1v = a11 * d1 + a12 * d2;
   const r2v = a21 * d1 + a22 * d2;
-  // Solve with partial pivoting (Gaussian elimination, as smallLinear.solveSmall).
+  // Solve with partial pivoting (Gaussian elimination unrolled for order 2, as engine/dense.luFactor).
   let u1: number;
   let u2: number;
   if (Math.abs(m11) >= Math.abs(m21)) {

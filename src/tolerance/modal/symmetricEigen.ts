@@ -21,6 +21,7 @@ export interface SymmetricEigen {
  * Example: symmetricEigen([2, 1, 1, 2], 2).values  // [1, 3]
  */
 export function symmetricEigen(a: ArrayLike<number>, n: number): SymmetricEigen {
+  if (n === 2) return twoByTwo(a[0], a[1], a[3]);
   const m = Array.from({ length: n * n }, (_, i) => a[i]);
   const v = zeros(n * n);
   for (let i = 0; i < n; i++) v[i * n + i] = 1;
@@ -73,4 +74,17 @@ export function symmetricEigen(a: ArrayLike<number>, n: number): SymmetricEigen 
   const values = zeros(n);
   for (let i = 0; i < n; i++) values[i] = m[i * n + i];
   return { values, vectors: v };
+}
+
+/** One Jacobi rotation diagonalizes a 2 x 2 matrix exactly (the same formulas as the sweep above). */
+function twoByTwo(app: number, apq: number, aqq: number): SymmetricEigen {
+  if (apq === 0 || Math.abs(apq) <= Number.EPSILON * 0.5 * Math.sqrt(Math.abs(app * aqq))) {
+    return { values: [app, aqq], vectors: [1, 0, 0, 1] };
+  }
+  const theta = (aqq - app) / (2 * apq);
+  const t =
+    Math.abs(theta) > 1e150 ? 1 / (2 * theta) : (theta >= 0 ? 1 : -1) / (Math.abs(theta) + Math.sqrt(theta * theta + 1));
+  const c = 1 / Math.sqrt(t * t + 1);
+  const s = t * c;
+  return { values: [app - t * apq, aqq + t * apq], vectors: [c, s, -s, c] };
 }

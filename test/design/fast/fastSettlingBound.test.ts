@@ -3,19 +3,12 @@ import type { Ladder } from '../../../src/circuit/ladder.js';
 import { fastLadder } from '../../../src/design/fast/fastLadder.js';
 import { fastSettlingBound } from '../../../src/design/fast/fastSettlingBound.js';
 import { fastSteadyState } from '../../../src/design/fast/fastSteadyState.js';
+import { ladder as demoLadder, stage } from '../../engine/ladders.js';
 import { simulate } from './odexLadder.js';
 
-const ladder = (stages: Array<[number, number]>, extra: Partial<Ladder> = {}): Ladder => ({
-  period: 1e-4,
-  high: 3.3,
-  low: 0,
-  driverHigh: 0,
-  driverLow: 0,
-  stages: stages.map(([r, c]) => ({ r, c, buffered: false })),
-  loadResistance: null,
-  loadCapacitance: 0,
-  ...extra,
-});
+/** Unbuffered [R, C] stages on the demo pin of the engine tests, at 10 kHz. */
+const ladder = (stages: Array<[number, number]>, extra: Partial<Ladder> = {}): Ladder =>
+  demoLadder(stages.map(([r, c]) => stage(r, c)), { period: 1e-4, ...extra });
 
 describe('fastSettlingBound', () => {
   it('one stage, ripple well inside the band: tau ln(S / band) within a period (textbook first-order step)', () => {

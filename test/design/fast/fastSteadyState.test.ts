@@ -4,19 +4,12 @@ import type { Ladder } from '../../../src/circuit/ladder.js';
 import { fastLadder } from '../../../src/design/fast/fastLadder.js';
 import { fastSteadyState } from '../../../src/design/fast/fastSteadyState.js';
 import { steadyState } from '../../../src/engine/index.js';
+import { ladder as demoLadder, stage } from '../../engine/ladders.js';
 import { simulate } from './odexLadder.js';
 
-const ladder = (stages: Array<[number, number]>, extra: Partial<Ladder> = {}): Ladder => ({
-  period: 1e-4,
-  high: 3.3,
-  low: 0,
-  driverHigh: 0,
-  driverLow: 0,
-  stages: stages.map(([r, c]) => ({ r, c, buffered: false })),
-  loadResistance: null,
-  loadCapacitance: 0,
-  ...extra,
-});
+/** Unbuffered [R, C] stages on the demo pin of the engine tests, at 10 kHz. */
+const ladder = (stages: Array<[number, number]>, extra: Partial<Ladder> = {}): Ladder =>
+  demoLadder(stages.map(([r, c]) => stage(r, c)), { period: 1e-4, ...extra });
 
 describe('fastSteadyState: one stage against the textbook formula', () => {
   // Peak-to-peak ripple of a first-order RC driven by a rectangular wave in steady state:

@@ -1,0 +1,77 @@
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { describeError } from '../../src/cli/errors.js';
+import { runTolerance, type ToleranceArgs } from '../../src/cli/tolerance.js';
+
+// The command's work function, run in-process (the lead registers the command in main.ts).
+const sample = 'sample-configs/tolerance-fan-reference.yaml';
+const args = (extra: Partial<ToleranceArgs>): ToleranceArgs => ({
+  file: sample,
+  format: 'text',
+  charts: true,
+  samples: 2000,
+  workers: 1,
+  ...extra,
+});
+
+describe('dacsmith tolerance', () => {
+  it('prints the worst case, the yield and histograms with the limit marked; exit 1 when a worst case fails', async () => {
+    const out = await runTolerance(args({}), { color: false });
+    expect(out.stdout).toContain('Worst case over the tolerance box');
+    expect(out.stdout).toContain('Monte Carlo');
+    expect(out.stdout).toMatch(/yield: +\d+\.\d\d % \(\d+ of 2000/);
+    expect(out.stdout).toContain('Distributions');
+    expect(out.stdout).toMatch(/-+ {2}limit 280 µV/);
+    expect(out.stdout).toContain('FAIL: worst case fails: worst ripple');
+    expect(out.stdout).not.toMatch(/\x1b\[/);
+    expect(out.code).toBe(1);
+  });
+
+  it('JSON holds the contract keys, SI numbers, nothing else on stdout, and repeats with the same seed', async () => {
+    const a = await runTolerance(args({ format: 'json', seed: 77 }), { color: false });
+    const body = JSON.parse(a.stdout);
+    expect(body.worstCase.worstRipple.value).toBeGreaterThan(2.8e-4);
+    expect(body.worstCase.worstRipple.pass).toBe(false);
+    expect(typeof body.worstCase.settlingTime.value).toBe('number');
+    expect(typeof body.worstCase.droop.value).toBe('number');
+    expect(body.monteCarlo.samples).toBe(2000);
+    expect(body.monteCarlo.seed).toBe(77);
+    expect(body.monteCarlo.yield).toBeGreaterThan(0.9);
+    expect(body.monteCarlo.yield).toBeLessThanOrEqual(1);
+    expect(Object.keys(body.worstCase.worstRipple.at)).toContain('driver.high');
+    const b = await runTolerance(args({ format: 'json', seed: 77 }), { color: false });
+    expect(b.stdout).toBe(a.stdout);
+    const c = await runTolerance(args({ format: 'json', seed: 78 }), { color: false });
+    expect(JSON.parse(c.stdout).monteCarlo.percentiles).not.toEqual(body.monteCarlo.percentiles);
+  });
+
+  it('Markdown: the same sections as GitHub-flavoured Markdown', async () => {
+    const out = await runTolerance(args({ format: 'markdown', samples: 500 }), { color: false });
+    expect(out.stdout.startsWith('# Tolerance study: ')).toBe(true);
+    expect(out.stdout).toContain('## Monte Carlo');
+    expect(out.stdout).toMatch(/\| figure \| nominal \| worst case \|/);
+    expect(out.stdout).toContain('```text');
+  });
+
+  it('exit 0 when every limit holds at the worst case and no yield target is set', async () => {
+    const out = await runTolerance(
+      { file: 'sample-configs/greenhouse-heater.yaml', format: 'json', charts: false, samples: 300, workers: 1 },
+      { color: false },
+    );
+    expect(JSON.parse(out.stdout).pass).toBe(true);
+    expect(out.code).toBe(0);
+  });
+
+  it('bad input is exit 2 with a message naming the file and key', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'dacsmith-tol-'));
+    const file = join(dir, 'no-tolerance.yaml');
+    writeFileSync(file, 'pwm: { frequency: 20 kHz, high: 3.3 V }\nfilter:\n  stages:\n    - { r: 1k, c: 1u }\n');
+    const missing = await runTolerance({ file, format: 'text', charts: false, workers: 1 }, { color: false }).catch((e) => e);
+    expect(describeError(missing)).toEqual({ code: 2, message: expect.stringMatching(/no-tolerance\.yaml: tolerance: /) });
+    const zero = await runTolerance(args({ samples: 0 }), { color: false }).catch((e) => e);
+    expect(describeError(zero).code).toBe(2);
+    expect(describeError(zero).message).toContain('--samples');
+  });
+});
