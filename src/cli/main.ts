@@ -7,6 +7,7 @@ import { checkCommand } from './check.js';
 import { compareCommand } from './compare.js';
 import { initCommand } from './init.js';
 import { designCommand } from './design.js';
+import { toleranceCommand } from './tolerance.js';
 import { describeError, UsageError } from './errors.js';
 
 /** Print what a command produced and set the exit code; map thrown errors to messages and codes. */
@@ -37,6 +38,7 @@ export async function main(argv: string[]): Promise<void> {
     .usage('$0 <command> [options]\n\nPlan the RC filter that turns a PWM output into an analog voltage.')
     .command(analyzeCommand(run, color))
     .command(designCommand(run, color))
+    .command(toleranceCommand(run, color))
     .command(checkCommand(run, color))
     .command(compareCommand(run, color))
     .command(initCommand(run))
