@@ -9,6 +9,8 @@ export interface DesignArgs {
   write?: string;
   force: boolean;
   charts: boolean;
+  /** Keep only designs that meet the spec under part tolerances. */
+  robust?: 'worst-case' | 'yield';
 }
 
 /** A progress bar on a terminal stream: redrawn at most every 100 ms, erased when done. */
@@ -34,6 +36,7 @@ function progressBar(stream: NodeJS.WriteStream): { update: (f: number) => void;
 /**
  * Run `design`: load the project, search the standard-value filters, render the report, and with
  * `--write` save design #1 as a project file (never over an existing file without `--force`).
+ * With `robust`, only designs that pass the tolerance check (design/robustDesigns.ts) are listed.
  * Exit 0 when a design meets every limit, 1 when none does, 2 for bad input.
  *
  * Syntax: runDesign(args, { color, progress })
@@ -48,18 +51,27 @@ export async function runDesign(
   if (args.write !== undefined && !args.force && fs.existsSync(args.write)) {
     return { stdout: '', stderr: `dacsmith: ${args.write} exists; use --force to overwrite it\n`, code: EXIT_BAD_INPUT };
   }
-  const [{ loadProject }, { designSearch, DesignInputError, tradeoffCurves }, { designReport }] = await Promise.all([
-    import('../project/index.js'),
-    import('../design/index.js'),
-    import('../report/design.js'),
-  ]);
+  const [{ loadProject }, { designSearch, DesignInputError, tradeoffCurves }, { designReport }, { robustDesigns }, { ToleranceInputError }] =
+    await Promise.all([
+      import('../project/index.js'),
+      import('../design/index.js'),
+      import('../report/design.js'),
+      import('../design/robustDesigns.js'),
+      import('../tolerance/index.js'),
+    ]);
   const project = loadProject(args.file);
   const bar = tty.progress ? progressBar(tty.progress) : null;
   let result;
   let tradeoff;
+  let robust;
   try {
     const share = args.charts ? 0.5 : 1;
-    result = designSearch(project, { top: args.top, ...(bar && { onProgress: (f: number) => bar.update(share * f) }) });
+    if (args.robust) {
+      robust = robustDesigns(project, args.robust, { top: args.top, ...(bar && { onProgress: (f: number) => bar.update(share * f) }) });
+      result = { ...robust.nominal, candidates: robust.candidates.map((r) => r.candidate), feasible: robust.candidates.length > 0, diagnosis: [] };
+    } else {
+      result = designSearch(project, { top: args.top, ...(bar && { onProgress: (f: number) => bar.update(share * f) }) });
+    }
     if (args.charts) {
       const best = result.candidates[0];
       const atBits = result.resolutions.length > 0 && best?.bits != null ? best.bits : undefined;
@@ -75,7 +87,7 @@ export async function runDesign(
       }
     }
   } catch (error) {
-    if (error instanceof DesignInputError) throw new UsageError(error.message);
+    if (error instanceof DesignInputError || error instanceof ToleranceInputError) throw new UsageError(error.message);
     throw error;
   } finally {
     bar?.done();
@@ -99,6 +111,7 @@ export async function runDesign(
     ...(tradeoff && { tradeoff }),
     color: args.format === 'text' && tty.color,
     ...(written && { written }),
+    ...(robust && { robust }),
   });
   return { stdout, stderr, code: result.feasible ? EXIT_PASS : EXIT_SPEC_FAILS };
 }
@@ -124,10 +137,16 @@ export function designCommand(
         .option('top', { describe: 'Number of designs to list', type: 'number', default: 10, requiresArg: true })
         .option('write', { describe: 'Write design #1 as a project file (the original with filter.stages replaced)', type: 'string', requiresArg: true })
         .option('force', { describe: 'Let --write replace an existing file', type: 'boolean', default: false })
+        .option('robust', {
+          describe: 'Keep only designs that meet every limit at the worst case of the tolerance: block, or whose Monte Carlo yield reaches tolerance.yield',
+          choices: ['worst-case', 'yield'] as const,
+          requiresArg: true,
+        })
         .option('charts', { describe: 'Compute and draw the settling/ripple trade-off (--no-charts: faster)', type: 'boolean', default: true })
         .example('$0 design sample-configs/design-tight-ripple.yaml', 'Ranked designs, trade-off chart, comparison')
         .example('$0 design board.yaml --top 3 --no-charts', 'Three best designs, no trade-off curves')
         .example('$0 design board.yaml --write board-designed.yaml', 'Save design #1 as a new project file')
+        .example('$0 design board.yaml --robust worst-case --no-charts', 'Only designs that survive the tolerance box')
         .example('$0 design board.yaml --format json > designs.json', 'Machine-readable result (SI units)') as unknown as Argv<DesignArgs>,
     handler: (args) =>
       run(() =>

@@ -1,4 +1,5 @@
 import type { TradeoffCurve } from '../design/tradeoffCurves.js';
+import type { RobustResult } from '../design/robustDesigns.js';
 import type { Candidate, DesignResult } from '../design/types.js';
 import type { Project } from '../project/types.js';
 import { designDocument, margins, stageCodes } from './designDocument.js';
@@ -12,6 +13,8 @@ export interface DesignReportOptions {
   color?: boolean;
   /** File the chosen design was written to. */
   written?: string;
+  /** The tolerance check behind `--robust` (the result then lists only robust designs). */
+  robust?: RobustResult;
 }
 
 // asciichart colour codes per curve (one stage, two, three), used only when colour is on.
@@ -19,6 +22,30 @@ const CURVE_COLORS = ['\x1b[33m', '\x1b[36m', '\x1b[35m'];
 
 /** JSON has no Infinity or NaN. */
 const finite = (v: number | null | undefined) => (v === null || v === undefined || !Number.isFinite(v) ? null : v);
+
+function robustJson(r: RobustResult) {
+  return {
+    mode: r.mode,
+    scanned: r.scanned,
+    exhausted: r.exhausted,
+    asked: r.asked,
+    samples: r.samples,
+    candidates: r.candidates.map((x) => ({
+      nominalRank: x.nominalRank,
+      codes: stageCodes(x.candidate),
+      pass: x.verdict.pass,
+      ...(x.verdict.worstCase && {
+        worstCase: {
+          ...x.verdict.worstCase,
+          settlingTime: finite(x.verdict.worstCase.settlingTime),
+          worstRipple: finite(x.verdict.worstCase.worstRipple),
+          droop: finite(x.verdict.worstCase.droop),
+        },
+      }),
+      ...(x.verdict.yield && { yield: x.verdict.yield }),
+    })),
+  };
+}
 
 function candidateJson(c: Candidate) {
   return {
@@ -43,7 +70,8 @@ function candidateJson(c: Candidate) {
 /**
  * The design result as text (terminal), GitHub-flavoured Markdown, or one JSON object (model.md:
  * `candidates` best first, each { stages: [{ r, c }], worstRipple, settlingTime, droop, pass } and
- * more; `evaluated`; all numbers SI, null for never / unknown).
+ * more; `evaluated`; with `robust`, `robust: { mode, scanned, candidates: [{ nominalRank, worstCase |
+ * yield }] }`; all numbers SI, null for never / unknown).
  *
  * Syntax: designReport(project, result, format[, { tradeoff, color, written }])
  * Example: JSON.parse(designReport(p, designSearch(p), 'json')).candidates[0].settlingTime
@@ -66,6 +94,7 @@ export function designReport(project: Project, result: DesignResult, format: Des
       })),
       basis: result.basis,
       written: options.written ?? null,
+      ...(options.robust && { robust: robustJson(options.robust) }),
     };
     return JSON.stringify(body, null, 2) + '\n';
   }
@@ -74,6 +103,7 @@ export function designReport(project: Project, result: DesignResult, format: Des
     ...(options.tradeoff ? { tradeoff: options.tradeoff } : {}),
     ...(color ? { chartColors: CURVE_COLORS } : {}),
     ...(options.written ? { written: options.written } : {}),
+    ...(options.robust ? { robust: options.robust } : {}),
   });
   return renderDocument(doc, format, { color });
 }

@@ -1,4 +1,5 @@
 import type { TradeoffCurve } from '../design/tradeoffCurves.js';
+import type { RobustResult } from '../design/robustDesigns.js';
 import type { Candidate, DesignResult } from '../design/types.js';
 import type { Project } from '../project/types.js';
 import { formatEng, formatIec60062 } from '../units/index.js';
@@ -13,6 +14,8 @@ export interface DesignDocumentOptions {
   chartColors?: string[];
   /** The file a chosen design was written to. */
   written?: string;
+  /** The tolerance check behind `--robust`. */
+  robust?: RobustResult;
 }
 
 /** Check names as the project file spells the limits. */
@@ -83,6 +86,39 @@ function candidateTable(result: DesignResult, lsbOf: (c: Candidate) => number | 
     'left' | 'right'
   >;
   return { kind: 'table', header, rows, align };
+}
+
+/** The robust designs' figures under tolerance: worst case over the box, or Monte Carlo yield. */
+function robustSection(r: RobustResult, lsbOf: (c: Candidate) => number | null): Section {
+  const pairs: Array<[string, string]> = [
+    ['Check', r.mode === 'worst-case' ? 'every limit at the worst case over the box of the tolerance: block' : `Monte Carlo yield, ${r.samples} samples per design`],
+    ['Scanned', `${r.scanned} nominally feasible design${r.scanned === 1 ? '' : 's'} in ranking order${r.exhausted ? ' (all of them)' : ''}`],
+  ];
+  const blocks: Block[] = [{ kind: 'pairs', pairs }];
+  if (r.candidates.length > 0) {
+    const wc = r.mode === 'worst-case';
+    const header = wc
+      ? ['#', 'nominal rank', 'codes', 'settling (worst)', 'ripple (worst)', 'droop (worst)', 'pin current (worst)']
+      : ['#', 'nominal rank', 'codes', 'yield', 'target'];
+    const rows = r.candidates.map((x, i) => {
+      const head = [String(i + 1), String(x.nominalRank), stageCodes(x.candidate)];
+      const w = x.verdict.worstCase;
+      const y = x.verdict.yield;
+      if (wc && w) {
+        const lsb = lsbOf(x.candidate);
+        return [
+          ...head,
+          w.settlingTime === null ? 'never' : formatEng(w.settlingTime, 's', 4),
+          volts(w.worstRipple, lsb),
+          volts(w.droop, lsb),
+          formatEng(w.pinCurrent, 'A', 3),
+        ];
+      }
+      return [...head, y ? percent(y.yield) : '-', y ? percent(y.target) : '-'];
+    });
+    blocks.push({ kind: 'table', header, rows, align: header.map((_, i) => (i === 2 ? 'left' : 'right')) as Array<'left' | 'right'> });
+  }
+  return { title: r.mode === 'worst-case' ? 'Under tolerance: worst case' : 'Under tolerance: yield', blocks };
 }
 
 function tradeoffSection(curves: TradeoffCurve[], result: DesignResult, options: DesignDocumentOptions): Section | null {
@@ -156,7 +192,8 @@ function comparisonSection(current: Candidate, best: Candidate | undefined, lsb:
  * The design result as a report document (the same blocks for text and Markdown): search basis and
  * effort, the ranked designs with values, IEC 60062 codes and margins, the trade-off chart, the
  * best design per resolution, the comparison with the project's `filter:` design, and, when nothing
- * is feasible, what binds.
+ * is feasible, what binds. With `robust`, the designs listed are the robust ones and a section
+ * gives their figures under tolerance.
  *
  * Syntax: designDocument(project, result[, { tradeoff, chartColors, written }])
  * Example: designDocument(p, designSearch(p)).verdict.pass   // true when a design meets every limit
@@ -192,7 +229,11 @@ export function designDocument(project: Project, result: DesignResult, options: 
   ];
   const sections: Section[] = [{ title: 'Search', blocks: [{ kind: 'pairs', pairs }] }];
 
-  if (result.feasible) {
+  const robust = options.robust;
+  if (robust) {
+    if (result.feasible) sections.push({ title: 'Recommended robust designs (nominal figures)', blocks: [candidateTable(result, lsbOf)] });
+    sections.push(robustSection(robust, lsbOf));
+  } else if (result.feasible) {
     sections.push({ title: 'Recommended designs (exact figures)', blocks: [candidateTable(result, lsbOf)] });
   } else {
     const blocks: Block[] = [{ kind: 'list', items: result.diagnosis }];
@@ -225,7 +266,20 @@ export function designDocument(project: Project, result: DesignResult, options: 
   if (options.written) sections.push({ title: 'Written', blocks: [{ kind: 'text', text: `Design #1 written to ${options.written}` }] });
 
   const best = result.candidates[0];
-  const verdict = result.feasible
+  const under = robust?.mode === 'worst-case' ? 'at the worst case over the tolerance box' : `with a yield of at least the target`;
+  const verdict = robust
+    ? result.feasible
+      ? { pass: true, text: `PASS: ${result.candidates.length} design${result.candidates.length > 1 ? 's' : ''} meet every limit ${under}; #1 settles in ${formatEng(best.settlingTime ?? NaN, 's', 4)} (nominal)` }
+      : {
+          pass: false,
+          text:
+            robust.scanned === 0
+              ? 'FAIL: no design in the search space meets every limit even with nominal parts'
+              : robust.scanned === 1
+                ? `FAIL: the only nominally feasible design misses a limit ${under}`
+                : `FAIL: none of the ${robust.scanned} nominally feasible designs scanned meets every limit ${under}`,
+        }
+    : result.feasible
     ? { pass: true, text: `PASS: ${result.candidates.length} design${result.candidates.length > 1 ? 's' : ''} meet every limit; #1 settles in ${formatEng(best.settlingTime ?? NaN, 's', 4)}` }
     : { pass: false, text: 'FAIL: no design in the search space meets every limit' };
   return { title: `dacsmith design: ${project.file}`, sections, verdict };

@@ -7,7 +7,7 @@ import type { Effect, WorstCaseFigure, WorstCaseResult } from '../tolerance/wors
 import { formatEng } from '../units/index.js';
 import { palette } from './color.js';
 import type { Block, ReportDocument, Section } from './document.js';
-import { percent, voltsAndLsb } from './quantities.js';
+import { percent, tidy, voltsAndLsb } from './quantities.js';
 import { table, type Align } from './table.js';
 
 type ToleranceStudy = ToleranceStudyResult;
@@ -59,10 +59,11 @@ function toleranceDocument(
 ): ReportDocument {
   const { worstCase: wc, monteCarlo: mc } = study;
   const lsb = project.lsb ?? null;
+  const fullScale = project.pwm.high - project.pwm.low;
   const sections: Section[] = [
     parametersSection(wc.parameters, mc),
-    worstCaseSection(wc, lsb),
-    monteCarloSection(mc, lsb),
+    worstCaseSection(wc, lsb, fullScale),
+    monteCarloSection(mc, lsb, fullScale),
   ];
   if (options.charts) sections.push(histogramSection(mc, options.bins));
   return {
@@ -90,9 +91,13 @@ function parametersSection(parameters: ToleranceParameter[], mc: MonteCarloResul
   return { title: 'Parts and tolerances', blocks };
 }
 
-function figureText(f: WorstCaseFigure | { figure: WorstCaseFigure['figure']; value: number | null }, lsb: number | null): string {
+function figureText(
+  f: WorstCaseFigure | { figure: WorstCaseFigure['figure']; value: number | null },
+  lsb: number | null,
+  fullScale: number,
+): string {
   if (f.value === null) return 'never settles';
-  return f.figure === 'settling' ? formatEng(f.value, 's', 4) : voltsAndLsb(f.value, lsb);
+  return f.figure === 'settling' ? formatEng(f.value, 's', 4) : voltsAndLsb(tidy(f.value, fullScale), lsb);
 }
 
 function limitText(f: WorstCaseFigure, lsb: number | null): string {
@@ -102,7 +107,7 @@ function limitText(f: WorstCaseFigure, lsb: number | null): string {
 
 const verdictCell = (pass: boolean | null) => (pass === null ? '-' : pass ? 'PASS' : 'FAIL');
 
-function worstCaseSection(wc: WorstCaseResult, lsb: number | null): Section {
+function worstCaseSection(wc: WorstCaseResult, lsb: number | null, fullScale: number): Section {
   const figures = [wc.worstRipple, wc.droop, ...(wc.inl ? [wc.inl] : []), wc.settlingTime];
   const nominalValue = (f: WorstCaseFigure): number | null => {
     const n = wc.nominal;
@@ -119,8 +124,8 @@ function worstCaseSection(wc: WorstCaseResult, lsb: number | null): Section {
   };
   const rows = figures.map((f) => [
     FIGURE_NAMES[f.figure],
-    figureText({ figure: f.figure, value: nominalValue(f) }, lsb),
-    figureText(f, lsb),
+    figureText({ figure: f.figure, value: nominalValue(f) }, lsb, fullScale),
+    figureText(f, lsb, fullScale),
     limitText(f, lsb),
     verdictCell(f.pass),
     f.duty === null ? '-' : percent(f.duty),
@@ -172,7 +177,7 @@ const EFFECT_WORDS: Record<Effect, string> = {
   mixed: 'mixed',
 };
 
-function monteCarloSection(mc: MonteCarloResult, lsb: number | null): Section {
+function monteCarloSection(mc: MonteCarloResult, lsb: number | null, fullScale: number): Section {
   const [lo, hi] = mc.yieldInterval;
   const yieldText = `${percent4(mc.yield)} (${mc.passed} of ${mc.samples}; 95 % interval ${percent4(lo)} to ${percent4(hi)})`;
   const pairs: Array<[string, string]> = [
@@ -189,7 +194,7 @@ function monteCarloSection(mc: MonteCarloResult, lsb: number | null): Section {
   const specRows = (['ripple', 'droop', 'inl', 'settling'] as const)
     .filter((k) => mc.yieldBySpec[k] !== undefined)
     .map((k) => [FIGURE_NAMES[k], percent4(mc.yieldBySpec[k]!)]);
-  const volts = (v: number) => voltsAndLsb(v, lsb);
+  const volts = (v: number) => voltsAndLsb(tidy(v, fullScale), lsb);
   const seconds = (s: number) => (Number.isFinite(s) ? formatEng(s, 's', 4) : 'never');
   const row = (name: string, p: Percentiles, fmt: (v: number) => string, limit: number | undefined) => [
     name,

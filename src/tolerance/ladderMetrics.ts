@@ -18,7 +18,7 @@ export interface LadderMetrics {
   inl: { duty: number; error: number } | null;
   /** Slowest settling time over the plan's steps, s; null = never settles. */
   settlingTime: number | null;
-  /** Some figure needed the engine's matrix-exponential path (a follower inside the ladder, ...). */
+  /** Some figure needed the engine's matrix-exponential path (a cascade's settling, ...). */
   usedEngine: boolean;
 }
 
@@ -30,13 +30,15 @@ export interface LadderMetricsOptions {
 /**
  * Worst ripple, droop, INL and settling time of one ladder, exactly, for tolerance studies.
  *
- * Method: the modal fast path (modal/*) when the ladder has no follower inside it, the engine
- * otherwise (or for a settling step the fast path declines). Worst ripple: Brent's maximization
- * from the nominal ripple peaks in the plan (maximizeFromHints), falling back to the engine's full
- * grid search when a peak has moved too far. Droop and INL: with equal driver resistances
- * average(D) is affine in D (the circuit is then linear time-invariant, and its mean output is the
- * DC gain times the mean pin voltage), so both extremes are at the range ends; otherwise the same
- * hinted search on the exact averages. Settling: modalSettling per step, slowest counts.
+ * Method: the modal form of the ladder (modal/modalLadder.ts; a cascade of sections when
+ * followers sit inside it, modal/cascadeLadder.ts) when it exists, the engine otherwise (sections
+ * sharing a mode); settling of a cascade, or a step the modal search declines, also comes from the
+ * engine. Worst ripple: Brent's maximization from the nominal ripple peaks in the plan
+ * (maximizeFromHints), falling back to the engine's full grid search when a peak has moved too far.
+ * Droop and INL: with equal driver resistances average(D) is affine in D (the circuit is then
+ * linear time-invariant, and its mean output is the DC gain times the mean pin voltage), so both
+ * extremes are at the range ends; otherwise the same hinted search on the exact averages.
+ * Settling: modalSettling per step, the slowest counts.
  *
  * Syntax: ladderMetrics(ladder, plan[, { engineOnly }])
  * Example: ladderMetrics(ladder, metricPlan(p, ladder)).worstRipple.ripple  // V

@@ -94,6 +94,9 @@ export function worstCase(project: Project, ladder?: Ladder, options: WorstCaseO
   };
 
   const figures: Figure[] = ['ripple', 'droop', ...(plan.inl ? (['inl'] as Figure[]) : []), 'settling'];
+  // Below these a change is rounding noise: 1e-12 of full scale for voltages, 1e-9 T for time.
+  const floorOf = (f: Figure) =>
+    f === 'settling' ? 1e-9 * nominalLadder.period : 1e-12 * Math.abs(nominalLadder.high - nominalLadder.low);
   const scanPoints = distinctPoints([
     new Array(P).fill(0),
     new Array(P).fill(-1),
@@ -109,7 +112,7 @@ export function worstCase(project: Project, ladder?: Ladder, options: WorstCaseO
       const line = SCAN_LEVELS.map((level) => evaluate(withCoordinate(x, p, level)));
       for (const f of figures) {
         const s = line.map((m) => severity(m, f));
-        signs.get(f)!.add(compare(s[1], s[0])).add(compare(s[2], s[1]));
+        signs.get(f)!.add(compare(s[1], s[0], floorOf(f))).add(compare(s[2], s[1], floorOf(f)));
       }
     }
     for (const f of figures) {
@@ -125,7 +128,7 @@ export function worstCase(project: Project, ladder?: Ladder, options: WorstCaseO
     let z: number[] = eff.map((e) => (e === 'raises' ? 1 : e === 'lowers' ? -1 : 0));
     const mixed = eff.flatMap((e, p) => (e === 'mixed' ? [p] : []));
     for (let round = 0; round < (mixed.length > 1 ? 2 : 1); round++) {
-      for (const p of mixed) z = lineSearch(z, p, (y) => severity(evaluate(y), f));
+      for (const p of mixed) z = lineSearch(z, p, (y) => severity(evaluate(y), f), floorOf(f));
     }
     results.set(f, { z, searched: mixed.map((p) => parameters[p].key), sweptWorse: false });
   }
@@ -136,7 +139,7 @@ export function worstCase(project: Project, ladder?: Ladder, options: WorstCaseO
       const m = evaluate(corner);
       for (const f of figures) {
         const r = results.get(f)!;
-        if (compare(severity(m, f), severity(evaluate(r.z), f)) > 0) {
+        if (compare(severity(m, f), severity(evaluate(r.z), f), floorOf(f)) > 0) {
           results.set(f, { ...r, z: corner, sweptWorse: true });
         }
       }
@@ -214,12 +217,15 @@ function limitOf(plan: MetricPlan, f: Figure): number | null {
   return v ?? null;
 }
 
-/** Sign of b - a, treating differences below 1e-9 of the larger magnitude as no change. */
-function compare(b: number, a: number): number {
+/**
+ * Sign of b - a, treating differences below 1e-9 of the larger magnitude, or below `floor`, as no
+ * change (rounding noise, e.g. the DC error of an open output, which is zero).
+ */
+function compare(b: number, a: number, floor = 0): number {
   if (a === b) return 0;
   if (!Number.isFinite(a) || !Number.isFinite(b)) return b > a ? 1 : -1;
   const scale = Math.max(Math.abs(a), Math.abs(b));
-  if (Math.abs(b - a) <= 1e-9 * scale) return 0;
+  if (Math.abs(b - a) <= Math.max(1e-9 * scale, floor)) return 0;
   return b > a ? 1 : -1;
 }
 
@@ -240,18 +246,18 @@ function distinctPoints(points: number[][]): number[][] {
 }
 
 /** Maximize g along coordinate p of z over [-1, 1]: a 9-point line, then Brent around the best. */
-function lineSearch(z: number[], p: number, g: (y: number[]) => number): number[] {
+function lineSearch(z: number[], p: number, g: (y: number[]) => number, floor: number): number[] {
   const xs = Array.from({ length: LINE_POINTS }, (_, i) => -1 + (2 * i) / (LINE_POINTS - 1));
   const gs = xs.map((x) => g(withCoordinate(z, p, x)));
   let best = 0;
-  for (let i = 1; i < xs.length; i++) if (compare(gs[i], gs[best]) > 0) best = i;
+  for (let i = 1; i < xs.length; i++) if (compare(gs[i], gs[best], floor) > 0) best = i;
   let bestX = xs[best];
   let bestG = gs[best];
   if (Number.isFinite(bestG)) {
     const lo = xs[Math.max(best - 1, 0)];
     const hi = xs[Math.min(best + 1, xs.length - 1)];
     const refined = brentMaximize((x) => g(withCoordinate(z, p, x)), lo, hi, 1e-7);
-    if (compare(refined.value, bestG) > 0) {
+    if (compare(refined.value, bestG, floor) > 0) {
       bestX = refined.x;
       bestG = refined.value;
     }

@@ -1,7 +1,9 @@
+import { spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { describe, expect, it } from 'vitest';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, inject, it } from 'vitest';
 import { describeError } from '../../src/cli/errors.js';
 import { runTolerance, type ToleranceArgs } from '../../src/cli/tolerance.js';
 
@@ -73,5 +75,34 @@ describe('dacsmith tolerance', () => {
     const zero = await runTolerance(args({ samples: 0 }), { color: false }).catch((e) => e);
     expect(describeError(zero).code).toBe(2);
     expect(describeError(zero).message).toContain('--samples');
+  });
+});
+
+describe('dacsmith tolerance, the built command (bin/dacsmith.js, worker threads from dist/)', () => {
+  const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
+  const run = (...a: string[]) => {
+    const r = spawnSync(process.execPath, [join(root, 'bin', 'dacsmith.js'), 'tolerance', ...a], {
+      cwd: root,
+      encoding: 'utf8',
+      env: { ...process.env, NO_COLOR: '1' },
+    });
+    return { code: r.status, stdout: r.stdout, stderr: r.stderr };
+  };
+
+  it('runs the sample with two workers: the same JSON as one worker, exit 1, nothing on stderr', () => {
+    expect(inject('buildError')).toBeNull();
+    const two = run(sample, '--samples', '3000', '--workers', '2', '--format', 'json');
+    const one = run(sample, '--samples', '3000', '--workers', '1', '--format', 'json');
+    expect(two.code).toBe(1);
+    expect(two.stderr).toBe('');
+    expect(two.stdout).toBe(one.stdout);
+    expect(JSON.parse(two.stdout).monteCarlo.samples).toBe(3000);
+  });
+
+  it('a bad option value is exit 2 with a message and no stack trace', () => {
+    const r = run(sample, '--samples', '-5');
+    expect(r.code).toBe(2);
+    expect(r.stderr).toContain('--samples');
+    expect(r.stderr).not.toMatch(/\n\s+at /);
   });
 });

@@ -107,11 +107,40 @@ describe('ladderMetrics: modal fast path against the engine', () => {
     );
   });
 
-  it('a follower inside the ladder goes to the engine', () => {
-    const l = ladder([stage(4.7e3, 220e-9, true), stage(470, 1e-6)], { driverHigh: 60, driverLow: 30, loadResistance: 47e3 });
-    const plan = planFor(l, false, 0.1, 0.9);
-    const m = ladderMetrics(l, plan);
-    expect(m.usedEngine).toBe(true);
-    expect(m).toEqual(ladderMetrics(l, plan, { engineOnly: true }));
+  it('cascades (followers inside the ladder): modal ripple and DC, the engine\'s settling', () => {
+    const arbStage = fc.record({
+      r: fc.double({ min: Math.log(470), max: Math.log(47e3), noNaN: true }).map(Math.exp),
+      c: fc.double({ min: Math.log(4.7e-9), max: Math.log(1e-6), noNaN: true }).map(Math.exp),
+      buffered: fc.boolean(),
+    });
+    fc.assert(
+      fc.property(
+        fc.array(arbStage, { minLength: 2, maxLength: 3 }),
+        fc.tuple(fc.double({ min: 0, max: 80, noNaN: true }), fc.double({ min: 0, max: 80, noNaN: true })),
+        fc.option(fc.double({ min: Math.log(1e3), max: Math.log(1e6), noNaN: true }).map(Math.exp), { nil: null }),
+        (stages, [dh, dl], load) => {
+          fc.pre(stages.slice(0, -1).some((s) => s.buffered));
+          const l = ladder(stages.map((s) => stage(s.r, s.c, s.buffered)), { driverHigh: dh, driverLow: dl, loadResistance: load });
+          const tau = stages.reduce((a, s) => a + s.r * s.c, 0);
+          fc.pre(tau > l.period && tau < 2000 * l.period);
+          const plan = planFor(l, true);
+          for (const { to } of plan.steps) {
+            const op = steadyState(l, to);
+            for (const excursion of [op.max - op.average, op.average - op.min]) {
+              fc.pre(Math.abs(excursion - plan.band) > 1e-9 * plan.band);
+            }
+          }
+          const fast = ladderMetrics(l, plan);
+          const ref = ladderMetrics(l, plan, { engineOnly: true });
+          const fs = l.high - l.low;
+          if (ref.settlingTime !== null) expect(fast.usedEngine).toBe(true); // settling
+          expect(Math.abs(fast.worstRipple.ripple - ref.worstRipple.ripple)).toBeLessThan(1e-8 * ref.worstRipple.ripple + 1e-15 * fs);
+          expect(Math.abs(fast.droop.error - ref.droop.error)).toBeLessThan(1e-9 * Math.abs(ref.droop.error) + 1e-12 * fs);
+          expect(Math.abs(fast.inl!.error - ref.inl!.error)).toBeLessThan(1e-9 * Math.abs(ref.inl!.error) + 1e-12 * fs);
+          expect(fast.settlingTime).toBe(ref.settlingTime);
+        },
+      ),
+      { numRuns: 100, seed: 31 },
+    );
   });
 });

@@ -89,17 +89,23 @@ export function oneStageSettling(V: number, T: number, from: number, to: number,
   return lo * T;
 }
 
-/** Nodal equations C x' = currents (Kirchhoff's current law at each node) of a follower-free ladder. */
+/**
+ * Nodal equations C x' = currents (Kirchhoff's current law at each node). A buffered stage feeds
+ * the next resistor from an ideal follower, so that resistor draws no current from its node; a
+ * follower after the last stage drives the load, which then does not touch the ladder (model.md).
+ */
 export function nodalDerivative(l: Ladder, pin: number, driver: number) {
   const n = l.stages.length;
-  const cap = l.stages.map((s, k) => s.c + (k === n - 1 ? l.loadCapacitance : 0));
+  const lastBuffered = l.stages[n - 1].buffered;
+  const cap = l.stages.map((s, k) => s.c + (k === n - 1 && !lastBuffered ? l.loadCapacitance : 0));
   return (_t: number, x: number[]): number[] =>
     x.map((v, k) => {
       const before = k === 0 ? pin : x[k - 1];
       const rIn = l.stages[k].r + (k === 0 ? driver : 0);
       let current = (before - v) / rIn;
-      if (k + 1 < n) current -= (v - x[k + 1]) / l.stages[k + 1].r;
-      else if (l.loadResistance !== null) current -= v / l.loadResistance;
+      if (k + 1 < n) {
+        if (!l.stages[k].buffered) current -= (v - x[k + 1]) / l.stages[k + 1].r;
+      } else if (l.loadResistance !== null && !lastBuffered) current -= v / l.loadResistance;
       return current / cap[k];
     });
 }

@@ -1,28 +1,30 @@
 import { zeros } from './zeros.js';
 import type { Ladder } from '../../circuit/ladder.js';
+import { cascadeLadder } from './cascadeLadder.js';
 import { symmetricEigen } from './symmetricEigen.js';
 
-/** The modes of one pin state: x' = A x + b with A = Cs^-1 Q diag(rate) Q^T Cs. */
+/** The modes of one pin state: x' = A x + b with A = V diag(rate) W, W = V^-1. */
 export interface PhaseModes {
   /** Eigenvalues of A, 1/s (negative). */
   rate: number[];
-  /** Orthonormal eigenvectors of the symmetric form Cs A Cs^-1 (row-major, column i = mode i). */
-  basis: number[];
-  /** Output (last node) per unit of each modal coordinate: g_i = basis[n-1][i] / Cs[n-1]. */
+  /** Output (last node) per unit of each modal coordinate: the last row of V. */
   out: number[];
 }
 
 /**
- * A follower-free ladder in modal form, both pin states. Modal coordinates of a state deviation z
- * in the high-phase basis are Qh^T (Cs z); `mix` = Ql^T Qh turns them into low-phase ones.
+ * A ladder in modal form, both pin states. Modal coordinates of a state deviation z in the
+ * high-phase basis are W_h z; `mix` = W_l V_h turns them into low-phase ones.
  */
 export interface ModalLadder {
   n: number;
   period: number;
   high: number;
   low: number;
-  /** sqrt of each node capacitance, sqrt(F). */
-  cs: number[];
+  /**
+   * No follower inside the ladder: V = Cs^-1 Q with Q orthogonal, so `mix` is orthogonal (the
+   * settling fast path needs that). False for a cascade of sections (cascadeLadder.ts).
+   */
+  symmetric: boolean;
   hi: PhaseModes;
   lo: PhaseModes;
   mix: number[];
@@ -33,10 +35,10 @@ export interface ModalLadder {
 }
 
 /**
- * The modal form of a ladder, or null when it does not apply: a follower inside the ladder makes
- * the state matrix block-triangular, its modes may coincide (a Jordan block), and the engine's
- * matrix-exponential path must be used instead. A follower after the last stage is fine (it only
- * disconnects the load, as in the engine's state equations).
+ * The modal form of a ladder, or null when it does not apply. A follower after the last stage
+ * only disconnects the load (as in the engine's state equations); followers inside the ladder make
+ * a cascade of sections, handed to cascadeLadder (null when two sections share a mode: a Jordan
+ * block, for the engine's matrix-exponential path).
  *
  * Method: nodal state equations C x' = -G x + g (Kirchhoff's current law at each capacitor node, as
  * in circuit/stateSpace.ts). With Cs = diag(sqrt C),
@@ -52,7 +54,7 @@ export interface ModalLadder {
 export function modalLadder(ladder: Ladder): ModalLadder | null {
   const { stages } = ladder;
   const n = stages.length;
-  for (let k = 0; k < n - 1; k++) if (stages[k].buffered) return null;
+  for (let k = 0; k < n - 1; k++) if (stages[k].buffered) return cascadeLadder(ladder);
   for (const st of stages) {
     if (!(st.r > 0) || !(st.c > 0)) throw new RangeError('invalid ladder: every stage needs r > 0 and c > 0');
   }
@@ -65,7 +67,7 @@ export function modalLadder(ladder: Ladder): ModalLadder | null {
   const gIn = zeros(n + 1);
   for (let k = 1; k < n; k++) gIn[k] = 1 / stages[k].r;
   gIn[n] = gLoad;
-  const phase = (driver: number, source: number): { modes: PhaseModes; dc: number[] } => {
+  const phase = (driver: number, source: number): { modes: PhaseModes; basis: number[]; dc: number[] } => {
     gIn[0] = 1 / (stages[0].r + driver);
     const S = zeros(n * n);
     for (let k = 0; k < n; k++) {
@@ -79,7 +81,7 @@ export function modalLadder(ladder: Ladder): ModalLadder | null {
     const { values, vectors } = symmetricEigen(S, n);
     const out = zeros(n);
     for (let i = 0; i < n; i++) out[i] = vectors[(n - 1) * n + i] / cs[n - 1];
-    return { modes: { rate: values, basis: vectors, out }, dc: dcState(gIn, n, source) };
+    return { modes: { rate: values, out }, basis: vectors, dc: dcState(gIn, n, source) };
   };
   const high = phase(ladder.driverHigh, ladder.high);
   const low = phase(ladder.driverLow, ladder.low);
@@ -90,9 +92,9 @@ export function modalLadder(ladder: Ladder): ModalLadder | null {
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       let s = 0;
-      for (let k = 0; k < n; k++) s += lo.basis[k * n + i] * hi.basis[k * n + j];
+      for (let k = 0; k < n; k++) s += low.basis[k * n + i] * high.basis[k * n + j];
       mix[i * n + j] = s;
-      delta[i] += hi.basis[j * n + i] * cs[j] * (high.dc[j] - low.dc[j]);
+      delta[i] += high.basis[j * n + i] * cs[j] * (high.dc[j] - low.dc[j]);
     }
   }
   return {
@@ -100,7 +102,7 @@ export function modalLadder(ladder: Ladder): ModalLadder | null {
     period: ladder.period,
     high: ladder.high,
     low: ladder.low,
-    cs,
+    symmetric: true,
     hi,
     lo,
     mix,

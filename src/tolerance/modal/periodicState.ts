@@ -1,5 +1,5 @@
 import { zeros } from './zeros.js';
-import { luFactor, luSolve } from '../../engine/dense.js';
+import { solveSmall } from './solveSmall.js';
 import { phi2 } from '../../engine/phi2.js';
 import type { ModalLadder } from './modalLadder.js';
 import type { PhaseCurve } from './phaseCurve.js';
@@ -76,7 +76,9 @@ export function periodicState(m: ModalLadder, duty: number): PeriodicState {
       }
       r[i] = el[i] * s;
     }
-    start = luSolve(luFactor(Y, n), r);
+    const solved = solveSmall(Y, n, r);
+    if (!solved) throw new RangeError('periodicState: singular period map (not a physical ladder)');
+    start = solved;
   }
   const aHigh = zeros(n);
   const wEnd = zeros(n);

@@ -15,8 +15,8 @@ const MAX_PERIOD_EVALUATIONS = 4000;
  * Settling time (s) after the duty steps from `from` to `to` at the start of a period, the ladder
  * having been in periodic steady state at `from`: the smallest t with |v(t') - average(to)| <= band
  * for all t' >= t (model.md). null when the steady state at `to` itself leaves the band; 0 when the
- * output never leaves it; undefined when the search gives up (see MAX_PERIOD_EVALUATIONS) and the
- * caller must use the engine.
+ * output never leaves it; undefined for a cascade (followers inside the ladder) or when the search
+ * gives up (see MAX_PERIOD_EVALUATIONS): the caller must then use the engine.
  *
  * Method: in period k after the step the state deviation from the periodic orbit at `to` is
  * e_k = M^k e_0, M = E_l E_h. In high-phase modal coordinates M = X^T diag(e_l) X diag(e_h) is
@@ -69,6 +69,8 @@ export function modalSettling(
   const above = Math.max(eh.max, el.max);
   const below = Math.min(eh.min, el.min);
   if (above > band || below < -band) return null;
+  // The period-map symmetrization below needs an orthogonal `mix` (a follower-free ladder).
+  if (!m.symmetric) return undefined;
 
   const e0 = zeros(n);
   for (let i = 0; i < n; i++) e0[i] = source.start[i] - target.start[i];
