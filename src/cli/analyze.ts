@@ -26,11 +26,11 @@ export interface CommandOutput {
  */
 export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean }): Promise<CommandOutput> {
   const duties = parseDuties(args.duty);
-  const [{ loadProject }, { analyzeProject }] = await Promise.all([
+  const [{ loadProject, requireFilter }, { analyzeProject }] = await Promise.all([
     import('../project/index.js'),
     import('../engine/analyze.js'),
   ]);
-  const project = loadProject(args.file);
+  const project = requireFilter(loadProject(args.file), 'analyze');
   const analysis = analyzeProject(project, duties ? { duties } : {});
   let stdout: string;
   if (args.format === 'json') {

@@ -23,14 +23,14 @@ export function checkExitCode(files: CheckedFile[]): number {
  * Example: await runCheck({ files: ['a.yaml', 'b.yaml'], format: 'text', quiet: false }, { color: false })
  */
 export async function runCheck(args: CheckArgs, tty: { color: boolean }): Promise<CommandOutput> {
-  const [{ loadProject }, { analyzeProject }, { renderCheck }] = await Promise.all([
+  const [{ loadProject, requireFilter }, { analyzeProject }, { renderCheck }] = await Promise.all([
     import('../project/index.js'),
     import('../engine/analyze.js'),
     import('../report/check.js'),
   ]);
   const results: CheckedFile[] = args.files.map((file) => {
     try {
-      const project = loadProject(file);
+      const project = requireFilter(loadProject(file), 'check');
       const analysis = analyzeProject(project);
       return { file, pass: analysis.pass, checks: analysis.checks, lsb: analysis.lsb };
     } catch (error) {

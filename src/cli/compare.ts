@@ -26,7 +26,7 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean }): Pr
   if (args.git === undefined && args.head === undefined) {
     throw new UsageError('compare needs two files (BASE HEAD), or one file and --git REF');
   }
-  const [{ loadProject, parseProject }, { analyzeProject }, { compareReport }] = await Promise.all([
+  const [{ loadProject, parseProject, requireFilter }, { analyzeProject }, { compareReport }] = await Promise.all([
     import('../project/index.js'),
     import('../engine/analyze.js'),
     import('../report/compare.js'),
@@ -37,7 +37,7 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean }): Pr
   let baseLabel: string;
   if (args.git !== undefined) {
     const { fileAtRevision, GitShowError } = await import('../project/gitShow.js');
-    head = loadProject(args.base); // first, so that a missing file is named as such
+    head = requireFilter(loadProject(args.base), 'compare'); // first, so that a missing file is named as such
     let old;
     try {
       old = fileAtRevision(args.base, args.git);
@@ -45,11 +45,11 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean }): Pr
       if (error instanceof GitShowError) throw new UsageError(`compare --git ${args.git}: ${error.message}`);
       throw error;
     }
-    base = parseProject(old.text, old.label);
+    base = requireFilter(parseProject(old.text, old.label), 'compare');
     baseLabel = old.label;
   } else {
-    base = loadProject(args.base);
-    head = loadProject(args.head as string);
+    base = requireFilter(loadProject(args.base), 'compare');
+    head = requireFilter(loadProject(args.head as string), 'compare');
     baseLabel = args.base;
   }
   const headLabel = args.head ?? args.base;

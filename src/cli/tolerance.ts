@@ -38,14 +38,14 @@ export async function runTolerance(
       throw new UsageError(`${name} must be a whole number >= ${min}, got ${value}`);
     }
   }
-  const [{ loadProject }, { toleranceStudy, ToleranceInputError }, { toleranceReport }, { availableParallelism }] =
+  const [{ loadProject, requireFilter }, { toleranceStudy, ToleranceInputError }, { toleranceReport }, { availableParallelism }] =
     await Promise.all([
       import('../project/index.js'),
       import('../tolerance/index.js'),
       import('../report/tolerance.js'),
       import('node:os'),
     ]);
-  const project = loadProject(args.file);
+  const project = requireFilter(loadProject(args.file), 'tolerance');
   const bar = tty.progress?.isTTY ? progressBar(tty.progress) : undefined;
   let study;
   try {

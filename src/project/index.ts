@@ -4,5 +4,6 @@ export { parseProject } from './parseProject.js';
 export { ProjectError, formatIssue, type ProjectIssue } from './projectError.js';
 export { derivePwmFrequency } from './derivePwmFrequency.js';
 export { lsbOf } from './lsbOf.js';
+export { requireFilter } from './requireFilter.js';
 export { parseSpecLevel, type SpecLevel } from './parseSpecLevel.js';
 export type * from './types.js';

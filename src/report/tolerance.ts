@@ -5,10 +5,10 @@ import type { ToleranceStudyResult } from '../tolerance/study.js';
 import { histogram, type Percentiles } from '../tolerance/statistics.js';
 import type { Effect, WorstCaseFigure, WorstCaseResult } from '../tolerance/worstCase.js';
 import { formatEng } from '../units/index.js';
-import { palette } from './color.js';
 import type { Block, ReportDocument, Section } from './document.js';
 import { percent, tidy, voltsAndLsb } from './quantities.js';
-import { table, type Align } from './table.js';
+import { renderDocument } from './renderDocument.js';
+import type { Align } from './table.js';
 
 type ToleranceStudy = ToleranceStudyResult;
 
@@ -25,7 +25,8 @@ export interface ToleranceReportOptions {
 
 /**
  * The report of a tolerance study as text (aligned tables, ASCII histograms with the spec limit
- * marked), GitHub-flavoured Markdown (the same content), or one JSON object in SI units holding
+ * marked) or GitHub-flavoured Markdown (the same document, drawn by renderDocument), or one JSON
+ * object in SI units holding
  * at least worstCase.{worstRipple, droop, settlingTime} and monteCarlo.{samples, seed, yield}.
  *
  * Syntax: toleranceReport(project, study, format[, { charts, color, bins }])
@@ -39,7 +40,7 @@ export function toleranceReport(
 ): string {
   if (format === 'json') return toleranceJson(project, study, options.bins ?? 12);
   const doc = toleranceDocument(project, study, { charts: options.charts ?? true, bins: options.bins ?? 12 });
-  return format === 'markdown' ? renderMarkdown(doc) : renderText(doc, options.color ?? false);
+  return renderDocument(doc, format, { color: options.color ?? false });
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -307,62 +308,6 @@ function verdictText(study: ToleranceStudy): string {
   return parts.length === 0
     ? `PASS: every limit holds at the worst case${mc.target !== null ? ' and the yield meets its target' : ''}`
     : `FAIL: ${parts.join('; ')}`;
-}
-
-// ---------------------------------------------------------------------------------------------
-// Renderers
-
-function renderText(doc: ReportDocument, color: boolean): string {
-  const paint = palette(color);
-  const block = (b: Block): string => {
-    switch (b.kind) {
-      case 'table': {
-        const rows = b.rows.map((r) => r.map((c) => (c === 'PASS' ? paint.good(c) : c === 'FAIL' ? paint.bad(c) : c)));
-        return table(b.header, rows, { align: b.align });
-      }
-      case 'pairs':
-        return table([], b.pairs.map(([k, v]) => [`${k}:`, v]), { align: ['left', 'left'] });
-      case 'list':
-        return b.items.map((i) => `  - ${i}`).join('\n');
-      case 'text':
-        return `  ${b.text}`;
-      case 'chart':
-        return `  ${paint.accent(b.title)}\n${b.body}`;
-    }
-  };
-  const out = [paint.bold(doc.title)];
-  for (const s of doc.sections) {
-    out.push('', paint.bold(s.title), ...s.blocks.flatMap((b, i) => (i > 0 ? ['', block(b)] : [block(b)])));
-  }
-  out.push('', doc.verdict.pass ? paint.good(doc.verdict.text) : paint.bad(doc.verdict.text));
-  return out.join('\n') + '\n';
-}
-
-function renderMarkdown(doc: ReportDocument): string {
-  const cell = (s: string) => s.replace(/\\/g, '\\\\').replace(/\|/g, '\\|');
-  const gfm = (header: string[], rows: string[][], align: Align[] = []) => {
-    const rule = header.map((_, i) => ((align[i] ?? (i === 0 ? 'left' : 'right')) === 'right' ? '---:' : ':---'));
-    const line = (cells: string[]) => `| ${cells.map(cell).join(' | ')} |`;
-    return [line(header), `|${rule.join('|')}|`, ...rows.map(line)].join('\n');
-  };
-  const block = (b: Block): string => {
-    switch (b.kind) {
-      case 'table':
-        return gfm(b.header, b.rows, b.align);
-      case 'pairs':
-        return gfm(['item', 'value'], b.pairs, ['left', 'left']);
-      case 'list':
-        return b.items.map((i) => `- ${i}`).join('\n');
-      case 'text':
-        return b.text;
-      case 'chart':
-        return `**${b.title}**\n\n\`\`\`text\n${b.body}\n\`\`\``;
-    }
-  };
-  const out = [`# ${doc.title}`];
-  for (const s of doc.sections) out.push('', `## ${s.title}`, ...s.blocks.flatMap((b) => ['', block(b)]));
-  out.push('', `**${doc.verdict.text}**`);
-  return out.join('\n') + '\n';
 }
 
 // ---------------------------------------------------------------------------------------------

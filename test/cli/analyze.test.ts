@@ -164,3 +164,15 @@ describe('dacsmith analyze', () => {
     expect(r.stderr).toMatch(/no-such-dir.*no such file/);
   });
 });
+
+describe('commands that need a filter, on a design-only file', () => {
+  // A file with search: and no filter: is valid for `design`; the other commands refuse it as bad input.
+  for (const command of ['analyze', 'check', 'tolerance']) {
+    it(`${command} exits 2 naming the filter key`, () => {
+      const r = dacsmith(command, sample('design-wide-e24.yaml'));
+      expect(r.code).toBe(2);
+      expect(r.stderr).toContain('design-wide-e24.yaml: filter: missing');
+      expect(r.stderr).not.toMatch(/at .*\.js:\d+/);
+    });
+  }
+});

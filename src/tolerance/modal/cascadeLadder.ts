@@ -2,8 +2,8 @@ import type { Ladder } from '../../circuit/ladder.js';
 import { stateSpace, type PhaseSystem, type Section } from '../../circuit/stateSpace.js';
 import type { ModalLadder, PhaseModes } from './modalLadder.js';
 import { solveSmall } from './solveSmall.js';
-import { symmetricEigen } from './symmetricEigen.js';
-import { zeros } from './zeros.js';
+import { symmetricEigen } from '../../engine/symmetricEigen.js';
+import { zeros } from '../../engine/dense.js';
 
 /**
  * Largest condition number ||V|| ||V^-1|| (infinity norm) of the eigenvector matrix accepted: it
@@ -86,7 +86,7 @@ function phaseModes(
         S[i * m + j] = 0.5 * ((cs[i] * aij) / cs[j] + (cs[j] * aji) / cs[i]);
       }
     }
-    const eig = symmetricEigen(S, m);
+    const eig = symmetricEigen(S, m, { vectors: true });
     for (let j = 0; j < m; j++, col++) {
       const lambda = eig.values[j];
       rate[col] = lambda;

@@ -1,7 +1,7 @@
-import { zeros } from './zeros.js';
+import { zeros } from '../../engine/dense.js';
 import type { Ladder } from '../../circuit/ladder.js';
 import { cascadeLadder } from './cascadeLadder.js';
-import { symmetricEigen } from './symmetricEigen.js';
+import { symmetricEigen } from '../../engine/symmetricEigen.js';
 
 /** The modes of one pin state: x' = A x + b with A = V diag(rate) W, W = V^-1. */
 export interface PhaseModes {
@@ -46,7 +46,7 @@ export interface ModalLadder {
  * Cs^-1-scaled orthonormal eigenvectors; a follower-free RC ladder gives an irreducible tridiagonal
  * S, whose eigenvalues are distinct (an unreduced symmetric tridiagonal has simple eigenvalues:
  * B. N. Parlett, "The Symmetric Eigenvalue Problem", SIAM 1998, ch. 7; cited from memory).
- * Eigen-decomposition by Jacobi rotations (symmetricEigen).
+ * Eigen-decomposition by Jacobi rotations (engine/symmetricEigen.ts).
  *
  * Syntax: modalLadder(ladder)
  * Example: modalLadder(oneStage).hi.rate  // [-1 / ((R + Rd) C)]
@@ -78,7 +78,7 @@ export function modalLadder(ladder: Ladder): ModalLadder | null {
         S[(k + 1) * n + k] = off;
       }
     }
-    const { values, vectors } = symmetricEigen(S, n);
+    const { values, vectors } = symmetricEigen(S, n, { vectors: true });
     const out = zeros(n);
     for (let i = 0; i < n; i++) out[i] = vectors[(n - 1) * n + i] / cs[n - 1];
     return { modes: { rate: values, out }, basis: vectors, dc: dcState(gIn, n, source) };

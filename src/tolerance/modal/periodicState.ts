@@ -1,4 +1,4 @@
-import { zeros } from './zeros.js';
+import { zeros } from '../../engine/dense.js';
 import { solveSmall } from './solveSmall.js';
 import { phi2 } from '../../engine/phi2.js';
 import type { ModalLadder } from './modalLadder.js';

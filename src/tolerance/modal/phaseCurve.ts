@@ -1,4 +1,4 @@
-import { zeros } from './zeros.js';
+import { zeros } from '../../engine/dense.js';
 import { expSumRoots } from './expSumRoots.js';
 
 /**

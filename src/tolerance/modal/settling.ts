@@ -1,9 +1,9 @@
-import { zeros } from './zeros.js';
+import { zeros } from '../../engine/dense.js';
 import { brentRoot } from '../../engine/brentRoot.js';
 import type { ModalLadder } from './modalLadder.js';
 import { curveExtrema, curveTurningPoints, curveValue, type PhaseCurve } from './phaseCurve.js';
 import { periodicState, type PeriodicState } from './periodicState.js';
-import { symmetricEigen } from './symmetricEigen.js';
+import { symmetricEigen } from '../../engine/symmetricEigen.js';
 
 /**
  * A safety net on the branch and bound: beyond this many period evaluations (never seen in
@@ -95,7 +95,7 @@ export function modalSettling(
       N[i * n + j] = -(half[i] * s * half[j] + (i === j ? kh[i] : 0));
     }
   }
-  const { values: nu, vectors: Z } = symmetricEigen(N, n);
+  const { values: nu, vectors: Z } = symmetricEigen(N, n, { vectors: true });
   const logMu = Array.from(nu, (v) => (v > -1 ? Math.log1p(v) : -Infinity));
   /** mu_j^(k-1) for period k >= 1. */
   const power = (j: number, k: number) => (k === 1 ? 1 : Math.exp((k - 1) * logMu[j]));
