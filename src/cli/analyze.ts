@@ -7,6 +7,7 @@ export interface AnalyzeArgs {
   duty?: string | string[];
   format: 'text' | 'json' | 'markdown';
   charts: boolean;
+  quiet?: boolean;
   csv?: string;
 }
 
@@ -46,7 +47,7 @@ export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean }): Pr
     writeFileSync(args.csv, waveformCsv(analysis));
     stderr = `waveforms written to ${args.csv}\n`;
   }
-  return { stdout, stderr, code: analysis.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
+  return { stdout: args.quiet ? '' : stdout, stderr, code: analysis.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
 }
 
 /**
@@ -71,6 +72,7 @@ export function analyzeCommand(
           type: 'string',
           requiresArg: true,
         })
+        .option('quiet', { alias: 'q', describe: 'Print nothing but errors; the exit code tells', type: 'boolean', default: false })
         .option('format', {
           describe: 'Report format',
           choices: ['text', 'json', 'markdown'] as const,

@@ -9,6 +9,7 @@ export interface DesignArgs {
   write?: string;
   force: boolean;
   charts: boolean;
+  quiet?: boolean;
   /** Keep only designs that meet the spec under part tolerances. */
   robust?: 'worst-case' | 'yield';
 }
@@ -113,7 +114,7 @@ export async function runDesign(
     ...(written && { written }),
     ...(robust && { robust }),
   });
-  return { stdout, stderr, code: result.feasible ? EXIT_PASS : EXIT_SPEC_FAILS };
+  return { stdout: args.quiet ? '' : stdout, stderr, code: result.feasible ? EXIT_PASS : EXIT_SPEC_FAILS };
 }
 
 /**
@@ -133,6 +134,7 @@ export function designCommand(
     builder: (y: Argv) =>
       y
         .positional('file', { describe: 'Project file (YAML) with a search: section', type: 'string', demandOption: true })
+        .option('quiet', { alias: 'q', describe: 'Print nothing but errors; the exit code tells', type: 'boolean', default: false })
         .option('format', { describe: 'Report format', choices: ['text', 'json', 'markdown'] as const, default: 'text' as const })
         .option('top', { describe: 'Number of designs to list', type: 'number', default: 10, requiresArg: true })
         .option('write', { describe: 'Write design #1 as a project file (the original with filter.stages replaced)', type: 'string', requiresArg: true })

@@ -10,6 +10,7 @@ export interface ToleranceArgs {
   workers?: number;
   format: 'text' | 'json' | 'markdown';
   charts: boolean;
+  quiet?: boolean;
 }
 
 /** Where progress goes: a terminal line that is redrawn in place, or nowhere. */
@@ -63,7 +64,7 @@ export async function runTolerance(
     bar?.clear();
   }
   const stdout = toleranceReport(project, study, args.format, { charts: args.charts, color: tty.color });
-  return { stdout, stderr: '', code: study.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
+  return { stdout: args.quiet ? '' : stdout, stderr: '', code: study.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
 }
 
 /** A one-line progress bar redrawn at most every 100 ms. */
@@ -110,6 +111,7 @@ export function toleranceCommand(
           choices: ['normal', 'uniform'] as const,
         })
         .option('workers', { describe: 'Worker threads for the Monte Carlo run (default: cores, at most 4)', type: 'number', requiresArg: true })
+        .option('quiet', { alias: 'q', describe: 'Print nothing but errors; the exit code tells', type: 'boolean', default: false })
         .option('format', { describe: 'Report format', choices: ['text', 'json', 'markdown'] as const, default: 'text' as const })
         .option('charts', { describe: 'Draw the histograms (--no-charts to leave them out)', type: 'boolean', default: true })
         .example('$0 tolerance board.yaml', 'Worst case, yield and histograms')

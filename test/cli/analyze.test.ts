@@ -176,3 +176,17 @@ describe('commands that need a filter, on a design-only file', () => {
     });
   }
 });
+
+describe('--quiet on the commands that print reports', () => {
+  // Conventions of the review workflow: --quiet prints nothing on stdout, the exit code tells.
+  for (const command of ['analyze', 'design', 'tolerance']) {
+    it(`${command} --quiet prints nothing and keeps the exit code`, () => {
+      const extra = command === 'tolerance' ? ['--samples', '200'] : [];
+      const loud = dacsmith(command, sample('greenhouse-heater.yaml'), '--no-charts', ...extra);
+      const quiet = dacsmith(command, sample('greenhouse-heater.yaml'), '--no-charts', '--quiet', ...extra);
+      expect(loud.stdout.length).toBeGreaterThan(0);
+      expect(quiet.stdout).toBe('');
+      expect(quiet.code).toBe(loud.code);
+    });
+  }
+});
