@@ -36,7 +36,9 @@ export async function runTolerance(
     ['--workers', args.workers, 1],
   ] as const) {
     if (value !== undefined && !(Number.isInteger(value) && value >= min)) {
-      throw new UsageError(`${name} must be a whole number >= ${min}, got ${value}`);
+      // yargs turns a word given to a number option into NaN: say so rather than echo 'NaN'
+      const given = Number.isNaN(value) ? 'something that is not a number' : String(value);
+      throw new UsageError(`${name} must be a whole number >= ${min}, got ${given}`);
     }
   }
   const [{ loadProject, requireFilter }, { toleranceStudy, ToleranceInputError }, { toleranceReport }, { availableParallelism }] =
