@@ -55,7 +55,9 @@ export async function main(argv: string[]): Promise<void> {
     .fail((message, error) => {
       // yargs goes on to the command after fail() returns: stop it by throwing.
       if (!message && error) throw error;
-      throw new UsageError(`${message}\nRun 'dacsmith --help' for usage.`);
+      // yargs' command suggestion alone does not say that the command was not found
+      const said = /^Did you mean/.test(message ?? '') ? `unknown command '${argv[0]}'. ${message}` : message;
+      throw new UsageError(`${said}\nRun 'dacsmith --help' for usage.`);
     });
   try {
     await cli.parseAsync();

@@ -190,3 +190,12 @@ describe('--quiet on the commands that print reports', () => {
     });
   }
 });
+
+describe('a misspelt command', () => {
+  it('is named as unknown, with the suggestion, exit 2', () => {
+    const r = dacsmith('analyse', sample('greenhouse-heater.yaml'));
+    expect(r.code).toBe(2);
+    expect(r.stderr).toContain("unknown command 'analyse'");
+    expect(r.stderr).toContain('Did you mean analyze?');
+  });
+});
