@@ -1,12 +1,9 @@
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { join } from 'node:path';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
+import { root, runBuilt } from './runBuilt.js';
 
-const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
-const bin = join(root, 'bin', 'dacsmith.js');
 const sample = (name: string) => join(root, 'sample-configs', name);
 const work = mkdtempSync(join(tmpdir(), 'dacsmith-cli-'));
 
@@ -16,12 +13,7 @@ function dacsmith(...args: string[]) {
 }
 
 function dacsmithIn(cwd: string, ...args: string[]) {
-  const r = spawnSync(process.execPath, [bin, ...args], {
-    cwd,
-    encoding: 'utf8',
-    env: { ...process.env, NO_COLOR: '1' },
-  });
-  return { code: r.status, stdout: r.stdout, stderr: r.stderr };
+  return runBuilt(args, { cwd });
 }
 
 function project(name: string, yaml: string): string {

@@ -1,18 +1,14 @@
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { join } from 'node:path';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
+import { runBuilt } from './runBuilt.js';
 
-const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
-const bin = join(root, 'bin', 'dacsmith.js');
 const work = mkdtempSync(join(tmpdir(), 'dacsmith-robust-'));
 
 /** Run the built command like a user would, without a terminal and without colour. */
 function dacsmith(...args: string[]) {
-  const r = spawnSync(process.execPath, [bin, ...args], { cwd: root, encoding: 'utf8', env: { ...process.env, NO_COLOR: '1' } });
-  return { code: r.status, stdout: r.stdout, stderr: r.stderr };
+  return runBuilt(args);
 }
 
 function file(name: string, yaml: string): string {

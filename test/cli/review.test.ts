@@ -3,17 +3,15 @@
  * globalSetup): `check` exit codes and formats, `compare` of two files and against a git revision,
  * `init` and its starter file.
  */
-import { execFileSync, spawnSync } from 'node:child_process';
+import { execFileSync } from 'node:child_process';
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, realpathSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { parse as parseYaml } from 'yaml';
+import { root, runBuilt } from './runBuilt.js';
 
-const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
-const bin = join(root, 'bin', 'dacsmith.js');
 const work = realpathSync(mkdtempSync(join(tmpdir(), 'dacsmith-review-')));
 
 /**
@@ -21,12 +19,7 @@ const work = realpathSync(mkdtempSync(join(tmpdir(), 'dacsmith-review-')));
  * (GIT_CEILING_DIRECTORIES), so "outside a repository" holds wherever the temporary folder is.
  */
 function dacsmith(args: string[], cwd = work) {
-  const r = spawnSync(process.execPath, [bin, ...args], {
-    cwd,
-    encoding: 'utf8',
-    env: { ...process.env, NO_COLOR: '1', GIT_CEILING_DIRECTORIES: work },
-  });
-  return { code: r.status, stdout: r.stdout, stderr: r.stderr };
+  return runBuilt(args, { cwd, env: { GIT_CEILING_DIRECTORIES: work } });
 }
 
 function write(name: string, text: string): string {

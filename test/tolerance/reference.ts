@@ -4,23 +4,10 @@
  */
 import odex from 'odex';
 import { erf } from 'mathjs';
-import type { Ladder, Stage } from '../../src/circuit/ladder.js';
+import type { Ladder } from '../../src/circuit/ladder.js';
 
-export const stage = (r: number, c: number, buffered = false): Stage => ({ r, c, buffered });
-
-export function ladder(stages: Stage[], extra: Partial<Ladder> = {}): Ladder {
-  return {
-    period: 1 / 20e3,
-    high: 3.3,
-    low: 0,
-    driverHigh: 0,
-    driverLow: 0,
-    stages,
-    loadResistance: null,
-    loadCapacitance: 0,
-    ...extra,
-  };
-}
+// The same invented demo ladders as the engine tests: 20 kHz, 3.3 V / 0 V, ideal drivers, open output.
+export { ladder, stage } from '../engine/ladders.js';
 
 /**
  * Peak-to-peak ripple of one RC stage (time constant tau) driven by a rectangular wave of swing
