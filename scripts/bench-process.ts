@@ -43,7 +43,7 @@ export interface ProcessTiming {
  * run of each first (file cache).
  *
  * Syntax: processStart(commands[, { runs, cwd }])
- * Example: processStart([['bin/dacsmith.js', 'analyze', 'sample-configs/greenhouse-heater.yaml']]).commands[0].ratio   // 2.7
+ * Example: processStart([['bin/dacsmith.cjs', 'analyze', 'sample-configs/greenhouse-heater.yaml']]).commands[0].ratio   // 2.7
  */
 export function processStart(commands: string[][], options: { runs?: number; cwd?: string } = {}): ProcessTiming {
   const runs = options.runs ?? 7;

@@ -70,7 +70,7 @@ export async function runBench(): Promise<BenchReport> {
   data.monteCarlo = monteCarlo.data;
 
   step('whole process: dacsmith against node -e ""');
-  const dacsmith = join('bin', 'dacsmith.js');
+  const dacsmith = join('bin', 'dacsmith.cjs');
   const commands = [
     [dacsmith, 'analyze', SAMPLE],
     [dacsmith, 'analyze', SAMPLE, '--no-charts'],

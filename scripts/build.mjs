@@ -1,5 +1,5 @@
-// Bundle the command line into dist/cli.js (and the tolerance worker into dist/tolerance-worker.js),
-// with external source maps, using esbuild.
+// Bundle the command line into dist/cli.cjs (and the tolerance worker into dist/tolerance-worker.js),
+// with external source maps, using esbuild, and save V8's code cache for the bundle.
 // Output is written next to the target and renamed into place, so a concurrent reader never sees
 // half a file. Usage: node scripts/build.mjs
 //
@@ -8,7 +8,8 @@
 // terminal widths of plain ASCII text skip string-width, and the bundle is minified.
 import { build } from 'esbuild';
 import { createRequire } from 'node:module';
-import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 
@@ -21,7 +22,8 @@ const require = createRequire(import.meta.url);
  * from source stays lazy. In a single-file bundle, though, esbuild wraps every module reached
  * through import() and can no longer drop unused code: all of mathjs would then be built at the
  * first project load (about 1 s more per run, measured). Inside the bundle those imports become
- * static, and tree shaking keeps only what is used.
+ * static, and tree shaking keeps only what is used. Imports of Node built-ins become require() at the
+ * same place, since the bundle is a classic script (see buildCli).
  */
 const bundleLazyImportsStatically = {
   name: 'bundle-lazy-imports-statically',
@@ -33,7 +35,9 @@ const bundleLazyImportsStatically = {
         heads.push(`import * as ${name} from '${spec}';`);
         return `Promise.resolve(${name})`;
       });
-      return { contents: `${heads.join('\n')}\n${contents}`, loader: 'ts' };
+      // Node built-ins stay lazy: required at the call (a classic script has no import()).
+      const lazyBuiltins = contents.replace(/\bimport\(('node:[a-z_/]+')\)/g, 'Promise.resolve(require($1))');
+      return { contents: `${heads.join('\n')}\n${lazyBuiltins}`, loader: 'ts' };
     });
   },
 };
@@ -134,48 +138,113 @@ export function lazyStringWidth() {
   };
 }
 
+/** esbuild options both bundles share: Node 20, minified, external source maps, written by us. */
+const common = (outdir, minify) => ({
+  outdir,
+  bundle: true,
+  platform: 'node',
+  target: 'node20',
+  sourcemap: 'external',
+  // Half the bytes to read and parse at every start; stack traces map back through the source map.
+  minify,
+  minifySyntax: true,
+  write: false,
+  logLevel: 'warning',
+});
+
 /**
- * Bundle the command line: src/cli/main.ts into cli.js and, when the tolerance module has its
+ * Bundle the command line: src/cli/main.ts into cli.cjs and, when the tolerance module has its
  * worker (src/tolerance/worker.ts), that into tolerance-worker.js beside it, where
- * monteCarloParallel looks for it. ESM for Node 20, minified, external source maps. `minify: false`
- * keeps names readable for profiling (node --cpu-prof); `outdir` builds elsewhere (default dist/).
+ * monteCarloParallel looks for it; then, unless `codeCache: false`, run the bundle once on the
+ * greenhouse sample to save V8's code cache beside it (cli.cjs.cache, see bin/dacsmith.cjs).
+ * `minify: false` keeps names readable for profiling (node --cpu-prof); `outdir` builds elsewhere
+ * (default dist/).
  *
- * Syntax: await buildCli([{ outdir, minify }])
- * Example: await buildCli({ outdir: '/tmp/b', minify: false })   // [{ file: '/tmp/b/cli.js', bytes: 1150000 }, ...]
+ * The command line is CommonJS: Node's ES-module import of a built-in (`import fs from 'fs'`)
+ * evaluates every lazy export of it (fs.promises, readline, streams...), and only a classic
+ * script can use V8's code cache through vm.Script. The worker stays an ES module.
+ *
+ * Syntax: await buildCli([{ outdir, minify, codeCache }])
+ * Example: await buildCli({ outdir: '/tmp/b', minify: false })   // [{ file: '/tmp/b/cli.cjs', bytes: 1280000 }, ...]
  */
-export async function buildCli({ outdir = dist, minify = true } = {}) {
-  const entryPoints = { cli: join(root, 'src', 'cli', 'main.ts') };
-  const worker = join(root, 'src', 'tolerance', 'worker.ts');
-  if (existsSync(worker)) entryPoints['tolerance-worker'] = worker;
-  const result = await build({
-    entryPoints,
-    outdir,
-    bundle: true,
-    platform: 'node',
-    format: 'esm',
-    target: 'node20',
-    sourcemap: 'external',
-    // Half the bytes to read and parse at every start; stack traces map back through the source map.
-    minify,
-    minifySyntax: true,
-    write: false,
-    logLevel: 'warning',
+export async function buildCli({ outdir = dist, minify = true, codeCache = true } = {}) {
+  const cli = await build({
+    ...common(outdir, minify),
+    entryPoints: { cli: join(root, 'src', 'cli', 'main.ts') },
+    format: 'cjs',
+    outExtension: { '.js': '.cjs' },
     plugins: [bundleLazyImportsStatically, projectValidatorAtBuildTime(await standaloneProjectValidator()), lazyStringWidth()],
-    // Some dependencies are CommonJS and call require() for Node built-ins: give the ESM bundle one.
-    banner: {
-      js: "import { createRequire as __dacsmithCreateRequire } from 'node:module';\nconst require = __dacsmithCreateRequire(import.meta.url);",
-    },
+    // The sources are ES modules: where they ask for their own URL, give the bundle's.
+    define: { 'import.meta.url': '__dacsmithModuleUrl' },
+    banner: { js: "const __dacsmithModuleUrl = require('node:url').pathToFileURL(__filename).href;" },
   });
+  const outputs = [...cli.outputFiles];
+  const worker = join(root, 'src', 'tolerance', 'worker.ts');
+  if (existsSync(worker)) {
+    const bundled = await build({
+      ...common(outdir, minify),
+      entryPoints: { 'tolerance-worker': worker },
+      format: 'esm',
+      // Some dependencies are CommonJS and call require() for Node built-ins: give the ESM bundle one.
+      banner: {
+        js: "import { createRequire as __dacsmithCreateRequire } from 'node:module';\nconst require = __dacsmithCreateRequire(import.meta.url);",
+      },
+    });
+    outputs.push(...bundled.outputFiles);
+  }
 
   mkdirSync(outdir, { recursive: true });
+  // The ES-module bundle of earlier versions, so that nothing runs a stale copy by mistake.
+  for (const stale of ['cli.js', 'cli.js.map']) rmSync(join(outdir, stale), { force: true });
   const written = [];
-  for (const file of result.outputFiles) {
-    const temp = `${file.path}.${process.pid}.tmp`;
-    writeFileSync(temp, file.contents);
-    renameSync(temp, file.path);
-    if (file.path.endsWith('.js')) written.push({ file: file.path, bytes: file.contents.length });
+  for (const file of outputs) {
+    writeAtomically(file.path, file.contents);
+    if (/\.c?js$/.test(file.path)) written.push({ file: file.path, bytes: file.contents.length });
   }
+  const cache = join(outdir, 'cli.cjs.cache');
+  rmSync(cache, { force: true });
+  if (codeCache) written.push(trainCodeCache(join(outdir, 'cli.cjs'), cache));
   return written;
+}
+
+/** Write through a temporary file renamed into place, so a concurrent reader never sees half a file. */
+function writeAtomically(path, contents) {
+  const temp = `${path}.${process.pid}.tmp`;
+  writeFileSync(temp, contents);
+  renameSync(temp, path);
+}
+
+/**
+ * V8's code cache for the bundle at `bundleFile`, written to `cacheFile`: the start-up script
+ * (bin/dacsmith.cjs, here on that bundle) runs `analyze` on the greenhouse sample with
+ * DACSMITH_CODE_CACHE_OUT set, so the cache holds every function a typical run compiles. The
+ * run's output is discarded; a failed run leaves no cache (the command still works, only slower).
+ */
+function trainCodeCache(bundleFile, cacheFile) {
+  const starter = join(dirname(bundleFile), '.start.cjs');
+  // bin/dacsmith.cjs finds its bundle at ../dist/cli.cjs: point a copy at this bundle instead.
+  const text = readFileSync(join(root, 'bin', 'dacsmith.cjs'), 'utf8').replace(
+    "join(__dirname, '..', 'dist', 'cli.cjs')",
+    JSON.stringify(bundleFile),
+  );
+  const temp = `${cacheFile}.${process.pid}.tmp`;
+  writeFileSync(starter, text);
+  try {
+    const run = spawnSync(process.execPath, [starter, 'analyze', join(root, 'sample-configs', 'greenhouse-heater.yaml')], {
+      cwd: root,
+      env: { ...process.env, NODE_OPTIONS: '', DACSMITH_CODE_CACHE_OUT: temp, NO_COLOR: '1' },
+      stdio: ['ignore', 'ignore', 'pipe'],
+    });
+    if (run.status !== 0 || !existsSync(temp)) {
+      process.stderr.write(`build: no code cache (the training run exited with ${run.status}): ${run.stderr}\n`);
+      rmSync(temp, { force: true });
+      return { file: cacheFile, bytes: 0 };
+    }
+    renameSync(temp, cacheFile);
+    return { file: cacheFile, bytes: statSync(cacheFile).size };
+  } finally {
+    rmSync(starter, { force: true });
+  }
 }
 
 if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {

@@ -1,6 +1,6 @@
 /**
  * vitest globalSetup: build the bundle once (node scripts/build.mjs) so that CLI tests run
- * bin/dacsmith.js like a user. A failed build does not stop other suites: the error is handed to
+ * bin/dacsmith.cjs like a user. A failed build does not stop other suites: the error is handed to
  * the CLI tests (inject('buildError')), which then fail with it.
  */
 import { execFileSync } from 'node:child_process';

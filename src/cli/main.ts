@@ -68,4 +68,4 @@ export async function main(argv: string[]): Promise<void> {
   }
 }
 
-await main(hideBin(process.argv));
+void main(hideBin(process.argv));

@@ -114,7 +114,7 @@ function concatTables(tables: SampleTable[]): SampleTable {
 
 /**
  * The worker entry: `tolerance-worker.js` beside this module (the esbuild bundle puts it beside
- * dist/cli.js), else the TypeScript source run through tsx (development and tests).
+ * dist/cli.cjs), else the TypeScript source run through tsx (development and tests).
  */
 function findWorkerScript(): { url: URL; viaTsx: boolean } | null {
   const bundled = new URL('./tolerance-worker.js', import.meta.url);

@@ -1,5 +1,5 @@
 /**
- * The review workflow end to end, run as a user would (node bin/dacsmith.js, built by the vitest
+ * The review workflow end to end, run as a user would (node bin/dacsmith.cjs, built by the vitest
  * globalSetup): `check` exit codes and formats, `compare` of two files and against a git revision,
  * `init` and its starter file.
  */

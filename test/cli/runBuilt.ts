@@ -1,11 +1,11 @@
-/** The built command as a user runs it: `node bin/dacsmith.js ...`, no terminal, no colour. */
+/** The built command as a user runs it: `node bin/dacsmith.cjs ...`, no terminal, no colour. */
 import { spawnSync } from 'node:child_process';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 /** The repository root and the built bin (vitest's globalSetup builds dist/ first). */
 export const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
-export const bin = join(root, 'bin', 'dacsmith.js');
+export const bin = join(root, 'bin', 'dacsmith.cjs');
 
 /**
  * Run the built command in `cwd` with NO_COLOR set (and any extra environment).

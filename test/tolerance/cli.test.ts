@@ -78,10 +78,10 @@ describe('dacsmith tolerance', () => {
   });
 });
 
-describe('dacsmith tolerance, the built command (bin/dacsmith.js, worker threads from dist/)', () => {
+describe('dacsmith tolerance, the built command (bin/dacsmith.cjs, worker threads from dist/)', () => {
   const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
   const run = (...a: string[]) => {
-    const r = spawnSync(process.execPath, [join(root, 'bin', 'dacsmith.js'), 'tolerance', ...a], {
+    const r = spawnSync(process.execPath, [join(root, 'bin', 'dacsmith.cjs'), 'tolerance', ...a], {
       cwd: root,
       encoding: 'utf8',
       env: { ...process.env, NO_COLOR: '1' },
