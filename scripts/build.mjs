@@ -10,7 +10,7 @@ import { build } from 'esbuild';
 import { createRequire } from 'node:module';
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
-import { dirname, join } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
@@ -167,7 +167,8 @@ const common = (outdir, minify) => ({
  * Syntax: await buildCli([{ outdir, minify, codeCache }])
  * Example: await buildCli({ outdir: '/tmp/b', minify: false })   // [{ file: '/tmp/b/cli.cjs', bytes: 1280000 }, ...]
  */
-export async function buildCli({ outdir = dist, minify = true, codeCache = true } = {}) {
+export async function buildCli({ outdir: out = dist, minify = true, codeCache = true } = {}) {
+  const outdir = resolve(out);
   const cli = await build({
     ...common(outdir, minify),
     entryPoints: { cli: join(root, 'src', 'cli', 'main.ts') },
