@@ -10,4 +10,5 @@ export { pinPeakCurrent } from './pinPeakCurrent.js';
 export { timeConstants } from './timeConstants.js';
 export { steadyWaveform } from './steadyWaveform.js';
 export { stepWaveform } from './stepWaveform.js';
+export { stepWaveformOnGrid } from './stepWaveformOnGrid.js';
 export type { OperatingPoint, WorstRipple, DcTransfer, Settling, Waveform } from './types.js';

@@ -1,5 +1,6 @@
 import type { Analysis } from '../engine/analyze.js';
 import { magnitude, steadyState } from '../engine/index.js';
+import type { Waveform } from '../engine/types.js';
 import { formatEng } from '../units/index.js';
 import { lineChart } from './lineChart.js';
 import { tidy } from './quantities.js';
@@ -21,15 +22,35 @@ export interface ChartOptions {
 
 const pct = (d: number) => `${(100 * d).toFixed(1)} %`;
 
-/** Per-column minimum and maximum of a long record (so ripple shows as a band, not as aliasing). */
-function envelope(v: number[], columns: number): { lower: number[]; upper: number[] } {
+/**
+ * Per-column minimum and maximum of a long record (so ripple shows as a band, not as aliasing).
+ * Samples go to columns by time, to the column where the chart draws that instant (column c at
+ * t0 + c (tEnd - t0) / (columns - 1), rounded as lineChart places markers), so a record with gaps
+ * (a subset of periods) lands where it belongs. A column no sample falls in repeats its left
+ * neighbour (the first such columns: the first filled one).
+ *
+ * Syntax: envelope(wave, columns)
+ * Example: envelope({ t: [0, 0.1, 4], v: [0, 2, 1] }, 3)  // { lower: [0, 0, 1], upper: [2, 2, 1] }
+ */
+export function envelope(wave: Waveform, columns: number): { lower: number[]; upper: number[] } {
   const lower = new Array<number>(columns).fill(Infinity);
   const upper = new Array<number>(columns).fill(-Infinity);
-  v.forEach((x, j) => {
-    const k = Math.min(columns - 1, Math.floor((j * columns) / v.length));
+  const { t, v } = wave;
+  const t0 = t[0];
+  const span = t[t.length - 1] - t0;
+  v.forEach((x, i) => {
+    const f = span > 0 ? (t[i] - t0) / span : 0;
+    const k = Math.min(columns - 1, Math.max(0, Math.round(f * (columns - 1))));
     lower[k] = Math.min(lower[k], x);
     upper[k] = Math.max(upper[k], x);
   });
+  const first = lower.findIndex(Number.isFinite);
+  for (let k = 0; k < columns; k++) {
+    if (Number.isFinite(lower[k])) continue;
+    const from = k < first ? first : k - 1;
+    lower[k] = lower[from];
+    upper[k] = upper[from];
+  }
   return { lower, upper };
 }
 
@@ -70,7 +91,7 @@ export function reportCharts(
 
   // (b) Settling step: envelope of the record, band lines, settling instant.
   const step = stepRecord(analysis);
-  const { lower, upper } = envelope(step.wave.v, COLUMNS);
+  const { lower, upper } = envelope(step.wave, COLUMNS);
   const bandLabel = `band ±${formatEng(step.band, 'V', 3)} around the final value`;
   const levels = [
     { y: step.final + step.band, label: bandLabel },

@@ -1,5 +1,5 @@
 import type { Analysis } from '../engine/analyze.js';
-import { stepWaveform, steadyState, steadyWaveform } from '../engine/index.js';
+import { stepWaveformOnGrid, steadyState, steadyWaveform } from '../engine/index.js';
 import type { Waveform } from '../engine/types.js';
 
 /** Longest step record drawn or written, samples (keeps reports quick on very slow filters). */
@@ -30,9 +30,15 @@ export interface StepRecord {
   time: number | null;
 }
 
+/** Samples per PWM period in the step record (enough to draw the ripple of each period). */
+const STEP_SAMPLES_PER_PERIOD = 16;
+
 /**
- * Sample the settling step of an analysis (engine `stepWaveform`) densely enough to show the ripple
- * (about 16 samples per PWM period, at most 20 000 samples).
+ * Sample the settling step of an analysis on the per-period grid t = k T + j T / m (engine
+ * `stepWaveformOnGrid`), m = 16 or more so that the record has at least `minSamples` samples, plus
+ * the exact end of the record (stepDuration). Longer records than 20 000 samples keep every sample
+ * of an evenly spread subset of periods, so each drawn period still shows its true ripple; `t` then
+ * has gaps and charts must place samples by time.
  *
  * Syntax: stepRecord(analysis[, minSamples])
  * Example: stepRecord(a).wave.v.at(-1)   // close to stepRecord(a).final
@@ -40,9 +46,9 @@ export interface StepRecord {
 export function stepRecord(analysis: Analysis, minSamples = 600): StepRecord {
   const { ladder, settling } = analysis;
   const duration = stepDuration(analysis);
-  const samples = Math.min(MAX_STEP_SAMPLES, Math.max(minSamples, Math.ceil((16 * duration) / ladder.period)));
+  const perPeriod = Math.max(STEP_SAMPLES_PER_PERIOD, Math.ceil((minSamples * ladder.period) / duration));
   return {
-    wave: stepWaveform(ladder, settling.from, settling.to, duration, samples),
+    wave: stepWaveformOnGrid(ladder, settling.from, settling.to, duration, perPeriod, MAX_STEP_SAMPLES),
     from: settling.from,
     to: settling.to,
     final: steadyState(ladder, settling.to).average,
