@@ -138,6 +138,35 @@ export function lazyStringWidth() {
   };
 }
 
+/**
+ * Node built-ins that only some runs need, loaded on first use instead of at every start: `git`
+ * for `compare --git` (child_process), worker threads for `tolerance` (worker_threads), and the two
+ * assertions yargs keeps for its own argument checks (assert). Loading them costs about 8 ms per
+ * start (node --cpu-prof on the bundle). Each listed name becomes a function that requires the
+ * built-in when called (`new` works too: a constructor returning an object yields that object);
+ * importing a name not listed here fails the build, so the list cannot silently fall behind.
+ */
+const LAZY_BUILTINS = {
+  'node:child_process': ['execFileSync'],
+  'node:worker_threads': ['Worker'],
+  assert: ['notStrictEqual', 'strictEqual'],
+};
+const lazyBuiltins = {
+  name: 'lazy-builtins',
+  setup(b) {
+    const names = Object.keys(LAZY_BUILTINS).map((n) => n.replace(/[/:]/g, '\\$&'));
+    b.onResolve({ filter: new RegExp(`^(${names.join('|')})$`) }, (args) =>
+      args.namespace === 'dacsmith-lazy' ? { path: args.path, external: true } : { path: args.path, namespace: 'dacsmith-lazy' },
+    );
+    b.onLoad({ filter: /.*/, namespace: 'dacsmith-lazy' }, (args) => ({
+      contents: LAZY_BUILTINS[args.path]
+        .map((name) => `export function ${name}(...a) { const f = require(${JSON.stringify(args.path)}).${name}; return new.target ? new f(...a) : f(...a); }`)
+        .join('\n'),
+      loader: 'js',
+    }));
+  },
+};
+
 /** esbuild options both bundles share: Node 20, minified, external source maps, written by us. */
 const common = (outdir, minify) => ({
   outdir,
@@ -174,7 +203,7 @@ export async function buildCli({ outdir: out = dist, minify = true, codeCache = 
     entryPoints: { cli: join(root, 'src', 'cli', 'main.ts') },
     format: 'cjs',
     outExtension: { '.js': '.cjs' },
-    plugins: [bundleLazyImportsStatically, projectValidatorAtBuildTime(await standaloneProjectValidator()), lazyStringWidth()],
+    plugins: [bundleLazyImportsStatically, projectValidatorAtBuildTime(await standaloneProjectValidator()), lazyStringWidth(), lazyBuiltins],
     // The sources are ES modules: where they ask for their own URL, give the bundle's.
     define: { 'import.meta.url': '__dacsmithModuleUrl' },
     banner: { js: "const __dacsmithModuleUrl = require('node:url').pathToFileURL(__filename).href;" },
