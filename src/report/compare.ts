@@ -250,7 +250,7 @@ function overlayChart(o: Overlay, yUnit: string, yPrefixed: boolean, height: num
         return colored && THIN_LINE.has(ch) ? paint.warn(ch) : ch;
       })
       .join('')
-      .replace(/\s+$/, '');
+      .trimEnd();
   });
   const n = o.t.length;
   const x = axisFormatter(o.t[0], o.t[n - 1], 4, 's');

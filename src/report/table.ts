@@ -38,7 +38,7 @@ export function table(header: string[], rows: string[][], options: TableOptions 
     Math.max(visibleWidth(header[i] ?? ''), ...rows.map((r) => visibleWidth(r[i] ?? ''))),
   );
   const line = (cells: string[]) =>
-    (indent + widths.map((w, i) => pad(cells[i] ?? '', w, align(i))).join(gap)).replace(/\s+$/, '');
+    (indent + widths.map((w, i) => pad(cells[i] ?? '', w, align(i))).join(gap)).trimEnd();
   const out: string[] = [];
   if (header.length > 0) {
     out.push(line(header));
