@@ -1,9 +1,11 @@
 import type { Ladder } from '../circuit/ladder.js';
 import type { DcTransfer } from './types.js';
 import { averageOutput } from './averageOutput.js';
+import { averageOutputByExpm } from './averageOutputByExpm.js';
 import { checkRange } from './checkArguments.js';
 import { maximizeOnInterval } from './maximizeOnInterval.js';
 import { prepare } from './prepare.js';
+import type { SteadyMethod } from './steadyState.js';
 
 /**
  * DC transfer errors of the PWM DAC over the used range [dutyMin, dutyMax], all in V:
@@ -14,19 +16,20 @@ import { prepare } from './prepare.js';
  * - inl: the largest deviation average - fit (sign kept) and its duty.
  * With a single duty (dutyMin = dutyMax) the fit takes the ideal slope.
  *
- * Method: exact averages (dutyPlan.ts). With unequal high and low driver resistances average(D)
+ * Method: exact averages (averageOutput.ts; with method 'expm' always by matrix exponentials,
+ * averageOutputByExpm.ts). With unequal high and low driver resistances average(D)
  * is not affine, so the extremes are searched: 16-cell grid plus Brent refinement
  * (maximizeOnInterval.ts). Endpoint-fit terms as DAC data sheets define them (common practice).
  *
- * Syntax: dcTransfer(ladder, dutyMin, dutyMax)
+ * Syntax: dcTransfer(ladder, dutyMin, dutyMax[, method])
  * Example: dcTransfer(loadedLadder, 0.05, 0.95).droop  // { duty: 0.95, error: 0.03 }
  */
-export function dcTransfer(ladder: Ladder, dutyMin: number, dutyMax: number): DcTransfer {
+export function dcTransfer(ladder: Ladder, dutyMin: number, dutyMax: number, method: SteadyMethod = 'auto'): DcTransfer {
   checkRange(dutyMin, dutyMax);
   const p = prepare(ladder);
   const span = ladder.high - ladder.low;
   const ideal = (d: number) => ladder.low + d * span;
-  const average = (d: number) => averageOutput(ladder, p, d);
+  const average = method === 'expm' ? (d: number) => averageOutputByExpm(p, d) : (d: number) => averageOutput(ladder, p, d);
   const error = (d: number) => ideal(d) - average(d);
 
   const droopAt = maximizeOnInterval((d) => Math.abs(error(d)), dutyMin, dutyMax).x;

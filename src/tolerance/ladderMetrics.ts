@@ -2,11 +2,11 @@ import type { Ladder } from '../circuit/ladder.js';
 import { dcTransfer, settlingTime, worstRipple } from '../engine/index.js';
 import type { MetricPlan } from './metricPlan.js';
 import { maximizeFromHints } from './dutySearch.js';
-import { modalLadder, type ModalLadder } from './modal/modalLadder.js';
-import { rippleAt } from './modal/rippleAt.js';
-import { averageOutput } from './modal/averageOutput.js';
-import type { PeriodicState } from './modal/periodicState.js';
-import { modalSettling } from './modal/settling.js';
+import { modalLadder, type ModalLadder } from '../engine/modal/modalLadder.js';
+import { rippleAt } from '../engine/modal/rippleAt.js';
+import { averageOutput } from '../engine/modal/averageOutput.js';
+import type { PeriodicState } from '../engine/modal/periodicState.js';
+import { modalSettling } from '../engine/modal/settling.js';
 
 /** The figures a tolerance study checks for one ladder (SI: V, s). */
 export interface LadderMetrics {
@@ -30,8 +30,8 @@ export interface LadderMetricsOptions {
 /**
  * Worst ripple, droop, INL and settling time of one ladder, exactly, for tolerance studies.
  *
- * Method: the modal form of the ladder (modal/modalLadder.ts; a cascade of sections when
- * followers sit inside it, modal/cascadeLadder.ts) when it exists, the engine otherwise (sections
+ * Method: the modal form of the ladder (engine/modal/modalLadder.ts; a cascade of sections when
+ * followers sit inside it, engine/modal/cascadeLadder.ts) when it exists, the engine otherwise (sections
  * sharing a mode); settling of a cascade, or a step the modal search declines, also comes from the
  * engine. Worst ripple: Brent's maximization from the nominal ripple peaks in the plan
  * (maximizeFromHints), falling back to the engine's full grid search when a peak has moved too far.
@@ -72,7 +72,8 @@ export function ladderMetrics(ladder: Ladder, plan: MetricPlan, options: LadderM
 }
 
 function engineMetrics(ladder: Ladder, plan: MetricPlan): LadderMetrics {
-  const dc = dcTransfer(ladder, plan.dutyMin, plan.dutyMax);
+  // matrix exponentials throughout: this is the independent check of the modal path (engineOnly)
+  const dc = dcTransfer(ladder, plan.dutyMin, plan.dutyMax, 'expm');
   let settling: number | null = 0;
   for (const { from, to } of plan.steps) {
     const t = settlingTime(ladder, from, to, plan.band).time;
@@ -83,7 +84,7 @@ function engineMetrics(ladder: Ladder, plan: MetricPlan): LadderMetrics {
     settling = Math.max(settling, t);
   }
   return {
-    worstRipple: worstRipple(ladder, plan.dutyMin, plan.dutyMax),
+    worstRipple: worstRipple(ladder, plan.dutyMin, plan.dutyMax, 'expm'),
     droop: dc.droop,
     inl: plan.inl ? dc.inl : null,
     settlingTime: settling,

@@ -2,9 +2,9 @@ import type { Ladder } from '../circuit/ladder.js';
 import { defaultBand } from '../engine/analyze.js';
 import type { Project } from '../project/types.js';
 import { gridPeaks } from './dutySearch.js';
-import { averageOutput } from './modal/averageOutput.js';
-import { modalLadder } from './modal/modalLadder.js';
-import { rippleAt } from './modal/rippleAt.js';
+import { averageOutput } from '../engine/modal/averageOutput.js';
+import { modalLadder } from '../engine/modal/modalLadder.js';
+import { rippleAt } from '../engine/modal/rippleAt.js';
 
 /** What to compute for each ladder of a tolerance study, and the limits to check. */
 export interface MetricPlan {

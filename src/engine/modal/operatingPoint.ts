@@ -1,4 +1,4 @@
-import type { OperatingPoint } from '../../engine/types.js';
+import type { OperatingPoint } from '../types.js';
 import type { ModalLadder } from './modalLadder.js';
 import { curveExtrema } from './phaseCurve.js';
 import { periodicState, type PeriodicState } from './periodicState.js';

@@ -2,8 +2,9 @@ import type { Ladder } from '../../circuit/ladder.js';
 import { stateSpace, type PhaseSystem, type Section } from '../../circuit/stateSpace.js';
 import type { ModalLadder, PhaseModes } from './modalLadder.js';
 import { solveSmall } from './solveSmall.js';
-import { symmetricEigen } from '../../engine/symmetricEigen.js';
-import { zeros } from '../../engine/dense.js';
+import { symmetricEigen } from '../symmetricEigen.js';
+import { zeros } from '../dense.js';
+import { dcStates } from './dcStates.js';
 
 /**
  * Largest condition number ||V|| ||V^-1|| (infinity norm) of the eigenvector matrix accepted: it
@@ -25,7 +26,7 @@ const MAX_CONDITION = 1e5;
  * own eigenvector in it, and continues into each later section t by solving
  * (A_tt - rate I) v_t = -(coupling from the sections before) v (block forward substitution;
  * Golub & Van Loan, "Matrix Computations", 4th ed., section 7.6 on block-triangular eigenproblems).
- * V^-1 and the DC states x = -A^-1 b by Gaussian elimination (solveSmall).
+ * V^-1 by Gaussian elimination (solveSmall); the DC states from the resistive chain (dcStates.ts).
  *
  * Syntax: cascadeLadder(ladder)
  * Example: cascadeLadder(bufferedTwoStage)?.hi.rate  // [-1/((R1 + Rd) C1), -1/(R2 C2)]
@@ -36,10 +37,7 @@ export function cascadeLadder(ladder: Ladder): ModalLadder | null {
   const high = phaseModes(ss.high, ss.sections, ss.capacitance, n);
   const low = phaseModes(ss.low, ss.sections, ss.capacitance, n);
   if (!high || !low) return null;
-  const dc = (sys: PhaseSystem) => solveSmall(sys.A, n, sys.b)?.map((v) => -v) ?? null;
-  const xHigh = dc(ss.high);
-  const xLow = dc(ss.low);
-  if (!xHigh || !xLow) return null;
+  const dc = dcStates(ladder);
   const mix = zeros(n * n);
   const delta = zeros(n);
   for (let i = 0; i < n; i++) {
@@ -47,7 +45,7 @@ export function cascadeLadder(ladder: Ladder): ModalLadder | null {
       let s = 0;
       for (let k = 0; k < n; k++) s += low.W[i * n + k] * high.V[k * n + j];
       mix[i * n + j] = s;
-      delta[i] += high.W[i * n + j] * (xHigh[j] - xLow[j]);
+      delta[i] += high.W[i * n + j] * dc.delta[j];
     }
   }
   return {
@@ -60,7 +58,9 @@ export function cascadeLadder(ladder: Ladder): ModalLadder | null {
     lo: low.modes,
     mix,
     delta,
-    outLow: xLow[n - 1],
+    outLow: dc.low[n - 1],
+    outHigh: dc.high[n - 1],
+    condition: Math.max(high.condition, low.condition),
   };
 }
 
@@ -69,7 +69,7 @@ function phaseModes(
   sections: Section[],
   capacitance: number[] | Float64Array,
   n: number,
-): { modes: PhaseModes; V: number[]; W: number[] } | null {
+): { modes: PhaseModes; V: number[]; W: number[]; condition: number } | null {
   const { A } = sys;
   const V = zeros(n * n);
   const rate = zeros(n);
@@ -112,7 +112,18 @@ function phaseModes(
   if (!W || !(normInf(V, n) * normInf(W, n) <= MAX_CONDITION)) return null;
   const out = zeros(n);
   for (let i = 0; i < n; i++) out[i] = V[(n - 1) * n + i];
-  return { modes: { rate, out }, V, W };
+  // the same condition number in the balanced coordinates sqrt(C) x, where each section's own
+  // eigenvectors are orthonormal: what is left measures how nearly two sections share a mode
+  const Vb = zeros(n * n);
+  const Wb = zeros(n * n);
+  for (let i = 0; i < n; i++) {
+    const s = Math.sqrt(capacitance[i]);
+    for (let j = 0; j < n; j++) {
+      Vb[i * n + j] = V[i * n + j] * s;
+      Wb[j * n + i] = W[j * n + i] / s;
+    }
+  }
+  return { modes: { rate, out }, V, W, condition: normInf(Vb, n) * normInf(Wb, n) };
 }
 
 /** Largest absolute row sum. */

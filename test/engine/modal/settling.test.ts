@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { modalLadder } from '../../../src/tolerance/modal/modalLadder.js';
-import { modalSettling } from '../../../src/tolerance/modal/settling.js';
-import { integratePeriod, ladder, oneStageRipple, oneStageSettling, stage } from '../reference.js';
+import { modalLadder } from '../../../src/engine/modal/modalLadder.js';
+import { modalSettling } from '../../../src/engine/modal/settling.js';
+import { integratePeriod, ladder, oneStageRipple, oneStageSettling, stage } from '../../tolerance/reference.js';
 
 const T = 1 / 20e3;
 

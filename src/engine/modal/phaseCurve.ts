@@ -1,4 +1,4 @@
-import { zeros } from '../../engine/dense.js';
+import { zeros } from '../dense.js';
 import { expSumRoots } from './expSumRoots.js';
 
 /**

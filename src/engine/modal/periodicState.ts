@@ -1,6 +1,6 @@
-import { zeros } from '../../engine/dense.js';
+import { zeros } from '../dense.js';
 import { solveSmall } from './solveSmall.js';
-import { phi2 } from '../../engine/phi2.js';
+import { phi2 } from '../phi2.js';
 import type { ModalLadder } from './modalLadder.js';
 import type { PhaseCurve } from './phaseCurve.js';
 
@@ -24,17 +24,22 @@ export interface PeriodicState {
 }
 
 /**
- * Periodic steady state of a follower-free ladder at duty D, exactly, in O(n^2) plus one n x n solve.
+ * Periodic steady state of a ladder in modal form at duty D, exactly, in O(n^2) plus one n x n
+ * solve with two right-hand sides.
  *
  * Method: the deviation form of the engine (dutyPlan.ts) written in modal coordinates. With
  * Delta = x_h - x_l, t1 = D T, t2 = (1 - D) T, K_p = I - e^{A_p t_p}, E_p = e^{A_p t_p}, the state at
- * the rising edge x_s = x_l + u solves (K_l + E_l K_h) u = E_l K_h Delta. In high-phase modal
- * coordinates (u~ = Qh^T Cs u) and with X = Ql^T Qh this is Y u~ = r, where
- * Y_ij = X_ij (k_l,i + e_l,i k_h,j) and r_i = e_l,i sum_j X_ij k_h,j Delta~_j; the k's are
+ * the rising edge x_s = x_l + u solves (K_l + E_l K_h) u = E_l K_h Delta, and the drive of the high
+ * phase v = Delta - u solves (K_l + E_l K_h) v = K_l Delta (no subtraction: near duty 1, where
+ * u ~ Delta, v keeps its digits). In high-phase modal coordinates (u~ = W_h u) and with
+ * X = W_l V_h this is Y u~ = r, Y v~ = r', where Y_ij = X_ij (k_l,i + e_l,i k_h,j),
+ * r_i = e_l,i sum_j X_ij k_h,j Delta~_j and r'_i = k_l,i sum_j X_ij Delta~_j; the k's are
  * -expm1(rate t) so nothing cancels when time constants dwarf the period. The output deviation from
  * the rising edge is sum_i a_i (-expm1(rate_i tau)) in each phase (a sum of decaying exponentials),
  * and the mean uses the integral of -expm1, -rate t^2 phi2(rate t) (phi-functions of exponential
- * integrators: Hochbruck & Ostermann, Acta Numerica 19, 2010).
+ * integrators: Hochbruck & Ostermann, Acta Numerica 19, 2010). The output at the rising edge is
+ * taken from the DC state that needs the smaller correction (x_l + u below duty 1/2, x_h - v above),
+ * as in dutyPlan.ts.
  *
  * Syntax: periodicState(modal, duty)
  * Example: periodicState(modalLadder(ladder)!, 0.5).average  // V
@@ -52,44 +57,51 @@ export function periodicState(m: ModalLadder, duty: number): PeriodicState {
     el[i] = Math.exp(lo.rate[i] * t2);
   }
   let start: number[];
-  if (n === 1) {
+  let drive: number[];
+  // Duty 1: no low phase, the state sits at the high phase's DC state: u = Delta and v = 0 exactly.
+  if (t2 === 0) {
+    start = delta.slice();
+    drive = zeros(n);
+  } else if (n === 1) {
     const den = kl[0] + el[0] * kh[0];
     start = [(el[0] * kh[0] * delta[0]) / den];
-  } else if (n === 2) {
-    start = solveTwoByTwo(
-      mix[0] * (kl[0] + el[0] * kh[0]),
-      mix[1] * (kl[0] + el[0] * kh[1]),
-      mix[2] * (kl[1] + el[1] * kh[0]),
-      mix[3] * (kl[1] + el[1] * kh[1]),
-      el[0] * (mix[0] * kh[0] * delta[0] + mix[1] * kh[1] * delta[1]),
-      el[1] * (mix[2] * kh[0] * delta[0] + mix[3] * kh[1] * delta[1]),
-    );
+    drive = [(kl[0] * delta[0]) / den];
   } else {
+    // Y and the two right-hand sides [r r'] (row-major n x 2)
     const Y = zeros(n * n);
-    const r = zeros(n);
+    const rhs = zeros(2 * n);
     for (let i = 0; i < n; i++) {
-      let s = 0;
+      let sHigh = 0;
+      let sAll = 0;
       for (let j = 0; j < n; j++) {
         const x = mix[i * n + j];
         Y[i * n + j] = x * (kl[i] + el[i] * kh[j]);
-        s += x * kh[j] * delta[j];
+        sHigh += x * kh[j] * delta[j];
+        sAll += x * delta[j];
       }
-      r[i] = el[i] * s;
+      rhs[2 * i] = el[i] * sHigh;
+      rhs[2 * i + 1] = kl[i] * sAll;
     }
-    const solved = solveSmall(Y, n, r);
+    const solved = n === 2 ? solveTwoByTwo(Y, rhs) : solveSmall(Y, n, rhs, 2);
     if (!solved) throw new RangeError('periodicState: singular period map (not a physical ladder)');
-    start = solved;
+    start = zeros(n);
+    drive = zeros(n);
+    for (let i = 0; i < n; i++) {
+      start[i] = solved[2 * i];
+      drive[i] = solved[2 * i + 1];
+    }
   }
   const aHigh = zeros(n);
   const wEnd = zeros(n);
   let yEnd = 0;
-  let yStartDev = 0;
+  let fromLow = 0;
+  let fromHigh = 0;
   for (let i = 0; i < n; i++) {
-    const d = delta[i] - start[i];
-    aHigh[i] = hi.out[i] * d;
-    wEnd[i] = kh[i] * d;
+    aHigh[i] = hi.out[i] * drive[i];
+    wEnd[i] = kh[i] * drive[i];
     yEnd += aHigh[i] * kh[i];
-    yStartDev += hi.out[i] * start[i];
+    fromLow += hi.out[i] * start[i];
+    fromHigh += hi.out[i] * drive[i];
   }
   const aLow = zeros(n);
   for (let i = 0; i < n; i++) {
@@ -105,7 +117,7 @@ export function periodicState(m: ModalLadder, duty: number): PeriodicState {
     integral += aLow[i] * -lo.rate[i] * t2 * t2 * phi2(zl);
   }
   const meanOffset = integral / period;
-  const yStart = m.outLow + yStartDev;
+  const yStart = duty > 0.5 ? m.outHigh - fromHigh : m.outLow + fromLow;
   return {
     duty,
     t1,
@@ -119,10 +131,19 @@ export function periodicState(m: ModalLadder, duty: number): PeriodicState {
   };
 }
 
-/** [a b; c d] x = [e; f] by Gaussian elimination with partial pivoting (Golub & Van Loan, Alg. 3.4.1). */
-function solveTwoByTwo(a: number, b: number, c: number, d: number, e: number, f: number): number[] {
-  if (Math.abs(c) > Math.abs(a)) [a, b, c, d, e, f] = [c, d, a, b, f, e];
+/**
+ * Y X = B for 2 x 2 Y (row-major) and two right-hand sides (B row-major 2 x 2), by Gaussian
+ * elimination with partial pivoting (Golub & Van Loan, Alg. 3.4.1); null when Y is singular.
+ */
+function solveTwoByTwo(Y: number[], B: number[]): number[] | null {
+  let [a, b, c, d] = Y;
+  let [e0, e1, f0, f1] = B;
+  if (Math.abs(c) > Math.abs(a)) [a, b, c, d, e0, e1, f0, f1] = [c, d, a, b, f0, f1, e0, e1];
+  if (a === 0) return null;
   const l = c / a;
-  const x1 = (f - l * e) / (d - l * b);
-  return [(e - b * x1) / a, x1];
+  const pivot = d - l * b;
+  if (pivot === 0) return null;
+  const y0 = (f0 - l * e0) / pivot;
+  const y1 = (f1 - l * e1) / pivot;
+  return [(e0 - b * y0) / a, (e1 - b * y1) / a, y0, y1];
 }

@@ -1,7 +1,8 @@
-import { zeros } from '../../engine/dense.js';
+import { zeros } from '../dense.js';
 import type { Ladder } from '../../circuit/ladder.js';
 import { cascadeLadder } from './cascadeLadder.js';
-import { symmetricEigen } from '../../engine/symmetricEigen.js';
+import { symmetricEigen } from '../symmetricEigen.js';
+import { dcStates } from './dcStates.js';
 
 /** The modes of one pin state: x' = A x + b with A = V diag(rate) W, W = V^-1. */
 export interface PhaseModes {
@@ -32,13 +33,22 @@ export interface ModalLadder {
   delta: number[];
   /** Output at the DC state of the low phase, V. */
   outLow: number;
+  /** Output at the DC state of the high phase, V. */
+  outHigh: number;
+  /**
+   * Condition number ||V||_inf ||V^-1||_inf of the modal basis in the balanced coordinates
+   * sqrt(C) x, the larger of the two phases: 1 for a follower-free ladder (orthonormal basis), large
+   * for a cascade whose sections have nearly equal modes. Rounding in the modal sums grows with it.
+   */
+  condition: number;
 }
 
 /**
  * The modal form of a ladder, or null when it does not apply. A follower after the last stage
  * only disconnects the load (as in the engine's state equations); followers inside the ladder make
  * a cascade of sections, handed to cascadeLadder (null when two sections share a mode: a Jordan
- * block, for the engine's matrix-exponential path).
+ * block, for the engine's matrix-exponential path). The engine decides with modalRoute.ts whether it
+ * uses the form; the tolerance module uses it directly.
  *
  * Method: nodal state equations C x' = -G x + g (Kirchhoff's current law at each capacitor node, as
  * in circuit/stateSpace.ts). With Cs = diag(sqrt C),
@@ -46,7 +56,8 @@ export interface ModalLadder {
  * Cs^-1-scaled orthonormal eigenvectors; a follower-free RC ladder gives an irreducible tridiagonal
  * S, whose eigenvalues are distinct (an unreduced symmetric tridiagonal has simple eigenvalues:
  * B. N. Parlett, "The Symmetric Eigenvalue Problem", SIAM 1998, ch. 7; cited from memory).
- * Eigen-decomposition by Jacobi rotations (engine/symmetricEigen.ts).
+ * Eigen-decomposition by Jacobi rotations (engine/symmetricEigen.ts). DC states from the
+ * resistive chain (dcStates.ts).
  *
  * Syntax: modalLadder(ladder)
  * Example: modalLadder(oneStage).hi.rate  // [-1 / ((R + Rd) C)]
@@ -67,7 +78,7 @@ export function modalLadder(ladder: Ladder): ModalLadder | null {
   const gIn = zeros(n + 1);
   for (let k = 1; k < n; k++) gIn[k] = 1 / stages[k].r;
   gIn[n] = gLoad;
-  const phase = (driver: number, source: number): { modes: PhaseModes; basis: number[]; dc: number[] } => {
+  const phase = (driver: number): { modes: PhaseModes; basis: number[] } => {
     gIn[0] = 1 / (stages[0].r + driver);
     const S = zeros(n * n);
     for (let k = 0; k < n; k++) {
@@ -81,10 +92,11 @@ export function modalLadder(ladder: Ladder): ModalLadder | null {
     const { values, vectors } = symmetricEigen(S, n, { vectors: true });
     const out = zeros(n);
     for (let i = 0; i < n; i++) out[i] = vectors[(n - 1) * n + i] / cs[n - 1];
-    return { modes: { rate: values, out }, basis: vectors, dc: dcState(gIn, n, source) };
+    return { modes: { rate: values, out }, basis: vectors };
   };
-  const high = phase(ladder.driverHigh, ladder.high);
-  const low = phase(ladder.driverLow, ladder.low);
+  const high = phase(ladder.driverHigh);
+  const low = phase(ladder.driverLow);
+  const dc = dcStates(ladder);
   const hi = high.modes;
   const lo = low.modes;
   const mix = zeros(n * n);
@@ -94,7 +106,7 @@ export function modalLadder(ladder: Ladder): ModalLadder | null {
       let s = 0;
       for (let k = 0; k < n; k++) s += low.basis[k * n + i] * high.basis[k * n + j];
       mix[i * n + j] = s;
-      delta[i] += high.basis[j * n + i] * cs[j] * (high.dc[j] - low.dc[j]);
+      delta[i] += high.basis[j * n + i] * cs[j] * dc.delta[j];
     }
   }
   return {
@@ -107,28 +119,8 @@ export function modalLadder(ladder: Ladder): ModalLadder | null {
     lo,
     mix,
     delta,
-    outLow: low.dc[n - 1],
+    outLow: dc.low[n - 1],
+    outHigh: dc.high[n - 1],
+    condition: 1,
   };
-}
-
-/**
- * DC node voltages of the resistive ladder fed with `source` through conductance gIn[0]:
- * G x = gIn[0] source e_1 with G tridiagonal (diagonal gIn[k] + gIn[k+1], off-diagonal -gIn[k+1]),
- * by the Thomas algorithm (forward elimination and back substitution; G is diagonally dominant,
- * so no pivoting is needed: Golub & Van Loan, 4th ed., Algorithm 4.3.6 and section 4.1).
- */
-function dcState(gIn: number[], n: number, source: number): number[] {
-  const x = zeros(n);
-  const diag = zeros(n);
-  const rhs = zeros(n);
-  for (let k = 0; k < n; k++) diag[k] = gIn[k] + gIn[k + 1];
-  rhs[0] = gIn[0] * source;
-  for (let k = 1; k < n; k++) {
-    const f = -gIn[k] / diag[k - 1];
-    diag[k] -= f * -gIn[k];
-    rhs[k] -= f * rhs[k - 1];
-  }
-  x[n - 1] = rhs[n - 1] / diag[n - 1];
-  for (let k = n - 2; k >= 0; k--) x[k] = (rhs[k] + gIn[k + 1] * x[k + 1]) / diag[k];
-  return x;
 }

@@ -1,4 +1,4 @@
-import { phi2 } from '../../engine/phi2.js';
+import { phi2 } from '../phi2.js';
 import type { ModalLadder } from './modalLadder.js';
 
 /**
@@ -42,45 +42,59 @@ export function smallState(m: ModalLadder, duty: number): SmallState {
   const kh0 = -Math.expm1(rh0 * t1);
   const kl0 = -Math.expm1(rl0 * t2);
   const el0 = Math.exp(rl0 * t2);
+  const kh1 = two ? -Math.expm1(rh1 * t1) : 0;
+  const x00 = mix[0];
+  const x01 = two ? mix[1] : 0;
+  const x10 = two ? mix[2] : 0;
+  const x11 = two ? mix[3] : 0;
+  // u = x_s - x_l and v = Delta - u, each from its own right-hand side (see periodicState)
   let u0: number;
   let u1 = 0;
-  let kh1 = 0;
-  let x00 = mix[0];
-  let x01 = 0;
-  let x10 = 0;
-  let x11 = 0;
-  let d1 = 0;
-  if (!two) {
-    u0 = (el0 * kh0 * delta[0]) / (kl0 + el0 * kh0);
+  let v0: number;
+  let v1 = 0;
+  if (t2 === 0) {
+    // duty 1: the state is the high phase's DC state, u = Delta and v = 0 exactly
+    u0 = delta[0];
+    u1 = two ? delta[1] : 0;
+    v0 = 0;
+  } else if (!two) {
+    const den = kl0 + el0 * kh0;
+    u0 = (el0 * kh0 * delta[0]) / den;
+    v0 = (kl0 * delta[0]) / den;
   } else {
-    kh1 = -Math.expm1(rh1 * t1);
     const kl1 = -Math.expm1(rl1 * t2);
     const el1 = Math.exp(rl1 * t2);
-    [x00, x01, x10, x11] = [mix[0], mix[1], mix[2], mix[3]];
-    // (K_l + E_l K_h) u = E_l K_h Delta in modal coordinates; elimination with partial pivoting
+    // (K_l + E_l K_h) [u v] = [E_l K_h Delta, K_l Delta] in modal coordinates; partial pivoting
     let a = x00 * (kl0 + el0 * kh0);
     let b = x01 * (kl0 + el0 * kh1);
     let c = x10 * (kl1 + el1 * kh0);
     let d = x11 * (kl1 + el1 * kh1);
     let e = el0 * (x00 * kh0 * delta[0] + x01 * kh1 * delta[1]);
     let f = el1 * (x10 * kh0 * delta[0] + x11 * kh1 * delta[1]);
-    if (Math.abs(c) > Math.abs(a)) [a, b, c, d, e, f] = [c, d, a, b, f, e];
+    let g = kl0 * (x00 * delta[0] + x01 * delta[1]);
+    let h = kl1 * (x10 * delta[0] + x11 * delta[1]);
+    if (Math.abs(c) > Math.abs(a)) [a, b, c, d, e, f, g, h] = [c, d, a, b, f, e, h, g];
     const l = c / a;
-    u1 = (f - l * e) / (d - l * b);
+    const pivot = d - l * b;
+    u1 = (f - l * e) / pivot;
     u0 = (e - b * u1) / a;
-    d1 = delta[1] - u1;
+    v1 = (h - l * g) / pivot;
+    v0 = (g - b * v1) / a;
   }
-  const d0 = delta[0] - u0;
-  const aHigh0 = hi.out[0] * d0;
-  const aHigh1 = two ? hi.out[1] * d1 : 0;
-  const w0 = kh0 * d0;
-  const w1 = kh1 * d1;
+  const aHigh0 = hi.out[0] * v0;
+  const aHigh1 = two ? hi.out[1] * v1 : 0;
+  const w0 = kh0 * v0;
+  const w1 = kh1 * v1;
   const yEnd = aHigh0 * kh0 + aHigh1 * kh1;
   const aLow0 = lo.out[0] * -(x00 * (u0 + w0) + x01 * (u1 + w1));
   const aLow1 = two ? lo.out[1] * -(x10 * (u0 + w0) + x11 * (u1 + w1)) : 0;
   let integral = t2 * yEnd - aHigh0 * rh0 * t1 * t1 * phi2(rh0 * t1) - aLow0 * rl0 * t2 * t2 * phi2(rl0 * t2);
   if (two) integral -= aHigh1 * rh1 * t1 * t1 * phi2(rh1 * t1) + aLow1 * rl1 * t2 * t2 * phi2(rl1 * t2);
-  const yStart = m.outLow + hi.out[0] * u0 + (two ? hi.out[1] * u1 : 0);
+  // the output at the rising edge from the DC state needing the smaller correction
+  const yStart =
+    duty > 0.5
+      ? m.outHigh - (hi.out[0] * v0 + (two ? hi.out[1] * v1 : 0))
+      : m.outLow + hi.out[0] * u0 + (two ? hi.out[1] * u1 : 0);
   return {
     t1,
     t2,

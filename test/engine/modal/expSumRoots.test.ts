@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { expSumRoots } from '../../../src/tolerance/modal/expSumRoots.js';
+import { expSumRoots } from '../../../src/engine/modal/expSumRoots.js';
 
 describe('expSumRoots', () => {
   it('finds the closed-form root of two terms: e^-s = 2 e^-2s at s = ln 2', () => {

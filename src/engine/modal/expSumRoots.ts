@@ -1,4 +1,4 @@
-import { brentRoot } from '../../engine/brentRoot.js';
+import { brentRoot } from '../brentRoot.js';
 
 /**
  * The roots of h(s) = sum_i coef[i] exp(rate[i] s) inside the open interval (0, length), sorted.

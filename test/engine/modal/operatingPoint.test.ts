@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { modalLadder } from '../../../src/tolerance/modal/modalLadder.js';
-import { modalOperatingPoint } from '../../../src/tolerance/modal/operatingPoint.js';
-import { averageOutput } from '../../../src/tolerance/modal/averageOutput.js';
-import { rippleAt } from '../../../src/tolerance/modal/rippleAt.js';
-import { integratePeriod, ladder, oneStageRipple, stage } from '../reference.js';
+import { modalLadder } from '../../../src/engine/modal/modalLadder.js';
+import { modalOperatingPoint } from '../../../src/engine/modal/operatingPoint.js';
+import { averageOutput } from '../../../src/engine/modal/averageOutput.js';
+import { rippleAt } from '../../../src/engine/modal/rippleAt.js';
+import { integratePeriod, ladder, oneStageRipple, stage } from '../../tolerance/reference.js';
 
 const T = 1 / 20e3;
 
@@ -73,5 +73,26 @@ describe('modal steady state against time-domain integration (ODEX, npm odex)', 
     // two identical isolated sections: the cascade's state matrix has a repeated eigenvalue
     expect(modalLadder(ladder([stage(1e3, 1e-7, true), stage(1e3, 1e-7)]))).toBeNull();
     expect(modalLadder(ladder([stage(1e3, 1e-7, true), stage(1e3, 1.2e-7)]))).not.toBeNull();
+  });
+});
+
+describe('modal steady state at duty 0 and 1', () => {
+  it('is flat at the DC level of the phase held, exactly flat (two and three stages, loaded, unequal drivers)', () => {
+    // A constant pin gives a constant steady state (common practice); its level is the resistive
+    // divider R_L / (R_L + sum R + R_driver) times the pin voltage (Ohm's law, capacitors open).
+    const RL = 47e3;
+    for (const stages of [[stage(1e3, 1e-6), stage(1e4, 1e-7)], [stage(470, 1e-7), stage(2.2e3, 22e-9), stage(1e4, 4.7e-9)]]) {
+      const l = ladder(stages, { low: 0.2, driverHigh: 40, driverLow: 25, loadResistance: RL });
+      const m = modalLadder(l)!;
+      const sumR = stages.reduce((s, st) => s + st.r, 0);
+      for (const [d, pin, driver] of [[0, 0.2, 25], [1, 3.3, 40]]) {
+        const op = modalOperatingPoint(m, d);
+        expect(op.ripple).toBe(0);
+        expect(op.min).toBe(op.max);
+        expect(op.average).toBe(op.max);
+        expect(Math.abs(op.average - (pin * RL) / (RL + sumR + driver))).toBeLessThan(1e-15 * pin);
+        expect(averageOutput(m, d)).toBe(op.average);
+      }
+    }
   });
 });
