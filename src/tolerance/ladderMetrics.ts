@@ -3,6 +3,7 @@ import { dcTransfer, settlingTime, worstRipple } from '../engine/index.js';
 import type { MetricPlan } from './metricPlan.js';
 import { maximizeFromHints } from './dutySearch.js';
 import { modalLadder, type ModalLadder } from '../engine/modal/modalLadder.js';
+import { MAX_MODAL_CONDITION } from '../engine/modalRoute.js';
 import { rippleAt } from '../engine/modal/rippleAt.js';
 import { averageOutput } from '../engine/modal/averageOutput.js';
 import type { PeriodicState } from '../engine/modal/periodicState.js';
@@ -31,8 +32,9 @@ export interface LadderMetricsOptions {
  * Worst ripple, droop, INL and settling time of one ladder, exactly, for tolerance studies.
  *
  * Method: the modal form of the ladder (engine/modal/modalLadder.ts; a cascade of sections when
- * followers sit inside it, engine/modal/cascadeLadder.ts) when it exists, the engine otherwise (sections
- * sharing a mode); settling of a cascade, or a step the modal search declines, also comes from the
+ * followers sit inside it, engine/modal/cascadeLadder.ts) when it exists and its basis is as well
+ * conditioned as the engine requires (MAX_MODAL_CONDITION), the engine otherwise (sections sharing
+ * or nearly sharing a mode); settling of a cascade, or a step the modal search declines, also comes from the
  * engine. Worst ripple: Brent's maximization from the nominal ripple peaks in the plan
  * (maximizeFromHints), falling back to the engine's full grid search when a peak has moved too far.
  * Droop and INL: with equal driver resistances average(D) is affine in D (the circuit is then
@@ -44,7 +46,10 @@ export interface LadderMetricsOptions {
  * Example: ladderMetrics(ladder, metricPlan(p, ladder)).worstRipple.ripple  // V
  */
 export function ladderMetrics(ladder: Ladder, plan: MetricPlan, options: LadderMetricsOptions = {}): LadderMetrics {
-  const m = options.engineOnly ? null : modalLadder(ladder);
+  const modal = options.engineOnly ? null : modalLadder(ladder);
+  // The engine's accuracy rule (engine/modalRoute.ts): a cascade whose sections nearly share a mode
+  // has an ill-conditioned modal basis that loses digits the matrix exponentials keep.
+  const m = modal !== null && modal.condition <= MAX_MODAL_CONDITION ? modal : null;
   if (m === null) return engineMetrics(ladder, plan);
   let usedEngine = false;
   let settling: number | null = 0;

@@ -3,6 +3,8 @@ import { defaultBand } from '../engine/analyze.js';
 import type { Project } from '../project/types.js';
 import { gridPeaks } from './dutySearch.js';
 import { averageOutput } from '../engine/modal/averageOutput.js';
+import { averageOutput as engineAverage } from '../engine/averageOutput.js';
+import { prepare } from '../engine/prepare.js';
 import { modalLadder } from '../engine/modal/modalLadder.js';
 import { rippleAt } from '../engine/modal/rippleAt.js';
 
@@ -90,8 +92,11 @@ function peaks(project: Project, ladder: Ladder, a: number, b: number) {
     for (const x of found) if (list.every((y) => Math.abs(x - y) > 4 * cell)) list.push(x);
   };
   for (const probe of probes) {
-    const pm = modalLadder(probe)!;
-    const average = (d: number) => averageOutput(pm, d);
+    // A probe's drivers move the first section's modes: it may lose the modal form the nominal
+    // ladder has (a cascade whose sections then share a mode); the engine then gives its averages.
+    const pm = modalLadder(probe);
+    const prepared = pm ? null : prepare(probe);
+    const average = (d: number) => (pm ? averageOutput(pm, d) : engineAverage(probe, prepared!, d));
     const span = probe.high - probe.low;
     addFar(droopHints, gridPeaks((d) => Math.abs(probe.low + d * span - average(d)), a, b));
     if (project.spec.inl !== undefined && b > a) {

@@ -3,6 +3,8 @@ import fc from 'fast-check';
 import type { Ladder } from '../../src/circuit/ladder.js';
 import { steadyState } from '../../src/engine/index.js';
 import { ladderMetrics } from '../../src/tolerance/ladderMetrics.js';
+import { modalLadder } from '../../src/engine/modal/modalLadder.js';
+import { MAX_MODAL_CONDITION } from '../../src/engine/modalRoute.js';
 import type { MetricPlan } from '../../src/tolerance/metricPlan.js';
 import { metricPlan } from '../../src/tolerance/metricPlan.js';
 import { ladder, stage } from './reference.js';
@@ -142,5 +144,17 @@ describe('ladderMetrics: modal fast path against the engine', () => {
       ),
       { numRuns: 100, seed: 31 },
     );
+  });
+
+  it('a cascade of nearly equal sections goes to the matrix exponentials, as in the engine', () => {
+    // Two sections 1 % apart behind a follower: the modal basis is ill-conditioned (engine/modalRoute.ts
+    // measured its digits lost against 80-digit references), so every figure comes from the expm route.
+    // Its driver probes in metricPlan lose the modal form altogether (they once crashed the plan).
+    const l = ladder([stage(10e3, 100e-9, true), stage(10.1e3, 100e-9)], { driverHigh: 30, driverLow: 20 });
+    const modal = modalLadder(l);
+    expect(modal).not.toBeNull();
+    expect(modal!.condition).toBeGreaterThan(MAX_MODAL_CONDITION);
+    const plan = planFor(l, true);
+    expect(ladderMetrics(l, plan)).toEqual(ladderMetrics(l, plan, { engineOnly: true }));
   });
 });
