@@ -30,6 +30,8 @@ export interface YieldFigures {
   yield: number;
   samples: number;
   target: number;
+  /** Pin peak current at its worst corner of the tolerance box, A (as in WorstCaseFigures). */
+  pinCurrent: number;
 }
 
 /** What a robust check says about one design. */
@@ -194,7 +196,10 @@ export function worstCaseCheck(project: Project, ladder: Ladder): RobustVerdict 
 
 /**
  * Yield check of one design with a given sample count: Monte Carlo yield (tolerance/monteCarlo.ts,
- * the project's seed and distribution) against tolerance.yield.
+ * the project's seed and distribution) against tolerance.yield, and the pin peak current at its
+ * worst corner against search.pin_current. The pin limit protects the part, so it holds for every
+ * unit, not for a share of them: absolute maximum ratings are checked at the worst case (common
+ * practice; the data sheet's absolute maximum ratings table).
  *
  * Syntax: yieldCheck(samples)(project, ladder[, candidate])
  * Example: yieldCheck(2000)(p, ladder).yield.yield   // 0.9985
@@ -202,8 +207,13 @@ export function worstCaseCheck(project: Project, ladder: Ladder): RobustVerdict 
 export function yieldCheck(samples: number): RobustCheck {
   return (project, ladder) => {
     const target = requireRobustTolerance(project, 'yield').yield!;
+    const pinCurrent = worstPinCurrent(project, ladder);
+    const pinLimit = project.search?.pinCurrent;
+    const pinOk = pinLimit === undefined || pinCurrent <= pinLimit;
+    // A design over the pin limit fails whatever its yield: skip the Monte Carlo run.
+    if (!pinOk) return { pass: false, yield: { yield: Number.NaN, samples: 0, target, pinCurrent } };
     const m = monteCarlo(project, ladder, { samples });
-    return { pass: m.yield >= target, yield: { yield: m.yield, samples: m.samples, target } };
+    return { pass: m.yield >= target, yield: { yield: m.yield, samples: m.samples, target, pinCurrent } };
   };
 }
 

@@ -91,7 +91,7 @@ function candidateTable(result: DesignResult, lsbOf: (c: Candidate) => number | 
 /** The robust designs' figures under tolerance: worst case over the box, or Monte Carlo yield. */
 function robustSection(r: RobustResult, lsbOf: (c: Candidate) => number | null): Section {
   const pairs: Array<[string, string]> = [
-    ['Check', r.mode === 'worst-case' ? 'every limit at the worst case over the box of the tolerance: block' : `Monte Carlo yield, ${r.samples} samples per design`],
+    ['Check', r.mode === 'worst-case' ? 'every limit at the worst case over the box of the tolerance: block' : `Monte Carlo yield, ${r.samples} samples per design; pin current at the worst case of the box`],
     ['Scanned', `${r.scanned} nominally feasible design${r.scanned === 1 ? '' : 's'} in ranking order${r.exhausted ? ' (all of them)' : ''}`],
   ];
   const blocks: Block[] = [{ kind: 'pairs', pairs }];
@@ -99,7 +99,7 @@ function robustSection(r: RobustResult, lsbOf: (c: Candidate) => number | null):
     const wc = r.mode === 'worst-case';
     const header = wc
       ? ['#', 'nominal rank', 'codes', 'settling (worst)', 'ripple (worst)', 'droop (worst)', 'pin current (worst)']
-      : ['#', 'nominal rank', 'codes', 'yield', 'target'];
+      : ['#', 'nominal rank', 'codes', 'yield', 'target', 'pin current (worst)'];
     const rows = r.candidates.map((x, i) => {
       const head = [String(i + 1), String(x.nominalRank), stageCodes(x.candidate)];
       const w = x.verdict.worstCase;
@@ -114,7 +114,7 @@ function robustSection(r: RobustResult, lsbOf: (c: Candidate) => number | null):
           formatEng(w.pinCurrent, 'A', 3),
         ];
       }
-      return [...head, y ? percent(y.yield) : '-', y ? percent(y.target) : '-'];
+      return [...head, y ? percent(y.yield) : '-', y ? percent(y.target) : '-', y ? formatEng(y.pinCurrent, 'A', 3) : '-'];
     });
     blocks.push({ kind: 'table', header, rows, align: header.map((_, i) => (i === 2 ? 'left' : 'right')) as Array<'left' | 'right'> });
   }

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { ladderFromProject } from '../../src/circuit/fromProject.js';
 import { designSearch } from '../../src/design/designSearch.js';
 import { DesignInputError } from '../../src/design/designInputError.js';
-import { robustDesigns, worstCaseCheck, type RobustCheck } from '../../src/design/robustDesigns.js';
+import { robustDesigns, worstCaseCheck, yieldCheck, type RobustCheck } from '../../src/design/robustDesigns.js';
 import type { Candidate, DesignOptions, DesignResult } from '../../src/design/types.js';
 import { parseProject } from '../../src/project/index.js';
 
@@ -138,6 +138,29 @@ describe('robustDesigns: input', () => {
     for (const x of r.candidates) {
       expect(x.verdict.yield!.samples).toBe(200);
       expect(x.verdict.yield!.yield).toBeGreaterThanOrEqual(0.9);
+    }
+  });
+
+  it('yield mode holds the pin current at its worst corner too: an absolute rating is not a yield', () => {
+    // 3.3 mA limit, 10 % resistors, driver 30 ohm: R1 = 1k passes nominally (3.3 V / 1030 ohm =
+    // 3.20 mA, Ohm's law) but not at R1 - 10 % (3.3 V / 930 ohm = 3.55 mA).
+    const p = project(BASE.replace('search:\n', 'search:\n  pin_current: 3.3 mA\n') + TOL('10 %', '5 %') + '  yield: 50 %\n');
+    const nominal = designSearch(p, { top: 40, compare: false, diagnose: false }).candidates;
+    expect(nominal.slice(0, 10).some((c) => c.stages[0].r === 1000)).toBe(true); // the case really arises
+    const r = robustDesigns(p, 'yield', { top: 3 });
+    expect(r.candidates.length).toBe(3);
+    for (const x of r.candidates) {
+      expect(x.candidate.stages[0].r).toBeGreaterThan(1000);
+      expect(x.verdict.yield!.pinCurrent).toBeLessThanOrEqual(3.3e-3);
+      expect(x.verdict.yield!.pinCurrent).toBeCloseTo(3.3 / (30 + 0.9 * x.candidate.stages[0].r), 12);
+    }
+    // Every design ranked above the last one kept and not kept fails the same check.
+    const last = r.candidates[r.candidates.length - 1].nominalRank;
+    const kept = new Set(r.candidates.map((x) => key(x.candidate)));
+    const skipped = nominal.slice(0, last).filter((c) => !kept.has(key(c)));
+    expect(skipped.length).toBeGreaterThan(0);
+    for (const c of skipped) {
+      expect(yieldCheck(200)(p, ladderFromProject(p, c.stages.map((st) => ({ r: st.r, c: st.c, buffered: false }))), c).pass).toBe(false);
     }
   });
 });
