@@ -1,6 +1,7 @@
 import type { Ladder } from '../circuit/ladder.js';
 import { checkLadder } from '../circuit/checkLadder.js';
 import { modalLadder, type ModalLadder } from './modal/modalLadder.js';
+import { rememberRecentLadders } from './recentLadders.js';
 
 /**
  * Largest condition number of a cascade's modal basis (ModalLadder.condition) for which the engine
@@ -11,14 +12,6 @@ import { modalLadder, type ModalLadder } from './modal/modalLadder.js';
  * 1e4) gave 3e-12 relative error in the average where the exponentials gave 2e-14.
  */
 export const MAX_MODAL_CONDITION = 30;
-
-/**
- * The most recently used ladders (by identity) and their modal forms (null: none), most recent
- * first. A small strong cache like prepare.ts (a WeakMap costs more in garbage collection than it
- * saves when every evaluation makes a fresh ladder).
- */
-const recent: Array<[Ladder, ModalLadder | null]> = [];
-const RECENT_LADDERS = 8;
 
 /**
  * The modal form the engine's steady state and averages use for a ladder, or null when they use
@@ -33,24 +26,11 @@ const RECENT_LADDERS = 8;
  * Syntax: modalRoute(ladder)
  * Example: modalRoute(twoStage)?.hi.rate  // the two modal rates of the high phase, 1/s
  */
-export function modalRoute(ladder: Ladder): ModalLadder | null {
-  for (let i = 0; i < recent.length; i++) {
-    if (recent[i][0] === ladder) {
-      const entry = recent[i];
-      if (i > 0) {
-        recent.splice(i, 1);
-        recent.unshift(entry);
-      }
-      return entry[1];
-    }
-  }
+export const modalRoute: (ladder: Ladder) => ModalLadder | null = rememberRecentLadders(chooseModalRoute);
+
+function chooseModalRoute(ladder: Ladder): ModalLadder | null {
   checkLadder(ladder);
-  let m: ModalLadder | null = null;
-  if (ladder.stages.length >= 2) {
-    m = modalLadder(ladder);
-    if (m && !(m.condition <= MAX_MODAL_CONDITION)) m = null;
-  }
-  recent.unshift([ladder, m]);
-  if (recent.length > RECENT_LADDERS) recent.pop();
-  return m;
+  if (ladder.stages.length < 2) return null;
+  const m = modalLadder(ladder);
+  return m && m.condition <= MAX_MODAL_CONDITION ? m : null;
 }

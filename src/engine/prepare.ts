@@ -1,4 +1,5 @@
 import type { Ladder } from '../circuit/ladder.js';
+import { rememberRecentLadders } from './recentLadders.js';
 import { stateSpace, type StateSpace } from '../circuit/stateSpace.js';
 import { dcGain } from '../circuit/dcGain.js';
 import type { Vector } from './dense.js';
@@ -24,22 +25,13 @@ export interface Prepared {
   timeConstants?: number[];
 }
 
-/**
- * The most recently used ladders (by identity) and their preparations, most recent first.
- * A small strong cache rather than a WeakMap: with a WeakMap, a design search or Monte Carlo run
- * that makes a fresh ladder per evaluation spent ~90 % of its time in V8's ephemeron garbage
- * collection (measured: 2-stage steadyState 20-40 us without, 260-330 us with a WeakMap).
- */
-const recent: Array<[Ladder, Prepared]> = [];
-const RECENT_LADDERS = 8;
-
 /** Largest number of cached duty plans per ladder before the cache is cleared. */
 export const PLAN_CACHE_SIZE = 64;
 
 /**
  * The duty-independent data of a ladder (state equations, DC states), cached for the few most
- * recently used ladder objects. Ladders are treated as immutable: a ladder changed in place after
- * its first use keeps its old cache while it stays among the recent ones.
+ * recently used ladder objects (recentLadders.ts: a ladder changed in place after its first use
+ * keeps its old cache while it stays among the recent ones).
  *
  * Method: DC gain per volt g_p of the resistive chain (dcGain.ts); x_p = V_p g_p, the state where
  * A_p x + b_p = 0.
@@ -49,17 +41,9 @@ export const PLAN_CACHE_SIZE = 64;
  * Syntax: prepare(ladder)
  * Example: prepare(ladder).xHigh  // node voltages if the pin stayed high forever
  */
-export function prepare(ladder: Ladder): Prepared {
-  for (let i = 0; i < recent.length; i++) {
-    if (recent[i][0] === ladder) {
-      const entry = recent[i];
-      if (i > 0) {
-        recent.splice(i, 1);
-        recent.unshift(entry);
-      }
-      return entry[1];
-    }
-  }
+export const prepare: (ladder: Ladder) => Prepared = rememberRecentLadders(prepareLadder);
+
+function prepareLadder(ladder: Ladder): Prepared {
   const system = stateSpace(ladder);
   const { n } = system;
   const gHigh = dcGain(ladder, ladder.driverHigh);
@@ -80,7 +64,5 @@ export function prepare(ladder: Ladder): Prepared {
     cells: n === 1 ? 1 : n === 2 ? 8 : 32,
     plans: new Map(),
   };
-  recent.unshift([ladder, prepared]);
-  if (recent.length > RECENT_LADDERS) recent.pop();
   return prepared;
 }
