@@ -1,0 +1,65 @@
+import { describe, expect, it } from 'vitest';
+import { relaxProject } from '../../src/design/relaxProject.js';
+import { tradeoffCurves } from '../../src/design/tradeoffCurves.js';
+import { parseProject } from '../../src/project/index.js';
+import type { Project } from '../../src/project/types.js';
+import { bruteForce, designKey } from './bruteForce.js';
+
+// Invented scenario: small E3/E6 spaces so the exhaustive reference stays quick.
+const yaml = (o: { driver?: string; settling?: string; series?: string }) => `
+pwm: { frequency: 20 kHz, bits: 10, high: 3.3 V, low: 0 V, driver: ${o.driver ?? '30 ohm'}, duty: { min: 5 %, max: 95 % } }
+spec:
+  ripple: 1 LSB
+${o.settling ? `  settling: ${o.settling}` : ''}
+search:
+  stages: [1, 2]
+  series: ${o.series ?? 'E3'}
+  resistance: { min: 1k, max: 47k }
+  capacitance: { min: 10n, max: 2.2u }
+`;
+
+/** The same curve point by exhaustive search: that ripple limit, no settling-time limit. */
+function exhaustivePoint(p: Project, ripple: number, stages: number) {
+  const free = relaxProject(p, ['settling'], Infinity);
+  const inLsb = free.specInLsb ? { ...free.specInLsb } : undefined;
+  if (inLsb) delete inLsb.ripple;
+  const at: Project = { ...free, spec: { ...free.spec, ripple }, search: { ...free.search!, stages: [stages] }, ...(inLsb && { specInLsb: inLsb }) };
+  return bruteForce(at, 1).ranked[0] ?? null;
+}
+
+describe('tradeoffCurves: each point is the exhaustive optimum at its ripple limit', () => {
+  const cases: Array<[string, Parameters<typeof yaml>[0]]> = [
+    ['equal drivers, default settling step', {}],
+    ['unequal drivers, a time limit the curve ignores, a given step', { driver: '{ high: 40 ohm, low: 20 ohm }', settling: '{ band: 1 LSB, time: 1 ms, from: 20 %, to: 70 % }' }],
+  ];
+  for (const [name, o] of cases) {
+    it(name, () => {
+      const p = parseProject(yaml(o), 'tradeoff.yaml');
+      // Limits out of order, one so tight nothing meets it (the bound then starts later), and two
+      // pairs so close that each pair shares its optimum (the bound must let it through again).
+      const ripples = [4e-3, 1e-6, 5e-4, 2e-3, 1e-3, 8e-3, 2.0001e-3, 1.0001e-3];
+      const curves = tradeoffCurves(p, [1, 2], p.spec.ripple!, { ripples });
+      expect(curves.map((c) => c.stages)).toEqual([1, 2]);
+      let found = 0;
+      for (const curve of curves) {
+        expect(curve.points.map((q) => q.ripple)).toEqual(ripples);
+        curve.points.forEach((q, i) => {
+          const ref = exhaustivePoint(p, ripples[i], curve.stages);
+          expect(q.best === null, `${curve.stages} stages at ${ripples[i]} V`).toBe(ref === null);
+          if (ref && q.best) {
+            found++;
+            expect(designKey(q.best)).toBe(designKey(ref));
+            expect(q.settlingTime).toBe(ref.settlingTime);
+            // Checks as the user's limits give them: no settling-time limit here.
+            expect(q.best.checks.map((c) => c.name)).toEqual(ref.checks.map((c) => c.name));
+          }
+        });
+        // A looser ripple limit never makes the best settling time worse.
+        const order = ripples.map((_, i) => i).sort((a, b) => ripples[a] - ripples[b]);
+        const times = order.map((i) => curve.points[i].settlingTime).filter((t): t is number => t !== null);
+        for (let k = 1; k < times.length; k++) expect(times[k]).toBeLessThanOrEqual(times[k - 1] * (1 + 1e-9));
+      }
+      expect(found).toBeGreaterThan(6);
+    });
+  }
+});
