@@ -1,5 +1,6 @@
 import type { Ladder } from '../circuit/ladder.js';
 import type { OperatingPoint } from './types.js';
+import { operatingPointFrom } from './operatingPointFrom.js';
 import { checkDuty } from './checkArguments.js';
 import { dutyPlan } from './dutyPlan.js';
 import { periodTrajectory } from './periodTrajectory.js';
@@ -23,14 +24,5 @@ export function steadyStateByExpm(ladder: Ladder, duty: number): OperatingPoint 
   const p = prepare(ladder);
   const plan = dutyPlan(p, duty);
   plan.extrema ??= periodTrajectory(p, plan);
-  const { minW, maxW, tMin, tMax } = plan.extrema;
-  return {
-    duty,
-    average: plan.average,
-    min: plan.yStart + minW,
-    max: plan.yStart + maxW,
-    ripple: maxW - minW,
-    tMin,
-    tMax,
-  };
+  return operatingPointFrom(duty, plan.average, plan.yStart, plan.extrema);
 }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { Ladder } from '../../src/circuit/ladder.js';
+import type { OperatingPoint } from '../../src/engine/types.js';
 import { steadyState } from '../../src/engine/steadyState.js';
 import { hasModalForm } from '../../src/engine/hasModalForm.js';
 import { timeConstants } from '../../src/engine/timeConstants.js';
@@ -13,15 +14,8 @@ import { ladder, stage } from './ladders.js';
  * per phase and refined by bisection; average from the exact integral of each phase). The ladders
  * are invented; 50 us period, 3.3 V / 0 V unless stated.
  */
-interface ReferencePoint {
-  duty: number;
-  average: number;
-  min: number;
-  max: number;
-  ripple: number;
-  tMin: number;
-  tMax: number;
-}
+/** The reference values, in the engine's own result shape. */
+type ReferencePoint = OperatingPoint;
 interface ReferenceCase {
   name: string;
   ladder: Ladder;

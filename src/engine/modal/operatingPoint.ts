@@ -1,4 +1,5 @@
 import type { OperatingPoint } from '../types.js';
+import { operatingPointFrom } from '../operatingPointFrom.js';
 import type { ModalLadder } from './modalLadder.js';
 import { curveExtrema } from './phaseCurve.js';
 import { periodicState, type PeriodicState } from './periodicState.js';
@@ -25,13 +26,5 @@ export function modalOperatingPoint(m: ModalLadder, duty: number, state?: Period
   if (h.min < min) [min, tMin] = [h.min, h.tMin];
   if (l.max > max) [max, tMax] = [l.max, s.t1 + l.tMax];
   if (l.min < min) [min, tMin] = [l.min, s.t1 + l.tMin];
-  return {
-    duty,
-    average: s.average,
-    min: s.yStart + min,
-    max: s.yStart + max,
-    ripple: max - min,
-    tMin,
-    tMax,
-  };
+  return operatingPointFrom(duty, s.average, s.yStart, { minW: min, maxW: max, tMin, tMax });
 }
