@@ -1,6 +1,7 @@
 import { defaultBand } from '../engine/analyze.js';
 import type { Project, SettlingSpec } from '../project/types.js';
 import { designProblem } from './designProblem.js';
+import { projectAtResolution } from './projectAtResolution.js';
 import { relaxProject } from './relaxProject.js';
 import { SETTLING_TIE } from './rankCandidates.js';
 import { solveProblem } from './solveProblem.js';
@@ -53,6 +54,9 @@ export function tradeoffCurves(project: Project, stageCounts: number[], center: 
   const inLsb = free.specInLsb ? { ...free.specInLsb } : undefined;
   if (inLsb) delete inLsb.ripple;
   const tightestFirst = ripples.map((_, i) => i).sort((a, b) => ripples[a] - ripples[b]);
+  // The band an unbounded search defaults to at the curves' resolution (designProblem.ts): the
+  // bound must not change it, or bounded answers would differ from independent searches.
+  const band = defaultBand(options.bits === undefined ? free : projectAtResolution(free, options.bits));
   const total = ripples.length * stageCounts.length;
   let done = 0;
   return stageCounts.map((n) => {
@@ -61,7 +65,7 @@ export function tradeoffCurves(project: Project, stageCounts: number[], center: 
     for (const i of tightestFirst) {
       const ripple = ripples[i];
       const settling: SettlingSpec | undefined =
-        bound === null ? free.spec.settling : { band: defaultBand(free), ...free.spec.settling, time: bound * (1 + 4 * SETTLING_TIE) };
+        bound === null ? free.spec.settling : { band, ...free.spec.settling, time: bound * (1 + 4 * SETTLING_TIE) };
       const spec = { ...free.spec, ripple, ...(settling && { settling }) };
       const at: Project = { ...free, spec, ...(inLsb && { specInLsb: inLsb }) };
       const found = solveProblem(designProblem(at, options.bits), 1, [n]).feasible[0] ?? null;

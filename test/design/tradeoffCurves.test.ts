@@ -62,4 +62,37 @@ describe('tradeoffCurves: each point is the exhaustive optimum at its ripple lim
       expect(found).toBeGreaterThan(6);
     });
   }
+
+  it('at a resolution other than the file\'s, with the default band, every point equals its unbounded search', () => {
+    // Invented: a timer-clocked 10-bit output whose curves are drawn at 8 bits, no settling band
+    // given (the default, 0.5 LSB, follows the resolution). Reference: each point alone (one limit,
+    // one stage count: a single search, no bound). A bounded search once took the default band at
+    // the file's resolution instead.
+    const p = parseProject(
+      `
+pwm: { clock: 16 MHz, bits: 10, high: 3.3 V, low: 0 V, driver: 30 ohm, duty: { min: 5 %, max: 95 % } }
+load: { resistance: 1 Mohm, capacitance: 47 pF }
+spec:
+  ripple: 1 LSB
+  droop: 2 %
+search:
+  stages: [1, 2]
+  series: E6
+  resistance: { min: 1k, max: 47k }
+  capacitance: { min: 10n, max: 2.2u }
+  pin_current: 20 mA
+`,
+      'resolution.yaml',
+    );
+    const curves = tradeoffCurves(p, [1, 2], 2e-3, { bits: 8 });
+    let found = 0;
+    for (const curve of curves) {
+      for (const point of curve.points) {
+        const [alone] = tradeoffCurves(p, [curve.stages], 2e-3, { bits: 8, ripples: [point.ripple] });
+        expect(point, `${curve.stages} stages at ${point.ripple} V`).toStrictEqual(alone.points[0]);
+        if (point.best) found++;
+      }
+    }
+    expect(found).toBeGreaterThan(10);
+  });
 });
