@@ -90,6 +90,18 @@ describe('start-up script and code cache (bin/dacsmith.cjs)', () => {
     }
   });
 
+  it('reads a quantity only mathjs understands through its chunk, loaded on first use', () => {
+    // scripts/build.mjs puts mathjs in dist/mathjs-units.cjs; '0.0008 min' is 48 ms (1 min = 60 s).
+    const file = join(work, 'minutes.yaml');
+    writeFileSync(file, readFileSync(sample, 'utf8').replace(/time: 50 ms,/, 'time: 0.0008 min,'));
+    expect(readFileSync(file, 'utf8')).toContain('0.0008 min');
+    const r = spawnSync(process.execPath, [join(root, 'bin', 'dacsmith.cjs'), 'analyze', file, '--format', 'json'], { encoding: 'utf8' });
+    expect(r.status).toBe(0);
+    const settling = (JSON.parse(r.stdout) as { checks: Array<{ name: string; limit: number }> }).checks.find((c) => c.name === 'settling');
+    expect(settling?.limit).toBeCloseTo(0.048, 15);
+    expect(existsSync(join(root, 'dist', 'mathjs-units.cjs'))).toBe(true);
+  });
+
   it('says how to build when the bundle is missing (exit 70, no stack trace)', () => {
     const lonely = mkdtempSync(join(tmpdir(), 'dacsmith-nobundle-'));
     try {
