@@ -80,7 +80,7 @@ export async function runBench(): Promise<BenchReport> {
   let start: ReturnType<typeof processStart> | string;
   try {
     if (buildError) throw new Error(buildError);
-    start = processStart(commands, { runs: 9, cwd: root });
+    start = processStart(commands, { runs: 15, cwd: root });
   } catch (error) {
     start = `failed: ${(error as Error).message.split('\n')[0]}`;
   }
