@@ -77,15 +77,16 @@ export async function runBench(): Promise<BenchReport> {
     [dacsmith, 'analyze', SAMPLE, '--format', 'json'],
     [dacsmith, '--help'],
   ];
+  const PROCESS_RUNS = 15;
   let start: ReturnType<typeof processStart> | string;
   try {
     if (buildError) throw new Error(buildError);
-    start = processStart(commands, { runs: 15, cwd: root });
+    start = processStart(commands, { runs: PROCESS_RUNS, cwd: root });
   } catch (error) {
     start = `failed: ${(error as Error).message.split('\n')[0]}`;
   }
   sections.push({
-    title: 'Whole process (spawnSync, 9 runs each, interleaved; medians)',
+    title: `Whole process (spawnSync, ${PROCESS_RUNS} runs each, interleaved; medians)`,
     columns: ['command', 'wall (ms)', 'x bare node', 'CPU (ms)', 'x bare node (CPU)'],
     rows:
       typeof start === 'string'
