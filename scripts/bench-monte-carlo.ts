@@ -52,7 +52,7 @@ const PARALLEL_RUNS = 3;
  */
 export async function monteCarloRate(bundledWorker?: URL): Promise<{ data: MonteCarloRate[] | null; section: BenchSection }> {
   const title = 'Monte Carlo tolerance analysis (exact figures per sample)';
-  const columns = ['case', 'project', 'samples/CPU s (1 thread)', '100 000 samples, wall (s)', 'workers'];
+  const columns = ['case', 'project', 'samples/CPU s (1 thread)', '100 000 samples, wall (s)', 'threads'];
   const tolerance = await loadTolerance();
   if (typeof tolerance === 'string') return { data: null, section: { title, columns, rows: [], notes: [`skipped: ${tolerance}`] } };
   const workers = availableParallelism();
@@ -89,7 +89,7 @@ export async function monteCarloRate(bundledWorker?: URL): Promise<{ data: Monte
       rows: data.map((d) => [d.name, d.file, d.rate, d.hundredThousand ?? 'n/a', d.workers]),
       notes: [
         `samples/CPU s: monteCarlo in the calling thread, ${RATE_SAMPLES} samples, median of 3 runs;`,
-        `100 000 samples: monteCarloParallel on every core, median of ${PARALLEL_RUNS} runs (worker threads, including their start-up; ` +
+        `100 000 samples: monteCarloParallel on every core, median of ${PARALLEL_RUNS} runs (this thread and worker threads, including their start-up; ` +
           `worker script ${workerUrl ? 'dist/tolerance-worker.js' : "the module's default"}).`,
       ],
     },

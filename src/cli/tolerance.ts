@@ -112,7 +112,7 @@ export function toleranceCommand(
           describe: 'Part value distribution (default: tolerance.distribution)',
           choices: ['normal', 'uniform'] as const,
         })
-        .option('workers', { describe: 'Worker threads for the Monte Carlo run (default: cores, at most 4)', type: 'number', requiresArg: true })
+        .option('workers', { describe: 'Threads for the Monte Carlo run, this one included (default: cores, at most 4)', type: 'number', requiresArg: true })
         .option('quiet', { alias: 'q', describe: 'Print nothing but errors; the exit code tells', type: 'boolean', default: false })
         .option('format', { describe: 'Report format', choices: ['text', 'json', 'markdown'] as const, default: 'text' as const })
         .option('charts', { describe: 'Draw the histograms (--no-charts to leave them out)', type: 'boolean', default: true })

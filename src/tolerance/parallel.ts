@@ -20,26 +20,31 @@ export interface WorkerJob {
 export type WorkerMessage = { kind: 'progress'; done: number } | { kind: 'done'; table: SampleTable };
 
 export interface ParallelOptions extends MonteCarloOptions {
-  /** Worker threads (default 1: in the calling thread). */
+  /** Threads, the calling one included (default 1: the calling thread alone). */
   workers?: number;
   /** The worker script; default: tolerance-worker.js next to this module (the bundle), else worker.ts via tsx. */
   workerUrl?: URL;
-  /** Fewer samples per worker run in the calling thread (default MIN_SAMPLES_PER_WORKER). */
+  /** Fewer samples per thread than this: fewer threads (default MIN_SAMPLES_PER_WORKER). */
   minSamplesPerWorker?: number;
 }
 
 /**
- * Fewer samples than this per worker are not worth a thread: a worker loads its bundle and runs
- * cold (interpreted, then re-optimised) code. Measured with `dacsmith tolerance` on the fan sample
- * (2 cores, whole process, wall): 10 000 samples 0.75 s in the calling thread against 1.13 s on
- * 2 workers; 40 000 samples 1.65 s against 1.79 s; 100 000 samples 3.15 s against 2.71 s.
+ * Fewer samples than this per thread are not worth a worker: it loads its bundle and runs cold
+ * (interpreted, then re-optimised) code beside this thread. Measured with `dacsmith tolerance` on
+ * the fan sample (2 cores, whole process, wall; this thread plus one worker against this thread
+ * alone): 10 000 samples 0.96 s against 0.74 s, 40 000 samples 1.34 s against 1.23 s, 100 000
+ * samples 1.87 s against 2.30 s; the two cross near 26 000 samples per thread.
  */
 export const MIN_SAMPLES_PER_WORKER = 30_000;
 
+/** Samples the calling thread evaluates between two looks at the workers' messages. */
+const OWN_SLICE = 2000;
+
 /**
- * monteCarlo spread over worker threads. The deviates are drawn in the calling thread and each
- * worker evaluates one contiguous block with the same code (evaluateSamples), so the result is
- * identical to the in-process run for the same seed, whatever the number of workers. Runs in
+ * monteCarlo spread over `workers` threads: the calling thread and workers - 1 worker threads. The
+ * deviates are drawn in the calling thread and each thread evaluates one contiguous block with the
+ * same code (evaluateSamples), so the result is identical to the in-process run for the same seed,
+ * whatever the number of threads. Runs in
  * process when workers <= 1, when there are fewer than minSamplesPerWorker samples per worker (a
  * smaller run finishes sooner in one thread), or when no worker script is found.
  *
@@ -63,41 +68,52 @@ export async function monteCarloParallel(
   const width = parameters.length;
   const bounds = Array.from({ length: workers + 1 }, (_, w) => Math.round((samples * w) / workers));
   const done = new Array<number>(workers).fill(0);
-  const tables = await Promise.all(
-    bounds.slice(0, -1).map((first, w) => {
-      const count = bounds[w + 1] - first;
-      const job: WorkerJob = {
-        ladder: setup.ladder,
-        parameters,
-        plan: setup.plan,
-        deviates: setup.deviates.slice(first * width, (first + count) * width),
-        count,
-      };
-      return new Promise<SampleTable>((resolve, reject) => {
-        const options = { workerData: job, transferList: [job.deviates.buffer as ArrayBuffer] };
-        // The TypeScript source needs tsx's loader registered inside the worker first.
-        const worker = script.viaTsx
-          ? new Worker(
-              `import('tsx/esm/api').then(({ register }) => { register(); return import(${JSON.stringify(script.url.href)}); })`,
-              { ...options, eval: true },
-            )
-          : new Worker(script.url, options);
-        worker.on('message', (m: WorkerMessage) => {
-          if (m.kind === 'progress') {
-            done[w] = m.done;
-            progress?.(done.reduce((a, b) => a + b, 0), samples);
-          } else {
-            resolve(m.table);
-            void worker.terminate();
-          }
-        });
-        worker.on('error', reject);
-        worker.on('exit', (code) => {
-          if (code !== 0) reject(new Error(`tolerance worker stopped with exit code ${code}`));
-        });
+  const report = () => progress?.(done.reduce((a, b) => a + b, 0), samples);
+  // Blocks 1.. go to worker threads, started first so that they load while this thread works.
+  const inWorkers = bounds.slice(1, -1).map((first, i) => {
+    const w = i + 1;
+    const count = bounds[w + 1] - first;
+    const job: WorkerJob = {
+      ladder: setup.ladder,
+      parameters,
+      plan: setup.plan,
+      deviates: setup.deviates.slice(first * width, (first + count) * width),
+      count,
+    };
+    return new Promise<SampleTable>((resolve, reject) => {
+      const options = { workerData: job, transferList: [job.deviates.buffer as ArrayBuffer] };
+      // The TypeScript source needs tsx's loader registered inside the worker first.
+      const worker = script.viaTsx
+        ? new Worker(
+            `import('tsx/esm/api').then(({ register }) => { register(); return import(${JSON.stringify(script.url.href)}); })`,
+            { ...options, eval: true },
+          )
+        : new Worker(script.url, options);
+      worker.on('message', (m: WorkerMessage) => {
+        if (m.kind === 'progress') {
+          done[w] = m.done;
+          report();
+        } else {
+          resolve(m.table);
+          void worker.terminate();
+        }
       });
-    }),
-  );
+      worker.on('error', reject);
+      worker.on('exit', (code) => {
+        if (code !== 0) reject(new Error(`tolerance worker stopped with exit code ${code}`));
+      });
+    });
+  });
+  // Block 0 in this thread, in slices, yielding between them so the workers' messages get through.
+  const own: SampleTable[] = [];
+  for (let first = 0; first < bounds[1]; first += OWN_SLICE) {
+    const last = Math.min(bounds[1], first + OWN_SLICE);
+    own.push(evaluateSamples(setup.ladder, parameters, setup.plan, setup.deviates, first, last));
+    done[0] = last;
+    report();
+    await new Promise<void>((resolve) => setImmediate(resolve));
+  }
+  const tables = [...own, ...(await Promise.all(inWorkers))];
   return monteCarloResult(setup, concatTables(tables));
 }
 

@@ -99,11 +99,13 @@ describe('monteCarlo', () => {
       { spec: { ripple: 1e-3, settling: { band: 1.6e-3, time: 0.02 } } },
     );
     const inProcess = monteCarlo(p);
-    // A low threshold so that this small run really goes to two workers.
-    const parallel = await monteCarloParallel(p, undefined, { workers: 2, minSamplesPerWorker: 500 });
-    expect(parallel.values.worstRipple).toEqual(inProcess.values.worstRipple);
-    expect(parallel.values.droop).toEqual(inProcess.values.droop);
-    expect(parallel.values.settlingTime).toEqual(inProcess.values.settlingTime);
-    expect(parallel.yield).toBe(inProcess.yield);
+    // A low threshold so that this small run really uses this thread plus one and two workers.
+    for (const workers of [2, 3]) {
+      const parallel = await monteCarloParallel(p, undefined, { workers, minSamplesPerWorker: 300 });
+      expect(parallel.values.worstRipple).toEqual(inProcess.values.worstRipple);
+      expect(parallel.values.droop).toEqual(inProcess.values.droop);
+      expect(parallel.values.settlingTime).toEqual(inProcess.values.settlingTime);
+      expect(parallel.yield).toBe(inProcess.yield);
+    }
   });
 });
