@@ -24,8 +24,8 @@ export interface ParallelOptions extends MonteCarloOptions {
   workers?: number;
   /** The worker script; default: tolerance-worker.js next to this module (the bundle), else worker.ts via tsx. */
   workerUrl?: URL;
-  /** Fewer samples per thread than this: fewer threads (default MIN_SAMPLES_PER_WORKER). */
-  minSamplesPerWorker?: number;
+  /** Fewer samples per thread than this: fewer threads (default MIN_SAMPLES_PER_THREAD). */
+  minSamplesPerThread?: number;
 }
 
 /**
@@ -35,7 +35,7 @@ export interface ParallelOptions extends MonteCarloOptions {
  * alone): 10 000 samples 0.96 s against 0.74 s, 40 000 samples 1.34 s against 1.23 s, 100 000
  * samples 1.87 s against 2.30 s; the two cross near 26 000 samples per thread.
  */
-export const MIN_SAMPLES_PER_WORKER = 30_000;
+export const MIN_SAMPLES_PER_THREAD = 30_000;
 
 /** Samples the calling thread evaluates between two looks at the workers' messages. */
 const OWN_SLICE = 2000;
@@ -45,7 +45,7 @@ const OWN_SLICE = 2000;
  * deviates are drawn in the calling thread and each thread evaluates one contiguous block with the
  * same code (evaluateSamples), so the result is identical to the in-process run for the same seed,
  * whatever the number of threads. Runs in
- * process when workers <= 1, when there are fewer than minSamplesPerWorker samples per worker (a
+ * process when workers <= 1, when there are fewer than minSamplesPerThread samples per thread (a
  * smaller run finishes sooner in one thread), or when no worker script is found.
  *
  * Syntax: await monteCarloParallel(project[, ladder, { workers, samples, seed, distribution, onProgress }])
@@ -58,7 +58,7 @@ export async function monteCarloParallel(
 ): Promise<MonteCarloResult> {
   const setup = monteCarloSetup(project, ladder, options);
   const { samples, parameters } = setup;
-  const workers = Math.min(options.workers ?? 1, Math.floor(samples / (options.minSamplesPerWorker ?? MIN_SAMPLES_PER_WORKER)));
+  const workers = Math.min(options.workers ?? 1, Math.floor(samples / (options.minSamplesPerThread ?? MIN_SAMPLES_PER_THREAD)));
   const script = workers <= 1 ? null : options.workerUrl ? { url: options.workerUrl, viaTsx: false } : findWorkerScript();
   const progress = options.onProgress;
   if (workers <= 1 || script === null) {

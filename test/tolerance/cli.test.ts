@@ -6,7 +6,7 @@ import { fileURLToPath } from 'node:url';
 import { describe, expect, inject, it } from 'vitest';
 import { describeError } from '../../src/cli/errors.js';
 import { runTolerance, type ToleranceArgs } from '../../src/cli/tolerance.js';
-import { MIN_SAMPLES_PER_WORKER } from '../../src/tolerance/parallel.js';
+import { MIN_SAMPLES_PER_THREAD } from '../../src/tolerance/parallel.js';
 
 // The command's work function, run in-process (the lead registers the command in main.ts).
 const sample = 'sample-configs/tolerance-fan-reference.yaml';
@@ -92,14 +92,14 @@ describe('dacsmith tolerance, the built command (bin/dacsmith.cjs, worker thread
 
   it('runs the sample with two workers: the same JSON as one worker, exit 1, nothing on stderr', () => {
     expect(inject('buildError')).toBeNull();
-    // Enough samples that two workers really start (MIN_SAMPLES_PER_WORKER each).
-    const n = String(2 * MIN_SAMPLES_PER_WORKER);
+    // Enough samples for two threads (this one and a worker, MIN_SAMPLES_PER_THREAD each).
+    const n = String(2 * MIN_SAMPLES_PER_THREAD);
     const two = run(sample, '--samples', n, '--workers', '2', '--format', 'json');
     const one = run(sample, '--samples', n, '--workers', '1', '--format', 'json');
     expect(two.code).toBe(1);
     expect(two.stderr).toBe('');
     expect(two.stdout).toBe(one.stdout);
-    expect(JSON.parse(two.stdout).monteCarlo.samples).toBe(2 * MIN_SAMPLES_PER_WORKER);
+    expect(JSON.parse(two.stdout).monteCarlo.samples).toBe(2 * MIN_SAMPLES_PER_THREAD);
   });
 
   it('a bad option value is exit 2 with a message and no stack trace', () => {

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import type { Ladder } from '../../src/circuit/ladder.js';
 import { steadyState } from '../../src/engine/index.js';
-import { ladderMetrics } from '../../src/tolerance/ladderMetrics.js';
+import { ladderMetrics, type LadderMetrics } from '../../src/tolerance/ladderMetrics.js';
 import { modalLadder } from '../../src/engine/modal/modalLadder.js';
 import { MAX_MODAL_CONDITION } from '../../src/engine/modalRoute.js';
 import type { MetricPlan } from '../../src/tolerance/metricPlan.js';
@@ -22,6 +22,34 @@ const planFor = (l: Ladder, inl: boolean, from?: number, to?: number): MetricPla
   });
   return metricPlan(p, l);
 };
+
+/**
+ * Skip knife edges where the steady-state excursion at a step's end equals the band to rounding:
+ * there "never settles" and "settles" are both right within floating point.
+ */
+function skipBandKnifeEdges(l: Ladder, plan: MetricPlan): void {
+  for (const { to } of plan.steps) {
+    const op = steadyState(l, to);
+    for (const excursion of [op.max - op.average, op.average - op.min]) {
+      fc.pre(Math.abs(excursion - plan.band) > 1e-9 * plan.band);
+    }
+  }
+}
+
+/**
+ * The fast figures against the engine's: ripple 1e-8 relative (a ripple of 1e-5 of the level or
+ * less keeps fewer digits in both methods: cancellation inside the period map, about
+ * eps (tau/T)^(n-1)); DC errors, differences of averages of order full scale, 1e-9 relative with a
+ * 1e-12 FS floor; settling within 1e-6 T (exactly equal when `exactSettling`).
+ */
+function expectSameFigures(fast: LadderMetrics, ref: LadderMetrics, l: Ladder, inl: boolean, exactSettling = false): void {
+  const fs = l.high - l.low;
+  expect(Math.abs(fast.worstRipple.ripple - ref.worstRipple.ripple)).toBeLessThan(1e-8 * ref.worstRipple.ripple + 1e-15 * fs);
+  expect(Math.abs(fast.droop.error - ref.droop.error)).toBeLessThan(1e-9 * Math.abs(ref.droop.error) + 1e-12 * fs);
+  if (inl) expect(Math.abs(fast.inl!.error - ref.inl!.error)).toBeLessThan(1e-9 * Math.abs(ref.inl!.error) + 1e-12 * fs);
+  if (exactSettling || ref.settlingTime === null) expect(fast.settlingTime).toBe(ref.settlingTime);
+  else expect(Math.abs(fast.settlingTime! - ref.settlingTime)).toBeLessThan(1e-6 * l.period + 1e-9 * ref.settlingTime);
+}
 
 describe('ladderMetrics: modal fast path against the engine', () => {
   it('random follower-free ladders of 1 to 3 stages', () => {
@@ -45,26 +73,11 @@ describe('ladderMetrics: modal fast path against the engine', () => {
           const tau = stages.reduce((a, s) => a + s.r * s.c, 0);
           fc.pre(tau > l.period && tau < 2000 * l.period);
           const plan = planFor(l, inl);
-          // Skip knife edges where the steady-state excursion equals the band to rounding: there
-          // "never settles" and "settles" are both right within floating point.
-          for (const { to } of plan.steps) {
-            const op = steadyState(l, to);
-            for (const excursion of [op.max - op.average, op.average - op.min]) {
-              fc.pre(Math.abs(excursion - plan.band) > 1e-9 * plan.band);
-            }
-          }
+          skipBandKnifeEdges(l, plan);
           const fast = ladderMetrics(l, plan);
           const ref = ladderMetrics(l, plan, { engineOnly: true });
-          const fs = l.high - l.low;
           expect(fast.usedEngine).toBe(false);
-          // ripple 1e-5 of the level or less keeps fewer digits in both methods (cancellation inside the
-          // period map, about eps (tau/T)^(n-1)): 1e-8 relative
-          expect(Math.abs(fast.worstRipple.ripple - ref.worstRipple.ripple)).toBeLessThan(1e-8 * ref.worstRipple.ripple + 1e-15 * fs);
-          // DC errors are differences of averages of order full scale: an absolute floor of 1e-12 FS
-          expect(Math.abs(fast.droop.error - ref.droop.error)).toBeLessThan(1e-9 * Math.abs(ref.droop.error) + 1e-12 * fs);
-          if (inl) expect(Math.abs(fast.inl!.error - ref.inl!.error)).toBeLessThan(1e-9 * Math.abs(ref.inl!.error) + 1e-12 * fs);
-          if (ref.settlingTime === null) expect(fast.settlingTime).toBeNull();
-          else expect(Math.abs(fast.settlingTime! - ref.settlingTime)).toBeLessThan(1e-6 * l.period + 1e-9 * ref.settlingTime);
+          expectSameFigures(fast, ref, l, inl);
         },
       ),
       { numRuns: 150, seed: 20261201 },
@@ -89,20 +102,8 @@ describe('ladderMetrics: modal fast path against the engine', () => {
           fc.pre(tau > nominal.period && tau < 2000 * nominal.period);
           const plan = planFor(nominal, inl);
           const sample = ladder(parts.map(([s, fr, fcap]) => stage(s.r * fr, s.c * fcap)), { driverHigh: dh, driverLow: dl, loadResistance: load });
-          for (const { to } of plan.steps) {
-            const op = steadyState(sample, to);
-            for (const excursion of [op.max - op.average, op.average - op.min]) {
-              fc.pre(Math.abs(excursion - plan.band) > 1e-9 * plan.band);
-            }
-          }
-          const fast = ladderMetrics(sample, plan);
-          const ref = ladderMetrics(sample, plan, { engineOnly: true });
-          const fs = sample.high - sample.low;
-          expect(Math.abs(fast.worstRipple.ripple - ref.worstRipple.ripple)).toBeLessThan(1e-8 * ref.worstRipple.ripple + 1e-15 * fs);
-          expect(Math.abs(fast.droop.error - ref.droop.error)).toBeLessThan(1e-9 * Math.abs(ref.droop.error) + 1e-12 * fs);
-          if (inl) expect(Math.abs(fast.inl!.error - ref.inl!.error)).toBeLessThan(1e-9 * Math.abs(ref.inl!.error) + 1e-12 * fs);
-          if (ref.settlingTime === null) expect(fast.settlingTime).toBeNull();
-          else expect(Math.abs(fast.settlingTime! - ref.settlingTime)).toBeLessThan(1e-6 * sample.period + 1e-9 * ref.settlingTime);
+          skipBandKnifeEdges(sample, plan);
+          expectSameFigures(ladderMetrics(sample, plan), ladderMetrics(sample, plan, { engineOnly: true }), sample, inl);
         },
       ),
       { numRuns: 150, seed: 77 },
@@ -126,20 +127,11 @@ describe('ladderMetrics: modal fast path against the engine', () => {
           const tau = stages.reduce((a, s) => a + s.r * s.c, 0);
           fc.pre(tau > l.period && tau < 2000 * l.period);
           const plan = planFor(l, true);
-          for (const { to } of plan.steps) {
-            const op = steadyState(l, to);
-            for (const excursion of [op.max - op.average, op.average - op.min]) {
-              fc.pre(Math.abs(excursion - plan.band) > 1e-9 * plan.band);
-            }
-          }
+          skipBandKnifeEdges(l, plan);
           const fast = ladderMetrics(l, plan);
           const ref = ladderMetrics(l, plan, { engineOnly: true });
-          const fs = l.high - l.low;
           if (ref.settlingTime !== null) expect(fast.usedEngine).toBe(true); // settling
-          expect(Math.abs(fast.worstRipple.ripple - ref.worstRipple.ripple)).toBeLessThan(1e-8 * ref.worstRipple.ripple + 1e-15 * fs);
-          expect(Math.abs(fast.droop.error - ref.droop.error)).toBeLessThan(1e-9 * Math.abs(ref.droop.error) + 1e-12 * fs);
-          expect(Math.abs(fast.inl!.error - ref.inl!.error)).toBeLessThan(1e-9 * Math.abs(ref.inl!.error) + 1e-12 * fs);
-          expect(fast.settlingTime).toBe(ref.settlingTime);
+          expectSameFigures(fast, ref, l, true, true);
         },
       ),
       { numRuns: 100, seed: 31 },

@@ -101,7 +101,7 @@ describe('monteCarlo', () => {
     const inProcess = monteCarlo(p);
     // A low threshold so that this small run really uses this thread plus one and two workers.
     for (const workers of [2, 3]) {
-      const parallel = await monteCarloParallel(p, undefined, { workers, minSamplesPerWorker: 300 });
+      const parallel = await monteCarloParallel(p, undefined, { workers, minSamplesPerThread: 300 });
       expect(parallel.values.worstRipple).toEqual(inProcess.values.worstRipple);
       expect(parallel.values.droop).toEqual(inProcess.values.droop);
       expect(parallel.values.settlingTime).toEqual(inProcess.values.settlingTime);
