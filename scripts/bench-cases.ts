@@ -6,7 +6,7 @@
 import { join } from 'node:path';
 import type { Ladder } from '../src/circuit/ladder.js';
 import { timeConstants } from '../src/engine/index.js';
-import type { Project, SearchSettings } from '../src/project/types.js';
+import type { Project, SearchSettings, SeriesName } from '../src/project/types.js';
 // The demo pin (20 kHz, 3.3 V, open output unless overridden), shared with the engine tests.
 import { ladder, stage } from '../test/engine/ladders.js';
 
@@ -49,8 +49,9 @@ export const sampleProjects = {
 } as const;
 
 /** Wide design space of the search bench: 100 ohm..1 Mohm, 100 pF..100 uF. */
-export function wideSearch(project: Project, stages: 1 | 2, series: SearchSettings['series']): Project {
-  const base: SearchSettings = project.search ?? { stages: [stages], series, resistance: { min: 0, max: 0 }, capacitance: { min: 0, max: 0 } };
+export function wideSearch(project: Project, stages: 1 | 2, name: SeriesName): Project {
+  const series = { resistor: name, capacitor: name };
+  const base: SearchSettings = project.search ?? { stages: [stages], series, margin: 0, buffered: [false], resistance: { min: 0, max: 0 }, capacitance: { min: 0, max: 0 } };
   return {
     ...project,
     search: { ...base, stages: [stages], series, resistance: { min: 100, max: 1e6 }, capacitance: { min: 100e-12, max: 100e-6 }, bits: undefined },

@@ -1,7 +1,7 @@
 /** Bench section: the standard-value design search (src/design), when that module is present. */
 import { existsSync } from 'node:fs';
 import { loadProject } from '../src/project/index.js';
-import type { Project, SearchSettings } from '../src/project/types.js';
+import type { Project, SeriesName } from '../src/project/types.js';
 import { sampleProjects, wideSearch } from './bench-cases.js';
 import { median, timeOnce } from './bench-measure.js';
 import type { BenchSection } from './bench-table.js';
@@ -17,7 +17,7 @@ type DesignSearch = (project: Project, options?: { compare?: boolean }) => Desig
 export interface DesignCost {
   name: string;
   file: string;
-  series: SearchSettings['series'];
+  series: SeriesName;
   stages: 1 | 2;
   /** Median wall time and CPU time of one designSearch call, s. */
   seconds: number;

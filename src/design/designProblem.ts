@@ -50,10 +50,10 @@ export function designProblem(project: Project, bits?: number): DesignProblem {
   if (!search) throw new DesignInputError(`${project.file}: search: missing; add a search section (stages, series, resistance, capacitance) to design a filter`);
   const at = bits === undefined ? project : projectAtResolution(project, bits);
   const { pwm, spec } = at;
-  const rValues = seriesValues(search.series, search.resistance.min, search.resistance.max);
-  const cValues = seriesValues(search.series, search.capacitance.min, search.capacitance.max);
-  if (rValues.length === 0) throw new DesignInputError(`${project.file}: search.resistance: no ${search.series} value lies in the range`);
-  if (cValues.length === 0) throw new DesignInputError(`${project.file}: search.capacitance: no ${search.series} value lies in the range`);
+  const rValues = seriesValues(search.series.resistor, search.resistance.min, search.resistance.max);
+  const cValues = seriesValues(search.series.capacitor, search.capacitance.min, search.capacitance.max);
+  if (rValues.length === 0) throw new DesignInputError(`${project.file}: search.resistance: no ${search.series.resistor} value lies in the range`);
+  if (cValues.length === 0) throw new DesignInputError(`${project.file}: search.capacitance: no ${search.series.capacitor} value lies in the range`);
   for (const n of search.stages) {
     if (!Number.isInteger(n) || n < 1 || n > 3) throw new DesignInputError(`${project.file}: search.stages: ${n} is not 1, 2 or 3`);
   }
@@ -95,7 +95,7 @@ export function designProblem(project: Project, bits?: number): DesignProblem {
     steps,
     defaultStep: !hasStep,
     stageCounts: [...search.stages].sort((a, b) => a - b),
-    series: search.series,
+    series: search.series.resistor === search.series.capacitor ? search.series.resistor : `${search.series.resistor} resistors, ${search.series.capacitor} capacitors`,
     rValues,
     cValues,
     circuit: base,

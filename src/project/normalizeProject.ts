@@ -10,6 +10,7 @@ import type {
   Project,
   PwmSettings,
   SearchSettings,
+  SeriesName,
   SettlingSpec,
   Spec,
   ToleranceSettings,
@@ -17,6 +18,11 @@ import type {
 
 type Path = ReadonlyArray<string | number>;
 type Range = { min: number; max: number };
+
+/** Full-scale limit when a spec bounds neither droop nor INL: 2 % gain error (model.md 1.1). */
+export const DEFAULT_GAIN_LIMIT = 0.02;
+/** Headroom of a recommended design below each limit when search.margin is not given (model.md 1.1). */
+export const DEFAULT_SEARCH_MARGIN = 0.1;
 
 const percent = (fraction: number): string => `${Number((fraction * 100).toPrecision(6))} %`;
 
@@ -224,7 +230,7 @@ function readSpec(
 ): { spec: Spec; specInLsb: NonNullable<Project['specInLsb']> } {
   const spec: Spec = {};
   const specInLsb: NonNullable<Project['specInLsb']> = {};
-  if (!read.has(['spec'])) return { spec, specInLsb };
+  if (!read.has(['spec'])) return { spec: { gain: DEFAULT_GAIN_LIMIT }, specInLsb };
   // Without a valid pwm section there is no full scale (its issues are reported already): read the
   // limits against a stand-in scale, to report their own mistakes, and discard the numbers.
   const scale = pwm ? { fullScale: pwm.high - pwm.low, lsb } : { fullScale: 1, lsb: 1 };
@@ -234,6 +240,16 @@ function readSpec(
       spec[key] = level.volts;
       if (level.lsb !== undefined) specInLsb[key] = level.lsb;
     }
+  }
+  const gainRaw = read.raw(['spec', 'gain']);
+  if (typeof gainRaw === 'string' && gainRaw.trim().toLowerCase() === 'none') {
+    // turned off on purpose
+  } else if (gainRaw !== undefined && gainRaw !== null) {
+    const gain = read.quantity(['spec', 'gain'], 'fraction');
+    if (gain !== undefined && !(gain > 0)) read.fail(['spec', 'gain'], `a limit must be greater than 0, got '${String(gainRaw)}'; write 'none' to turn the gain check off`);
+    else if (gain !== undefined) spec.gain = gain;
+  } else if (spec.droop === undefined && spec.inl === undefined) {
+    spec.gain = DEFAULT_GAIN_LIMIT;
   }
   if (read.has(['spec', 'settling'])) {
     const band = read.level(['spec', 'settling', 'band'], scale);
@@ -258,7 +274,18 @@ function readSpec(
 
 function readSearch(read: Reader, pwm: PwmSettings | undefined): SearchSettings | undefined {
   const stages = (read.raw(['search', 'stages']) as number[] | undefined) ?? [1, 2];
-  const series = (read.raw(['search', 'series']) as SearchSettings['series'] | undefined) ?? 'E24';
+  const seriesRaw = read.raw(['search', 'series']) as SeriesName | { resistor: SeriesName; capacitor?: SeriesName } | undefined;
+  const series: SearchSettings['series'] =
+    seriesRaw === undefined || seriesRaw === null
+      ? { resistor: 'E24', capacitor: 'E24' }
+      : typeof seriesRaw === 'string'
+        ? { resistor: seriesRaw, capacitor: seriesRaw }
+        : { resistor: seriesRaw.resistor, capacitor: seriesRaw.capacitor ?? 'E12' };
+  const margin = read.has(['search', 'margin']) ? read.quantity(['search', 'margin'], 'fraction') : DEFAULT_SEARCH_MARGIN;
+  if (margin !== undefined && !(margin >= 0 && margin < 1)) {
+    read.fail(['search', 'margin'], `a margin must lie from 0 % up to (not including) 100 %, got '${String(read.raw(['search', 'margin']))}'`);
+  }
+  const buffered = [...((read.raw(['search', 'buffered']) as boolean[] | undefined) ?? [false])];
   const resistance = read.range(['search', 'resistance'], 'resistance', 'ohm', { sign: 'positive' }, true);
   const capacitance = read.range(['search', 'capacitance'], 'capacitance', 'F', { sign: 'positive' }, true);
   const pinCurrent = read.quantity(['search', 'pin_current'], 'current', { sign: 'positive' });
@@ -272,10 +299,12 @@ function readSearch(read: Reader, pwm: PwmSettings | undefined): SearchSettings 
       read.fail(['search', 'bits'], 'needs pwm.clock: the frequency at each resolution follows from the timer clock', 'key');
     }
   }
-  if (!resistance || !capacitance || !pwm) return undefined;
+  if (!resistance || !capacitance || !pwm || margin === undefined || !(margin >= 0 && margin < 1)) return undefined;
   return {
     stages: [...stages],
     series,
+    margin,
+    buffered,
     resistance,
     capacitance,
     ...(pinCurrent !== undefined && { pinCurrent }),

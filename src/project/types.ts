@@ -47,11 +47,24 @@ export interface Spec {
   settling?: SettlingSpec;
   /** Largest INL allowed, V (endpoint fit). */
   inl?: number;
+  /**
+   * Largest endpoint-fit gain error allowed, as a fraction of full scale (0.02 = 2 %). Defaults to
+   * 2 % when the file limits neither droop nor INL (model.md 1.1, "Full scale"); undefined when
+   * `spec.gain: none` or when droop or INL already bound the DC transfer.
+   */
+  gain?: number;
 }
+
+export type SeriesName = 'E3' | 'E6' | 'E12' | 'E24' | 'E48' | 'E96' | 'E192';
 
 export interface SearchSettings {
   stages: number[];
-  series: 'E3' | 'E6' | 'E12' | 'E24' | 'E48' | 'E96' | 'E192';
+  /** IEC 60063 series of the resistors and of the capacitors (model.md 1.1: they may differ). */
+  series: { resistor: SeriesName; capacitor: SeriesName };
+  /** Headroom every recommended design keeps below each limit, fraction (default 0.1). */
+  margin: number;
+  /** Whether the search may (true) or may not (false) put an ideal follower after the last stage. */
+  buffered: boolean[];
   resistance: { min: number; max: number };
   capacitance: { min: number; max: number };
   /** Largest pin peak current allowed, A. */

@@ -39,6 +39,7 @@ export function voltsAndLsb(v: number, lsb: number | null): string {
 }
 
 /** A check value or limit in its unit ('V' also in LSB). */
-export function checkQuantity(x: number, unit: 'V' | 's' | 'A', lsb: number | null): string {
+export function checkQuantity(x: number, unit: 'V' | 's' | 'A' | '1', lsb: number | null): string {
+  if (unit === '1') return `${Number((x * 100).toPrecision(3))} % of full scale`;
   return unit === 'V' ? voltsAndLsb(x, lsb) : formatEng(x, unit, 3);
 }

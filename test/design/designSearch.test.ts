@@ -15,10 +15,12 @@ ${o.load ? `load: ${o.load}` : ''}
 spec:
   ripple: ${o.ripple ?? '0.5 LSB'}
 ${o.droop ? `  droop: ${o.droop}` : ''}
+${o.gain ? `  gain: ${o.gain}` : ''}
 ${o.settling ? `  settling: ${o.settling}` : ''}
 search:
   stages: ${o.stages ?? '[1, 2]'}
   series: ${o.series ?? 'E3'}
+  margin: ${o.margin ?? '0 %'}
   resistance: { min: ${o.rmin ?? '1k'}, max: ${o.rmax ?? '10k'} }
   capacitance: { min: ${o.cmin ?? '10n'}, max: ${o.cmax ?? '1u'} }
 ${o.pin ? `  pin_current: ${o.pin}` : ''}
@@ -49,7 +51,7 @@ describe('designSearch finds the exhaustive optimum (brute force with the engine
 
   const twoStage: Array<[string, Record<string, string>]> = [
     ['ideal driver, open output', {}],
-    ['unequal drivers, loaded', { driver: '{ high: 40 ohm, low: 25 ohm }', load: '{ resistance: 100k, capacitance: 100p }' }],
+    ['unequal drivers, loaded', { driver: '{ high: 40 ohm, low: 25 ohm }', load: '{ resistance: 100k, capacitance: 100p }', gain: 'none' }],
     [
       'step from the spec, time limit, pin current limit, low-side driver weaker',
       { f: '10 kHz', driver: '{ high: 20 ohm, low: 60 ohm }', ripple: '2 mV', rmin: '220', rmax: '22k', cmin: '22n', cmax: '2.2u', settling: '{ band: 1 LSB, time: 20 ms, from: 20 %, to: 60 % }', pin: '5 mA' },

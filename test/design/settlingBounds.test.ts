@@ -14,7 +14,7 @@ function problemOf(x: { f: number; driverHigh: number; driverLow: number; load: 
     load: { ...(x.load !== null && { resistance: x.load }), capacitance: 0 },
     filter: { stages: [] },
     spec: { ripple: x.ripple, settling: { band: x.band } },
-    search: { stages: [1, 2], series: 'E12', resistance: { min: 100, max: 1e6 }, capacitance: { min: 1e-10, max: 1e-4 } },
+    search: { stages: [1, 2], series: { resistor: 'E12', capacitor: 'E12' }, margin: 0, buffered: [false], resistance: { min: 100, max: 1e6 }, capacitance: { min: 1e-10, max: 1e-4 } },
   };
   return designProblem(project);
 }

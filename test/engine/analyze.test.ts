@@ -29,7 +29,7 @@ const withSpec = (p: Project, spec: Project['spec'], pinCurrent?: number): Proje
     ? {
         search: {
           stages: [1],
-          series: 'E12',
+          series: { resistor: 'E12', capacitor: 'E12' }, margin: 0, buffered: [false],
           resistance: { min: 1e3, max: 1e6 },
           capacitance: { min: 1e-9, max: 1e-5 },
           pinCurrent,

@@ -234,7 +234,7 @@ describe('parseProject: a complete valid file, normalized to SI', () => {
       },
       search: {
         stages: [2, 3],
-        series: 'E96',
+        series: { resistor: 'E96', capacitor: 'E96' }, margin: 0.1, buffered: [false],
         resistance: { min: 1e3, max: 470e3 },
         capacitance: { min: 1e-9, max: 4.7e-6 },
         pinCurrent: 5e-3,
@@ -283,7 +283,7 @@ describe('parseProject: a complete valid file, normalized to SI', () => {
       },
       load: { capacitance: 0 },
       filter: { stages: [{ r: 4700, c: 100e-9, buffered: false }] },
-      spec: {},
+      spec: { gain: 0.02 }, // model.md 1.1: the default full-scale limit
     });
   });
 
@@ -310,7 +310,9 @@ describe('parseProject: a complete valid file, normalized to SI', () => {
     expect(p.filter.stages).toEqual([]);
     expect(p.search).toEqual({
       stages: [1, 2],
-      series: 'E24',
+      series: { resistor: 'E24', capacitor: 'E24' },
+      margin: 0.1,
+      buffered: [false],
       resistance: { min: 1e3, max: 100e3 },
       capacitance: { min: 1e-9, max: 1e-6 },
     });

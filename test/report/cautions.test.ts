@@ -6,7 +6,7 @@ import { oneStageProject } from './projectFixture.js';
 
 const withPinLimit = (p: Project, pinCurrent: number): Project => ({
   ...p,
-  search: { stages: [1], series: 'E12', resistance: { min: 1e3, max: 1e6 }, capacitance: { min: 1e-9, max: 1e-5 }, pinCurrent },
+  search: { stages: [1], series: { resistor: 'E12', capacitor: 'E12' }, margin: 0, buffered: [false], resistance: { min: 1e3, max: 1e6 }, capacitance: { min: 1e-9, max: 1e-5 }, pinCurrent },
 });
 const notesFor = (p: Project) => cautions(p, analyzeProject(p, { duties: [0.5] }));
 

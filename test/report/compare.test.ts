@@ -21,6 +21,7 @@ filter:
     - { r: ${o.r ?? '4.7k'}, c: ${o.c ?? '1u'} }
 ${o.more ?? ''}spec:
   ripple: ${o.ripple ?? '1 LSB'}
+  gain: none
 `;
 }
 
