@@ -1,3 +1,5 @@
+import { InputError } from '../units/index.js';
+
 /** Exit codes shared by every command (design notes: 0 all specs hold, 1 a spec fails, 2 bad input). */
 export const EXIT_PASS = 0;
 export const EXIT_SPEC_FAILS = 1;
@@ -6,7 +8,7 @@ export const EXIT_BAD_INPUT = 2;
 export const EXIT_INTERNAL = 70;
 
 /** A mistake on the command line or in an input file; its message is shown as is, with exit 2. */
-export class UsageError extends Error {
+export class UsageError extends InputError {
   override name = 'UsageError';
 }
 
@@ -17,7 +19,7 @@ interface Formattable {
 }
 
 const isFormattable = (e: unknown): e is Formattable =>
-  e instanceof Error && e.name === 'ProjectError' && typeof (e as Partial<Formattable>).format === 'function';
+  e instanceof InputError && typeof (e as Partial<Formattable>).format === 'function';
 
 const FILE_ERRORS: Record<string, string> = {
   ENOENT: 'no such file',
@@ -40,8 +42,8 @@ export function describeError(
   error: unknown,
   env: Record<string, string | undefined> = process.env,
 ): { code: number; message: string } {
-  if (error instanceof UsageError) return { code: EXIT_BAD_INPUT, message: `dacsmith: ${error.message}` };
   if (isFormattable(error)) return { code: EXIT_BAD_INPUT, message: error.format() };
+  if (error instanceof InputError) return { code: EXIT_BAD_INPUT, message: `dacsmith: ${error.message}` };
   const sys = error as NodeJS.ErrnoException;
   if (sys && typeof sys.code === 'string' && sys.code in FILE_ERRORS && typeof sys.path === 'string') {
     return { code: EXIT_BAD_INPUT, message: `${sys.path}: ${FILE_ERRORS[sys.code]}` };

@@ -2,6 +2,7 @@ import { ladderFromProject } from '../circuit/fromProject.js';
 import type { Ladder } from '../circuit/ladder.js';
 import type { Project } from '../project/types.js';
 import {
+  checkNumericalDomain,
   cutoff as cutoffFrequency,
   dcTransfer,
   defaultSettling,
@@ -69,6 +70,7 @@ export function defaultBand(project: Project): number {
  */
 export function analyzeProject(project: Project, options: AnalyzeOptions = {}): Analysis {
   const ladder = ladderFromProject(project);
+  checkNumericalDomain(ladder, project.file);
   const { min: dMin, max: dMax } = project.pwm.duty;
   const duties = options.duties ?? dutyGrid(dMin, dMax, options.grid ?? 11);
   for (const d of duties) {

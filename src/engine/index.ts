@@ -8,6 +8,7 @@ export { cutoff } from './cutoff.js';
 export { magnitude } from './magnitude.js';
 export { pinPeakCurrent } from './pinPeakCurrent.js';
 export { timeConstants } from './timeConstants.js';
+export { checkNumericalDomain, NUMERICAL_DOMAIN, OutsideDomainError } from './numericalDomain.js';
 export { steadyWaveform } from './steadyWaveform.js';
 export { stepWaveform } from './stepWaveform.js';
 export { stepWaveformOnGrid } from './stepWaveformOnGrid.js';

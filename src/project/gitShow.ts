@@ -1,9 +1,10 @@
 import { execFileSync } from 'node:child_process';
 import { realpathSync } from 'node:fs';
 import { basename, dirname, relative, sep } from 'node:path';
+import { InputError } from '../units/index.js';
 
 /** The file could not be read at that revision (no repository, unknown revision, file not there). */
-export class GitShowError extends Error {
+export class GitShowError extends InputError {
   override name = 'GitShowError';
 }
 

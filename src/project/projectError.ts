@@ -1,3 +1,5 @@
+import { InputError } from '../units/index.js';
+
 /** One problem found in a project file, with where it is. */
 export interface ProjectIssue {
   /** File as the user named it. */
@@ -39,7 +41,7 @@ export function formatIssue(issue: ProjectIssue): string {
  * Syntax: new ProjectError(issues)
  * Example: err.format()   // 'p.yaml:12:10: filter.stages[0].c: expected a capacitance (F), got '3.3 V' (a voltage)'
  */
-export class ProjectError extends Error {
+export class ProjectError extends InputError {
   override name = 'ProjectError';
   readonly file: string;
   readonly path: string;

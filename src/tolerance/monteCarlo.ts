@@ -1,3 +1,4 @@
+import { InputError } from '../units/index.js';
 import { ladderFromProject } from '../circuit/fromProject.js';
 import type { Ladder } from '../circuit/ladder.js';
 import type { Project, ToleranceSettings } from '../project/types.js';
@@ -129,6 +130,6 @@ export function requireTolerance(project: Project): ToleranceSettings {
 }
 
 /** Input that makes a tolerance study impossible (exit code 2 in the command line). */
-export class ToleranceInputError extends Error {
+export class ToleranceInputError extends InputError {
   override name = 'ToleranceInputError';
 }

@@ -1,5 +1,6 @@
 import { ladderFromProject } from '../circuit/fromProject.js';
 import type { Ladder } from '../circuit/ladder.js';
+import { checkNumericalDomain } from '../engine/index.js';
 import type { Project } from '../project/types.js';
 import type { MonteCarloResult } from './monteCarlo.js';
 import { monteCarloParallel, type ParallelOptions } from './parallel.js';
@@ -27,6 +28,7 @@ export async function toleranceStudy(
   ladder: Ladder = ladderFromProject(project),
   options: ParallelOptions = {},
 ): Promise<ToleranceStudyResult> {
+  checkNumericalDomain(ladder, project.file);
   const wc = worstCase(project, ladder, { confirmWithEngine: true });
   const mc = await monteCarloParallel(project, ladder, options);
   return { worstCase: wc, monteCarlo: mc, pass: wc.pass && mc.pass };

@@ -1,4 +1,5 @@
 import type { Dimension } from './dimension.js';
+import { InputError } from './inputError.js';
 
 /**
  * A value that is not the quantity it should be. The message is meant for the person who wrote
@@ -7,7 +8,7 @@ import type { Dimension } from './dimension.js';
  * Syntax: new QuantityError(message, input, expected)
  * Example: new QuantityError("expected a capacitance (F), got '3.3 V' (a voltage)", '3.3 V', 'capacitance')
  */
-export class QuantityError extends Error {
+export class QuantityError extends InputError {
   override name = 'QuantityError';
   constructor(
     message: string,
