@@ -9,6 +9,7 @@ export interface AnalyzeArgs {
   charts: boolean;
   quiet?: boolean;
   csv?: string;
+  force?: boolean;
 }
 
 /** What a command hands back to the shell: text for stdout and stderr, and the exit code. */
@@ -43,8 +44,8 @@ export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean }): Pr
   }
   let stderr = '';
   if (args.csv !== undefined) {
-    const [{ writeFileSync }, { waveformCsv }] = await Promise.all([import('node:fs'), import('../report/csv.js')]);
-    writeFileSync(args.csv, waveformCsv(analysis));
+    const [{ writeOutputFile }, { waveformCsv }] = await Promise.all([import('./writeOutputFile.js'), import('../report/csv.js')]);
+    writeOutputFile(args.csv, waveformCsv(analysis), { force: args.force ?? false, inputs: [args.file], option: '--csv' });
     stderr = `waveforms written to ${args.csv}\n`;
   }
   return { stdout: args.quiet ? '' : stdout, stderr, code: analysis.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
@@ -84,6 +85,7 @@ export function analyzeCommand(
           type: 'string',
           requiresArg: true,
         })
+        .option('force', { describe: 'Let --csv replace an existing file (never the project file itself)', type: 'boolean', default: false })
         .example('$0 analyze board.yaml', 'Full report with charts')
         .example('$0 analyze board.yaml --duty 25% --duty 0.75', 'Report at two chosen duties')
         .example('$0 analyze board.yaml --format json', 'One JSON object, SI units')

@@ -1,6 +1,6 @@
 import type { Argv, CommandModule } from 'yargs';
 import type { CommandOutput } from './analyze.js';
-import { describeError, EXIT_BAD_INPUT, EXIT_PASS, EXIT_SPEC_FAILS } from './errors.js';
+import { describeError, EXIT_BAD_INPUT, EXIT_PASS, EXIT_SPEC_FAILS, UsageError } from './errors.js';
 import type { CheckedFile, CheckFormat } from '../report/check.js';
 
 export interface CheckArgs {
@@ -23,6 +23,10 @@ export function checkExitCode(files: CheckedFile[]): number {
  * Example: await runCheck({ files: ['a.yaml', 'b.yaml'], format: 'text', quiet: false }, { color: false })
  */
 export async function runCheck(args: CheckArgs, tty: { color: boolean }): Promise<CommandOutput> {
+  // yargs hands a lone '-' over as ''. A gate that checked nothing must not pass.
+  if (args.files.length === 0 || args.files.some((f) => f === '' || f === '-')) {
+    throw new UsageError("check reads project files by name, not standard input ('-'); name at least one file (a check of no file does not pass)");
+  }
   const [{ loadProject, requireFilter }, { analyzeProject }, { renderCheck }] = await Promise.all([
     import('../project/index.js'),
     import('../engine/analyze.js'),

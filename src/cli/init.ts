@@ -50,11 +50,11 @@ async function schemaReference(targetDir: string): Promise<string> {
  * Example: await runInit({ file: '-', stages: 2, search: false, bits: 10, frequency: '20 kHz', force: false, quiet: false })
  */
 export async function runInit(args: InitArgs): Promise<CommandOutput> {
-  const [{ starterProject }, { parseQuantity }, path, fs] = await Promise.all([
+  const [{ starterProject }, { parseQuantity }, path, { writeOutputFile }] = await Promise.all([
     import('../project/starter.js'),
     import('../units/index.js'),
     import('node:path'),
-    import('node:fs'),
+    import('./writeOutputFile.js'),
   ]);
   if (args.stages !== 1 && args.stages !== 2) throw new UsageError(`--stages ${args.stages}: choose 1 or 2`);
   if (!Number.isInteger(args.bits) || args.bits < 4 || args.bits > 16) {
@@ -78,15 +78,7 @@ export async function runInit(args: InitArgs): Promise<CommandOutput> {
   });
   if (toStdout) return { stdout: text, stderr: '', code: EXIT_PASS };
 
-  try {
-    // 'wx' fails when the file exists, with no window between a test and the write.
-    fs.writeFileSync(args.file, text, { flag: args.force ? 'w' : 'wx' });
-  } catch (error) {
-    if ((error as NodeJS.ErrnoException).code === 'EEXIST') {
-      throw new UsageError(`${args.file} already exists; nothing written (--force overwrites it)`);
-    }
-    throw error;
-  }
+  writeOutputFile(args.file, text, { force: args.force, option: 'init' });
   const note = `wrote ${args.file} (${args.stages} stage${args.stages > 1 ? 's' : ''}, ${args.bits} bits); next: dacsmith check ${args.file}\n`;
   return { stdout: '', stderr: args.quiet ? '' : note, code: EXIT_PASS };
 }

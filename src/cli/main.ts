@@ -9,6 +9,7 @@ import { initCommand } from './init.js';
 import { designCommand } from './design.js';
 import { toleranceCommand } from './tolerance.js';
 import { describeError, UsageError } from './errors.js';
+import { checkOptionTokens, operandsAfterDoubleDash, type OptionKinds } from './checkOptionTokens.js';
 
 /** Print what a command produced and set the exit code; map thrown errors to messages and codes. */
 async function run(work: () => Promise<CommandOutput>): Promise<void> {
@@ -25,6 +26,16 @@ async function run(work: () => Promise<CommandOutput>): Promise<void> {
 }
 
 /**
+ * A yargs middleware that holds the raw tokens to one reading (checkOptionTokens.ts) with the
+ * options of the command being run. yargs passes itself as the second argument at run time; its
+ * type declarations list only the first.
+ */
+function optionTokensChecker(argv: readonly string[]): (args: object) => void {
+  const check = (_args: object, y: { getOptions(): OptionKinds }) => checkOptionTokens(argv, y.getOptions());
+  return check as unknown as (args: object) => void;
+}
+
+/**
  * The command-line shell: parse arguments with yargs and dispatch to one command module per file.
  * Argument errors print the message and a hint on standard error and exit 2.
  *
@@ -32,8 +43,14 @@ async function run(work: () => Promise<CommandOutput>): Promise<void> {
  * Example: await main(['analyze', 'sample-configs/greenhouse-heater.yaml', '--format', 'json'])
  */
 export async function main(argv: string[]): Promise<void> {
+  // A reader that closes the pipe early (`| head`) has what it wanted: stop quietly with the
+  // command's own exit code rather than Node's unhandled-error stack and exit 1 ("a spec fails").
+  process.stdout.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code !== 'EPIPE') throw error;
+    process.exit();
+  });
   const color = () => colorWanted(process.stdout.isTTY, process.env);
-  const cli = yargs(argv)
+  const cli = yargs(operandsAfterDoubleDash(argv))
     .scriptName('dacsmith')
     .usage('$0 <command> [options]\n\nPlan the RC filter that turns a PWM output into an analog voltage.')
     .command(analyzeCommand(run, color))
@@ -42,6 +59,7 @@ export async function main(argv: string[]): Promise<void> {
     .command(checkCommand(run, color))
     .command(compareCommand(run, color))
     .command(initCommand(run))
+    .middleware(optionTokensChecker(argv), true)
     .demandCommand(1, 'Name a command.')
     .recommendCommands()
     .strict()

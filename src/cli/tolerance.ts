@@ -41,6 +41,11 @@ export async function runTolerance(
       throw new UsageError(`${name} must be a whole number >= ${min}, got ${given}`);
     }
   }
+  // The project file's own limit (schemas/project.schema.json, tolerance.samples), so the command
+  // line cannot ask for what the file refuses.
+  if (args.samples !== undefined && args.samples > MAX_SAMPLES) {
+    throw new UsageError(`--samples ${args.samples}: at most ${MAX_SAMPLES} (as tolerance.samples in a project file)`);
+  }
   const [{ loadProject, requireFilter }, { toleranceStudy, ToleranceInputError }, { toleranceReport }, { availableParallelism }] =
     await Promise.all([
       import('../project/index.js'),
@@ -56,7 +61,8 @@ export async function runTolerance(
       ...(args.samples !== undefined ? { samples: args.samples } : {}),
       ...(args.seed !== undefined ? { seed: args.seed } : {}),
       ...(args.distribution !== undefined ? { distribution: args.distribution } : {}),
-      workers: args.workers ?? Math.min(4, availableParallelism()),
+      // More threads than cores only wait for each other (and each costs memory).
+      workers: Math.min(args.workers ?? 4, availableParallelism()),
       ...(bar ? { onProgress: bar.update } : {}),
     });
   } catch (error) {
@@ -68,6 +74,9 @@ export async function runTolerance(
   const stdout = toleranceReport(project, study, args.format, { charts: args.charts, color: tty.color });
   return { stdout: args.quiet ? '' : stdout, stderr: '', code: study.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
 }
+
+/** Largest Monte Carlo sample count, as the project schema allows for tolerance.samples. */
+const MAX_SAMPLES = 1_000_000;
 
 /** A one-line progress bar redrawn at most every 100 ms. */
 function progressBar(sink: ProgressSink): { update: (done: number, total: number) => void; clear: () => void } {
@@ -112,7 +121,7 @@ export function toleranceCommand(
           describe: 'Part value distribution (default: tolerance.distribution)',
           choices: ['normal', 'uniform'] as const,
         })
-        .option('workers', { describe: 'Threads for the Monte Carlo run, this one included (default: cores, at most 4)', type: 'number', requiresArg: true })
+        .option('workers', { describe: 'Threads for the Monte Carlo run, this one included (default and most: the cores, up to 4 by default)', type: 'number', requiresArg: true })
         .option('quiet', { alias: 'q', describe: 'Print nothing but errors; the exit code tells', type: 'boolean', default: false })
         .option('format', { describe: 'Report format', choices: ['text', 'json', 'markdown'] as const, default: 'text' as const })
         .option('charts', { describe: 'Draw the histograms (--no-charts to leave them out)', type: 'boolean', default: true })

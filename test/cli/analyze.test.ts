@@ -153,7 +153,7 @@ describe('dacsmith analyze', () => {
   it('exits 2 when the CSV file cannot be written', () => {
     const r = dacsmith('analyze', project('good.yaml', GOOD), '--csv', join(work, 'no-such-dir', 'w.csv'));
     expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/no-such-dir.*no such file/);
+    expect(r.stderr).toMatch(/no-such-dir.*no such folder; nothing written/);
   });
 });
 

@@ -1,0 +1,126 @@
+/**
+ * The command line keeps its word: one reading of every option, no silent overwrite, no gate that
+ * passes on nothing, exit 2 (never 70) for the environment. Run as a user would, through the built
+ * command. The boards are invented.
+ */
+import { spawnSync } from 'node:child_process';
+import { copyFileSync, mkdtempSync, readFileSync, writeFileSync, existsSync, readdirSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { bin, root, runBuilt } from './runBuilt.js';
+
+const sample = join(root, 'sample-configs', 'greenhouse-heater.yaml');
+const scratch = () => mkdtempSync(join(tmpdir(), 'dacsmith-cli-'));
+
+describe('options are read as written, or refused with exit 2 naming the option', () => {
+  const refused: Array<[string[], RegExp]> = [
+    [['analyze', sample, '--format', 'json', '--format', 'json'], /--format is given more than once/],
+    [['analyze', sample, '--format'], /--format needs a value/],
+    [['analyze', sample, '--quiet=maybe'], /--quiet is a switch/],
+    [['analyze', sample, '--charts=maybe'], /--charts is a switch/],
+    [['tolerance', sample, '--seed', ''], /--seed must be a whole number written in decimal digits, got ''/],
+    [['tolerance', sample, '--samples', '0x10'], /--samples must be a whole number .* got '0x10'/],
+    [['tolerance', sample, '--samples=1e3'], /--samples must be a whole number .* got '1e3'/],
+    [['tolerance', sample, '--samples', '1000001'], /--samples 1000001: at most 1000000/],
+    [['analyze', sample, '-q', '--quiet'], /-q is given more than once|--quiet is given more than once/],
+  ];
+  for (const [args, message] of refused) {
+    it(args.slice(2).join(' '), () => {
+      const r = runBuilt(args);
+      expect(r.code).toBe(2);
+      expect(r.stderr).toMatch(message);
+      expect(r.stdout).toBe('');
+    });
+  }
+
+  it('accepts repeated --duty, --no-charts and --charts=false', () => {
+    expect(runBuilt(['analyze', sample, '-q', '--duty', '0.3', '--duty', '50%', '--no-charts']).code).toBe(0);
+    expect(runBuilt(['analyze', sample, '-q', '--charts=false']).code).toBe(0);
+  });
+
+  it('honours -- so that a file named -x.yaml can be given', () => {
+    const dir = scratch();
+    copyFileSync(sample, join(dir, '-x.yaml'));
+    const r = runBuilt(['analyze', '--format', 'json', '--', '-x.yaml'], { cwd: dir });
+    expect(r.code).toBe(0);
+    expect(JSON.parse(r.stdout).pass).toBe(true);
+  });
+});
+
+describe('check never passes on nothing', () => {
+  it("refuses '-' (text and JSON) with exit 2", () => {
+    for (const extra of [[], ['--format', 'json']]) {
+      const r = runBuilt(['check', '-', ...extra]);
+      expect(r.code).toBe(2);
+      expect(r.stdout).toBe('');
+      expect(r.stderr).toMatch(/name at least one file/);
+    }
+  });
+
+  it('a glob that matched nothing reaches the command as its pattern: no such file, exit 2', () => {
+    const r = runBuilt(['check', 'boards/*.yaml']);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/no such file/);
+  });
+});
+
+describe('files written whole or not at all', () => {
+  it('--csv refuses to overwrite the project file itself, even with --force, leaving it byte for byte', () => {
+    const dir = scratch();
+    const file = join(dir, 'board.yaml');
+    copyFileSync(sample, file);
+    const before = readFileSync(file);
+    for (const extra of [[], ['--force']]) {
+      const r = runBuilt(['analyze', file, '-q', '--csv', file, ...extra]);
+      expect(r.code).toBe(2);
+      expect(r.stderr).toMatch(/which this command reads/);
+    }
+    expect(readFileSync(file).equals(before)).toBe(true);
+  });
+
+  it('--csv keeps an existing file without --force and replaces it with --force', () => {
+    const dir = scratch();
+    const csv = join(dir, 'w.csv');
+    writeFileSync(csv, 'keep me\n');
+    expect(runBuilt(['analyze', sample, '-q', '--csv', csv]).code).toBe(2);
+    expect(readFileSync(csv, 'utf8')).toBe('keep me\n');
+    expect(runBuilt(['analyze', sample, '-q', '--csv', csv, '--force']).code).toBe(0);
+    expect(readFileSync(csv, 'utf8')).toMatch(/^time_s,output_V,waveform,duty\n/);
+    expect(readdirSync(dir)).toEqual(['w.csv']); // no temporary file left behind
+  });
+
+  it('a full device or a missing folder is exit 2 with the reason, not an internal error', () => {
+    if (existsSync('/dev/full')) {
+      const r = runBuilt(['analyze', sample, '-q', '--csv', '/dev/full']);
+      expect(r.code).toBe(2);
+      expect(r.stderr).toMatch(/--csv \/dev\/full: no space left on the device; nothing written/);
+    }
+    const r = runBuilt(['analyze', sample, '-q', '--csv', join(scratch(), 'missing', 'w.csv')]);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/no such folder; nothing written/);
+  });
+
+  it('init refuses an existing file without --force', () => {
+    const dir = scratch();
+    const file = join(dir, 'dacsmith.yaml');
+    writeFileSync(file, '# mine\n');
+    const r = runBuilt(['init', file]);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/already exists/);
+    expect(readFileSync(file, 'utf8')).toBe('# mine\n');
+  });
+});
+
+describe('a closed pipe is not a failing spec', () => {
+  it('analyze --format json | head -c 10 ends with the command exit code and no stack', () => {
+    // 4000 duties make about 0.6 MB of JSON, far more than a pipe buffers (64 KiB on Linux, pipe(7)).
+    const duties = Array.from({ length: 4000 }, (_, i) => `--duty ${(0.05 + (0.9 * i) / 3999).toFixed(6)}`).join(' ');
+    const r = spawnSync('bash', ['-c', `"${process.execPath}" "${bin}" analyze "${sample}" --format json ${duties} | head -c 10 >/dev/null; echo "\${PIPESTATUS[0]}"`], {
+      encoding: 'utf8',
+      env: { ...process.env, NO_COLOR: '1' },
+    });
+    expect(r.stdout.trim()).toBe('0');
+    expect(r.stderr).not.toMatch(/EPIPE|at /);
+  });
+});
