@@ -123,7 +123,8 @@ function modalDc(
   const droop = { duty: droopAt, error: error(droopAt) };
   if (!plan.inl) return { droop, inl: null };
   const slope = (yB - yA) / (b - a);
-  const deviation = (d: number) => average(d) - (yA + slope * (d - a));
+  // fit - average, the sign of dcTransfer.ts (README "Sign convention")
+  const deviation = (d: number) => yA + slope * (d - a) - average(d);
   const inlAt = maximizeFromHints((d) => Math.abs(deviation(d)), a, b, plan.inlHints).x;
   return { droop, inl: { duty: inlAt, error: deviation(inlAt) } };
 }
