@@ -88,12 +88,12 @@ export function partValueWarnings(project: Project): Warning[] {
     if (message !== null) warnings.push({ key, message });
   };
   project.filter.stages.forEach((s, i) => {
-    add(`filter.stages[${i}].r`, resistanceMessage(`R${i + 1} (filter.stages[${i}].r)`, s.r));
-    add(`filter.stages[${i}].c`, capacitanceMessage(`C${i + 1} (filter.stages[${i}].c)`, s.c));
+    add(`filter.stages[${i}].r`, resistanceMessage(`R${i + 1}`, s.r));
+    add(`filter.stages[${i}].c`, capacitanceMessage(`C${i + 1}`, s.c));
   });
   const { resistance, capacitance } = project.load;
-  if (resistance !== undefined) add('load.resistance', resistanceMessage('load.resistance', resistance));
-  if (capacitance > 0) add('load.capacitance', capacitanceMessage('load.capacitance', capacitance));
+  if (resistance !== undefined) add('load.resistance', resistanceMessage('the load resistance', resistance));
+  if (capacitance > 0) add('load.capacitance', capacitanceMessage('the load capacitance', capacitance));
   return warnings;
 }
 
@@ -132,10 +132,10 @@ export function plausibilityWarnings(project: Project, figures: WarningFigures):
       load.resistance !== undefined
         ? `the load (${formatEng(load.resistance, 'Ω', 3)}) and the series resistance form a divider; a larger load resistance, smaller series resistors or a buffer keep the span`
         : 'check the driver resistances and the filter values';
-    const unchecked =
-      spec.gain === undefined
-        ? ' No gain check limits this (spec.gain is off' + (spec.droop !== undefined || spec.inl !== undefined ? ' because spec.droop or spec.inl is given' : '') + ').'
-        : '';
+    const given = [spec.droop !== undefined ? 'spec.droop' : null, spec.inl !== undefined ? 'spec.inl' : null].filter((k) => k !== null);
+    const why = given.length > 0 ? ` because ${given.join(' and ')} ${given.length > 1 ? 'are' : 'is'} given` : ' (spec.gain: none)';
+    // model.md 1.1: with droop or INL limited there is no default gain check, so say what is unchecked
+    const unchecked = spec.gain === undefined ? ` No gain check limits the span: spec.gain is off${why}.` : '';
     warnings.push({
       key: load.resistance !== undefined ? 'load.resistance' : 'filter.stages',
       message:
