@@ -8,6 +8,7 @@ import { formatEng } from '../units/index.js';
 import type { Block, ReportDocument, Section } from './document.js';
 import { percent, tidy, voltsAndLsb } from './quantities.js';
 import { renderDocument } from './renderDocument.js';
+import { warningsSection } from './warnings.js';
 import type { Align } from './table.js';
 
 type ToleranceStudy = ToleranceStudyResult;
@@ -67,6 +68,8 @@ function toleranceDocument(
     monteCarloSection(mc, lsb, fullScale),
   ];
   if (options.charts) sections.push(histogramSection(mc, options.bins));
+  const warnings = warningsSection(study.warnings);
+  if (warnings) sections.push(warnings);
   return {
     title: `Tolerance study: ${project.file}`,
     sections,
@@ -78,9 +81,7 @@ function parametersSection(parameters: ToleranceParameter[], mc: MonteCarloResul
   const unit = (p: ToleranceParameter) => (p.unit === 'ohm' ? 'Ω' : p.unit);
   const spread = mc.distribution === 'normal' ? 'normal, σ = range/6, cut at the ends' : 'uniform over the range';
   const rows = parameters.map((p) => {
-    const centre = 0.5 * (p.min + p.max);
-    const rel = centre !== 0 ? `±${((100 * (p.max - p.min)) / (2 * centre)).toPrecision(2)} %` : '';
-    return [p.label, formatEng(p.nominal, unit(p), 4), formatEng(p.min, unit(p), 4), formatEng(p.max, unit(p), 4), rel];
+    return [p.label, formatEng(p.nominal, unit(p), 4), formatEng(p.min, unit(p), 4), formatEng(p.max, unit(p), 4), spreadText(p)];
   });
   const blocks: Block[] =
     parameters.length === 0
@@ -90,6 +91,20 @@ function parametersSection(parameters: ToleranceParameter[], mc: MonteCarloResul
           { kind: 'text', text: `Monte Carlo draws each part independently: ${spread}.` },
         ];
   return { title: 'Parts and tolerances', blocks };
+}
+
+/**
+ * The range of a part relative to its nominal value: '±1 %' when symmetric, '-40 % / +60 %' when
+ * not (a driver range such as 15..40 ohm around 25 ohm); '' when the nominal is 0.
+ */
+export function spreadText(p: { nominal: number; min: number; max: number }): string {
+  if (p.nominal === 0) return '';
+  const below = (100 * (p.nominal - p.min)) / Math.abs(p.nominal);
+  const above = (100 * (p.max - p.nominal)) / Math.abs(p.nominal);
+  const show = (x: number) => String(Number(x.toPrecision(2)));
+  if (show(below) === show(above)) return `±${show(above)} %`;
+  const signed = (x: number) => `${x < 0 ? '-' : '+'}${show(Math.abs(x))} %`;
+  return `${signed(-below)} / ${signed(above)}`;
 }
 
 function figureText(
@@ -331,6 +346,7 @@ function toleranceJson(project: Project, study: ToleranceStudy, bins: number): s
   const { limits } = mc.plan;
   const body = {
     file: project.file,
+    warnings: study.warnings,
     parameters: wc.parameters.map(({ key, label, unit, nominal, min, max }) => ({ key, label, unit, nominal, min, max })),
     settling: { band: mc.plan.band, steps: mc.plan.steps },
     limits,
