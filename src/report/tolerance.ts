@@ -28,7 +28,10 @@ export interface ToleranceReportOptions {
  * The report of a tolerance study as text (aligned tables, ASCII histograms with the spec limit
  * marked) or GitHub-flavoured Markdown (the same document, drawn by renderDocument), or one JSON
  * object in SI units holding
- * at least worstCase.{worstRipple, droop, settlingTime} and monteCarlo.{samples, seed, yield}.
+ * at least worstCase.{worstRipple, droop, settlingTime} and monteCarlo.{samples, seed, yield}, and
+ * `warnings` (the nominal circuit's, [{key, message}], empty when none); worstCase.gain is the gain
+ * error as a signed fraction of full scale (null when spec.gain is off). The text and Markdown
+ * reports end with the "Warnings" section when there are any.
  *
  * Syntax: toleranceReport(project, study, format[, { charts, color, bins }])
  * Example: toleranceReport(p, study, 'json')  // '{ "worstCase": { "worstRipple": { "value": ...'
@@ -51,8 +54,12 @@ const FIGURE_NAMES: Record<WorstCaseFigure['figure'], string> = {
   ripple: 'worst ripple',
   droop: 'droop (DC error)',
   inl: 'INL',
+  gain: 'gain error',
   settling: 'settling time',
 };
+
+/** A fraction of full scale (the gain check's unit) as text. */
+const ofFullScale = (x: number) => `${Number((100 * x).toPrecision(3))} % of full scale`;
 
 function toleranceDocument(
   project: Project,
@@ -113,18 +120,20 @@ function figureText(
   fullScale: number,
 ): string {
   if (f.value === null) return 'never settles';
+  if (f.figure === 'gain') return ofFullScale(tidy(f.value, 1));
   return f.figure === 'settling' ? formatEng(f.value, 's', 4) : voltsAndLsb(tidy(f.value, fullScale), lsb);
 }
 
 function limitText(f: WorstCaseFigure, lsb: number | null): string {
   if (f.limit === null) return '-';
+  if (f.figure === 'gain') return ofFullScale(f.limit);
   return f.figure === 'settling' ? formatEng(f.limit, 's', 4) : voltsAndLsb(f.limit, lsb);
 }
 
 const verdictCell = (pass: boolean | null) => (pass === null ? '-' : pass ? 'PASS' : 'FAIL');
 
 function worstCaseSection(wc: WorstCaseResult, lsb: number | null, fullScale: number): Section {
-  const figures = [wc.worstRipple, wc.droop, ...(wc.inl ? [wc.inl] : []), wc.settlingTime];
+  const figures = [wc.worstRipple, wc.droop, ...(wc.inl ? [wc.inl] : []), ...(wc.gain ? [wc.gain] : []), wc.settlingTime];
   const nominalValue = (f: WorstCaseFigure): number | null => {
     const n = wc.nominal;
     switch (f.figure) {
@@ -134,6 +143,8 @@ function worstCaseSection(wc: WorstCaseResult, lsb: number | null, fullScale: nu
         return n.droop.error;
       case 'inl':
         return n.inl?.error ?? 0;
+      case 'gain':
+        return n.gain ?? 0;
       case 'settling':
         return n.settlingTime;
     }
@@ -207,7 +218,7 @@ function monteCarloSection(mc: MonteCarloResult, lsb: number | null, fullScale: 
   if (mc.values.engineSamples > 0) {
     pairs.push(['note', `${mc.values.engineSamples} samples used the engine's matrix-exponential path`]);
   }
-  const specRows = (['ripple', 'droop', 'inl', 'settling'] as const)
+  const specRows = (['ripple', 'droop', 'inl', 'gain', 'settling'] as const)
     .filter((k) => mc.yieldBySpec[k] !== undefined)
     .map((k) => [FIGURE_NAMES[k], percent4(mc.yieldBySpec[k]!)]);
   const volts = (v: number) => voltsAndLsb(tidy(v, fullScale), lsb);
@@ -224,6 +235,7 @@ function monteCarloSection(mc: MonteCarloResult, lsb: number | null, fullScale: 
     row('worst ripple', mc.percentiles.worstRipple, volts, limits.ripple),
     row('|droop|', mc.percentiles.droop, volts, limits.droop),
     ...(mc.percentiles.inl ? [row('|INL|', mc.percentiles.inl, volts, limits.inl)] : []),
+    ...(mc.percentiles.gain ? [row('|gain error|', mc.percentiles.gain, ofFullScale, limits.gain)] : []),
     row('settling time', mc.percentiles.settlingTime, seconds, limits.settling),
   ];
   const blocks: Block[] = [{ kind: 'pairs', pairs }];
@@ -314,7 +326,7 @@ const percent4 = (x: number) => `${(100 * x).toFixed(2)} %`;
 
 function verdictText(study: ToleranceStudy): string {
   const { worstCase: wc, monteCarlo: mc } = study;
-  const failing = [wc.worstRipple, wc.droop, wc.inl, wc.settlingTime]
+  const failing = [wc.worstRipple, wc.droop, wc.inl, wc.gain, wc.settlingTime]
     .filter((f): f is WorstCaseFigure => f !== null && f.pass === false)
     .map((f) => FIGURE_NAMES[f.figure]);
   const parts: string[] = [];
@@ -355,6 +367,7 @@ function toleranceJson(project: Project, study: ToleranceStudy, bins: number): s
       worstRipple: figure(wc.worstRipple),
       droop: figure(wc.droop),
       inl: figure(wc.inl),
+      gain: figure(wc.gain),
       settlingTime: figure(wc.settlingTime),
       evaluations: wc.evaluations,
       pass: wc.pass,

@@ -32,8 +32,9 @@ export async function toleranceStudy(
   ladder: Ladder = ladderFromProject(project),
   options: ParallelOptions = {},
 ): Promise<ToleranceStudyResult> {
-  const wc = worstCase(project, ladder, { confirmWithEngine: true });
-  const mc = await monteCarloParallel(project, ladder, options);
+  // The command's study covers the gain check too (model.md 1.1), as analyze and check do.
+  const wc = worstCase(project, ladder, { confirmWithEngine: true, gain: true });
+  const mc = await monteCarloParallel(project, ladder, { ...options, gain: true });
   const warnings = plausibilityWarnings(project, warningFigures(ladder, project.pwm.duty.min, project.pwm.duty.max));
   return { worstCase: wc, monteCarlo: mc, pass: wc.pass && mc.pass, warnings };
 }

@@ -2,6 +2,8 @@
  * Plausibility warnings, the default gain check and `check --strict`, end to end through the built
  * command (model.md "Version 1.1 additions": Warnings, Full scale).
  */
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { root, runBuilt } from './runBuilt.js';
@@ -97,5 +99,27 @@ describe('warnings is always present in the JSON', () => {
     expect(json(['analyze', sample, '--format', 'json']).body.warnings).toEqual([]);
     const t = json(['tolerance', sample, '--format', 'json', '--samples', '200', '--workers', '1']);
     expect(t.body.warnings).toEqual([]);
+  });
+});
+
+describe('tolerance covers the gain check', () => {
+  it('finds the worst gain error and its yield when spec.gain limits it', () => {
+    // the fan sample with its droop limit swapped for a gain limit of 0.5 % of full scale
+    const text = readFileSync(join(root, 'sample-configs', 'tolerance-fan-reference.yaml'), 'utf8');
+    expect(text).toMatch(/^ {2}droop: 1 %$/m);
+    const path = join(mkdtempSync(join(tmpdir(), 'dacsmith-gain-')), 'fan-gain.yaml');
+    writeFileSync(path, text.replace(/^ {2}droop: 1 %$/m, '  gain: 0.5 %'));
+    const nominal = json(['analyze', path, '--format', 'json']).body.checks.find((c: { name: string }) => c.name === 'gain');
+    const t = json(['tolerance', path, '--format', 'json', '--samples', '300', '--workers', '1']);
+    expect(t.code).toBe(1);
+    const gain = t.body.worstCase.gain;
+    expect(gain.limit).toBe(0.005);
+    // the worst case is at least the nominal circuit's gain error (analyze's check value)
+    expect(Math.abs(gain.value)).toBeGreaterThanOrEqual(nominal.value * (1 - 1e-9));
+    expect(t.body.worstCase.nominal.gain).toBeCloseTo(nominal.value, 9);
+    expect(t.body.monteCarlo.yieldBySpec.gain).toBeGreaterThanOrEqual(0);
+    expect(t.body.monteCarlo.percentiles.gain.p50).toBeGreaterThan(0);
+    const report = runBuilt(['tolerance', path, '--no-charts', '--samples', '300', '--workers', '1']).stdout;
+    expect(report).toMatch(/gain error\s+[\d.]+ % of full scale\s+[\d.]+ % of full scale\s+0\.5 % of full scale\s+FAIL/);
   });
 });
