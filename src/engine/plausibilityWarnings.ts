@@ -132,10 +132,11 @@ export function plausibilityWarnings(project: Project, figures: WarningFigures):
       load.resistance !== undefined
         ? `the load (${formatEng(load.resistance, 'Ω', 3)}) and the series resistance form a divider; a larger load resistance, smaller series resistors or a buffer keep the span`
         : 'check the driver resistances and the filter values';
-    const given = [spec.droop !== undefined ? 'spec.droop' : null, spec.inl !== undefined ? 'spec.inl' : null].filter((k) => k !== null);
-    const why = given.length > 0 ? ` because ${given.join(' and ')} ${given.length > 1 ? 'are' : 'is'} given` : ' (spec.gain: none)';
-    // model.md 1.1: with droop or INL limited there is no default gain check, so say what is unchecked
-    const unchecked = spec.gain === undefined ? ` No gain check limits the span: spec.gain is off${why}.` : '';
+    // model.md 1.1: with INL limited there is no default gain check, and INL alone (an endpoint
+    // fit) cannot see a span loss: say that nothing checks it. A droop limit does bound it.
+    const why = spec.inl !== undefined ? ' because spec.inl is given' : ' (spec.gain: none)';
+    const unchecked =
+      spec.gain === undefined && spec.droop === undefined ? ` No check limits the span: spec.gain is off${why} and spec.droop is not set.` : '';
     warnings.push({
       key: load.resistance !== undefined ? 'load.resistance' : 'filter.stages',
       message:

@@ -66,7 +66,7 @@ describe('a 100k / 10u stage into 10 kohm, INL limited and droop not', () => {
     expect(w.key).toBe('load.resistance');
     // Ohm's law: k = 10k / (10k + 100k + 30) = 0.0909 of the ideal span
     expect(w.message).toContain('9.1 % of the ideal 2.97 V');
-    expect(w.message).toContain('spec.gain is off because spec.inl is given');
+    expect(w.message).toContain('No check limits the span: spec.gain is off because spec.inl is given');
     // signs (README "Sign convention"): the output is short of ideal, so DC and gain errors are positive
     expect(r.body.dc.droop.error).toBeGreaterThan(0);
     expect(r.body.dc.gainError).toBeCloseTo(3.3 * (1 - 10e3 / (10e3 + 100e3 + 30)), 6);

@@ -83,9 +83,12 @@ describe('analysis rules', () => {
     const loaded = { ...oneStageProject({ loadResistance: 10e3 }), spec: { inl: 1e-3 } };
     const [w] = plausibilityWarnings(loaded, { ...calm, outputSpan: 0.5 * 0.9 * 3.3 });
     expect(w.key).toBe('load.resistance');
-    expect(w.message).toContain('spec.gain is off because spec.inl is given');
+    expect(w.message).toContain('No check limits the span: spec.gain is off because spec.inl is given');
     const checked = plausibilityWarnings({ ...loaded, spec: { gain: 0.02 } }, { ...calm, outputSpan: 0.5 * 0.9 * 3.3 });
     expect(checked[0].message).not.toContain('spec.gain is off');
+    // a droop limit bounds the DC error, so the span loss is checked after all
+    const droop = plausibilityWarnings({ ...loaded, spec: { inl: 1e-3, droop: 1e-3 } }, { ...calm, outputSpan: 0.5 * 0.9 * 3.3 });
+    expect(droop[0].message).not.toContain('No check limits');
   });
 
   it('finds the span loss of a resistive divider in a full analysis, and nothing in a sound design', () => {
