@@ -89,7 +89,11 @@ export function analyzeCommand(
         .example('$0 analyze board.yaml', 'Full report with charts')
         .example('$0 analyze board.yaml --duty 25% --duty 0.75', 'Report at two chosen duties')
         .example('$0 analyze board.yaml --format json', 'One JSON object, SI units')
-        .example('$0 analyze board.yaml --no-charts --csv w.csv', 'Tables only; waveforms to w.csv') as unknown as Argv<AnalyzeArgs>,
+        .example('$0 analyze board.yaml --no-charts --csv w.csv', 'Tables only; waveforms to w.csv')
+        .epilogue(
+          'Exit codes: 0 every spec holds, 1 a spec fails, 2 bad input. Warnings (values that are probably a typing slip, ' +
+            "such as a load typed as 1m for 1M) are printed under 'Warnings' and never change the exit code; 'check --strict' fails on them.",
+        ) as unknown as Argv<AnalyzeArgs>,
     handler: (args) => run(() => runAnalyze(args, { color: args.format === 'text' && color() })),
   };
 }

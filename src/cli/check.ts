@@ -7,6 +7,8 @@ export interface CheckArgs {
   files: string[];
   format: CheckFormat;
   quiet: boolean;
+  /** Warnings count as failures (exit 1). */
+  strict?: boolean;
 }
 
 /** Exit code of a set of results: 2 when any file is invalid, else 1 when any spec fails, else 0. */
@@ -17,7 +19,8 @@ export function checkExitCode(files: CheckedFile[]): number {
 
 /**
  * Run `check`: load and analyse every file, keep going past invalid ones, render one line (or
- * row) per file. Messages about invalid files go to standard error in every format.
+ * row) per file. Messages about invalid files go to standard error in every format. Warnings
+ * never change the exit code, except with `strict`, where a file with a warning fails (exit 1).
  *
  * Syntax: runCheck(args, { color })
  * Example: await runCheck({ files: ['a.yaml', 'b.yaml'], format: 'text', quiet: false }, { color: false })
@@ -32,19 +35,21 @@ export async function runCheck(args: CheckArgs, tty: { color: boolean }): Promis
     import('../engine/analyze.js'),
     import('../report/check.js'),
   ]);
+  const strict = args.strict ?? false;
   const results: CheckedFile[] = args.files.map((file) => {
     try {
       const project = requireFilter(loadProject(file), 'check');
       const analysis = analyzeProject(project);
-      return { file, pass: analysis.pass, checks: analysis.checks, lsb: analysis.lsb };
+      const pass = analysis.pass && !(strict && analysis.warnings.length > 0);
+      return { file, pass, checks: analysis.checks, warnings: analysis.warnings, lsb: analysis.lsb };
     } catch (error) {
       const { code, message } = describeError(error);
       if (code !== EXIT_BAD_INPUT) throw error; // a bug, not a bad file: do not hide it
-      return { file, pass: false, checks: [], lsb: null, error: message };
+      return { file, pass: false, checks: [], warnings: [], lsb: null, error: message };
     }
   });
   const stderr = results.flatMap((r) => (r.error !== undefined ? [`${r.error}\n`] : [])).join('');
-  const stdout = args.quiet ? '' : renderCheck(results, args.format, { color: tty.color });
+  const stdout = args.quiet ? '' : renderCheck(results, args.format, { color: tty.color, strict });
   return { stdout, stderr, code: checkExitCode(results) };
 }
 
@@ -70,10 +75,19 @@ export function checkCommand(
           default: 'text' as const,
         })
         .option('quiet', { alias: 'q', describe: 'Print nothing but errors; the exit code tells', type: 'boolean', default: false })
+        .option('strict', {
+          describe: 'Treat plausibility warnings (a part value or span that is probably a typing slip) as failures: exit 1',
+          type: 'boolean',
+          default: false,
+        })
         .example('$0 check dacsmith.yaml', 'PASS or FAIL with the failing specs, exit code 0 or 1')
         .example('$0 check boards/*.yaml --quiet', 'Only the exit code (and errors), for scripts')
+        .example('$0 check boards/*.yaml --strict', 'Also fail (exit 1) on a warning, e.g. a load typed as 1m (milliohm)')
         .example('$0 check boards/*.yaml --format markdown >> "$GITHUB_STEP_SUMMARY"', 'A table for a CI job summary')
-        .epilogue('Exit codes: 0 every file passes, 1 a spec fails, 2 a file is invalid (the others are still checked).') as unknown as Argv<CheckArgs>,
+        .epilogue(
+          'Exit codes: 0 every file passes, 1 a spec fails (with --strict: or a file has a warning), 2 a file is invalid (the others are still checked). ' +
+            'Without --strict a warning is printed but never changes the exit code.',
+        ) as unknown as Argv<CheckArgs>,
     handler: (args) => run(() => runCheck(args, { color: args.format === 'text' && color() })),
   };
 }

@@ -92,7 +92,7 @@ export function compareCommand(
         .example('$0 compare old.yaml new.yaml', 'Two files side by side')
         .example('$0 compare dacsmith.yaml --git main', 'The file against its version on branch main')
         .example('$0 compare dacsmith.yaml --git HEAD --format markdown >> "$GITHUB_STEP_SUMMARY"', 'Uncommitted changes, as Markdown for a CI summary')
-        .epilogue("Exit codes: 0 the head passes its spec, 1 it fails, 2 bad input (a file, or git).") as unknown as Argv<CompareArgs>,
+        .epilogue("Exit codes: 0 the head passes its spec, 1 it fails, 2 bad input (a file, or git). Warnings shown are the head's; they never change the exit code.") as unknown as Argv<CompareArgs>,
     handler: (args) => run(() => runCompare(args, { color: args.format === 'text' && color() })),
   };
 }

@@ -127,7 +127,8 @@ export function toleranceCommand(
         .option('charts', { describe: 'Draw the histograms (--no-charts to leave them out)', type: 'boolean', default: true })
         .example('$0 tolerance board.yaml', 'Worst case, yield and histograms')
         .example('$0 tolerance board.yaml --samples 100000 --seed 7', 'A larger, reproducible run')
-        .example('$0 tolerance board.yaml --format json', 'One JSON object, SI units') as unknown as Argv<ToleranceArgs>,
+        .example('$0 tolerance board.yaml --format json', 'One JSON object, SI units')
+        .epilogue('Exit codes: 0 every limit holds at the worst case and the yield meets its target, 1 not, 2 bad input. Warnings never change the exit code.') as unknown as Argv<ToleranceArgs>,
     handler: (args) =>
       run(() =>
         runTolerance(args, {

@@ -10,13 +10,15 @@ import {
   pinPeakCurrent as pinPeak,
   settlingTime,
   steadyState,
-  timeConstants as ladderTimeConstants,
   worstRipple as findWorstRipple,
 } from './index.js';
 import { specChecks, type Check } from './checks.js';
+import { plausibilityWarnings, type Warning } from './plausibilityWarnings.js';
+import { warningFigures } from './warningFigures.js';
 import type { DcTransfer, OperatingPoint, Settling, WorstRipple } from './types.js';
 
 export type { Check } from './checks.js';
+export type { Warning } from './plausibilityWarnings.js';
 
 /** Everything `analyze` reports about one project, SI base units throughout. */
 export interface Analysis {
@@ -29,7 +31,7 @@ export interface Analysis {
   settling: Settling;
   /** -3 dB frequency, Hz. */
   cutoff: number;
-  /** Small-signal gain at the PWM frequency relative to DC, dB (negative). */
+  /** Attenuation at the PWM frequency relative to DC, dB (positive: -20 log10 |H(f_pwm)/H(0)|). */
   attenuation: number;
   /** A. */
   pinPeakCurrent: number;
@@ -40,6 +42,8 @@ export interface Analysis {
   checks: Check[];
   /** Every check passes (true when there are no checks). */
   pass: boolean;
+  /** Values that are legal but probably not meant (plausibilityWarnings.ts); never change `pass`. */
+  warnings: Warning[];
 }
 
 export interface AnalyzeOptions {
@@ -57,7 +61,7 @@ export function defaultBand(project: Project): number {
 
 /**
  * Analyse a project: operating points, worst ripple, DC transfer, settling, cutoff, attenuation at
- * the PWM frequency, pin current, time constants, and the spec checks.
+ * the PWM frequency, pin current, time constants, the spec checks and the plausibility warnings.
  *
  * Method: every figure comes from the exact engine (src/engine); this function only chooses the
  * duties and the settling step and compares the results with the spec (see checks.ts).
@@ -88,6 +92,7 @@ export function analyzeProject(project: Project, options: AnalyzeOptions = {}): 
   const dc = dcTransfer(ladder, dMin, dMax);
   const peak = pinPeak(ladder);
   const checks = specChecks(project, { worstRipple, dc, settling, pinPeakCurrent: peak });
+  const figures = warningFigures(ladder, dMin, dMax);
 
   return {
     ladder,
@@ -96,12 +101,13 @@ export function analyzeProject(project: Project, options: AnalyzeOptions = {}): 
     dc,
     settling,
     cutoff: cutoffFrequency(ladder),
-    attenuation: 20 * Math.log10(magnitude(ladder, 1 / ladder.period)),
+    attenuation: -20 * Math.log10(magnitude(ladder, 1 / ladder.period)),
     pinPeakCurrent: peak,
-    timeConstants: ladderTimeConstants(ladder),
+    timeConstants: figures.timeConstants,
     lsb: project.lsb ?? null,
     checks,
     pass: checks.every((c) => c.pass),
+    warnings: plausibilityWarnings(project, figures),
   };
 }
 

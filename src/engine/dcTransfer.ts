@@ -8,12 +8,14 @@ import { prepare } from './prepare.js';
 import type { SteadyMethod } from './steadyState.js';
 
 /**
- * DC transfer errors of the PWM DAC over the used range [dutyMin, dutyMax], all in V:
+ * DC transfer errors of the PWM DAC over the used range [dutyMin, dutyMax], all in V, every one
+ * signed as ideal minus actual (README "Sign convention"; model.md defines DC error so):
  * - droop: the DC error ideal - average with the largest magnitude (sign kept) and its duty,
  *   ideal = low + D (high - low);
  * - endpoint fit: the line through average(dutyMin) and average(dutyMax); offsetError =
- *   fit(0) - ideal(0), gainError = (fit(1) - fit(0)) - (high - low);
- * - inl: the largest deviation average - fit (sign kept) and its duty.
+ *   ideal(0) - fit(0), gainError = (high - low) - (fit(1) - fit(0));
+ * - inl: the largest deviation fit - average (sign kept) and its duty.
+ * A positive value means the output falls short of the ideal (or of the endpoint line).
  * With a single duty (dutyMin = dutyMax) the fit takes the ideal slope.
  *
  * Method: exact averages (averageOutput.ts; with method 'expm' always by matrix exponentials,
@@ -37,12 +39,12 @@ export function dcTransfer(ladder: Ladder, dutyMin: number, dutyMax: number, met
   const yMax = average(dutyMax);
   const slope = dutyMax > dutyMin ? (yMax - yMin) / (dutyMax - dutyMin) : span;
   const fit = (d: number) => yMin + slope * (d - dutyMin);
-  const deviation = (d: number) => average(d) - fit(d);
+  const deviation = (d: number) => fit(d) - average(d);
   const inlAt = maximizeOnInterval((d) => Math.abs(deviation(d)), dutyMin, dutyMax).x;
   return {
     droop: { duty: droopAt, error: error(droopAt) },
-    offsetError: fit(0) - ideal(0),
-    gainError: slope - span,
+    offsetError: ideal(0) - fit(0),
+    gainError: span - slope,
     inl: { duty: inlAt, error: deviation(inlAt) },
   };
 }

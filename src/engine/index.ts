@@ -13,3 +13,5 @@ export { steadyWaveform } from './steadyWaveform.js';
 export { stepWaveform } from './stepWaveform.js';
 export { stepWaveformOnGrid } from './stepWaveformOnGrid.js';
 export type { OperatingPoint, WorstRipple, DcTransfer, Settling, Waveform } from './types.js';
+export { plausibilityWarnings, partValueWarnings, PLAUSIBLE, type Warning, type WarningFigures } from './plausibilityWarnings.js';
+export { warningFigures } from './warningFigures.js';

@@ -20,15 +20,15 @@ export interface WorstRipple {
   ripple: number;
 }
 
-/** DC transfer average(D) over the used range, errors in V (report converts to LSB). */
+/** DC transfer average(D) over the used range, errors in V signed ideal minus actual (report converts to LSB). */
 export interface DcTransfer {
   /** Largest |ideal - average| over the used range and where it happens. Sign kept. */
   droop: { duty: number; error: number };
-  /** Endpoint-fit offset error at duty 0, V. */
+  /** Endpoint-fit offset error at duty 0, ideal(0) - fit(0), V. */
   offsetError: number;
-  /** Endpoint-fit gain error over the full scale, V. */
+  /** Endpoint-fit gain error over the full scale, (high - low) - (fit(1) - fit(0)), V. */
   gainError: number;
-  /** Largest deviation of average(D) from the endpoint line, V (signed), and where. */
+  /** Largest deviation fit(D) - average(D) from the endpoint line, V (signed), and where. */
   inl: { duty: number; error: number };
 }
 

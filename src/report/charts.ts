@@ -138,7 +138,7 @@ export function reportCharts(
       x: { start: fLo, end: fHi, unit: 'Hz', log: true },
       markers: [
         { x: analysis.cutoff, symbol: 'c', label: `cutoff ${formatEng(analysis.cutoff, 'Hz', 3)}` },
-        { x: fPwm, symbol: 'P', label: `PWM frequency ${formatEng(fPwm, 'Hz', 3)}: ${analysis.attenuation.toFixed(1)} dB` },
+        { x: fPwm, symbol: 'P', label: `PWM frequency ${formatEng(fPwm, 'Hz', 3)}: gain ${(-analysis.attenuation).toFixed(1)} dB` },
       ],
       colors,
     }),

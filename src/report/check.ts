@@ -1,13 +1,16 @@
 import type { Check } from '../engine/checks.js';
+import type { Warning } from '../engine/plausibilityWarnings.js';
 import { formatEng } from '../units/index.js';
 import { palette } from './color.js';
 
 /** What `check` found for one file: its spec checks, or why it could not be read. */
 export interface CheckedFile {
   file: string;
-  /** Every check holds (false when the file is invalid). */
+  /** Every check holds (false when the file is invalid; with --strict, also false on a warning). */
   pass: boolean;
   checks: Check[];
+  /** Plausibility warnings of the file (empty when none or invalid). */
+  warnings: Warning[];
   /** LSB of the project, V (null when unknown or invalid). */
   lsb: number | null;
   /** The message when the file is invalid (FILE:LINE:COL: key.path: message). */
@@ -19,46 +22,60 @@ export type CheckFormat = 'text' | 'markdown' | 'json';
 export interface CheckRenderOptions {
   /** ANSI colour for the text format (default false). */
   color?: boolean;
+  /** `check --strict`: warnings count as failures (default false). */
+  strict?: boolean;
+}
+
+/** A check value or limit: a fraction of full scale ('1') in percent, else engineering units. */
+function quantity(x: number, unit: Check['unit'], digits: number): string {
+  return unit === '1' ? `${Number((100 * x).toPrecision(digits))} % of full scale` : formatEng(x, unit, digits);
 }
 
 /**
  * A value and its limit in engineering units, with enough digits that they read differently when
  * they differ (a ripple just over its limit must not print as '1.61 mV > 1.61 mV').
  */
-function valueAndLimit(value: number, limit: number, unit: string): [string, string] {
+function valueAndLimit(value: number, limit: number, unit: Check['unit']): [string, string] {
   for (let digits = 3; digits < 8; digits++) {
-    const pair: [string, string] = [formatEng(value, unit, digits), formatEng(limit, unit, digits)];
+    const pair: [string, string] = [quantity(value, unit, digits), quantity(limit, unit, digits)];
     if (pair[0] !== pair[1] || value === limit) return pair;
   }
-  return [formatEng(value, unit, 8), formatEng(limit, unit, 8)];
+  return [quantity(value, unit, 8), quantity(limit, unit, 8)];
 }
 
 /** 'ripple 4.12 mV > 1.61 mV' or 'settling never settles (limit 20 ms)'. */
 function failure(c: Check): string {
-  if (c.value === null) return `${c.name} never settles (limit ${formatEng(c.limit, c.unit, 3)})`;
+  if (c.value === null) return `${c.name} never settles (limit ${quantity(c.limit, c.unit, 3)})`;
   const [value, limit] = valueAndLimit(c.value, c.limit, c.unit);
   return `${c.name} ${value} > ${limit}`;
 }
 
-/** What a line says after the verdict. */
-function details(f: CheckedFile): string {
+const count = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
+
+/** What a line says after the verdict; warnings are counted, and named as failures with --strict. */
+function details(f: CheckedFile, strict: boolean): string {
   if (f.error !== undefined) return f.error;
-  if (f.checks.length === 0) return 'no spec limits given';
   const failed = f.checks.filter((c) => !c.pass);
-  if (failed.length === 0) return f.checks.length === 1 ? '1 check holds' : `${f.checks.length} checks hold`;
-  return failed.map(failure).join(', ');
+  const w = f.warnings.length;
+  const parts: string[] = [];
+  if (f.checks.length === 0) parts.push('no spec limits given');
+  else if (failed.length === 0) parts.push(f.checks.length === 1 ? '1 check holds' : `${f.checks.length} checks hold`);
+  else parts.push(failed.map(failure).join(', '));
+  if (w > 0) parts.push(strict ? `${count(w, 'warning')} (strict: fails): ${f.warnings.map((x) => x.key).join(', ')}` : count(w, 'warning'));
+  return parts.join('; ');
 }
 
 const verdictOf = (f: CheckedFile): 'PASS' | 'FAIL' | 'INVALID' => (f.error !== undefined ? 'INVALID' : f.pass ? 'PASS' : 'FAIL');
 
 /** 'all 3 files pass' / '1 of 3 files fails its spec, 1 invalid'. */
-function summary(files: CheckedFile[]): string {
+function summary(files: CheckedFile[], strict: boolean): string {
   const n = files.length;
   const invalid = files.filter((f) => f.error !== undefined).length;
   const failing = files.filter((f) => f.error === undefined && !f.pass).length;
   if (invalid === 0 && failing === 0) return n === 1 ? 'the file passes its spec' : `all ${n} files pass their spec`;
   const parts: string[] = [];
-  if (failing > 0) parts.push(`${failing} of ${n} file${n > 1 ? 's' : ''} ${failing > 1 ? 'fail their' : 'fails its'} spec`);
+  const what = strict ? ' (or warn: --strict)' : '';
+  if (failing > 0) parts.push(`${failing} of ${n} file${n > 1 ? 's' : ''} ${failing > 1 ? 'fail their' : 'fails its'} spec${what}`);
   if (invalid > 0) parts.push(`${invalid} of ${n} file${n > 1 ? 's' : ''} ${invalid > 1 ? 'are' : 'is'} invalid`);
   return parts.join(', ');
 }
@@ -66,18 +83,27 @@ function summary(files: CheckedFile[]): string {
 /** Escape what would end a GitHub-flavoured Markdown table cell. */
 const cell = (s: string) => s.replace(/\\/g, '\\\\').replace(/\|/g, '\\|').replace(/\r?\n/g, ' ');
 
+/** Every file's warnings, `file: key: message`. */
+const warningLines = (files: CheckedFile[]) => files.flatMap((f) => f.warnings.map((w) => `${f.file}: ${w.key}: ${w.message}`));
+
 /**
  * Render the results of `check`:
  * - `text`: one line per valid file, `PASS  file  (n checks hold)` or
- *   `FAIL  file  ripple 4.12 mV > 1.61 mV, ...` (invalid files are left to standard error);
- * - `markdown`: a heading, a verdict line and a table (file, result, details) for a CI summary;
- * - `json`: `{ files: [{ file, pass, checks, error? }], pass }`, SI units, nothing else.
+ *   `FAIL  file  ripple 4.12 mV > 1.61 mV, ...` (invalid files are left to standard error), then a
+ *   "Warnings" heading with one line per warning when there are any;
+ * - `markdown`: a heading, a verdict line and a table (file, result, details) for a CI summary, and
+ *   a "Warnings" list when there are any;
+ * - `json`: `{ files: [{ file, pass, checks, warnings, error? }], warnings: [{ file, key, message }],
+ *   strict, pass }`, SI units, nothing else.
+ * With `strict` (check --strict) a warning is a failure: the caller sets `pass` so, and the details
+ * name the warned keys.
  *
- * Syntax: renderCheck(files, format[, { color }])
- * Example: renderCheck([{ file: 'a.yaml', pass: true, checks: [], lsb: null }], 'text')
+ * Syntax: renderCheck(files, format[, { color, strict }])
+ * Example: renderCheck([{ file: 'a.yaml', pass: true, checks: [], warnings: [], lsb: null }], 'text')
  *          // 'PASS  a.yaml  (no spec limits given)\n'
  */
 export function renderCheck(files: CheckedFile[], format: CheckFormat, options: CheckRenderOptions = {}): string {
+  const strict = options.strict ?? false;
   const pass = files.every((f) => f.pass && f.error === undefined);
   if (format === 'json') {
     const body = {
@@ -85,23 +111,29 @@ export function renderCheck(files: CheckedFile[], format: CheckFormat, options: 
         file: f.file,
         pass: f.pass && f.error === undefined,
         checks: f.checks,
+        warnings: f.warnings,
         ...(f.error !== undefined ? { error: f.error } : {}),
       })),
+      warnings: files.flatMap((f) => f.warnings.map((w) => ({ file: f.file, ...w }))),
+      strict,
       pass,
     };
     return JSON.stringify(body, null, 2) + '\n';
   }
 
+  const warned = warningLines(files);
   if (format === 'markdown') {
-    const rows = files.map((f) => `| ${cell(f.file)} | ${verdictOf(f)} | ${cell(details(f))} |`);
+    const rows = files.map((f) => `| ${cell(f.file)} | ${verdictOf(f)} | ${cell(details(f, strict))} |`);
+    const warnings = warned.length > 0 ? ['', '### Warnings', '', ...warned.map((w) => `- ${w}`), ''] : [];
     return [
       '## dacsmith check',
       '',
-      `**${pass ? 'PASS' : 'FAIL'}**: ${summary(files)}.`,
+      `**${pass ? 'PASS' : 'FAIL'}**: ${summary(files, strict)}.`,
       '',
       '| File | Result | Details |',
       '|:---|:---|:---|',
       ...rows,
+      ...warnings,
       '',
     ].join('\n');
   }
@@ -111,8 +143,9 @@ export function renderCheck(files: CheckedFile[], format: CheckFormat, options: 
   const width = Math.max(0, ...valid.map((f) => f.file.length));
   const lines = valid.map((f) =>
     f.pass
-      ? `${paint.good('PASS')}  ${f.file.padEnd(width)}  (${details(f)})`
-      : `${paint.bad('FAIL')}  ${f.file.padEnd(width)}  ${details(f)}`,
+      ? `${paint.good('PASS')}  ${f.file.padEnd(width)}  (${details(f, strict)})`
+      : `${paint.bad('FAIL')}  ${f.file.padEnd(width)}  ${details(f, strict)}`,
   );
+  if (warned.length > 0) lines.push('', paint.bold('Warnings'), ...warned.map((w) => `  - ${w}`));
   return lines.length > 0 ? lines.join('\n') + '\n' : '';
 }

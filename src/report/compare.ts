@@ -105,6 +105,7 @@ function inputsOf(p: Project, stageCount: number): InputRow[] {
     { key: 'spec.ripple', label: 'ripple limit', unit: 'V', value: spec.ripple ?? null },
     { key: 'spec.droop', label: 'droop limit', unit: 'V', value: spec.droop ?? null },
     { key: 'spec.inl', label: 'INL limit', unit: 'V', value: spec.inl ?? null },
+    { key: 'spec.gain', label: 'gain error limit (of full scale)', unit: 'fraction', value: spec.gain ?? null },
     { key: 'spec.settling.band', label: 'settling band', unit: 'V', value: spec.settling?.band ?? null },
     { key: 'spec.settling.time', label: 'settling time limit', unit: 's', value: spec.settling?.time ?? null },
     { key: 'spec.settling.from', label: 'settling step from', unit: 'fraction', value: spec.settling?.from ?? null },
@@ -133,6 +134,7 @@ const FIGURES: Array<{ key: string; label: string; unit: string; get: (a: Analys
   { key: 'worstRipple', label: 'worst ripple (peak-to-peak)', unit: 'V', get: (a) => a.worstRipple.ripple },
   { key: 'droop', label: 'droop (largest DC error)', unit: 'V', get: (a) => Math.abs(a.dc.droop.error) },
   { key: 'inl', label: 'INL (endpoint fit)', unit: 'V', get: (a) => Math.abs(a.dc.inl.error) },
+  { key: 'gainError', label: 'gain error (endpoint fit, ideal - actual)', unit: 'V', get: (a) => a.dc.gainError },
   { key: 'settlingTime', label: 'settling time', unit: 's', get: (a) => a.settling.time },
   { key: 'cutoff', label: 'cutoff (-3 dB)', unit: 'Hz', get: (a) => a.cutoff },
   { key: 'attenuation', label: 'attenuation at the PWM frequency', unit: 'dB', get: (a) => a.attenuation },
@@ -300,15 +302,18 @@ function showFigure(v: number | null, unit: string, key: string): string {
   return unit === 'dB' ? `${v.toFixed(1)} dB` : formatEng(v, unit, 4);
 }
 
+/** A check value or limit: a fraction of full scale (unit '1') in percent, else engineering units. */
+const checkText = (x: number, unit: string) => (unit === '1' ? `${Number((100 * x).toPrecision(3))} % of full scale` : formatEng(x, unit, 3));
+
 function showCheckSide(c: CheckSide | null, unit: string): string {
   if (c === null) return '-';
-  const value = c.value === null ? 'never settles' : formatEng(c.value, unit, 3);
+  const value = c.value === null ? 'never settles' : checkText(c.value, unit);
   return `${value} ${c.pass ? 'pass' : 'FAIL'}`;
 }
 
 function showLimit(r: CheckRow): string {
-  const b = r.base ? formatEng(r.base.limit, r.unit, 3) : null;
-  const h = r.head ? formatEng(r.head.limit, r.unit, 3) : null;
+  const b = r.base ? checkText(r.base.limit, r.unit) : null;
+  const h = r.head ? checkText(r.head.limit, r.unit) : null;
   if (b === null) return h as string;
   if (h === null || b === h) return b;
   return `${b} -> ${h}`;
@@ -321,6 +326,8 @@ interface Sections {
   inputs: { header: string[]; rows: string[][] };
   figures: { header: string[]; rows: string[][] };
   checks: { header: string[]; rows: string[][] };
+  /** The head's warnings, `key: message`. */
+  warnings: string[];
   charts: Array<{ title: string; body: string }>;
 }
 
@@ -346,7 +353,9 @@ function verdictText(checks: CheckRow[], headPass: boolean, inputsChanged: numbe
  *
  * Formats: `text` for a terminal; `markdown` for a pull-request comment or a CI job summary (a
  * heading, a verdict line, GFM tables, charts in fenced blocks); `json`: { base, head, inputs,
- * figures, checks, waveforms, pass }, SI units, `pass` being the head's.
+ * figures, checks, warnings, waveforms, pass }, SI units, `pass` and `warnings` being the head's.
+ * The head's warnings are printed under "Warnings (head)" after the checks (compare prints no
+ * cautions); they never change `pass`.
  *
  * Method: every number comes from the engine's analyses; charts sample the engine's waveforms
  * (`steadyWaveform`, `stepWaveform`) on one time grid for both sides, by linear interpolation.
@@ -375,6 +384,7 @@ export function compareReport(base: CompareSide, head: CompareSide, format: Comp
       inputs,
       figures,
       checks,
+      warnings: head.analysis.warnings,
       waveforms: { steady: { duty, ...steady, quantity: 'output minus ideal, V' }, step: { from, to, ...step, quantity: 'output, V' } },
       pass,
     };
@@ -399,6 +409,7 @@ export function compareReport(base: CompareSide, head: CompareSide, format: Comp
       header: ['check', 'limit', 'base', 'head', 'status'],
       rows: checks.map((c) => [c.name, showLimit(c), showCheckSide(c.base, c.unit), showCheckSide(c.head, c.unit), status(c.status)]),
     },
+    warnings: head.analysis.warnings.map((w) => `${w.key}: ${w.message}`),
     charts: [
       {
         title: `Steady state at duty ${pct(duty)} (head's worst ripple): output minus ideal`,
@@ -423,6 +434,7 @@ export function compareReport(base: CompareSide, head: CompareSide, format: Comp
     out.push(doc.inputs.rows.length > 0 ? gfm(doc.inputs) : 'No input changed.');
     out.push('', '### Figures', '', gfm(doc.figures), '', '### Spec checks', '');
     out.push(doc.checks.rows.length > 0 ? gfm(doc.checks) : 'Neither file states a spec limit.');
+    if (doc.warnings.length > 0) out.push('', '### Warnings (head)', '', ...doc.warnings.map((w) => `- ${w}`));
     for (const c of doc.charts) out.push('', `**${c.title}**`, '', '```text', c.body, legend, '```');
     return out.join('\n') + '\n';
   }
@@ -432,6 +444,7 @@ export function compareReport(base: CompareSide, head: CompareSide, format: Comp
   out.push('', paint.bold('Figures'), table(doc.figures.header, doc.figures.rows));
   out.push('', paint.bold('Spec checks'));
   out.push(doc.checks.rows.length > 0 ? table(doc.checks.header, doc.checks.rows, { align: ['left', 'right', 'right', 'right', 'left'] }) : '  Neither file states a spec limit.');
+  if (doc.warnings.length > 0) out.push('', paint.bold('Warnings (head)'), ...doc.warnings.map((w) => `  - ${w}`));
   for (const c of doc.charts) out.push('', `  ${paint.accent(c.title)}`, c.body, `  ${legend}`);
   return out.join('\n') + '\n';
 }

@@ -5,6 +5,7 @@ import { cautions } from './cautions.js';
 import { reportCharts } from './charts.js';
 import type { Block, ReportDocument, Section } from './document.js';
 import { checkQuantity, fixed, lsbCount, millivolts, percent, tidy, voltsAndLsb } from './quantities.js';
+import { warningsSection } from './warnings.js';
 
 export interface ContentOptions {
   /** Include the ASCII charts (default true). */
@@ -73,7 +74,7 @@ function pointsSection(project: Project, analysis: Analysis): Section {
     ];
   });
   return {
-    title: 'Operating points (periodic steady state)',
+    title: 'Output at each duty (steady state)',
     blocks: [{ kind: 'table', header, rows, align: header.map(() => 'right') }],
   };
 }
@@ -83,11 +84,16 @@ function specSection(project: Project, analysis: Analysis): Section {
   if (analysis.checks.length === 0) {
     return {
       title: 'Spec',
-      blocks: [{ kind: 'text', text: 'No limits given (spec.ripple, spec.droop, spec.inl, spec.settling.time, search.pin_current).' }],
+      blocks: [
+        {
+          kind: 'text',
+          text: 'No limits given (spec.ripple, spec.droop, spec.inl, spec.gain, spec.settling.time, search.pin_current); spec.gain is off (none).',
+        },
+      ],
     };
   }
   const rows = analysis.checks.map((c) => {
-    const value = c.value === null ? null : c.unit === 'V' ? tidy(c.value, fullScale) : c.value;
+    const value = c.value === null ? null : c.unit === 'V' ? tidy(c.value, fullScale) : c.unit === '1' ? tidy(c.value, 1) : c.value;
     const margin =
       value === null ? '-' : `${c.limit - value >= 0 ? '+' : ''}${checkQuantity(c.limit - value, c.unit, analysis.lsb)}`;
     return [
@@ -116,7 +122,7 @@ function figuresSection(project: Project, analysis: Analysis): Section {
     ['Worst ripple (peak-to-peak)', `${voltsAndLsb(worstRipple.ripple, lsb)} at duty ${percent(worstRipple.duty)}`],
     ['Droop (largest DC error)', `${v(dc.droop.error)}${at(dc.droop.error, dc.droop.duty)}`],
     ['Offset error (endpoint fit)', v(dc.offsetError)],
-    ['Gain error (endpoint fit)', v(dc.gainError)],
+    ['Gain error (endpoint fit)', `${v(dc.gainError)}, ${checkQuantity(tidy(dc.gainError, fullScale) / fullScale, '1', lsb)}`],
     ['INL (endpoint fit)', `${v(dc.inl.error)}${at(dc.inl.error, dc.inl.duty)}`],
     ['Cutoff (-3 dB)', formatEng(analysis.cutoff, 'Hz', 3)],
     ['Attenuation at the PWM frequency', `${analysis.attenuation.toFixed(1)} dB`],
@@ -126,13 +132,14 @@ function figuresSection(project: Project, analysis: Analysis): Section {
       settlingText,
     ],
   ];
-  return { title: 'Figures', blocks: [{ kind: 'pairs', pairs }] };
+  const signs = 'DC error, droop, offset error, gain error and INL are signed ideal minus actual: a positive value means the output is below the ideal (or the endpoint line).';
+  return { title: 'Figures', blocks: [{ kind: 'pairs', pairs }, { kind: 'text', text: signs }] };
 }
 
 /**
  * The analysis report as a document (sections of tables, lists and charts), ready for the text or
- * Markdown renderer: inputs and stages, operating points, spec checks, other figures, charts and
- * cautions, and a one-line verdict.
+ * Markdown renderer: inputs and stages, the output at each duty, spec checks, other figures, charts,
+ * warnings (when any) and cautions, and a one-line verdict (which counts the warnings).
  *
  * Syntax: reportDocument(project, analysis[, { charts, chartColors }])
  * Example: reportDocument(p, analyzeProject(p), { charts: false }).verdict.pass
@@ -148,15 +155,19 @@ export function reportDocument(project: Project, analysis: Analysis, options: Co
     const charts = reportCharts(analysis, project.pwm.duty, { colors: options.chartColors });
     sections.push({ title: 'Charts', blocks: charts.map((c) => ({ kind: 'chart', title: c.title, body: c.body })) });
   }
+  const warnings = warningsSection(analysis.warnings);
+  if (warnings) sections.push(warnings);
   sections.push({ title: 'Cautions', blocks: [{ kind: 'list', items: cautions(project, analysis) }] });
 
   const failed = analysis.checks.filter((c) => !c.pass).map((c) => c.name);
   const n = analysis.checks.length;
+  const w = analysis.warnings.length;
+  const warned = w === 0 ? '' : ` ${w} warning${w > 1 ? 's' : ''} (see Warnings).`;
   const text =
-    n === 0
+    (n === 0
       ? 'No spec limits given: nothing to check.'
       : failed.length === 0
         ? `PASS: all ${n} spec check${n > 1 ? 's' : ''} hold.`
-        : `FAIL: ${failed.join(', ')} (${failed.length} of ${n} spec checks).`;
+        : `FAIL: ${failed.join(', ')} (${failed.length} of ${n} spec checks).`) + warned;
   return { title: `dacsmith analysis of ${project.file}`, sections, verdict: { pass: analysis.pass, text } };
 }

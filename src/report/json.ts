@@ -7,7 +7,9 @@ import { cautions } from './cautions.js';
  * the design notes), numbers in SI base units: `points` {duty, average, min, max, ripple, tMin, tMax},
  * `worstRipple` {duty, ripple}, `settling` {from, to, band, time|null}, `cutoff`, `checks`
  * [{name, value, limit, pass, unit}], `pass`; and more: `dc`, `attenuation` (dB), `pinPeakCurrent`,
- * `timeConstants`, `lsb` (null when unknown), `cautions` and the normalized `inputs`.
+ * `timeConstants`, `lsb` (null when unknown), `warnings` [{key, message}] (empty when none),
+ * `cautions` and the normalized `inputs`. `dc` errors are signed ideal minus actual and
+ * `attenuation` is positive dB (README "Sign convention").
  * Non-finite numbers become null (JSON has none).
  *
  * Syntax: jsonReport(project, analysis)

@@ -8,6 +8,7 @@ import { formatEng } from '../units/index.js';
 import type { Block, ReportDocument, Section } from './document.js';
 import { percent, tidy, voltsAndLsb } from './quantities.js';
 import { renderDocument } from './renderDocument.js';
+import { warningsSection } from './warnings.js';
 import type { Align } from './table.js';
 
 type ToleranceStudy = ToleranceStudyResult;
@@ -27,7 +28,10 @@ export interface ToleranceReportOptions {
  * The report of a tolerance study as text (aligned tables, ASCII histograms with the spec limit
  * marked) or GitHub-flavoured Markdown (the same document, drawn by renderDocument), or one JSON
  * object in SI units holding
- * at least worstCase.{worstRipple, droop, settlingTime} and monteCarlo.{samples, seed, yield}.
+ * at least worstCase.{worstRipple, droop, settlingTime} and monteCarlo.{samples, seed, yield}, and
+ * `warnings` (the nominal circuit's, [{key, message}], empty when none); worstCase.gain is the gain
+ * error as a signed fraction of full scale (null when spec.gain is off). The text and Markdown
+ * reports end with the "Warnings" section when there are any.
  *
  * Syntax: toleranceReport(project, study, format[, { charts, color, bins }])
  * Example: toleranceReport(p, study, 'json')  // '{ "worstCase": { "worstRipple": { "value": ...'
@@ -50,8 +54,12 @@ const FIGURE_NAMES: Record<WorstCaseFigure['figure'], string> = {
   ripple: 'worst ripple',
   droop: 'droop (DC error)',
   inl: 'INL',
+  gain: 'gain error',
   settling: 'settling time',
 };
+
+/** A fraction of full scale (the gain check's unit) as text. */
+const ofFullScale = (x: number) => `${Number((100 * x).toPrecision(3))} % of full scale`;
 
 function toleranceDocument(
   project: Project,
@@ -67,6 +75,8 @@ function toleranceDocument(
     monteCarloSection(mc, lsb, fullScale),
   ];
   if (options.charts) sections.push(histogramSection(mc, options.bins));
+  const warnings = warningsSection(study.warnings);
+  if (warnings) sections.push(warnings);
   return {
     title: `Tolerance study: ${project.file}`,
     sections,
@@ -78,9 +88,7 @@ function parametersSection(parameters: ToleranceParameter[], mc: MonteCarloResul
   const unit = (p: ToleranceParameter) => (p.unit === 'ohm' ? 'Ω' : p.unit);
   const spread = mc.distribution === 'normal' ? 'normal, σ = range/6, cut at the ends' : 'uniform over the range';
   const rows = parameters.map((p) => {
-    const centre = 0.5 * (p.min + p.max);
-    const rel = centre !== 0 ? `±${((100 * (p.max - p.min)) / (2 * centre)).toPrecision(2)} %` : '';
-    return [p.label, formatEng(p.nominal, unit(p), 4), formatEng(p.min, unit(p), 4), formatEng(p.max, unit(p), 4), rel];
+    return [p.label, formatEng(p.nominal, unit(p), 4), formatEng(p.min, unit(p), 4), formatEng(p.max, unit(p), 4), spreadText(p)];
   });
   const blocks: Block[] =
     parameters.length === 0
@@ -92,24 +100,40 @@ function parametersSection(parameters: ToleranceParameter[], mc: MonteCarloResul
   return { title: 'Parts and tolerances', blocks };
 }
 
+/**
+ * The range of a part relative to its nominal value: '±1 %' when symmetric, '-40 % / +60 %' when
+ * not (a driver range such as 15..40 ohm around 25 ohm); '' when the nominal is 0.
+ */
+export function spreadText(p: { nominal: number; min: number; max: number }): string {
+  if (p.nominal === 0) return '';
+  const below = (100 * (p.nominal - p.min)) / Math.abs(p.nominal);
+  const above = (100 * (p.max - p.nominal)) / Math.abs(p.nominal);
+  const show = (x: number) => String(Number(x.toPrecision(2)));
+  if (show(below) === show(above)) return `±${show(above)} %`;
+  const signed = (x: number) => `${x < 0 ? '-' : '+'}${show(Math.abs(x))} %`;
+  return `${signed(-below)} / ${signed(above)}`;
+}
+
 function figureText(
   f: WorstCaseFigure | { figure: WorstCaseFigure['figure']; value: number | null },
   lsb: number | null,
   fullScale: number,
 ): string {
   if (f.value === null) return 'never settles';
+  if (f.figure === 'gain') return ofFullScale(tidy(f.value, 1));
   return f.figure === 'settling' ? formatEng(f.value, 's', 4) : voltsAndLsb(tidy(f.value, fullScale), lsb);
 }
 
 function limitText(f: WorstCaseFigure, lsb: number | null): string {
   if (f.limit === null) return '-';
+  if (f.figure === 'gain') return ofFullScale(f.limit);
   return f.figure === 'settling' ? formatEng(f.limit, 's', 4) : voltsAndLsb(f.limit, lsb);
 }
 
 const verdictCell = (pass: boolean | null) => (pass === null ? '-' : pass ? 'PASS' : 'FAIL');
 
 function worstCaseSection(wc: WorstCaseResult, lsb: number | null, fullScale: number): Section {
-  const figures = [wc.worstRipple, wc.droop, ...(wc.inl ? [wc.inl] : []), wc.settlingTime];
+  const figures = [wc.worstRipple, wc.droop, ...(wc.inl ? [wc.inl] : []), ...(wc.gain ? [wc.gain] : []), wc.settlingTime];
   const nominalValue = (f: WorstCaseFigure): number | null => {
     const n = wc.nominal;
     switch (f.figure) {
@@ -119,6 +143,8 @@ function worstCaseSection(wc: WorstCaseResult, lsb: number | null, fullScale: nu
         return n.droop.error;
       case 'inl':
         return n.inl?.error ?? 0;
+      case 'gain':
+        return n.gain ?? 0;
       case 'settling':
         return n.settlingTime;
     }
@@ -192,7 +218,7 @@ function monteCarloSection(mc: MonteCarloResult, lsb: number | null, fullScale: 
   if (mc.values.engineSamples > 0) {
     pairs.push(['note', `${mc.values.engineSamples} samples used the engine's matrix-exponential path`]);
   }
-  const specRows = (['ripple', 'droop', 'inl', 'settling'] as const)
+  const specRows = (['ripple', 'droop', 'inl', 'gain', 'settling'] as const)
     .filter((k) => mc.yieldBySpec[k] !== undefined)
     .map((k) => [FIGURE_NAMES[k], percent4(mc.yieldBySpec[k]!)]);
   const volts = (v: number) => voltsAndLsb(tidy(v, fullScale), lsb);
@@ -209,6 +235,7 @@ function monteCarloSection(mc: MonteCarloResult, lsb: number | null, fullScale: 
     row('worst ripple', mc.percentiles.worstRipple, volts, limits.ripple),
     row('|droop|', mc.percentiles.droop, volts, limits.droop),
     ...(mc.percentiles.inl ? [row('|INL|', mc.percentiles.inl, volts, limits.inl)] : []),
+    ...(mc.percentiles.gain ? [row('|gain error|', mc.percentiles.gain, ofFullScale, limits.gain)] : []),
     row('settling time', mc.percentiles.settlingTime, seconds, limits.settling),
   ];
   const blocks: Block[] = [{ kind: 'pairs', pairs }];
@@ -299,7 +326,7 @@ const percent4 = (x: number) => `${(100 * x).toFixed(2)} %`;
 
 function verdictText(study: ToleranceStudy): string {
   const { worstCase: wc, monteCarlo: mc } = study;
-  const failing = [wc.worstRipple, wc.droop, wc.inl, wc.settlingTime]
+  const failing = [wc.worstRipple, wc.droop, wc.inl, wc.gain, wc.settlingTime]
     .filter((f): f is WorstCaseFigure => f !== null && f.pass === false)
     .map((f) => FIGURE_NAMES[f.figure]);
   const parts: string[] = [];
@@ -331,6 +358,7 @@ function toleranceJson(project: Project, study: ToleranceStudy, bins: number): s
   const { limits } = mc.plan;
   const body = {
     file: project.file,
+    warnings: study.warnings,
     parameters: wc.parameters.map(({ key, label, unit, nominal, min, max }) => ({ key, label, unit, nominal, min, max })),
     settling: { band: mc.plan.band, steps: mc.plan.steps },
     limits,
@@ -339,6 +367,7 @@ function toleranceJson(project: Project, study: ToleranceStudy, bins: number): s
       worstRipple: figure(wc.worstRipple),
       droop: figure(wc.droop),
       inl: figure(wc.inl),
+      gain: figure(wc.gain),
       settlingTime: figure(wc.settlingTime),
       evaluations: wc.evaluations,
       pass: wc.pass,

@@ -10,6 +10,8 @@ export interface SampleTable {
   droop: Float64Array;
   /** Signed INL, or null when the plan does not ask for it. */
   inl: Float64Array | null;
+  /** Signed gain error as a fraction of full scale, or null when the plan does not ask for it. */
+  gain: Float64Array | null;
   /** Slowest settling time; +Infinity when a step never settles. */
   settlingTime: Float64Array;
   /** Samples for which some figure needed the engine's slower path. */
@@ -41,6 +43,7 @@ export function evaluateSamples(
     worstRipple: new Float64Array(count),
     droop: new Float64Array(count),
     inl: plan.inl ? new Float64Array(count) : null,
+    gain: plan.gain ? new Float64Array(count) : null,
     settlingTime: new Float64Array(count),
     engineSamples: 0,
   };
@@ -49,6 +52,7 @@ export function evaluateSamples(
     table.worstRipple[i] = m.worstRipple.ripple;
     table.droop[i] = m.droop.error;
     if (table.inl) table.inl[i] = m.inl?.error ?? 0;
+    if (table.gain) table.gain[i] = m.gain ?? 0;
     table.settlingTime[i] = m.settlingTime ?? Infinity;
     if (m.usedEngine) table.engineSamples++;
     if (onProgress && (i + 1) % 256 === 0) onProgress(i + 1);

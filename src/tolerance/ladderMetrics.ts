@@ -17,6 +17,11 @@ export interface LadderMetrics {
   droop: { duty: number; error: number };
   /** Largest deviation from the endpoint line (sign kept), when the plan asks for it. */
   inl: { duty: number; error: number } | null;
+  /**
+   * Endpoint-fit gain error as a fraction of this ladder's full scale, signed ideal - actual
+   * ((high - low) - fit slope) / (high - low), when the plan asks for it.
+   */
+  gain: number | null;
   /** Slowest settling time over the plan's steps, s; null = never settles. */
   settlingTime: number | null;
   /** Some figure needed the engine's matrix-exponential path (a cascade's settling, ...). */
@@ -71,6 +76,7 @@ export function ladderMetrics(ladder: Ladder, plan: MetricPlan, options: LadderM
     worstRipple: modalWorstRipple(m, plan),
     droop: dc.droop,
     inl: dc.inl,
+    gain: dc.gain,
     settlingTime: settling,
     usedEngine,
   };
@@ -92,6 +98,7 @@ function engineMetrics(ladder: Ladder, plan: MetricPlan): LadderMetrics {
     worstRipple: worstRipple(ladder, plan.dutyMin, plan.dutyMax, 'expm'),
     droop: dc.droop,
     inl: plan.inl ? dc.inl : null,
+    gain: plan.gain ? dc.gainError / (ladder.high - ladder.low) : null,
     settlingTime: settling,
     usedEngine: true,
   };
@@ -106,7 +113,7 @@ function modalDc(
   m: ModalLadder,
   ladder: Ladder,
   plan: MetricPlan,
-): { droop: { duty: number; error: number }; inl: { duty: number; error: number } | null } {
+): { droop: { duty: number; error: number }; inl: { duty: number; error: number } | null; gain: number | null } {
   const { dutyMin: a, dutyMax: b } = plan;
   const span = ladder.high - ladder.low;
   const average = (d: number) => averageOutput(m, d);
@@ -115,15 +122,18 @@ function modalDc(
   const yB = average(b);
   const errA = ladder.low + a * span - yA;
   const errB = ladder.low + b * span - yB;
+  // endpoint fit as in dcTransfer.ts: the ideal slope when the range is one duty
+  const gain = plan.gain ? (b > a ? (span - (yB - yA) / (b - a)) / span : 0) : null;
   if (ladder.driverHigh === ladder.driverLow || !(b > a)) {
     const droop = Math.abs(errB) > Math.abs(errA) ? { duty: b, error: errB } : { duty: a, error: errA };
-    return { droop, inl: plan.inl ? { duty: a, error: 0 } : null };
+    return { droop, inl: plan.inl ? { duty: a, error: 0 } : null, gain };
   }
   const droopAt = maximizeFromHints((d) => Math.abs(error(d)), a, b, plan.droopHints).x;
   const droop = { duty: droopAt, error: error(droopAt) };
-  if (!plan.inl) return { droop, inl: null };
+  if (!plan.inl) return { droop, inl: null, gain };
   const slope = (yB - yA) / (b - a);
-  const deviation = (d: number) => average(d) - (yA + slope * (d - a));
+  // fit - average, the sign of dcTransfer.ts (README "Sign convention")
+  const deviation = (d: number) => yA + slope * (d - a) - average(d);
   const inlAt = maximizeFromHints((d) => Math.abs(deviation(d)), a, b, plan.inlHints).x;
-  return { droop, inl: { duty: inlAt, error: deviation(inlAt) } };
+  return { droop, inl: { duty: inlAt, error: deviation(inlAt) }, gain };
 }

@@ -18,8 +18,10 @@ export interface MetricPlan {
   steps: Array<{ from: number; to: number }>;
   /** Compute INL (the spec limits it). */
   inl: boolean;
-  /** Spec limits in SI (V, s); absent = not checked. */
-  limits: { ripple?: number; droop?: number; inl?: number; settling?: number };
+  /** Compute the endpoint-fit gain error (asked for, and the spec limits it: spec.gain). */
+  gain: boolean;
+  /** Spec limits in SI (V, s; gain: a fraction of full scale); absent = not checked. */
+  limits: { ripple?: number; droop?: number; inl?: number; gain?: number; settling?: number };
   /**
    * Duties of the nominal ladder's local ripple maxima: each sample's worst-ripple search starts
    * from them (empty: search the whole range).
@@ -34,6 +36,14 @@ export interface MetricPlan {
   inlHints: number[] | null;
 }
 
+export interface MetricPlanOptions {
+  /**
+   * Also plan the gain check (spec.gain, model.md 1.1) when the project has one (default false:
+   * callers that predate it, such as the robust design search, keep their figures).
+   */
+  gain?: boolean;
+}
+
 /**
  * The metric plan of a project for a given nominal ladder: duty range, settling steps and band
  * exactly as `analyze` chooses them (analyze.ts), spec limits, and where the nominal ladder's
@@ -46,10 +56,10 @@ export interface MetricPlan {
  * (max, min) and (min, max) of their ranges: unequal drivers bend average(D), equal ones leave it
  * affine, so a nominal with equal drivers alone would show no interior DC peak.
  *
- * Syntax: metricPlan(project, ladder)
+ * Syntax: metricPlan(project, ladder[, { gain }])
  * Example: metricPlan(p, ladderFromProject(p)).rippleHints  // [0.5] for a symmetric filter
  */
-export function metricPlan(project: Project, ladder: Ladder): MetricPlan {
+export function metricPlan(project: Project, ladder: Ladder, options: MetricPlanOptions = {}): MetricPlan {
   const { min: dutyMin, max: dutyMax } = project.pwm.duty;
   const s = project.spec.settling;
   const steps =
@@ -63,6 +73,8 @@ export function metricPlan(project: Project, ladder: Ladder): MetricPlan {
   if (project.spec.ripple !== undefined) limits.ripple = project.spec.ripple;
   if (project.spec.droop !== undefined) limits.droop = project.spec.droop;
   if (project.spec.inl !== undefined) limits.inl = project.spec.inl;
+  const gain = options.gain === true && project.spec.gain !== undefined;
+  if (gain) limits.gain = project.spec.gain;
   if (s?.time !== undefined) limits.settling = s.time;
   return {
     dutyMin,
@@ -70,6 +82,7 @@ export function metricPlan(project: Project, ladder: Ladder): MetricPlan {
     band: s?.band ?? defaultBand(project),
     steps,
     inl: project.spec.inl !== undefined,
+    gain,
     limits,
     ...peaks(project, ladder, dutyMin, dutyMax),
   };

@@ -14,6 +14,8 @@ export interface MonteCarloOptions {
   /** Seed (default: tolerance.seed); the same seed gives the same result. */
   seed?: number;
   distribution?: Distribution;
+  /** Also count the gain check (spec.gain) in the yield (default false; see MetricPlanOptions). */
+  gain?: boolean;
   /** Called now and then with (samples done, total). */
   onProgress?: (done: number, total: number) => void;
 }
@@ -93,7 +95,7 @@ export function monteCarloSetup(project: Project, ladder?: Ladder, options: Mont
   return {
     ladder: nominal,
     parameters,
-    plan: metricPlan(project, nominal),
+    plan: metricPlan(project, nominal, { gain: options.gain }),
     deviates: drawDeviates(samples, parameters.length, seed, distribution),
     samples,
     seed,

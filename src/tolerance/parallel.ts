@@ -131,6 +131,7 @@ function concatTables(tables: SampleTable[]): SampleTable {
     worstRipple: join((t) => t.worstRipple),
     droop: join((t) => t.droop),
     inl: tables[0].inl ? join((t) => t.inl!) : null,
+    gain: tables[0].gain ? join((t) => t.gain!) : null,
     settlingTime: join((t) => t.settlingTime),
     engineSamples: tables.reduce((n, t) => n + t.engineSamples, 0),
   };

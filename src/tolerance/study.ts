@@ -1,6 +1,6 @@
 import { ladderFromProject } from '../circuit/fromProject.js';
 import type { Ladder } from '../circuit/ladder.js';
-import { checkNumericalDomain } from '../engine/index.js';
+import { checkNumericalDomain, plausibilityWarnings, warningFigures, type Warning } from '../engine/index.js';
 import type { Project } from '../project/types.js';
 import type { MonteCarloResult } from './monteCarlo.js';
 import { monteCarloParallel, type ParallelOptions } from './parallel.js';
@@ -12,13 +12,16 @@ export interface ToleranceStudyResult {
   monteCarlo: MonteCarloResult;
   /** Every limited figure passes at its worst case, and the yield meets its target. */
   pass: boolean;
+  /** Plausibility warnings of the nominal project (never change `pass`). */
+  warnings: Warning[];
 }
 
 /**
  * The full tolerance study behind `dacsmith tolerance`: worst case over the tolerance box (each
- * worst point confirmed by the engine) and the Monte Carlo yield.
+ * worst point confirmed by the engine), the Monte Carlo yield and the plausibility warnings of the
+ * nominal circuit.
  *
- * Method: worstCase and monteCarloParallel (see there).
+ * Method: worstCase and monteCarloParallel (see there); plausibilityWarnings.
  *
  * Syntax: await toleranceStudy(project[, ladder, { samples, seed, distribution, workers, onProgress }])
  * Example: (await toleranceStudy(p)).pass
@@ -29,7 +32,9 @@ export async function toleranceStudy(
   options: ParallelOptions = {},
 ): Promise<ToleranceStudyResult> {
   checkNumericalDomain(ladder, project.file);
-  const wc = worstCase(project, ladder, { confirmWithEngine: true });
-  const mc = await monteCarloParallel(project, ladder, options);
-  return { worstCase: wc, monteCarlo: mc, pass: wc.pass && mc.pass };
+  // The command's study covers the gain check too (model.md 1.1), as analyze and check do.
+  const wc = worstCase(project, ladder, { confirmWithEngine: true, gain: true });
+  const mc = await monteCarloParallel(project, ladder, { ...options, gain: true });
+  const warnings = plausibilityWarnings(project, warningFigures(ladder, project.pwm.duty.min, project.pwm.duty.max));
+  return { worstCase: wc, monteCarlo: mc, pass: wc.pass && mc.pass, warnings };
 }

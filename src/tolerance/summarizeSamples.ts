@@ -3,7 +3,7 @@ import type { SampleTable } from './evaluateSamples.js';
 import { percentiles, wilsonInterval, type Percentiles } from './statistics.js';
 
 /** A spec the yield is counted against. */
-export type SpecName = 'ripple' | 'droop' | 'inl' | 'settling';
+export type SpecName = 'ripple' | 'droop' | 'inl' | 'gain' | 'settling';
 
 /** Yield and distribution figures of a Monte Carlo run. */
 export interface SampleSummary {
@@ -14,11 +14,15 @@ export interface SampleSummary {
   yieldInterval: [number, number];
   /** Yield against each limit alone. */
   yieldBySpec: Partial<Record<SpecName, number>>;
-  /** Of worst ripple (V), |droop| (V), |INL| (V) and settling time (s; Infinity = never settles). */
+  /**
+   * Of worst ripple (V), |droop| (V), |INL| (V), |gain error| (fraction of full scale) and settling
+   * time (s; Infinity = never settles).
+   */
   percentiles: {
     worstRipple: Percentiles;
     droop: Percentiles;
     inl: Percentiles | null;
+    gain: Percentiles | null;
     settlingTime: Percentiles;
   };
   /** Samples that never settle. */
@@ -45,6 +49,10 @@ export function summarizeSamples(table: SampleTable, plan: MetricPlan): SampleSu
     const inl = table.inl;
     tests.push(['inl', (i) => Math.abs(inl[i]) <= limits.inl!]);
   }
+  if (limits.gain !== undefined && table.gain) {
+    const gain = table.gain;
+    tests.push(['gain', (i) => Math.abs(gain[i]) <= limits.gain!]);
+  }
   if (limits.settling !== undefined) tests.push(['settling', (i) => table.settlingTime[i] <= limits.settling!]);
   const perSpec = new Array<number>(tests.length).fill(0);
   let passed = 0;
@@ -69,6 +77,7 @@ export function summarizeSamples(table: SampleTable, plan: MetricPlan): SampleSu
       worstRipple: percentiles(table.worstRipple),
       droop: percentiles(table.droop.map(Math.abs)),
       inl: table.inl ? percentiles(table.inl.map(Math.abs)) : null,
+      gain: table.gain ? percentiles(table.gain.map(Math.abs)) : null,
       settlingTime: percentiles(table.settlingTime),
     },
     neverSettles: never,

@@ -11,7 +11,7 @@ const post = (m: WorkerMessage, transfer: ArrayBuffer[] = []) => parentPort!.pos
 const table = evaluateSamples(job.ladder, job.parameters, job.plan, job.deviates, 0, job.count, (done) =>
   post({ kind: 'progress', done }),
 );
-const buffers = [table.worstRipple, table.droop, table.settlingTime, ...(table.inl ? [table.inl] : [])].map(
+const buffers = [table.worstRipple, table.droop, table.settlingTime, ...(table.inl ? [table.inl] : []), ...(table.gain ? [table.gain] : [])].map(
   (a) => a.buffer as ArrayBuffer,
 );
 post({ kind: 'done', table }, buffers);

@@ -7,7 +7,7 @@ import { metricPlan, type MetricPlan } from './metricPlan.js';
 import { requireTolerance } from './monteCarlo.js';
 import { ladderAt, toleranceParameters, type ToleranceParameter } from './parameters.js';
 
-export type Figure = 'ripple' | 'droop' | 'inl' | 'settling';
+export type Figure = 'ripple' | 'droop' | 'inl' | 'gain' | 'settling';
 
 /** How raising a parameter across its range moves a figure's severity. */
 export type Effect = 'raises' | 'lowers' | 'none' | 'mixed';
@@ -15,7 +15,10 @@ export type Effect = 'raises' | 'lowers' | 'none' | 'mixed';
 /** The worst case of one figure over the tolerance box. */
 export interface WorstCaseFigure {
   figure: Figure;
-  /** V (ripple; signed error for droop and INL) or s (settling; null = never settles). */
+  /**
+   * V (ripple; signed error for droop and INL), a signed fraction of full scale (gain error), or s
+   * (settling; null = never settles).
+   */
   value: number | null;
   /** Duty where the figure occurs (ripple, droop, INL), else null. */
   duty: number | null;
@@ -42,6 +45,8 @@ export interface WorstCaseResult {
   worstRipple: WorstCaseFigure;
   droop: WorstCaseFigure;
   inl: WorstCaseFigure | null;
+  /** Gain error (fraction of full scale), when asked for (options.gain) and limited by spec.gain. */
+  gain: WorstCaseFigure | null;
   settlingTime: WorstCaseFigure;
   /** Every limited figure passes at its worst case. */
   pass: boolean;
@@ -54,6 +59,8 @@ export interface WorstCaseOptions {
   cornerSweep?: boolean;
   /** Recompute each worst point with the engine's matrix-exponential path (default false). */
   confirmWithEngine?: boolean;
+  /** Also find the worst gain error when spec.gain limits it (default false; see MetricPlanOptions). */
+  gain?: boolean;
 }
 
 const SCAN_LEVELS = [-1, 0, 1];
@@ -80,7 +87,7 @@ export function worstCase(project: Project, ladder?: Ladder, options: WorstCaseO
   const settings = requireTolerance(project);
   const nominalLadder = ladder ?? ladderFromProject(project);
   const parameters = toleranceParameters(settings, nominalLadder);
-  const plan = metricPlan(project, nominalLadder);
+  const plan = metricPlan(project, nominalLadder, { gain: options.gain });
   const P = parameters.length;
   const memo = new Map<string, LadderMetrics>();
   const evaluate = (z: number[]): LadderMetrics => {
@@ -93,10 +100,11 @@ export function worstCase(project: Project, ladder?: Ladder, options: WorstCaseO
     return m;
   };
 
-  const figures: Figure[] = ['ripple', 'droop', ...(plan.inl ? (['inl'] as Figure[]) : []), 'settling'];
-  // Below these a change is rounding noise: 1e-12 of full scale for voltages, 1e-9 T for time.
+  const figures: Figure[] = ['ripple', 'droop', ...(plan.inl ? (['inl'] as Figure[]) : []), ...(plan.gain ? (['gain'] as Figure[]) : []), 'settling'];
+  // Below these a change is rounding noise: 1e-12 of full scale for voltages (and for the gain
+  // error, a fraction of full scale), 1e-9 T for time.
   const floorOf = (f: Figure) =>
-    f === 'settling' ? 1e-9 * nominalLadder.period : 1e-12 * Math.abs(nominalLadder.high - nominalLadder.low);
+    f === 'settling' ? 1e-9 * nominalLadder.period : f === 'gain' ? 1e-12 : 1e-12 * Math.abs(nominalLadder.high - nominalLadder.low);
   const scanPoints = distinctPoints([
     new Array(P).fill(0),
     new Array(P).fill(-1),
@@ -169,8 +177,9 @@ export function worstCase(project: Project, ladder?: Ladder, options: WorstCaseO
   const worstRipple = figureResult('ripple');
   const droop = figureResult('droop');
   const inl = plan.inl ? figureResult('inl') : null;
+  const gain = plan.gain ? figureResult('gain') : null;
   const settlingTime = figureResult('settling');
-  const all = [worstRipple, droop, inl, settlingTime].filter((x): x is WorstCaseFigure => x !== null);
+  const all = [worstRipple, droop, inl, gain, settlingTime].filter((x): x is WorstCaseFigure => x !== null);
   return {
     parameters,
     plan,
@@ -178,6 +187,7 @@ export function worstCase(project: Project, ladder?: Ladder, options: WorstCaseO
     worstRipple,
     droop,
     inl,
+    gain,
     settlingTime,
     pass: all.every((x) => x.pass !== false),
     evaluations: memo.size,
@@ -193,6 +203,8 @@ function severity(m: LadderMetrics, f: Figure): number {
       return Math.abs(m.droop.error);
     case 'inl':
       return Math.abs(m.inl?.error ?? 0);
+    case 'gain':
+      return Math.abs(m.gain ?? 0);
     case 'settling':
       return m.settlingTime ?? Infinity;
   }
@@ -206,6 +218,8 @@ function figureValue(m: LadderMetrics, f: Figure): { value: number | null; duty:
       return { value: m.droop.error, duty: m.droop.duty };
     case 'inl':
       return { value: m.inl?.error ?? 0, duty: m.inl?.duty ?? null };
+    case 'gain':
+      return { value: m.gain ?? 0, duty: null };
     case 'settling':
       return { value: m.settlingTime, duty: null };
   }
@@ -213,7 +227,7 @@ function figureValue(m: LadderMetrics, f: Figure): { value: number | null; duty:
 
 function limitOf(plan: MetricPlan, f: Figure): number | null {
   const l = plan.limits;
-  const v = f === 'ripple' ? l.ripple : f === 'droop' ? l.droop : f === 'inl' ? l.inl : l.settling;
+  const v = f === 'ripple' ? l.ripple : f === 'droop' ? l.droop : f === 'inl' ? l.inl : f === 'gain' ? l.gain : l.settling;
   return v ?? null;
 }
 

@@ -69,9 +69,10 @@ describe('analyzeProject against one-stage closed forms', () => {
     it(`${name}: cutoff and attenuation follow the single pole 1/(2 pi tau) (textbook RC low-pass)`, () => {
       const fc = 1 / (2 * Math.PI * tau);
       expect(a.cutoff / fc).toBeCloseTo(1, 6);
-      const expected = -10 * Math.log10(1 + (p.pwm.frequency / fc) ** 2);
+      // attenuation in positive dB (README "Sign convention"): 10 log10(1 + (f/fc)^2)
+      const expected = 10 * Math.log10(1 + (p.pwm.frequency / fc) ** 2);
       expect(a.attenuation).toBeCloseTo(expected, 4);
-      expect(a.attenuation).toBeLessThan(0);
+      expect(a.attenuation).toBeGreaterThan(0);
     });
     it(`${name}: pin peak current is (high - low) / (driver + R1) (design notes definition)`, () => {
       expect(a.pinPeakCurrent).toBeCloseTo(v / (p.pwm.driver.high + p.filter.stages[0].r), 12);

@@ -27,15 +27,19 @@ describe('dcTransfer', () => {
   it('loaded stage, equal drivers: divider k = R_L/(R_L + R + R_d) gives all four terms', () => {
     // Source: Ohm's law (resistive divider; the capacitor carries no DC current):
     // average(D) = k (low + D span), so droop = (1 - k) ideal(D) largest at the top of the range,
-    // offset error = (k - 1) low, gain error = (k - 1) span, INL = 0 (affine transfer).
+    // and, signed ideal - actual (README "Sign convention"): offset error = (1 - k) low,
+    // gain error = (1 - k) span, INL = 0 (affine transfer).
     const [r, rd, rl] = [10e3, 30, 220e3];
     const l = ladder([stage(r, 1e-6)], { low: 0.3, driverHigh: rd, driverLow: rd, loadResistance: rl });
     const k = rl / (rl + r + rd);
     const dc = dcTransfer(l, 0.1, 0.9);
     expect(dc.droop.duty).toBeCloseTo(0.9, 9);
     expect(relative(dc.droop.error, (1 - k) * (0.3 + 0.9 * 3))).toBeLessThan(1e-10);
-    expect(relative(dc.offsetError, (k - 1) * 0.3)).toBeLessThan(1e-10);
-    expect(relative(dc.gainError, (k - 1) * 3)).toBeLessThan(1e-10);
+    expect(relative(dc.offsetError, (1 - k) * 0.3)).toBeLessThan(1e-10);
+    expect(relative(dc.gainError, (1 - k) * 3)).toBeLessThan(1e-10);
+    // the loaded output falls short of ideal: every term positive, as the DC error is
+    expect(dc.droop.error).toBeGreaterThan(0);
+    expect(dc.gainError).toBeGreaterThan(0);
     expect(Math.abs(dc.inl.error)).toBeLessThan(1e-13);
   });
 
@@ -60,11 +64,12 @@ describe('dcTransfer', () => {
     expect(relative(dc.droop.error, droop.value)).toBeLessThan(1e-5);
     expect(Math.abs(dc.droop.duty - droop.x)).toBeLessThan(1e-3);
     const slope = (X(b) - X(a)) / (b - a);
-    const inl = largestMagnitude((d) => X(d) - (X(a) + slope * (d - a)), a, b);
+    // signed fit - average, like DC error = ideal - average (README "Sign convention")
+    const inl = largestMagnitude((d) => X(a) + slope * (d - a) - X(d), a, b);
     expect(relative(dc.inl.error, inl.value)).toBeLessThan(1e-4);
     expect(Math.abs(dc.inl.duty - inl.x)).toBeLessThan(1e-3);
-    expect(relative(dc.gainError, slope - 3.3)).toBeLessThan(1e-5);
-    expect(relative(dc.offsetError, X(a) - slope * a)).toBeLessThan(1e-5);
+    expect(relative(dc.gainError, 3.3 - slope)).toBeLessThan(1e-5);
+    expect(relative(dc.offsetError, -(X(a) - slope * a))).toBeLessThan(1e-5);
   });
 
   it('the searched droop is at least the largest error on a fine duty grid (two stages, loaded)', () => {

@@ -6,7 +6,7 @@ import { renderCheck, type CheckedFile } from '../../src/report/check.js';
 
 const ripple = (value: number | null, limit: number): Check => ({ name: 'ripple', value, limit, unit: 'V', pass: value !== null && value <= limit });
 const settling = (value: number | null, limit: number): Check => ({ name: 'settling', value, limit, unit: 's', pass: value !== null && value <= limit });
-const file = (name: string, checks: Check[]): CheckedFile => ({ file: name, pass: checks.every((c) => c.pass), checks, lsb: 3.3 / 1024 });
+const file = (name: string, checks: Check[]): CheckedFile => ({ file: name, pass: checks.every((c) => c.pass), checks, warnings: [], lsb: 3.3 / 1024 });
 
 describe('renderCheck text', () => {
   it('writes PASS with the number of checks, FAIL with each failing spec, value > limit', () => {
@@ -23,7 +23,7 @@ describe('renderCheck text', () => {
   });
 
   it('leaves invalid files to standard error and colours only when asked', () => {
-    const bad: CheckedFile = { file: 'bad.yaml', pass: false, checks: [], lsb: null, error: 'bad.yaml:1:1: pwm: required' };
+    const bad: CheckedFile = { file: 'bad.yaml', pass: false, checks: [], warnings: [], lsb: null, error: 'bad.yaml:1:1: pwm: required' };
     expect(renderCheck([bad], 'text')).toBe('');
     const good = [file('a.yaml', [ripple(1e-3, 2e-3)])];
     expect(renderCheck(good, 'text', { color: false })).not.toMatch(/\x1b\[/);
@@ -31,15 +31,40 @@ describe('renderCheck text', () => {
   });
 });
 
+describe('renderCheck warnings and the gain check', () => {
+  const warning = { key: 'load.resistance', message: 'the load resistance read as 1 mΩ' };
+  it('lists warnings under their own heading; with strict the details name the warned keys', () => {
+    const warned: CheckedFile = { ...file('a.yaml', [ripple(1e-3, 2e-3)]), warnings: [warning] };
+    const out = renderCheck([warned], 'text');
+    expect(out).toBe('PASS  a.yaml  (1 check holds; 1 warning)\n\nWarnings\n  - a.yaml: load.resistance: the load resistance read as 1 mΩ\n');
+    const strict = renderCheck([{ ...warned, pass: false }], 'text', { strict: true });
+    expect(strict).toContain('FAIL  a.yaml  1 check holds; 1 warning (strict: fails): load.resistance');
+    const md = renderCheck([warned], 'markdown');
+    expect(md).toContain('### Warnings\n\n- a.yaml: load.resistance: the load resistance read as 1 mΩ');
+    const j = JSON.parse(renderCheck([warned], 'json', { strict: true }));
+    expect(j.warnings).toEqual([{ file: 'a.yaml', ...warning }]);
+    expect(j.files[0].warnings).toEqual([warning]);
+    expect(j.strict).toBe(true);
+  });
+
+  it('prints the gain check (a fraction of full scale) in percent, never with the unit "1"', () => {
+    const gain: Check = { name: 'gain', value: 0.0912, limit: 0.02, unit: '1', pass: false };
+    const out = renderCheck([file('a.yaml', [gain])], 'text');
+    expect(out).toBe('FAIL  a.yaml  gain 9.12 % of full scale > 2 % of full scale\n');
+  });
+});
+
 describe('renderCheck JSON and Markdown', () => {
-  it('JSON holds files [{ file, pass, checks, error? }] and pass', () => {
-    const bad: CheckedFile = { file: 'bad.yaml', pass: false, checks: [], lsb: null, error: 'bad.yaml:1:1: pwm: required' };
+  it('JSON holds files [{ file, pass, checks, warnings, error? }], warnings, strict and pass', () => {
+    const bad: CheckedFile = { file: 'bad.yaml', pass: false, checks: [], warnings: [], lsb: null, error: 'bad.yaml:1:1: pwm: required' };
     const j = JSON.parse(renderCheck([file('a.yaml', [ripple(1e-3, 2e-3)]), bad], 'json'));
     expect(j).toEqual({
       files: [
-        { file: 'a.yaml', pass: true, checks: [ripple(1e-3, 2e-3)] },
-        { file: 'bad.yaml', pass: false, checks: [], error: 'bad.yaml:1:1: pwm: required' },
+        { file: 'a.yaml', pass: true, checks: [ripple(1e-3, 2e-3)], warnings: [] },
+        { file: 'bad.yaml', pass: false, checks: [], warnings: [], error: 'bad.yaml:1:1: pwm: required' },
       ],
+      warnings: [],
+      strict: false,
       pass: false,
     });
   });

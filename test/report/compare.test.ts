@@ -68,9 +68,9 @@ describe('compareReport figures', () => {
 
   it('gives no relative change for dB, and a settling time of null as never settling', () => {
     expect(figure(j, 'attenuation').deltaPercent).toBeNull();
-    // Attenuation at f >> fc of a first-order low-pass: -20 log10(f/fc) + ... ; the change for
-    // a 2.2x larger C tends to -20 log10(2.2) dB (handbook -20 dB/decade slope).
-    expect(figure(j, 'attenuation').delta).toBeCloseTo(-20 * Math.log10(2.2), 1);
+    // Attenuation (positive dB) at f >> fc of a first-order low-pass: 20 log10(f/fc) + ... ; the
+    // change for a 2.2x larger C tends to +20 log10(2.2) dB (handbook 20 dB/decade slope).
+    expect(figure(j, 'attenuation').delta).toBeCloseTo(20 * Math.log10(2.2), 1);
   });
 
   it('lists only the inputs that changed, in SI units', () => {

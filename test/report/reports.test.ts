@@ -53,7 +53,9 @@ describe('text report', () => {
     expect(text).toMatch(/Step response \(step /);
     expect(text).toMatch(/\n\s+S settled at /);
     expect(text).toMatch(/\n\s+c cutoff 337 Hz/);
-    expect(text).toMatch(/\n\s+P PWM frequency 1 MHz: -\d+\.\d dB/);
+    // the magnitude chart marks the gain there (negative dB); the figures give the attenuation (positive)
+    expect(text).toMatch(/\n\s+P PWM frequency 1 MHz: gain -\d+\.\d dB/);
+    expect(text).toMatch(/Attenuation at the PWM frequency:\s+\d+\.\d dB/);
     expect(text).toMatch(/DC error \(ideal - average\) across the used duty range, LSB/);
     expect(text).not.toMatch(/\x1b\[/);
     expect(textReport(project, analysis, { charts: false })).not.toContain('Charts');
@@ -92,7 +94,7 @@ describe('markdown report', () => {
   it('puts charts in fenced blocks and has the same sections as the text report', () => {
     expect(md.match(/^```/gm)!.length % 2).toBe(0);
     expect(md.match(/^```text$/gm)!.length).toBe(5);
-    for (const s of ['Inputs', 'Operating points', 'Spec', 'Figures', 'Charts', 'Cautions']) {
+    for (const s of ['Inputs', 'Output at each duty', 'Spec', 'Figures', 'Charts', 'Cautions']) {
       expect(md).toMatch(new RegExp(`^## ${s}`, 'm'));
     }
     expect(md.startsWith('# ')).toBe(true);

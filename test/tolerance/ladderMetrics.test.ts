@@ -18,9 +18,9 @@ import { project } from './projectFixture.js';
 const planFor = (l: Ladder, inl: boolean, from?: number, to?: number): MetricPlan => {
   const p = project(l.stages, { driver: { high: { min: 0, max: 80 }, low: { min: 0, max: 80 } } }, {
     pwm: { frequency: 1 / l.period, prescaler: 1, alignment: 'edge', high: l.high, low: l.low, driver: { high: l.driverHigh, low: l.driverLow }, duty: { min: 0.05, max: 0.95 } },
-    spec: { ...(inl ? { inl: 1e-3 } : {}), settling: { band: 2e-3, ...(from !== undefined ? { from, to } : {}) } },
+    spec: { ...(inl ? { inl: 1e-3 } : {}), gain: 0.02, settling: { band: 2e-3, ...(from !== undefined ? { from, to } : {}) } },
   });
-  return metricPlan(p, l);
+  return metricPlan(p, l, { gain: true });
 };
 
 /**
@@ -47,6 +47,9 @@ function expectSameFigures(fast: LadderMetrics, ref: LadderMetrics, l: Ladder, i
   expect(Math.abs(fast.worstRipple.ripple - ref.worstRipple.ripple)).toBeLessThan(1e-8 * ref.worstRipple.ripple + 1e-15 * fs);
   expect(Math.abs(fast.droop.error - ref.droop.error)).toBeLessThan(1e-9 * Math.abs(ref.droop.error) + 1e-12 * fs);
   if (inl) expect(Math.abs(fast.inl!.error - ref.inl!.error)).toBeLessThan(1e-9 * Math.abs(ref.inl!.error) + 1e-12 * fs);
+  // gain error, a fraction of full scale: the modal fit against dcTransfer's (same endpoint fit)
+  expect(fast.gain).not.toBeNull();
+  expect(Math.abs(fast.gain! - ref.gain!)).toBeLessThan(1e-9 * Math.abs(ref.gain!) + 1e-12);
   if (exactSettling || ref.settlingTime === null) expect(fast.settlingTime).toBe(ref.settlingTime);
   else expect(Math.abs(fast.settlingTime! - ref.settlingTime)).toBeLessThan(1e-6 * l.period + 1e-9 * ref.settlingTime);
 }

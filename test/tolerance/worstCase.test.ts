@@ -44,6 +44,29 @@ describe('worstCase, one RC stage', () => {
     expect(wc.droop.pass).toBe(true);
   });
 
+  it('worst gain error (spec.gain, model.md 1.1) is the divider loss R / (R_L + R) at R max, load R min, supply free', () => {
+    // equal drivers: average(D) = k ideal(D), k = R_L / (R_L + R) (Ohm's law), so the gain error as
+    // a fraction of full scale, ideal - actual, is 1 - k whatever the supply
+    const p = project(
+      [stage(10e3, 100e-9)],
+      { resistor: 0.01, capacitor: 0.1, load: 0.2, supply: 0.05 },
+      { load: { resistance: 100e3, capacitance: 0 }, spec: { gain: 0.02 } },
+    );
+    const R = 10e3 * 1.01;
+    const RL = 100e3 * 0.8;
+    const wc = worstCase(p, undefined, { gain: true });
+    expect(Math.abs(wc.gain!.value! - R / (RL + R)) / (R / (RL + R))).toBeLessThan(1e-10);
+    expect(wc.gain!.limit).toBe(0.02);
+    expect(wc.gain!.pass).toBe(false); // 11.2 % > 2 %
+    expect(wc.pass).toBe(false);
+    const at = Object.fromEntries(wc.parameters.map((q, i) => [q.key, wc.gain!.values[i]]));
+    expect(at.r1).toBeCloseTo(R, 9);
+    expect(at.load).toBeCloseTo(RL, 9);
+    expect(wc.gain!.effects[wc.parameters.findIndex((q) => q.key === 'supply')]).toBe('none');
+    // without the option (the robust design search) the gain is not part of the worst case
+    expect(worstCase(p).gain).toBeNull();
+  });
+
   it('worst settling time is the superposition closed form at R max, C max, supply max', () => {
     // tau = 10 ms = 200 periods: ripple at 90 % about 1.5 mV, inside the 5 mV band
     const band = 5e-3;
