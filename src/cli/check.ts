@@ -38,7 +38,12 @@ export async function runCheck(args: CheckArgs, tty: { color: boolean }): Promis
   const strict = args.strict ?? false;
   const results: CheckedFile[] = args.files.map((file) => {
     try {
-      const project = requireFilter(loadProject(file), 'check');
+      const loaded = loadProject(file);
+      if (loaded.filter.stages.length === 0) {
+        // A design-only file has no filter to hold to a spec: listed, never passing on its own.
+        return { file, pass: true, checks: [], warnings: [], lsb: null, skipped: "design-only: a search and no filter; 'dacsmith design' reads it" };
+      }
+      const project = requireFilter(loaded, 'check');
       const analysis = analyzeProject(project);
       const pass = analysis.pass && !(strict && analysis.warnings.length > 0);
       return { file, pass, checks: analysis.checks, warnings: analysis.warnings, lsb: analysis.lsb };
@@ -48,6 +53,9 @@ export async function runCheck(args: CheckArgs, tty: { color: boolean }): Promis
       return { file, pass: false, checks: [], warnings: [], lsb: null, error: message };
     }
   });
+  if (results.every((r) => r.skipped !== undefined)) {
+    throw new UsageError(`every file given is design-only (a search and no filter): nothing to check; run 'dacsmith design' on ${results.length > 1 ? 'them' : 'it'}`);
+  }
   const stderr = results.flatMap((r) => (r.error !== undefined ? [`${r.error}\n`] : [])).join('');
   const stdout = args.quiet ? '' : renderCheck(results, args.format, { color: tty.color, strict });
   return { stdout, stderr, code: checkExitCode(results) };

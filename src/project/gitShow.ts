@@ -2,6 +2,7 @@ import { execFileSync } from 'node:child_process';
 import { realpathSync } from 'node:fs';
 import { basename, dirname, relative, sep } from 'node:path';
 import { InputError } from '../units/index.js';
+import { decodeProjectText } from './loadProject.js';
 
 /** The file could not be read at that revision (no repository, unknown revision, file not there). */
 export class GitShowError extends InputError {
@@ -15,13 +16,13 @@ export interface FileAtRevision {
 }
 
 /** Run git in `cwd`; its first line of standard error becomes the message of a GitShowError. */
-function git(args: string[], cwd: string): string {
+function git(args: string[], cwd: string): Buffer {
   try {
-    return execFileSync('git', args, { cwd, encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'], maxBuffer: 64 << 20 });
+    return execFileSync('git', args, { cwd, stdio: ['ignore', 'pipe', 'pipe'], maxBuffer: 64 << 20 });
   } catch (error) {
-    const e = error as NodeJS.ErrnoException & { stderr?: string };
+    const e = error as NodeJS.ErrnoException & { stderr?: Buffer };
     if (e.code === 'ENOENT') throw new GitShowError('git is not installed or not on PATH');
-    const first = (e.stderr ?? '').split('\n').find((l) => l.trim() !== '') ?? e.message;
+    const first = (e.stderr?.toString('utf8') ?? '').split('\n').find((l) => l.trim() !== '') ?? e.message;
     throw new GitShowError(first.replace(/^fatal:\s*/, ''));
   }
 }
@@ -45,15 +46,18 @@ export function fileAtRevision(file: string, ref: string): FileAtRevision {
   }
   let top: string;
   try {
-    top = git(['rev-parse', '--show-toplevel'], dir).trim();
+    top = git(['rev-parse', '--show-toplevel'], dir).toString('utf8').trim();
   } catch (error) {
     throw new GitShowError(`${file} is not inside a git repository (${(error as Error).message})`);
   }
   const path = relative(realpathSync(top), `${dir}${sep}${basename(file)}`).split(sep).join('/');
   const spec = `${ref}:${path}`;
+  let bytes: Buffer;
   try {
-    return { text: git(['show', spec], top), label: spec };
+    bytes = git(['show', spec], top);
   } catch (error) {
     throw new GitShowError(`cannot read ${path} at revision ${ref}: ${(error as Error).message}`);
   }
+  // The same byte rules as a file on disk (UTF-8 only, no NUL, no UTF-16), with the revision named.
+  return { text: decodeProjectText(bytes, spec), label: spec };
 }

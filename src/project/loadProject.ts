@@ -36,6 +36,20 @@ export function loadProject(path: string): Project {
     throw fail(reason);
   }
 
+  return parseProject(decodeProjectText(bytes, path), path);
+}
+
+/**
+ * The text of a project file's bytes, refusing what is not UTF-8 text: UTF-16 (by its byte order
+ * mark), a NUL byte (a binary file), bytes that are not UTF-8 (Latin-1 from an old editor). The
+ * same rules hold for a file on disk and for a file read from git at a revision.
+ *
+ * Syntax: decodeProjectText(bytes, label)
+ * Example: decodeProjectText(Buffer.from('pwm:\n'), 'p.yaml')   // 'pwm:\n'
+ */
+export function decodeProjectText(bytes: Uint8Array, path: string): string {
+  const fail = (message: string, line?: number, column?: number): ProjectError =>
+    new ProjectError([{ file: path, path: '', message, ...(line !== undefined && { line, column }) }]);
   if (bytes.length >= 2 && ((bytes[0] === 0xff && bytes[1] === 0xfe) || (bytes[0] === 0xfe && bytes[1] === 0xff))) {
     throw fail('is UTF-16 text; save it as UTF-8', 1, 1);
   }
@@ -50,11 +64,11 @@ export function loadProject(path: string): Project {
     const hex = bytes[invalid].toString(16).toUpperCase().padStart(2, '0');
     throw fail(`is not UTF-8 text: byte 0x${hex} does not belong there; save the file as UTF-8`, line, column);
   }
-  return parseProject(new TextDecoder('utf-8').decode(bytes), path);
+  return new TextDecoder('utf-8').decode(bytes);
 }
 
 /** 1-based line and column (in characters) of a byte offset. */
-function positionOfByte(bytes: Buffer, offset: number): { line: number; column: number } {
+function positionOfByte(bytes: Uint8Array, offset: number): { line: number; column: number } {
   const before = bytes.subarray(0, offset);
   const lineStart = before.lastIndexOf(0x0a) + 1;
   let line = 1;

@@ -116,6 +116,14 @@ export function normalizeProject(data: Record<string, unknown>, file: string): {
   const search = read.has(['search']) ? readSearch(read, pwm) : undefined;
   const tolerance = read.has(['tolerance']) ? readTolerance(read, pwm) : undefined;
 
+  const overrides = tolerance?.stages?.length ?? 0;
+  if (stages && stages.length > 0 && overrides > stages.length) {
+    read.fail(
+      ['tolerance', 'stages', stages.length],
+      `the filter has ${stages.length} stage${stages.length > 1 ? 's' : ''}, so this override has no stage to apply to; remove it or add the stage`,
+      'key',
+    );
+  }
   if (read.issues.length > 0 || !pwm || !stages) return { issues: read.issues };
   const project: Project = {
     file,

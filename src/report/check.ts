@@ -15,6 +15,8 @@ export interface CheckedFile {
   lsb: number | null;
   /** The message when the file is invalid (FILE:LINE:COL: key.path: message). */
   error?: string;
+  /** Why the file was not checked: a design-only file (a search and no filter) has no spec to hold. */
+  skipped?: string;
 }
 
 export type CheckFormat = 'text' | 'markdown' | 'json';
@@ -55,6 +57,7 @@ const count = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
 /** What a line says after the verdict; warnings are counted, and named as failures with --strict. */
 function details(f: CheckedFile, strict: boolean): string {
   if (f.error !== undefined) return f.error;
+  if (f.skipped !== undefined) return f.skipped;
   const failed = f.checks.filter((c) => !c.pass);
   const w = f.warnings.length;
   const parts: string[] = [];
@@ -65,19 +68,23 @@ function details(f: CheckedFile, strict: boolean): string {
   return parts.join('; ');
 }
 
-const verdictOf = (f: CheckedFile): 'PASS' | 'FAIL' | 'INVALID' => (f.error !== undefined ? 'INVALID' : f.pass ? 'PASS' : 'FAIL');
+const verdictOf = (f: CheckedFile): 'PASS' | 'FAIL' | 'INVALID' | 'SKIP' =>
+  f.error !== undefined ? 'INVALID' : f.skipped !== undefined ? 'SKIP' : f.pass ? 'PASS' : 'FAIL';
 
 /** 'all 3 files pass' / '1 of 3 files fails its spec, 1 invalid'. */
 function summary(files: CheckedFile[], strict: boolean): string {
+  const skipped = files.filter((f) => f.skipped !== undefined).length;
+  const skippedNote = skipped > 0 ? ` (${skipped} design-only file${skipped > 1 ? 's' : ''} skipped)` : '';
+  files = files.filter((f) => f.skipped === undefined);
   const n = files.length;
   const invalid = files.filter((f) => f.error !== undefined).length;
   const failing = files.filter((f) => f.error === undefined && !f.pass).length;
-  if (invalid === 0 && failing === 0) return n === 1 ? 'the file passes its spec' : `all ${n} files pass their spec`;
+  if (invalid === 0 && failing === 0) return (n === 1 ? 'the file passes its spec' : `all ${n} files pass their spec`) + skippedNote;
   const parts: string[] = [];
   const what = strict ? ' (or warn: --strict)' : '';
   if (failing > 0) parts.push(`${failing} of ${n} file${n > 1 ? 's' : ''} ${failing > 1 ? 'fail their' : 'fails its'} spec${what}`);
   if (invalid > 0) parts.push(`${invalid} of ${n} file${n > 1 ? 's' : ''} ${invalid > 1 ? 'are' : 'is'} invalid`);
-  return parts.join(', ');
+  return parts.join(', ') + skippedNote;
 }
 
 /** Escape what would end a GitHub-flavoured Markdown table cell. */
@@ -93,7 +100,8 @@ const warningLines = (files: CheckedFile[]) => files.flatMap((f) => f.warnings.m
  *   "Warnings" heading with one line per warning when there are any;
  * - `markdown`: a heading, a verdict line and a table (file, result, details) for a CI summary, and
  *   a "Warnings" list when there are any;
- * - `json`: `{ files: [{ file, pass, checks, warnings, error? }], warnings: [{ file, key, message }],
+ * A design-only file (a search and no filter) is listed as SKIP and neither passes nor fails.
+ * - `json`: `{ files: [{ file, pass, checks, warnings, error?, skipped? }], warnings: [{ file, key, message }],
  *   strict, pass }`, SI units, nothing else.
  * With `strict` (check --strict) a warning is a failure: the caller sets `pass` so, and the details
  * name the warned keys.
@@ -113,6 +121,7 @@ export function renderCheck(files: CheckedFile[], format: CheckFormat, options: 
         checks: f.checks,
         warnings: f.warnings,
         ...(f.error !== undefined ? { error: f.error } : {}),
+        ...(f.skipped !== undefined ? { skipped: f.skipped } : {}),
       })),
       warnings: files.flatMap((f) => f.warnings.map((w) => ({ file: f.file, ...w }))),
       strict,
@@ -142,9 +151,11 @@ export function renderCheck(files: CheckedFile[], format: CheckFormat, options: 
   const valid = files.filter((f) => f.error === undefined);
   const width = Math.max(0, ...valid.map((f) => f.file.length));
   const lines = valid.map((f) =>
-    f.pass
-      ? `${paint.good('PASS')}  ${f.file.padEnd(width)}  (${details(f, strict)})`
-      : `${paint.bad('FAIL')}  ${f.file.padEnd(width)}  ${details(f, strict)}`,
+    f.skipped !== undefined
+      ? `SKIP  ${f.file.padEnd(width)}  (${f.skipped})`
+      : f.pass
+        ? `${paint.good('PASS')}  ${f.file.padEnd(width)}  (${details(f, strict)})`
+        : `${paint.bad('FAIL')}  ${f.file.padEnd(width)}  ${details(f, strict)}`,
   );
   if (warned.length > 0) lines.push('', paint.bold('Warnings'), ...warned.map((w) => `  - ${w}`));
   return lines.length > 0 ? lines.join('\n') + '\n' : '';

@@ -124,3 +124,31 @@ describe('a closed pipe is not a failing spec', () => {
     expect(r.stderr).not.toMatch(/EPIPE|at /);
   });
 });
+
+describe('check with design-only files among projects (the README CI recipe: check boards/*.yaml)', () => {
+  const designOnly = join(root, 'sample-configs', 'design-wide-e24.yaml');
+
+  it('lists a design-only file as SKIP and lets the others decide the exit code', () => {
+    const r = runBuilt(['check', sample, designOnly]);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/^SKIP\s+.*design-wide-e24\.yaml\s+\(design-only/m);
+    const json = JSON.parse(runBuilt(['check', sample, designOnly, '--format', 'json']).stdout);
+    expect(json.files[1]).toMatchObject({ skipped: expect.stringMatching(/^design-only/) });
+    expect(json.pass).toBe(true);
+  });
+
+  it('refuses a run where every file is design-only: nothing was checked', () => {
+    const r = runBuilt(['check', designOnly]);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/nothing to check/);
+  });
+});
+
+describe('tolerance.stages longer than the filter', () => {
+  it('names the override that has no stage, with its line', () => {
+    const file = join(root, 'test', 'fixtures', 'projects', 'tolerance-stage-overrides-too-many.yaml');
+    const r = runBuilt(['tolerance', file]);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/tolerance-stage-overrides-too-many\.yaml:8:7: tolerance\.stages\[1\]: the filter has 1 stage/);
+  });
+});

@@ -237,6 +237,34 @@ describe('dacsmith compare', () => {
     expect(md.stdout.match(/^```text$/gm)).toHaveLength(2);
   });
 
+  it('holds a git base revision to the byte rules of a file on disk (Latin-1, NUL, UTF-16 refused, exit 2)', () => {
+    const repo = join(work, 'repo-bytes');
+    mkdirSync(repo, { recursive: true });
+    const git = (...args: string[]) =>
+      execFileSync('git', ['-c', 'user.name=Test', '-c', 'user.email=test@example.invalid', ...args], {
+        cwd: repo,
+        env: { ...process.env, GIT_CEILING_DIRECTORIES: work },
+      });
+    git('init', '-q');
+    const good = 'pwm: { frequency: 20 kHz, high: 3.3 V }\nfilter: { stages: [{ r: 4k7, c: 1u }] }\n';
+    const bad: Array<[string, Buffer, RegExp]> = [
+      ['latin1', Buffer.from(good.replace('4k7', '4k7 \u00b5'), 'latin1'), /HEAD:latin1\.yaml:2:.*not UTF-8 text: byte 0xB5/],
+      ['nul', Buffer.from(`${good}\u0000`), /HEAD:nul\.yaml:3:1: .*NUL byte/],
+      ['utf16', Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(good, 'utf16le')]), /HEAD:utf16\.yaml:1:1: .*UTF-16/],
+    ];
+    for (const [name, bytes] of bad) writeFileSync(join(repo, `${name}.yaml`), bytes);
+    git('add', '.');
+    git('commit', '-q', '-m', 'bytes');
+    for (const [name, , message] of bad) {
+      writeFileSync(join(repo, `${name}.yaml`), good);
+      const r = dacsmith(['compare', `${name}.yaml`, '--git', 'HEAD'], repo);
+      expect(r.code).toBe(2);
+      expect(r.stderr).toMatch(message);
+      expect(r.stderr.length).toBeLessThan(400); // no echo of the whole file
+      expect(r.stdout).toBe('');
+    }
+  });
+
   it('exits 2 with a clear message outside a repository or when the file is not at that revision', () => {
     const outside = write('outside/dac.yaml', PASSING);
     const r = dacsmith(['compare', outside, '--git', 'HEAD']);
