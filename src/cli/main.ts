@@ -9,6 +9,7 @@ import { initCommand } from './init.js';
 import { designCommand } from './design.js';
 import { toleranceCommand } from './tolerance.js';
 import { describeError, UsageError } from './errors.js';
+import { InputError } from '../units/index.js';
 import { checkOptionTokens, operandsAfterDoubleDash, type OptionKinds } from './checkOptionTokens.js';
 
 /** Print what a command produced and set the exit code; map thrown errors to messages and codes. */
@@ -20,9 +21,17 @@ async function run(work: () => Promise<CommandOutput>): Promise<void> {
     process.exitCode = out.code;
   } catch (error) {
     const { code, message } = describeError(error);
-    process.stderr.write(`${message}\n`);
+    process.stderr.write(`${(await withPosition(error)) ?? message}\n`);
     process.exitCode = code;
   }
+}
+
+/** `FILE:LINE:COL: key: detail` for an input error that names its file and key, when the key is found. */
+async function withPosition(error: unknown): Promise<string | undefined> {
+  if (!(error instanceof InputError) || error.file === undefined || error.key === undefined) return undefined;
+  const { positionOfKey } = await import('../project/index.js');
+  const at = positionOfKey(error.file, error.key);
+  return at ? `${error.file}:${at.line}:${at.column}: ${error.key}: ${error.detail}` : undefined;
 }
 
 /**

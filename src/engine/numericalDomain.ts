@@ -36,15 +36,15 @@ export class OutsideDomainError extends InputError {
 export function checkNumericalDomain(ladder: Ladder, file?: string): void {
   const { period } = ladder;
   const { minTauPeriods, maxTauPeriods } = NUMERICAL_DOMAIN;
-  const where = file === undefined ? '' : `${file}: `;
   const refuse = (key: string, what: string, tau: number): never => {
     const periods = tau / period;
     const side = periods > maxTauPeriods ? `more than ${maxTauPeriods.toExponential(0)}` : `less than ${minTauPeriods.toExponential(0)}`;
     throw new OutsideDomainError(
-      `${where}${key}: ${what} = ${seconds(tau)} is ${periods.toPrecision(3)} PWM periods, ${side}; ` +
+      `${what} = ${seconds(tau)} is ${periods.toPrecision(3)} PWM periods, ${side}; ` +
         `dacsmith computes exactly for time constants from ${minTauPeriods.toExponential(0)} to ${maxTauPeriods.toExponential(0)} periods ` +
         '(check the units of the parts: is a prefix off by a factor of 1000 or more?)',
       key,
+      file,
     );
   };
   const inside = (tau: number) => tau >= minTauPeriods * period && tau <= maxTauPeriods * period;

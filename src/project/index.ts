@@ -7,3 +7,4 @@ export { lsbOf } from './lsbOf.js';
 export { requireFilter } from './requireFilter.js';
 export { parseSpecLevel, type SpecLevel } from './parseSpecLevel.js';
 export type * from './types.js';
+export { positionOfKey } from './positionOfKey.js';

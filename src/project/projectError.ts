@@ -43,7 +43,7 @@ export function formatIssue(issue: ProjectIssue): string {
  */
 export class ProjectError extends InputError {
   override name = 'ProjectError';
-  readonly file: string;
+  override readonly file: string;
   readonly path: string;
   readonly line?: number;
   readonly column?: number;
