@@ -159,7 +159,7 @@ describe('dacsmith analyze', () => {
 
 describe('commands that need a filter, on a design-only file', () => {
   // A file with search: and no filter: is valid for `design`; the other commands refuse it as bad input.
-  for (const command of ['analyze', 'check', 'tolerance']) {
+  for (const command of ['analyze', 'tolerance']) {
     it(`${command} exits 2 naming the filter key`, () => {
       const r = dacsmith(command, sample('design-wide-e24.yaml'));
       expect(r.code).toBe(2);
@@ -167,6 +167,11 @@ describe('commands that need a filter, on a design-only file', () => {
       expect(r.stderr).not.toMatch(/at .*\.js:\d+/);
     });
   }
+  it('check exits 2 saying that a run of only design-only files checked nothing (test/cli/commandLine.test.ts has the mixed case)', () => {
+    const r = dacsmith('check', sample('design-wide-e24.yaml'));
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/design-only .*nothing to check/);
+  });
 });
 
 describe('--quiet on the commands that print reports', () => {
