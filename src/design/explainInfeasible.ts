@@ -5,7 +5,7 @@ import { rankCandidates } from './rankCandidates.js';
 import { recheck } from './recheck.js';
 import { relaxProject, type LimitName } from './relaxProject.js';
 import { oneStageRipple } from './oneStageRipple.js';
-import { solveProblem } from './solveProblem.js';
+import { bestDesigns } from './bestDesigns.js';
 import type { Candidate } from './types.js';
 
 /** Factors by which all limits are relaxed together to find the closest designs. */
@@ -45,7 +45,7 @@ export function explainInfeasible(project: Project, problems: DesignProblem[], s
   const searchBits = problems.length > 1 || project.search?.bits !== undefined;
   const solveAll = (p: Project, top: number): Candidate[] =>
     rankCandidates(
-      bitsList.flatMap((b) => solveProblem(designProblem(p, searchBits && b !== null ? b : undefined), top, stageCounts).feasible),
+      bitsList.flatMap((b) => bestDesigns(designProblem(p, searchBits && b !== null ? b : undefined), top, stageCounts).feasible),
     ).slice(0, top);
 
   const names: LimitName[] = [];
@@ -53,6 +53,7 @@ export function explainInfeasible(project: Project, problems: DesignProblem[], s
   if (limits.ripple !== undefined) names.push('ripple');
   if (limits.droop !== undefined) names.push('droop');
   if (limits.inl !== undefined) names.push('inl');
+  if (limits.gain !== undefined) names.push('gain');
   if (limits.settlingTime !== undefined) names.push('settling');
   if (limits.pinCurrent !== undefined) names.push('pin_current');
 
@@ -76,6 +77,11 @@ export function explainInfeasible(project: Project, problems: DesignProblem[], s
         break;
       case 'inl':
         lines.push(`INL binds: the best design without the INL limit has ${volts(without.inl, at)}; the limit is ${volts(lim.inl!, at)}`);
+        break;
+      case 'gain':
+        lines.push(
+          `gain binds: the best design without the gain limit has a gain error of ${percentOf(without.gainError / (at.project.pwm.high - at.project.pwm.low))} of full scale; the limit is ${percentOf(lim.gain!)}`,
+        );
         break;
       case 'settling':
         lines.push(
@@ -103,7 +109,9 @@ export function explainInfeasible(project: Project, problems: DesignProblem[], s
   return { lines, closest, binding };
 }
 
-/** Statements from the circuit alone (no search): pin current, droop, one-stage ripple. */
+const percentOf = (x: number) => `${Number((Math.abs(x) * 100).toPrecision(3))} %`;
+
+/** Statements from the circuit alone (no search): pin current, droop, gain, one-stage ripple. */
 function physicalReasons(p: DesignProblem, stageCounts: number[], volts: (v: number) => string): string[] {
   const out: string[] = [];
   const { pwm, load } = p.project;
@@ -135,6 +143,17 @@ function physicalReasons(p: DesignProblem, stageCounts: number[], volts: (v: num
           `droop ${volts(p.limits.droop)} with the ${ohm(load.resistance)} load allows at most ${ohm(seriesMax)} in series (driver included); the smallest ${fewest}-stage ladder in the range has ${ohm(smallest)}`,
         );
       }
+    }
+  }
+  if (p.limits.gain !== undefined && load.resistance !== undefined && pwm.driver.high === pwm.driver.low) {
+    // Equal drivers: the DC divider of series resistance and load, R_s / (R_L + R_s) of full scale (collectCandidates.ts).
+    const allowed = (load.resistance * p.searchLimits.gain!) / (1 - p.searchLimits.gain!);
+    const fewest = Math.min(...stageCounts);
+    const smallest = pwm.driver.low + r1Min + (fewest - 1) * rMin;
+    if (smallest > allowed) {
+      out.push(
+        `gain error ${percentOf(p.limits.gain)}${p.margin > 0 ? ` (less the ${percentOf(p.margin)} margin)` : ''} with the ${ohm(load.resistance)} load allows at most ${ohm(allowed)} in series (driver included); the smallest ${fewest}-stage ladder in the range has ${ohm(smallest)}${(p.project.search?.buffered ?? []).includes(true) ? '' : '; a follower after the last stage (search.buffered: [false, true]) isolates the load'}`,
+      );
     }
   }
   if (p.limits.ripple !== undefined) {

@@ -183,6 +183,7 @@ spec:
 search:
   stages: [2]
   series: E6
+  margin: 0 %
   resistance: { min: 1k, max: 100k }
   capacitance: { min: 1n, max: 1u }
   bits: { min: 8, max: 11 }
