@@ -95,7 +95,7 @@ function followerNote(list: Candidate[]): Block[] {
   return [
     {
       kind: 'text',
-      text: `${which.join(', ')} ${FOLLOWER_NOTE} (unity gain) after the last stage, marked +follower. The figures assume an ideal one: pick a part whose input and output ranges cover the signal (rail-to-rail where it must reach the supply), that is stable driving the load, and add its offset to the DC error; see its data sheet.`,
+      text: `${which.join(', ')}: ${FOLLOWER_NOTE} (unity gain) after the last stage, marked +follower. The figures assume an ideal one: pick a part whose input and output ranges cover the signal (rail-to-rail where it must reach the supply), that is stable driving the load, and add its offset to the DC error; see its data sheet.`,
     },
   ];
 }
@@ -236,7 +236,7 @@ export function designDocument(project: Project, result: DesignResult, options: 
     ['Settling', `to within ${volts(basis.band, lsb)} after a step ${step}`],
     ['Margin', `every recommended design keeps ${percent(basis.margin)} of each limit in reserve (search.margin); the table shows each design's own margins`],
     ...(basis.buffered.includes(true)
-      ? ([['Follower', `${basis.buffered.includes(false) ? 'also' : 'only'} designs with an ideal unity-gain follower after the last stage (search.buffered): they ${FOLLOWER_NOTE}`]] as Array<[string, string]>)
+      ? ([['Follower', `${basis.buffered.includes(false) ? 'also' : 'only'} designs with an ideal unity-gain follower after the last stage (search.buffered); such a design ${FOLLOWER_NOTE}`]] as Array<[string, string]>)
       : []),
     ['Ranking', `settling time, then fewer stages, ${basis.buffered.includes(true) ? 'then no follower, ' : ''}then smaller total capacitance`],
     [
