@@ -118,3 +118,13 @@ describe('E24 resistors, E12 capacitors and a 10 % margin', () => {
     expect(readFileSync(written, 'utf8')).toContain('# Invented scenario');
   });
 });
+
+describe('sample-configs/design-follower-10k.yaml (the demo of the 10 kohm situation)', () => {
+  it('passes with follower designs only: no plain RC ladder keeps the full scale into 10 kohm', () => {
+    const r = runBuilt(['design', 'sample-configs/design-follower-10k.yaml', '--format', 'json', '--no-charts', '--top', '3']);
+    expect(r.code).toBe(0);
+    const out = json(r.stdout);
+    expect(out.candidates.length).toBe(3);
+    for (const c of out.candidates) expect(c.needsFollower).toBe(true);
+  });
+});
