@@ -1,6 +1,7 @@
 import type { DesignProblem } from './designProblem.js';
 import { fastLadderOf, type FastLadder } from './fast/fastLadder.js';
 import { fastSettlingBound } from './fast/fastSettlingBound.js';
+import { gainFloor } from './gainFloor.js';
 import { fastSteadyState, type FastSteady } from './fast/fastSteadyState.js';
 import { maximizeOverDuty } from './fast/maximizeOverDuty.js';
 import { twoStageSteady, type TwoStageSteady } from './fast/twoStageSteady.js';
@@ -62,9 +63,9 @@ const exceeds = (value: number, limit: number | undefined) => limit !== undefine
  * rule out and whose settling lower bound is at most state.theta (which may fall as candidates
  * come in). Ruled out, each by a lower bound on the engine's figure: pin peak current over the
  * limit (R1 only); droop over the limit (resistors only, below; with unequal drivers also the
- * fast droop maximised over the duty); gain error over the limit (equal drivers: resistors only,
- * R_s / (R_L + R_s) of full scale, the DC divider of the series resistance and the load, exact;
- * unequal drivers: the fast model's endpoint averages); the ripple at the duty nearest 50 % over the limit; never
+ * fast droop maximised over the duty); gain error over the limit (resistors only, gainFloor.ts:
+ * R_s / (R_L + R_s) of full scale for equal drivers, the DC divider of the series resistance and
+ * the load; with unequal drivers also the fast model's exact endpoint averages); the ripple at the duty nearest 50 % over the limit; never
  * settling; settling lower bound over the time limit.
  *
  * Droop floor from the resistors alone (high-side driver resistance >= low-side, low >= 0, a load):
@@ -113,8 +114,8 @@ export function collectCandidates(
   const checkTo = limits.ripple === undefined || problem.band * 2 < limits.ripple;
   // Droop floor from the resistors alone (see above).
   const droopFloorApplies = pwm.driver.high >= pwm.driver.low && pwm.low >= 0 && loadR !== null && limits.droop !== undefined;
-  // Gain floor from the resistors alone, exact for equal drivers (see gainShortfall in evaluate for the rest).
-  const gainFloorApplies = lti && loadR !== null && limits.gain !== undefined;
+  // Gain floor from the resistors alone (gainFloor.ts): exact for equal drivers, a proven bound otherwise.
+  const gainFloorApplies = loadR !== null && limits.gain !== undefined;
   const idealTop = Math.max(pwm.low + problem.dutyMin * (pwm.high - pwm.low), pwm.low + problem.dutyMax * (pwm.high - pwm.low));
 
   // Resistor tuples that pass the pin current and (time-invariant) droop limits, with bounds.
@@ -137,12 +138,7 @@ export function collectCandidates(
       for (const r of rs) series += r;
       if (exceeds((idealTop * series) / (loadR! + series), limits.droop)) continue;
     }
-    if (gainFloorApplies) {
-      // Equal drivers: average = (low + D span) R_L / (R_L + R_s) exactly, so |gain error| / span = R_s / (R_L + R_s).
-      let series = pwm.driver.low;
-      for (const r of rs) series += r;
-      if (exceeds(series / (loadR! + series), limits.gain)) continue;
-    }
+    if (gainFloorApplies && exceeds(gainFloor(circuit, rs, problem.dutyMin, problem.dutyMax), limits.gain)) continue;
     const tb = tupleBounds(problem, rs);
     const tauFloor = Math.max(tb.tauMin, slowestTimeConstant(rs, minC, tb.driver, loadR, loadC));
     tuples.push(rs);

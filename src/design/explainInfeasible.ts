@@ -1,5 +1,6 @@
 import type { Project } from '../project/types.js';
 import { formatEng } from '../units/index.js';
+import { gainFloor } from './gainFloor.js';
 import { designProblem, type DesignProblem } from './designProblem.js';
 import { rankCandidates } from './rankCandidates.js';
 import { recheck } from './recheck.js';
@@ -145,14 +146,19 @@ function physicalReasons(p: DesignProblem, stageCounts: number[], volts: (v: num
       }
     }
   }
-  if (p.limits.gain !== undefined && load.resistance !== undefined && pwm.driver.high === pwm.driver.low) {
-    // Equal drivers: the DC divider of series resistance and load, R_s / (R_L + R_s) of full scale (collectCandidates.ts).
-    const allowed = (load.resistance * p.searchLimits.gain!) / (1 - p.searchLimits.gain!);
+  if (p.limits.gain !== undefined && load.resistance !== undefined && !p.buffered) {
+    // The DC divider of series resistance and load (gainFloor.ts), for the smallest ladder allowed.
     const fewest = Math.min(...stageCounts);
-    const smallest = pwm.driver.low + r1Min + (fewest - 1) * rMin;
-    if (smallest > allowed) {
+    const rs = [r1Min, ...new Array<number>(fewest - 1).fill(rMin)];
+    const floor = gainFloor(p.circuit, rs, p.dutyMin, p.dutyMax);
+    if (floor > p.searchLimits.gain!) {
+      const limit = `gain error ${percentOf(p.limits.gain)}${p.margin > 0 ? ` (less the ${percentOf(p.margin)} margin)` : ''} with the ${ohm(load.resistance)} load`;
+      const smallest = Math.min(pwm.driver.high, pwm.driver.low) + rs.reduce((a, b) => a + b, 0);
+      const follower = (p.project.search?.buffered ?? []).includes(true) ? '' : '; a follower after the last stage (search.buffered: [false, true]) isolates the load';
       out.push(
-        `gain error ${percentOf(p.limits.gain)}${p.margin > 0 ? ` (less the ${percentOf(p.margin)} margin)` : ''} with the ${ohm(load.resistance)} load allows at most ${ohm(allowed)} in series (driver included); the smallest ${fewest}-stage ladder in the range has ${ohm(smallest)}${(p.project.search?.buffered ?? []).includes(true) ? '' : '; a follower after the last stage (search.buffered: [false, true]) isolates the load'}`,
+        pwm.driver.high === pwm.driver.low
+          ? `${limit} allows at most ${ohm((load.resistance * p.searchLimits.gain!) / (1 - p.searchLimits.gain!))} in series (driver included); the smallest ${fewest}-stage ladder in the range has ${ohm(smallest)}${follower}`
+          : `${limit}: the smallest ${fewest}-stage ladder in the range (${ohm(smallest)} in series, driver included) loses at least ${percentOf(floor)} of full scale${follower}`,
       );
     }
   }
