@@ -128,3 +128,37 @@ describe('sample-configs/design-follower-10k.yaml (the demo of the 10 kohm situa
     for (const c of out.candidates) expect(c.needsFollower).toBe(true);
   });
 });
+
+describe('designs that meet the limits only without the margin', () => {
+  it('are listed with their margins under a FAIL that says so (exit 1), not passed silently', () => {
+    // Invented: 100 ohm + 100 ohm into 10 kohm loses 200 / 10200 = 1.96 % of full scale (Ohm's
+    // law): inside the 2 % gain limit, not inside it less the 10 % margin.
+    const file = join(dir, 'margin-only.yaml');
+    writeFileSync(
+      file,
+      `pwm: { frequency: 20 kHz, bits: 10, high: 3.3 V, low: 0 V, duty: { min: 5 %, max: 95 % } }
+load: { resistance: 10k }
+spec:
+  ripple: 2 LSB
+search:
+  stages: [1, 2]
+  series: E3
+  resistance: { min: 100, max: 10k }
+  capacitance: { min: 100n, max: 10u }
+`,
+    );
+    const r = runBuilt(['design', file, '--no-charts', '--top', '3']);
+    expect(r.code).toBe(1);
+    expect(r.stdout).toMatch(/No design meets every limit with the 10\.0 % margin/);
+    expect(r.stdout).toMatch(/FAIL: no design keeps the 10\.0 % margin to every limit; 3 meet the limits without it/);
+    const out = json(runBuilt(['design', file, '--format', 'json', '--no-charts', '--top', '3']).stdout);
+    expect(out.pass).toBe(false);
+    expect(out.diagnosis[0]).toMatch(/^no design keeps the 10 % margin/);
+    for (const c of out.candidates) {
+      expect(c.pass).toBe(true);
+      expect(c.keepsMargin).toBe(false);
+      expect(c.margins.gain!).toBeGreaterThanOrEqual(0);
+      expect(c.margins.gain!).toBeLessThan(0.1);
+    }
+  });
+});
