@@ -369,6 +369,7 @@ describe('search.buffered: an ideal follower after the last stage', () => {
     ['10 kohm load: only follower designs meet the gain limit', { load: '{ resistance: 10k }', margin: '10 %', buffered: '[false, true]', stages: '[1, 2]' }],
     ['a light load, unequal drivers: both kinds compete', { load: '{ resistance: 10M, capacitance: 4.7n }', driver: '{ high: 40 ohm, low: 25 ohm }', margin: '10 %', buffered: '[false, true]', droop: '4 LSB' }],
     ['only with a follower', { load: '{ resistance: 47k, capacitance: 10n }', buffered: '[true]', stages: '[2]', margin: '10 %' }],
+    ['two and three stages, unequal drivers, a heavy load', { stages: '[2, 3]', ripple: '0.1 LSB', rmin: '2.2k', cmin: '47n', driver: '{ high: 40 ohm, low: 25 ohm }', load: '{ resistance: 100k, capacitance: 220p }', buffered: '[false, true]', margin: '10 %' }],
   ];
   for (const [name, o] of cases) {
     it(`equals exhaustive search over both options: ${name}`, () => {
