@@ -27,7 +27,8 @@ export function withDesign(text: string, candidate: Pick<Candidate, 'stages' | '
     if (s.buffered) m.set('buffered', true); // an op-amp follower after this stage
     stages.items.push(m);
   }
-  if (note) stages.commentBefore = ` ${note}`;
+  const follower = candidate.stages.some((s) => s.buffered) ? ' needs an op-amp follower where buffered: true (an ideal unity-gain one assumed)' : '';
+  if (note || follower) stages.commentBefore = [note ? ` ${note}` : '', follower].filter((x) => x !== '').join('\n');
   if (!isMap(doc.get('filter'))) doc.set('filter', new YAMLMap());
   doc.setIn(['filter', 'stages'], stages);
   if (candidate.bits !== null && doc.hasIn(['pwm', 'bits']) && doc.getIn(['pwm', 'bits']) !== candidate.bits) {
