@@ -1,6 +1,7 @@
 import type { DesignProblem } from './designProblem.js';
 import { fastLadderOf, type FastLadder } from './fast/fastLadder.js';
 import { fastSettlingBound } from './fast/fastSettlingBound.js';
+import { gainFloor } from './gainFloor.js';
 import { fastSteadyState, type FastSteady } from './fast/fastSteadyState.js';
 import { maximizeOverDuty } from './fast/maximizeOverDuty.js';
 import { twoStageSteady, type TwoStageSteady } from './fast/twoStageSteady.js';
@@ -43,7 +44,7 @@ export interface CollectState {
 
 /** A fresh state: theta starts at the settling-time limit (nothing slower is feasible). */
 export function newCollectState(problem: DesignProblem, top: number): CollectState {
-  const cap = problem.limits.settlingTime;
+  const cap = problem.searchLimits.settlingTime;
   return {
     top,
     theta: cap === undefined ? Infinity : cap * (1 + REL) + ABS_T,
@@ -62,7 +63,9 @@ const exceeds = (value: number, limit: number | undefined) => limit !== undefine
  * rule out and whose settling lower bound is at most state.theta (which may fall as candidates
  * come in). Ruled out, each by a lower bound on the engine's figure: pin peak current over the
  * limit (R1 only); droop over the limit (resistors only, below; with unequal drivers also the
- * fast droop maximised over the duty); the ripple at the duty nearest 50 % over the limit; never
+ * fast droop maximised over the duty); gain error over the limit (resistors only, gainFloor.ts:
+ * R_s / (R_L + R_s) of full scale for equal drivers, the DC divider of the series resistance and
+ * the load; with unequal drivers also the fast model's exact endpoint averages); the ripple at the duty nearest 50 % over the limit; never
  * settling; settling lower bound over the time limit.
  *
  * Droop floor from the resistors alone (high-side driver resistance >= low-side, low >= 0, a load):
@@ -71,6 +74,10 @@ const exceeds = (value: number, limit: number | undefined) => limit !== undefine
  * delivers while high (the first node never exceeds the high level); hence droop >= ideal R_s /
  * (R_L + R_s), R_s = R_dl + sum R (exact for equal drivers). Derived here from Kirchhoff's laws;
  * test/design/settlingBounds.test.ts checks it against the engine.
+ *
+ * Every limit is problem.searchLimits (the file's, less search.margin). With a follower after the
+ * last stage (problem.buffered) the ladder is unloaded (problem.circuit) and every bound here
+ * holds for that unloaded ladder unchanged.
  *
  * Method: resistor tuples in ascending order of a lower bound on their best settling time
  * (settlingBounds.ts); the walk stops when that bound passes theta. For each tuple, capacitor
@@ -93,19 +100,22 @@ export function collectCandidates(
   state: CollectState,
   onTuple?: (done: number, total: number) => void,
 ): void {
-  const { rValues: R, cValues: C, limits, project } = problem;
-  const { pwm, load } = project;
+  const { rValues: R, cValues: C, searchLimits: limits, project, circuit } = problem;
+  const { pwm } = project;
   const lti = pwm.driver.high === pwm.driver.low;
   const span = Math.abs(pwm.high - pwm.low);
   const nR = R.length;
   const nC = C.length;
-  const loadR = load.resistance ?? null;
-  const loadC = load.capacitance;
+  // The load as the ladder sees it: none behind a follower (designProblem.ts, circuit).
+  const loadR = circuit.loadResistance;
+  const loadC = circuit.loadCapacitance;
   const dNear = Math.min(problem.dutyMax, Math.max(problem.dutyMin, 0.5));
   const toDuties = [...new Set(problem.steps.map((s) => s[1]))];
   const checkTo = limits.ripple === undefined || problem.band * 2 < limits.ripple;
   // Droop floor from the resistors alone (see above).
   const droopFloorApplies = pwm.driver.high >= pwm.driver.low && pwm.low >= 0 && loadR !== null && limits.droop !== undefined;
+  // Gain floor from the resistors alone (gainFloor.ts): exact for equal drivers, a proven bound otherwise.
+  const gainFloorApplies = loadR !== null && limits.gain !== undefined;
   const idealTop = Math.max(pwm.low + problem.dutyMin * (pwm.high - pwm.low), pwm.low + problem.dutyMax * (pwm.high - pwm.low));
 
   // Resistor tuples that pass the pin current and (time-invariant) droop limits, with bounds.
@@ -128,6 +138,7 @@ export function collectCandidates(
       for (const r of rs) series += r;
       if (exceeds((idealTop * series) / (loadR! + series), limits.droop)) continue;
     }
+    if (gainFloorApplies && exceeds(gainFloor(circuit, rs, problem.dutyMin, problem.dutyMax), limits.gain)) continue;
     const tb = tupleBounds(problem, rs);
     const tauFloor = Math.max(tb.tauMin, slowestTimeConstant(rs, minC, tb.driver, loadR, loadC));
     tuples.push(rs);
@@ -203,6 +214,12 @@ export function collectCandidates(
       for (let i = 0; i <= 8; i++) {
         if (exceeds(droopError(problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8), limits.droop)) return;
       }
+    }
+    // Unequal drivers: the endpoint-fit gain error from the fast model's exact averages at the two
+    // ends of the used range (engine/dcTransfer.ts defines it the same way).
+    if (!lti && limits.gain !== undefined && problem.dutyMax > problem.dutyMin) {
+      const slope = (lite(rs, cs, problem.dutyMax).average - lite(rs, cs, problem.dutyMin).average) / (problem.dutyMax - problem.dutyMin);
+      if (exceeds(Math.abs(slope - (pwm.high - pwm.low)) / span, limits.gain)) return;
     }
     // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
     const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);

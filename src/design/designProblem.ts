@@ -16,7 +16,17 @@ export interface DesignProblem {
   period: number;
   dutyMin: number;
   dutyMax: number;
+  /** The file's limits at this resolution (what the checks and reports compare with). */
   limits: DesignLimits;
+  /**
+   * The limits the search prunes and accepts against: each of `limits` scaled by (1 - margin), so
+   * that every recommended design keeps search.margin of headroom (model.md 1.1).
+   */
+  searchLimits: DesignLimits;
+  /** search.margin, fraction. */
+  margin: number;
+  /** This problem's ladders have an ideal follower after the last stage (search.buffered). */
+  buffered: boolean;
   /** Settling band, V. */
   band: number;
   /** Settling steps [from, to]; the slowest counts (two for the default full-range step). */
@@ -25,11 +35,18 @@ export interface DesignProblem {
   defaultStep: boolean;
   stageCounts: number[];
   series: string;
+  resistorSeries: string;
+  capacitorSeries: string;
   rValues: number[];
   cValues: number[];
-  /** The project's circuit around the ladder (PWM source, load). */
+  /**
+   * The circuit around the ladder as the ladder itself sees it (PWM source, load): the fast model
+   * and the bounds use it. With a follower after the last stage the load hangs on the follower,
+   * so the ladder is unloaded here (no load resistance or capacitance), exactly as the engine
+   * models it (circuit/stateSpace.ts).
+   */
   circuit: Omit<Ladder, 'stages'>;
-  /** A ladder of the project's circuit with other stages (unbuffered). */
+  /** A ladder of the project's circuit with other stages (the last one buffered when `buffered`). */
   ladderOf(r: ArrayLike<number>, c: ArrayLike<number>): Ladder;
 }
 
@@ -42,10 +59,14 @@ export interface DesignProblem {
  * given (a missing end takes that end of the used range), else the full used range rising and
  * falling; band from the spec, else 0.5 LSB, else 0.1 % of full scale.
  *
- * Syntax: designProblem(project[, bits])
+ * Limits: `limits` are the file's (gain as a fraction of full scale), `searchLimits` the same
+ * scaled by (1 - search.margin), what the search must meet. With `buffered` every ladder gets an
+ * ideal unity-gain follower after its last stage (model.md, Ladder).
+ *
+ * Syntax: designProblem(project[, bits][, buffered])
  * Example: designProblem(loadProject('board.yaml'), 12).frequency   // clock / 4096 for edge PWM
  */
-export function designProblem(project: Project, bits?: number): DesignProblem {
+export function designProblem(project: Project, bits?: number, buffered = false): DesignProblem {
   const search = project.search;
   if (!search) throw new DesignInputError(`${project.file}: search: missing; add a search section (stages, series, resistance, capacitance) to design a filter`);
   const at = bits === undefined ? project : projectAtResolution(project, bits);
@@ -70,9 +91,13 @@ export function designProblem(project: Project, bits?: number): DesignProblem {
     ...(spec.ripple !== undefined && { ripple: spec.ripple }),
     ...(spec.droop !== undefined && { droop: spec.droop }),
     ...(spec.inl !== undefined && { inl: spec.inl }),
+    ...(spec.gain !== undefined && { gain: spec.gain }),
     ...(settling?.time !== undefined && { settlingTime: settling.time }),
     ...(search.pinCurrent !== undefined && { pinCurrent: search.pinCurrent }),
   };
+  const margin = search.margin;
+  const searchLimits: DesignLimits = {};
+  for (const key of Object.keys(limits) as Array<keyof DesignLimits>) searchLimits[key] = limits[key]! * (1 - margin);
   const base = {
     period: 1 / pwm.frequency,
     high: pwm.high,
@@ -82,6 +107,8 @@ export function designProblem(project: Project, bits?: number): DesignProblem {
     loadResistance: at.load.resistance ?? null,
     loadCapacitance: at.load.capacitance,
   };
+  const seen = buffered ? { ...base, loadResistance: null, loadCapacitance: 0 } : base;
+  const last = (k: number, n: number) => buffered && k === n - 1;
   return {
     project: at,
     bits: pwm.bits ?? null,
@@ -91,17 +118,22 @@ export function designProblem(project: Project, bits?: number): DesignProblem {
     dutyMin,
     dutyMax,
     limits,
+    searchLimits,
+    margin,
+    buffered,
     band: settling?.band ?? defaultBand(at),
     steps,
     defaultStep: !hasStep,
     stageCounts: [...search.stages].sort((a, b) => a - b),
     series: search.series.resistor === search.series.capacitor ? search.series.resistor : `${search.series.resistor} resistors, ${search.series.capacitor} capacitors`,
+    resistorSeries: search.series.resistor,
+    capacitorSeries: search.series.capacitor,
     rValues,
     cValues,
-    circuit: base,
+    circuit: seen,
     ladderOf: (r, c) => {
       const stages = [];
-      for (let k = 0; k < r.length; k++) stages.push({ r: r[k], c: c[k], buffered: false });
+      for (let k = 0; k < r.length; k++) stages.push({ r: r[k], c: c[k], buffered: last(k, r.length) });
       return { ...base, stages };
     },
   };

@@ -5,15 +5,18 @@ import { DesignInputError } from './designInputError.js';
 import { explainInfeasible } from './explainInfeasible.js';
 import { exactCandidate } from './exactCandidate.js';
 import { rankCandidates } from './rankCandidates.js';
-import { solveProblem, type ProblemOutcome } from './solveProblem.js';
+import { recheck } from './recheck.js';
+import { bestDesigns } from './bestDesigns.js';
+import type { ProblemOutcome } from './solveProblem.js';
 import type { Candidate, DesignOptions, DesignResult, ResolutionRow } from './types.js';
 
 /**
  * Recommend standard-value RC filters for a project: the `top` best feasible designs of the
- * discrete space of project.search (stage counts, IEC 60063 series, resistor and capacitor
- * ranges, pin current limit), ranked by settling time, then fewer stages, then smaller total
- * capacitance. Feasible: worst ripple, droop, INL, settling time and pin peak current all meet
- * the spec. With pwm.clock and search.bits the resolution (and so the PWM frequency) is searched
+ * discrete space of project.search (stage counts, IEC 60063 series of resistors and of capacitors,
+ * resistor and capacitor ranges, pin current limit, follower options), ranked by settling time,
+ * then fewer stages, then smaller total capacitance. Feasible: worst ripple, droop, INL, gain error,
+ * settling time and pin peak current each at least search.margin inside its limit. When nothing
+ * is, but some designs meet the limits without the margin, the diagnosis says so and lists them. With pwm.clock and search.bits the resolution (and so the PWM frequency) is searched
  * too, LSB limits scaling with each resolution. Every figure of every candidate is the exact
  * engine's; the project's own `filter:` design is evaluated alongside for comparison.
  *
@@ -38,7 +41,7 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
       : [base];
 
   const outcomes: ProblemOutcome[] = problems.map((problem, i) =>
-    solveProblem(problem, top, stageCounts, (f) => options.onProgress?.((i + f) / problems.length)),
+    bestDesigns(problem, top, stageCounts, (f) => options.onProgress?.((i + f) / problems.length)),
   );
   const candidates = rankCandidates(outcomes.flatMap((o) => o.feasible)).slice(0, top);
   const resolutions: ResolutionRow[] =
@@ -53,9 +56,17 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
   let shown = candidates;
   let diagnosis: string[] = [];
   if (!feasible && (options.diagnose ?? true)) {
-    const explained = explainInfeasible(project, problems, stageCounts);
-    diagnosis = explained.lines;
-    shown = explained.closest;
+    const withoutMargin = base.margin > 0 ? designsWithoutMargin(project, problems, top, stageCounts) : [];
+    if (withoutMargin.length > 0) {
+      diagnosis = [
+        `no design keeps the ${percentText(base.margin)} margin (search.margin) to every limit; ${withoutMargin.length === top ? `at least ${top}` : withoutMargin.length} design${withoutMargin.length > 1 ? 's' : ''} meet the limits themselves (listed below with their margins): lower search.margin to accept them, or widen the search`,
+      ];
+      shown = withoutMargin;
+    } else {
+      const explained = explainInfeasible(project, problems, stageCounts);
+      diagnosis = explained.lines;
+      shown = explained.closest;
+    }
   }
   const evaluated = outcomes.reduce((s, o) => s + o.evaluated, 0);
   const verified = outcomes.reduce((s, o) => s + o.verified, 0);
@@ -71,6 +82,10 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
     basis: {
       stageCounts,
       series: base.series,
+      resistorSeries: base.resistorSeries,
+      capacitorSeries: base.capacitorSeries,
+      margin: base.margin,
+      buffered: [...new Set(project.search?.buffered ?? [false])],
       resistance: { min: base.rValues[0], max: base.rValues[base.rValues.length - 1] },
       capacitance: { min: base.cValues[0], max: base.cValues[base.cValues.length - 1] },
       limits: base.limits,
@@ -80,6 +95,17 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
     },
   };
 }
+
+/** The best designs that meet every limit when the margin is 0 (checked with the real margin: keepsMargin false). */
+function designsWithoutMargin(project: Project, problems: DesignProblem[], top: number, stageCounts: number[]): Candidate[] {
+  const bare: Project = { ...project, search: { ...project.search!, margin: 0 } };
+  const found = problems.flatMap((p) => bestDesigns(designProblem(bare, problems.length > 1 || project.search?.bits ? (p.bits ?? undefined) : undefined), top, stageCounts).feasible);
+  return rankCandidates(found)
+    .slice(0, top)
+    .map((c) => recheck(problems.find((p) => p.bits === c.bits) ?? problems[0], c));
+}
+
+const percentText = (x: number) => `${Number((x * 100).toPrecision(4))} %`;
 
 function range(min: number, max: number): number[] {
   const out: number[] = [];

@@ -1,4 +1,4 @@
-import { specChecks } from '../engine/checks.js';
+import { specChecks, type Check } from '../engine/checks.js';
 import { dcTransfer, defaultSettling, pinPeakCurrent, settlingTime, worstRipple } from '../engine/index.js';
 import type { Settling } from '../engine/types.js';
 import type { Ladder } from '../circuit/ladder.js';
@@ -11,7 +11,8 @@ import type { Candidate } from './types.js';
  * Every number the design report shows for a candidate comes from here.
  *
  * Method: engine/index.ts (worstRipple, dcTransfer, settlingTime or defaultSettling,
- * pinPeakCurrent) and engine/checks.ts (specChecks), exactly as `analyze` computes them.
+ * pinPeakCurrent) and engine/checks.ts (specChecks), exactly as `analyze` computes them; the
+ * margins against the file's limits and against search.margin by marginsOf below.
  *
  * Syntax: exactCandidate(problem, ladder)
  * Example: exactCandidate(problem, problem.ladderOf([4700], [100e-9])).settlingTime   // s, or null
@@ -27,6 +28,7 @@ export function exactCandidate(problem: DesignProblem, ladder: Ladder): Candidat
   const checks = specChecks(problem.project, { worstRipple: ripple, dc, settling, pinPeakCurrent: pinCurrent });
   let totalCapacitance = 0;
   for (const s of ladder.stages) totalCapacitance += s.c;
+  const pass = settling.time !== null && checks.every((k) => k.pass);
   return {
     stages: ladder.stages.map((s) => (s.buffered ? { r: s.r, c: s.c, buffered: true } : { r: s.r, c: s.c })),
     bits: problem.bits,
@@ -36,10 +38,31 @@ export function exactCandidate(problem: DesignProblem, ladder: Ladder): Candidat
     droop: Math.abs(dc.droop.error),
     droopDuty: dc.droop.duty,
     inl: Math.abs(dc.inl.error),
+    gainError: dc.gainError,
     settlingTime: settling.time,
     pinCurrent,
     totalCapacitance,
     checks,
-    pass: settling.time !== null && checks.every((k) => k.pass),
+    pass,
+    ...marginsOf(checks, problem.margin, pass),
+    needsFollower: ladder.stages[ladder.stages.length - 1].buffered,
   };
+}
+
+/**
+ * Headroom per check, (limit - value) / limit, and whether every check meets its limit scaled by
+ * (1 - margin) (the same comparison the search prunes with, designProblem.ts searchLimits).
+ *
+ * Syntax: marginsOf(checks, margin, pass)
+ * Example: marginsOf([{ name: 'ripple', value: 0.8, limit: 1, pass: true, unit: 'V' }], 0.1, true)
+ *          // { margins: { ripple: 0.2 }, keepsMargin: true }
+ */
+export function marginsOf(checks: readonly Check[], margin: number, pass: boolean): Pick<Candidate, 'margins' | 'keepsMargin'> {
+  const margins: Candidate['margins'] = {};
+  let keepsMargin = pass;
+  for (const k of checks) {
+    margins[k.name] = k.value === null ? null : (k.limit - k.value) / k.limit;
+    if (k.value === null || !(k.value <= k.limit * (1 - margin))) keepsMargin = false;
+  }
+  return { margins, keepsMargin };
 }

@@ -1,11 +1,12 @@
 import type { Project } from '../project/types.js';
 import { formatEng } from '../units/index.js';
+import { gainFloor } from './gainFloor.js';
 import { designProblem, type DesignProblem } from './designProblem.js';
 import { rankCandidates } from './rankCandidates.js';
 import { recheck } from './recheck.js';
 import { relaxProject, type LimitName } from './relaxProject.js';
 import { oneStageRipple } from './oneStageRipple.js';
-import { solveProblem } from './solveProblem.js';
+import { bestDesigns } from './bestDesigns.js';
 import type { Candidate } from './types.js';
 
 /** Factors by which all limits are relaxed together to find the closest designs. */
@@ -45,7 +46,7 @@ export function explainInfeasible(project: Project, problems: DesignProblem[], s
   const searchBits = problems.length > 1 || project.search?.bits !== undefined;
   const solveAll = (p: Project, top: number): Candidate[] =>
     rankCandidates(
-      bitsList.flatMap((b) => solveProblem(designProblem(p, searchBits && b !== null ? b : undefined), top, stageCounts).feasible),
+      bitsList.flatMap((b) => bestDesigns(designProblem(p, searchBits && b !== null ? b : undefined), top, stageCounts).feasible),
     ).slice(0, top);
 
   const names: LimitName[] = [];
@@ -53,6 +54,7 @@ export function explainInfeasible(project: Project, problems: DesignProblem[], s
   if (limits.ripple !== undefined) names.push('ripple');
   if (limits.droop !== undefined) names.push('droop');
   if (limits.inl !== undefined) names.push('inl');
+  if (limits.gain !== undefined) names.push('gain');
   if (limits.settlingTime !== undefined) names.push('settling');
   if (limits.pinCurrent !== undefined) names.push('pin_current');
 
@@ -76,6 +78,11 @@ export function explainInfeasible(project: Project, problems: DesignProblem[], s
         break;
       case 'inl':
         lines.push(`INL binds: the best design without the INL limit has ${volts(without.inl, at)}; the limit is ${volts(lim.inl!, at)}`);
+        break;
+      case 'gain':
+        lines.push(
+          `gain binds: the best design without the gain limit has a gain error of ${percentOf(without.gainError / (at.project.pwm.high - at.project.pwm.low))} of full scale; the limit is ${percentOf(lim.gain!)}`,
+        );
         break;
       case 'settling':
         lines.push(
@@ -103,7 +110,9 @@ export function explainInfeasible(project: Project, problems: DesignProblem[], s
   return { lines, closest, binding };
 }
 
-/** Statements from the circuit alone (no search): pin current, droop, one-stage ripple. */
+const percentOf = (x: number) => `${Number((Math.abs(x) * 100).toPrecision(3))} %`;
+
+/** Statements from the circuit alone (no search): pin current, droop, gain, one-stage ripple. */
 function physicalReasons(p: DesignProblem, stageCounts: number[], volts: (v: number) => string): string[] {
   const out: string[] = [];
   const { pwm, load } = p.project;
@@ -135,6 +144,22 @@ function physicalReasons(p: DesignProblem, stageCounts: number[], volts: (v: num
           `droop ${volts(p.limits.droop)} with the ${ohm(load.resistance)} load allows at most ${ohm(seriesMax)} in series (driver included); the smallest ${fewest}-stage ladder in the range has ${ohm(smallest)}`,
         );
       }
+    }
+  }
+  if (p.limits.gain !== undefined && load.resistance !== undefined && !p.buffered) {
+    // The DC divider of series resistance and load (gainFloor.ts), for the smallest ladder allowed.
+    const fewest = Math.min(...stageCounts);
+    const rs = [r1Min, ...new Array<number>(fewest - 1).fill(rMin)];
+    const floor = gainFloor(p.circuit, rs, p.dutyMin, p.dutyMax);
+    if (floor > p.searchLimits.gain!) {
+      const limit = `gain error ${percentOf(p.limits.gain)}${p.margin > 0 ? ` (less the ${percentOf(p.margin)} margin)` : ''} with the ${ohm(load.resistance)} load`;
+      const smallest = Math.min(pwm.driver.high, pwm.driver.low) + rs.reduce((a, b) => a + b, 0);
+      const follower = (p.project.search?.buffered ?? []).includes(true) ? '' : '; a follower after the last stage (search.buffered: [false, true]) isolates the load';
+      out.push(
+        pwm.driver.high === pwm.driver.low
+          ? `${limit} allows at most ${ohm((load.resistance * p.searchLimits.gain!) / (1 - p.searchLimits.gain!))} in series (driver included); the smallest ${fewest}-stage ladder in the range has ${ohm(smallest)}${follower}`
+          : `${limit}: the smallest ${fewest}-stage ladder in the range (${ohm(smallest)} in series, driver included) loses at least ${percentOf(floor)} of full scale${follower}`,
+      );
     }
   }
   if (p.limits.ripple !== undefined) {

@@ -5,7 +5,7 @@ export const SETTLING_TIE = 1e-9;
 
 /**
  * Candidates in recommendation order: shorter settling time first (a design that never settles
- * last), then fewer stages, then smaller total capacitance; remaining ties by smaller total
+ * last), then fewer stages, then no follower before a follower, then smaller total capacitance; remaining ties by smaller total
  * resistance, then by the values stage by stage, so the order is fully determined.
  *
  * Method: sort by settling time, then cut the sorted list into groups whose settling times lie
@@ -35,6 +35,10 @@ function secondary(a: Pick<Candidate, 'stages'>, b: Pick<Candidate, 'stages'>): 
   const sum = (c: Pick<Candidate, 'stages'>, key: 'r' | 'c') => c.stages.reduce((s, st) => s + st[key], 0);
   const byStages = a.stages.length - b.stages.length;
   if (byStages !== 0) return byStages;
+  // Without an op-amp follower before with one (search.buffered).
+  const follower = (c: Pick<Candidate, 'stages'>) => (c.stages[c.stages.length - 1]?.buffered ? 1 : 0);
+  const byFollower = follower(a) - follower(b);
+  if (byFollower !== 0) return byFollower;
   const byC = sum(a, 'c') - sum(b, 'c');
   if (byC !== 0) return byC;
   const byR = sum(a, 'r') - sum(b, 'r');

@@ -1,5 +1,6 @@
 import { specChecks } from '../engine/checks.js';
 import type { DesignProblem } from './designProblem.js';
+import { marginsOf } from './exactCandidate.js';
 import type { Candidate } from './types.js';
 
 /**
@@ -19,10 +20,11 @@ export function recheck(problem: DesignProblem, candidate: Candidate): Candidate
       droop: { duty: candidate.droopDuty, error: candidate.droop },
       inl: { duty: 0, error: candidate.inl },
       offsetError: 0,
-      gainError: 0,
+      gainError: candidate.gainError,
     },
     settling: { from: problem.steps[0][0], to: problem.steps[0][1], band: problem.band, time: candidate.settlingTime },
     pinPeakCurrent: candidate.pinCurrent,
   });
-  return { ...candidate, checks, pass: candidate.settlingTime !== null && checks.every((c) => c.pass) };
+  const pass = candidate.settlingTime !== null && checks.every((c) => c.pass);
+  return { ...candidate, checks, pass, ...marginsOf(checks, problem.margin, pass) };
 }

@@ -46,8 +46,10 @@ export interface TupleBounds {
  * Example: tupleBounds(problem, [4700, 47e3]).tauMin   // s
  */
 export function tupleBounds(problem: DesignProblem, r: ArrayLike<number>): TupleBounds {
-  const { project, limits, band, steps, dutyMin, dutyMax, period } = problem;
-  const { pwm, load } = project;
+  const { project, searchLimits: limits, band, steps, dutyMin, dutyMax, period, circuit } = problem;
+  const { pwm } = project;
+  // The load as the ladder sees it (none behind a follower after the last stage).
+  const load = { resistance: circuit.loadResistance ?? undefined };
   const span = Math.abs(pwm.high - pwm.low);
   const lti = pwm.driver.high === pwm.driver.low;
   const driver = Math.min(pwm.driver.high, pwm.driver.low);

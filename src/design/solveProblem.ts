@@ -65,9 +65,9 @@ export function solveProblem(
     for (const e of entries) {
       if (e.lb > tN * (1 + REL) + 1e-12) break;
       if (e.ruledOut || verified.has(e)) continue;
-      if (problem.limits.ripple !== undefined) {
+      if (problem.searchLimits.ripple !== undefined) {
         e.worst ??= worstRippleOf(problem, e.r, e.c);
-        if (e.worst > problem.limits.ripple * (1 + REL)) {
+        if (e.worst > problem.searchLimits.ripple * (1 + REL)) {
           e.ruledOut = true;
           continue;
         }
@@ -78,8 +78,9 @@ export function solveProblem(
       }
       const candidate = exactCandidate(problem, problem.ladderOf(e.r, e.c));
       verified.set(e, candidate);
-      (candidate.pass ? feasible : failing).push(candidate);
-      if (candidate.pass) {
+      // Recommendable: every limit met with search.margin to spare (exactCandidate.ts, marginsOf).
+      (candidate.keepsMargin ? feasible : failing).push(candidate);
+      if (candidate.keepsMargin) {
         ranked = rankCandidates(feasible).slice(0, top);
         if (ranked.length === top) tN = ranked[top - 1].settlingTime ?? Infinity;
       }
@@ -115,7 +116,7 @@ function worstRippleOf(problem: DesignProblem, r: number[], c: number[]): number
 /** Unequal drivers: the fast worst droop (a lower bound) is over the limit. */
 function droopExceeds(problem: DesignProblem, r: number[], c: number[]): boolean {
   const { pwm } = problem.project;
-  const limit = problem.limits.droop;
+  const limit = problem.searchLimits.droop;
   if (limit === undefined || pwm.driver.high === pwm.driver.low) return false;
   const at = fastPoint(problem, r, c);
   const droop = maximizeOverDuty((d) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - at(d).average), problem.dutyMin, problem.dutyMax);

@@ -4,7 +4,7 @@ import { designProblem } from './designProblem.js';
 import { projectAtResolution } from './projectAtResolution.js';
 import { relaxProject } from './relaxProject.js';
 import { SETTLING_TIE } from './rankCandidates.js';
-import { solveProblem } from './solveProblem.js';
+import { bestDesigns } from './bestDesigns.js';
 import type { Candidate } from './types.js';
 
 /** One point of a trade-off curve. */
@@ -32,8 +32,9 @@ export interface TradeoffOptions {
 
 /**
  * Best achievable settling time against the allowed ripple, one curve per stage count: for each
- * ripple limit the design search (solveProblem.ts, top 1, engine-verified) with that ripple limit,
- * the other limits as the project states them and no settling-time limit of the project's.
+ * ripple limit the design search (bestDesigns.ts, top 1, engine-verified) with that ripple limit,
+ * the other limits as the project states them and no settling-time limit of the project's; like
+ * the search, every point keeps search.margin below each limit (the ripple limit included).
  *
  * Method: repeated exact searches; ripple limits log-spaced around the spec's (or `center`), taken
  * from the tightest up. The best design under a tighter limit also meets every looser one, so its
@@ -58,6 +59,8 @@ export function tradeoffCurves(project: Project, stageCounts: number[], center: 
   // bound must not change it, or bounded answers would differ from independent searches.
   const band = defaultBand(options.bits === undefined ? free : projectAtResolution(free, options.bits));
   const total = ripples.length * stageCounts.length;
+  // The search keeps search.margin below every limit, the bound's too: widen it by that margin.
+  const margin = project.search?.margin ?? 0;
   let done = 0;
   return stageCounts.map((n) => {
     const points: TradeoffPoint[] = new Array(ripples.length);
@@ -65,16 +68,22 @@ export function tradeoffCurves(project: Project, stageCounts: number[], center: 
     for (const i of tightestFirst) {
       const ripple = ripples[i];
       const settling: SettlingSpec | undefined =
-        bound === null ? free.spec.settling : { band, ...free.spec.settling, time: bound * (1 + 4 * SETTLING_TIE) };
+        bound === null ? free.spec.settling : { band, ...free.spec.settling, time: (bound * (1 + 4 * SETTLING_TIE)) / (1 - margin) };
       const spec = { ...free.spec, ripple, ...(settling && { settling }) };
       const at: Project = { ...free, spec, ...(inLsb && { specInLsb: inLsb }) };
-      const found = solveProblem(designProblem(at, options.bits), 1, [n]).feasible[0] ?? null;
+      const found = bestDesigns(designProblem(at, options.bits), 1, [n]).feasible[0] ?? null;
       // The bound is the search's own device, not a limit of the user's: report no check for it.
-      const best: Candidate | null = found && bound !== null ? { ...found, checks: found.checks.filter((c) => c.name !== 'settling') } : found;
+      const best: Candidate | null = found && bound !== null ? { ...found, checks: found.checks.filter((c) => c.name !== 'settling'), margins: withoutSettling(found.margins) } : found;
       if (best?.settlingTime != null && Number.isFinite(best.settlingTime)) bound = best.settlingTime;
       points[i] = { ripple, settlingTime: best?.settlingTime ?? null, best };
       options.onProgress?.(++done / total);
     }
     return { stages: n, points };
   });
+}
+
+function withoutSettling(margins: Candidate['margins']): Candidate['margins'] {
+  const out = { ...margins };
+  delete out.settling;
+  return out;
 }

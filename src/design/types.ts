@@ -1,13 +1,16 @@
 /** Types of the design search (`dacsmith design`). SI base units throughout (V, s, Hz, ohm, F, A). */
-import type { Check } from '../engine/checks.js';
+import type { Check, CheckName } from '../engine/checks.js';
 
-/** One stage of a proposed filter (unbuffered: the search proposes plain RC ladders). */
+/** One stage of a proposed filter. */
 export interface CandidateStage {
   /** ohm */
   r: number;
   /** F */
   c: number;
-  /** Only for the project's own design: an ideal follower after this stage. */
+  /**
+   * An ideal unity-gain follower after this stage: the search proposes one only after the last
+   * stage (search.buffered), the project's own design may have one anywhere.
+   */
   buffered?: boolean;
 }
 
@@ -26,6 +29,8 @@ export interface Candidate {
   droopDuty: number;
   /** Largest |INL| (endpoint fit), V. */
   inl: number;
+  /** Endpoint-fit gain error (fit(1) - fit(0)) - (high - low), V, sign kept (engine/dcTransfer.ts). */
+  gainError: number;
   /** s; null when the output never settles into the band. */
   settlingTime: number | null;
   /** A. */
@@ -36,6 +41,15 @@ export interface Candidate {
   checks: Check[];
   /** Every check passes and the output settles. */
   pass: boolean;
+  /**
+   * Headroom to each limit the project states, (limit - value) / limit: 0.1 is 10 % inside the
+   * limit, negative a miss, null when the output never settles. Keys as the checks' names.
+   */
+  margins: Partial<Record<CheckName, number | null>>;
+  /** Every check meets its limit scaled by (1 - search.margin) and the output settles: recommendable. */
+  keepsMargin: boolean;
+  /** The design needs an op-amp follower after its last stage (search.buffered). */
+  needsFollower: boolean;
 }
 
 /** How the search went. */
@@ -60,7 +74,11 @@ export interface ResolutionRow {
 }
 
 export interface DesignResult {
-  /** Feasible designs, best first; when none is feasible, the closest ones (pass false). */
+  /**
+   * Feasible designs (every limit met with search.margin to spare), best first; when none is
+   * feasible, the closest ones (keepsMargin false; pass true when they meet the limits only
+   * without the margin).
+   */
   candidates: Candidate[];
   feasible: boolean;
   stats: SearchStats;
@@ -77,7 +95,15 @@ export interface DesignResult {
 /** What the search optimised against (for the report). */
 export interface DesignBasis {
   stageCounts: number[];
+  /** 'E24', or 'E24 resistors, E12 capacitors' when the series differ. */
   series: string;
+  /** IEC 60063 series of the resistors and of the capacitors. */
+  resistorSeries: string;
+  capacitorSeries: string;
+  /** Headroom every recommended design keeps below each limit (search.margin), fraction. */
+  margin: number;
+  /** Follower options tried after the last stage (search.buffered). */
+  buffered: boolean[];
   resistance: { min: number; max: number };
   capacitance: { min: number; max: number };
   limits: DesignLimits;
@@ -93,6 +119,8 @@ export interface DesignLimits {
   ripple?: number;
   droop?: number;
   inl?: number;
+  /** |endpoint-fit gain error| / (high - low), fraction of full scale. */
+  gain?: number;
   settlingTime?: number;
   pinCurrent?: number;
 }

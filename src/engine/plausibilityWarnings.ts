@@ -132,11 +132,10 @@ export function plausibilityWarnings(project: Project, figures: WarningFigures):
       load.resistance !== undefined
         ? `the load (${formatEng(load.resistance, 'Ω', 3)}) and the series resistance form a divider; a larger load resistance, smaller series resistors or a buffer keep the span`
         : 'check the driver resistances and the filter values';
-    // model.md 1.1: with INL limited there is no default gain check, and INL alone (an endpoint
-    // fit) cannot see a span loss: say that nothing checks it. A droop limit does bound it.
-    const why = spec.inl !== undefined ? ' because spec.inl is given' : ' (spec.gain: none)';
+    // Without droop the gain check is on unless the file turned it off; INL alone (an endpoint
+    // fit) cannot see a span loss: say that nothing checks it then. A droop limit does bound it.
     const unchecked =
-      spec.gain === undefined && spec.droop === undefined ? ` No check limits the span: spec.gain is off${why} and spec.droop is not set.` : '';
+      spec.gain === undefined && spec.droop === undefined ? ' No check limits the span: spec.gain is none and spec.droop is not set.' : '';
     warnings.push({
       key: load.resistance !== undefined ? 'load.resistance' : 'filter.stages',
       message:

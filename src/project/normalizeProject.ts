@@ -256,7 +256,8 @@ function readSpec(
     const gain = read.quantity(['spec', 'gain'], 'fraction');
     if (gain !== undefined && !(gain > 0)) read.fail(['spec', 'gain'], `a limit must be greater than 0, got '${String(gainRaw)}'; write 'none' to turn the gain check off`);
     else if (gain !== undefined) spec.gain = gain;
-  } else if (spec.droop === undefined && spec.inl === undefined) {
+  } else if (spec.droop === undefined) {
+    // Only droop bounds the full scale: INL, an endpoint-fit figure, is blind to a divided-down output.
     spec.gain = DEFAULT_GAIN_LIMIT;
   }
   if (read.has(['spec', 'settling'])) {

@@ -49,8 +49,9 @@ export interface Spec {
   inl?: number;
   /**
    * Largest endpoint-fit gain error allowed, as a fraction of full scale (0.02 = 2 %). Defaults to
-   * 2 % when the file limits neither droop nor INL (model.md 1.1, "Full scale"); undefined when
-   * `spec.gain: none` or when droop or INL already bound the DC transfer.
+   * 2 % when the file limits no droop (model.md 1.1, "Full scale"; an INL limit does not bound the
+   * full scale, so it does not replace the default); undefined when `spec.gain: none` or when a
+   * droop limit already bounds the DC transfer.
    */
   gain?: number;
 }

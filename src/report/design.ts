@@ -2,7 +2,7 @@ import type { TradeoffCurve } from '../design/tradeoffCurves.js';
 import type { RobustResult } from '../design/robustDesigns.js';
 import type { Candidate, DesignResult } from '../design/types.js';
 import type { Project } from '../project/types.js';
-import { designDocument, margins, stageCodes } from './designDocument.js';
+import { designDocument, FOLLOWER_NOTE, stageCodes } from './designDocument.js';
 import { renderDocument } from './renderDocument.js';
 
 export type DesignFormat = 'text' | 'markdown' | 'json';
@@ -58,19 +58,24 @@ function candidateJson(c: Candidate) {
     rippleDuty: c.rippleDuty,
     droopDuty: c.droopDuty,
     inl: c.inl,
+    gainError: c.gainError,
     pinCurrent: c.pinCurrent,
     totalCapacitance: c.totalCapacitance,
     bits: c.bits,
     frequency: c.frequency,
     checks: c.checks.map((k) => ({ ...k, value: finite(k.value) })),
-    margins: margins(c),
+    margins: Object.fromEntries(Object.entries(c.margins).map(([k, v]) => [k, finite(v)])),
+    keepsMargin: c.keepsMargin,
+    needsFollower: c.needsFollower,
+    notes: c.needsFollower ? [FOLLOWER_NOTE] : [],
   };
 }
 
 /**
  * The design result as text (terminal), GitHub-flavoured Markdown, or one JSON object (model.md:
- * `candidates` best first, each { stages: [{ r, c }], worstRipple, settlingTime, droop, pass } and
- * more; `evaluated`; with `robust`, `robust: { mode, scanned, candidates: [{ nominalRank, worstCase |
+ * `candidates` best first, each { stages: [{ r, c[, buffered] }], worstRipple, settlingTime, droop,
+ * pass } and more: `margins` per limit (fractions of the limit), `keepsMargin`, `needsFollower` and
+ * `notes`; `evaluated`; with `robust`, `robust: { mode, scanned, candidates: [{ nominalRank, worstCase |
  * yield }] }`; all numbers SI, null for never / unknown).
  *
  * Syntax: designReport(project, result, format[, { tradeoff, color, written }])

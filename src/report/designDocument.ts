@@ -23,6 +23,7 @@ const LIMIT_LABEL: Record<string, string> = {
   ripple: 'ripple',
   droop: 'droop',
   inl: 'INL',
+  gain: 'gain',
   settling: 'settling',
   pin_current: 'pin current',
 };
@@ -40,16 +41,12 @@ const stageText = (s: { r: number; c: number; buffered?: boolean }) =>
 export const stageCodes = (c: Pick<Candidate, 'stages'>) =>
   c.stages.map((s) => `${formatIec60062(s.r, 'resistance')}-${formatIec60062(s.c, 'capacitance')}`).join(' + ');
 
-/** Margin to each limit, (limit - value) / limit: positive is room, negative a miss. */
-export function margins(c: Candidate): Record<string, number | null> {
-  const out: Record<string, number | null> = {};
-  for (const k of c.checks) out[k.name] = k.value === null ? null : (k.limit - k.value) / k.limit;
-  return out;
-}
+/** Note on a design that needs an op-amp after its last stage (JSON `notes`, text list). */
+export const FOLLOWER_NOTE = 'needs an op-amp follower';
 
 function marginText(c: Candidate): string {
   const parts = c.checks.map((k) => {
-    const m = k.value === null ? null : (k.limit - k.value) / k.limit;
+    const m = c.margins[k.name] ?? null;
     const label = LIMIT_LABEL[k.name] ?? k.name;
     if (m === null) return `${label}: never settles`;
     return m >= 0 ? `${label} ${percent(m).replace(' ', '')}` : `${label} MISSES by ${percent(-m).replace(' ', '')}`;
@@ -86,6 +83,21 @@ function candidateTable(result: DesignResult, lsbOf: (c: Candidate) => number | 
     'left' | 'right'
   >;
   return { kind: 'table', header, rows, align };
+}
+
+/** Nothing keeps the margin, and the designs shown meet the limits without it. */
+const onlyWithoutMargin = (result: DesignResult) => !result.feasible && result.candidates.length > 0 && result.candidates.every((c) => c.pass);
+
+/** Which listed designs need an op-amp follower, and the usual cautions about it. */
+function followerNote(list: Candidate[]): Block[] {
+  const which = list.map((c, i) => (c.needsFollower ? `#${i + 1}` : null)).filter((s): s is string => s !== null);
+  if (which.length === 0) return [];
+  return [
+    {
+      kind: 'text',
+      text: `${which.join(', ')}: ${FOLLOWER_NOTE} (unity gain) after the last stage, marked +follower. The figures assume an ideal one: pick a part whose input and output ranges cover the signal (rail-to-rail where it must reach the supply), that is stable driving the load, and add its offset to the DC error; see its data sheet.`,
+    },
+  ];
 }
 
 /** The robust designs' figures under tolerance: worst case over the box, or Monte Carlo yield. */
@@ -208,6 +220,7 @@ export function designDocument(project: Project, result: DesignResult, options: 
     L.ripple !== undefined ? `ripple ${volts(L.ripple, lsb)}` : null,
     L.droop !== undefined ? `droop ${volts(L.droop, lsb)}` : null,
     L.inl !== undefined ? `INL ${volts(L.inl, lsb)}` : null,
+    L.gain !== undefined ? `gain error ${percent(L.gain)} of full scale` : null,
     L.settlingTime !== undefined ? `settling ${formatEng(L.settlingTime, 's', 4)}` : null,
     L.pinCurrent !== undefined ? `pin current ${formatEng(L.pinCurrent, 'A', 3)}` : null,
   ].filter((s): s is string => s !== null);
@@ -221,7 +234,11 @@ export function designDocument(project: Project, result: DesignResult, options: 
     ['Values', `${basis.series} (IEC 60063), R ${formatEng(basis.resistance.min, 'Ω', 3)} to ${formatEng(basis.resistance.max, 'Ω', 3)}, C ${formatEng(basis.capacitance.min, 'F', 3)} to ${formatEng(basis.capacitance.max, 'F', 3)}`],
     ['Limits', limitList.length > 0 ? limitList.join(', ') : 'none'],
     ['Settling', `to within ${volts(basis.band, lsb)} after a step ${step}`],
-    ['Ranking', 'settling time, then fewer stages, then smaller total capacitance'],
+    ['Margin', `every recommended design keeps ${percent(basis.margin)} of each limit in reserve (search.margin); the table shows each design's own margins`],
+    ...(basis.buffered.includes(true)
+      ? ([['Follower', `${basis.buffered.includes(false) ? 'also' : 'only'} designs with an ideal unity-gain follower after the last stage (search.buffered); such a design ${FOLLOWER_NOTE}`]] as Array<[string, string]>)
+      : []),
+    ['Ranking', `settling time, then fewer stages, ${basis.buffered.includes(true) ? 'then no follower, ' : ''}then smaller total capacitance`],
     [
       'Search',
       `${stats.space.toExponential(2).replace('e+', 'e')} candidates, ${stats.evaluated} evaluated by the fast model, ${stats.verified} by the exact engine, ${formatEng(stats.elapsed, 's', 3)}`,
@@ -234,11 +251,11 @@ export function designDocument(project: Project, result: DesignResult, options: 
     if (result.feasible) sections.push({ title: 'Recommended robust designs (nominal figures)', blocks: [candidateTable(result, lsbOf)] });
     sections.push(robustSection(robust, lsbOf));
   } else if (result.feasible) {
-    sections.push({ title: 'Recommended designs (exact figures)', blocks: [candidateTable(result, lsbOf)] });
+    sections.push({ title: 'Recommended designs (exact figures)', blocks: [candidateTable(result, lsbOf), ...followerNote(result.candidates)] });
   } else {
     const blocks: Block[] = [{ kind: 'list', items: result.diagnosis }];
-    if (result.candidates.length > 0) blocks.push(candidateTable(result, lsbOf));
-    sections.push({ title: 'No design meets every limit', blocks });
+    if (result.candidates.length > 0) blocks.push(candidateTable(result, lsbOf), ...followerNote(result.candidates));
+    sections.push({ title: onlyWithoutMargin(result) ? `No design meets every limit with the ${percent(basis.margin)} margin` : 'No design meets every limit', blocks });
   }
   const chart = tradeoffSection(options.tradeoff ?? [], result, options);
   if (chart) sections.push(chart);
@@ -281,6 +298,8 @@ export function designDocument(project: Project, result: DesignResult, options: 
         }
     : result.feasible
     ? { pass: true, text: `PASS: ${result.candidates.length} design${result.candidates.length > 1 ? 's' : ''} meet every limit; #1 settles in ${formatEng(best.settlingTime ?? NaN, 's', 4)}` }
-    : { pass: false, text: 'FAIL: no design in the search space meets every limit' };
+    : onlyWithoutMargin(result)
+      ? { pass: false, text: `FAIL: no design keeps the ${percent(basis.margin)} margin to every limit; ${result.candidates.length} meet the limits without it (listed)` }
+      : { pass: false, text: 'FAIL: no design in the search space meets every limit' };
   return { title: `dacsmith design: ${project.file}`, sections, verdict };
 }

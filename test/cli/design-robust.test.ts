@@ -25,6 +25,7 @@ spec:
 search:
   stages: [1, 2]
   series: E3
+  margin: 0 %   # the tolerance check alone decides here
   resistance: { min: 1k, max: 100k }
   capacitance: { min: 10n, max: 1u }
 `;

@@ -11,6 +11,7 @@ import { root, runBuilt } from './runBuilt.js';
 const fixture = (name: string) => join(root, 'test', 'fixtures', 'projects', name);
 const slip = fixture('unit-slip-load.yaml');
 const divider = fixture('divider-no-droop.yaml');
+const dividerGainOff = fixture('divider-gain-off.yaml');
 const json = (args: string[]) => {
   const r = runBuilt(args);
   return { ...r, body: JSON.parse(r.stdout) };
@@ -49,31 +50,37 @@ describe('a load typed as 1m (1 milliohm, meant 1 Mohm)', () => {
     const compare = json(['compare', divider, slip, '--format', 'json']);
     expect(compare.body.warnings.map((w: { key: string }) => w.key)).toEqual(['load.resistance', 'filter.stages', 'load.resistance']);
     const gainRow = compare.body.checks.find((c: { name: string }) => c.name === 'gain');
-    expect(gainRow.status).toBe('new, FAILS');
+    // the divider base now has the default gain check too (droop not limited), and fails it
+    expect(gainRow.status).toBe('still fails');
     const text = runBuilt(['compare', divider, slip]).stdout;
     expect(text).toContain('Warnings (head)');
-    expect(text).toMatch(/gain\s+2 % of full scale\s+-\s+100 % of full scale FAIL\s+new, FAILS/);
+    expect(text).toMatch(/gain\s+2 % of full scale\s+90.9 % of full scale FAIL\s+100 % of full scale FAIL\s+still fails/);
   });
 });
 
 describe('a 100k / 10u stage into 10 kohm, INL limited and droop not', () => {
-  it('passes its checks (no default gain check with INL given) but warns on the span: exit 0', () => {
+  it('fails the default gain check (droop not limited) and warns on the span: exit 1', () => {
     const r = json(['analyze', divider, '--format', 'json']);
-    expect(r.code).toBe(0);
-    expect(r.body.checks.map((c: { name: string }) => c.name)).toEqual(['ripple', 'inl', 'settling']);
+    expect(r.code).toBe(1);
+    expect(r.body.checks.map((c: { name: string }) => c.name)).toEqual(['ripple', 'inl', 'gain', 'settling']);
+    expect(r.body.checks.find((c: { name: string }) => c.name === 'gain')).toMatchObject({ limit: 0.02, pass: false });
     expect(r.body.warnings).toHaveLength(1);
     const [w] = r.body.warnings;
     expect(w.key).toBe('load.resistance');
     // Ohm's law: k = 10k / (10k + 100k + 30) = 0.0909 of the ideal span
     expect(w.message).toContain('9.1 % of the ideal 2.97 V');
-    expect(w.message).toContain('No check limits the span: spec.gain is off because spec.inl is given');
+    expect(w.message).not.toContain('No check limits the span');
+    const off = json(['analyze', dividerGainOff, '--format', 'json']);
+    expect(off.code).toBe(0);
+    expect(off.body.warnings[0].message).toContain('No check limits the span: spec.gain is none and spec.droop is not set.');
     // signs (README "Sign convention"): the output is short of ideal, so DC and gain errors are positive
     expect(r.body.dc.droop.error).toBeGreaterThan(0);
     expect(r.body.dc.gainError).toBeCloseTo(3.3 * (1 - 10e3 / (10e3 + 100e3 + 30)), 6);
     expect(r.body.attenuation).toBeGreaterThan(0);
   });
 
-  it('check passes without --strict and fails with it (exit 1), naming the warned key', () => {
+  it('check passes without --strict and fails with it (exit 1), naming the warned key (gain check off)', () => {
+    const divider = dividerGainOff;
     const plain = runBuilt(['check', divider]);
     expect(plain.code).toBe(0);
     expect(plain.stdout).toMatch(/^PASS .*\(3 checks hold; 1 warning\)/);

@@ -1,8 +1,11 @@
 import { describe, expect, it } from 'vitest';
+import { designProblem } from '../../src/design/designProblem.js';
 import { designSearch } from '../../src/design/designSearch.js';
+import { fastLadderOf } from '../../src/design/fast/fastLadder.js';
 import { fastLadder } from '../../src/design/fast/fastLadder.js';
 import { fastSteadyState } from '../../src/design/fast/fastSteadyState.js';
 import { slowestTimeConstant } from '../../src/design/slowestTimeConstant.js';
+import { steadyState } from '../../src/engine/index.js';
 import { loadProject, parseProject } from '../../src/project/index.js';
 import { seriesValues } from '../../src/units/index.js';
 import { bruteForce, designKey } from './bruteForce.js';
@@ -21,6 +24,7 @@ search:
   stages: ${o.stages ?? '[1, 2]'}
   series: ${o.series ?? 'E3'}
   margin: ${o.margin ?? '0 %'}
+${o.buffered ? `  buffered: ${o.buffered}` : ''}
   resistance: { min: ${o.rmin ?? '1k'}, max: ${o.rmax ?? '10k'} }
   capacitance: { min: ${o.cmin ?? '10n'}, max: ${o.cmax ?? '1u'} }
 ${o.pin ? `  pin_current: ${o.pin}` : ''}
@@ -183,6 +187,7 @@ spec:
 search:
   stages: [2]
   series: E6
+  margin: 0 %
   resistance: { min: 1k, max: 100k }
   capacitance: { min: 1n, max: 1u }
   bits: { min: 8, max: 11 }
@@ -232,5 +237,160 @@ describe('sample-configs/design-tight-ripple.yaml', () => {
     const step = fastSteadyState(m, pwm.duty.max).average - fastSteadyState(m, pwm.duty.min).average;
     const estimate = tau * Math.log(step / p.spec.settling!.band);
     expect(Math.abs(best.settlingTime! / estimate - 1)).toBeLessThan(0.1);
+  });
+});
+
+/** The search against exhaustive search on the rules of model.md 1.1 (margin, gain, split series, follower). */
+describe('search.margin: every design keeps the margin below every limit, as exhaustive search finds', () => {
+  const cases: Array<[string, Record<string, string>]> = [
+    ['equal drivers, open output, E24 resistors and E12 capacitors', { margin: '20 %', series: '{ resistor: E24, capacitor: E12 }', rmin: '1k', rmax: '1.5k', cmin: '100n', cmax: '470n', ripple: '4 LSB', settling: '{ band: 0.5 LSB, time: 20 ms }' }],
+    ['unequal drivers, loaded, droop and pin current', { margin: '10 %', series: 'E12', rmax: '3.3k', cmin: '100n', cmax: '1u', driver: '{ high: 40 ohm, low: 25 ohm }', load: '{ resistance: 100k, capacitance: 100p }', droop: '5 %', pin: '3 mA' }],
+    ['a 25 % margin, low-side driver weaker', { margin: '25 %', driver: '{ high: 20 ohm, low: 60 ohm }', series: 'E6', cmax: '2.2u' }],
+  ];
+  for (const [name, o] of cases) {
+    it(name, () => {
+      const p = project(o);
+      const m = p.search!.margin;
+      const found = designSearch(p, { top: 5, compare: false });
+      const brute = bruteForce(p, 5);
+      expect(brute.ranked.length).toBeGreaterThan(0);
+      expect(found.candidates.map(designKey)).toEqual(brute.ranked.map(designKey));
+      for (const c of found.candidates) {
+        expect(c.keepsMargin).toBe(true);
+        for (const k of c.checks) {
+          expect(k.value).not.toBeNull();
+          expect(k.value!).toBeLessThanOrEqual(k.limit * (1 - m));
+          expect(c.margins[k.name]).toBeCloseTo((k.limit - k.value!) / k.limit, 12);
+          expect(c.margins[k.name]!).toBeGreaterThanOrEqual(m - 1e-12);
+        }
+      }
+      // The margin changes the answer: without it the best design sits closer to some limit.
+      const bare = designSearch(project({ ...o, margin: '0 %' }), { top: 1, compare: false }).candidates[0];
+      expect(Math.min(...Object.values(bare.margins).map((x) => x ?? -1))).toBeLessThan(m);
+    });
+  }
+
+  it('says so when designs meet the limits but none with the margin', () => {
+    // A 10 kohm load and 100 ohm parts: 100 + 100 ohm gives 200 / 10200 = 1.96 % gain error (Ohm's
+    // law), inside the 2 % limit but not inside it less 10 %.
+    const o = { load: '{ resistance: 10k }', rmin: '100', rmax: '10k', cmin: '100n', cmax: '10u', series: 'E3', ripple: '2 LSB' };
+    const bare = designSearch(project({ ...o, margin: '0 %' }), { top: 3, compare: false });
+    expect(bare.feasible).toBe(true);
+    const r = designSearch(project({ ...o, margin: '10 %' }), { top: 3, compare: false });
+    expect(bruteForce(project({ ...o, margin: '10 %' }), 1).ranked).toHaveLength(0);
+    expect(r.feasible).toBe(false);
+    expect(r.diagnosis[0]).toMatch(/^no design keeps the 10 % margin/);
+    expect(r.candidates.map(designKey)).toEqual(bare.candidates.map(designKey));
+    expect(r.candidates.length).toBeGreaterThan(0);
+    for (const c of r.candidates) {
+      expect(c.pass).toBe(true);
+      expect(c.keepsMargin).toBe(false);
+    }
+  });
+});
+
+describe('the full-scale (gain) limit keeps divided-down outputs out', () => {
+  it('10 kohm load, no droop limit: no design divides the output, exhaustive search agrees', () => {
+    const o = { load: '{ resistance: 10k }', rmin: '10', rmax: '1k', cmin: '100n', cmax: '10u', series: 'E3', margin: '10 %', ripple: '2 LSB' };
+    const p = project(o);
+    expect(p.spec.gain).toBe(0.02); // the default, model.md 1.1
+    const found = designSearch(p, { top: 5, compare: false });
+    const brute = bruteForce(p, 5);
+    expect(found.candidates.map(designKey)).toEqual(brute.ranked.map(designKey));
+    expect(found.feasible).toBe(true);
+    for (const c of found.candidates) {
+      // DC divider of the series resistance and the load (Ohm's law): R_s / (R_L + R_s) of full scale
+      const rs = c.stages.reduce((s, st) => s + st.r, 0);
+      expect(rs / (10e3 + rs)).toBeLessThanOrEqual(0.02 * 0.9);
+      expect(Math.abs(c.gainError) / 3.3).toBeCloseTo(rs / (10e3 + rs), 9);
+    }
+    // Without the gain limit the same space prefers a divided-down output: the case the limit exists for.
+    const off = designSearch(project({ ...o, gain: 'none' }), { top: 1, compare: false }).candidates[0];
+    expect(Math.abs(off.gainError) / 3.3).toBeGreaterThan(0.02);
+  });
+
+  it('unequal drivers (no closed form): the search prunes by the fast endpoint averages and agrees with exhaustive search', () => {
+    const p = project({ driver: '{ high: 60 ohm, low: 20 ohm }', load: '{ resistance: 220k, capacitance: 47p }', gain: '1.5 %', margin: '10 %', rmin: '100', cmin: '10n', cmax: '10u' });
+    const found = designSearch(p, { top: 5, compare: false });
+    const brute = bruteForce(p, 5);
+    expect(brute.ranked.length).toBeGreaterThan(0);
+    expect(found.candidates.map(designKey)).toEqual(brute.ranked.map(designKey));
+    for (const c of found.candidates) expect(Math.abs(c.gainError) / 3.3).toBeLessThanOrEqual(0.015 * 0.9);
+  });
+});
+
+describe('search.series with a capacitor series of its own', () => {
+  // IEC 60063 mantissas, typed from the standard's tables (E6, E12).
+  const E6 = [1.0, 1.5, 2.2, 3.3, 4.7, 6.8];
+  const E12 = [1.0, 1.2, 1.5, 1.8, 2.2, 2.7, 3.3, 3.9, 4.7, 5.6, 6.8, 8.2];
+  const mantissa = (x: number) => Number((x / 10 ** Math.floor(Math.log10(x) + 1e-9)).toFixed(1));
+  for (const [cs, table] of [
+    ['E6', E6],
+    ['E12', E12],
+  ] as const) {
+    it(`E24 resistors, ${cs} capacitors: every capacitor from ${cs}, exhaustive search agrees`, () => {
+      const p = project({ series: `{ resistor: E24, capacitor: ${cs} }`, rmin: '1k', rmax: '1.5k', cmin: '100n', cmax: '470n', ripple: '4 LSB', margin: '10 %' });
+      expect(p.search!.series).toEqual({ resistor: 'E24', capacitor: cs });
+      const found = designSearch(p, { top: 8, compare: false });
+      const brute = bruteForce(p, 8);
+      expect(found.candidates.map(designKey)).toEqual(brute.ranked.map(designKey));
+      expect(found.basis.series).toBe(`E24 resistors, ${cs} capacitors`);
+      expect(found.candidates.length).toBe(8);
+      for (const c of found.candidates) for (const st of c.stages) expect(table).toContain(mantissa(st.c));
+      // the resistors do come from E24 (1.1, 1.3 are not E12 values)
+      expect(designProblem(p).rValues.map(mantissa)).toEqual([1.0, 1.1, 1.2, 1.3, 1.5]);
+    });
+  }
+});
+
+describe('search.buffered: an ideal follower after the last stage', () => {
+  it('the fast model of the unloaded ladder is the engine on the buffered one (same averages and ripple)', () => {
+    const p = project({ load: '{ resistance: 10k, capacitance: 1n }', driver: '{ high: 40 ohm, low: 25 ohm }', buffered: '[false, true]' });
+    const problem = designProblem(p, undefined, true);
+    for (const [r, c] of [
+      [[4700], [220e-9]],
+      [[1000, 10e3], [1e-6, 47e-9]],
+      [[2200, 4700, 10e3], [470e-9, 100e-9, 22e-9]],
+    ]) {
+      const ladder = problem.ladderOf(r, c);
+      expect(ladder.stages[ladder.stages.length - 1].buffered).toBe(true);
+      expect(ladder.loadResistance).toBe(10e3); // the engine sees the real load, behind the follower
+      const fast = fastLadderOf(problem.circuit, r, c);
+      for (const d of [0.05, 0.5, 0.9]) {
+        const f = fastSteadyState(fast, d);
+        const exact = steadyState(ladder, d);
+        expect(f.average).toBeCloseTo(exact.average, 9);
+        expect(f.ripple).toBeCloseTo(exact.ripple, 9);
+      }
+    }
+  });
+
+  const cases: Array<[string, Record<string, string>]> = [
+    ['10 kohm load: only follower designs meet the gain limit', { load: '{ resistance: 10k }', margin: '10 %', buffered: '[false, true]', stages: '[1, 2]' }],
+    ['a light load, unequal drivers: both kinds compete', { load: '{ resistance: 10M, capacitance: 4.7n }', driver: '{ high: 40 ohm, low: 25 ohm }', margin: '10 %', buffered: '[false, true]', droop: '4 LSB' }],
+    ['only with a follower', { load: '{ resistance: 47k, capacitance: 10n }', buffered: '[true]', stages: '[2]', margin: '10 %' }],
+    ['two and three stages, unequal drivers, a heavy load', { stages: '[2, 3]', ripple: '0.1 LSB', rmin: '2.2k', cmin: '47n', driver: '{ high: 40 ohm, low: 25 ohm }', load: '{ resistance: 100k, capacitance: 220p }', buffered: '[false, true]', margin: '10 %' }],
+  ];
+  for (const [name, o] of cases) {
+    it(`equals exhaustive search over both options: ${name}`, () => {
+      const p = project(o);
+      const found = designSearch(p, { top: 6, compare: false });
+      const brute = bruteForce(p, 6);
+      expect(brute.ranked.length).toBeGreaterThan(0);
+      expect(found.candidates.map(designKey)).toEqual(brute.ranked.map(designKey));
+      for (const c of found.candidates) {
+        expect(c.needsFollower).toBe(c.stages[c.stages.length - 1].buffered === true);
+        c.stages.slice(0, -1).forEach((st) => expect(st.buffered ?? false).toBe(false));
+      }
+      if (name.includes('both kinds')) expect(new Set(found.candidates.map((c) => c.needsFollower)).size).toBe(2);
+    });
+  }
+
+  it('the 10 kohm case has no design without a follower, and every one found has it', () => {
+    const p = project({ load: '{ resistance: 10k }', margin: '10 %', buffered: '[false, true]' });
+    const found = designSearch(p, { top: 6, compare: false });
+    expect(found.candidates.length).toBeGreaterThan(0);
+    expect(found.candidates.every((c) => c.needsFollower)).toBe(true);
+    expect(designSearch(project({ load: '{ resistance: 10k }', margin: '10 %' }), { top: 1, compare: false, diagnose: false }).feasible).toBe(false);
   });
 });

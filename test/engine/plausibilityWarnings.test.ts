@@ -79,13 +79,13 @@ describe('analysis rules', () => {
     expect(w[0].message).toContain('89.0 % of the ideal 2.97 V');
   });
 
-  it('says when no gain check covers the span (INL given, so no default gain check: model.md 1.1)', () => {
+  it('says when no gain check covers the span (INL given and spec.gain: none, so nothing bounds the full scale)', () => {
     const loaded = { ...oneStageProject({ loadResistance: 10e3 }), spec: { inl: 1e-3 } };
     const [w] = plausibilityWarnings(loaded, { ...calm, outputSpan: 0.5 * 0.9 * 3.3 });
     expect(w.key).toBe('load.resistance');
-    expect(w.message).toContain('No check limits the span: spec.gain is off because spec.inl is given');
+    expect(w.message).toContain('No check limits the span: spec.gain is none and spec.droop is not set.');
     const checked = plausibilityWarnings({ ...loaded, spec: { gain: 0.02 } }, { ...calm, outputSpan: 0.5 * 0.9 * 3.3 });
-    expect(checked[0].message).not.toContain('spec.gain is off');
+    expect(checked[0].message).not.toContain('No check limits');
     // a droop limit bounds the DC error, so the span loss is checked after all
     const droop = plausibilityWarnings({ ...loaded, spec: { inl: 1e-3, droop: 1e-3 } }, { ...calm, outputSpan: 0.5 * 0.9 * 3.3 });
     expect(droop[0].message).not.toContain('No check limits');

@@ -331,3 +331,16 @@ function asSiYaml(p: Project): Record<string, unknown> {
     ...(p.tolerance && { tolerance: { ...p.tolerance, stages: p.tolerance.stages?.map((s) => s ?? null) } }),
   };
 }
+
+describe('parseProject: the default full-scale (gain) limit, model.md 1.1', () => {
+  const pwm = 'pwm: { frequency: 20 kHz, bits: 10, high: 3.3 V, low: 0 V }\nfilter: { stages: [{ r: 4.7k, c: 1u }] }\n';
+  it('applies when no droop is limited, also beside an INL limit (INL is blind to a divided-down output)', () => {
+    expect(parseProject(pwm + 'spec: { ripple: 1 LSB }\n', 'a.yaml').spec.gain).toBe(0.02);
+    expect(parseProject(pwm + 'spec: { ripple: 1 LSB, inl: 1 LSB }\n', 'b.yaml').spec.gain).toBe(0.02);
+  });
+  it('stays off when droop is limited or when gain: none, and takes the file value otherwise', () => {
+    expect(parseProject(pwm + 'spec: { ripple: 1 LSB, droop: 2 LSB }\n', 'c.yaml').spec.gain).toBeUndefined();
+    expect(parseProject(pwm + 'spec: { ripple: 1 LSB, gain: none }\n', 'd.yaml').spec.gain).toBeUndefined();
+    expect(parseProject(pwm + 'spec: { ripple: 1 LSB, gain: 5 % }\n', 'e.yaml').spec.gain).toBeCloseTo(0.05, 15);
+  });
+});
