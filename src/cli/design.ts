@@ -98,12 +98,14 @@ export async function runDesign(
   let stderr = '';
   if (args.write !== undefined) {
     if (result.feasible) {
-      const { withDesign } = await import('../report/designYaml.js');
+      const { withDesign, changeLine } = await import('../report/designYaml.js');
       const best = result.candidates[0];
-      const note = `chosen by dacsmith design: settles in ${best.settlingTime?.toPrecision(4)} s, worst ripple ${best.worstRipple.toPrecision(4)} V`;
-      fs.writeFileSync(args.write, withDesign(fs.readFileSync(args.file, 'utf8'), best, note), { flag: args.force ? 'w' : 'wx' });
+      const edit = withDesign(fs.readFileSync(args.file, 'utf8'), best);
+      fs.writeFileSync(args.write, edit.text, { flag: args.force ? 'w' : 'wx' });
       written = args.write;
-      stderr = `design #1 written to ${args.write}\n`;
+      const how = edit.method === 'rewritten' ? ' (rewritten by the YAML writer: comments and key order kept, spacing may differ)' : '';
+      const list = edit.changes.length > 0 ? edit.changes.map((c) => `  ${changeLine(c)}\n`).join('') : '  no change: the file already holds design #1\n';
+      stderr = `design #1 written to ${args.write}${how}; changes from ${args.file}:\n${list}`;
     } else {
       stderr = `dacsmith: no feasible design, nothing written to ${args.write}\n`;
     }

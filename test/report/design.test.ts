@@ -3,7 +3,6 @@ import { designSearch } from '../../src/design/designSearch.js';
 import { tradeoffCurves } from '../../src/design/tradeoffCurves.js';
 import { parseProject } from '../../src/project/index.js';
 import { designReport } from '../../src/report/design.js';
-import { withDesign } from '../../src/report/designYaml.js';
 import { formatIec60062 } from '../../src/units/index.js';
 
 const yaml = `# invented scenario: a small design problem
@@ -65,26 +64,5 @@ describe('designReport', () => {
       const t = c.points.map((p) => p.settlingTime ?? Infinity);
       for (let i = 1; i < t.length; i++) expect(t[i]).toBeLessThanOrEqual(t[i - 1] * (1 + 1e-12));
     }
-  });
-});
-
-describe('withDesign', () => {
-  it('replaces filter.stages, keeps comments and everything else, and reads back to the same values', () => {
-    const best = result.candidates[0];
-    const text = withDesign(yaml, best, 'chosen by dacsmith design');
-    expect(text).toContain('# invented scenario: a small design problem');
-    expect(text).toContain('# chosen by dacsmith design');
-    expect(text).not.toContain("the schematic's first guess");
-    const again = parseProject(text, 'again.yaml');
-    expect(again.filter.stages.map((s) => ({ r: s.r, c: s.c }))).toEqual(best.stages);
-    expect(again.spec).toEqual(project.spec);
-    expect(again.search).toEqual(project.search);
-  });
-
-  it('sets pwm.bits (and a stated frequency) for a design at another resolution', () => {
-    const src = 'pwm:\n  clock: 16 MHz\n  bits: 10\n  high: 3.3 V\n  low: 0 V\n  driver: 25 ohm\nfilter:\n  stages: []\n';
-    const out = withDesign(src, { stages: [{ r: 4.7e3, c: 100e-9 }], bits: 8, frequency: 62500 });
-    expect(out).toMatch(/bits: 8/);
-    expect(out).toMatch(/- \{ r: 4k7, c: 100n \}/);
   });
 });
