@@ -94,7 +94,7 @@ export function lineChart(series: number[][], options: LineChartOptions): string
   for (const m of options.markers ?? []) axis[column(m.x, n, options.x)] = m.symbol;
   const xo = options.x;
   const xLabel = xo.log
-    ? (x: number) => formatEng(x, xo.unit, 3)
+    ? (x: number) => (xo.prefixed === false ? `${Number(x.toPrecision(3))} ${xo.unit}` : formatEng(x, xo.unit, 3))
     : axisFormatter(xo.start, xo.end, 4, xo.unit, xo.prefixed ?? true);
   const left = xLabel(xo.start);
   const right = xLabel(xo.end);

@@ -66,3 +66,56 @@ describe('designReport', () => {
     }
   });
 });
+
+describe('designReport with search.bits: one resolution per LSB figure', () => {
+  // Invented scenario: the file runs 8 bits, the search tries 6 to 10.
+  const source = `pwm:
+  clock: 16 MHz
+  bits: 8
+  high: 3.3 V
+  low: 0 V
+  driver: 30 ohm
+  duty: { min: 5 %, max: 95 % }
+load:
+  resistance: 1 Mohm
+filter:
+  stages:
+    - { r: 10k, c: 1u }
+spec:
+  ripple: 0.5 LSB
+  droop: 10 %
+  settling: { band: 0.5 LSB, time: 50 ms }
+search:
+  stages: [1, 2]
+  series: E6
+  resistance: { min: 1k, max: 100k }
+  capacitance: { min: 1n, max: 10u }
+  bits: { min: 6, max: 10 }
+`;
+  const p = parseProject(source, 'bits.yaml');
+  const r = designSearch(p, { top: 3 });
+  const best = r.candidates[0];
+  const lsbAt = r.resolutions.find((x) => x.bits === best.bits)!.lsb;
+  const curves = tradeoffCurves(p, [1], 0.5 * lsbAt, { bits: best.bits!, points: 3 });
+  const text = designReport(p, r, 'text', { tradeoff: curves });
+
+  it('names the resolution of every LSB figure, and states LSB limits as holding at each resolution', () => {
+    expect(best.bits).not.toBe(8);
+    const unlabelled = text.match(/\d LSB(?! @ \d+ bit| at each resolution)/g);
+    expect(unlabelled).toBeNull();
+    expect(text).toMatch(/ripple 0\.5 LSB at each resolution/);
+    // 10 % of 3.3 V full scale, a voltage at every resolution.
+    expect(text).toMatch(/droop 330 mV/);
+    expect(text).toContain(`${Number((best.worstRipple / lsbAt).toPrecision(3))} LSB @ ${best.bits} bit`);
+  });
+
+  it('marks the spec ripple limit on the trade-off chart at the resolution the curves are drawn at', () => {
+    expect(text).toContain(`spec ripple limit 0.5 LSB @ ${best.bits} bit`);
+  });
+
+  it('shows no resolution labels when only one resolution appears', () => {
+    const single = designReport(project, result, 'text');
+    expect(single).toMatch(/\d LSB/);
+    expect(single).not.toMatch(/ @ \d+ bit/);
+  });
+});
