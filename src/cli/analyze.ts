@@ -1,6 +1,7 @@
 import type { Argv, CommandModule } from 'yargs';
 import { parseDuties } from './duty.js';
 import { EXIT_PASS, EXIT_SPEC_FAILS } from './errors.js';
+import { reportWidth, terminalColumns, widthOption } from './width.js';
 
 export interface AnalyzeArgs {
   file: string;
@@ -9,6 +10,7 @@ export interface AnalyzeArgs {
   charts: boolean;
   quiet?: boolean;
   csv?: string;
+  width?: number;
 }
 
 /** What a command hands back to the shell: text for stdout and stderr, and the exit code. */
@@ -25,8 +27,9 @@ export interface CommandOutput {
  * Syntax: runAnalyze(args, { color })
  * Example: await runAnalyze({ file: 'p.yaml', format: 'json', charts: true }, { color: false })
  */
-export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean }): Promise<CommandOutput> {
+export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean; columns?: number }): Promise<CommandOutput> {
   const duties = parseDuties(args.duty);
+  const width = reportWidth(args.width, { isTTY: tty.columns !== undefined, columns: tty.columns });
   const [{ loadProject, requireFilter }, { analyzeProject }] = await Promise.all([
     import('../project/index.js'),
     import('../engine/analyze.js'),
@@ -39,7 +42,7 @@ export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean }): Pr
   } else if (args.format === 'markdown') {
     stdout = (await import('../report/markdown.js')).markdownReport(project, analysis, { charts: args.charts });
   } else {
-    stdout = (await import('../report/text.js')).textReport(project, analysis, { charts: args.charts, color: tty.color });
+    stdout = (await import('../report/text.js')).textReport(project, analysis, { charts: args.charts, color: tty.color, width });
   }
   let stderr = '';
   if (args.csv !== undefined) {
@@ -65,7 +68,7 @@ export function analyzeCommand(
     command: 'analyze <file>',
     describe: 'Exact ripple, DC error, settling, cutoff and spec checks of a filter project',
     builder: (y: Argv) =>
-      y
+      widthOption(y)
         .positional('file', { describe: 'Project file (YAML)', type: 'string', demandOption: true })
         .option('duty', {
           describe: 'Duty to evaluate, fraction or percent; repeat for more (default: 11 over the used range)',
@@ -88,6 +91,6 @@ export function analyzeCommand(
         .example('$0 analyze board.yaml --duty 25% --duty 0.75', 'Report at two chosen duties')
         .example('$0 analyze board.yaml --format json', 'One JSON object, SI units')
         .example('$0 analyze board.yaml --no-charts --csv w.csv', 'Tables only; waveforms to w.csv') as unknown as Argv<AnalyzeArgs>,
-    handler: (args) => run(() => runAnalyze(args, { color: args.format === 'text' && color() })),
+    handler: (args) => run(() => runAnalyze(args, { color: args.format === 'text' && color(), ...terminalColumns() })),
   };
 }

@@ -11,6 +11,8 @@ export interface ContentOptions {
   charts?: boolean;
   /** asciichart colour codes for chart series (terminal only). */
   chartColors?: string[];
+  /** Widest line the charts are drawn to, columns (default 80). */
+  width?: number;
 }
 
 function inputsSection(project: Project, analysis: Analysis): Section {
@@ -145,7 +147,7 @@ export function reportDocument(project: Project, analysis: Analysis, options: Co
     figuresSection(project, analysis),
   ];
   if (options.charts ?? true) {
-    const charts = reportCharts(analysis, project.pwm.duty, { colors: options.chartColors });
+    const charts = reportCharts(analysis, project.pwm.duty, { colors: options.chartColors, ...(options.width && { width: options.width }) });
     sections.push({ title: 'Charts', blocks: charts.map((c) => ({ kind: 'chart', title: c.title, body: c.body })) });
   }
   sections.push({ title: 'Cautions', blocks: [{ kind: 'list', items: cautions(project, analysis) }] });
