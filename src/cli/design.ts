@@ -1,6 +1,7 @@
 import type { Argv, CommandModule } from 'yargs';
 import type { CommandOutput } from './analyze.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_SPEC_FAILS, UsageError } from './errors.js';
+import { reportWidth, terminalColumns, widthOption } from './width.js';
 
 export interface DesignArgs {
   file: string;
@@ -12,6 +13,7 @@ export interface DesignArgs {
   quiet?: boolean;
   /** Keep only designs that meet the spec under part tolerances. */
   robust?: 'worst-case' | 'yield';
+  width?: number;
 }
 
 /** A progress bar on a terminal stream: redrawn at most every 100 ms, erased when done. */
@@ -45,9 +47,10 @@ function progressBar(stream: NodeJS.WriteStream): { update: (f: number) => void;
  */
 export async function runDesign(
   args: DesignArgs,
-  tty: { color: boolean; progress?: NodeJS.WriteStream },
+  tty: { color: boolean; progress?: NodeJS.WriteStream; columns?: number },
 ): Promise<CommandOutput> {
   if (!Number.isInteger(args.top) || args.top < 1) throw new UsageError(`--top ${args.top}: give a whole number of at least 1`);
+  const width = reportWidth(args.width, { isTTY: tty.columns !== undefined, columns: tty.columns });
   const fs = await import('node:fs');
   if (args.write !== undefined && !args.force && fs.existsSync(args.write)) {
     return { stdout: '', stderr: `dacsmith: ${args.write} exists; use --force to overwrite it\n`, code: EXIT_BAD_INPUT };
@@ -115,6 +118,7 @@ export async function runDesign(
     color: args.format === 'text' && tty.color,
     ...(written && { written }),
     ...(robust && { robust }),
+    width,
   });
   return { stdout: args.quiet ? '' : stdout, stderr, code: result.feasible ? EXIT_PASS : EXIT_SPEC_FAILS };
 }
@@ -134,7 +138,7 @@ export function designCommand(
     command: 'design <file>',
     describe: 'Recommend standard-value RC filters that meet the spec (search over the search: section)',
     builder: (y: Argv) =>
-      y
+      widthOption(y)
         .positional('file', { describe: 'Project file (YAML) with a search: section', type: 'string', demandOption: true })
         .option('quiet', { alias: 'q', describe: 'Print nothing but errors; the exit code tells', type: 'boolean', default: false })
         .option('format', { describe: 'Report format', choices: ['text', 'json', 'markdown'] as const, default: 'text' as const })
@@ -157,6 +161,7 @@ export function designCommand(
         runDesign(args, {
           color: args.format === 'text' && color(),
           ...(process.stderr.isTTY && { progress: process.stderr }),
+          ...terminalColumns(),
         }),
       ),
   };

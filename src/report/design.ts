@@ -15,6 +15,8 @@ export interface DesignReportOptions {
   written?: string;
   /** The tolerance check behind `--robust` (the result then lists only robust designs). */
   robust?: RobustResult;
+  /** Text: the widest line, columns (default 80). */
+  width?: number;
 }
 
 // asciichart colour codes per curve (one stage, two, three), used only when colour is on.
@@ -104,6 +106,7 @@ export function designReport(project: Project, result: DesignResult, format: Des
     ...(color ? { chartColors: CURVE_COLORS } : {}),
     ...(options.written ? { written: options.written } : {}),
     ...(options.robust ? { robust: options.robust } : {}),
+    ...(options.width && { width: options.width }),
   });
-  return renderDocument(doc, format, { color });
+  return renderDocument(doc, format, { color, ...(options.width && { width: options.width }) });
 }

@@ -6,6 +6,7 @@ import { formatEng, formatIec60062 } from '../units/index.js';
 import type { Block, ReportDocument, Section } from './document.js';
 import { lineChart } from './lineChart.js';
 import { percent } from './quantities.js';
+import { designColumnPriority } from './designColumns.js';
 
 export interface DesignDocumentOptions {
   /** Trade-off curves to draw (none: no chart section). */
@@ -16,6 +17,8 @@ export interface DesignDocumentOptions {
   written?: string;
   /** The tolerance check behind `--robust`. */
   robust?: RobustResult;
+  /** Widest line the trade-off chart is drawn to, columns (default 80). */
+  width?: number;
 }
 
 /** Check names as the project file spells the limits. */
@@ -97,7 +100,7 @@ function candidateTable(result: DesignResult, lsbOf: (c: Candidate) => LsbScale)
   const align = header.map((_, i) => (i === 0 || i === header.length - 1 || (i > 0 && i <= width + 1) ? 'left' : 'right')) as Array<
     'left' | 'right'
   >;
-  return { kind: 'table', header, rows, align };
+  return { kind: 'table', header, rows, align, priority: header.map(designColumnPriority) };
 }
 
 /** The robust designs' figures under tolerance: worst case over the box, or Monte Carlo yield. */
@@ -146,7 +149,8 @@ function tradeoffSection(curves: TradeoffCurve[], at: LsbScale, rippleLimit: num
   const limit = rippleLimit;
   // asciichart draws one column per sample: hold each computed point over several columns so the
   // chart is as wide as the others (no values are invented between the points).
-  const hold = Math.max(1, Math.floor(64 / ripples.length));
+  const plotColumns = Math.max(16, Math.min(64, (options.width ?? 80) - 14));
+  const hold = Math.max(1, Math.floor(plotColumns / ripples.length));
   const widen = (ys: number[]) => ys.flatMap((y) => Array.from({ length: hold }, () => y));
   const chart = lineChart(
     curves.map((c) => widen(c.points.map((p) => p.settlingTime ?? Infinity))),
@@ -157,6 +161,7 @@ function tradeoffSection(curves: TradeoffCurve[], at: LsbScale, rippleLimit: num
       x: { start: ripples[0] / scale, end: ripples[ripples.length - 1] / scale, unit: lsb === null ? 'V' : at.mixed && at.bits !== null ? `LSB @ ${at.bits} bit` : 'LSB', log: true, prefixed: lsb === null },
       markers: limit !== undefined ? [{ x: limit / scale, symbol: '^', label: `spec ripple limit ${volts(limit, at)}` }] : [],
       ...(options.chartColors ? { colors: options.chartColors } : {}),
+      width: options.width ?? 80,
     },
   );
   const header = ['ripple limit', ...curves.map((c) => `${c.stages} stage${c.stages > 1 ? 's' : ''}`)];

@@ -43,7 +43,7 @@ const COMFORT = 20;
  * Choose columns and widths so that the table fits `maxWidth`:
  * 1. natural widths when they fit;
  * 2. else wrap: each column may shrink to its comfortable width (20 columns, or its widest
- *    unbreakable piece when wider), where that wraps the fewest cells;
+ *    unbreakable piece when wider), where that adds the fewest lines;
  * 3. else leave out the lowest-priority droppable column and try 2 again;
  * 4. else shrink each column to its widest unbreakable piece, then hard-split (down to 4 columns).
  */
@@ -53,11 +53,10 @@ function layout(header: string[], rows: string[][], columns: number, room: (n: n
   const natural = all.map((i) => Math.max(0, ...cells(i).map(visibleWidth)));
   const chunk = all.map((i) => Math.max(longestChunk(header[i] ?? ''), ...rows.map((r) => longestChunk(r[i] ?? ''))));
   const comfort = all.map((i) => Math.max(chunk[i], Math.min(natural[i], COMFORT)));
-  const cellWidths = all.map((i) => cells(i).map(visibleWidth));
 
   /**
    * Narrow the columns one step at a time until the sum fits, none below its floor, each step
-   * taken where it makes the fewest cells wrap (then the widest column); null when impossible.
+   * taken where it adds the fewest lines to the table (then the widest column); null when impossible.
    */
   const shrink = (keep: number[], floor: number[]): number[] | null => {
     const budget = room(keep.length);
@@ -65,7 +64,20 @@ function layout(header: string[], rows: string[][], columns: number, room: (n: n
     const floors = keep.map((i) => Math.min(natural[i], floor[i]));
     if (floors.reduce((a, b) => a + b, 0) > budget) return null;
     let total = widths.reduce((a, b) => a + b, 0);
-    const cost = (j: number) => cellWidths[keep[j]].filter((w) => w > widths[j] - 1).length;
+    // Lines the table takes with these widths (header and body rows): the cost of a step.
+    const grid = [header, ...rows];
+    const height = (w: number[]) =>
+      grid.reduce((sum, r) => sum + Math.max(1, ...keep.map((i, j) => (visibleWidth(r[i] ?? '') <= w[j] ? 1 : wrapText(r[i] ?? '', w[j]).length))), 0);
+    let now = height(widths);
+    const costs = new Map<number, number>();
+    const cost = (j: number) => {
+      if (!costs.has(j)) {
+        widths[j]--;
+        costs.set(j, height(widths) - now);
+        widths[j]++;
+      }
+      return costs.get(j)!;
+    };
     while (total > budget) {
       let k = -1;
       for (let j = 0; j < widths.length; j++) {
@@ -74,6 +86,8 @@ function layout(header: string[], rows: string[][], columns: number, room: (n: n
       }
       widths[k]--;
       total--;
+      now += cost(k);
+      costs.clear();
     }
     return widths;
   };

@@ -7,7 +7,8 @@ export function textWidth(s: string): number {
 
 /**
  * The pieces a line may break between: words, with a number kept together with the unit that
- * follows it ('4.7 kΩ', '5.0 %', '6 bit') and '@' with what follows it ('@ 6 bit').
+ * follows it ('4.7 kΩ', '5.0 %', '6 bit'), '@' with what follows it ('@ 6 bit') and a joining
+ * '/' or '+' with what it follows ('1 kΩ /').
  *
  * Syntax: wrapChunks(text)
  * Example: wrapChunks('ripple 0.46 LSB @ 6 bit')   // ['ripple', '0.46 LSB', '@ 6 bit']
@@ -21,6 +22,8 @@ export function wrapChunks(text: string): string[] {
     while (i + 1 < words.length && (/^(?:@|[-+±~≈<>≤≥])$/.test(stripAnsi(w)) || (/\d$/.test(stripAnsi(w)) && /^[^\d\s(\-+=<>~@]/u.test(stripAnsi(words[i + 1])) && !/^(?:to|and|or|at|of|in|from|for|by|on|x)\b/.test(words[i + 1])))) {
       w = `${w} ${words[++i]}`;
     }
+    // A joining sign stays at the end of the line it continues: '1 kΩ /', '1k0-680n +'.
+    while (i + 1 < words.length && /^[/+&]$/.test(stripAnsi(words[i + 1]))) w = `${w} ${words[++i]}`;
     out.push(w);
   }
   return out;
