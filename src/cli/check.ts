@@ -1,12 +1,14 @@
 import type { Argv, CommandModule } from 'yargs';
 import type { CommandOutput } from './analyze.js';
 import { describeError, EXIT_BAD_INPUT, EXIT_PASS, EXIT_SPEC_FAILS } from './errors.js';
+import { reportWidth, terminalColumns, widthOption } from './width.js';
 import type { CheckedFile, CheckFormat } from '../report/check.js';
 
 export interface CheckArgs {
   files: string[];
   format: CheckFormat;
   quiet: boolean;
+  width?: number;
 }
 
 /** Exit code of a set of results: 2 when any file is invalid, else 1 when any spec fails, else 0. */
@@ -22,7 +24,8 @@ export function checkExitCode(files: CheckedFile[]): number {
  * Syntax: runCheck(args, { color })
  * Example: await runCheck({ files: ['a.yaml', 'b.yaml'], format: 'text', quiet: false }, { color: false })
  */
-export async function runCheck(args: CheckArgs, tty: { color: boolean }): Promise<CommandOutput> {
+export async function runCheck(args: CheckArgs, tty: { color: boolean; columns?: number }): Promise<CommandOutput> {
+  const width = reportWidth(args.width, { isTTY: tty.columns !== undefined, columns: tty.columns });
   const [{ loadProject, requireFilter }, { analyzeProject }, { renderCheck }] = await Promise.all([
     import('../project/index.js'),
     import('../engine/analyze.js'),
@@ -40,7 +43,7 @@ export async function runCheck(args: CheckArgs, tty: { color: boolean }): Promis
     }
   });
   const stderr = results.flatMap((r) => (r.error !== undefined ? [`${r.error}\n`] : [])).join('');
-  const stdout = args.quiet ? '' : renderCheck(results, args.format, { color: tty.color });
+  const stdout = args.quiet ? '' : renderCheck(results, args.format, { color: tty.color, width });
   return { stdout, stderr, code: checkExitCode(results) };
 }
 
@@ -58,7 +61,7 @@ export function checkCommand(
     command: 'check <files..>',
     describe: 'Check project files against their spec, one line per file (for CI)',
     builder: (y: Argv) =>
-      y
+      widthOption(y)
         .positional('files', { describe: 'Project files (YAML)', type: 'string', array: true, demandOption: true })
         .option('format', {
           describe: 'Output format',
@@ -70,6 +73,6 @@ export function checkCommand(
         .example('$0 check boards/*.yaml --quiet', 'Only the exit code (and errors), for scripts')
         .example('$0 check boards/*.yaml --format markdown >> "$GITHUB_STEP_SUMMARY"', 'A table for a CI job summary')
         .epilogue('Exit codes: 0 every file passes, 1 a spec fails, 2 a file is invalid (the others are still checked).') as unknown as Argv<CheckArgs>,
-    handler: (args) => run(() => runCheck(args, { color: args.format === 'text' && color() })),
+    handler: (args) => run(() => runCheck(args, { color: args.format === 'text' && color(), ...terminalColumns() })),
   };
 }

@@ -1,6 +1,7 @@
 import type { Check } from '../engine/checks.js';
 import { formatEng } from '../units/index.js';
 import { palette } from './color.js';
+import { textWidth, wrapParagraph, wrapText } from './wrapText.js';
 
 /** What `check` found for one file: its spec checks, or why it could not be read. */
 export interface CheckedFile {
@@ -19,6 +20,8 @@ export type CheckFormat = 'text' | 'markdown' | 'json';
 export interface CheckRenderOptions {
   /** ANSI colour for the text format (default false). */
   color?: boolean;
+  /** Text: the widest line, columns (default 80); longer lines wrap under the details. */
+  width?: number;
 }
 
 /**
@@ -109,10 +112,14 @@ export function renderCheck(files: CheckedFile[], format: CheckFormat, options: 
   const paint = palette(options.color ?? false);
   const valid = files.filter((f) => f.error === undefined);
   const width = Math.max(0, ...valid.map((f) => f.file.length));
-  const lines = valid.map((f) =>
-    f.pass
-      ? `${paint.good('PASS')}  ${f.file.padEnd(width)}  (${details(f)})`
-      : `${paint.bad('FAIL')}  ${f.file.padEnd(width)}  ${details(f)}`,
-  );
+  const columns = options.width ?? 80;
+  const lines = valid.map((f) => {
+    const head = `${f.pass ? paint.good('PASS') : paint.bad('FAIL')}  ${f.file.padEnd(width)}  `;
+    const text = f.pass ? `(${details(f)})` : details(f);
+    // A long file name leaves no room beside it: the details then go on the lines below.
+    return textWidth(head) + 20 <= columns
+      ? wrapParagraph(text, columns, head, ' '.repeat(textWidth(head)))
+      : `${f.pass ? paint.good('PASS') : paint.bad('FAIL')}  ${wrapText(f.file, columns - 6).join('\n      ')}\n${wrapParagraph(text, columns, '      ', '      ')}`;
+  });
   return lines.length > 0 ? lines.join('\n') + '\n' : '';
 }
