@@ -2,7 +2,7 @@ import type { Argv } from 'yargs';
 import { UsageError } from './errors.js';
 
 /** Narrowest report width accepted, columns (narrower leaves no room for a table or a chart). */
-export const MIN_WIDTH = 40;
+export const MIN_WIDTH = 50;
 
 /**
  * The width a text report is drawn to: `--width N` when given (a whole number of at least 40),

@@ -76,7 +76,9 @@ function pointsSection(project: Project, analysis: Analysis): Section {
   });
   return {
     title: 'Operating points (periodic steady state)',
-    blocks: [{ kind: 'table', header, rows, align: header.map(() => 'right') }],
+    // On a narrow terminal the ideal output (it follows from the duty) and, with LSB columns beside
+    // them, the millivolt columns are the first left out.
+    blocks: [{ kind: 'table', header, rows, align: header.map(() => 'right'), priority: header.map((h) => (h === 'ideal (V)' ? 0.2 : withLsb && h.endsWith('(mV)') ? 0.5 : 1)) }],
   };
 }
 

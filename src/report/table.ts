@@ -1,4 +1,4 @@
-import { longestChunk, textWidth, wrapText } from './wrapText.js';
+import { longestChunk, textWidth, wrapParagraph, wrapText } from './wrapText.js';
 
 export type Align = 'left' | 'right';
 
@@ -33,7 +33,8 @@ function pad(s: string, width: number, align: Align): string {
 /** Column widths chosen to fit, the columns kept, and the names of the ones left out. */
 interface Layout {
   keep: number[];
-  widths: number[];
+  /** Null: no column layout fits without splitting words; draw one record per row instead. */
+  widths: number[] | null;
 }
 
 /** A column wider than this is wrapped before a droppable column is left out. */
@@ -42,17 +43,20 @@ const COMFORT = 20;
 /**
  * Choose columns and widths so that the table fits `maxWidth`:
  * 1. natural widths when they fit;
- * 2. else wrap: each column may shrink to its comfortable width (20 columns, or its widest
- *    unbreakable piece when wider), where that adds the fewest lines;
+ * 2. else wrap: each column may shrink to its comfortable width (its header wraps freely, its
+ *    cells down to 20 columns or their widest unbreakable piece), where that adds the fewest lines;
  * 3. else leave out the lowest-priority droppable column and try 2 again;
- * 4. else shrink each column to its widest unbreakable piece, then hard-split (down to 4 columns).
+ * 4. else shrink each column to its widest unbreakable piece;
+ * 5. else give up columns: the caller draws one record per row.
  */
 function layout(header: string[], rows: string[][], columns: number, room: (n: number) => number, priority: number[]): Layout {
   const all = Array.from({ length: columns }, (_, i) => i);
   const cells = (i: number) => [header[i] ?? '', ...rows.map((r) => r[i] ?? '')];
   const natural = all.map((i) => Math.max(0, ...cells(i).map(visibleWidth)));
   const chunk = all.map((i) => Math.max(longestChunk(header[i] ?? ''), ...rows.map((r) => longestChunk(r[i] ?? ''))));
-  const comfort = all.map((i) => Math.max(chunk[i], Math.min(natural[i], COMFORT)));
+  // Headers may wrap freely; body cells down to 20 columns.
+  const body = all.map((i) => Math.max(0, ...rows.map((r) => visibleWidth(r[i] ?? ''))));
+  const comfort = all.map((i) => Math.max(chunk[i], Math.min(body[i], COMFORT)));
 
   /**
    * Narrow the columns one step at a time until the sum fits, none below its floor, each step
@@ -101,8 +105,9 @@ function layout(header: string[], rows: string[][], columns: number, room: (n: n
     if (next === undefined) break;
     keep = keep.filter((i) => i !== next);
   }
-  const widths = shrink(keep, chunk) ?? shrink(keep, keep.map(() => 4)) ?? keep.map((i) => Math.min(natural[i], 4));
-  return { keep, widths };
+  const widths = shrink(keep, chunk);
+  // Too narrow for columns without splitting numbers: one record per row, every column kept.
+  return widths ? { keep, widths } : { keep: all, widths: null };
 }
 
 /**
@@ -126,7 +131,9 @@ export function table(header: string[], rows: string[][], options: TableOptions 
   const alignOf = (i: number): Align => options.align?.[i] ?? (i === 0 ? 'left' : 'right');
   const max = options.maxWidth ?? Infinity;
   const room = (n: number) => max - indentWidth - gapWidth * Math.max(0, n - 1);
-  const { keep, widths } = layout(header, rows, columns, room, options.priority ?? []);
+  const { keep, widths: fitted } = layout(header, rows, columns, room, options.priority ?? []);
+  if (fitted === null) return records(header, rows, indent, max);
+  const widths = fitted;
   const dropped = Array.from({ length: columns }, (_, i) => i).filter((i) => !keep.includes(i));
 
   /** One table row as one or more text lines. */
@@ -152,5 +159,23 @@ export function table(header: string[], rows: string[][], options: TableOptions 
     const names = dropped.map((i) => header[i] || `column ${i + 1}`).join(', ');
     out.push(...wrapText(`(not shown at this width: ${names}; a wider --width or --format markdown shows them)`, Math.max(20, max - indentWidth)).map((l) => indent + l));
   }
+  return out.join('\n');
+}
+
+/**
+ * A table too wide for any column layout, as one record per row: the first cell as a heading,
+ * then `column: value` lines (or bare values without a header), wrapped to `max` columns.
+ */
+function records(header: string[], rows: string[][], indent: string, max: number): string {
+  const out: string[] = [];
+  const inner = `${indent}  `;
+  rows.forEach((r, k) => {
+    if (k > 0 && header.length > 0) out.push('');
+    out.push(wrapParagraph(r[0] ?? '', max, indent, inner));
+    for (let i = 1; i < r.length; i++) {
+      const label = header[i] ? `${header[i]}: ` : '';
+      out.push(wrapParagraph(`${label}${r[i] ?? ''}`, max, inner, `${inner}  `));
+    }
+  });
   return out.join('\n');
 }

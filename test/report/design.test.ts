@@ -39,8 +39,10 @@ describe('designReport', () => {
 
   it('text and Markdown show the values, IEC 60062 codes, margins and the comparison', () => {
     const best = result.candidates[0];
-    const text = designReport(project, result, 'text');
+    // Wide enough for every column (at 80 the codes column is the first left out, and says so).
+    const text = designReport(project, result, 'text', { width: 300 });
     const md = designReport(project, result, 'markdown');
+    expect(designReport(project, result, 'text')).toMatch(/not shown at this width: codes \(IEC 60062\)/);
     for (const out of [text, md]) {
       expect(out).toContain('Recommended designs');
       expect(out).toContain('Compared with the filter: design');
@@ -97,7 +99,8 @@ search:
   const best = r.candidates[0];
   const lsbAt = r.resolutions.find((x) => x.bits === best.bits)!.lsb;
   const curves = tradeoffCurves(p, [1], 0.5 * lsbAt, { bits: best.bits!, points: 3 });
-  const text = designReport(p, r, 'text', { tradeoff: curves });
+  // Unwrapped lines, so that each figure and its label stay on one line for the checks below.
+  const text = designReport(p, r, 'text', { tradeoff: curves, width: 400 });
 
   it('names the resolution of every LSB figure, and states LSB limits as holding at each resolution', () => {
     expect(best.bits).not.toBe(8);
