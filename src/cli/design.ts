@@ -98,6 +98,7 @@ export async function runDesign(
   }
 
   let written: string | undefined;
+  let changes;
   let stderr = '';
   if (args.write !== undefined) {
     if (result.feasible) {
@@ -106,6 +107,7 @@ export async function runDesign(
       const edit = withDesign(fs.readFileSync(args.file, 'utf8'), best);
       fs.writeFileSync(args.write, edit.text, { flag: args.force ? 'w' : 'wx' });
       written = args.write;
+      changes = edit.changes;
       const how = edit.method === 'rewritten' ? ' (rewritten by the YAML writer: comments and key order kept, spacing may differ)' : '';
       const list = edit.changes.length > 0 ? edit.changes.map((c) => `  ${changeLine(c)}\n`).join('') : '  no change: the file already holds design #1\n';
       stderr = `design #1 written to ${args.write}${how}; changes from ${args.file}:\n${list}`;
@@ -116,7 +118,7 @@ export async function runDesign(
   const stdout = designReport(project, result, args.format, {
     ...(tradeoff && { tradeoff }),
     color: args.format === 'text' && tty.color,
-    ...(written && { written }),
+    ...(written && { written, changes }),
     ...(robust && { robust }),
     width,
   });

@@ -2,6 +2,7 @@ import type { TradeoffCurve } from '../design/tradeoffCurves.js';
 import type { RobustResult } from '../design/robustDesigns.js';
 import type { Candidate, DesignResult } from '../design/types.js';
 import type { Project } from '../project/types.js';
+import type { DesignEdit } from './designYaml.js';
 import { designDocument, margins, stageCodes } from './designDocument.js';
 import { renderDocument } from './renderDocument.js';
 
@@ -13,6 +14,8 @@ export interface DesignReportOptions {
   color?: boolean;
   /** File the chosen design was written to. */
   written?: string;
+  /** What `--write` changed in the file (designYaml.ts), for the JSON. */
+  changes?: DesignEdit[];
   /** The tolerance check behind `--robust` (the result then lists only robust designs). */
   robust?: RobustResult;
   /** Text: the widest line, columns (default 80). */
@@ -96,6 +99,7 @@ export function designReport(project: Project, result: DesignResult, format: Des
       })),
       basis: result.basis,
       written: options.written ?? null,
+      changes: options.written ? (options.changes ?? []) : null,
       ...(options.robust && { robust: robustJson(options.robust) }),
     };
     return JSON.stringify(body, null, 2) + '\n';
