@@ -116,6 +116,15 @@ search:
     expect(text).toContain(`spec ripple limit 0.5 LSB @ ${best.bits} bit`);
   });
 
+  it('names the resolution in the explanation when nothing is feasible', () => {
+    const tight = parseProject(source.replace('ripple: 0.5 LSB', 'ripple: 0.01 LSB').replace('time: 50 ms', 'time: 100 us'), 'tight.yaml');
+    const none = designSearch(tight, { top: 1 });
+    expect(none.feasible).toBe(false);
+    const lines = none.diagnosis.join('\n');
+    expect(lines).toMatch(/LSB @ \d+ bit/);
+    expect(lines).not.toMatch(/\d LSB(?! @ \d+ bit)/);
+  });
+
   it('shows no resolution labels when only one resolution appears', () => {
     const single = designReport(project, result, 'text');
     expect(single).toMatch(/\d LSB/);
