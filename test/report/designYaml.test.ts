@@ -73,6 +73,16 @@ describe('withDesign', () => {
     expect(parse(empty.text).filter.stages).toEqual([{ r: '4k7', c: '100n' }]);
   });
 
+  it('turns a follower off, and replaces a stage of another kind (an active stage) whole', () => {
+    const text = 'filter:\n  stages:\n    - { r: 4.7k, c: 100n, buffered: true }\n    - { active: sallen-key, r1: 10k, r2: 10k, c1: 22n, c2: 10n }\n';
+    const out = withDesign(text, { stages: [{ r: 4.7e3, c: 100e-9 }, { r: 10e3, c: 10e-9 }], bits: null, frequency: 1e3 });
+    expect(out.changes.map(changeLine)).toEqual([
+      'filter.stages[0].buffered true -> false',
+      'filter.stages[1] { active: sallen-key, r1: 10k, r2: 10k, c1: 22n, c2: 10n } -> { r: 10k, c: 10n }',
+    ]);
+    expect(out.text).toBe('filter:\n  stages:\n    - { r: 4.7k, c: 100n, buffered: false }\n    - { r: 10k, c: 10n }\n');
+  });
+
   it('replaces an aliased stage by its values, the anchor left alone', () => {
     const aliased = 'base: &s { r: 1k, c: 1u }\nfilter:\n  stages:\n    - *s   # shared\n';
     const out = withDesign(aliased, { stages: [{ r: 2.2e3, c: 1e-6 }], bits: null, frequency: 1e3 });
