@@ -286,7 +286,9 @@ export function withDesign(text: string, candidate: Target): WrittenDesign {
   try {
     const { edits, changes } = splices(text, doc, candidate);
     let out = text;
-    for (const e of [...edits].sort((a, b) => b.start - a.start)) out = out.slice(0, e.start) + e.text + out.slice(e.end);
+    // New lines take the file's own line ending.
+    const eol = text.includes('\r\n') ? '\r\n' : '\n';
+    for (const e of [...edits].sort((a, b) => b.start - a.start)) out = out.slice(0, e.start) + e.text.replace(/\n/g, eol) + out.slice(e.end);
     if (agrees(out, candidate)) return { text: out, changes, method: 'edited' };
   } catch (error) {
     if (!(error instanceof Unsupported)) throw error;

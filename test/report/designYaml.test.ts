@@ -83,6 +83,12 @@ describe('withDesign', () => {
     expect(out.text).toBe('filter:\n  stages:\n    - { r: 4.7k, c: 100n, buffered: false }\n    - { r: 10k, c: 10n }\n');
   });
 
+  it('keeps CRLF line endings when it adds a stage', () => {
+    const text = 'filter:\r\n  stages:\r\n    - { r: 1k, c: 1u }\r\nspec: {}\r\n';
+    const out = withDesign(text, { stages: [{ r: 1e3, c: 1e-6 }, { r: 10e3, c: 1e-9 }], bits: null, frequency: 1e3 });
+    expect(out.text).toBe('filter:\r\n  stages:\r\n    - { r: 1k, c: 1u }\r\n    - { r: 10k, c: 1n0 }\r\nspec: {}\r\n');
+  });
+
   it('replaces an aliased stage by its values, the anchor left alone', () => {
     const aliased = 'base: &s { r: 1k, c: 1u }\nfilter:\n  stages:\n    - *s   # shared\n';
     const out = withDesign(aliased, { stages: [{ r: 2.2e3, c: 1e-6 }], bits: null, frequency: 1e3 });
