@@ -1,6 +1,7 @@
 import type { Argv, CommandModule } from 'yargs';
 import { parseDuties } from './duty.js';
 import { EXIT_PASS, EXIT_SPEC_FAILS } from './errors.js';
+import { reportWidth, terminalColumns, widthOption } from './width.js';
 
 export interface AnalyzeArgs {
   file: string;
@@ -10,6 +11,7 @@ export interface AnalyzeArgs {
   quiet?: boolean;
   csv?: string;
   force?: boolean;
+  width?: number;
 }
 
 /** What a command hands back to the shell: text for stdout and stderr, and the exit code. */
@@ -26,8 +28,9 @@ export interface CommandOutput {
  * Syntax: runAnalyze(args, { color })
  * Example: await runAnalyze({ file: 'p.yaml', format: 'json', charts: true }, { color: false })
  */
-export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean }): Promise<CommandOutput> {
+export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean; columns?: number }): Promise<CommandOutput> {
   const duties = parseDuties(args.duty);
+  const width = reportWidth(args.width, { isTTY: tty.columns !== undefined, columns: tty.columns });
   const [{ loadProject, requireFilter }, { analyzeProject }] = await Promise.all([
     import('../project/index.js'),
     import('../engine/analyze.js'),
@@ -40,7 +43,7 @@ export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean }): Pr
   } else if (args.format === 'markdown') {
     stdout = (await import('../report/markdown.js')).markdownReport(project, analysis, { charts: args.charts });
   } else {
-    stdout = (await import('../report/text.js')).textReport(project, analysis, { charts: args.charts, color: tty.color });
+    stdout = (await import('../report/text.js')).textReport(project, analysis, { charts: args.charts, color: tty.color, width });
   }
   let stderr = '';
   if (args.csv !== undefined) {
@@ -66,7 +69,7 @@ export function analyzeCommand(
     command: 'analyze <file>',
     describe: 'Exact ripple, DC error, settling, cutoff and spec checks of a filter project',
     builder: (y: Argv) =>
-      y
+      widthOption(y)
         .positional('file', { describe: 'Project file (YAML)', type: 'string', demandOption: true })
         .option('duty', {
           describe: 'Duty to evaluate, fraction or percent; repeat for more (default: 11 over the used range)',
@@ -94,6 +97,6 @@ export function analyzeCommand(
           'Exit codes: 0 every spec holds, 1 a spec fails, 2 bad input. Warnings (values that are probably a typing slip, ' +
             "such as a load typed as 1m for 1M) are printed under 'Warnings' and never change the exit code; 'check --strict' fails on them.",
         ) as unknown as Argv<AnalyzeArgs>,
-    handler: (args) => run(() => runAnalyze(args, { color: args.format === 'text' && color() })),
+    handler: (args) => run(() => runAnalyze(args, { color: args.format === 'text' && color(), ...terminalColumns() })),
   };
 }

@@ -1,6 +1,7 @@
 import type { Argv, CommandModule } from 'yargs';
 import type { CommandOutput } from './analyze.js';
 import { describeError, EXIT_BAD_INPUT, EXIT_PASS, EXIT_SPEC_FAILS, UsageError } from './errors.js';
+import { reportWidth, terminalColumns, widthOption } from './width.js';
 import type { CheckedFile, CheckFormat } from '../report/check.js';
 
 export interface CheckArgs {
@@ -9,6 +10,7 @@ export interface CheckArgs {
   quiet: boolean;
   /** Warnings count as failures (exit 1). */
   strict?: boolean;
+  width?: number;
 }
 
 /** Exit code of a set of results: 2 when any file is invalid, else 1 when any spec fails, else 0. */
@@ -25,11 +27,12 @@ export function checkExitCode(files: CheckedFile[]): number {
  * Syntax: runCheck(args, { color })
  * Example: await runCheck({ files: ['a.yaml', 'b.yaml'], format: 'text', quiet: false }, { color: false })
  */
-export async function runCheck(args: CheckArgs, tty: { color: boolean }): Promise<CommandOutput> {
+export async function runCheck(args: CheckArgs, tty: { color: boolean; columns?: number }): Promise<CommandOutput> {
   // yargs hands a lone '-' over as ''. A gate that checked nothing must not pass.
   if (args.files.length === 0 || args.files.some((f) => f === '' || f === '-')) {
     throw new UsageError("check reads project files by name, not standard input ('-'); name at least one file (a check of no file does not pass)");
   }
+  const width = reportWidth(args.width, { isTTY: tty.columns !== undefined, columns: tty.columns });
   const [{ loadProject, requireFilter }, { analyzeProject }, { renderCheck }] = await Promise.all([
     import('../project/index.js'),
     import('../engine/analyze.js'),
@@ -57,7 +60,7 @@ export async function runCheck(args: CheckArgs, tty: { color: boolean }): Promis
     throw new UsageError(`every file given is design-only (a search and no filter): nothing to check; run 'dacsmith design' on ${results.length > 1 ? 'them' : 'it'}`);
   }
   const stderr = results.flatMap((r) => (r.error !== undefined ? [`${r.error}\n`] : [])).join('');
-  const stdout = args.quiet ? '' : renderCheck(results, args.format, { color: tty.color, strict });
+  const stdout = args.quiet ? '' : renderCheck(results, args.format, { color: tty.color, strict, width });
   return { stdout, stderr, code: checkExitCode(results) };
 }
 
@@ -75,7 +78,7 @@ export function checkCommand(
     command: 'check <files..>',
     describe: 'Check project files against their spec, one line per file (for CI)',
     builder: (y: Argv) =>
-      y
+      widthOption(y)
         .positional('files', { describe: 'Project files (YAML)', type: 'string', array: true, demandOption: true })
         .option('format', {
           describe: 'Output format',
@@ -96,6 +99,6 @@ export function checkCommand(
           'Exit codes: 0 every file passes, 1 a spec fails (with --strict: or a file has a warning), 2 a file is invalid (the others are still checked). ' +
             'Without --strict a warning is printed but never changes the exit code.',
         ) as unknown as Argv<CheckArgs>,
-    handler: (args) => run(() => runCheck(args, { color: args.format === 'text' && color() })),
+    handler: (args) => run(() => runCheck(args, { color: args.format === 'text' && color(), ...terminalColumns() })),
   };
 }

@@ -1,6 +1,7 @@
 import type { Argv, CommandModule } from 'yargs';
 import type { CommandOutput } from './analyze.js';
 import { EXIT_PASS, EXIT_SPEC_FAILS, UsageError } from './errors.js';
+import { reportWidth, terminalColumns, widthOption } from './width.js';
 import type { CompareFormat } from '../report/compare.js';
 
 export interface CompareArgs {
@@ -9,6 +10,7 @@ export interface CompareArgs {
   git?: string;
   format: CompareFormat;
   quiet: boolean;
+  width?: number;
 }
 
 /**
@@ -19,7 +21,8 @@ export interface CompareArgs {
  * Syntax: runCompare(args, { color })
  * Example: await runCompare({ base: 'dac.yaml', git: 'main', format: 'markdown', quiet: false }, { color: false })
  */
-export async function runCompare(args: CompareArgs, tty: { color: boolean }): Promise<CommandOutput> {
+export async function runCompare(args: CompareArgs, tty: { color: boolean; columns?: number }): Promise<CommandOutput> {
+  const width = reportWidth(args.width, { isTTY: tty.columns !== undefined, columns: tty.columns });
   if (args.git !== undefined && args.head !== undefined) {
     throw new UsageError('compare --git takes one file (compared with itself at that revision), not two');
   }
@@ -60,7 +63,7 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean }): Pr
         { label: baseLabel, project: base, analysis: analyzeProject(base) },
         { label: headLabel, project: head, analysis: headAnalysis },
         args.format,
-        { color: tty.color },
+        { color: tty.color, width },
       );
   return { stdout, stderr: '', code: headAnalysis.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
 }
@@ -79,7 +82,7 @@ export function compareCommand(
     command: 'compare <base> [head]',
     describe: 'Compare two versions of a project: changed inputs, figures side by side, checks, overlay charts',
     builder: (y: Argv) =>
-      y
+      widthOption(y)
         .positional('base', { describe: 'Base project file (with --git: the file to compare with its older version)', type: 'string', demandOption: true })
         .positional('head', { describe: 'Head project file', type: 'string' })
         .option('git', { describe: 'Compare the file with its version at this git revision (branch, tag, commit)', type: 'string', requiresArg: true })
@@ -93,6 +96,6 @@ export function compareCommand(
         .example('$0 compare dacsmith.yaml --git main', 'The file against its version on branch main')
         .example('$0 compare dacsmith.yaml --git HEAD --format markdown >> "$GITHUB_STEP_SUMMARY"', 'Uncommitted changes, as Markdown for a CI summary')
         .epilogue("Exit codes: 0 the head passes its spec, 1 it fails, 2 bad input (a file, or git). Warnings shown are the head's; they never change the exit code.") as unknown as Argv<CompareArgs>,
-    handler: (args) => run(() => runCompare(args, { color: args.format === 'text' && color() })),
+    handler: (args) => run(() => runCompare(args, { color: args.format === 'text' && color(), ...terminalColumns() })),
   };
 }

@@ -1,6 +1,7 @@
 import type { Argv, CommandModule } from 'yargs';
 import type { CommandOutput } from './analyze.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_SPEC_FAILS, UsageError } from './errors.js';
+import { reportWidth, terminalColumns, widthOption } from './width.js';
 
 export interface DesignArgs {
   file: string;
@@ -12,6 +13,7 @@ export interface DesignArgs {
   quiet?: boolean;
   /** Keep only designs that meet the spec under part tolerances. */
   robust?: 'worst-case' | 'yield';
+  width?: number;
 }
 
 /** A progress bar on a terminal stream: redrawn at most every 100 ms, erased when done. */
@@ -45,9 +47,10 @@ function progressBar(stream: NodeJS.WriteStream): { update: (f: number) => void;
  */
 export async function runDesign(
   args: DesignArgs,
-  tty: { color: boolean; progress?: NodeJS.WriteStream },
+  tty: { color: boolean; progress?: NodeJS.WriteStream; columns?: number },
 ): Promise<CommandOutput> {
   if (!Number.isInteger(args.top) || args.top < 1) throw new UsageError(`--top ${args.top}: give a whole number of at least 1`);
+  const width = reportWidth(args.width, { isTTY: tty.columns !== undefined, columns: tty.columns });
   const fs = await import('node:fs');
   if (args.write !== undefined && !args.force && fs.existsSync(args.write)) {
     return { stdout: '', stderr: `dacsmith: ${args.write} exists; use --force to overwrite it\n`, code: EXIT_BAD_INPUT };
@@ -95,15 +98,19 @@ export async function runDesign(
   }
 
   let written: string | undefined;
+  let changes;
   let stderr = '';
   if (args.write !== undefined) {
     if (result.feasible) {
-      const { withDesign } = await import('../report/designYaml.js');
+      const { withDesign, changeLine } = await import('../report/designYaml.js');
       const best = result.candidates[0];
-      const note = `chosen by dacsmith design: settles in ${best.settlingTime?.toPrecision(4)} s, worst ripple ${best.worstRipple.toPrecision(4)} V`;
-      fs.writeFileSync(args.write, withDesign(fs.readFileSync(args.file, 'utf8'), best, note), { flag: args.force ? 'w' : 'wx' });
+      const edit = withDesign(fs.readFileSync(args.file, 'utf8'), best);
+      fs.writeFileSync(args.write, edit.text, { flag: args.force ? 'w' : 'wx' });
       written = args.write;
-      stderr = `design #1 written to ${args.write}\n`;
+      changes = edit.changes;
+      const how = edit.method === 'rewritten' ? ' (rewritten by the YAML writer: comments and key order kept, spacing may differ)' : '';
+      const list = edit.changes.length > 0 ? edit.changes.map((c) => `  ${changeLine(c)}\n`).join('') : '  no change: the file already holds design #1\n';
+      stderr = `design #1 written to ${args.write}${how}; changes from ${args.file}:\n${list}`;
     } else {
       stderr = `dacsmith: no feasible design, nothing written to ${args.write}\n`;
     }
@@ -111,8 +118,9 @@ export async function runDesign(
   const stdout = designReport(project, result, args.format, {
     ...(tradeoff && { tradeoff }),
     color: args.format === 'text' && tty.color,
-    ...(written && { written }),
+    ...(written && { written, changes }),
     ...(robust && { robust }),
+    width,
   });
   return { stdout: args.quiet ? '' : stdout, stderr, code: result.feasible ? EXIT_PASS : EXIT_SPEC_FAILS };
 }
@@ -132,7 +140,7 @@ export function designCommand(
     command: 'design <file>',
     describe: 'Recommend standard-value RC filters that meet the spec (search over the search: section)',
     builder: (y: Argv) =>
-      y
+      widthOption(y)
         .positional('file', { describe: 'Project file (YAML) with a search: section', type: 'string', demandOption: true })
         .option('quiet', { alias: 'q', describe: 'Print nothing but errors; the exit code tells', type: 'boolean', default: false })
         .option('format', { describe: 'Report format', choices: ['text', 'json', 'markdown'] as const, default: 'text' as const })
@@ -155,6 +163,7 @@ export function designCommand(
         runDesign(args, {
           color: args.format === 'text' && color(),
           ...(process.stderr.isTTY && { progress: process.stderr }),
+          ...terminalColumns(),
         }),
       ),
   };

@@ -1,6 +1,7 @@
 import type { Argv, CommandModule } from 'yargs';
 import type { CommandOutput } from './analyze.js';
 import { EXIT_PASS, EXIT_SPEC_FAILS, UsageError } from './errors.js';
+import { reportWidth, terminalColumns, widthOption } from './width.js';
 
 export interface ToleranceArgs {
   file: string;
@@ -11,6 +12,7 @@ export interface ToleranceArgs {
   format: 'text' | 'json' | 'markdown';
   charts: boolean;
   quiet?: boolean;
+  width?: number;
 }
 
 /** Where progress goes: a terminal line that is redrawn in place, or nowhere. */
@@ -28,8 +30,9 @@ export interface ProgressSink {
  */
 export async function runTolerance(
   args: ToleranceArgs,
-  tty: { color: boolean; progress?: ProgressSink },
+  tty: { color: boolean; progress?: ProgressSink; columns?: number },
 ): Promise<CommandOutput> {
+  const width = reportWidth(args.width, { isTTY: tty.columns !== undefined, columns: tty.columns });
   for (const [name, value, min] of [
     ['--samples', args.samples, 1],
     ['--seed', args.seed, 0],
@@ -71,7 +74,7 @@ export async function runTolerance(
   } finally {
     bar?.clear();
   }
-  const stdout = toleranceReport(project, study, args.format, { charts: args.charts, color: tty.color });
+  const stdout = toleranceReport(project, study, args.format, { charts: args.charts, color: tty.color, width });
   return { stdout: args.quiet ? '' : stdout, stderr: '', code: study.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
 }
 
@@ -113,7 +116,7 @@ export function toleranceCommand(
     command: 'tolerance <file>',
     describe: 'Worst case over the part tolerances and Monte Carlo yield against the spec',
     builder: (y: Argv) =>
-      y
+      widthOption(y)
         .positional('file', { describe: 'Project file (YAML) with a tolerance block', type: 'string', demandOption: true })
         .option('samples', { describe: 'Monte Carlo samples (default: tolerance.samples, else 10000)', type: 'number', requiresArg: true })
         .option('seed', { describe: 'Random seed; the same seed gives the same result (default: tolerance.seed)', type: 'number', requiresArg: true })
@@ -134,6 +137,7 @@ export function toleranceCommand(
         runTolerance(args, {
           color: args.format === 'text' && color(),
           progress: { isTTY: process.stderr.isTTY === true, write: (s) => process.stderr.write(s) },
+          ...terminalColumns(),
         }),
       ),
   };

@@ -61,7 +61,8 @@ export function explainInfeasible(project: Project, problems: DesignProblem[], s
   const lines: string[] = [];
   const binding: LimitName[] = [];
   const volts = (v: number, p: DesignProblem = base) =>
-    p.lsb !== null ? `${formatEng(v, 'V')} (${(v / p.lsb).toPrecision(3)} LSB)` : formatEng(v, 'V');
+    // With several resolutions in play, an LSB count names the resolution it is counted at.
+    p.lsb !== null ? `${formatEng(v, 'V')} (${(v / p.lsb).toPrecision(3)} LSB${searchBits && p.bits !== null ? ` @ ${p.bits} bit` : ''})` : formatEng(v, 'V');
 
   for (const name of names) {
     const without = solveAll(relaxProject(project, [name], Infinity), 1)[0];

@@ -15,6 +15,8 @@ import {
 import { specChecks, type Check } from './checks.js';
 import { plausibilityWarnings, type Warning } from './plausibilityWarnings.js';
 import { warningFigures } from './warningFigures.js';
+import { capacitorWorkingVoltage } from './capacitorWorkingVoltage.js';
+import { CAPACITOR_DERATING, suggestedCapacitorRating } from './suggestedCapacitorRating.js';
 import type { DcTransfer, OperatingPoint, Settling, WorstRipple } from './types.js';
 
 export type { Check } from './checks.js';
@@ -35,6 +37,11 @@ export interface Analysis {
   attenuation: number;
   /** A. */
   pinPeakCurrent: number;
+  /**
+   * Voltage stress of the filter capacitors: the working voltage (an upper bound, V), the derating
+   * factor asked for, and the next standard rating at or above factor x working (V; null above 1 kV).
+   */
+  capacitorVoltage: { working: number; factor: number; rating: number | null };
   /** s, as the engine reports them. */
   timeConstants: number[];
   /** V, or null when the resolution is unknown. */
@@ -103,6 +110,11 @@ export function analyzeProject(project: Project, options: AnalyzeOptions = {}): 
     cutoff: cutoffFrequency(ladder),
     attenuation: -20 * Math.log10(magnitude(ladder, 1 / ladder.period)),
     pinPeakCurrent: peak,
+    capacitorVoltage: {
+      working: capacitorWorkingVoltage(ladder),
+      factor: CAPACITOR_DERATING,
+      rating: suggestedCapacitorRating(capacitorWorkingVoltage(ladder)),
+    },
     timeConstants: figures.timeConstants,
     lsb: project.lsb ?? null,
     checks,

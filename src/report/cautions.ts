@@ -3,60 +3,85 @@ import type { Project } from '../project/types.js';
 import { formatEng } from '../units/index.js';
 
 /**
- * Upper limit of safety extra-low voltage for DC, V: 60 V ripple-free d.c. (the ES1 / SELV limit
- * in IEC 62368-1 and its predecessor IEC 60950-1; value from memory).
+ * Upper limit of extra-low voltage for ripple-free DC, V: 60 V (the SELV / ELV band I limit of
+ * IEC 61140, and ES1 of IEC 62368-1; common practice, values from memory).
  */
 export const SELV_DC_LIMIT = 60;
 
-/** Capacitance from which a part is likely electrolytic or tantalum, i.e. polarized (common practice). */
-export const LIKELY_POLARIZED = 1e-6;
+/**
+ * Pin current from which the report cautions, A: 10 mA, half of the 20 mA absolute-maximum
+ * current per pin that many microcontroller GPIOs state (common practice, figure from memory;
+ * the microcontroller's data sheet rules). Below it a caution would be noise.
+ */
+export const GPIO_CAUTION_CURRENT = 10e-3;
 
-/** Voltage derating asked of capacitors: rate them at least this multiple of the highest level (common practice). */
-export const VOLTAGE_DERATING = 1.5;
+/** Standard ratings as text: '6.3 V'. */
+const volts = (v: number) => formatEng(v, 'V', 3);
 
 /**
- * Short notes on what the analysis cannot check, each deferring to data sheets or codes:
- * pin peak current against `search.pin_current` (or, when unset, a reminder to compare it with the
- * MCU data sheet), capacitor voltage rating, polarity of large (likely polarized) capacitors,
- * and levels above the extra-low-voltage limit.
+ * Cautions an engineer would write beside the figures, each deferring to data sheets, local codes
+ * and licensed practice:
+ * - capacitor voltage rating: the working voltage (from the analysis) and the next standard rating
+ *   with margin (common practice);
+ * - class-2 ceramic capacitors (X5R, X7R, ...): capacitance loss under DC bias and wide tolerance,
+ *   phrased conditionally (the tool does not know the technology and does not guess it from the value);
+ * - polarized capacitors, conditionally, only when a level is negative (reverse bias);
+ * - pin peak current, only when it exceeds search.pin_current or approaches a typical GPIO rating;
+ * - a level above 60 V DC: outside extra-low voltage.
  *
  * Syntax: cautions(project, analysis)
- * Example: cautions(p, analyzeProject(p))   // ['Pin peak current 0.7 mA: compare it with ...', ...]
+ * Example: cautions(p, analyzeProject(p))   // ['Capacitor voltage rating: ...', 'If you use class-2 ...']
  */
 export function cautions(project: Project, analysis: Analysis): string[] {
   const notes: string[] = [];
   const { high, low } = project.pwm;
-  const peak = formatEng(analysis.pinPeakCurrent, 'A', 3);
-  const limit = project.search?.pinCurrent;
-  if (limit === undefined) {
-    notes.push(`Pin peak current ${peak}: compare it with the pin current rating in the microcontroller data sheet.`);
-  } else if (analysis.pinPeakCurrent > limit) {
+  const n = project.filter.stages.length;
+  const names = n === 1 ? 'C1 sees' : n === 2 ? 'C1 and C2 see' : `C1 to C${n} see`;
+
+  const { working, factor, rating } = analysis.capacitorVoltage;
+  const suggestion =
+    rating === null
+      ? `no standard rating up to 1 kV reaches ${factor} x that: use parts rated for it, per their data sheets.`
+      : `a rating of ${volts(rating)} or more, the next standard rating (6.3, 10, 16, 25, 35, 50, 63, 100 V, ...) ` +
+        `at or above ${factor} x the working voltage (common practice: derating guides keep a capacitor at or below ` +
+        `about 50 % to 70 % of its rating), is a reasonable start; the capacitor data sheet rules.`;
+  notes.push(`Capacitor voltage rating: ${names} at most ${volts(working)} (the largest PWM level); ${suggestion}`);
+
+  notes.push(
+    'If you use class-2 ceramic capacitors (X5R, X7R, Y5V, ...): they lose capacitance under DC bias, often a large ' +
+      'share near their rated voltage, and their tolerance is wide (±10 % to ±20 %, Y5V -20/+80 %). Read the ' +
+      "manufacturer's DC-bias curve at the working voltage and enter the effective value (and tolerance.capacitor) " +
+      'in the project; class-1 (C0G/NP0) or film parts keep their value.',
+  );
+
+  if (Math.min(high, low) < 0) {
     notes.push(
-      `Pin peak current ${peak} exceeds search.pin_current (${formatEng(limit, 'A', 3)}): raise R1 or check the microcontroller data sheet.`,
+      `The PWM swings below 0 V (low ${volts(low)}): if you use polarized capacitors (electrolytic, tantalum), ` +
+        'they would be reverse-biased; use non-polarized parts.',
+    );
+  }
+
+  const peak = analysis.pinPeakCurrent;
+  const limit = project.search?.pinCurrent;
+  if (limit !== undefined && peak > limit) {
+    notes.push(
+      `Pin peak current ${formatEng(peak, 'A', 3)} exceeds search.pin_current (${formatEng(limit, 'A', 3)}): ` +
+        'raise R1, and check the pin rating in the microcontroller data sheet.',
+    );
+  } else if (peak >= GPIO_CAUTION_CURRENT) {
+    notes.push(
+      `Pin peak current ${formatEng(peak, 'A', 3)} approaches the pin ratings of many microcontrollers ` +
+        `(cautioned from ${formatEng(GPIO_CAUTION_CURRENT, 'A', 3)}, half of a common 20 mA absolute maximum; ` +
+        'common practice): check the microcontroller data sheet, or raise R1.',
     );
   }
 
   const highest = Math.max(Math.abs(high), Math.abs(low));
-  notes.push(
-    `Capacitors see up to ${formatEng(highest, 'V', 3)}: choose a voltage rating with margin ` +
-      `(at least ${formatEng(VOLTAGE_DERATING * highest, 'V', 3)} is common practice) and follow the capacitor data sheet.`,
-  );
-
-  const stages = project.filter.stages;
-  const polarized = stages
-    .map((s, i) => ({ c: s.c, name: `C${i + 1}` }))
-    .filter((s) => s.c >= LIKELY_POLARIZED);
-  if (polarized.length > 0) {
-    const which = polarized.map((s) => `${s.name} (${formatEng(s.c, 'F', 3)})`).join(', ');
-    const reverse = Math.min(high, low) < 0 ? ' The output swings below 0 V, which reverse-biases a polarized part: use a non-polarized type.' : '';
-    const verb = polarized.length > 1 ? 'are' : 'is';
-    notes.push(`${which} ${verb} likely electrolytic or tantalum: mind the polarity (+ to the filter node, - to ground).${reverse}`);
-  }
-
   if (highest > SELV_DC_LIMIT) {
     notes.push(
-      `A level of ${formatEng(highest, 'V', 3)} is above ${SELV_DC_LIMIT} V DC, outside safety extra-low voltage: ` +
-        'follow local electrical codes and licensed practice.',
+      `A level of ${volts(highest)} is above ${SELV_DC_LIMIT} V DC, outside extra-low voltage (SELV, IEC 61140; ` +
+        'common practice, from memory): shock protection, clearances and insulation apply; follow local ' +
+        'electrical codes and licensed practice.',
     );
   }
   return notes;

@@ -4,10 +4,13 @@ import type { Waveform } from '../engine/types.js';
 import { formatEng } from '../units/index.js';
 import { lineChart } from './lineChart.js';
 import { tidy } from './quantities.js';
+import { textWidth } from './wrapText.js';
 import { stepRecord, worstRippleWave } from './waveforms.js';
 
-/** Plot columns per chart. */
+/** Plot columns per chart at most (fewer on a narrow terminal). */
 const COLUMNS = 72;
+/** Room the y labels and the axis take left of the plot, columns (a first guess; checked after drawing). */
+const LABEL_ROOM = 12;
 
 export interface Chart {
   title: string;
@@ -18,6 +21,8 @@ export interface ChartOptions {
   /** asciichart colour codes for the series; omit for plain text. */
   colors?: string[];
   height?: number;
+  /** Widest line, columns (default 80): the plots and legends are drawn to fit it. */
+  width?: number;
 }
 
 const pct = (d: number) => `${(100 * d).toFixed(1)} %`;
@@ -60,13 +65,30 @@ export function envelope(wave: Waveform, columns: number): { lower: number[]; up
  * magnitude response against log frequency with cutoff and PWM frequency, (d) the DC error across
  * the used duty range. All data come from the engine.
  *
- * Syntax: reportCharts(analysis, dutyRange[, { colors, height }])
+ * Each plot takes as many columns as the width leaves beside its y labels (at most 72); a chart
+ * that still comes out too wide is drawn again with fewer columns.
+ *
+ * Syntax: reportCharts(analysis, dutyRange[, { colors, height, width }])
  * Example: reportCharts(a, p.pwm.duty).map((c) => c.title)
  */
 export function reportCharts(
   analysis: Analysis,
   dutyRange: { min: number; max: number },
   options: ChartOptions = {},
+): Chart[] {
+  const width = options.width ?? 80;
+  const first = Math.max(16, Math.min(COLUMNS, width - LABEL_ROOM));
+  const charts = drawCharts(analysis, dutyRange, options, first, width);
+  const widest = Math.max(...charts.flatMap((c) => c.body.split('\n').map(textWidth)));
+  return widest <= width || first <= 16 ? charts : drawCharts(analysis, dutyRange, options, Math.max(16, first - (widest - width)), width);
+}
+
+function drawCharts(
+  analysis: Analysis,
+  dutyRange: { min: number; max: number },
+  options: ChartOptions,
+  columns: number,
+  width: number,
 ): Chart[] {
   const height = options.height ?? 10;
   const colors = options.colors;
@@ -76,7 +98,7 @@ export function reportCharts(
 
   // (a) Steady state: deviation from the average, so the ripple fills the chart.
   const wDuty = analysis.worstRipple.duty;
-  const steady = worstRippleWave(analysis, Math.round(COLUMNS / 2));
+  const steady = worstRippleWave(analysis, Math.round(columns / 2));
   const avg = tidy(steadyState(ladder, wDuty).average, ladder.high - ladder.low);
   charts.push({
     title: `Output minus its average (${formatEng(avg, 'V', 5)}) over two PWM periods at duty ${pct(wDuty)} (worst ripple)`,
@@ -86,12 +108,13 @@ export function reportCharts(
       minSpan: 1e-6,
       x: { start: steady.t[0], end: steady.t[steady.t.length - 1], unit: 's' },
       colors,
+      width,
     }),
   });
 
   // (b) Settling step: envelope of the record, band lines, settling instant.
   const step = stepRecord(analysis);
-  const { lower, upper } = envelope(step.wave, COLUMNS);
+  const { lower, upper } = envelope(step.wave, columns);
   const bandLabel = `band ±${formatEng(step.band, 'V', 3)} around the final value`;
   const levels = [
     { y: step.final + step.band, label: bandLabel },
@@ -106,7 +129,7 @@ export function reportCharts(
   const what = `step ${pct(step.from)} -> ${pct(step.to)}, band ±${formatEng(step.band, 'V', 3)} around ${formatEng(step.final, 'V', 5)}`;
   charts.push({
     title: `Step response (${what}); ripple drawn as its envelope`,
-    body: lineChart([upper, lower], { height, yUnit: 'V', x: xAxis, markers, levels, colors }),
+    body: lineChart([upper, lower], { height, yUnit: 'V', x: xAxis, markers, levels, colors, width }),
   });
   // Zoom so that one band is exactly two rows: the band lines then sit symmetric about the final row.
   const zoomHeight = 12;
@@ -121,6 +144,7 @@ export function reportCharts(
       levels,
       yRange: { min: step.final - zoom, max: step.final + zoom },
       colors,
+      width,
     }),
   });
 
@@ -128,7 +152,7 @@ export function reportCharts(
   const fPwm = 1 / period;
   const fLo = Math.min(analysis.cutoff, fPwm) / 100;
   const fHi = Math.max(analysis.cutoff, fPwm) * 10;
-  const freqs = Array.from({ length: COLUMNS }, (_, i) => fLo * (fHi / fLo) ** (i / (COLUMNS - 1)));
+  const freqs = Array.from({ length: columns }, (_, i) => fLo * (fHi / fLo) ** (i / (columns - 1)));
   charts.push({
     title: 'Magnitude response relative to DC (dB) against log frequency',
     body: lineChart([freqs.map((f) => 20 * Math.log10(magnitude(ladder, f)))], {
@@ -141,12 +165,13 @@ export function reportCharts(
         { x: fPwm, symbol: 'P', label: `PWM frequency ${formatEng(fPwm, 'Hz', 3)}: gain ${(-analysis.attenuation).toFixed(1)} dB` },
       ],
       colors,
+      width,
     }),
   });
 
   // (d) DC error across the used duty range.
   const { min: dMin, max: dMax } = dutyRange;
-  const duties = Array.from({ length: COLUMNS }, (_, i) => dMin + ((dMax - dMin) * i) / (COLUMNS - 1));
+  const duties = Array.from({ length: columns }, (_, i) => dMin + ((dMax - dMin) * i) / (columns - 1));
   const errors = duties.map((d) => ladder.low + d * (ladder.high - ladder.low) - steadyState(ladder, d).average);
   const inLsb = lsb !== null;
   charts.push({
@@ -163,6 +188,7 @@ export function reportCharts(
           ? []
           : [{ x: 100 * analysis.dc.droop.duty, symbol: 'D', label: `largest error (droop) at duty ${pct(analysis.dc.droop.duty)}` }],
       colors,
+      width,
     }),
   });
   return charts;

@@ -2,6 +2,7 @@ import type { Check } from '../engine/checks.js';
 import type { Warning } from '../engine/plausibilityWarnings.js';
 import { formatEng } from '../units/index.js';
 import { palette } from './color.js';
+import { textWidth, wrapParagraph, wrapText } from './wrapText.js';
 
 /** What `check` found for one file: its spec checks, or why it could not be read. */
 export interface CheckedFile {
@@ -26,6 +27,8 @@ export interface CheckRenderOptions {
   color?: boolean;
   /** `check --strict`: warnings count as failures (default false). */
   strict?: boolean;
+  /** Text: the widest line, columns (default 80); longer lines wrap under the details. */
+  width?: number;
 }
 
 /** A check value or limit: a fraction of full scale ('1') in percent, else engineering units. */
@@ -150,13 +153,16 @@ export function renderCheck(files: CheckedFile[], format: CheckFormat, options: 
   const paint = palette(options.color ?? false);
   const valid = files.filter((f) => f.error === undefined);
   const width = Math.max(0, ...valid.map((f) => f.file.length));
-  const lines = valid.map((f) =>
-    f.skipped !== undefined
-      ? `SKIP  ${f.file.padEnd(width)}  (${f.skipped})`
-      : f.pass
-        ? `${paint.good('PASS')}  ${f.file.padEnd(width)}  (${details(f, strict)})`
-        : `${paint.bad('FAIL')}  ${f.file.padEnd(width)}  ${details(f, strict)}`,
-  );
-  if (warned.length > 0) lines.push('', paint.bold('Warnings'), ...warned.map((w) => `  - ${w}`));
+  const columns = options.width ?? 80;
+  const lines = valid.map((f) => {
+    const verdict = f.skipped !== undefined ? 'SKIP' : f.pass ? paint.good('PASS') : paint.bad('FAIL');
+    const head = `${verdict}  ${f.file.padEnd(width)}  `;
+    const text = f.skipped !== undefined ? `(${f.skipped})` : f.pass ? `(${details(f, strict)})` : details(f, strict);
+    // A long file name leaves no room beside it: the details then go on the lines below.
+    return textWidth(head) + 20 <= columns
+      ? wrapParagraph(text, columns, head, ' '.repeat(textWidth(head)))
+      : `${verdict}  ${wrapText(f.file, columns - 6).join('\n      ')}\n${wrapParagraph(text, columns, '      ', '      ')}`;
+  });
+  if (warned.length > 0) lines.push('', paint.bold('Warnings'), ...warned.flatMap((w) => wrapParagraph(w, columns, '  - ', '    ').split('\n')));
   return lines.length > 0 ? lines.join('\n') + '\n' : '';
 }

@@ -7,6 +7,7 @@ import { formatEng } from '../units/index.js';
 import { axisFormatter } from './axis.js';
 import { palette, type Palette } from './color.js';
 import { table } from './table.js';
+import { wrapParagraph } from './wrapText.js';
 
 /** One side of a comparison: where it came from, the project and its analysis. */
 export interface CompareSide {
@@ -25,6 +26,8 @@ export interface CompareOptions {
   columns?: number;
   /** Plot rows per chart (default 12). */
   height?: number;
+  /** Text: the widest line, columns (default 80); charts take what it leaves beside their labels. */
+  width?: number;
 }
 
 type InputValue = number | string | boolean | null;
@@ -360,12 +363,13 @@ function verdictText(checks: CheckRow[], headPass: boolean, inputsChanged: numbe
  * Method: every number comes from the engine's analyses; charts sample the engine's waveforms
  * (`steadyWaveform`, `stepWaveform`) on one time grid for both sides, by linear interpolation.
  *
- * Syntax: compareReport(base, head, format[, { color, columns, height }])
+ * Syntax: compareReport(base, head, format[, { color, columns, height, width }])
  * Example: compareReport({ label: 'a.yaml', project: a, analysis: analyzeProject(a) },
  *                        { label: 'b.yaml', project: b, analysis: analyzeProject(b) }, 'markdown')
  */
 export function compareReport(base: CompareSide, head: CompareSide, format: CompareFormat, options: CompareOptions = {}): string {
-  const columns = options.columns ?? 72;
+  const width = options.width ?? 80;
+  const columns = options.columns ?? Math.max(16, Math.min(72, width - 14));
   const height = options.height ?? 12;
   const inputs = changedInputs(base.project, head.project);
   const figures = metrics(base.analysis, head.analysis);
@@ -439,12 +443,18 @@ export function compareReport(base: CompareSide, head: CompareSide, format: Comp
     return out.join('\n') + '\n';
   }
 
-  const out = [paint.bold(doc.title), '', pass ? paint.good(doc.verdict) : paint.bad(doc.verdict), '', paint.bold('Inputs changed')];
-  out.push(doc.inputs.rows.length > 0 ? table(doc.inputs.header, doc.inputs.rows) : '  No input changed.');
-  out.push('', paint.bold('Figures'), table(doc.figures.header, doc.figures.rows));
+  const wrap = (text: string, first = '', rest = '  ') => wrapParagraph(text, width, first, rest);
+  const verdict = wrap(doc.verdict);
+  const out = [paint.bold(wrap(doc.title)), '', pass ? paint.good(verdict) : paint.bad(verdict), '', paint.bold('Inputs changed')];
+  out.push(doc.inputs.rows.length > 0 ? table(doc.inputs.header, doc.inputs.rows, { maxWidth: width }) : '  No input changed.');
+  out.push('', paint.bold('Figures'), table(doc.figures.header, doc.figures.rows, { maxWidth: width }));
   out.push('', paint.bold('Spec checks'));
-  out.push(doc.checks.rows.length > 0 ? table(doc.checks.header, doc.checks.rows, { align: ['left', 'right', 'right', 'right', 'left'] }) : '  Neither file states a spec limit.');
-  if (doc.warnings.length > 0) out.push('', paint.bold('Warnings (head)'), ...doc.warnings.map((w) => `  - ${w}`));
-  for (const c of doc.charts) out.push('', `  ${paint.accent(c.title)}`, c.body, `  ${legend}`);
+  out.push(
+    doc.checks.rows.length > 0
+      ? table(doc.checks.header, doc.checks.rows, { align: ['left', 'right', 'right', 'right', 'left'], maxWidth: width })
+      : '  Neither file states a spec limit.',
+  );
+  if (doc.warnings.length > 0) out.push('', paint.bold('Warnings (head)'), ...doc.warnings.map((w) => wrap(w, '  - ', '    ')));
+  for (const c of doc.charts) out.push('', paint.accent(wrap(c.title, '  ', '  ')), c.body, wrap(legend, '  ', '    '));
   return out.join('\n') + '\n';
 }

@@ -12,6 +12,8 @@ export interface ContentOptions {
   charts?: boolean;
   /** asciichart colour codes for chart series (terminal only). */
   chartColors?: string[];
+  /** Widest line the charts are drawn to, columns (default 80). */
+  width?: number;
 }
 
 function inputsSection(project: Project, analysis: Analysis): Section {
@@ -75,7 +77,9 @@ function pointsSection(project: Project, analysis: Analysis): Section {
   });
   return {
     title: 'Output at each duty (steady state)',
-    blocks: [{ kind: 'table', header, rows, align: header.map(() => 'right') }],
+    // On a narrow terminal the ideal output (it follows from the duty) and, with LSB columns beside
+    // them, the millivolt columns are the first left out.
+    blocks: [{ kind: 'table', header, rows, align: header.map(() => 'right'), priority: header.map((h) => (h === 'ideal (V)' ? 0.2 : withLsb && h.endsWith('(mV)') ? 0.5 : 1)) }],
   };
 }
 
@@ -152,7 +156,7 @@ export function reportDocument(project: Project, analysis: Analysis, options: Co
     figuresSection(project, analysis),
   ];
   if (options.charts ?? true) {
-    const charts = reportCharts(analysis, project.pwm.duty, { colors: options.chartColors });
+    const charts = reportCharts(analysis, project.pwm.duty, { colors: options.chartColors, ...(options.width && { width: options.width }) });
     sections.push({ title: 'Charts', blocks: charts.map((c) => ({ kind: 'chart', title: c.title, body: c.body })) });
   }
   const warnings = warningsSection(analysis.warnings);

@@ -2,6 +2,7 @@ import type { TradeoffCurve } from '../design/tradeoffCurves.js';
 import type { RobustResult } from '../design/robustDesigns.js';
 import type { Candidate, DesignResult } from '../design/types.js';
 import type { Project } from '../project/types.js';
+import type { DesignEdit } from './designYaml.js';
 import { designDocument, FOLLOWER_NOTE, stageCodes } from './designDocument.js';
 import { renderDocument } from './renderDocument.js';
 
@@ -13,8 +14,12 @@ export interface DesignReportOptions {
   color?: boolean;
   /** File the chosen design was written to. */
   written?: string;
+  /** What `--write` changed in the file (designYaml.ts), for the JSON. */
+  changes?: DesignEdit[];
   /** The tolerance check behind `--robust` (the result then lists only robust designs). */
   robust?: RobustResult;
+  /** Text: the widest line, columns (default 80). */
+  width?: number;
 }
 
 // asciichart colour codes per curve (one stage, two, three), used only when colour is on.
@@ -99,6 +104,7 @@ export function designReport(project: Project, result: DesignResult, format: Des
       })),
       basis: result.basis,
       written: options.written ?? null,
+      changes: options.written ? (options.changes ?? []) : null,
       ...(options.robust && { robust: robustJson(options.robust) }),
     };
     return JSON.stringify(body, null, 2) + '\n';
@@ -109,6 +115,7 @@ export function designReport(project: Project, result: DesignResult, format: Des
     ...(color ? { chartColors: CURVE_COLORS } : {}),
     ...(options.written ? { written: options.written } : {}),
     ...(options.robust ? { robust: options.robust } : {}),
+    ...(options.width && { width: options.width }),
   });
-  return renderDocument(doc, format, { color });
+  return renderDocument(doc, format, { color, ...(options.width && { width: options.width }) });
 }

@@ -6,6 +6,7 @@ import { formatEng, formatIec60062 } from '../units/index.js';
 import type { Block, ReportDocument, Section } from './document.js';
 import { lineChart } from './lineChart.js';
 import { percent } from './quantities.js';
+import { designColumnPriority } from './designColumns.js';
 
 export interface DesignDocumentOptions {
   /** Trade-off curves to draw (none: no chart section). */
@@ -16,6 +17,8 @@ export interface DesignDocumentOptions {
   written?: string;
   /** The tolerance check behind `--robust`. */
   robust?: RobustResult;
+  /** Widest line the trade-off chart is drawn to, columns (default 80). */
+  width?: number;
 }
 
 /** Check names as the project file spells the limits. */
@@ -28,9 +31,21 @@ const LIMIT_LABEL: Record<string, string> = {
   pin_current: 'pin current',
 };
 
-/** A voltage in LSB when the resolution is known (3 significant digits), else in volts. */
-function volts(v: number, lsb: number | null): string {
-  return lsb === null ? formatEng(v, 'V', 3) : `${Number((v / lsb).toPrecision(3))} LSB`;
+/**
+ * The resolution a voltage is counted at: its LSB (V, null when unknown), its bits, and whether
+ * the report shows more than one resolution (then every LSB figure names its own).
+ */
+export interface LsbScale {
+  lsb: number | null;
+  bits: number | null;
+  mixed: boolean;
+}
+
+/** A voltage in LSB when the resolution is known (3 significant digits, '@ 8 bit' when resolutions mix), else in volts. */
+function volts(v: number, scale: LsbScale): string {
+  if (scale.lsb === null) return formatEng(v, 'V', 3);
+  const at = scale.mixed && scale.bits !== null ? ` @ ${scale.bits} bit` : '';
+  return `${Number((v / scale.lsb).toPrecision(3))} LSB${at}`;
 }
 
 /** One stage as 'R / C' in engineering form. */
@@ -54,7 +69,7 @@ function marginText(c: Candidate): string {
   return parts.length > 0 ? parts.join(', ') : '-';
 }
 
-function candidateTable(result: DesignResult, lsbOf: (c: Candidate) => number | null): Block {
+function candidateTable(result: DesignResult, lsbOf: (c: Candidate) => LsbScale): Block {
   const width = Math.max(...result.candidates.map((c) => c.stages.length));
   const withBits = result.resolutions.length > 0;
   const header = [
@@ -82,7 +97,7 @@ function candidateTable(result: DesignResult, lsbOf: (c: Candidate) => number | 
   const align = header.map((_, i) => (i === 0 || i === header.length - 1 || (i > 0 && i <= width + 1) ? 'left' : 'right')) as Array<
     'left' | 'right'
   >;
-  return { kind: 'table', header, rows, align };
+  return { kind: 'table', header, rows, align, priority: header.map(designColumnPriority) };
 }
 
 /** Nothing keeps the margin, and the designs shown meet the limits without it. */
@@ -101,7 +116,7 @@ function followerNote(list: Candidate[]): Block[] {
 }
 
 /** The robust designs' figures under tolerance: worst case over the box, or Monte Carlo yield. */
-function robustSection(r: RobustResult, lsbOf: (c: Candidate) => number | null): Section {
+function robustSection(r: RobustResult, lsbOf: (c: Candidate) => LsbScale): Section {
   const pairs: Array<[string, string]> = [
     ['Check', r.mode === 'worst-case' ? 'every limit at the worst case over the box of the tolerance: block' : `Monte Carlo yield, ${r.samples} samples per design; pin current at the worst case of the box`],
     ['Scanned', `${r.scanned} nominally feasible design${r.scanned === 1 ? '' : 's'} in ranking order${r.exhausted ? ' (all of them)' : ''}`],
@@ -133,20 +148,21 @@ function robustSection(r: RobustResult, lsbOf: (c: Candidate) => number | null):
   return { title: r.mode === 'worst-case' ? 'Under tolerance: worst case' : 'Under tolerance: yield', blocks };
 }
 
-function tradeoffSection(curves: TradeoffCurve[], result: DesignResult, options: DesignDocumentOptions): Section | null {
+function tradeoffSection(curves: TradeoffCurve[], at: LsbScale, rippleLimit: number | undefined, options: DesignDocumentOptions): Section | null {
   if (curves.length === 0 || curves[0].points.length < 2) return null;
   const ripples = curves[0].points.map((p) => p.ripple);
-  const lsb = result.basis.lsb;
+  const lsb = at.lsb;
   const scale = lsb ?? 1;
   const finite = curves.flatMap((c) => c.points.map((p) => p.settlingTime)).filter((t): t is number => t !== null);
   if (finite.length === 0) {
     return { title: 'Trade-off: settling time against allowed ripple', blocks: [{ kind: 'text', text: 'No design is feasible at any of the ripple limits tried.' }] };
   }
   const top = Math.max(...finite) * 1.1;
-  const limit = result.basis.limits.ripple;
+  const limit = rippleLimit;
   // asciichart draws one column per sample: hold each computed point over several columns so the
   // chart is as wide as the others (no values are invented between the points).
-  const hold = Math.max(1, Math.floor(64 / ripples.length));
+  const plotColumns = Math.max(16, Math.min(64, (options.width ?? 80) - 14));
+  const hold = Math.max(1, Math.floor(plotColumns / ripples.length));
   const widen = (ys: number[]) => ys.flatMap((y) => Array.from({ length: hold }, () => y));
   const chart = lineChart(
     curves.map((c) => widen(c.points.map((p) => p.settlingTime ?? Infinity))),
@@ -154,14 +170,15 @@ function tradeoffSection(curves: TradeoffCurve[], result: DesignResult, options:
       height: 12,
       yUnit: 's',
       yRange: { min: 0, max: top },
-      x: { start: ripples[0] / scale, end: ripples[ripples.length - 1] / scale, unit: lsb === null ? 'V' : 'LSB', log: true, prefixed: lsb === null },
-      markers: limit !== undefined ? [{ x: limit / scale, symbol: '^', label: `spec ripple limit ${volts(limit, lsb)}` }] : [],
+      x: { start: ripples[0] / scale, end: ripples[ripples.length - 1] / scale, unit: lsb === null ? 'V' : at.mixed && at.bits !== null ? `LSB @ ${at.bits} bit` : 'LSB', log: true, prefixed: lsb === null },
+      markers: limit !== undefined ? [{ x: limit / scale, symbol: '^', label: `spec ripple limit ${volts(limit, at)}` }] : [],
       ...(options.chartColors ? { colors: options.chartColors } : {}),
+      width: options.width ?? 80,
     },
   );
   const header = ['ripple limit', ...curves.map((c) => `${c.stages} stage${c.stages > 1 ? 's' : ''}`)];
   const rows = ripples.map((r, i) => [
-    volts(r, lsb),
+    volts(r, at),
     ...curves.map((c) => {
       const p = c.points[i];
       return p.settlingTime === null ? 'none' : `${formatEng(p.settlingTime, 's', 3)}  ${p.best ? stageCodes(p.best) : ''}`;
@@ -181,15 +198,15 @@ function tradeoffSection(curves: TradeoffCurve[], result: DesignResult, options:
   };
 }
 
-function comparisonSection(current: Candidate, best: Candidate | undefined, lsb: number | null): Section {
+function comparisonSection(current: Candidate, best: Candidate | undefined, lsbOf: (c: Candidate) => LsbScale): Section {
   const column = (c: Candidate | undefined, f: (c: Candidate) => string) => (c ? f(c) : '-');
   const row = (label: string, f: (c: Candidate) => string) => [label, column(current, f), column(best, f)];
   const rows = [
     row('stages', (c) => c.stages.map(stageText).join(' + ')),
     row('settling', (c) => (c.settlingTime === null ? 'never' : formatEng(c.settlingTime, 's', 4))),
-    row('worst ripple', (c) => volts(c.worstRipple, lsb)),
-    row('droop', (c) => volts(c.droop, lsb)),
-    row('INL', (c) => volts(c.inl, lsb)),
+    row('worst ripple', (c) => volts(c.worstRipple, lsbOf(c))),
+    row('droop', (c) => volts(c.droop, lsbOf(c))),
+    row('INL', (c) => volts(c.inl, lsbOf(c))),
     row('pin current', (c) => formatEng(c.pinCurrent, 'A', 3)),
     row('total capacitance', (c) => formatEng(c.totalCapacitance, 'F', 3)),
     row('meets every limit', (c) => (c.pass ? 'PASS' : 'FAIL')),
@@ -212,14 +229,23 @@ function comparisonSection(current: Candidate, best: Candidate | undefined, lsb:
  */
 export function designDocument(project: Project, result: DesignResult, options: DesignDocumentOptions = {}): ReportDocument {
   const { basis, stats } = result;
-  const lsb = basis.lsb;
   const lsbByBits = new Map(result.resolutions.map((r) => [r.bits, r.lsb]));
-  const lsbOf = (c: Candidate) => (c.bits !== null && lsbByBits.has(c.bits) ? lsbByBits.get(c.bits)! : lsb);
+  // More than one resolution in the report: every LSB figure then names the one it is counted at.
+  const shown = new Set([project.pwm.bits, ...result.resolutions.map((r) => r.bits)].filter((b) => b !== undefined));
+  const mixed = shown.size > 1;
+  const projectScale: LsbScale = { lsb: basis.lsb, bits: project.pwm.bits ?? null, mixed };
+  const lsbOf = (c: Candidate): LsbScale =>
+    c.bits !== null && lsbByBits.has(c.bits) ? { lsb: lsbByBits.get(c.bits)!, bits: c.bits, mixed } : projectScale;
   const L = basis.limits;
+  // A limit the file gave in LSB holds at every resolution as so many LSB; one given in V or %
+  // is a voltage, shown as such when resolutions mix.
+  const inLsb = project.specInLsb ?? {};
+  const limitText = (v: number, lsbCount: number | undefined) =>
+    !mixed ? volts(v, projectScale) : lsbCount !== undefined ? `${Number(lsbCount.toPrecision(3))} LSB at each resolution` : formatEng(v, 'V', 3);
   const limitList = [
-    L.ripple !== undefined ? `ripple ${volts(L.ripple, lsb)}` : null,
-    L.droop !== undefined ? `droop ${volts(L.droop, lsb)}` : null,
-    L.inl !== undefined ? `INL ${volts(L.inl, lsb)}` : null,
+    L.ripple !== undefined ? `ripple ${limitText(L.ripple, inLsb.ripple)}` : null,
+    L.droop !== undefined ? `droop ${limitText(L.droop, inLsb.droop)}` : null,
+    L.inl !== undefined ? `INL ${limitText(L.inl, inLsb.inl)}` : null,
     L.gain !== undefined ? `gain error ${percent(L.gain)} of full scale` : null,
     L.settlingTime !== undefined ? `settling ${formatEng(L.settlingTime, 's', 4)}` : null,
     L.pinCurrent !== undefined ? `pin current ${formatEng(L.pinCurrent, 'A', 3)}` : null,
@@ -233,7 +259,7 @@ export function designDocument(project: Project, result: DesignResult, options: 
     ['Stages tried', basis.stageCounts.join(', ')],
     ['Values', `${basis.series} (IEC 60063), R ${formatEng(basis.resistance.min, 'Ω', 3)} to ${formatEng(basis.resistance.max, 'Ω', 3)}, C ${formatEng(basis.capacitance.min, 'F', 3)} to ${formatEng(basis.capacitance.max, 'F', 3)}`],
     ['Limits', limitList.length > 0 ? limitList.join(', ') : 'none'],
-    ['Settling', `to within ${volts(basis.band, lsb)} after a step ${step}`],
+    ['Settling', `to within ${limitText(basis.band, inLsb.band)} after a step ${step}`],
     ['Margin', `every recommended design keeps ${percent(basis.margin)} of each limit in reserve (search.margin); the table shows each design's own margins`],
     ...(basis.buffered.includes(true)
       ? ([['Follower', `${basis.buffered.includes(false) ? 'also' : 'only'} designs with an ideal unity-gain follower after the last stage (search.buffered); such a design ${FOLLOWER_NOTE}`]] as Array<[string, string]>)
@@ -257,7 +283,11 @@ export function designDocument(project: Project, result: DesignResult, options: 
     if (result.candidates.length > 0) blocks.push(candidateTable(result, lsbOf), ...followerNote(result.candidates));
     sections.push({ title: onlyWithoutMargin(result) ? `No design meets every limit with the ${percent(basis.margin)} margin` : 'No design meets every limit', blocks });
   }
-  const chart = tradeoffSection(options.tradeoff ?? [], result, options);
+  // The curves are drawn at one resolution (that of design #1 when the search chose it).
+  const curveBits = (options.tradeoff ?? []).flatMap((c) => c.points.map((p) => p.best?.bits ?? null)).find((b) => b !== null) ?? null;
+  const curveScale = curveBits !== null && lsbByBits.has(curveBits) ? { lsb: lsbByBits.get(curveBits)!, bits: curveBits, mixed } : projectScale;
+  const curveLimit = inLsb.ripple !== undefined && curveScale.lsb !== null ? inLsb.ripple * curveScale.lsb : L.ripple;
+  const chart = tradeoffSection(options.tradeoff ?? [], curveScale, curveLimit, options);
   if (chart) sections.push(chart);
   if (result.resolutions.length > 0) {
     sections.push({
@@ -272,14 +302,14 @@ export function designDocument(project: Project, result: DesignResult, options: 
             formatEng(r.lsb, 'V', 3),
             r.best ? stageCodes(r.best) : 'none feasible',
             r.best?.settlingTime != null ? formatEng(r.best.settlingTime, 's', 4) : '-',
-            r.best ? volts(r.best.worstRipple, r.lsb) : '-',
+            r.best ? volts(r.best.worstRipple, { lsb: r.lsb, bits: r.bits, mixed }) : '-',
           ]),
           align: ['right', 'right', 'right', 'left', 'right', 'right'],
         },
       ],
     });
   }
-  if (result.current) sections.push(comparisonSection(result.current, result.candidates[0], lsb));
+  if (result.current) sections.push(comparisonSection(result.current, result.candidates[0], lsbOf));
   if (options.written) sections.push({ title: 'Written', blocks: [{ kind: 'text', text: `Design #1 written to ${options.written}` }] });
 
   const best = result.candidates[0];

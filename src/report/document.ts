@@ -5,7 +5,14 @@
 import type { Align } from './table.js';
 
 export type Block =
-  | { kind: 'table'; header: string[]; rows: string[][]; align?: Align[] }
+  | {
+      kind: 'table';
+      header: string[];
+      rows: string[][];
+      align?: Align[];
+      /** Per column; below 1: may be left out of a text table too wide for the terminal (table.ts). */
+      priority?: number[];
+    }
   | { kind: 'pairs'; pairs: Array<[string, string]> }
   | { kind: 'list'; items: string[] }
   | { kind: 'text'; text: string }
@@ -22,3 +29,6 @@ export interface ReportDocument {
   /** One-line verdict. */
   verdict: { pass: boolean; text: string };
 }
+
+/** Width a text report fits when nothing else is said (columns; common terminal width). */
+export const DEFAULT_WIDTH = 80;

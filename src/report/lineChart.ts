@@ -1,6 +1,7 @@
 import { plot } from 'asciichart';
 import { formatEng } from '../units/index.js';
 import { axisFormatter } from './axis.js';
+import { wrapParagraph } from './wrapText.js';
 
 /** A point of interest on the x axis, drawn as `symbol` under the chart and explained below it. */
 export interface Marker {
@@ -32,6 +33,8 @@ export interface LineChartOptions {
   minSpan?: number;
   /** ANSI colour per series (asciichart codes); none when colour is off. */
   colors?: string[];
+  /** Widest line of the legend, columns (default: no limit): longer legend lines wrap. */
+  width?: number;
 }
 
 /** Column of x in a chart of n samples. */
@@ -94,7 +97,7 @@ export function lineChart(series: number[][], options: LineChartOptions): string
   for (const m of options.markers ?? []) axis[column(m.x, n, options.x)] = m.symbol;
   const xo = options.x;
   const xLabel = xo.log
-    ? (x: number) => formatEng(x, xo.unit, 3)
+    ? (x: number) => (xo.prefixed === false ? `${Number(x.toPrecision(3))} ${xo.unit}` : formatEng(x, xo.unit, 3))
     : axisFormatter(xo.start, xo.end, 4, xo.unit, xo.prefixed ?? true);
   const left = xLabel(xo.start);
   const right = xLabel(xo.end);
@@ -104,8 +107,13 @@ export function lineChart(series: number[][], options: LineChartOptions): string
     ' '.repeat(width) + axis.join(''),
     ' '.repeat(width) + ends,
   ];
-  for (const m of options.markers ?? []) lines.push(`${' '.repeat(width)}${m.symbol} ${m.label}`);
+  // Legend lines start under the plot, or further left when the plot is narrow.
+  const room = options.width ?? Infinity;
+  const lead = ' '.repeat(Math.max(0, Math.min(width, room - 40)));
+  const legend = (symbol: string, label: string) =>
+    Number.isFinite(room) ? wrapParagraph(label, room, `${lead}${symbol} `, `${lead}  `) : `${lead}${symbol} ${label}`;
+  for (const m of options.markers ?? []) lines.push(legend(m.symbol, m.label));
   const levelLabels = new Set((options.levels ?? []).flatMap((l) => (l.label ? [l.label] : [])));
-  for (const label of levelLabels) lines.push(`${' '.repeat(width)}· ${label}`);
+  for (const label of levelLabels) lines.push(legend('·', label));
   return lines.join('\n');
 }

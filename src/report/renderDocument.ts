@@ -1,12 +1,15 @@
 import { palette } from './color.js';
-import type { Block, ReportDocument } from './document.js';
+import { DEFAULT_WIDTH, type Block, type ReportDocument } from './document.js';
 import { table, type Align } from './table.js';
+import { wrapParagraph } from './wrapText.js';
 
 export type DocumentFormat = 'text' | 'markdown';
 
 export interface RenderOptions {
   /** ANSI colour (text only, default false). */
   color?: boolean;
+  /** Text only: the widest line, columns (default 80); tables wrap or leave out columns, paragraphs wrap. */
+  width?: number;
 }
 
 /**
@@ -15,36 +18,41 @@ export interface RenderOptions {
  * tables, charts in fenced code blocks). Every report built as a ReportDocument renders here, so
  * the formats of all reports stay alike.
  *
- * Syntax: renderDocument(doc, format[, { color }])
+ * In text, every line fits `width` columns: paragraphs and list items wrap with a hanging indent,
+ * tables wrap cells or leave out low-priority columns (table.ts); chart bodies are drawn to the
+ * width by whoever builds the document.
+ *
+ * Syntax: renderDocument(doc, format[, { color, width }])
  * Example: renderDocument({ title: 'T', sections: [], verdict: { pass: true, text: 'PASS' } }, 'markdown')
  *          // '# T\n\n**PASS**\n'
  */
 export function renderDocument(doc: ReportDocument, format: DocumentFormat, options: RenderOptions = {}): string {
-  return format === 'markdown' ? markdown(doc) : text(doc, options.color ?? false);
+  return format === 'markdown' ? markdown(doc) : text(doc, options.color ?? false, options.width ?? DEFAULT_WIDTH);
 }
 
-function text(doc: ReportDocument, color: boolean): string {
+function text(doc: ReportDocument, color: boolean, width: number): string {
   const paint = palette(color);
   const flag = (c: string) => (c === 'PASS' ? paint.good(c) : c === 'FAIL' || c.includes('MISSES') ? paint.bad(c) : c);
   const block = (b: Block): string => {
     switch (b.kind) {
       case 'table':
-        return table(b.header, color ? b.rows.map((r) => r.map(flag)) : b.rows, { align: b.align });
+        return table(b.header, color ? b.rows.map((r) => r.map(flag)) : b.rows, { align: b.align, maxWidth: width, ...(b.priority && { priority: b.priority }) });
       case 'pairs':
-        return table([], b.pairs.map(([k, v]) => [`${k}:`, v]), { align: ['left', 'left'] });
+        return table([], b.pairs.map(([k, v]) => [`${k}:`, v]), { align: ['left', 'left'], maxWidth: width, separate: false });
       case 'list':
-        return b.items.map((i) => `  - ${i}`).join('\n');
+        return b.items.map((i) => wrapParagraph(i, width, '  - ', '    ')).join('\n');
       case 'text':
-        return `  ${b.text}`;
+        return wrapParagraph(b.text, width, '  ', '  ');
       case 'chart':
-        return `  ${paint.accent(b.title)}\n${b.body}`;
+        return `${paint.accent(wrapParagraph(b.title, width, '  ', '  '))}\n${b.body}`;
     }
   };
-  const out = [paint.bold(doc.title)];
+  const out = [paint.bold(wrapParagraph(doc.title, width, '', '  '))];
   for (const s of doc.sections) {
-    out.push('', paint.bold(s.title), ...s.blocks.flatMap((b, i) => (i > 0 ? ['', block(b)] : [block(b)])));
+    out.push('', paint.bold(wrapParagraph(s.title, width, '', '')), ...s.blocks.flatMap((b, i) => (i > 0 ? ['', block(b)] : [block(b)])));
   }
-  out.push('', doc.verdict.pass ? paint.good(doc.verdict.text) : paint.bad(doc.verdict.text));
+  const verdict = wrapParagraph(doc.verdict.text, width, '', '  ');
+  out.push('', doc.verdict.pass ? paint.good(verdict) : paint.bad(verdict));
   return out.join('\n') + '\n';
 }
 

@@ -8,6 +8,8 @@ export interface TextOptions {
   charts?: boolean;
   /** ANSI colour (default false; the CLI turns it on for terminals without NO_COLOR). */
   color?: boolean;
+  /** Widest line, columns (default 80). */
+  width?: number;
 }
 
 // asciichart colour codes (ANSI SGR), used only when colour is on.
@@ -16,7 +18,7 @@ const SERIES_COLORS = ['\x1b[36m', '\x1b[36m'];
 /**
  * The analysis as a plain-text terminal report (aligned tables, ASCII charts, cautions, verdict).
  *
- * Syntax: textReport(project, analysis[, { charts, color }])
+ * Syntax: textReport(project, analysis[, { charts, color, width }])
  * Example: process.stdout.write(textReport(p, analyzeProject(p), { charts: false }))
  */
 export function textReport(project: Project, analysis: Analysis, options: TextOptions = {}): string {
@@ -24,6 +26,7 @@ export function textReport(project: Project, analysis: Analysis, options: TextOp
   const doc = reportDocument(project, analysis, {
     charts: options.charts ?? true,
     ...(color ? { chartColors: SERIES_COLORS } : {}),
+    ...(options.width && { width: options.width }),
   });
-  return renderDocument(doc, 'text', { color });
+  return renderDocument(doc, 'text', { color, ...(options.width && { width: options.width }) });
 }

@@ -9,6 +9,7 @@ import type { Block, ReportDocument, Section } from './document.js';
 import { percent, tidy, voltsAndLsb } from './quantities.js';
 import { renderDocument } from './renderDocument.js';
 import { warningsSection } from './warnings.js';
+import { wrapParagraph } from './wrapText.js';
 import type { Align } from './table.js';
 
 type ToleranceStudy = ToleranceStudyResult;
@@ -22,6 +23,8 @@ export interface ToleranceReportOptions {
   color?: boolean;
   /** Rows of each histogram (default 12). */
   bins?: number;
+  /** Text: the widest line, columns (default 80). */
+  width?: number;
 }
 
 /**
@@ -43,8 +46,9 @@ export function toleranceReport(
   options: ToleranceReportOptions = {},
 ): string {
   if (format === 'json') return toleranceJson(project, study, options.bins ?? 12);
-  const doc = toleranceDocument(project, study, { charts: options.charts ?? true, bins: options.bins ?? 12 });
-  return renderDocument(doc, format, { color: options.color ?? false });
+  const width = options.width ?? 80;
+  const doc = toleranceDocument(project, study, { charts: options.charts ?? true, bins: options.bins ?? 12, width });
+  return renderDocument(doc, format, { color: options.color ?? false, width });
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -64,7 +68,7 @@ const ofFullScale = (x: number) => `${Number((100 * x).toPrecision(3))} % of ful
 function toleranceDocument(
   project: Project,
   study: ToleranceStudy,
-  options: { charts: boolean; bins: number },
+  options: { charts: boolean; bins: number; width: number },
 ): ReportDocument {
   const { worstCase: wc, monteCarlo: mc } = study;
   const lsb = project.lsb ?? null;
@@ -74,7 +78,7 @@ function toleranceDocument(
     worstCaseSection(wc, lsb, fullScale),
     monteCarloSection(mc, lsb, fullScale),
   ];
-  if (options.charts) sections.push(histogramSection(mc, options.bins));
+  if (options.charts) sections.push(histogramSection(mc, options.bins, options.width));
   const warnings = warningsSection(study.warnings);
   if (warnings) sections.push(warnings);
   return {
@@ -248,20 +252,20 @@ function monteCarloSection(mc: MonteCarloResult, lsb: number | null, fullScale: 
   return { title: 'Monte Carlo', blocks };
 }
 
-function histogramSection(mc: MonteCarloResult, bins: number): Section {
+function histogramSection(mc: MonteCarloResult, bins: number, width: number): Section {
   const { limits } = mc.plan;
   const volts = (v: number, digits: number) => formatEng(v, 'V', digits);
   const charts: Block[] = [
-    { kind: 'chart', title: 'Worst ripple', body: histogramChart(mc.values.worstRipple, bins, limits.ripple, volts) },
+    { kind: 'chart', title: 'Worst ripple', body: histogramChart(mc.values.worstRipple, bins, limits.ripple, volts, width) },
     {
       kind: 'chart',
       title: '|DC error| (droop)',
-      body: histogramChart(mc.values.droop.map(Math.abs), bins, limits.droop, volts),
+      body: histogramChart(mc.values.droop.map(Math.abs), bins, limits.droop, volts, width),
     },
     {
       kind: 'chart',
       title: 'Settling time',
-      body: histogramChart(mc.values.settlingTime, bins, limits.settling, (t, digits) => formatEng(t, 's', digits)),
+      body: histogramChart(mc.values.settlingTime, bins, limits.settling, (t, digits) => formatEng(t, 's', digits), width),
     },
   ];
   return { title: 'Distributions', blocks: charts };
@@ -278,6 +282,7 @@ function histogramChart(
   bins: number,
   limit: number | undefined,
   fmtDigits: (v: number, digits: number) => string,
+  lineWidth = 80,
 ): string {
   const h = histogram(values, bins);
   let { lo, hi } = h;
@@ -299,10 +304,12 @@ function histogramChart(
   const digits = Math.min(6, Math.max(3, Math.ceil(Math.log10(Math.max(Math.abs(lo), Math.abs(hi)) / width)) + 1));
   const fmt = (v: number) => fmtDigits(v, digits);
   const most = Math.max(1, ...counts, h.notFinite);
-  const barWidth = 40;
   const labels = counts.map((_, i) => `${fmt(lo + i * width)} .. ${fmt(lo + (i + 1) * width)}`);
   const labelWidth = Math.max(13, ...labels.map((l) => l.length));
-  const rule = (text: string) => `  ${'-'.repeat(labelWidth)}  ${text}`;
+  // Bars fill what the line width leaves beside the labels and counts (at most 40 columns).
+  const countWidth = String(Math.max(...counts, h.notFinite)).length;
+  const barWidth = Math.max(10, Math.min(40, lineWidth - labelWidth - countWidth - 5));
+  const rule = (text: string) => wrapParagraph(text, lineWidth, `  ${'-'.repeat(labelWidth)}  `, ' '.repeat(labelWidth + 4));
   const bar = (c: number, ch: string) => ch.repeat(c === 0 ? 0 : Math.max(1, Math.round((barWidth * c) / most)));
   const lines: string[] = [];
   if (limit !== undefined && !inside && limit <= lo) lines.push(rule(`limit ${fmt(limit)}: every sample is beyond it`));

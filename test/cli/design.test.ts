@@ -30,6 +30,11 @@ describe('dacsmith design (runDesign)', () => {
     const written = parseProject(readFileSync(out, 'utf8'), out);
     expect(written.filter.stages.map((s) => ({ r: s.r, c: s.c }))).toEqual(best.stages);
     expect(readFileSync(out, 'utf8')).toContain('# invented scenario');
+    // Each change on standard error, one line each; the file had no filter, so every stage is added.
+    const added = best.stages.map((_: unknown, i: number) => `filter.stages[${i}] added: { r: ${best.codes.split(' + ')[i].split('-')[0]}, c: ${best.codes.split(' + ')[i].split('-')[1]} }`);
+    expect(r.stderr.split('\n').slice(1, -1).map((l: string) => l.trim())).toEqual(added);
+    // The JSON carries the same list: { path, from, to } with from null for an added stage.
+    expect(JSON.parse(r.stdout).changes.map((c: { path: string; from: null; to: string }) => `${c.path} added: ${c.to}`)).toEqual(added);
   });
 
   it('refuses to write over an existing file without --force (exit 2), and overwrites with it', async () => {

@@ -38,7 +38,7 @@ describe('a 10 kohm load with ripple, INL and settling limits and no droop limit
     expect(out.diagnosis.some((l) => l.startsWith('gain binds'))).toBe(true);
     // 2 % less the 10 % margin: R_s <= R_L g / (1 - g) = 10k * 0.018 / 0.982 = 183 ohm (Ohm's law)
     expect(out.diagnosis.some((l) => /allows at most 183 Ω in series/.test(l))).toBe(true);
-    const text = runBuilt(['design', LOADED, '--no-charts', '--top', '3']);
+    const text = runBuilt(['design', LOADED, '--no-charts', '--top', '3', '--width', '300']);
     expect(text.code).toBe(1);
     expect(text.stdout).toMatch(/gain error 2\.0 % of full scale/);
     expect(text.stdout).toMatch(/search\.buffered: \[false, true\]\) isolates the load/);
@@ -58,7 +58,7 @@ describe('a 10 kohm load with ripple, INL and settling limits and no droop limit
       const gain = c.checks.find((k) => k.name === 'gain')!;
       expect(gain.value!).toBeLessThanOrEqual(0.02 * 0.9);
     }
-    const text = runBuilt(['design', file, '--no-charts', '--top', '2']);
+    const text = runBuilt(['design', file, '--no-charts', '--top', '2', '--width', '300']);
     expect(text.stdout).toMatch(/#1, #2: needs an op-amp follower/);
     expect(text.stdout).toMatch(/\+follower/);
 
@@ -94,7 +94,7 @@ describe('E24 resistors, E12 capacitors and a 10 % margin', () => {
         expect(E24).toContain(mantissa(s.r));
       }
     }
-    const text = runBuilt(['design', MARGIN, '--no-charts', '--top', '3']);
+    const text = runBuilt(['design', MARGIN, '--no-charts', '--top', '3', '--width', '300']);
     expect(text.stdout).toMatch(/Values: +E24 resistors, E12 capacitors \(IEC 60063\)/);
     expect(text.stdout).toMatch(/ripple \d+\.\d%, droop \d+\.\d%, settling \d+\.\d%, pin current \d+\.\d%/);
   });
@@ -160,7 +160,7 @@ search:
   capacitance: { min: 100n, max: 10u }
 `,
     );
-    const r = runBuilt(['design', file, '--no-charts', '--top', '3']);
+    const r = runBuilt(['design', file, '--no-charts', '--top', '3', '--width', '300']);
     expect(r.code).toBe(1);
     expect(r.stdout).toMatch(/No design meets every limit with the 10\.0 % margin/);
     expect(r.stdout).toMatch(/FAIL: no design keeps the 10\.0 % margin to every limit; 3 meet the limits without it/);

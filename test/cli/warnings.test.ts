@@ -52,7 +52,7 @@ describe('a load typed as 1m (1 milliohm, meant 1 Mohm)', () => {
     const gainRow = compare.body.checks.find((c: { name: string }) => c.name === 'gain');
     // the divider base now has the default gain check too (droop not limited), and fails it
     expect(gainRow.status).toBe('still fails');
-    const text = runBuilt(['compare', divider, slip]).stdout;
+    const text = runBuilt(['compare', divider, slip, '--width', '300']).stdout;
     expect(text).toContain('Warnings (head)');
     expect(text).toMatch(/gain\s+2 % of full scale\s+90.9 % of full scale FAIL\s+100 % of full scale FAIL\s+still fails/);
   });
@@ -81,10 +81,10 @@ describe('a 100k / 10u stage into 10 kohm, INL limited and droop not', () => {
 
   it('check passes without --strict and fails with it (exit 1), naming the warned key (gain check off)', () => {
     const divider = dividerGainOff;
-    const plain = runBuilt(['check', divider]);
+    const plain = runBuilt(['check', divider, '--width', '300']);
     expect(plain.code).toBe(0);
     expect(plain.stdout).toMatch(/^PASS .*\(3 checks hold; 1 warning\)/);
-    const strict = runBuilt(['check', divider, '--strict']);
+    const strict = runBuilt(['check', divider, '--strict', '--width', '300']);
     expect(strict.code).toBe(1);
     expect(strict.stdout).toMatch(/^FAIL .*1 warning \(strict: fails\): load\.resistance/);
     const strictJson = json(['check', divider, '--strict', '--format', 'json']);
@@ -126,7 +126,7 @@ describe('tolerance covers the gain check', () => {
     expect(t.body.worstCase.nominal.gain).toBeCloseTo(nominal.value, 9);
     expect(t.body.monteCarlo.yieldBySpec.gain).toBeGreaterThanOrEqual(0);
     expect(t.body.monteCarlo.percentiles.gain.p50).toBeGreaterThan(0);
-    const report = runBuilt(['tolerance', path, '--no-charts', '--samples', '300', '--workers', '1']).stdout;
+    const report = runBuilt(['tolerance', path, '--no-charts', '--samples', '300', '--workers', '1', '--width', '300']).stdout;
     expect(report).toMatch(/gain error\s+[\d.]+ % of full scale\s+[\d.]+ % of full scale\s+0\.5 % of full scale\s+FAIL/);
   });
 });

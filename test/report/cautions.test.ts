@@ -13,25 +13,38 @@ const notesFor = (p: Project) => cautions(p, analyzeProject(p, { duties: [0.5] }
 describe('cautions', () => {
   const quiet = withPinLimit(oneStageProject({ r: 4.7e3, c: 100e-9 }), 10e-3);
 
-  it('a 3.3 V project with a 100 nF part and the pin current in limits only gets the voltage-rating note', () => {
+  it('a 3.3 V project gets the voltage-rating note (6.3 V: next standard rating above 1.5 x 3.3 V, common practice) and the class-2 ceramic note only', () => {
     const notes = notesFor(quiet);
-    expect(notes).toHaveLength(1);
-    // Derating to 1.5 x the highest level: common practice.
-    expect(notes[0]).toMatch(/^Capacitors see up to 3\.3 V: .*at least 4\.95 V/);
+    expect(notes).toHaveLength(2);
+    expect(notes[0]).toMatch(/^Capacitor voltage rating: C1 sees at most 3\.3 V .*a rating of 6\.3 V or more/);
+    expect(notes[0]).toMatch(/common practice/);
+    expect(notes[1]).toMatch(/^If you use class-2 ceramic capacitors \(X5R, X7R/);
+    expect(notes[1]).toMatch(/DC bias/);
+    expect(notes[1]).toMatch(/DC-bias curve/);
   });
 
-  it('flags a level above 60 V DC as outside safety extra-low voltage (IEC 62368-1 ES1, from memory)', () => {
-    const notes = notesFor(withPinLimit(oneStageProject({ high: 100, r: 100e3, c: 100e-9 }), 10e-3));
-    expect(notes.some((n) => /100 V is above 60 V DC, outside safety extra-low voltage/.test(n))).toBe(true);
-    expect(notesFor(withPinLimit(oneStageProject({ high: 60, r: 100e3, c: 100e-9 }), 10e-3)).join()).not.toMatch(/extra-low/);
+  it('scales the suggested rating with the level: 12 V -> 25 V, 24 V -> 50 V (1.5 x, common practice)', () => {
+    expect(notesFor(withPinLimit(oneStageProject({ high: 12, r: 10e3, c: 100e-9 }), 20e-3))[0]).toMatch(/at most 12 V .*a rating of 25 V or more/);
+    expect(notesFor(withPinLimit(oneStageProject({ high: 24, r: 10e3, c: 100e-9 }), 20e-3))[0]).toMatch(/at most 24 V .*a rating of 50 V or more/);
   });
 
-  it('flags a 1 uF capacitor as likely polarized, and a negative swing as reverse bias', () => {
-    const notes = notesFor(withPinLimit(oneStageProject({ r: 4.7e3, c: 1e-6 }), 10e-3));
-    expect(notes.some((n) => /^C1 \(1 µF\) is likely electrolytic or tantalum: mind the polarity/.test(n))).toBe(true);
+  it('never guesses the capacitor technology from the value', () => {
+    for (const c of [100e-9, 1e-6, 100e-6]) {
+      const text = notesFor(withPinLimit(oneStageProject({ r: 4.7e3, c }), 10e-3)).join(' ');
+      expect(text).not.toMatch(/likely|probably/);
+      expect(text).not.toMatch(/polari/);
+    }
+  });
+
+  it('adds a conditional polarity note only when a level is negative', () => {
     const bipolar = notesFor(withPinLimit(oneStageProject({ r: 4.7e3, c: 1e-6, low: -3.3 }), 10e-3));
-    expect(bipolar.some((n) => /reverse-biases/.test(n))).toBe(true);
-    expect(notesFor(withPinLimit(oneStageProject({ r: 4.7e3, c: 0.99e-6 }), 10e-3)).join()).not.toMatch(/polarity/);
+    expect(bipolar.some((n) => /if you use polarized capacitors .*reverse-biased/.test(n))).toBe(true);
+  });
+
+  it('flags a level above 60 V DC as outside extra-low voltage (IEC 61140 SELV, common practice, from memory), and 60 V itself not', () => {
+    const notes = notesFor(withPinLimit(oneStageProject({ high: 100, r: 100e3, c: 100e-9 }), 10e-3));
+    expect(notes.some((n) => /100 V is above 60 V DC, outside extra-low voltage .*local electrical codes and licensed practice/.test(n))).toBe(true);
+    expect(notesFor(withPinLimit(oneStageProject({ high: 60, r: 100e3, c: 100e-9 }), 10e-3)).join()).not.toMatch(/extra-low/);
   });
 
   it('flags a pin peak current over search.pin_current', () => {
@@ -40,8 +53,13 @@ describe('cautions', () => {
     expect(notes.some((n) => /^Pin peak current 26\.4 mA exceeds search\.pin_current \(20 mA\)/.test(n))).toBe(true);
   });
 
-  it('without a pin current limit, asks to compare with the microcontroller data sheet', () => {
-    const notes = notesFor(oneStageProject({ r: 4.7e3, c: 100e-9 }));
-    expect(notes.some((n) => /^Pin peak current 698 µA: compare it with the pin current rating in the microcontroller data sheet/.test(n))).toBe(true);
+  it('says nothing of a small pin current (33 µA is noise), cautions from 10 mA without a limit (half of a common 20 mA GPIO rating)', () => {
+    // 3.3 V / (25 ohm + 100 kohm) = 33 µA.
+    expect(notesFor(oneStageProject({ r: 100e3, c: 100e-9 })).join()).not.toMatch(/Pin peak current/);
+    // 3.3 V / (25 ohm + 300 ohm) = 10.15 mA.
+    const notes = notesFor(oneStageProject({ r: 300, c: 100e-9 }));
+    expect(notes.some((n) => /^Pin peak current 10\.2 mA approaches .*microcontroller data sheet/.test(n))).toBe(true);
+    // 3.3 V / (25 ohm + 350 ohm) = 8.8 mA: below the threshold.
+    expect(notesFor(oneStageProject({ r: 350, c: 100e-9 })).join()).not.toMatch(/Pin peak current/);
   });
 });

@@ -3,7 +3,6 @@ import { designSearch } from '../../src/design/designSearch.js';
 import { tradeoffCurves } from '../../src/design/tradeoffCurves.js';
 import { parseProject } from '../../src/project/index.js';
 import { designReport } from '../../src/report/design.js';
-import { withDesign } from '../../src/report/designYaml.js';
 import { formatIec60062 } from '../../src/units/index.js';
 
 const yaml = `# invented scenario: a small design problem
@@ -40,8 +39,10 @@ describe('designReport', () => {
 
   it('text and Markdown show the values, IEC 60062 codes, margins and the comparison', () => {
     const best = result.candidates[0];
-    const text = designReport(project, result, 'text');
+    // Wide enough for every column (at 80 the codes column is the first left out, and says so).
+    const text = designReport(project, result, 'text', { width: 300 });
     const md = designReport(project, result, 'markdown');
+    expect(designReport(project, result, 'text')).toMatch(/not shown at this width: codes \(IEC 60062\)/);
     for (const out of [text, md]) {
       expect(out).toContain('Recommended designs');
       expect(out).toContain('Compared with the filter: design');
@@ -68,23 +69,65 @@ describe('designReport', () => {
   });
 });
 
-describe('withDesign', () => {
-  it('replaces filter.stages, keeps comments and everything else, and reads back to the same values', () => {
-    const best = result.candidates[0];
-    const text = withDesign(yaml, best, 'chosen by dacsmith design');
-    expect(text).toContain('# invented scenario: a small design problem');
-    expect(text).toContain('# chosen by dacsmith design');
-    expect(text).not.toContain("the schematic's first guess");
-    const again = parseProject(text, 'again.yaml');
-    expect(again.filter.stages.map((s) => ({ r: s.r, c: s.c }))).toEqual(best.stages);
-    expect(again.spec).toEqual(project.spec);
-    expect(again.search).toEqual(project.search);
+describe('designReport with search.bits: one resolution per LSB figure', () => {
+  // Invented scenario: the file runs 8 bits, the search tries 6 to 10.
+  const source = `pwm:
+  clock: 16 MHz
+  bits: 8
+  high: 3.3 V
+  low: 0 V
+  driver: 30 ohm
+  duty: { min: 5 %, max: 95 % }
+load:
+  resistance: 1 Mohm
+filter:
+  stages:
+    - { r: 10k, c: 1u }
+spec:
+  ripple: 0.5 LSB
+  droop: 10 %
+  settling: { band: 0.5 LSB, time: 50 ms }
+search:
+  stages: [1, 2]
+  series: E6
+  resistance: { min: 1k, max: 100k }
+  capacitance: { min: 1n, max: 10u }
+  bits: { min: 6, max: 10 }
+`;
+  const p = parseProject(source, 'bits.yaml');
+  const r = designSearch(p, { top: 3 });
+  const best = r.candidates[0];
+  const lsbAt = r.resolutions.find((x) => x.bits === best.bits)!.lsb;
+  const curves = tradeoffCurves(p, [1], 0.5 * lsbAt, { bits: best.bits!, points: 3 });
+  // Unwrapped lines, so that each figure and its label stay on one line for the checks below.
+  const text = designReport(p, r, 'text', { tradeoff: curves, width: 400 });
+
+  it('names the resolution of every LSB figure, and states LSB limits as holding at each resolution', () => {
+    expect(best.bits).not.toBe(8);
+    const unlabelled = text.match(/\d LSB(?! @ \d+ bit| at each resolution)/g);
+    expect(unlabelled).toBeNull();
+    expect(text).toMatch(/ripple 0\.5 LSB at each resolution/);
+    // 10 % of 3.3 V full scale, a voltage at every resolution.
+    expect(text).toMatch(/droop 330 mV/);
+    expect(text).toContain(`${Number((best.worstRipple / lsbAt).toPrecision(3))} LSB @ ${best.bits} bit`);
   });
 
-  it('sets pwm.bits (and a stated frequency) for a design at another resolution', () => {
-    const src = 'pwm:\n  clock: 16 MHz\n  bits: 10\n  high: 3.3 V\n  low: 0 V\n  driver: 25 ohm\nfilter:\n  stages: []\n';
-    const out = withDesign(src, { stages: [{ r: 4.7e3, c: 100e-9 }], bits: 8, frequency: 62500 });
-    expect(out).toMatch(/bits: 8/);
-    expect(out).toMatch(/- \{ r: 4k7, c: 100n \}/);
+  it('marks the spec ripple limit on the trade-off chart at the resolution the curves are drawn at', () => {
+    expect(text).toContain(`spec ripple limit 0.5 LSB @ ${best.bits} bit`);
+  });
+
+  it('names the resolution in the explanation when nothing is feasible', () => {
+    const tight = parseProject(source.replace('ripple: 0.5 LSB', 'ripple: 0.01 LSB').replace('time: 50 ms', 'time: 100 us'), 'tight.yaml');
+    const none = designSearch(tight, { top: 1 });
+    expect(none.feasible).toBe(false);
+    const lines = none.diagnosis.join('\n');
+    expect(lines).toMatch(/LSB @ \d+ bit/);
+    expect(lines).not.toMatch(/\d LSB(?! @ \d+ bit)/);
+  });
+
+  it('shows no resolution labels when only one resolution appears', () => {
+    const single = designReport(project, result, 'text');
+    expect(single).toMatch(/\d LSB/);
+    expect(single).not.toMatch(/ @ \d+ bit/);
   });
 });
