@@ -1,6 +1,7 @@
 import type { DesignProblem } from './designProblem.js';
 import { fastLadderOf, type FastLadder } from './fast/fastLadder.js';
 import { fastSettlingBound } from './fast/fastSettlingBound.js';
+import { dcTransferMiss } from './fast/dcTransferMiss.js';
 import { fastSteadyState, type FastSteady } from './fast/fastSteadyState.js';
 import { maximizeOverDuty } from './fast/maximizeOverDuty.js';
 import { twoStageSteady, type TwoStageSteady } from './fast/twoStageSteady.js';
@@ -204,6 +205,9 @@ export function collectCandidates(
         if (exceeds(droopError(problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8), limits.droop)) return;
       }
     }
+    // INL and gain error (endpoint fit) from fast averages: only the engine checked them, so a
+    // space where they bind was verified candidate by candidate (fast/dcTransferMiss.ts).
+    if (dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null) return;
     // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
     const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);
     for (const [from, to] of problem.steps) {

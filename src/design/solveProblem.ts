@@ -1,6 +1,7 @@
 import { collectCandidates, keyOf, newCollectState, REL, type FastEntry } from './collectCandidates.js';
 import type { DesignProblem } from './designProblem.js';
 import { exactCandidate } from './exactCandidate.js';
+import { dcTransferMiss } from './fast/dcTransferMiss.js';
 import { fastLadderOf } from './fast/fastLadder.js';
 import { fastSteadyState } from './fast/fastSteadyState.js';
 import { maximizeOverDuty } from './fast/maximizeOverDuty.js';
@@ -72,7 +73,8 @@ export function solveProblem(
           continue;
         }
       }
-      if (droopExceeds(problem, e.r, e.c)) {
+      const at = fastPoint(problem, e.r, e.c);
+      if (droopExceeds(problem, e.r, e.c) || dcTransferMiss(problem, (d) => at(d).average) !== null) {
         e.ruledOut = true;
         continue;
       }
