@@ -40,6 +40,10 @@ export interface CollectState {
   seen: Set<string>;
   /** Candidates the fast model evaluated (ripple, droop or settling). */
   evaluated: number;
+  /** Stop the walk once `evaluated` passes this (explanations' side searches); `cut` then tells. */
+  budget?: number;
+  /** The walk stopped at the budget: what was collected is not the whole bounded set. */
+  cut?: boolean;
 }
 
 /** A fresh state: theta starts at the settling-time limit (nothing slower is feasible). */
@@ -192,7 +196,13 @@ export function collectCandidates(
     return true;
   };
 
+  const overBudget = () => {
+    if (state.budget === undefined || state.evaluated <= state.budget) return false;
+    state.cut = true;
+    return true;
+  };
   const evaluate = (rs: number[], cs: number[], tb: TupleBounds): void => {
+    if (overBudget()) return;
     const key = state.dynamic ? '' : keyOf(rs, cs);
     if (!state.dynamic && state.seen.has(key)) return;
     // Unequal drivers: droop depends on the capacitors and may peak inside the range. Its largest
@@ -326,7 +336,7 @@ export function collectCandidates(
   // Staircase points first; inner points at once when theta is finite, else once it is (or at the end).
   for (let k = 0; k < order.length; k++) {
     const i = order[k];
-    if (keys[i] > state.theta) break;
+    if (keys[i] > state.theta || overBudget()) break;
     const columns = walk(tuples[i], bounds[i]);
     if (state.theta === Infinity) deferred.push(...columns);
     else {
