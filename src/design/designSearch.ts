@@ -3,6 +3,7 @@ import type { Project } from '../project/types.js';
 import { designProblem, type DesignProblem } from './designProblem.js';
 import { DesignInputError } from './designInputError.js';
 import { explainInfeasible } from './explainInfeasible.js';
+import { infeasibilityBounds } from './infeasibilityBounds.js';
 import { exactCandidate } from './exactCandidate.js';
 import { rankCandidates } from './rankCandidates.js';
 import { solveProblem, type ProblemOutcome } from './solveProblem.js';
@@ -37,9 +38,15 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
       ? range(bitsRange.min, bitsRange.max).map((b) => designProblem(project, b))
       : [base];
 
-  const outcomes: ProblemOutcome[] = problems.map((problem, i) =>
-    solveProblem(problem, top, stageCounts, (f) => options.onProgress?.((i + f) / problems.length)),
-  );
+  // Stage counts proven out of reach at a resolution (infeasibilityBounds.ts) are not walked.
+  let best: number | null = null;
+  const outcomes: ProblemOutcome[] = problems.map((problem, i) => {
+    const open = stageCounts.filter((n) => infeasibilityBounds(problem, n).misses.length === 0);
+    return solveProblem(problem, top, open, (f, d) => {
+      if (d?.best != null && (best === null || d.best < best)) best = d.best;
+      options.onProgress?.((i + f) / problems.length, { phase: 'search', stages: d?.stages, bits: problem.bits, frequency: problem.frequency, best });
+    });
+  });
   const candidates = rankCandidates(outcomes.flatMap((o) => o.feasible)).slice(0, top);
   const resolutions: ResolutionRow[] =
     problems.length > 1 || bitsRange
@@ -52,8 +59,10 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
   const feasible = candidates.length > 0;
   let shown = candidates;
   let diagnosis: string[] = [];
+  let explained;
   if (!feasible && (options.diagnose ?? true)) {
-    const explained = explainInfeasible(project, problems, stageCounts);
+    options.onProgress?.(1, { phase: 'explain' });
+    explained = explainInfeasible(project, problems, stageCounts);
     diagnosis = explained.lines;
     shown = explained.closest;
   }
@@ -68,6 +77,7 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
     current,
     resolutions,
     diagnosis,
+    ...(explained && { fixes: explained.fixes, proven: explained.proven }),
     basis: {
       stageCounts,
       series: base.series,

@@ -1,7 +1,7 @@
 import type { Project } from '../project/types.js';
 
 /** Limits a search can relax. */
-export type LimitName = 'ripple' | 'droop' | 'inl' | 'settling' | 'pin_current';
+export type LimitName = 'ripple' | 'droop' | 'inl' | 'gain' | 'settling' | 'pin_current';
 
 /**
  * The project with some limits multiplied by `factor` (Infinity removes them); limits the file
@@ -25,6 +25,9 @@ export function relaxProject(project: Project, names: readonly LimitName[], fact
         inLsb[name] = scale(inLsb[name]);
         if (inLsb[name] === undefined) delete inLsb[name];
       }
+    } else if (name === 'gain') {
+      spec.gain = scale(spec.gain);
+      if (spec.gain === undefined) delete spec.gain;
     } else if (name === 'settling' && spec.settling) {
       const time = scale(spec.settling.time);
       spec.settling = { ...spec.settling };
