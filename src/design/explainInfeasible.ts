@@ -40,7 +40,7 @@ export interface Explanation {
  * that come closest; every number from a bound or a search of the engine.
  *
  * Method: (1) infeasibilityBounds.ts per stage count and resolution: a stage count missed at every
- * resolution is reported with its proof at the resolution where it misses by least. (2) Each limit
+ * resolution is reported with its proof at the highest PWM frequency searched. (2) Each limit
  * removed in turn and the search rerun (top 1, boundedSearch.ts): a limit whose removal gives a
  * feasible design binds, and that design's figure is a limit that would admit it (true by
  * construction). (3) nearestFixes (fewer bits, faster PWM, one more stage, wider ranges), each
@@ -89,15 +89,8 @@ export function explainInfeasible(
   for (const n of stageCounts) {
     const per = problems.map((p) => ({ p, misses: infeasibilityBounds(p, n).misses }));
     if (per.some((x) => x.misses.length === 0)) continue;
-    let best = per[0];
-    let bestRatio = Infinity;
-    for (const x of per) {
-      const ratio = Math.min(...x.misses.map((m) => m.reach / m.limitValue));
-      if (ratio < bestRatio) {
-        bestRatio = ratio;
-        best = x;
-      }
-    }
+    // Report it at the highest PWM frequency searched (fewest bits), where filtering is easiest.
+    const best = per.reduce((a, x) => (x.p.frequency > a.p.frequency ? x : a));
     const miss = best.misses.reduce((a, m) => (m.reach / m.limitValue > a.reach / a.limitValue ? m : a));
     proven.push(miss);
     const where = searchBits ? ` (even at ${best.p.bits} bits, ${formatEng(best.p.frequency, 'Hz')})` : '';
