@@ -28,7 +28,7 @@ function progressBar(
       const now = Date.now();
       if (now - started < 1000 || (now - last < 100 && f < 1)) return;
       last = now;
-      const line = render(f, detail, stream.columns ?? 80);
+      const line = render(f, detail, stream.columns || 80); // 0 when the terminal reports no size
       stream.write(`\r${line}${' '.repeat(Math.max(0, shown - line.length))}`);
       shown = line.length;
     },

@@ -69,7 +69,7 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
   const evaluated = outcomes.reduce((s, o) => s + o.evaluated, 0);
   const verified = outcomes.reduce((s, o) => s + o.verified, 0);
   const space = outcomes.reduce((s, o) => s + o.space, 0);
-  options.onProgress?.(1);
+  options.onProgress?.(1, { phase: 'search', best: candidates[0]?.settlingTime ?? null });
   return {
     candidates: shown,
     feasible,

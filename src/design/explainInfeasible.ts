@@ -5,6 +5,7 @@ import { designLabel } from './designLabel.js';
 import type { DesignProblem } from './designProblem.js';
 import { infeasibilityBounds, type ProvenMiss } from './infeasibilityBounds.js';
 import { nearestFixes, type NearestFix } from './nearestFix.js';
+import { oneStageRipple } from './oneStageRipple.js';
 import { recheck } from './recheck.js';
 import { relaxProject, type LimitName } from './relaxProject.js';
 import type { Candidate } from './types.js';
@@ -95,6 +96,16 @@ export function explainInfeasible(
     proven.push(miss);
     const where = searchBits ? ` (even at ${best.p.bits} bits, ${formatEng(best.p.frequency, 'Hz')})` : '';
     lines.push(`${n} stage${n === 1 ? '' : 's'} proven out of reach${where}: ${miss.reason}`);
+    // One stage into an open output: the time constant the ripple needs, exactly (oneStageRipple.ts).
+    const p = best.p;
+    if (n === 1 && miss.limit === 'ripple' && p.project.load.resistance === undefined && p.limits.ripple !== undefined) {
+      const { pwm } = p.project;
+      const span = Math.abs(pwm.high - pwm.low);
+      const d = Math.min(p.dutyMax, Math.max(p.dutyMin, 0.5));
+      const need = timeConstantFor(p.limits.ripple, span, d, p.period);
+      const have = (p.rValues[p.rValues.length - 1] + Math.max(pwm.driver.high, pwm.driver.low)) * (p.cValues[p.cValues.length - 1] + p.project.load.capacitance);
+      lines.push(`one stage needs a time constant of about ${formatEng(need, 's')} for that ripple at ${formatEng(p.frequency, 'Hz')}; the largest R and C allowed give ${formatEng(have, 's')}`);
+    }
   }
 
   // (2) Which limit binds, and the figure reached without it.
@@ -155,4 +166,17 @@ export function explainInfeasible(
   if (closest.length === 0 && names.length > 0) lines.push(`no design found with every limit relaxed up to ${RELAX[RELAX.length - 1]}-fold: check the ranges in search:`);
   if (spent.some((b) => b.left <= 0)) lines.push('(the side searches behind this explanation stopped at their budget; changes not listed were not proven either way)');
   return { lines, closest, binding, fixes, proven };
+}
+
+/** The one-stage time constant whose ripple at duty d equals `ripple` (bisection in log tau). */
+function timeConstantFor(ripple: number, span: number, d: number, period: number): number {
+  if (ripple >= span) return 0;
+  let lo = period * 1e-6;
+  let hi = period * 1e12;
+  for (let i = 0; i < 200 && hi / lo > 1 + 1e-9; i++) {
+    const mid = Math.sqrt(lo * hi);
+    if (oneStageRipple(span, d, period, mid) > ripple) lo = mid;
+    else hi = mid;
+  }
+  return hi;
 }
