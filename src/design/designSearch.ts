@@ -68,7 +68,8 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
   }
   const evaluated = outcomes.reduce((s, o) => s + o.evaluated, 0);
   const verified = outcomes.reduce((s, o) => s + o.verified, 0);
-  const space = outcomes.reduce((s, o) => s + o.space, 0);
+  // The whole space, stage counts proven out of reach included.
+  const space = problems.reduce((s, p) => s + stageCounts.reduce((t, n) => t + (p.rValues.length * p.cValues.length) ** n, 0), 0);
   options.onProgress?.(1, { phase: 'search', best: candidates[0]?.settlingTime ?? null });
   return {
     candidates: shown,
