@@ -6,7 +6,7 @@ import type { DesignProblem } from './designProblem.js';
 import { infeasibilityBounds, type ProvenMiss } from './infeasibilityBounds.js';
 import { nearestFixes, type NearestFix } from './nearestFix.js';
 import { oneStageRipple } from './oneStageRipple.js';
-import { recheck } from './recheck.js';
+import { exactCandidate } from './exactCandidate.js';
 import { relaxProject, type LimitName } from './relaxProject.js';
 import type { Candidate } from './types.js';
 
@@ -133,7 +133,8 @@ export function explainInfeasible(
         lines.push(`INL binds: ${which} meeting every other limit (${label}) has an INL of ${volts(without.inl, at)} against ${volts(lim.inl!, at)}; an INL limit of ${volts(without.inl, at)} would admit it`);
         break;
       case 'gain': {
-        const gain = Math.abs(without.checks.find((k) => k.name === 'gain')?.value ?? NaN);
+        // Found without the gain limit: evaluated again against the real limits for the figure.
+        const gain = Math.abs(exactAgain(at, without).checks.find((k) => k.name === 'gain')?.value ?? NaN);
         lines.push(`gain binds: ${which} meeting every other limit (${label}) loses ${(100 * gain).toPrecision(3)} % of full scale against ${(100 * at.project.spec.gain!).toPrecision(3)} %`);
         break;
       }
@@ -158,7 +159,8 @@ export function explainInfeasible(
   for (const k of RELAX) {
     const found = solveAll(relaxProject(project, names, k), CLOSEST, closestBudget).designs;
     if (found.length > 0) {
-      closest = found.map((c) => recheck(problemOf(c), c));
+      // Evaluated again against the real limits (recheck.ts keeps no gain error, so not it).
+      closest = found.map((c) => exactAgain(problemOf(c), c));
       lines.push(`the closest designs below meet every limit relaxed ${k}-fold`);
       break;
     }
@@ -179,4 +181,9 @@ function timeConstantFor(ripple: number, span: number, d: number, period: number
     else hi = mid;
   }
   return hi;
+}
+
+/** A design the exact engine evaluates again under a problem's limits (same circuit). */
+function exactAgain(problem: DesignProblem, c: Candidate): Candidate {
+  return exactCandidate(problem, problem.ladderOf(c.stages.map((s) => s.r), c.stages.map((s) => s.c)));
 }
