@@ -1,6 +1,6 @@
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { basename, join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseDocument } from 'yaml';
 import { runDesign } from '../../src/cli/design.js';
@@ -10,6 +10,7 @@ import { root, runBuilt } from './runBuilt.js';
 // Invented scenarios (test/fixtures/projects): nothing in the search space meets every limit.
 const inlFixture = join(root, 'test', 'fixtures', 'projects', 'infeasible-inl-bits.yaml');
 const threeStage = join(root, 'test', 'fixtures', 'projects', 'infeasible-ripple-three-stage.yaml');
+const gainFixture = join(root, 'test', 'fixtures', 'projects', 'infeasible-gain-load.yaml');
 const dir = mkdtempSync(join(tmpdir(), 'dacsmith-infeasible-'));
 
 interface Fix {
@@ -24,7 +25,7 @@ function withFix(file: string, fix: Fix, pwm: Record<string, unknown> = {}): str
   doc.setIn(['filter'], { stages: fix.design.stages.map((s) => ({ r: s.r, c: s.c, ...(s.buffered && { buffered: true }) })) });
   doc.deleteIn(['search', 'bits']);
   for (const [k, v] of Object.entries(pwm)) doc.setIn(['pwm', k], v);
-  const out = join(dir, `${fix.kind}.yaml`);
+  const out = join(dir, `${basename(file, '.yaml')}-${fix.kind}.yaml`);
   writeFileSync(out, doc.toString());
   return out;
 }
@@ -81,6 +82,28 @@ describe('dacsmith design on an infeasible three-stage space (E12, bits 8..12)',
     expect(fewer).toBeDefined();
     expect(fewer!.change).toMatch(/^7 bits \(62\.5 kHz\)$/); // 8 MHz / 2^7 = 62.5 kHz (edge-aligned timer)
     expect(runBuilt(['analyze', withFix(threeStage, fewer!, { bits: 7 })]).code).toBe(0);
+  });
+});
+
+describe('dacsmith design when the load divides full scale (default 2 % gain limit, 1 to 3 stages)', () => {
+  const r = runBuilt(['design', gainFixture, '--format', 'json', '--no-charts']);
+  const json = JSON.parse(r.stdout);
+
+  it('proves every stage count out of reach by the divider alone', () => {
+    expect(r.code).toBe(1);
+    const proven = json.proven as Array<{ stages: number; limit: string; reach: number }>;
+    expect(proven.map((p) => p.stages)).toEqual([1, 2, 3]);
+    for (const p of proven) {
+      expect(p.limit).toBe('gain');
+      // Voltage divider (Ohm's law): 1 - R_L / (R_L + driver + n * 1 kohm), R_L = 10 kohm, driver 30 ohm
+      expect(p.reach).toBeCloseTo(1 - 10e3 / (10e3 + 30 + p.stages * 1e3), 9);
+    }
+  });
+
+  it('suggests a follower, and analyze agrees the buffered design meets every limit with the load', () => {
+    const follower = (json.fixes as Fix[]).find((f) => f.kind === 'follower');
+    expect(follower).toBeDefined();
+    expect(runBuilt(['analyze', withFix(gainFixture, follower!, { bits: follower!.design.bits })]).code).toBe(0);
   });
 });
 
