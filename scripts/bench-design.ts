@@ -1,5 +1,7 @@
 /** Bench section: the standard-value design search (src/design), when that module is present. */
 import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import { processStart } from './bench-process.js';
 import { loadProject } from '../src/project/index.js';
 import type { Project, SeriesName } from '../src/project/types.js';
 import { sampleProjects, wideSearch } from './bench-cases.js';
@@ -76,4 +78,35 @@ async function loadDesignSearch(): Promise<DesignSearch | string> {
   const module = (await import(MODULE)) as { designSearch?: unknown };
   if (typeof module.designSearch !== 'function') return 'module not present (src/design/index.ts exports no designSearch)';
   return module.designSearch as DesignSearch;
+}
+
+/** Infeasible search spaces of the bench: invented fixtures where nothing meets every limit. */
+const INFEASIBLE = [
+  { name: '1-2 stages E12, bits 8..12, INL binds', file: join('test', 'fixtures', 'projects', 'infeasible-inl-bits.yaml') },
+  { name: '1-3 stages E12, bits 8..12, ripple and settling bind', file: join('test', 'fixtures', 'projects', 'infeasible-ripple-three-stage.yaml') },
+];
+
+/**
+ * Whole-process time of `dacsmith design FILE` (default report: explanation of the empty result,
+ * nearest changes verified by side searches) on the infeasible fixtures: median of 3 runs each
+ * (bench-process.ts; wall and child CPU time), exit code 1 expected.
+ *
+ * Syntax: infeasibleDesignCost(root)
+ * Example: infeasibleDesignCost(process.cwd()).data[0].seconds   // 4.7
+ */
+export function infeasibleDesignCost(root: string): { data: Array<{ name: string; file: string; seconds: number; cpu: number | null; exitCode: number | null }>; section: BenchSection } {
+  const timing = processStart(
+    INFEASIBLE.map((c) => [join('bin', 'dacsmith.cjs'), 'design', c.file]),
+    { runs: 3, cwd: root },
+  );
+  const data = INFEASIBLE.map((c, i) => ({ ...c, seconds: timing.commands[i].median, cpu: timing.commands[i].cpu, exitCode: timing.commands[i].exitCode }));
+  return {
+    data,
+    section: {
+      title: 'Infeasible design search, whole process (dacsmith design FILE, 3 runs each; medians)',
+      columns: ['case', 'project', 'exit', 'wall (ms)', 'CPU (ms)'],
+      rows: data.map((d) => [d.name, d.file, d.exitCode ?? 'n/a', d.seconds * 1e3, d.cpu === null ? 'n/a' : d.cpu * 1e3]),
+      notes: ['goal: under 10 s with the explanation (binding limit, figure reached, nearest verified change)'],
+    },
+  };
 }

@@ -11,7 +11,7 @@ import { performance } from 'node:perf_hooks';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { analyzeCost } from './bench-analyze.js';
-import { designCost } from './bench-design.js';
+import { designCost, infeasibleDesignCost } from './bench-design.js';
 import { monteCarloRate } from './bench-monte-carlo.js';
 import { engineVersusOde } from './bench-ode-race.js';
 import { processStart } from './bench-process.js';
@@ -63,6 +63,11 @@ export async function runBench(): Promise<BenchReport> {
   const design = await designCost();
   sections.push(design.section);
   data.design = design.data;
+
+  step('infeasible design searches (whole process)');
+  const infeasible = buildError ? null : infeasibleDesignCost(root);
+  if (infeasible) sections.push(infeasible.section);
+  data.infeasibleDesign = infeasible?.data ?? null;
 
   step('Monte Carlo');
   const monteCarlo = await monteCarloRate(buildError ? undefined : new URL('../dist/tolerance-worker.js', import.meta.url));
@@ -131,6 +136,12 @@ export async function runBench(): Promise<BenchReport> {
       goal: '< 1 s',
       measured: two ? `${formatNumber(two.seconds)} s wall, ${formatNumber(two.cpu)} s CPU` : 'skipped',
       met: two ? two.seconds < 1 : null,
+    },
+    {
+      name: 'infeasible design search, answered with an explanation',
+      goal: '< 10 s whole process',
+      measured: infeasible ? `${formatNumber(Math.max(...infeasible.data.map((d) => d.seconds)))} s wall (slowest case)` : 'skipped',
+      met: infeasible ? Math.max(...infeasible.data.map((d) => d.seconds)) < 10 : null,
     },
     {
       name: 'Monte Carlo, 100 000 samples',

@@ -1,5 +1,6 @@
 import type { Argv, CommandModule } from 'yargs';
 import type { CommandOutput } from './analyze.js';
+import type { DesignProgress } from '../design/types.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_SPEC_FAILS, UsageError } from './errors.js';
 import { reportWidth, terminalColumns, widthOption } from './width.js';
 
@@ -16,22 +17,25 @@ export interface DesignArgs {
   width?: number;
 }
 
-/** A progress bar on a terminal stream: redrawn at most every 100 ms, erased when done. */
-function progressBar(stream: NodeJS.WriteStream): { update: (f: number) => void; done: () => void } {
+/** Progress on a terminal stream: silent for the first second, then redrawn at most every 100 ms, erased when done. */
+function progressBar(
+  stream: NodeJS.WriteStream,
+  render: (fraction: number, detail: DesignProgress | undefined, width: number) => string,
+): { update: (f: number, detail?: DesignProgress) => void; done: () => void } {
+  const started = Date.now();
   let last = 0;
-  let shown = false;
+  let shown = 0;
   return {
-    update: (f) => {
+    update: (f, detail) => {
       const now = Date.now();
-      if (now - last < 100 && f < 1) return;
+      if (now - started < 1000 || (now - last < 100 && f < 1)) return;
       last = now;
-      const width = 30;
-      const filled = Math.round(Math.min(1, Math.max(0, f)) * width);
-      stream.write(`\rsearching [${'#'.repeat(filled)}${'.'.repeat(width - filled)}] ${Math.round(100 * f)} %`);
-      shown = true;
+      const line = render(f, detail, stream.columns || 80); // 0 when the terminal reports no size
+      stream.write(`\r${line}${' '.repeat(Math.max(0, shown - line.length))}`);
+      shown = line.length;
     },
     done: () => {
-      if (shown) stream.write(`\r${' '.repeat(50)}\r`);
+      if (shown > 0) stream.write(`\r${' '.repeat(shown)}\r`);
     },
   };
 }
@@ -55,16 +59,18 @@ export async function runDesign(
   if (args.write !== undefined && !args.force && fs.existsSync(args.write)) {
     return { stdout: '', stderr: `dacsmith: ${args.write} exists; use --force to overwrite it\n`, code: EXIT_BAD_INPUT };
   }
-  const [{ loadProject }, { designSearch, DesignInputError, tradeoffCurves }, { designReport }, { robustDesigns }, { ToleranceInputError }] =
+  const [{ loadProject }, { designSearch, DesignInputError, tradeoffCurves }, { designReport }, { robustDesigns }, { ToleranceInputError }, { designProgressLine }] =
     await Promise.all([
       import('../project/index.js'),
       import('../design/index.js'),
       import('../report/design.js'),
       import('../design/robustDesigns.js'),
       import('../tolerance/index.js'),
+      import('../report/designProgress.js'),
     ]);
   const project = loadProject(args.file);
-  const bar = tty.progress ? progressBar(tty.progress) : null;
+  // Progress only on a terminal, and not when asked to be quiet.
+  const bar = tty.progress && !args.quiet ? progressBar(tty.progress, designProgressLine) : null;
   let result;
   let tradeoff;
   let robust;
@@ -74,9 +80,10 @@ export async function runDesign(
       robust = robustDesigns(project, args.robust, { top: args.top, ...(bar && { onProgress: (f: number) => bar.update(share * f) }) });
       result = { ...robust.nominal, candidates: robust.candidates.map((r) => r.candidate), feasible: robust.candidates.length > 0, diagnosis: [] };
     } else {
-      result = designSearch(project, { top: args.top, ...(bar && { onProgress: (f: number) => bar.update(share * f) }) });
+      result = designSearch(project, { top: args.top, ...(bar && { onProgress: (f: number, d?: DesignProgress) => bar.update(share * f, d) }) });
     }
-    if (args.charts) {
+    // Nothing feasible: the explanation carries the numbers; curves would rerun many empty searches.
+    if (args.charts && result.feasible) {
       const best = result.candidates[0];
       const atBits = result.resolutions.length > 0 && best?.bits != null ? best.bits : undefined;
       const ripple = result.basis.limits.ripple;
@@ -86,7 +93,7 @@ export async function runDesign(
       if (center !== undefined && center > 0) {
         tradeoff = tradeoffCurves(project, result.basis.stageCounts, center, {
           ...(atBits !== undefined && { bits: atBits }),
-          ...(bar && { onProgress: (f: number) => bar.update(0.5 + 0.5 * f) }),
+          ...(bar && { onProgress: (f: number) => bar.update(0.5 + 0.5 * f, { phase: 'curves' }) }),
         });
       }
     }

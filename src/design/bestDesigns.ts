@@ -1,6 +1,7 @@
 import { designProblem, type DesignProblem } from './designProblem.js';
 import { rankCandidates } from './rankCandidates.js';
-import { solveProblem, type ProblemOutcome } from './solveProblem.js';
+import { infeasibilityBounds } from './infeasibilityBounds.js';
+import { solveProblem, type ProblemOutcome, type ProblemProgress } from './solveProblem.js';
 
 /**
  * The `top` best designs of one design problem (one resolution) over every follower option the
@@ -19,23 +20,22 @@ export function bestDesigns(
   problem: DesignProblem,
   top: number,
   stageCounts: number[] = problem.stageCounts,
-  onProgress?: (fraction: number) => void,
+  onProgress?: (fraction: number, detail?: ProblemProgress) => void,
 ): ProblemOutcome {
   const options = [...new Set(problem.project.search?.buffered ?? [problem.buffered])].sort((a, b) => Number(a) - Number(b));
-  if (options.length === 1 && options[0] === problem.buffered) return solveProblem(problem, top, stageCounts, onProgress);
-  const outcomes = options.map((buffered, i) =>
-    solveProblem(
-      buffered === problem.buffered ? problem : designProblem(problem.project, undefined, buffered),
-      top,
-      stageCounts,
-      (f) => onProgress?.((i + f) / options.length),
-    ),
-  );
+  // Stage counts proven out of reach for this variant (infeasibilityBounds.ts) are not walked.
+  const open = (p: DesignProblem) => stageCounts.filter((n) => infeasibilityBounds(p, n).misses.length === 0);
+  if (options.length === 1 && options[0] === problem.buffered) return solveProblem(problem, top, open(problem), onProgress);
+  const outcomes = options.map((buffered, i) => {
+    const variant = buffered === problem.buffered ? problem : designProblem(problem.project, undefined, buffered);
+    return solveProblem(variant, top, open(variant), (f, d) => onProgress?.((i + f) / options.length, d));
+  });
   return {
     feasible: rankCandidates(outcomes.flatMap((o) => o.feasible)).slice(0, top),
     failing: outcomes.flatMap((o) => o.failing),
     evaluated: outcomes.reduce((s, o) => s + o.evaluated, 0),
     verified: outcomes.reduce((s, o) => s + o.verified, 0),
     space: outcomes.reduce((s, o) => s + o.space, 0),
+    complete: outcomes.every((o) => o.complete),
   };
 }

@@ -1,6 +1,7 @@
 import type { DesignProblem } from './designProblem.js';
 import { fastLadderOf, type FastLadder } from './fast/fastLadder.js';
 import { fastSettlingBound } from './fast/fastSettlingBound.js';
+import { dcTransferMiss } from './fast/dcTransferMiss.js';
 import { gainFloor } from './gainFloor.js';
 import { fastSteadyState, type FastSteady } from './fast/fastSteadyState.js';
 import { maximizeOverDuty } from './fast/maximizeOverDuty.js';
@@ -40,6 +41,10 @@ export interface CollectState {
   seen: Set<string>;
   /** Candidates the fast model evaluated (ripple, droop or settling). */
   evaluated: number;
+  /** Stop the walk once `evaluated` passes this (explanations' side searches); `cut` then tells. */
+  budget?: number;
+  /** The walk stopped at the budget: what was collected is not the whole bounded set. */
+  cut?: boolean;
 }
 
 /** A fresh state: theta starts at the settling-time limit (nothing slower is feasible). */
@@ -202,7 +207,13 @@ export function collectCandidates(
     return true;
   };
 
+  const overBudget = () => {
+    if (state.budget === undefined || state.evaluated <= state.budget) return false;
+    state.cut = true;
+    return true;
+  };
   const evaluate = (rs: number[], cs: number[], tb: TupleBounds): void => {
+    if (overBudget()) return;
     const key = state.dynamic ? '' : keyOf(rs, cs);
     if (!state.dynamic && state.seen.has(key)) return;
     // Unequal drivers: droop depends on the capacitors and may peak inside the range. Its largest
@@ -215,12 +226,9 @@ export function collectCandidates(
         if (exceeds(droopError(problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8), limits.droop)) return;
       }
     }
-    // Unequal drivers: the endpoint-fit gain error from the fast model's exact averages at the two
-    // ends of the used range (engine/dcTransfer.ts defines it the same way).
-    if (!lti && limits.gain !== undefined && problem.dutyMax > problem.dutyMin) {
-      const slope = (lite(rs, cs, problem.dutyMax).average - lite(rs, cs, problem.dutyMin).average) / (problem.dutyMax - problem.dutyMin);
-      if (exceeds(Math.abs(slope - (pwm.high - pwm.low)) / span, limits.gain)) return;
-    }
+    // INL and gain error (endpoint fit) from fast averages: only the engine checked them, so a
+    // space where they bind was verified candidate by candidate (fast/dcTransferMiss.ts).
+    if (dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null) return;
     // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
     const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);
     for (const [from, to] of problem.steps) {
@@ -339,7 +347,7 @@ export function collectCandidates(
   // Staircase points first; inner points at once when theta is finite, else once it is (or at the end).
   for (let k = 0; k < order.length; k++) {
     const i = order[k];
-    if (keys[i] > state.theta) break;
+    if (keys[i] > state.theta || overBudget()) break;
     const columns = walk(tuples[i], bounds[i]);
     if (state.theta === Infinity) deferred.push(...columns);
     else {

@@ -3,6 +3,7 @@ import type { Project } from '../project/types.js';
 import { designProblem, type DesignProblem } from './designProblem.js';
 import { DesignInputError } from './designInputError.js';
 import { explainInfeasible } from './explainInfeasible.js';
+import { infeasibilityBounds } from './infeasibilityBounds.js';
 import { exactCandidate } from './exactCandidate.js';
 import { rankCandidates } from './rankCandidates.js';
 import { recheck } from './recheck.js';
@@ -40,8 +41,14 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
       ? range(bitsRange.min, bitsRange.max).map((b) => designProblem(project, b))
       : [base];
 
+  // Stage counts proven out of reach at a resolution (infeasibilityBounds.ts) are not walked
+  // (bestDesigns filters them per follower option: a follower removes the load the bounds use).
+  let best: number | null = null;
   const outcomes: ProblemOutcome[] = problems.map((problem, i) =>
-    bestDesigns(problem, top, stageCounts, (f) => options.onProgress?.((i + f) / problems.length)),
+    bestDesigns(problem, top, stageCounts, (f, d) => {
+      if (d?.best != null && (best === null || d.best < best)) best = d.best;
+      options.onProgress?.((i + f) / problems.length, { phase: 'search', stages: d?.stages, bits: problem.bits, frequency: problem.frequency, best });
+    }),
   );
   const candidates = rankCandidates(outcomes.flatMap((o) => o.feasible)).slice(0, top);
   const resolutions: ResolutionRow[] =
@@ -55,6 +62,7 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
   const feasible = candidates.length > 0;
   let shown = candidates;
   let diagnosis: string[] = [];
+  let explained;
   if (!feasible && (options.diagnose ?? true)) {
     const withoutMargin = base.margin > 0 ? designsWithoutMargin(project, problems, top, stageCounts) : [];
     if (withoutMargin.length > 0) {
@@ -63,15 +71,17 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
       ];
       shown = withoutMargin;
     } else {
-      const explained = explainInfeasible(project, problems, stageCounts);
+      options.onProgress?.(1, { phase: 'explain' });
+      explained = explainInfeasible(project, problems, stageCounts);
       diagnosis = explained.lines;
       shown = explained.closest;
     }
   }
   const evaluated = outcomes.reduce((s, o) => s + o.evaluated, 0);
   const verified = outcomes.reduce((s, o) => s + o.verified, 0);
-  const space = outcomes.reduce((s, o) => s + o.space, 0);
-  options.onProgress?.(1);
+  // The whole space, stage counts proven out of reach included.
+  const space = problems.reduce((s, p) => s + stageCounts.reduce((t, n) => t + (p.rValues.length * p.cValues.length) ** n, 0), 0);
+  options.onProgress?.(1, { phase: 'search', best: candidates[0]?.settlingTime ?? null });
   return {
     candidates: shown,
     feasible,
@@ -79,6 +89,7 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
     current,
     resolutions,
     diagnosis,
+    ...(explained && { fixes: explained.fixes, proven: explained.proven }),
     basis: {
       stageCounts,
       series: base.series,

@@ -1,18 +1,26 @@
 import type { Project } from '../project/types.js';
 import { formatEng } from '../units/index.js';
-import { gainFloor } from './gainFloor.js';
-import { designProblem, type DesignProblem } from './designProblem.js';
-import { rankCandidates } from './rankCandidates.js';
-import { recheck } from './recheck.js';
-import { relaxProject, type LimitName } from './relaxProject.js';
+import { boundedSearch, type SearchBudget } from './boundedSearch.js';
+import { designLabel } from './designLabel.js';
+import type { DesignProblem } from './designProblem.js';
+import { infeasibilityBounds, type ProvenMiss } from './infeasibilityBounds.js';
+import { nearestFixes, type NearestFix } from './nearestFix.js';
 import { oneStageRipple } from './oneStageRipple.js';
-import { bestDesigns } from './bestDesigns.js';
+import { exactCandidate } from './exactCandidate.js';
+import { relaxProject, type LimitName } from './relaxProject.js';
 import type { Candidate } from './types.js';
 
 /** Factors by which all limits are relaxed together to find the closest designs. */
 const RELAX = [1.25, 1.6, 2.5, 4, 10, 100];
 /** Closest designs shown. */
 const CLOSEST = 3;
+/**
+ * Fast evaluations each side search of an explanation may use (one per limit removed, one per kind
+ * of change, one for the closest designs), and one resolution's share: fixed counts, so the same
+ * project always gets the same explanation and its time stays bounded (about 100k evaluations a
+ * second on one core of a slow machine).
+ */
+export const EXPLAIN_BUDGET = { perLimit: 40_000, perFix: 30_000, closest: 60_000, perProblem: 30_000 };
 
 /** Why nothing is feasible, and the designs that come closest. */
 export interface Explanation {
@@ -21,161 +29,146 @@ export interface Explanation {
   closest: Candidate[];
   /** The limits that alone make the space empty (removing one of them gives a feasible design). */
   binding: LimitName[];
+  /** Changes of the project verified to make it feasible (nearestFix.ts). */
+  fixes: NearestFix[];
+  /** Limits proven out of reach before any search, per stage count (at the most favourable resolution). */
+  proven: ProvenMiss[];
 }
 
 /**
- * Explain an empty result: which limit binds and by how much, in words an engineer can act on,
- * and the designs that come closest.
+ * Explain an empty result: what is proven out of reach, which limit binds and the figure the best
+ * design without it reaches, the nearest changes that make the project feasible, and the designs
+ * that come closest; every number from a bound or a search of the engine.
  *
- * Method: (1) each limit is removed in turn and the search rerun (top 1): a limit whose removal
- * gives a feasible design binds; the best design without it shows by how much. (2) Physical
- * reasons, from the circuit alone: pin current needs R1 >= (high - low) / I - driver (Ohm's law);
- * droop caps the series resistance at R_L droop / (ideal - droop) (DC current balance, see
- * collectCandidates.ts); ripple of one stage needs a time constant tau with
- * (high - low) (1 - e^-a)(1 - e^-b) / (1 - e^-(a+b)) <= limit, a = D T / tau, b = (1 - D) T / tau
- * (oneStageRipple.ts), compared with the largest R and C allowed. (3) All limits relaxed together
- * by growing factors until designs appear: those, checked against the real limits, are the closest.
+ * Method: (1) infeasibilityBounds.ts per stage count and resolution: a stage count missed at every
+ * resolution is reported with its proof at the highest PWM frequency searched. (2) Each limit
+ * removed in turn and the search rerun (top 1, boundedSearch.ts): a limit whose removal gives a
+ * feasible design binds, and that design's figure is a limit that would admit it (true by
+ * construction). (3) nearestFixes (fewer bits, faster PWM, one more stage, wider ranges), each
+ * verified by a search. (4) All limits relaxed together by growing factors until designs appear:
+ * those, checked against the real limits, are the closest. Side searches share a budget of fast
+ * evaluations; a search cut by it claims nothing.
  *
- * Syntax: explainInfeasible(project, problems, stageCounts)
+ * Syntax: explainInfeasible(project, problems, stageCounts[, budgets])
  * Example: explainInfeasible(p, [designProblem(p)], [1, 2]).lines
- *          // ['ripple: ... needs a time constant of about 33 ms with one stage; the largest ... give 18 ms', ...]
+ *          // ['INL binds: ${which} meeting every other limit reaches 5.28 LSB against 0.500 LSB ...', ...]
  */
-export function explainInfeasible(project: Project, problems: DesignProblem[], stageCounts: number[]): Explanation {
+export function explainInfeasible(
+  project: Project,
+  problems: DesignProblem[],
+  stageCounts: number[],
+  budgets: typeof EXPLAIN_BUDGET = EXPLAIN_BUDGET,
+): Explanation {
+  const spent: SearchBudget[] = [];
+  const part = (left: number): SearchBudget => {
+    const b = { left, perProblem: budgets.perProblem };
+    spent.push(b);
+    return b;
+  };
+  const closestBudget = part(budgets.closest);
   const base = problems[0];
-  const bitsList = problems.map((p) => p.bits);
   const searchBits = problems.length > 1 || project.search?.bits !== undefined;
-  const solveAll = (p: Project, top: number): Candidate[] =>
-    rankCandidates(
-      bitsList.flatMap((b) => bestDesigns(designProblem(p, searchBits && b !== null ? b : undefined), top, stageCounts).feasible),
-    ).slice(0, top);
+  const bitsList = problems.map((p) => (searchBits && p.bits !== null ? p.bits : undefined));
+  const solveAll = (p: Project, top: number, budget: SearchBudget) => boundedSearch(p, stageCounts, bitsList, top, budget);
 
   const names: LimitName[] = [];
   const { limits } = base;
   if (limits.ripple !== undefined) names.push('ripple');
   if (limits.droop !== undefined) names.push('droop');
   if (limits.inl !== undefined) names.push('inl');
-  if (limits.gain !== undefined) names.push('gain');
+  if (base.project.spec.gain !== undefined) names.push('gain');
   if (limits.settlingTime !== undefined) names.push('settling');
   if (limits.pinCurrent !== undefined) names.push('pin_current');
 
   const lines: string[] = [];
-  const binding: LimitName[] = [];
   const volts = (v: number, p: DesignProblem = base) =>
     // With several resolutions in play, an LSB count names the resolution it is counted at.
     p.lsb !== null ? `${formatEng(v, 'V')} (${(v / p.lsb).toPrecision(3)} LSB${searchBits && p.bits !== null ? ` @ ${p.bits} bit` : ''})` : formatEng(v, 'V');
+  const problemOf = (c: Candidate) => problems.find((p) => p.bits === c.bits) ?? base;
 
+  // (1) Proven before any search.
+  const proven: ProvenMiss[] = [];
+  for (const n of stageCounts) {
+    const per = problems.map((p) => ({ p, misses: infeasibilityBounds(p, n).misses }));
+    if (per.some((x) => x.misses.length === 0)) continue;
+    // Report it at the highest PWM frequency searched (fewest bits), where filtering is easiest.
+    const best = per.reduce((a, x) => (x.p.frequency > a.p.frequency ? x : a));
+    const miss = best.misses.reduce((a, m) => (m.reach / m.limitValue > a.reach / a.limitValue ? m : a));
+    proven.push(miss);
+    const where = searchBits ? ` (even at ${best.p.bits} bits, ${formatEng(best.p.frequency, 'Hz')})` : '';
+    lines.push(`${n} stage${n === 1 ? '' : 's'} proven out of reach${where}: ${miss.reason}`);
+    // One stage into an open output: the time constant the ripple needs, exactly (oneStageRipple.ts).
+    const p = best.p;
+    if (n === 1 && miss.limit === 'ripple' && p.project.load.resistance === undefined && p.limits.ripple !== undefined) {
+      const { pwm } = p.project;
+      const span = Math.abs(pwm.high - pwm.low);
+      const d = Math.min(p.dutyMax, Math.max(p.dutyMin, 0.5));
+      const need = timeConstantFor(p.limits.ripple, span, d, p.period);
+      const have = (p.rValues[p.rValues.length - 1] + Math.max(pwm.driver.high, pwm.driver.low)) * (p.cValues[p.cValues.length - 1] + p.project.load.capacitance);
+      lines.push(`one stage needs a time constant of about ${formatEng(need, 's')} for that ripple at ${formatEng(p.frequency, 'Hz')}; the largest R and C allowed give ${formatEng(have, 's')}`);
+    }
+  }
+
+  // (2) Which limit binds, and the figure reached without it.
+  const binding: LimitName[] = [];
+  let allComplete = true;
   for (const name of names) {
-    const without = solveAll(relaxProject(project, [name], Infinity), 1)[0];
+    const result = solveAll(relaxProject(project, [name], Infinity), 1, part(budgets.perLimit));
+    allComplete &&= result.complete;
+    const without = result.designs[0];
     if (!without) continue;
     binding.push(name);
-    const at = problems.find((p) => p.bits === without.bits) ?? base;
+    const at = problemOf(without);
     const lim = at.limits;
+    const label = `${designLabel(without)}${searchBits ? `, ${without.bits} bits` : ''}`;
+    // "the best" only when that search ran to the end (not cut at its budget).
+    const which = result.complete ? 'the best design' : 'a design';
     switch (name) {
       case 'ripple':
-        lines.push(`ripple binds: the best design without the ripple limit has ${volts(without.worstRipple, at)} of ripple; the limit is ${volts(lim.ripple!, at)}`);
+        lines.push(`ripple binds: ${which} meeting every other limit (${label}) has ${volts(without.worstRipple, at)} of ripple against ${volts(lim.ripple!, at)}; a ripple limit of ${volts(without.worstRipple, at)} would admit it`);
         break;
       case 'droop':
-        lines.push(`droop binds: the best design without the droop limit has ${volts(without.droop, at)} of droop; the limit is ${volts(lim.droop!, at)}`);
+        lines.push(`droop binds: ${which} meeting every other limit (${label}) has ${volts(without.droop, at)} of droop against ${volts(lim.droop!, at)}; a droop limit of ${volts(without.droop, at)} would admit it`);
         break;
       case 'inl':
-        lines.push(`INL binds: the best design without the INL limit has ${volts(without.inl, at)}; the limit is ${volts(lim.inl!, at)}`);
+        lines.push(`INL binds: ${which} meeting every other limit (${label}) has an INL of ${volts(without.inl, at)} against ${volts(lim.inl!, at)}; an INL limit of ${volts(without.inl, at)} would admit it`);
         break;
-      case 'gain':
-        lines.push(
-          `gain binds: the best design without the gain limit has a gain error of ${percentOf(without.gainError / (at.project.pwm.high - at.project.pwm.low))} of full scale; the limit is ${percentOf(lim.gain!)}`,
-        );
+      case 'gain': {
+        // Found without the gain limit: evaluated again against the real limits for the figure.
+        const gain = Math.abs(exactAgain(at, without).checks.find((k) => k.name === 'gain')?.value ?? NaN);
+        lines.push(`gain binds: ${which} meeting every other limit (${label}) loses ${(100 * gain).toPrecision(3)} % of full scale against ${(100 * at.project.spec.gain!).toPrecision(3)} %`);
         break;
+      }
       case 'settling':
         lines.push(
-          `settling binds: the fastest design that meets the other limits settles in ${formatEng(without.settlingTime ?? Infinity, 's')}; the limit is ${formatEng(lim.settlingTime!, 's')}`,
+          `settling binds: ${result.complete ? 'the fastest design' : 'a design'} meeting every other limit (${label}) settles in ${formatEng(without.settlingTime ?? Infinity, 's')} against ${formatEng(lim.settlingTime!, 's')}`,
         );
         break;
       case 'pin_current':
-        lines.push(`pin current binds: the best design without that limit draws ${formatEng(without.pinCurrent, 'A')}; the limit is ${formatEng(lim.pinCurrent!, 'A')}`);
+        lines.push(`pin current binds: ${which} meeting every other limit (${label}) draws ${formatEng(without.pinCurrent, 'A')} against ${formatEng(lim.pinCurrent!, 'A')}`);
         break;
     }
   }
-  if (binding.length === 0) lines.push('no single limit is to blame: with any one of them removed, still no design meets the others');
-  lines.push(...physicalReasons(base, stageCounts, volts));
+  if (binding.length === 0 && allComplete && names.length > 1) lines.push('no single limit is to blame: with any one of them removed, still no design meets the others');
 
+  // (3) Nearest changes that work.
+  const fixes = nearestFixes(project, problems, stageCounts, () => part(budgets.perFix));
+  lines.push(...fixes.map((f) => f.line));
+
+  // (4) Closest designs.
   let closest: Candidate[] = [];
   for (const k of RELAX) {
-    const found = solveAll(relaxProject(project, names, k), CLOSEST);
+    const found = solveAll(relaxProject(project, names, k), CLOSEST, closestBudget).designs;
     if (found.length > 0) {
-      closest = found.map((c) => recheck(problems.find((p) => p.bits === c.bits) ?? base, c));
+      // Evaluated again against the real limits (recheck.ts keeps no gain error, so not it).
+      closest = found.map((c) => exactAgain(problemOf(c), c));
       lines.push(`the closest designs below meet every limit relaxed ${k}-fold`);
       break;
     }
   }
-  if (closest.length === 0 && names.length > 0) lines.push(`even with every limit relaxed ${RELAX[RELAX.length - 1]}-fold no design works: check the ranges in search:`);
-  return { lines, closest, binding };
-}
-
-const percentOf = (x: number) => `${Number((Math.abs(x) * 100).toPrecision(3))} %`;
-
-/** Statements from the circuit alone (no search): pin current, droop, gain, one-stage ripple. */
-function physicalReasons(p: DesignProblem, stageCounts: number[], volts: (v: number) => string): string[] {
-  const out: string[] = [];
-  const { pwm, load } = p.project;
-  const span = Math.abs(pwm.high - pwm.low);
-  const dMin = Math.min(pwm.driver.high, pwm.driver.low);
-  const rMin = p.rValues[0];
-  const rMax = p.rValues[p.rValues.length - 1];
-  const cMax = p.cValues[p.cValues.length - 1];
-  const ohm = (r: number) => formatEng(r, 'Ω');
-  let r1Min = rMin;
-  if (p.limits.pinCurrent !== undefined) {
-    const need = span / p.limits.pinCurrent - dMin;
-    if (need > rMax) {
-      out.push(
-        `pin current ${formatEng(p.limits.pinCurrent, 'A')} needs R1 >= ${ohm(need)} (${formatEng(span, 'V')} / ${formatEng(p.limits.pinCurrent, 'A')} less the ${ohm(dMin)} driver); the largest resistor allowed is ${ohm(rMax)}`,
-      );
-    }
-    r1Min = Math.max(rMin, need);
-  }
-  let seriesMax = Infinity;
-  if (p.limits.droop !== undefined && load.resistance !== undefined && pwm.low >= 0 && pwm.driver.high >= pwm.driver.low) {
-    const ideal = Math.max(pwm.low + p.dutyMin * (pwm.high - pwm.low), pwm.low + p.dutyMax * (pwm.high - pwm.low));
-    if (ideal > p.limits.droop) {
-      seriesMax = (load.resistance * p.limits.droop) / (ideal - p.limits.droop);
-      const fewest = Math.min(...stageCounts);
-      const smallest = pwm.driver.low + r1Min + (fewest - 1) * rMin;
-      if (smallest > seriesMax) {
-        out.push(
-          `droop ${volts(p.limits.droop)} with the ${ohm(load.resistance)} load allows at most ${ohm(seriesMax)} in series (driver included); the smallest ${fewest}-stage ladder in the range has ${ohm(smallest)}`,
-        );
-      }
-    }
-  }
-  if (p.limits.gain !== undefined && load.resistance !== undefined && !p.buffered) {
-    // The DC divider of series resistance and load (gainFloor.ts), for the smallest ladder allowed.
-    const fewest = Math.min(...stageCounts);
-    const rs = [r1Min, ...new Array<number>(fewest - 1).fill(rMin)];
-    const floor = gainFloor(p.circuit, rs, p.dutyMin, p.dutyMax);
-    if (floor > p.searchLimits.gain!) {
-      const limit = `gain error ${percentOf(p.limits.gain)}${p.margin > 0 ? ` (less the ${percentOf(p.margin)} margin)` : ''} with the ${ohm(load.resistance)} load`;
-      const smallest = Math.min(pwm.driver.high, pwm.driver.low) + rs.reduce((a, b) => a + b, 0);
-      const follower = (p.project.search?.buffered ?? []).includes(true) ? '' : '; a follower after the last stage (search.buffered: [false, true]) isolates the load';
-      out.push(
-        pwm.driver.high === pwm.driver.low
-          ? `${limit} allows at most ${ohm((load.resistance * p.searchLimits.gain!) / (1 - p.searchLimits.gain!))} in series (driver included); the smallest ${fewest}-stage ladder in the range has ${ohm(smallest)}${follower}`
-          : `${limit}: the smallest ${fewest}-stage ladder in the range (${ohm(smallest)} in series, driver included) loses at least ${percentOf(floor)} of full scale${follower}`,
-      );
-    }
-  }
-  if (p.limits.ripple !== undefined) {
-    const d = Math.min(p.dutyMax, Math.max(p.dutyMin, 0.5));
-    const tauNeed = timeConstantFor(p.limits.ripple, span, d, p.period);
-    const rBest = Math.min(rMax, seriesMax - Math.max(pwm.driver.high, pwm.driver.low));
-    const rEff = load.resistance === undefined ? rBest + dMin : ((rBest + dMin) * load.resistance) / (rBest + dMin + load.resistance);
-    const tauHave = rBest > 0 ? rEff * (cMax + load.capacitance) : 0;
-    if (tauNeed > tauHave) {
-      out.push(
-        `ripple ${volts(p.limits.ripple)} needs a time constant of about ${formatEng(tauNeed, 's')} with one stage at ${formatEng(p.frequency, 'Hz')}; the largest R and C allowed give ${formatEng(tauHave, 's')}`,
-      );
-    }
-  }
-  return out;
+  if (closest.length === 0 && names.length > 0) lines.push(`no design found with every limit relaxed up to ${RELAX[RELAX.length - 1]}-fold: check the ranges in search:`);
+  if (spent.some((b) => b.left <= 0)) lines.push('(the side searches behind this explanation stopped at their budget; changes not listed were not proven either way)');
+  return { lines, closest, binding, fixes, proven };
 }
 
 /** The one-stage time constant whose ripple at duty d equals `ripple` (bisection in log tau). */
@@ -189,4 +182,9 @@ function timeConstantFor(ripple: number, span: number, d: number, period: number
     else hi = mid;
   }
   return hi;
+}
+
+/** A design the exact engine evaluates again under a problem's limits (same circuit). */
+function exactAgain(problem: DesignProblem, c: Candidate): Candidate {
+  return exactCandidate(problem, problem.ladderOf(c.stages.map((s) => s.r), c.stages.map((s) => s.c)));
 }

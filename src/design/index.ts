@@ -8,3 +8,6 @@ export { tradeoffCurves, type TradeoffCurve, type TradeoffPoint } from './tradeo
 export { explainInfeasible } from './explainInfeasible.js';
 export { DesignInputError } from './designInputError.js';
 export type * from './types.js';
+export { infeasibilityBounds, type ProvenMiss, type SpaceBounds } from './infeasibilityBounds.js';
+export { nearestFixes, type NearestFix, type FixKind } from './nearestFix.js';
+export { boundedSearch, type SearchBudget } from './boundedSearch.js';

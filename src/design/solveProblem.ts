@@ -1,6 +1,7 @@
 import { collectCandidates, keyOf, newCollectState, REL, type FastEntry } from './collectCandidates.js';
 import type { DesignProblem } from './designProblem.js';
 import { exactCandidate } from './exactCandidate.js';
+import { dcTransferMiss } from './fast/dcTransferMiss.js';
 import { fastLadderOf } from './fast/fastLadder.js';
 import { fastSteadyState } from './fast/fastSteadyState.js';
 import { maximizeOverDuty } from './fast/maximizeOverDuty.js';
@@ -18,6 +19,21 @@ export interface ProblemOutcome {
   verified: number;
   /** Candidates in the discrete space over the problem's stage counts. */
   space: number;
+  /** False when a budget stopped the walk: `feasible` is then true but not proven the best. */
+  complete: boolean;
+}
+
+/** What solveProblem reports while it walks (for a progress line). */
+export interface ProblemProgress {
+  /** Stage count being walked. */
+  stages: number;
+  /** Best fast settling estimate among candidates that pass every fast check so far, s (null: none yet). */
+  best: number | null;
+}
+
+export interface SolveOptions {
+  /** Largest number of fast evaluations before the walk stops (side searches of explanations). */
+  budget?: number;
 }
 
 /** Growth of theta per extra collection round when the walk's threshold proved too low. */
@@ -37,20 +53,27 @@ const WIDEN = 2;
  * than `top` designs are known, up to the settling-time limit), until t_N <= theta: no pruning
  * rests on a wrong threshold.
  *
- * Syntax: solveProblem(problem, top[, stageCounts][, onProgress])
+ * With options.budget the walk stops after that many fast evaluations (complete: false): designs
+ * found are engine-verified and feasible, but an empty answer then proves nothing.
+ *
+ * Syntax: solveProblem(problem, top[, stageCounts][, onProgress][, { budget }])
  * Example: solveProblem(designProblem(p), 10).feasible[0].settlingTime   // s
  */
 export function solveProblem(
   problem: DesignProblem,
   top: number,
   stageCounts: number[] = problem.stageCounts,
-  onProgress?: (fraction: number) => void,
+  onProgress?: (fraction: number, detail?: ProblemProgress) => void,
+  options: SolveOptions = {},
 ): ProblemOutcome {
   const state = newCollectState(problem, top);
+  if (options.budget !== undefined) state.budget = options.budget;
   const cap = state.theta; // the settling-time limit (or Infinity) before any lowering
   const collectAll = () => {
     stageCounts.forEach((n, i) =>
-      collectCandidates(problem, n, state, (done, total) => onProgress?.((i + done / Math.max(1, total)) / stageCounts.length)),
+      collectCandidates(problem, n, state, (done, total) =>
+        onProgress?.((i + done / Math.max(1, total)) / stageCounts.length, { stages: n, best: state.best[0] ?? null }),
+      ),
     );
   };
   collectAll();
@@ -72,7 +95,8 @@ export function solveProblem(
           continue;
         }
       }
-      if (droopExceeds(problem, e.r, e.c)) {
+      const at = fastPoint(problem, e.r, e.c);
+      if (droopExceeds(problem, e.r, e.c) || dcTransferMiss(problem, (d) => at(d).average) !== null) {
         e.ruledOut = true;
         continue;
       }
@@ -86,7 +110,7 @@ export function solveProblem(
       }
     }
     const thetaUsed = state.theta;
-    if (tN * (1 + 10 * SETTLING_TIE) <= thetaUsed || thetaUsed >= cap) break;
+    if (tN * (1 + 10 * SETTLING_TIE) <= thetaUsed || thetaUsed >= cap || state.cut) break;
     // The walk pruned with a threshold below the truth: walk again with a wider one.
     state.theta = Math.min(cap, tN < Infinity ? tN * (1 + REL) + 1e-12 : Math.max(thetaUsed * WIDEN, 1e-9));
     state.dynamic = false;
@@ -96,7 +120,7 @@ export function solveProblem(
 
   let space = 0;
   for (const n of stageCounts) space += (problem.rValues.length * problem.cValues.length) ** n;
-  return { feasible: ranked, failing, evaluated: state.evaluated, verified: verified.size, space };
+  return { feasible: ranked, failing, evaluated: state.evaluated, verified: verified.size, space, complete: !state.cut };
 }
 
 /** Fast steady state (ripple, average) of a candidate at a duty: scalar code for two stages. */

@@ -1,5 +1,7 @@
 /** Types of the design search (`dacsmith design`). SI base units throughout (V, s, Hz, ohm, F, A). */
 import type { Check, CheckName } from '../engine/checks.js';
+import type { ProvenMiss } from './infeasibilityBounds.js';
+import type { NearestFix } from './nearestFix.js';
 
 /** One stage of a proposed filter. */
 export interface CandidateStage {
@@ -88,6 +90,10 @@ export interface DesignResult {
   resolutions: ResolutionRow[];
   /** When nothing is feasible: what binds, in words, one line each. */
   diagnosis: string[];
+  /** When nothing is feasible: changes verified to make the project feasible (nearestFix.ts). */
+  fixes?: NearestFix[];
+  /** Limits proven out of reach before the search, per stage count (infeasibilityBounds.ts). */
+  proven?: ProvenMiss[];
   /** Limits and settings the search used (at the project's resolution). */
   basis: DesignBasis;
 }
@@ -130,10 +136,24 @@ export interface DesignOptions {
   top?: number;
   /** Stage counts to try instead of `search.stages`. */
   stageCounts?: number[];
-  /** Called now and then with the share of the work done (0..1), for a progress bar. */
-  onProgress?: (fraction: number) => void;
+  /** Called now and then with the share of the work done (0..1) and what is being done, for a progress line. */
+  onProgress?: (fraction: number, detail?: DesignProgress) => void;
   /** Also compare with the project's `filter:` design (default true). */
   compare?: boolean;
   /** Explain and show the closest designs when nothing is feasible (default true). */
   diagnose?: boolean;
+}
+
+/** What the search is doing, for a progress line. */
+export interface DesignProgress {
+  /** 'search': the ranked search; 'explain': side searches behind an explanation of an empty result; 'curves': trade-off curves. */
+  phase: 'search' | 'explain' | 'curves';
+  /** Stage count being walked (search phase). */
+  stages?: number;
+  /** Resolution being searched, when the search chooses it. */
+  bits?: number | null;
+  /** PWM frequency of that problem, Hz. */
+  frequency?: number;
+  /** Best settling time found so far (fast estimate of a design passing every fast check), s; null: none yet. */
+  best?: number | null;
 }

@@ -96,6 +96,9 @@ export function designReport(project: Project, result: DesignResult, format: Des
       space: result.stats.space,
       elapsed: result.stats.elapsed,
       diagnosis: result.diagnosis,
+      // When nothing is feasible: changes verified by a search, and limits proven out of reach.
+      fixes: (result.fixes ?? []).map((f) => ({ kind: f.kind, change: f.change, design: candidateJson(f.best) })),
+      proven: (result.proven ?? []).map((m) => ({ stages: m.stages, limit: m.limit, reach: m.reach, limitValue: m.limitValue, reason: m.reason })),
       current: result.current ? candidateJson(result.current) : null,
       resolutions: result.resolutions.map((r) => ({ ...r, best: r.best ? candidateJson(r.best) : null })),
       tradeoff: (options.tradeoff ?? []).map((c) => ({

@@ -172,7 +172,8 @@ describe('when nothing is feasible', () => {
     const r = designSearch(p, { top: 3 });
     expect(r.feasible).toBe(false);
     expect(r.diagnosis.some((l) => l.startsWith('pin current binds'))).toBe(true);
-    expect(r.diagnosis.some((l) => /needs R1 >= 33 kΩ/.test(l))).toBe(true);
+    // Ohm's law: 3.3 V / 100 uA = 33 kohm (the driver is 0 ohm here)
+    expect(r.diagnosis.some((l) => /R1 must be at least 33 kΩ/.test(l))).toBe(true);
   });
 });
 

@@ -1,0 +1,43 @@
+import type { DesignProblem } from '../designProblem.js';
+
+/** Relative allowance between the fast model and the engine (both exact; rounding differs). */
+const REL = 1e-6;
+/** Interior duties of the INL lower bound (the endpoints define the fit). */
+const GRID = 8;
+
+/**
+ * Which endpoint-fit limit of the DC transfer a candidate certainly misses, from exact averages of
+ * the fast model (`average(d)`, V): 'inl', 'gain', or null when neither is proven missed.
+ *
+ * Method: the engine's figures (engine/dcTransfer.ts) are fit = the line through average(dutyMin)
+ * and average(dutyMax); gain error = slope - (high - low), as a fraction of full scale for
+ * spec.gain; INL = the largest |average - fit| over the range. The gain error needs only the two
+ * endpoints, so the fast value is the engine's (to rounding). The INL here is the largest deviation
+ * on GRID + 1 evenly spaced duties: the maximum over the range is at least the value at any duty
+ * in it, so this is a true lower bound. With equal driver resistances the ladder is linear and
+ * time-invariant, the average is affine in the duty and INL is zero: not evaluated. A value is a
+ * miss only beyond the limit by the fast/engine rounding allowance REL.
+ *
+ * Syntax: dcTransferMiss(problem, average)
+ * Example: dcTransferMiss(problem, (d) => twoStageSteady(k, r1, c1, r2, c2, d).average)   // 'inl'
+ */
+export function dcTransferMiss(problem: DesignProblem, average: (duty: number) => number): 'inl' | 'gain' | null {
+  const { pwm, spec } = problem.project;
+  const inlLimit = problem.limits.inl;
+  const gainLimit = spec.gain;
+  const checkInl = inlLimit !== undefined && pwm.driver.high !== pwm.driver.low;
+  if (!checkInl && gainLimit === undefined) return null;
+  const { dutyMin: a, dutyMax: b } = problem;
+  const yA = average(a);
+  const yB = average(b);
+  const span = pwm.high - pwm.low;
+  const slope = b > a ? (yB - yA) / (b - a) : span;
+  if (gainLimit !== undefined && Math.abs(slope - span) / Math.abs(span) > gainLimit * (1 + REL) + 1e-12) return 'gain';
+  if (checkInl && b > a) {
+    for (let i = 1; i < GRID; i++) {
+      const d = a + ((b - a) * i) / GRID;
+      if (Math.abs(average(d) - (yA + slope * (d - a))) > inlLimit * (1 + REL) + 1e-15) return 'inl';
+    }
+  }
+  return null;
+}
