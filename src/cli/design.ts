@@ -59,13 +59,12 @@ export async function runDesign(
   if (args.write !== undefined && !args.force && fs.existsSync(args.write)) {
     return { stdout: '', stderr: `dacsmith: ${args.write} exists; use --force to overwrite it\n`, code: EXIT_BAD_INPUT };
   }
-  const [{ loadProject }, { designSearch, DesignInputError, tradeoffCurves }, { designReport }, { robustDesigns }, { ToleranceInputError }, { designProgressLine }] =
+  const [{ loadProject }, { designSearch, tradeoffCurves }, { designReport }, { robustDesigns }, { designProgressLine }] =
     await Promise.all([
       import('../project/index.js'),
       import('../design/index.js'),
       import('../report/design.js'),
       import('../design/robustDesigns.js'),
-      import('../tolerance/index.js'),
       import('../report/designProgress.js'),
     ]);
   const project = loadProject(args.file);
@@ -97,9 +96,6 @@ export async function runDesign(
         });
       }
     }
-  } catch (error) {
-    if (error instanceof DesignInputError || error instanceof ToleranceInputError) throw new UsageError(error.message);
-    throw error;
   } finally {
     bar?.done();
   }
@@ -112,7 +108,9 @@ export async function runDesign(
       const { withDesign, changeLine } = await import('../report/designYaml.js');
       const best = result.candidates[0];
       const edit = withDesign(fs.readFileSync(args.file, 'utf8'), best);
-      fs.writeFileSync(args.write, edit.text, { flag: args.force ? 'w' : 'wx' });
+      // Atomic (temporary file and rename): a full disk never leaves half a project, even when
+      // --force writes the design back over the project file itself.
+      (await import('./writeOutputFile.js')).writeOutputFile(args.write, edit.text, { force: args.force, option: '--write' });
       written = args.write;
       changes = edit.changes;
       const how = edit.method === 'rewritten' ? ' (rewritten by the YAML writer: comments and key order kept, spacing may differ)' : '';

@@ -49,7 +49,7 @@ export async function runTolerance(
   if (args.samples !== undefined && args.samples > MAX_SAMPLES) {
     throw new UsageError(`--samples ${args.samples}: at most ${MAX_SAMPLES} (as tolerance.samples in a project file)`);
   }
-  const [{ loadProject, requireFilter }, { toleranceStudy, ToleranceInputError }, { toleranceReport }, { availableParallelism }] =
+  const [{ loadProject, requireFilter }, { toleranceStudy }, { toleranceReport }, { availableParallelism }] =
     await Promise.all([
       import('../project/index.js'),
       import('../tolerance/index.js'),
@@ -68,9 +68,6 @@ export async function runTolerance(
       workers: Math.min(args.workers ?? 4, availableParallelism()),
       ...(bar ? { onProgress: bar.update } : {}),
     });
-  } catch (error) {
-    if (error instanceof ToleranceInputError) throw new UsageError(error.message);
-    throw error;
   } finally {
     bar?.clear();
   }

@@ -68,15 +68,15 @@ export interface DesignProblem {
  */
 export function designProblem(project: Project, bits?: number, buffered = false): DesignProblem {
   const search = project.search;
-  if (!search) throw new DesignInputError(`${project.file}: search: missing; add a search section (stages, series, resistance, capacitance) to design a filter`);
+  if (!search) throw new DesignInputError(`missing; add a search section (stages, series, resistance, capacitance) to design a filter`, 'search', project.file);
   const at = bits === undefined ? project : projectAtResolution(project, bits);
   const { pwm, spec } = at;
   const rValues = seriesValues(search.series.resistor, search.resistance.min, search.resistance.max);
   const cValues = seriesValues(search.series.capacitor, search.capacitance.min, search.capacitance.max);
-  if (rValues.length === 0) throw new DesignInputError(`${project.file}: search.resistance: no ${search.series.resistor} value lies in the range`);
-  if (cValues.length === 0) throw new DesignInputError(`${project.file}: search.capacitance: no ${search.series.capacitor} value lies in the range`);
+  if (rValues.length === 0) throw new DesignInputError(`no ${search.series.resistor} value lies in the range`, 'search.resistance', project.file);
+  if (cValues.length === 0) throw new DesignInputError(`no ${search.series.capacitor} value lies in the range`, 'search.capacitance', project.file);
   for (const n of search.stages) {
-    if (!Number.isInteger(n) || n < 1 || n > 3) throw new DesignInputError(`${project.file}: search.stages: ${n} is not 1, 2 or 3`);
+    if (!Number.isInteger(n) || n < 1 || n > 3) throw new DesignInputError(`${n} is not 1, 2 or 3`, 'search.stages', project.file);
   }
   const { min: dutyMin, max: dutyMax } = pwm.duty;
   const settling = spec.settling;

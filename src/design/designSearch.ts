@@ -2,6 +2,7 @@ import { ladderFromProject } from '../circuit/fromProject.js';
 import type { Project } from '../project/types.js';
 import { designProblem, type DesignProblem } from './designProblem.js';
 import { DesignInputError } from './designInputError.js';
+import { checkSearchDomain } from './checkSearchDomain.js';
 import { explainInfeasible } from './explainInfeasible.js';
 import { infeasibilityBounds } from './infeasibilityBounds.js';
 import { exactCandidate } from './exactCandidate.js';
@@ -40,6 +41,7 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
     bitsRange && project.pwm.clock !== undefined
       ? range(bitsRange.min, bitsRange.max).map((b) => designProblem(project, b))
       : [base];
+  checkSearchDomain(problems, stageCounts);
 
   // Stage counts proven out of reach at a resolution (infeasibilityBounds.ts) are not walked
   // (bestDesigns filters them per follower option: a follower removes the load the bounds use).

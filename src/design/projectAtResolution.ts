@@ -11,7 +11,7 @@ import { DesignInputError } from './designInputError.js';
  */
 export function projectAtResolution(project: Project, bits: number): Project {
   const { pwm } = project;
-  if (pwm.clock === undefined) throw new DesignInputError(`${project.file}: search.bits needs pwm.clock`);
+  if (pwm.clock === undefined) throw new DesignInputError('needs pwm.clock', 'search.bits', project.file);
   const frequency = derivePwmFrequency({ clock: pwm.clock, bits, prescaler: pwm.prescaler, alignment: pwm.alignment });
   const lsb = (pwm.high - pwm.low) / 2 ** bits;
   const inLsb = project.specInLsb ?? {};

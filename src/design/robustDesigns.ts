@@ -160,9 +160,9 @@ export function robustDesigns(project: Project, mode: RobustMode, options: Robus
  */
 export function requireRobustTolerance(project: Project, mode: RobustMode): ToleranceSettings {
   const t = project.tolerance;
-  if (!t) throw new DesignInputError(`${project.file}: tolerance: --robust ${mode} needs a tolerance block (resistor, capacitor, ...)`);
+  if (!t) throw new DesignInputError(`--robust ${mode} needs a tolerance block (resistor, capacitor, ...)`, 'tolerance', project.file);
   if (mode === 'yield' && t.yield === undefined) {
-    throw new DesignInputError(`${project.file}: tolerance.yield: --robust yield needs a yield target (e.g. yield: 99 %)`);
+    throw new DesignInputError(`--robust yield needs a yield target (e.g. yield: 99 %)`, 'tolerance.yield', project.file);
   }
   return t;
 }

@@ -127,7 +127,7 @@ export function monteCarloResult(setup: MonteCarloSetup, table: SampleTable): Mo
 
 /** The project's tolerance block, or a clear error naming the missing key. */
 export function requireTolerance(project: Project): ToleranceSettings {
-  if (!project.tolerance) throw new ToleranceInputError(`${project.file}: tolerance: the project has no tolerance block`);
+  if (!project.tolerance) throw new ToleranceInputError(`the project has no tolerance block`, 'tolerance', project.file);
   return project.tolerance;
 }
 

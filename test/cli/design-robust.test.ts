@@ -78,7 +78,7 @@ describe('dacsmith design --robust (built bin)', () => {
     const r = dacsmith('design', f, '--robust', 'worst-case');
     expect(r.code).toBe(2);
     expect(r.stdout).toBe('');
-    expect(r.stderr).toMatch(/plain\.yaml: tolerance: --robust worst-case needs a tolerance block/);
+    expect(r.stderr).toMatch(/plain\.yaml(:\d+:\d+)?: tolerance: --robust worst-case needs a tolerance block/);
     const g = file('noyield.yaml', BASE + 'tolerance: { resistor: 1 %, capacitor: 10 % }\n');
     const y = dacsmith('design', g, '--robust', 'yield');
     expect(y.code).toBe(2);

@@ -4,6 +4,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runDesign, type DesignArgs } from '../../src/cli/design.js';
 import { UsageError } from '../../src/cli/errors.js';
+import { InputError } from '../../src/units/index.js';
 import { parseProject } from '../../src/project/index.js';
 
 const yaml = `# invented scenario
@@ -66,6 +67,8 @@ describe('dacsmith design (runDesign)', () => {
   it('a project without a search section is bad input', async () => {
     const bare = join(dir, 'bare.yaml');
     writeFileSync(bare, 'pwm: { frequency: 20 kHz, high: 3.3 V, low: 0 V }\nfilter:\n  stages:\n    - { r: 1k, c: 1u }\n');
-    await expect(runDesign(args({ file: bare }), { color: false })).rejects.toBeInstanceOf(UsageError);
+    // an input error (exit 2) that names the file and the key; the shell adds the line
+    await expect(runDesign(args({ file: bare }), { color: false })).rejects.toMatchObject({ key: 'search', file: bare });
+    await expect(runDesign(args({ file: bare }), { color: false })).rejects.toBeInstanceOf(InputError);
   });
 });
