@@ -26,9 +26,11 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean }): Pr
   if (args.git === undefined && args.head === undefined) {
     throw new UsageError('compare needs two files (BASE HEAD), or one file and --git REF');
   }
-  const [{ loadProject, parseProject, requireFilter }, { analyzeProject }, { compareReport }] = await Promise.all([
+  const [{ loadProject, parseProject, requireFilter }, { analyzeProject }, { compareOverlays }, { CHART_COLUMNS }, { compareReport }] = await Promise.all([
     import('../project/index.js'),
     import('../engine/analyze.js'),
+    import('../engine/compareOverlays.js'),
+    import('../engine/chartSeries.js'),
     import('../report/compare.js'),
   ]);
 
@@ -54,14 +56,17 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean }): Pr
   }
   const headLabel = args.head ?? args.base;
   const headAnalysis = analyzeProject(head);
-  const stdout = args.quiet
-    ? ''
-    : compareReport(
-        { label: baseLabel, project: base, analysis: analyzeProject(base) },
-        { label: headLabel, project: head, analysis: headAnalysis },
-        args.format,
-        { color: tty.color },
-      );
+  let stdout = '';
+  if (!args.quiet) {
+    const baseAnalysis = analyzeProject(base);
+    stdout = compareReport(
+      { label: baseLabel, project: base, analysis: baseAnalysis },
+      { label: headLabel, project: head, analysis: headAnalysis },
+      compareOverlays(baseAnalysis, headAnalysis, CHART_COLUMNS),
+      args.format,
+      { color: tty.color },
+    );
+  }
   return { stdout, stderr: '', code: headAnalysis.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
 }
 
