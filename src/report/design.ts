@@ -71,7 +71,8 @@ function candidateJson(c: Candidate) {
  * The design result as text (terminal), GitHub-flavoured Markdown, or one JSON object (model.md:
  * `candidates` best first, each { stages: [{ r, c }], worstRipple, settlingTime, droop, pass } and
  * more; `evaluated`; with `robust`, `robust: { mode, scanned, candidates: [{ nominalRank, worstCase |
- * yield }] }`; all numbers SI, null for never / unknown).
+ * yield }] }`; all numbers SI, null for never / unknown). The JSON holds no wall time, so two
+ * identical runs print identical JSON; the text and Markdown reports state the search time.
  *
  * Syntax: designReport(project, result, format[, { tradeoff, color, written }])
  * Example: JSON.parse(designReport(p, designSearch(p), 'json')).candidates[0].settlingTime
@@ -84,7 +85,6 @@ export function designReport(project: Project, result: DesignResult, format: Des
       evaluated: result.stats.evaluated,
       verified: result.stats.verified,
       space: result.stats.space,
-      elapsed: result.stats.elapsed,
       diagnosis: result.diagnosis,
       current: result.current ? candidateJson(result.current) : null,
       resolutions: result.resolutions.map((r) => ({ ...r, best: r.best ? candidateJson(r.best) : null })),
