@@ -3,6 +3,7 @@ import type { Analysis } from './analyze.js';
 import type { CompareOverlays, Overlay, Waveform } from './types.js';
 import { checkCount } from './checkArguments.js';
 import { steadyWaveform } from './steadyWaveform.js';
+import { stepRecordDuration } from './stepRecordDuration.js';
 import { stepWaveform } from './stepWaveform.js';
 
 /** Linear interpolation of a sampled waveform at time t (held flat beyond its ends). */
@@ -34,16 +35,13 @@ function steadySide(ladder: Ladder, duty: number, t: number[], window: number, c
   return t.map((x) => valueAt(wave, x) - ideal);
 }
 
-/** Length of a step record for one side: 1.25 x its settling time, or 8 x its summed time constants. */
-const stepLength = (a: Analysis) =>
-  a.settling.time !== null ? 1.25 * a.settling.time : 8 * a.timeConstants.reduce((x, y) => x + y, 0);
-
 /**
  * The two overlays `compare` draws, base and head on one shared time grid of `columns` instants:
  * (1) both steady states at the head's worst-ripple duty over two periods of the slower PWM, as
  * output minus ideal (ideal = low + D (high - low)), so that ripple and DC error both show;
  * (2) both responses to the head's settling step, output in V, over a time long enough for the
- * slower (1.25 x its settling time, or 8 x its summed time constants; at least 4 periods).
+ * slower (stepRecordDuration.ts: 1.25 x its settling time, or 8 x its summed time constants; at
+ * least 4 periods).
  *
  * Method: exact engine waveforms (steadyWaveform.ts, stepWaveform.ts); the steady states are
  * sampled densely per period and read on the grid by linear interpolation (exact whenever the
@@ -67,7 +65,7 @@ export function compareOverlays(base: Analysis, head: Analysis, columns: number)
     head: steadySide(head.ladder, duty, tSteady, window, columns),
   };
 
-  const duration = Math.max(4 * Math.max(base.ladder.period, head.ladder.period), stepLength(base), stepLength(head));
+  const duration = Math.max(stepRecordDuration(base), stepRecordDuration(head));
   const tStep = grid(duration, columns);
   // stepWaveform samples exactly the grid instants i duration / (columns - 1): nothing to interpolate.
   const stepSide = (l: Ladder) => stepWaveform(l, from, to, duration, columns).v;
