@@ -37,18 +37,30 @@ export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean; colum
   ]);
   const project = requireFilter(loadProject(args.file), 'analyze');
   const analysis = analyzeProject(project, duties ? { duties } : {});
+  // Chart series only for a report that draws them (JSON and --no-charts skip their cost).
+  const charts =
+    args.format !== 'json' && args.charts && !args.quiet
+      ? (await import('../engine/chartSeries.js')).chartSeries(analysis, project.pwm.duty, {
+          // one sample per plot column; the text report's columns follow its width
+          ...(args.format === 'text' && { columns: (await import('../report/charts.js')).chartColumns(width) }),
+        })
+      : undefined;
   let stdout: string;
   if (args.format === 'json') {
     stdout = (await import('../report/json.js')).jsonReport(project, analysis);
   } else if (args.format === 'markdown') {
-    stdout = (await import('../report/markdown.js')).markdownReport(project, analysis, { charts: args.charts });
+    stdout = (await import('../report/markdown.js')).markdownReport(project, analysis, charts ? { charts } : {});
   } else {
-    stdout = (await import('../report/text.js')).textReport(project, analysis, { charts: args.charts, color: tty.color, width });
+    stdout = (await import('../report/text.js')).textReport(project, analysis, { ...(charts ? { charts } : {}), color: tty.color, width });
   }
   let stderr = '';
   if (args.csv !== undefined) {
-    const [{ writeOutputFile }, { waveformCsv }] = await Promise.all([import('./writeOutputFile.js'), import('../report/csv.js')]);
-    writeOutputFile(args.csv, waveformCsv(analysis), { force: args.force ?? false, inputs: [args.file], option: '--csv' });
+    const [{ writeOutputFile }, { waveformCsv }, { waveformRecords }] = await Promise.all([
+      import('./writeOutputFile.js'),
+      import('../report/csv.js'),
+      import('../engine/waveformRecords.js'),
+    ]);
+    writeOutputFile(args.csv, waveformCsv(waveformRecords(analysis)), { force: args.force ?? false, inputs: [args.file], option: '--csv' });
     stderr = `waveforms written to ${args.csv}\n`;
   }
   return { stdout: args.quiet ? '' : stdout, stderr, code: analysis.pass ? EXIT_PASS : EXIT_SPEC_FAILS };

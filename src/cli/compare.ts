@@ -29,9 +29,10 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean; colum
   if (args.git === undefined && args.head === undefined) {
     throw new UsageError('compare needs two files (BASE HEAD), or one file and --git REF');
   }
-  const [{ loadProject, parseProject, requireFilter }, { analyzeProject }, { compareReport }] = await Promise.all([
+  const [{ loadProject, parseProject, requireFilter }, { analyzeProject }, { compareOverlays }, { compareReport, overlayColumns }] = await Promise.all([
     import('../project/index.js'),
     import('../engine/analyze.js'),
+    import('../engine/compareOverlays.js'),
     import('../report/compare.js'),
   ]);
 
@@ -57,14 +58,17 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean; colum
   }
   const headLabel = args.head ?? args.base;
   const headAnalysis = analyzeProject(head);
-  const stdout = args.quiet
-    ? ''
-    : compareReport(
-        { label: baseLabel, project: base, analysis: analyzeProject(base) },
-        { label: headLabel, project: head, analysis: headAnalysis },
-        args.format,
-        { color: tty.color, width },
-      );
+  let stdout = '';
+  if (!args.quiet) {
+    const baseAnalysis = analyzeProject(base);
+    stdout = compareReport(
+      { label: baseLabel, project: base, analysis: baseAnalysis },
+      { label: headLabel, project: head, analysis: headAnalysis },
+      compareOverlays(baseAnalysis, headAnalysis, args.format === 'text' ? overlayColumns(width) : 72),
+      args.format,
+      { color: tty.color, width },
+    );
+  }
   return { stdout, stderr: '', code: headAnalysis.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
 }
 

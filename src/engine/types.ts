@@ -45,3 +45,76 @@ export interface Waveform {
   t: number[];
   v: number[];
 }
+
+/** Periodic steady state at one duty, sampled: the output `wave` (V) and its time average. */
+export interface SteadyRecord {
+  duty: number;
+  /** Time average of the output, V. */
+  average: number;
+  /** t from a rising edge, s; v the output, V. */
+  wave: Waveform;
+}
+
+/** The settling step as a record: waveform plus what it should settle to. */
+export interface StepRecord {
+  /** t from the step, s; v the output, V. */
+  wave: Waveform;
+  from: number;
+  to: number;
+  /** Steady-state average at `to`, V. */
+  final: number;
+  /** Half-width of the settling band, V. */
+  band: number;
+  /** Settling time, s after the step, or null when the output never settles. */
+  time: number | null;
+}
+
+/** Magnitude response relative to DC on a log-spaced frequency grid. */
+export interface MagnitudeSeries {
+  /** Hz, log-spaced, increasing. */
+  frequency: number[];
+  /** 20 log10 |H(j 2 pi f)| / |H(0)|, dB (0 at DC, negative above the cutoff). */
+  gainDb: number[];
+  /** -3 dB frequency, Hz. */
+  cutoff: number;
+  /** PWM frequency 1 / period, Hz. */
+  pwmFrequency: number;
+}
+
+/** DC error across duties, V, signed ideal minus average (README "Sign convention"). */
+export interface DcErrorSeries {
+  duty: number[];
+  error: number[];
+}
+
+/** Every series the analysis charts draw, one sample per plot column where the chart is a line. */
+export interface ChartSeries {
+  /** Plot columns the series were computed for. */
+  columns: number;
+  /** Two periods at the worst-ripple duty; `deviation` = output - average, V. */
+  steady: { duty: number; average: number; t: number[]; deviation: number[] };
+  step: StepRecord;
+  magnitude: MagnitudeSeries;
+  dcError: DcErrorSeries;
+}
+
+/** Base and head on one shared time grid (compare's overlay charts), V. */
+export interface Overlay {
+  t: number[];
+  base: number[];
+  head: number[];
+}
+
+/** The overlays `compare` draws: steady states (output minus ideal) and step responses (output). */
+export interface CompareOverlays {
+  /** At the head's worst-ripple duty, two periods of the slower PWM; output minus ideal, V. */
+  steady: Overlay & { duty: number };
+  /** The head's settling step; output, V. */
+  step: Overlay & { from: number; to: number };
+}
+
+/** The waveforms `analyze --csv` writes: the steady state at the worst-ripple duty and the settling step. */
+export interface WaveformRecords {
+  steady: SteadyRecord;
+  step: StepRecord;
+}

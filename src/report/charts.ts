@@ -1,16 +1,26 @@
 import type { Analysis } from '../engine/analyze.js';
-import { magnitude, steadyState } from '../engine/index.js';
-import type { Waveform } from '../engine/types.js';
+import type { ChartSeries, Waveform } from '../engine/types.js';
 import { formatEng } from '../units/index.js';
 import { lineChart } from './lineChart.js';
 import { tidy } from './quantities.js';
 import { textWidth } from './wrapText.js';
-import { stepRecord, worstRippleWave } from './waveforms.js';
 
 /** Plot columns per chart at most (fewer on a narrow terminal). */
 const COLUMNS = 72;
-/** Room the y labels and the axis take left of the plot, columns (a first guess; checked after drawing). */
+/** Room the y labels and the axis take left of the plot, columns. */
 const LABEL_ROOM = 12;
+
+/**
+ * Plot columns for a report of `width` columns: as many as the width leaves beside the y labels,
+ * at most 72, at least 16. The shell passes it to the engine's chartSeries, so that every series
+ * has one sample per plot column.
+ *
+ * Syntax: chartColumns(width)
+ * Example: chartColumns(80)   // 68
+ */
+export function chartColumns(width: number): number {
+  return Math.max(16, Math.min(COLUMNS, width - LABEL_ROOM));
+}
 
 export interface Chart {
   title: string;
@@ -63,46 +73,30 @@ export function envelope(wave: Waveform, columns: number): { lower: number[]; up
  * The report's charts: (a) steady-state output over two periods at the worst-ripple duty, (b) the
  * settling step with its band and settling instant, in full and near the final value, (c) the
  * magnitude response against log frequency with cutoff and PWM frequency, (d) the DC error across
- * the used duty range. All data come from the engine.
+ * the used duty range. Formats only: every series comes from the engine (chartSeries.ts), one sample
+ * per plot column (the step record is reduced to its per-column envelope here).
  *
- * Each plot takes as many columns as the width leaves beside its y labels (at most 72); a chart
- * that still comes out too wide is drawn again with fewer columns.
+ * Each plot has one column per sample of its series (chartColumns(width) when the shell sized
+ * them); titles and legends wrap at the width.
  *
- * Syntax: reportCharts(analysis, dutyRange[, { colors, height, width }])
- * Example: reportCharts(a, p.pwm.duty).map((c) => c.title)
+ * Syntax: reportCharts(analysis, series[, { colors, height, width }])
+ * Example: reportCharts(a, chartSeries(a, p.pwm.duty, { columns: chartColumns(80) })).map((c) => c.title)
  */
-export function reportCharts(
-  analysis: Analysis,
-  dutyRange: { min: number; max: number },
-  options: ChartOptions = {},
-): Chart[] {
+export function reportCharts(analysis: Analysis, series: ChartSeries, options: ChartOptions = {}): Chart[] {
   const width = options.width ?? 80;
-  const first = Math.max(16, Math.min(COLUMNS, width - LABEL_ROOM));
-  const charts = drawCharts(analysis, dutyRange, options, first, width);
-  const widest = Math.max(...charts.flatMap((c) => c.body.split('\n').map(textWidth)));
-  return widest <= width || first <= 16 ? charts : drawCharts(analysis, dutyRange, options, Math.max(16, first - (widest - width)), width);
-}
-
-function drawCharts(
-  analysis: Analysis,
-  dutyRange: { min: number; max: number },
-  options: ChartOptions,
-  columns: number,
-  width: number,
-): Chart[] {
   const height = options.height ?? 10;
   const colors = options.colors;
   const { ladder, lsb } = analysis;
-  const period = ladder.period;
+  const columns = series.columns;
   const charts: Chart[] = [];
 
   // (a) Steady state: deviation from the average, so the ripple fills the chart.
-  const wDuty = analysis.worstRipple.duty;
-  const steady = worstRippleWave(analysis, Math.round(columns / 2));
-  const avg = tidy(steadyState(ladder, wDuty).average, ladder.high - ladder.low);
+  const steady = series.steady;
+  const wDuty = steady.duty;
+  const avg = tidy(steady.average, ladder.high - ladder.low);
   charts.push({
     title: `Output minus its average (${formatEng(avg, 'V', 5)}) over two PWM periods at duty ${pct(wDuty)} (worst ripple)`,
-    body: lineChart([steady.v.map((v) => v - avg)], {
+    body: lineChart([steady.deviation], {
       height,
       yUnit: 'V',
       minSpan: 1e-6,
@@ -113,7 +107,7 @@ function drawCharts(
   });
 
   // (b) Settling step: envelope of the record, band lines, settling instant.
-  const step = stepRecord(analysis);
+  const step = series.step;
   const { lower, upper } = envelope(step.wave, columns);
   const bandLabel = `band ±${formatEng(step.band, 'V', 3)} around the final value`;
   const levels = [
@@ -149,19 +143,18 @@ function drawCharts(
   });
 
   // (c) Magnitude response on a log frequency axis.
-  const fPwm = 1 / period;
-  const fLo = Math.min(analysis.cutoff, fPwm) / 100;
-  const fHi = Math.max(analysis.cutoff, fPwm) * 10;
-  const freqs = Array.from({ length: columns }, (_, i) => fLo * (fHi / fLo) ** (i / (columns - 1)));
+  const { frequency: freqs, gainDb, cutoff, pwmFrequency: fPwm } = series.magnitude;
+  const fLo = freqs[0];
+  const fHi = freqs[freqs.length - 1];
   charts.push({
     title: 'Magnitude response relative to DC (dB) against log frequency',
-    body: lineChart([freqs.map((f) => 20 * Math.log10(magnitude(ladder, f)))], {
+    body: lineChart([gainDb], {
       height,
       yUnit: 'dB',
       yPrefixed: false,
       x: { start: fLo, end: fHi, unit: 'Hz', log: true },
       markers: [
-        { x: analysis.cutoff, symbol: 'c', label: `cutoff ${formatEng(analysis.cutoff, 'Hz', 3)}` },
+        { x: cutoff, symbol: 'c', label: `cutoff ${formatEng(cutoff, 'Hz', 3)}` },
         { x: fPwm, symbol: 'P', label: `PWM frequency ${formatEng(fPwm, 'Hz', 3)}: gain ${(-analysis.attenuation).toFixed(1)} dB` },
       ],
       colors,
@@ -170,9 +163,9 @@ function drawCharts(
   });
 
   // (d) DC error across the used duty range.
-  const { min: dMin, max: dMax } = dutyRange;
-  const duties = Array.from({ length: columns }, (_, i) => dMin + ((dMax - dMin) * i) / (columns - 1));
-  const errors = duties.map((d) => ladder.low + d * (ladder.high - ladder.low) - steadyState(ladder, d).average);
+  const { duty: duties, error: errors } = series.dcError;
+  const dMin = duties[0];
+  const dMax = duties[duties.length - 1];
   const inLsb = lsb !== null;
   charts.push({
     title: `DC error (ideal - average) across the used duty range, ${inLsb ? 'LSB' : 'V'}`,

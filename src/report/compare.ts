@@ -1,7 +1,6 @@
 import { plot } from 'asciichart';
 import type { Analysis } from '../engine/analyze.js';
-import { stepWaveform, steadyWaveform } from '../engine/index.js';
-import type { Waveform } from '../engine/types.js';
+import type { CompareOverlays, Overlay } from '../engine/types.js';
 import type { Project } from '../project/types.js';
 import { formatEng } from '../units/index.js';
 import { axisFormatter } from './axis.js';
@@ -22,8 +21,6 @@ export type CompareFormat = 'text' | 'markdown' | 'json';
 export interface CompareOptions {
   /** ANSI colour in the text format (default false). */
   color?: boolean;
-  /** Plot columns per chart (default 72). */
-  columns?: number;
   /** Plot rows per chart (default 12). */
   height?: number;
   /** Text: the widest line, columns (default 80); charts take what it leaves beside their labels. */
@@ -67,12 +64,6 @@ interface CheckRow {
   base: CheckSide | null;
   head: CheckSide | null;
   status: CheckStatus;
-}
-
-interface Overlay {
-  t: number[];
-  base: number[];
-  head: number[];
 }
 
 // ---------------------------------------------------------------- inputs
@@ -167,61 +158,6 @@ function checkRows(base: Analysis, head: Analysis): CheckRow[] {
     else status = h.pass ? 'now passes' : 'still fails';
     return { name, unit: (h ?? b)!.unit, base: side(b), head: side(h), status };
   });
-}
-
-// ---------------------------------------------------------------- waveforms
-
-/** Linear interpolation of a sampled waveform at time t (held flat beyond its ends). */
-function valueAt(w: Waveform, t: number): number {
-  const { t: ts, v } = w;
-  if (t <= ts[0]) return v[0];
-  if (t >= ts[ts.length - 1]) return v[v.length - 1];
-  let lo = 0;
-  let hi = ts.length - 1;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (ts[mid] <= t) lo = mid;
-    else hi = mid;
-  }
-  const f = (t - ts[lo]) / (ts[hi] - ts[lo] || 1);
-  return v[lo] + f * (v[hi] - v[lo]);
-}
-
-const grid = (end: number, n: number) => Array.from({ length: n }, (_, i) => (end * i) / (n - 1));
-
-/**
- * Both steady states at the same duty over the same window (two periods of the slower PWM),
- * as output minus ideal output, so that ripple and DC error both show.
- */
-function steadyOverlay(base: CompareSide, head: CompareSide, duty: number, columns: number): Overlay {
-  const window = 2 * Math.max(base.analysis.ladder.period, head.analysis.ladder.period);
-  const t = grid(window, columns);
-  const side = (s: CompareSide) => {
-    const { ladder } = s.analysis;
-    const periods = Math.max(1, Math.ceil(window / ladder.period - 1e-9));
-    // A multiple of (columns - 1) samples per period puts every grid instant on a sample
-    // whenever the window holds a whole number of this side's periods (then nothing is interpolated).
-    const m = Math.max(1, Math.min(Math.ceil(200 / (columns - 1)), Math.floor(20_000 / (periods * (columns - 1)))));
-    const perPeriod = (columns - 1) * m;
-    const wave = steadyWaveform(ladder, duty, periods, perPeriod);
-    const ideal = ladder.low + duty * (ladder.high - ladder.low);
-    return t.map((x) => valueAt(wave, x) - ideal);
-  };
-  return { t, base: side(base), head: side(head) };
-}
-
-/** Both step responses for the same duty step over the same time, long enough for the slower. */
-function stepOverlay(base: CompareSide, head: CompareSide, from: number, to: number, columns: number): Overlay {
-  const length = (a: Analysis) =>
-    a.settling.time !== null ? 1.25 * a.settling.time : 8 * a.timeConstants.reduce((x, y) => x + y, 0);
-  const period = Math.max(base.analysis.ladder.period, head.analysis.ladder.period);
-  const duration = Math.max(4 * period, length(base.analysis), length(head.analysis));
-  const t = grid(duration, columns);
-  const side = (s: CompareSide) => {
-    const wave = stepWaveform(s.analysis.ladder, from, to, duration, columns);
-    return t.map((x) => valueAt(wave, x));
-  };
-  return { t, base: side(base), head: side(head) };
 }
 
 // asciichart symbols: axis (2), unused (2), then the line glyphs. The head is drawn with heavy
@@ -348,6 +284,17 @@ function verdictText(checks: CheckRow[], headPass: boolean, inputsChanged: numbe
 // ---------------------------------------------------------------- main
 
 /**
+ * Plot columns of the overlay charts for a report of `width` columns: what the width leaves beside
+ * the y labels and the legend's indent, at most 72, at least 16.
+ *
+ * Syntax: overlayColumns(width)
+ * Example: overlayColumns(80)   // 66
+ */
+export function overlayColumns(width: number): number {
+  return Math.max(16, Math.min(72, width - 14));
+}
+
+/**
  * Compare two versions of a project (base, then head): the inputs that changed, every figure side
  * by side with its change (absolute and %), each spec check with a change of status called out
  * ('now FAILS', 'now passes'), and two overlay charts: the steady states at the head's
@@ -360,24 +307,27 @@ function verdictText(checks: CheckRow[], headPass: boolean, inputsChanged: numbe
  * The head's warnings are printed under "Warnings (head)" after the checks (compare prints no
  * cautions); they never change `pass`.
  *
- * Method: every number comes from the engine's analyses; charts sample the engine's waveforms
- * (`steadyWaveform`, `stepWaveform`) on one time grid for both sides, by linear interpolation.
+ * Formats only: every number comes from the engine's analyses, and the overlays (both sides on one
+ * time grid, one sample per plot column) from the engine's compareOverlays.ts.
  *
- * Syntax: compareReport(base, head, format[, { color, columns, height, width }])
- * Example: compareReport({ label: 'a.yaml', project: a, analysis: analyzeProject(a) },
- *                        { label: 'b.yaml', project: b, analysis: analyzeProject(b) }, 'markdown')
+ * Syntax: compareReport(base, head, overlays, format[, { color, height, width }])
+ * Example: compareReport({ label: 'a.yaml', project: a, analysis: aa }, { label: 'b.yaml', project: b, analysis: ab },
+ *                        compareOverlays(aa, ab, overlayColumns(80)), 'markdown')
  */
-export function compareReport(base: CompareSide, head: CompareSide, format: CompareFormat, options: CompareOptions = {}): string {
+export function compareReport(
+  base: CompareSide,
+  head: CompareSide,
+  overlays: CompareOverlays,
+  format: CompareFormat,
+  options: CompareOptions = {},
+): string {
   const width = options.width ?? 80;
-  const columns = options.columns ?? Math.max(16, Math.min(72, width - 14));
   const height = options.height ?? 12;
   const inputs = changedInputs(base.project, head.project);
   const figures = metrics(base.analysis, head.analysis);
   const checks = checkRows(base.analysis, head.analysis);
-  const duty = head.analysis.worstRipple.duty;
-  const { from, to } = head.analysis.settling;
-  const steady = steadyOverlay(base, head, duty, columns);
-  const step = stepOverlay(base, head, from, to, columns);
+  const { duty, ...steady } = overlays.steady;
+  const { from, to, ...step } = overlays.step;
   const pass = head.analysis.pass;
 
   if (format === 'json') {

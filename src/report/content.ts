@@ -1,4 +1,5 @@
 import type { Analysis } from '../engine/analyze.js';
+import type { ChartSeries } from '../engine/types.js';
 import type { Project } from '../project/types.js';
 import { formatEng, formatIec60062 } from '../units/index.js';
 import { cautions } from './cautions.js';
@@ -8,8 +9,8 @@ import { checkQuantity, fixed, lsbCount, millivolts, percent, tidy, voltsAndLsb 
 import { warningsSection } from './warnings.js';
 
 export interface ContentOptions {
-  /** Include the ASCII charts (default true). */
-  charts?: boolean;
+  /** The series to chart (engine chartSeries.ts); no charts when absent. */
+  charts?: ChartSeries;
   /** asciichart colour codes for chart series (terminal only). */
   chartColors?: string[];
   /** Widest line the charts are drawn to, columns (default 80). */
@@ -146,7 +147,7 @@ function figuresSection(project: Project, analysis: Analysis): Section {
  * warnings (when any) and cautions, and a one-line verdict (which counts the warnings).
  *
  * Syntax: reportDocument(project, analysis[, { charts, chartColors }])
- * Example: reportDocument(p, analyzeProject(p), { charts: false }).verdict.pass
+ * Example: reportDocument(p, a, { charts: chartSeries(a, p.pwm.duty) }).verdict.pass
  */
 export function reportDocument(project: Project, analysis: Analysis, options: ContentOptions = {}): ReportDocument {
   const sections = [
@@ -155,8 +156,8 @@ export function reportDocument(project: Project, analysis: Analysis, options: Co
     specSection(project, analysis),
     figuresSection(project, analysis),
   ];
-  if (options.charts ?? true) {
-    const charts = reportCharts(analysis, project.pwm.duty, { colors: options.chartColors, ...(options.width && { width: options.width }) });
+  if (options.charts) {
+    const charts = reportCharts(analysis, options.charts, { colors: options.chartColors, ...(options.width && { width: options.width }) });
     sections.push({ title: 'Charts', blocks: charts.map((c) => ({ kind: 'chart', title: c.title, body: c.body })) });
   }
   const warnings = warningsSection(analysis.warnings);

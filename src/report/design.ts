@@ -81,7 +81,8 @@ function candidateJson(c: Candidate) {
  * `candidates` best first, each { stages: [{ r, c[, buffered] }], worstRipple, settlingTime, droop,
  * pass } and more: `margins` per limit (fractions of the limit), `keepsMargin`, `needsFollower` and
  * `notes`; `evaluated`; with `robust`, `robust: { mode, scanned, candidates: [{ nominalRank, worstCase |
- * yield }] }`; all numbers SI, null for never / unknown).
+ * yield }] }`; all numbers SI, null for never / unknown). The JSON holds no wall time, so two
+ * identical runs print identical JSON; the text and Markdown reports state the search time.
  *
  * Syntax: designReport(project, result, format[, { tradeoff, color, written }])
  * Example: JSON.parse(designReport(p, designSearch(p), 'json')).candidates[0].settlingTime
@@ -94,7 +95,6 @@ export function designReport(project: Project, result: DesignResult, format: Des
       evaluated: result.stats.evaluated,
       verified: result.stats.verified,
       space: result.stats.space,
-      elapsed: result.stats.elapsed,
       diagnosis: result.diagnosis,
       // When nothing is feasible: changes verified by a search, and limits proven out of reach.
       fixes: (result.fixes ?? []).map((f) => ({ kind: f.kind, change: f.change, design: candidateJson(f.best) })),

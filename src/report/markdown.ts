@@ -1,11 +1,12 @@
 import type { Analysis } from '../engine/analyze.js';
+import type { ChartSeries } from '../engine/types.js';
 import type { Project } from '../project/types.js';
 import { reportDocument } from './content.js';
 import { renderDocument } from './renderDocument.js';
 
 export interface MarkdownOptions {
-  /** Include the ASCII charts in fenced code blocks (default true). */
-  charts?: boolean;
+  /** The series to chart in fenced code blocks (engine chartSeries.ts); no charts when absent. */
+  charts?: ChartSeries;
 }
 
 /**
@@ -13,9 +14,9 @@ export interface MarkdownOptions {
  * pipe tables, charts in fenced code blocks.
  *
  * Syntax: markdownReport(project, analysis[, { charts }])
- * Example: markdownReport(p, analyzeProject(p)).startsWith('# ')   // true
+ * Example: markdownReport(p, a, { charts: chartSeries(a, p.pwm.duty) }).startsWith('# ')   // true
  */
 export function markdownReport(project: Project, analysis: Analysis, options: MarkdownOptions = {}): string {
-  const doc = reportDocument(project, analysis, { charts: options.charts ?? true });
+  const doc = reportDocument(project, analysis, options.charts ? { charts: options.charts } : {});
   return renderDocument(doc, 'markdown');
 }

@@ -4,6 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { analyzeProject } from '../../src/engine/analyze.js';
+import { compareOverlays } from '../../src/engine/compareOverlays.js';
 import { parseProject } from '../../src/project/index.js';
 import { compareReport, type CompareSide } from '../../src/report/compare.js';
 
@@ -30,7 +31,7 @@ function side(label: string, text: string): CompareSide {
   return { label, project, analysis: analyzeProject(project) };
 }
 
-const json = (base: CompareSide, head: CompareSide) => JSON.parse(compareReport(base, head, 'json', { columns: 72 }));
+const json = (base: CompareSide, head: CompareSide) => JSON.parse(compareReport(base, head, compareOverlays(base.analysis, head.analysis, 72), 'json'));
 const figure = (j: { figures: Array<{ key: string }> }, key: string) => j.figures.find((f) => f.key === key) as unknown as {
   base: number;
   head: number;
@@ -84,7 +85,7 @@ describe('compareReport figures', () => {
     const k = json(base, two);
     expect(k.inputs.map((i: { key: string }) => i.key)).toEqual(['filter.stages[1].r', 'filter.stages[1].c', 'filter.stages[1].buffered']);
     expect(k.inputs[0]).toMatchObject({ base: null, head: 47e3 });
-    expect(compareReport(base, two, 'text')).toMatch(/R2\s+\(no stage\)\s+47 kΩ/);
+    expect(compareReport(base, two, compareOverlays(base.analysis, two.analysis, 72), 'text')).toMatch(/R2\s+\(no stage\)\s+47 kΩ/);
   });
 });
 
@@ -111,8 +112,8 @@ describe('compareReport check status', () => {
   it('has the head decide pass in JSON and in the verdict line', () => {
     expect(json(large, small).pass).toBe(false);
     expect(json(small, large).pass).toBe(true);
-    expect(compareReport(large, small, 'markdown')).toMatch(/^\*\*FAIL: head fails ripple .*ripple now FAILS/m);
-    expect(compareReport(small, large, 'markdown')).toMatch(/^\*\*PASS: head holds all 1 spec check .*ripple now passes/m);
+    expect(compareReport(large, small, compareOverlays(large.analysis, small.analysis, 72), 'markdown')).toMatch(/^\*\*FAIL: head fails ripple .*ripple now FAILS/m);
+    expect(compareReport(small, large, compareOverlays(small.analysis, large.analysis, 72), 'markdown')).toMatch(/^\*\*PASS: head holds all 1 spec check .*ripple now passes/m);
   });
 });
 
@@ -159,7 +160,7 @@ describe('compareReport renderings', () => {
   const head = side('head.yaml', yaml({ c: '2.2u', r: '10k' }));
 
   it('Markdown: heading, verdict, tables with matching column counts, two fenced charts', () => {
-    const md = compareReport(base, head, 'markdown');
+    const md = compareReport(base, head, compareOverlays(base.analysis, head.analysis, 72), 'markdown');
     const lines = md.split('\n');
     expect(lines[0]).toBe('## dacsmith compare: base.yaml -> head.yaml');
     expect(lines[2]).toMatch(/^\*\*(PASS|FAIL): /);
@@ -180,10 +181,10 @@ describe('compareReport renderings', () => {
   });
 
   it('draws the base thin and the head heavy, so the curves differ without colour', () => {
-    const text = compareReport(base, head, 'text', { color: false });
+    const text = compareReport(base, head, compareOverlays(base.analysis, head.analysis, 72), 'text', { color: false });
     expect(text).not.toMatch(/\x1b\[/);
     expect(text).toMatch(/[━┃┏┓┗┛]/);
     expect(text).toMatch(/[─│╭╮╰╯]/);
-    expect(compareReport(base, head, 'text', { color: true })).toMatch(/\x1b\[/);
+    expect(compareReport(base, head, compareOverlays(base.analysis, head.analysis, 72), 'text', { color: true })).toMatch(/\x1b\[/);
   });
 });

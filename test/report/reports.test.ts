@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeProject } from '../../src/engine/analyze.js';
+import { chartSeries } from '../../src/engine/chartSeries.js';
 import type { Project } from '../../src/project/types.js';
 import { jsonReport } from '../../src/report/json.js';
 import { markdownReport } from '../../src/report/markdown.js';
@@ -14,7 +15,8 @@ const project: Project = {
 const analysis = analyzeProject(project, { duties: [0.25, 0.5] });
 
 describe('text report', () => {
-  const text = textReport(project, analysis);
+  const charts = chartSeries(analysis, project.pwm.duty);
+  const text = textReport(project, analysis, { charts });
 
   it('writes values in engineering form with SI prefixes (SI Brochure) and IEC 60062 codes', () => {
     expect(text).toContain('4.7 kΩ');
@@ -58,13 +60,13 @@ describe('text report', () => {
     expect(text).toMatch(/Attenuation at the PWM frequency:\s+\d+\.\d dB/);
     expect(text).toMatch(/DC error \(ideal - average\) across the used duty range, LSB/);
     expect(text).not.toMatch(/\x1b\[/);
-    expect(textReport(project, analysis, { charts: false })).not.toContain('Charts');
+    expect(textReport(project, analysis)).not.toContain('Charts');
   });
 
   it('says plainly when the output never settles', () => {
     const p: Project = { ...project, spec: { settling: { band: 1e-5, time: 1 } } };
     const a = analyzeProject(p, { duties: [0.5] });
-    const t = textReport(p, a, { charts: false });
+    const t = textReport(p, a);
     expect(t).toMatch(/never settles: ripple exceeds the band/);
     expect(t).toMatch(/\n\s+settling\s+never settles\s.*FAIL\n/);
     expect(t).toMatch(/\nFAIL: settling \(1 of 1 spec checks\)\.\n$/);
@@ -72,7 +74,7 @@ describe('text report', () => {
 });
 
 describe('markdown report', () => {
-  const md = markdownReport(project, analysis);
+  const md = markdownReport(project, analysis, { charts: chartSeries(analysis, project.pwm.duty) });
   const lines = md.split('\n');
 
   it('writes GitHub-flavoured pipe tables: header, alignment row, equal cell counts', () => {

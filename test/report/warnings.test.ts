@@ -11,7 +11,7 @@ describe('Warnings section', () => {
   it('is left out when there is nothing to warn about', () => {
     expect(warningsSection([])).toBeNull();
     const clean = oneStageProject();
-    expect(textReport(clean, analyzeProject(clean), { charts: false })).not.toContain('Warnings');
+    expect(textReport(clean, analyzeProject(clean))).not.toContain('Warnings');
   });
 
   it('comes before the cautions in text and Markdown, one item per warning as key: message', () => {
@@ -19,11 +19,11 @@ describe('Warnings section', () => {
     const p = oneStageProject({ r: 10e3, c: 1e-6, loadResistance: 10e3 });
     const a = analyzeProject(p);
     expect(a.warnings.map((w) => w.key)).toEqual(['load.resistance']);
-    const md = markdownReport(p, a, { charts: false });
+    const md = markdownReport(p, a);
     expect(md.indexOf('## Warnings')).toBeGreaterThan(0);
     expect(md.indexOf('## Cautions')).toBeGreaterThan(md.indexOf('## Warnings'));
     expect(md).toContain('- load.resistance: the output spans');
-    const text = textReport(p, a, { charts: false });
+    const text = textReport(p, a);
     expect(text.indexOf('\nCautions')).toBeGreaterThan(text.indexOf('\nWarnings'));
     expect(text).toMatch(/1 warning \(see Warnings\)\.\n$/);
   });

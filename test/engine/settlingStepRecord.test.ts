@@ -3,8 +3,9 @@ import { analyzeProject } from '../../src/engine/analyze.js';
 import { steadyState, steadyWaveform, stepWaveform } from '../../src/engine/index.js';
 import { loadProject } from '../../src/project/index.js';
 import { envelope } from '../../src/report/charts.js';
-import { stepDuration, stepRecord } from '../../src/report/waveforms.js';
-import { oneStageProject } from './projectFixture.js';
+import { settlingStepRecord as stepRecord } from '../../src/engine/settlingStepRecord.js';
+import { stepRecordDuration as stepDuration } from '../../src/engine/stepRecordDuration.js';
+import { oneStageProject } from '../report/projectFixture.js';
 
 describe('stepRecord', () => {
   const analysis = analyzeProject(loadProject('sample-configs/greenhouse-heater.yaml'));
@@ -13,7 +14,7 @@ describe('stepRecord', () => {
   const T = analysis.ladder.period;
 
   it('runs from the step to the end of the record on a 16-per-period grid, plus the exact end', () => {
-    // Source: the record's contract (waveforms.ts: stepDuration rule, per-period grid).
+    // Source: the record's contract (stepRecordDuration.ts rule, per-period grid).
     expect(t[0]).toBe(0);
     expect(t.at(-1)).toBe(stepDuration(analysis));
     expect(t.length).toBeGreaterThanOrEqual(600);
@@ -73,7 +74,7 @@ describe('stepRecord', () => {
   it('a strided record that never settles draws the true steady ripple at its end', () => {
     // Invented: 10 kohm + 1 uF behind 25 ohm (tau ~ 1000 T at 100 kHz), a small step 50 % -> 52 %
     // and a band below the ripple, so the output never settles and the record is 8 tau long
-    // (stepDuration), sampled in an evenly spread subset of periods. The last column of the envelope
+    // (stepRecordDuration), sampled in an evenly spread subset of periods. The last column of the envelope
     // must span the exact steady-state ripple at 52 % (steadyState), less what a T/16 grid misses at
     // the corner at 0.52 T (the nearest sample is 0.32 of a step before it, on a rise of 8.32 steps
     // that is nearly straight as tau = 1000 T: 3.85 %), plus at most the drift left in the column
