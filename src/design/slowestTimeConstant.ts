@@ -1,4 +1,4 @@
-import { symmetricEigen } from '../engine/symmetricEigen.js';
+import { symmetricEigen } from '../numeric/symmetricEigen.js';
 
 /**
  * Slowest time constant (s) of an unbuffered RC ladder driven through `driver` ohm, with an

@@ -1,4 +1,5 @@
-import { luFactor, luSolve, matmul, matvec, normInf, rowDot, zeros, type Matrix, type Vector } from './dense.js';
+import { luFactor, luSolve } from '../numeric/lu.js';
+import { matmul, matvec, normInf, rowDot, zeros, type Matrix, type Vector } from '../numeric/dense.js';
 import { doubleFlow, flow, type Flow } from './flow.js';
 import { PLAN_CACHE_SIZE, type Prepared } from './prepare.js';
 import type { PeriodExtrema } from './periodTrajectory.js';

@@ -1,5 +1,5 @@
-import { identity, matmul, zeros, type Matrix } from './dense.js';
-import { expm } from './expm.js';
+import { identity, matmul, zeros, type Matrix } from '../numeric/dense.js';
+import { expm } from '../numeric/expm.js';
 
 /**
  * The exact flow of x' = A x + b over a time t, in the three matrices the engine needs:

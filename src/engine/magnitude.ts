@@ -1,5 +1,6 @@
 import type { Ladder } from '../circuit/ladder.js';
-import { luFactor, luSolve, zeros } from './dense.js';
+import { luFactor, luSolve } from '../numeric/lu.js';
+import { zeros } from '../numeric/dense.js';
 import { prepare, type Prepared } from './prepare.js';
 
 /**

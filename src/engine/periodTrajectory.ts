@@ -1,7 +1,7 @@
-import { matvec, rowDot, zeros, type Matrix, type Vector } from './dense.js';
-import { expm } from './expm.js';
+import { matvec, rowDot, zeros, type Matrix, type Vector } from '../numeric/dense.js';
+import { expm } from '../numeric/expm.js';
 import { flow } from './flow.js';
-import { brentRoot } from './brentRoot.js';
+import { brentRoot } from '../numeric/brentRoot.js';
 import type { DutyPlan, PhasePlan } from './dutyPlan.js';
 import type { Prepared } from './prepare.js';
 

@@ -2,7 +2,7 @@ import type { Ladder } from '../circuit/ladder.js';
 import { rememberRecentLadders } from './recentLadders.js';
 import { stateSpace, type StateSpace } from '../circuit/stateSpace.js';
 import { dcGain } from '../circuit/dcGain.js';
-import type { Vector } from './dense.js';
+import type { Vector } from '../numeric/dense.js';
 import type { DutyPlan } from './dutyPlan.js';
 
 /** Everything about a ladder that does not depend on the duty, computed once per ladder object. */

@@ -1,6 +1,6 @@
 import type { Ladder } from '../../circuit/ladder.js';
-import { symmetricEigen } from '../../engine/symmetricEigen.js';
-import { zeros } from '../../engine/dense.js';
+import { symmetricEigen } from '../../numeric/symmetricEigen.js';
+import { zeros } from '../../numeric/dense.js';
 
 /** One pin state (high or low) of an unbuffered ladder, in symmetric coordinates y = C^(1/2) x. */
 export interface FastPhase {

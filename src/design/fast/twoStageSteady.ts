@@ -1,5 +1,5 @@
 import type { FastCircuit } from './fastLadder.js';
-import { oneMinusPhi1 } from './fastSteadyState.js';
+import { oneMinusPhi1 } from '../../numeric/phi.js';
 
 /** The steady-state figures the search's cheap checks need (see fastSteadyState for all of them). */
 export interface TwoStageSteady {

@@ -1,7 +1,7 @@
-import { zeros } from '../dense.js';
+import { zeros } from '../../numeric/dense.js';
 import type { Ladder } from '../../circuit/ladder.js';
 import { cascadeLadder } from './cascadeLadder.js';
-import { symmetricEigen } from '../symmetricEigen.js';
+import { symmetricEigen } from '../../numeric/symmetricEigen.js';
 import { dcStates } from './dcStates.js';
 
 /** The modes of one pin state: x' = A x + b with A = V diag(rate) W, W = V^-1. */

@@ -1,5 +1,5 @@
-import { zeros } from '../dense.js';
-import { expSumRoots } from './expSumRoots.js';
+import { zeros } from '../../numeric/dense.js';
+import { expSumRoots } from '../../numeric/expSumRoots.js';
 
 /**
  * The output during one phase of one period as an exact function of the time tau since the phase

@@ -1,4 +1,4 @@
-import { phi2 } from '../phi2.js';
+import { phi2 } from '../../numeric/phi.js';
 import type { ModalLadder } from './modalLadder.js';
 
 /**
