@@ -27,6 +27,7 @@ export function expSumRoots(
   xtol = 1e-13 * length,
 ): number[] {
   if (coef.length < 2 || !(length > 0)) return [];
+  if (coef.length === 2) return twoTermRoot(coef[0], rate[0], coef[1], rate[1], length);
   // Terms below 1e-200 of the largest are dropped: dividing by them would overflow, and where they
   // could matter the whole sum is below 1e-200 of its scale, far under what callers can resolve.
   let largest = 0;
@@ -50,6 +51,19 @@ export function expSumRoots(
   return normalizedRoots(cs, rs, length, xtol);
 }
 
+/**
+ * The closed form for two terms, without the general path's arrays (the design search calls this
+ * millions of times): c0 e^(r0 s) + c1 e^(r1 s) = 0 at s = ln(-c0/c1) / (r1 - r0).
+ */
+function twoTermRoot(c0: number, r0: number, c1: number, r1: number, length: number): number[] {
+  const largest = Math.max(Math.abs(c0), Math.abs(c1));
+  if (!keep(c0, largest) || !keep(c1, largest) || !(r0 !== r1)) return [];
+  const ratio = -c0 / c1;
+  if (!(ratio > 0)) return [];
+  const s = Math.log(ratio) / (r1 - r0);
+  return s > 0 && s < length ? [s] : [];
+}
+
 function keep(c: number, largest: number): boolean {
   return Math.abs(c) > 1e-200 * largest && Number.isFinite(c);
 }
@@ -61,26 +75,41 @@ function normalizedRoots(cs: number[], rs: number[], length: number, xtol: numbe
     const s = Math.log(-1 / cs[0]) / rs[0];
     return s > 0 && s < length ? [s] : [];
   }
-  const g = (s: number) => {
-    let v = 1;
-    for (let i = 0; i < cs.length; i++) v += cs[i] * Math.exp(rs[i] * s);
-    return v;
-  };
   const slopes: number[] = [];
   for (let i = 0; i < cs.length; i++) slopes.push(cs[i] * rs[i]);
   const turns = expSumRoots(slopes, rs, length, xtol);
   const roots: number[] = [];
   let a = 0;
-  let ga = g(0);
+  let ga = sumAt(cs, rs, 0);
   for (let k = 0; k <= turns.length; k++) {
     const b = k < turns.length ? turns[k] : length;
-    const gb = g(b);
+    const gb = sumAt(cs, rs, b);
     if (ga === 0 && k > 0) roots.push(a);
-    else if ((ga < 0 && gb > 0) || (ga > 0 && gb < 0)) roots.push(brentRoot(g, a, b, xtol, ga, gb));
+    else if ((ga < 0 && gb > 0) || (ga > 0 && gb < 0)) {
+      BRENT_CS = cs;
+      BRENT_RS = rs;
+      roots.push(brentRoot(brentTarget, a, b, xtol, ga, gb));
+    }
     a = b;
     ga = gb;
   }
   const inside: number[] = [];
   for (const s of roots) if (s > 0 && s < length) inside.push(s);
   return inside;
+}
+
+/** 1 + sum cs[i] exp(rs[i] s). */
+function sumAt(cs: number[], rs: number[], s: number): number {
+  let v = 1;
+  for (let i = 0; i < cs.length; i++) v += cs[i] * Math.exp(rs[i] * s);
+  return v;
+}
+
+// The sum brentRoot is refining, set just before each call: one module-level function instead of a
+// closure per call, which the design search's millions of calls would pay for in allocation.
+// brentRoot never re-enters expSumRoots, so one slot is enough.
+let BRENT_CS: number[] = [];
+let BRENT_RS: number[] = [];
+function brentTarget(s: number): number {
+  return sumAt(BRENT_CS, BRENT_RS, s);
 }
