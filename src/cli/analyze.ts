@@ -30,7 +30,7 @@ export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean }): Pr
   const duties = parseDuties(args.duty);
   const [{ loadProject, requireFilter }, { analyzeProject }] = await Promise.all([
     import('../project/index.js'),
-    import('../engine/analyze.js'),
+    import('../engine/index.js'),
   ]);
   const project = requireFilter(loadProject(args.file), 'analyze');
   const analysis = analyzeProject(project, duties ? { duties } : {});

@@ -28,7 +28,7 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean }): Pr
   }
   const [{ loadProject, parseProject, requireFilter }, { analyzeProject }, { compareReport }] = await Promise.all([
     import('../project/index.js'),
-    import('../engine/analyze.js'),
+    import('../engine/index.js'),
     import('../report/compare.js'),
   ]);
 

@@ -1,5 +1,5 @@
 /** Types of the design search (`dacsmith design`). SI base units throughout (V, s, Hz, ohm, F, A). */
-import type { Check } from '../engine/checks.js';
+import type { Check } from '../engine/index.js';
 
 /** One stage of a proposed filter (unbuffered: the search proposes plain RC ladders). */
 export interface CandidateStage {

@@ -15,3 +15,15 @@ export { stepWaveformOnGrid } from './stepWaveformOnGrid.js';
 export type { OperatingPoint, WorstRipple, DcTransfer, Settling, Waveform } from './types.js';
 export { plausibilityWarnings, partValueWarnings, PLAUSIBLE, type Warning, type WarningFigures } from './plausibilityWarnings.js';
 export { warningFigures } from './warningFigures.js';
+export type { RobustCheck, RobustChecks, RobustVerdict, WorstCaseFigures, YieldFigures } from './robustVerdict.js';
+export { analyzeProject, defaultBand, type Analysis, type AnalyzeOptions } from './analyze.js';
+export { specChecks, type Check, type CheckInputs } from './checks.js';
+// For the tolerance studies, which evaluate many ladders through the modal form directly.
+export { averageOutput } from './averageOutput.js';
+export { prepare, type Prepared } from './prepare.js';
+export { modalLadder, type ModalLadder } from './modal/modalLadder.js';
+export { averageOutput as modalAverageOutput } from './modal/averageOutput.js';
+export { rippleAt } from './modal/rippleAt.js';
+export type { PeriodicState } from './modal/periodicState.js';
+export { modalSettling } from './modal/settling.js';
+export { MAX_MODAL_CONDITION } from './modalRoute.js';

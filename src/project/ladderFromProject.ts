@@ -1,5 +1,5 @@
-import type { Project } from '../project/types.js';
-import type { Ladder, Stage } from './ladder.js';
+import type { Project } from './types.js';
+import type { Ladder, Stage } from '../circuit/ladder.js';
 
 /**
  * The engine's view of a project: its PWM source, ladder and load, optionally with other stages.

@@ -1,6 +1,4 @@
-import type { Analysis } from '../engine/analyze.js';
-import { magnitude, steadyState } from '../engine/index.js';
-import type { Waveform } from '../engine/types.js';
+import { type Analysis, magnitude, steadyState, type Waveform } from '../engine/index.js';
 import { formatEng } from '../units/index.js';
 import { lineChart } from './lineChart.js';
 import { tidy } from './quantities.js';

@@ -1,7 +1,5 @@
 import { plot } from 'asciichart';
-import type { Analysis } from '../engine/analyze.js';
-import { stepWaveform, steadyWaveform } from '../engine/index.js';
-import type { Waveform } from '../engine/types.js';
+import { type Analysis, stepWaveform, steadyWaveform, type Waveform } from '../engine/index.js';
 import type { Project } from '../project/types.js';
 import { formatEng } from '../units/index.js';
 import { axisFormatter } from './axis.js';

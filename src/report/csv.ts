@@ -1,4 +1,4 @@
-import type { Analysis } from '../engine/analyze.js';
+import type { Analysis } from '../engine/index.js';
 import { stepRecord, worstRippleWave } from './waveforms.js';
 
 /**

@@ -1,6 +1,4 @@
-import type { Analysis } from '../engine/analyze.js';
-import { stepWaveformOnGrid, steadyState, steadyWaveform } from '../engine/index.js';
-import type { Waveform } from '../engine/types.js';
+import { type Analysis, stepWaveformOnGrid, steadyState, steadyWaveform, type Waveform } from '../engine/index.js';
 
 /** Longest step record drawn or written, samples (keeps reports quick on very slow filters). */
 const MAX_STEP_SAMPLES = 20_000;

@@ -19,3 +19,4 @@ export { drawDeviates, type Distribution } from './deviates.js';
 export { evaluateSamples, type SampleTable } from './evaluateSamples.js';
 export { summarizeSamples, type SampleSummary, type SpecName } from './summarizeSamples.js';
 export { percentiles, quantileSorted, wilsonInterval, histogram, type Percentiles, type Histogram } from './statistics.js';
+export { robustChecks, worstCaseCheck, yieldCheck } from './robustChecks.js';

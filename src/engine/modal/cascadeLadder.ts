@@ -1,6 +1,6 @@
 import type { Ladder } from '../../circuit/ladder.js';
 import { stateSpace, type PhaseSystem, type Section } from '../../circuit/stateSpace.js';
-import type { ModalLadder, PhaseModes } from './modalLadder.js';
+import type { ModalLadder, PhaseModes } from './modalTypes.js';
 import { solveLinear } from '../../numeric/lu.js';
 import { symmetricEigen } from '../../numeric/symmetricEigen.js';
 import { normInf, zeros } from '../../numeric/dense.js';
