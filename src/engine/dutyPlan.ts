@@ -71,7 +71,7 @@ export function dutyPlan(p: Prepared, duty: number): DutyPlan {
  * matters: squaring amplifies rounding by about 2 per step in the slow components, so the phase
  * flows must not inherit the extra K squarings of the sub-grid.
  */
-function phasePlan(A: Matrix, n: number, t: number, cells: number, balance: number[]): PhasePlan {
+function phasePlan(A: Matrix, n: number, t: number, cells: number, balance: readonly number[]): PhasePlan {
   const h = t / cells;
   const step = flow(A, n, h, true, balance);
   let full = step;

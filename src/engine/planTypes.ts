@@ -9,21 +9,25 @@ import type { Flow } from './flow.js';
  */
 
 /** Everything about a ladder that does not depend on the duty, computed once per ladder object. */
+/**
+ * Remembered per ladder object (prepare.ts), so its figures are readonly; only its two caches
+ * change: `plans` (bounded) and `timeConstants` (filled on first use).
+ */
 export interface Prepared {
-  n: number;
-  period: number;
-  system: StateSpace;
+  readonly n: number;
+  readonly period: number;
+  readonly system: StateSpace;
   /** DC state of each phase alone: x_p = -A_p^{-1} b_p. */
-  xHigh: Vector;
-  xLow: Vector;
+  readonly xHigh: Vector;
+  readonly xLow: Vector;
   /** xHigh - xLow, formed from the per-volt gains so equal drivers give no subtraction. */
-  delta: Vector;
+  readonly delta: Vector;
   /** Balancing scale sqrt(C_i) of each node (see flow.ts). */
-  balance: number[];
+  readonly balance: readonly number[];
   /** Grid cells per phase for locating turning points (1 for one stage: none exist). */
-  cells: number;
+  readonly cells: number;
   /** Per-duty work, reused by several calls on the same ladder (bounded size). */
-  plans: Map<number, DutyPlan>;
+  readonly plans: Map<number, DutyPlan>;
   /** Lazily filled: time constants, slowest first. */
   timeConstants?: number[];
 }

@@ -6,9 +6,9 @@
 /** The modes of one pin state: x' = A x + b with A = V diag(rate) W, W = V^-1. */
 export interface PhaseModes {
   /** Eigenvalues of A, 1/s (negative). */
-  rate: number[];
+  readonly rate: readonly number[];
   /** Output (last node) per unit of each modal coordinate: the last row of V. */
-  out: number[];
+  readonly out: readonly number[];
 }
 
 /**
@@ -16,28 +16,28 @@ export interface PhaseModes {
  * high-phase basis are W_h z; `mix` = W_l V_h turns them into low-phase ones.
  */
 export interface ModalLadder {
-  n: number;
-  period: number;
-  high: number;
-  low: number;
+  readonly n: number;
+  readonly period: number;
+  readonly high: number;
+  readonly low: number;
   /**
    * No follower inside the ladder: V = Cs^-1 Q with Q orthogonal, so `mix` is orthogonal (the
    * settling fast path needs that). False for a cascade of sections (cascadeLadder.ts).
    */
-  symmetric: boolean;
-  hi: PhaseModes;
-  lo: PhaseModes;
-  mix: number[];
+  readonly symmetric: boolean;
+  readonly hi: PhaseModes;
+  readonly lo: PhaseModes;
+  readonly mix: readonly number[];
   /** DC state of the high phase minus that of the low phase, in high-phase modal coordinates. */
-  delta: number[];
+  readonly delta: readonly number[];
   /** Output at the DC state of the low phase, V. */
-  outLow: number;
+  readonly outLow: number;
   /** Output at the DC state of the high phase, V. */
-  outHigh: number;
+  readonly outHigh: number;
   /**
    * Condition number ||V||_inf ||V^-1||_inf of the modal basis in the balanced coordinates
    * sqrt(C) x, the larger of the two phases: 1 for a follower-free ladder (orthonormal basis), large
    * for a cascade whose sections have nearly equal modes. Rounding in the modal sums grows with it.
    */
-  condition: number;
+  readonly condition: number;
 }

@@ -9,7 +9,7 @@ import { expSumRoots } from '../../numeric/expSumRoots.js';
 export interface PhaseCurve {
   offset: number;
   gain: number[];
-  rate: number[];
+  readonly rate: readonly number[];
   length: number;
 }
 
