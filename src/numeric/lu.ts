@@ -109,3 +109,35 @@ function factor(a: ArrayLike<number>, n: number, strict: boolean): LuFactors | n
   }
   return { n, lu, piv };
 }
+
+/**
+ * Order 2 without arrays: [a b; c d] x = [e; f] by the same elimination with partial pivoting
+ * (rows swapped when |c| > |a|), x written into out[0], out[1]. For the hot two-stage paths
+ * (engine/modal/smallState.ts, design/fast/twoStageSteady.ts), which call it hundreds of thousands
+ * of times per search and keep their numbers in locals; the arithmetic is luFactor's and luSolve's,
+ * operation for operation. Returns false (out untouched) on a zero pivot.
+ *
+ * Syntax: solveTwoByTwo(a, b, c, d, e, f, out)
+ * Example: solveTwoByTwo(2, 0, 0, 4, 2, 2, out)  // out = [1, 0.5]
+ */
+export function solveTwoByTwo(a: number, b: number, c: number, d: number, e: number, f: number, out: number[]): boolean {
+  if (Math.abs(c) > Math.abs(a)) {
+    let t = a;
+    a = c;
+    c = t;
+    t = b;
+    b = d;
+    d = t;
+    t = e;
+    e = f;
+    f = t;
+  }
+  if (a === 0) return false;
+  const l = c / a;
+  const pivot = d - l * b;
+  if (pivot === 0) return false;
+  const x1 = (f - l * e) / pivot;
+  out[0] = (e - b * x1) / a;
+  out[1] = x1;
+  return true;
+}

@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { brentRoot } from '../../src/numeric/brentRoot.js';
 import { normInf } from '../../src/numeric/dense.js';
 import { expSumRoots } from '../../src/numeric/expSumRoots.js';
-import { luFactor, luSolve, solveLinear } from '../../src/numeric/lu.js';
+import { luFactor, luSolve, solveLinear, solveTwoByTwo } from '../../src/numeric/lu.js';
 import { brentMaximize, maximizeOnInterval } from '../../src/numeric/maximizeOnInterval.js';
 import { oneMinusPhi1, phi2 } from '../../src/numeric/phi.js';
 
@@ -111,6 +111,19 @@ describe('LU with partial pivoting (Golub & Van Loan, Alg. 3.4.1)', () => {
       ),
       { numRuns: 200, seed: 7 },
     );
+  });
+  it('solveTwoByTwo is luFactor + luSolve at order 2, to the last bit (fast-check), and false when singular', () => {
+    fc.assert(
+      fc.property(fc.array(fc.double({ min: -1e3, max: 1e3, noNaN: true }), { minLength: 6, maxLength: 6 }), ([a, b, c, d, e, f]) => {
+        fc.pre(Math.abs(a * d - b * c) > 1e-6 * (Math.abs(a * d) + Math.abs(b * c)));
+        const out = [0, 0];
+        expect(solveTwoByTwo(a, b, c, d, e, f, out)).toBe(true);
+        expect(out).toEqual(luSolve(luFactor([a, b, c, d], 2), [e, f]));
+      }),
+      { numRuns: 300, seed: 3 },
+    );
+    expect(solveTwoByTwo(0, 1, 0, 2, 1, 1, [0, 0])).toBe(false);
+    expect(solveTwoByTwo(1, 2, 2, 4, 1, 1, [0, 0])).toBe(false);
   });
   it('reports a singular matrix: luFactor throws, solveLinear returns null (also for NaN)', () => {
     expect(() => luFactor([1, 2, 2, 4], 2)).toThrow(RangeError);
