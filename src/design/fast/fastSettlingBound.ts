@@ -21,7 +21,7 @@ const MAX_PERIODS = 2 ** 52;
  * M^k = Phi_l^(1/2) B^(k-1) Phi_l^(1/2) Phi_h, and B = I - N with N = Psi_l + Phi_l^(1/2) Psi_h
  * Phi_l^(1/2) formed without cancellation, so beta^k = exp(k log1p(-nu)) stays accurate when the
  * time constants dwarf the period. Inside a period the error is a constant plus n exponentials
- * per phase; its band crossings come from expSumRoots.ts. The last violating period is found by
+ * per phase; its band crossings come from numeric/expSumRoots.ts. The last violating period is found by
  * galloping from the slowest mode's estimate, then bisection.
  *
  * Syntax: fastSettlingBound(model, from, to, band[, steadyFrom, steadyTo])

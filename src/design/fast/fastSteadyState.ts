@@ -49,7 +49,7 @@ export interface FastSteady {
  * cancellation), the rising-edge deviation u = y_s - yEq(low) solves (Psi_l + Phi_l Psi_h) u =
  * Phi_l Psi_h Delta, i.e. the fixed point of the one-period map written without I - M. In each
  * phase the output is a constant plus a sum of n exponentials; its extremes are at the phase ends
- * or at zeros of the derivative (expSumRoots.ts). The average integrates the exponentials exactly.
+ * or at zeros of the derivative (numeric/expSumRoots.ts). The average integrates the exponentials exactly.
  *
  * Syntax: fastSteadyState(model, duty)
  * Example: fastSteadyState(fastLadder(ladder), 0.5).ripple   // V peak-to-peak
