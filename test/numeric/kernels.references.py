@@ -58,6 +58,15 @@ for k in range(N):
         roots.append(mp.findroot(h, (a0, a1), solver='anderson'))
 out['expsum4_roots'] = roots
 
+# Symmetric eigenvalues: a 4 x 4 tridiagonal (the symmetric form of an RC ladder, conductances and
+# capacitances spread over decades so the eigenvalues span about six decades).
+S = mp.matrix([[-3.0e3, 1.0e3, 0, 0], [1.0e3, -1.1e3, 3.0e1, 0], [0, 3.0e1, -3.1e1, 1.0], [0, 0, 1.0, -1.5]])
+out['eig4'] = sorted(mp.eigsy(S)[0])
+
+# Matrix exponential of a nonsymmetric 3 x 3 with a norm that forces scaling and squaring.
+E = mp.matrix([[-4.0, 1.5, 0.25], [2.0, -3.0, 0.5], [0.0, 1.0, -0.5]])
+out['expm3'] = list(mp.expm(E * 2))
+
 def enc(v):
     if isinstance(v, list): return [enc(x) for x in v]
     if isinstance(v, (int, float)): return v

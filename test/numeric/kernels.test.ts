@@ -4,6 +4,8 @@ import { describe, expect, it } from 'vitest';
 import { brentRoot } from '../../src/numeric/brentRoot.js';
 import { normInf } from '../../src/numeric/dense.js';
 import { expSumRoots } from '../../src/numeric/expSumRoots.js';
+import { expm } from '../../src/numeric/expm.js';
+import { symmetricEigen } from '../../src/numeric/symmetricEigen.js';
 import { luFactor, luSolve, solveLinear, solveTwoByTwo } from '../../src/numeric/lu.js';
 import { brentMaximize, maximizeOnInterval } from '../../src/numeric/maximizeOnInterval.js';
 import { oneMinusPhi1, phi2 } from '../../src/numeric/phi.js';
@@ -178,5 +180,24 @@ describe('expSumRoots against mpmath', () => {
     const want = [0.13894238730354527, 1.154554987552791];
     expect(roots).toHaveLength(2);
     for (let i = 0; i < 2; i++) expect(Math.abs(roots[i] - want[i])).toBeLessThan(1e-12);
+  });
+});
+
+describe('symmetricEigen (cyclic Jacobi) and expm (Higham 2005) against mpmath', () => {
+  it('eigenvalues of a 4 x 4 ladder-like tridiagonal spanning three decades, each to 1e-13 relative (mpmath eigsy)', () => {
+    const S = [-3e3, 1e3, 0, 0, 1e3, -1.1e3, 30, 0, 0, 30, -31, 1, 0, 0, 1, -1.5];
+    const want = [-3429.3526406515844, -671.8742685049317, -29.808353201902175, -1.4647376415817501];
+    const got = symmetricEigen(S, 4).values;
+    // the smallest in magnitude too: Jacobi keeps small eigenvalues to high relative accuracy
+    for (let i = 0; i < 4; i++) expect(relErr(got[i], want[i])).toBeLessThan(1e-13);
+  });
+  it('e^(2E) of a nonsymmetric 3 x 3 (norm 11: scaling and squaring), each entry to 1e-13 relative (mpmath expm)', () => {
+    const E2 = [-4, 1.5, 0.25, 2, -3, 0.5, 0, 1, -0.5].map((v) => 2 * v);
+    const want = [
+      0.03395670808053313, 0.059147473937017477, 0.10436228009732516, 0.05523720663906774, 0.09701444931550035,
+      0.17328542227921698, 0.14175655166173337, 0.27569256872756726, 0.5736110436418185,
+    ];
+    const got = expm(E2, 3);
+    for (let i = 0; i < 9; i++) expect(relErr(got[i], want[i])).toBeLessThan(1e-13);
   });
 });
