@@ -12,7 +12,8 @@
  *   report                         + types only from engine, design and tolerance
  *   cli                            anything
  *
- * and no import cycle anywhere in src/ (type-only imports count: they couple the files just as much).
+ * other folders reach the engine only through src/engine/index.ts, and no import cycle anywhere in
+ * src/ (type-only imports count: they couple the files just as much).
  */
 const LAYERS = ['units', 'numeric', 'circuit', 'project', 'engine', 'design', 'tolerance', 'report', 'cli'];
 
@@ -53,6 +54,13 @@ module.exports = {
       severity: 'error',
       from: { path: '^src/report/', pathNot: REPORT_VALUE_IMPORTS_PENDING },
       to: { path: '^src/(engine|design|tolerance)/', dependencyTypesNot: ['type-only'] },
+    },
+    {
+      name: 'engine-only-through-its-index',
+      comment: 'other folders reach the engine through src/engine/index.ts, its one public surface',
+      severity: 'error',
+      from: { path: '^src/', pathNot: '^src/engine/' },
+      to: { path: '^src/engine/', pathNot: '^src/engine/index[.]ts$' },
     },
     {
       name: 'no-circular',

@@ -40,10 +40,11 @@ describe('import boundaries (DEVELOPERS.md, "Where each concern lives")', () => 
     expect(pairs).toContain('design-imports-down-only: src/design/search.ts -> src/tolerance/spread.ts');
     expect(pairs).toContain('report-imports-only-types-from-the-core: src/report/text.ts -> src/engine/first.ts');
     expect(pairs.some((p) => p.startsWith('no-circular: src/engine/first.ts -> src/engine/second.ts') || p.startsWith('no-circular: src/engine/second.ts -> src/engine/first.ts'))).toBe(true);
+    expect(pairs).toContain('engine-only-through-its-index: src/tolerance/spread.ts -> src/engine/first.ts');
     // the allowed imports of the fixture (project -> circuit types, report -> circuit type,
-    // tolerance -> engine) are not reported
+    // tolerance -> engine/index.ts) are not reported
     expect(pairs.some((p) => p.includes('src/project/project.ts ->') && !p.startsWith('no-circular'))).toBe(false);
-    expect(pairs.some((p) => p.includes('src/tolerance/spread.ts -> src/engine'))).toBe(false);
+    expect(pairs.some((p) => p.includes('src/tolerance/viaIndex.ts'))).toBe(false);
     expect(pairs.some((p) => p.includes('-> src/circuit/circuit.ts') && p.startsWith('report'))).toBe(false);
   });
 });
