@@ -33,14 +33,14 @@ export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean; colum
   const width = reportWidth(args.width, { isTTY: tty.columns !== undefined, columns: tty.columns });
   const [{ loadProject, requireFilter }, { analyzeProject }] = await Promise.all([
     import('../project/index.js'),
-    import('../engine/analyze.js'),
+    import('../engine/index.js'),
   ]);
   const project = requireFilter(loadProject(args.file), 'analyze');
   const analysis = analyzeProject(project, duties ? { duties } : {});
   // Chart series only for a report that draws them (JSON and --no-charts skip their cost).
   const charts =
     args.format !== 'json' && args.charts && !args.quiet
-      ? (await import('../engine/chartSeries.js')).chartSeries(analysis, project.pwm.duty, {
+      ? (await import('../engine/index.js')).chartSeries(analysis, project.pwm.duty, {
           // one sample per plot column; the text report's columns follow its width
           ...(args.format === 'text' && { columns: (await import('../report/charts.js')).chartColumns(width) }),
         })
@@ -58,7 +58,7 @@ export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean; colum
     const [{ writeOutputFile }, { waveformCsv }, { waveformRecords }] = await Promise.all([
       import('./writeOutputFile.js'),
       import('../report/csv.js'),
-      import('../engine/waveformRecords.js'),
+      import('../engine/index.js'),
     ]);
     writeOutputFile(args.csv, waveformCsv(waveformRecords(analysis)), { force: args.force ?? false, inputs: [args.file], option: '--csv' });
     stderr = `waveforms written to ${args.csv}\n`;

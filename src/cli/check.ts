@@ -35,7 +35,7 @@ export async function runCheck(args: CheckArgs, tty: { color: boolean; columns?:
   const width = reportWidth(args.width, { isTTY: tty.columns !== undefined, columns: tty.columns });
   const [{ loadProject, requireFilter }, { analyzeProject }, { renderCheck }] = await Promise.all([
     import('../project/index.js'),
-    import('../engine/analyze.js'),
+    import('../engine/index.js'),
     import('../report/check.js'),
   ]);
   const strict = args.strict ?? false;

@@ -29,10 +29,9 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean; colum
   if (args.git === undefined && args.head === undefined) {
     throw new UsageError('compare needs two files (BASE HEAD), or one file and --git REF');
   }
-  const [{ loadProject, parseProject, requireFilter }, { analyzeProject }, { compareOverlays }, { compareReport, overlayColumns }] = await Promise.all([
+  const [{ loadProject, parseProject, requireFilter }, { analyzeProject, compareOverlays }, { compareReport, overlayColumns }] = await Promise.all([
     import('../project/index.js'),
-    import('../engine/analyze.js'),
-    import('../engine/compareOverlays.js'),
+    import('../engine/index.js'),
     import('../report/compare.js'),
   ]);
 

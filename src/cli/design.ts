@@ -59,13 +59,14 @@ export async function runDesign(
   if (args.write !== undefined && !args.force && fs.existsSync(args.write)) {
     return { stdout: '', stderr: `dacsmith: ${args.write} exists; use --force to overwrite it\n`, code: EXIT_BAD_INPUT };
   }
-  const [{ loadProject }, { designSearch, tradeoffCurves }, { designReport }, { robustDesigns }, { designProgressLine }] =
+  const [{ loadProject }, { designSearch, tradeoffCurves }, { designReport }, { robustDesigns }, { designProgressLine }, { robustChecks }] =
     await Promise.all([
       import('../project/index.js'),
       import('../design/index.js'),
       import('../report/design.js'),
       import('../design/robustDesigns.js'),
       import('../report/designProgress.js'),
+      import('../tolerance/index.js'),
     ]);
   const project = loadProject(args.file);
   // Progress only on a terminal, and not when asked to be quiet.
@@ -76,7 +77,7 @@ export async function runDesign(
   try {
     const share = args.charts ? 0.5 : 1;
     if (args.robust) {
-      robust = robustDesigns(project, args.robust, { top: args.top, ...(bar && { onProgress: (f: number) => bar.update(share * f) }) });
+      robust = robustDesigns(project, args.robust, { checks: robustChecks, top: args.top, ...(bar && { onProgress: (f: number) => bar.update(share * f) }) });
       result = { ...robust.nominal, candidates: robust.candidates.map((r) => r.candidate), feasible: robust.candidates.length > 0, diagnosis: [] };
     } else {
       result = designSearch(project, { top: args.top, ...(bar && { onProgress: (f: number, d?: DesignProgress) => bar.update(share * f, d) }) });

@@ -1,5 +1,5 @@
-import { ladderFromProject } from '../circuit/fromProject.js';
 import { checkNumericalDomain, OutsideDomainError } from '../engine/index.js';
+import { ladderFromProject } from '../project/ladderFromProject.js';
 import { DesignInputError } from './designInputError.js';
 import type { DesignProblem } from './designProblem.js';
 

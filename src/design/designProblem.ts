@@ -1,5 +1,5 @@
 import type { Ladder } from '../circuit/ladder.js';
-import { defaultBand } from '../engine/analyze.js';
+import { defaultBand } from '../engine/index.js';
 import type { Project } from '../project/types.js';
 import { seriesValues } from '../units/index.js';
 import { DesignInputError } from './designInputError.js';

@@ -1,4 +1,4 @@
-import { ladderFromProject } from '../circuit/fromProject.js';
+import { ladderFromProject } from '../project/ladderFromProject.js';
 import type { Project } from '../project/types.js';
 import { designProblem, type DesignProblem } from './designProblem.js';
 import { DesignInputError } from './designInputError.js';

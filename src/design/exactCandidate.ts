@@ -1,6 +1,4 @@
-import { specChecks, type Check } from '../engine/checks.js';
-import { dcTransfer, defaultSettling, pinPeakCurrent, settlingTime, worstRipple } from '../engine/index.js';
-import type { Settling } from '../engine/types.js';
+import { specChecks, dcTransfer, defaultSettling, pinPeakCurrent, settlingTime, worstRipple, type Check, type Settling } from '../engine/index.js';
 import type { Ladder } from '../circuit/ladder.js';
 import type { DesignProblem } from './designProblem.js';
 import type { Candidate } from './types.js';

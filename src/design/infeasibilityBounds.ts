@@ -1,20 +1,11 @@
 import { formatEng } from '../units/index.js';
 import type { DesignProblem } from './designProblem.js';
+import type { ProvenMiss } from './types.js';
+
+export type { ProvenMiss } from './types.js';
 
 /** Relative allowance: a bound proves a miss only beyond the limit by this much (rounding). */
 const REL = 1e-6;
-
-/** One limit that no design with `stages` stages of the space can meet, with the proof's numbers. */
-export interface ProvenMiss {
-  stages: number;
-  limit: 'pin_current' | 'droop' | 'gain' | 'ripple' | 'settling';
-  /** The best value any design of the space can reach (a proven bound: floor, or for R caps, the cap). */
-  reach: number;
-  /** The limit's value (SI). */
-  limitValue: number;
-  /** One line: what was compared, in words. */
-  reason: string;
-}
 
 /** Global bounds of one stage count, shared by the checks below. */
 export interface SpaceBounds {

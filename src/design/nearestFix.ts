@@ -4,21 +4,10 @@ import { formatEng } from '../units/index.js';
 import { boundedSearch, type SearchBudget } from './boundedSearch.js';
 import { designLabel } from './designLabel.js';
 import type { DesignProblem } from './designProblem.js';
-import type { Candidate } from './types.js';
+import type { Candidate, FixKind, NearestFix } from './types.js';
 
-/** Kinds of change an explanation may suggest. */
-export type FixKind = 'resolution' | 'frequency' | 'stages' | 'follower' | 'resistance' | 'capacitance';
+export type { FixKind, NearestFix } from './types.js';
 
-/** A change of the project that makes the search feasible, verified by a search. */
-export interface NearestFix {
-  kind: FixKind;
-  /** What changes, in words ("7 bits (125 kHz)"). */
-  change: string;
-  /** The best design the search found after the change (meets every limit of the changed project). */
-  best: Candidate;
-  /** The line for the report. */
-  line: string;
-}
 
 /** Resolutions below the lowest searched, and frequency factors, tried at most. */
 const FEWER_BITS = 4;

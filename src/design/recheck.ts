@@ -1,4 +1,4 @@
-import { specChecks } from '../engine/checks.js';
+import { specChecks } from '../engine/index.js';
 import type { DesignProblem } from './designProblem.js';
 import { marginsOf } from './exactCandidate.js';
 import type { Candidate } from './types.js';

@@ -1,4 +1,4 @@
-import { symmetricEigen } from '../engine/symmetricEigen.js';
+import { symmetricEigen } from '../numeric/symmetricEigen.js';
 
 /**
  * Slowest time constant (s) of an unbuffered RC ladder driven through `driver` ohm, with an
@@ -6,7 +6,7 @@ import { symmetricEigen } from '../engine/symmetricEigen.js';
  *
  * Method: tau_max = 1 / lambda_min of S = C^(-1/2) G C^(-1/2) (nodal conductance matrix G,
  * capacitances C); closed form for one and two stages (lambda_min = det / lambda_max, the
- * determinant written without cancellation), cyclic Jacobi beyond (engine/symmetricEigen.ts).
+ * determinant written without cancellation), cyclic Jacobi beyond (numeric/symmetricEigen.ts).
  * By the Rayleigh quotient tau_max = max_v (v^T C v) / (v^T G v), it never falls when any C or
  * any R grows (common practice; Courant-Fischer, Golub & Van Loan, Theorem 8.1.2), which the search
  * relies on for its windows.

@@ -1,4 +1,4 @@
-import { defaultBand } from '../engine/analyze.js';
+import { defaultBand } from '../engine/index.js';
 import type { Project, SettlingSpec } from '../project/types.js';
 import { designProblem } from './designProblem.js';
 import { projectAtResolution } from './projectAtResolution.js';

@@ -1,7 +1,5 @@
 /** Types of the design search (`dacsmith design`). SI base units throughout (V, s, Hz, ohm, F, A). */
-import type { Check, CheckName } from '../engine/checks.js';
-import type { ProvenMiss } from './infeasibilityBounds.js';
-import type { NearestFix } from './nearestFix.js';
+import type { Check, CheckName } from '../engine/index.js';
 
 /** One stage of a proposed filter. */
 export interface CandidateStage {
@@ -156,4 +154,30 @@ export interface DesignProgress {
   frequency?: number;
   /** Best settling time found so far (fast estimate of a design passing every fast check), s; null: none yet. */
   best?: number | null;
+}
+
+/** One limit that no design with `stages` stages of the space can meet, with the proof's numbers. */
+export interface ProvenMiss {
+  stages: number;
+  limit: 'pin_current' | 'droop' | 'gain' | 'ripple' | 'settling';
+  /** The best value any design of the space can reach (a proven bound: floor, or for R caps, the cap). */
+  reach: number;
+  /** The limit's value (SI). */
+  limitValue: number;
+  /** One line: what was compared, in words. */
+  reason: string;
+}
+
+/** Kinds of change an explanation may suggest. */
+export type FixKind = 'resolution' | 'frequency' | 'stages' | 'follower' | 'resistance' | 'capacitance';
+
+/** A change of the project that makes the search feasible, verified by a search. */
+export interface NearestFix {
+  kind: FixKind;
+  /** What changes, in words ("7 bits (125 kHz)"). */
+  change: string;
+  /** The best design the search found after the change (meets every limit of the changed project). */
+  best: Candidate;
+  /** The line for the report. */
+  line: string;
 }

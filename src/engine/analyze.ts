@@ -1,17 +1,17 @@
-import { ladderFromProject } from '../circuit/fromProject.js';
+import { ladderFromProject } from '../project/ladderFromProject.js';
 import type { Ladder } from '../circuit/ladder.js';
 import type { Project } from '../project/types.js';
-import {
-  checkNumericalDomain,
-  cutoff as cutoffFrequency,
-  dcTransfer,
-  defaultSettling,
-  magnitude,
-  pinPeakCurrent as pinPeak,
-  settlingTime,
-  steadyState,
-  worstRipple as findWorstRipple,
-} from './index.js';
+// The modules themselves, not index.ts: index.ts exports analyzeProject, so importing it here would
+// make a cycle.
+import { checkNumericalDomain } from './numericalDomain.js';
+import { cutoff as cutoffFrequency } from './cutoff.js';
+import { dcTransfer } from './dcTransfer.js';
+import { defaultSettling } from './defaultSettling.js';
+import { magnitude } from './magnitude.js';
+import { pinPeakCurrent as pinPeak } from './pinPeakCurrent.js';
+import { settlingTime } from './settlingTime.js';
+import { steadyState } from './steadyState.js';
+import { worstRipple as findWorstRipple } from './worstRipple.js';
 import { specChecks, type Check } from './checks.js';
 import { plausibilityWarnings, type Warning } from './plausibilityWarnings.js';
 import { warningFigures } from './warningFigures.js';

@@ -1,5 +1,5 @@
 import type { Ladder } from '../circuit/ladder.js';
-import { brentRoot } from './brentRoot.js';
+import { brentRoot } from '../numeric/brentRoot.js';
 import { relativeGain } from './magnitude.js';
 import { prepare } from './prepare.js';
 import { timeConstants } from './timeConstants.js';

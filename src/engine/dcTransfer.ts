@@ -3,7 +3,7 @@ import type { DcTransfer } from './types.js';
 import { averageOutput } from './averageOutput.js';
 import { averageOutputByExpm } from './averageOutputByExpm.js';
 import { checkRange } from './checkArguments.js';
-import { maximizeOnInterval } from './maximizeOnInterval.js';
+import { maximizeOnInterval } from '../numeric/maximizeOnInterval.js';
 import { prepare } from './prepare.js';
 import type { SteadyMethod } from './steadyState.js';
 

@@ -1,49 +1,9 @@
-import { luFactor, luSolve, matmul, matvec, normInf, rowDot, zeros, type Matrix, type Vector } from './dense.js';
+import { luFactor, luSolve } from '../numeric/lu.js';
+import { matmul, matvec, normInf, rowDot, zeros, type Matrix, type Vector } from '../numeric/dense.js';
 import { doubleFlow, flow, type Flow } from './flow.js';
-import { PLAN_CACHE_SIZE, type Prepared } from './prepare.js';
-import type { PeriodExtrema } from './periodTrajectory.js';
+import { PLAN_CACHE_SIZE, type DutyPlan, type PhasePlan, type Prepared } from './planTypes.js';
 
-/** One phase (pin high or low) of a period at a given duty. */
-export interface PhasePlan {
-  A: Matrix;
-  /** Phase length, s (0 at duty 0 or 1). */
-  t: number;
-  /** Grid cells and their length t / cells. */
-  cells: number;
-  h: number;
-  /** Flow over one cell (marching) and over the whole phase. */
-  step: Flow;
-  full: Flow;
-  /**
-   * Flows over h 2^-K, h 2^-(K-1), ..., h/2: the first cell is marched on the geometric grid
-   * 0, h 2^-K, h 2^-(K-1), ..., h so that turning points caused by time constants far shorter than
-   * a cell are bracketed too. Empty when h is short against every time constant.
-   */
-  fine: Flow[];
-}
-
-/** Periodic steady state at one duty, without extrema; quantities in deviation form. */
-export interface DutyPlan {
-  duty: number;
-  high: PhasePlan;
-  low: PhasePlan;
-  /** S = I - E_l E_h = K_l + E_l K_h: the one-period map of deviations is I - S. */
-  S: Matrix;
-  /** u = x_s - x_l, x_s the state at the rising edge. */
-  u: Vector;
-  /** Delta - u = x_h - x_s, what drives the high phase. */
-  vHigh: Vector;
-  /** x_s = x_l + u = x_h - vHigh (whichever adds the smaller correction). */
-  xStart: Vector;
-  /** Output at the rising edge, V. */
-  yStart: number;
-  /** average - yStart, V (a small quantity, kept separately for relative accuracy). */
-  meanOffset: number;
-  /** Time-average output, V. */
-  average: number;
-  /** Steady-state extrema, filled on first use. */
-  extrema?: PeriodExtrema;
-}
+export type { DutyPlan, PhasePlan } from './planTypes.js';
 
 /**
  * Periodic steady state of the ladder at duty D, in deviations from the DC state of the low phase.
@@ -111,7 +71,7 @@ export function dutyPlan(p: Prepared, duty: number): DutyPlan {
  * matters: squaring amplifies rounding by about 2 per step in the slow components, so the phase
  * flows must not inherit the extra K squarings of the sub-grid.
  */
-function phasePlan(A: Matrix, n: number, t: number, cells: number, balance: number[]): PhasePlan {
+function phasePlan(A: Matrix, n: number, t: number, cells: number, balance: readonly number[]): PhasePlan {
   const h = t / cells;
   const step = flow(A, n, h, true, balance);
   let full = step;

@@ -1,5 +1,5 @@
-import { identity, matmul, zeros, type Matrix } from './dense.js';
-import { expm } from './expm.js';
+import { identity, matmul, zeros, type Matrix } from '../numeric/dense.js';
+import { expm } from '../numeric/expm.js';
 
 /**
  * The exact flow of x' = A x + b over a time t, in the three matrices the engine needs:
@@ -34,7 +34,7 @@ export interface Flow {
  * Syntax: flow(A, n, t[, withIntegral, scale])
  * Example: flow([-1], 1, 1e-12).K  // [1e-12 * (1 - 5e-13)], to full precision
  */
-export function flow(A: Matrix, n: number, t: number, withIntegral = true, scale?: number[]): Flow {
+export function flow(A: Matrix, n: number, t: number, withIntegral = true, scale?: readonly number[]): Flow {
   const blocks = withIntegral ? 3 : 2;
   const m = blocks * n;
   if (t === 0) {

@@ -24,3 +24,15 @@ export { steadyRecord } from './steadyRecord.js';
 export { magnitudeResponse } from './magnitudeResponse.js';
 export { dcErrorAcrossDuty } from './dcErrorAcrossDuty.js';
 export type { ChartSeries, CompareOverlays, Overlay, StepRecord, SteadyRecord, MagnitudeSeries, DcErrorSeries, WaveformRecords } from './types.js';
+export type { RobustCheck, RobustChecks, RobustVerdict, WorstCaseFigures, YieldFigures } from './robustVerdict.js';
+export { analyzeProject, defaultBand, type Analysis, type AnalyzeOptions } from './analyze.js';
+export { specChecks, type Check, type CheckInputs, type CheckName } from './checks.js';
+// For the tolerance studies, which evaluate many ladders through the modal form directly.
+export { averageOutput } from './averageOutput.js';
+export { prepare, type Prepared } from './prepare.js';
+export { modalLadder, type ModalLadder } from './modal/modalLadder.js';
+export { averageOutput as modalAverageOutput } from './modal/averageOutput.js';
+export { rippleAt } from './modal/rippleAt.js';
+export type { PeriodicState } from './modal/periodicState.js';
+export { modalSettling } from './modal/settling.js';
+export { MAX_MODAL_CONDITION } from './modalRoute.js';

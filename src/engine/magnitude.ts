@@ -1,5 +1,6 @@
 import type { Ladder } from '../circuit/ladder.js';
-import { luFactor, luSolve, zeros } from './dense.js';
+import { luFactor, luSolve } from '../numeric/lu.js';
+import { zeros } from '../numeric/dense.js';
 import { prepare, type Prepared } from './prepare.js';
 
 /**
@@ -7,7 +8,7 @@ import { prepare, type Prepared } from './prepare.js';
  * |H(j 2 pi f)| / |H(0)| with H(s) = c^T (sI - A)^{-1} b, driver = mean of high and low.
  *
  * Method: the complex system (j w I - A) z = b solved as the real 2n x 2n system
- * [[-A, -w I], [w I, -A]] [Re z; Im z] = [b; 0] by LU with partial pivoting (dense.ts); H(0)
+ * [[-A, -w I], [w I, -A]] [Re z; Im z] = [b; 0] by LU with partial pivoting (numeric/lu.ts); H(0)
  * from -A z0 = b. Transfer function of a state-space model (common practice).
  *
  * Syntax: magnitude(ladder, frequency)

@@ -1,7 +1,7 @@
 import type { Ladder } from '../circuit/ladder.js';
 import { checkLadder } from '../circuit/checkLadder.js';
 import type { OperatingPoint } from './types.js';
-import { phi2 } from './phi2.js';
+import { phi2 } from '../numeric/phi.js';
 
 /**
  * Periodic steady state of a one-stage ladder in closed form (the fast path of steadyState; it

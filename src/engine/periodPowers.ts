@@ -1,4 +1,4 @@
-import { identity, matmul, matvec, normInf, type Matrix, type Vector } from './dense.js';
+import { identity, matmul, matvec, normInf, type Matrix, type Vector } from '../numeric/dense.js';
 
 /**
  * Powers M^(2^j) of the one-period map of deviations, M = E_l E_h = I - S, kept as I + N while

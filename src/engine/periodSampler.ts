@@ -1,4 +1,4 @@
-import { matvec, rowDot, zeros, type Vector } from './dense.js';
+import { matvec, rowDot, zeros, type Vector } from '../numeric/dense.js';
 import type { DutyPlan } from './dutyPlan.js';
 import { flow } from './flow.js';
 import type { Prepared } from './prepare.js';

@@ -1,18 +1,10 @@
-import { matvec, rowDot, zeros, type Matrix, type Vector } from './dense.js';
-import { expm } from './expm.js';
+import { matvec, rowDot, zeros, type Matrix, type Vector } from '../numeric/dense.js';
+import { expm } from '../numeric/expm.js';
 import { flow } from './flow.js';
-import { brentRoot } from './brentRoot.js';
-import type { DutyPlan, PhasePlan } from './dutyPlan.js';
-import type { Prepared } from './prepare.js';
+import { brentRoot } from '../numeric/brentRoot.js';
+import type { DutyPlan, PeriodExtrema, PhasePlan, Prepared } from './planTypes.js';
 
-/** Extremes of the output over one period, as deviations from the output at the period start. */
-export interface PeriodExtrema {
-  /** Smallest and largest c^T (x(t) - x(0)), V, and where (s from the rising edge). */
-  minW: number;
-  maxW: number;
-  tMin: number;
-  tMax: number;
-}
+export type { PeriodExtrema } from './planTypes.js';
 
 /** One period of the exact trajectory, with what is needed to evaluate it anywhere. */
 export interface PeriodTrajectory extends PeriodExtrema {

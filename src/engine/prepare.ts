@@ -2,31 +2,10 @@ import type { Ladder } from '../circuit/ladder.js';
 import { rememberRecentLadders } from './recentLadders.js';
 import { stateSpace, type StateSpace } from '../circuit/stateSpace.js';
 import { dcGain } from '../circuit/dcGain.js';
-import type { Vector } from './dense.js';
-import type { DutyPlan } from './dutyPlan.js';
+import type { Vector } from '../numeric/dense.js';
+import type { Prepared } from './planTypes.js';
 
-/** Everything about a ladder that does not depend on the duty, computed once per ladder object. */
-export interface Prepared {
-  n: number;
-  period: number;
-  system: StateSpace;
-  /** DC state of each phase alone: x_p = -A_p^{-1} b_p. */
-  xHigh: Vector;
-  xLow: Vector;
-  /** xHigh - xLow, formed from the per-volt gains so equal drivers give no subtraction. */
-  delta: Vector;
-  /** Balancing scale sqrt(C_i) of each node (see flow.ts). */
-  balance: number[];
-  /** Grid cells per phase for locating turning points (1 for one stage: none exist). */
-  cells: number;
-  /** Per-duty work, reused by several calls on the same ladder (bounded size). */
-  plans: Map<number, DutyPlan>;
-  /** Lazily filled: time constants, slowest first. */
-  timeConstants?: number[];
-}
-
-/** Largest number of cached duty plans per ladder before the cache is cleared. */
-export const PLAN_CACHE_SIZE = 64;
+export { PLAN_CACHE_SIZE, type Prepared } from './planTypes.js';
 
 /**
  * The duty-independent data of a ladder (state equations, DC states), cached for the few most

@@ -1,8 +1,8 @@
 import type { Ladder } from '../circuit/ladder.js';
 import type { Settling } from './types.js';
-import { brentRoot } from './brentRoot.js';
+import { brentRoot } from '../numeric/brentRoot.js';
 import { checkDuty } from './checkArguments.js';
-import { vectorNormInf, type Vector } from './dense.js';
+import { vectorNormInf, type Vector } from '../numeric/dense.js';
 import { dutyPlan, type DutyPlan } from './dutyPlan.js';
 import { periodPowers } from './periodPowers.js';
 import { periodTrajectory } from './periodTrajectory.js';

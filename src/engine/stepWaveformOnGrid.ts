@@ -1,7 +1,7 @@
 import type { Ladder } from '../circuit/ladder.js';
 import type { Waveform } from './types.js';
 import { checkCount, checkDuty } from './checkArguments.js';
-import type { Vector } from './dense.js';
+import type { Vector } from '../numeric/dense.js';
 import { dutyPlan } from './dutyPlan.js';
 import { periodPowers } from './periodPowers.js';
 import { periodSampler } from './periodSampler.js';

@@ -1,6 +1,6 @@
 import type { Ladder } from '../circuit/ladder.js';
 import { prepare } from './prepare.js';
-import { symmetricEigen } from './symmetricEigen.js';
+import { symmetricEigen } from '../numeric/symmetricEigen.js';
 
 /**
  * Time constants of the filter with the driver at the mean of its high and low resistances, s,

@@ -1,7 +1,7 @@
 import type { Ladder } from '../circuit/ladder.js';
 import type { WorstRipple } from './types.js';
 import { checkRange } from './checkArguments.js';
-import { maximizeOnInterval } from './maximizeOnInterval.js';
+import { maximizeOnInterval } from '../numeric/maximizeOnInterval.js';
 import { steadyState, type SteadyMethod } from './steadyState.js';
 import { steadyStateByExpm } from './steadyStateByExpm.js';
 

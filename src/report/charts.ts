@@ -1,5 +1,4 @@
-import type { Analysis } from '../engine/analyze.js';
-import type { ChartSeries, Waveform } from '../engine/types.js';
+import type { Analysis, ChartSeries, Waveform } from '../engine/index.js';
 import { formatEng } from '../units/index.js';
 import { lineChart } from './lineChart.js';
 import { tidy } from './quantities.js';

@@ -1,5 +1,4 @@
-import type { Check } from '../engine/checks.js';
-import type { Warning } from '../engine/plausibilityWarnings.js';
+import type { Check, Warning } from '../engine/index.js';
 import { formatEng } from '../units/index.js';
 import { palette } from './color.js';
 import { textWidth, wrapParagraph, wrapText } from './wrapText.js';

@@ -1,6 +1,5 @@
 import { plot } from 'asciichart';
-import type { Analysis } from '../engine/analyze.js';
-import type { CompareOverlays, Overlay } from '../engine/types.js';
+import type { Analysis, CompareOverlays, Overlay } from '../engine/index.js';
 import type { Project } from '../project/types.js';
 import { formatEng } from '../units/index.js';
 import { axisFormatter } from './axis.js';

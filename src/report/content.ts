@@ -1,5 +1,4 @@
-import type { Analysis } from '../engine/analyze.js';
-import type { ChartSeries } from '../engine/types.js';
+import type { Analysis, ChartSeries } from '../engine/index.js';
 import type { Project } from '../project/types.js';
 import { formatEng, formatIec60062 } from '../units/index.js';
 import { cautions } from './cautions.js';

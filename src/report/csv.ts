@@ -1,4 +1,4 @@
-import type { WaveformRecords } from '../engine/types.js';
+import type { WaveformRecords } from '../engine/index.js';
 
 /**
  * The waveforms of an analysis as CSV (RFC 4180, header line, '\n' line ends): columns

@@ -1,5 +1,4 @@
-import type { Analysis } from '../engine/analyze.js';
-import type { ChartSeries } from '../engine/types.js';
+import type { Analysis, ChartSeries } from '../engine/index.js';
 import type { Project } from '../project/types.js';
 import { reportDocument } from './content.js';
 import { renderDocument } from './renderDocument.js';

@@ -2,7 +2,7 @@ import type { Project } from '../project/types.js';
 import type { MonteCarloResult } from '../tolerance/monteCarlo.js';
 import type { ToleranceParameter } from '../tolerance/parameters.js';
 import type { ToleranceStudyResult } from '../tolerance/study.js';
-import { histogram, type Percentiles } from '../tolerance/statistics.js';
+import { histogram, type Percentiles } from '../numeric/statistics.js';
 import type { Effect, WorstCaseFigure, WorstCaseResult } from '../tolerance/worstCase.js';
 import { formatEng } from '../units/index.js';
 import type { Block, ReportDocument, Section } from './document.js';

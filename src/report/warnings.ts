@@ -1,4 +1,4 @@
-import type { Warning } from '../engine/plausibilityWarnings.js';
+import type { Warning } from '../engine/index.js';
 import type { Section } from './document.js';
 
 /**

@@ -1,5 +1,4 @@
-import { brentMaximize, type Maximum } from '../engine/brentMaximize.js';
-import { maximizeOnInterval } from '../engine/maximizeOnInterval.js';
+import { brentMaximize, maximizeOnInterval, type Maximum } from '../numeric/maximizeOnInterval.js';
 
 /** Grid cells of the duty searches, as in the engine (maximizeOnInterval). */
 export const DUTY_CELLS = 16;

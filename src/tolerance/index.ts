@@ -18,4 +18,5 @@ export { toleranceParameters, ladderAt, type ToleranceParameter, type ParameterT
 export { drawDeviates, type Distribution } from './deviates.js';
 export { evaluateSamples, type SampleTable } from './evaluateSamples.js';
 export { summarizeSamples, type SampleSummary, type SpecName } from './summarizeSamples.js';
-export { percentiles, quantileSorted, wilsonInterval, histogram, type Percentiles, type Histogram } from './statistics.js';
+export { percentiles, quantileSorted, wilsonInterval, histogram, type Percentiles, type Histogram } from '../numeric/statistics.js';
+export { robustChecks, worstCaseCheck, yieldCheck } from './robustChecks.js';

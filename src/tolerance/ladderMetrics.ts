@@ -1,13 +1,7 @@
 import type { Ladder } from '../circuit/ladder.js';
-import { dcTransfer, settlingTime, worstRipple } from '../engine/index.js';
+import { dcTransfer, settlingTime, worstRipple, modalLadder, type ModalLadder, MAX_MODAL_CONDITION, rippleAt, modalAverageOutput as averageOutput, type PeriodicState, modalSettling } from '../engine/index.js';
 import type { MetricPlan } from './metricPlan.js';
 import { maximizeFromHints } from './dutySearch.js';
-import { modalLadder, type ModalLadder } from '../engine/modal/modalLadder.js';
-import { MAX_MODAL_CONDITION } from '../engine/modalRoute.js';
-import { rippleAt } from '../engine/modal/rippleAt.js';
-import { averageOutput } from '../engine/modal/averageOutput.js';
-import type { PeriodicState } from '../engine/modal/periodicState.js';
-import { modalSettling } from '../engine/modal/settling.js';
 
 /** The figures a tolerance study checks for one ladder (SI: V, s). */
 export interface LadderMetrics {

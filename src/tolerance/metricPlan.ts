@@ -1,12 +1,7 @@
 import type { Ladder } from '../circuit/ladder.js';
-import { defaultBand } from '../engine/analyze.js';
+import { defaultBand, modalAverageOutput as averageOutput, averageOutput as engineAverage, prepare, modalLadder, rippleAt } from '../engine/index.js';
 import type { Project } from '../project/types.js';
 import { gridPeaks } from './dutySearch.js';
-import { averageOutput } from '../engine/modal/averageOutput.js';
-import { averageOutput as engineAverage } from '../engine/averageOutput.js';
-import { prepare } from '../engine/prepare.js';
-import { modalLadder } from '../engine/modal/modalLadder.js';
-import { rippleAt } from '../engine/modal/rippleAt.js';
 
 /** What to compute for each ladder of a tolerance study, and the limits to check. */
 export interface MetricPlan {

@@ -1,5 +1,5 @@
 import { InputError } from '../units/index.js';
-import { ladderFromProject } from '../circuit/fromProject.js';
+import { ladderFromProject } from '../project/ladderFromProject.js';
 import type { Ladder } from '../circuit/ladder.js';
 import type { Project, ToleranceSettings } from '../project/types.js';
 import { drawDeviates, type Distribution } from './deviates.js';

@@ -1,4 +1,4 @@
-import type { Ladder } from '../circuit/ladder.js';
+import type { Ladder, Stage } from '../circuit/ladder.js';
 import type { ToleranceSettings } from '../project/types.js';
 
 /** Which part of the circuit a parameter sets. */
@@ -75,8 +75,9 @@ export function toleranceParameters(settings: ToleranceSettings, ladder: Ladder)
  * Example: ladderAt(ladder, params, [-1, 1])  // R1 at its minimum, C1 at its maximum
  */
 export function ladderAt(ladder: Ladder, parameters: ToleranceParameter[], z: ArrayLike<number>, offset = 0): Ladder {
-  const stages = ladder.stages.map((s) => ({ ...s }));
-  const next: Ladder = { ...ladder, stages };
+  // A fresh ladder, written field by field before anyone sees it (Ladder is readonly to its users).
+  const stages: Writable<Stage>[] = ladder.stages.map((s) => ({ ...s }));
+  const next: Writable<Ladder> = { ...ladder, stages };
   for (let p = 0; p < parameters.length; p++) {
     const { target, min, max } = parameters[p];
     const value = 0.5 * (min + max) + z[offset + p] * 0.5 * (max - min);
@@ -103,3 +104,5 @@ export function ladderAt(ladder: Ladder, parameters: ToleranceParameter[], z: Ar
   }
   return next;
 }
+
+type Writable<T> = { -readonly [K in keyof T]: T[K] };

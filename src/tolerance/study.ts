@@ -1,4 +1,4 @@
-import { ladderFromProject } from '../circuit/fromProject.js';
+import { ladderFromProject } from '../project/ladderFromProject.js';
 import type { Ladder } from '../circuit/ladder.js';
 import { checkNumericalDomain, plausibilityWarnings, warningFigures, type Warning } from '../engine/index.js';
 import type { Project } from '../project/types.js';

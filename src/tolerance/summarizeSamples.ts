@@ -1,6 +1,6 @@
 import type { MetricPlan } from './metricPlan.js';
 import type { SampleTable } from './evaluateSamples.js';
-import { percentiles, wilsonInterval, type Percentiles } from './statistics.js';
+import { percentiles, wilsonInterval, type Percentiles } from '../numeric/statistics.js';
 
 /** A spec the yield is counted against. */
 export type SpecName = 'ripple' | 'droop' | 'inl' | 'gain' | 'settling';

@@ -1,6 +1,6 @@
-import { ladderFromProject } from '../circuit/fromProject.js';
+import { ladderFromProject } from '../project/ladderFromProject.js';
 import type { Ladder } from '../circuit/ladder.js';
-import { brentMaximize } from '../engine/brentMaximize.js';
+import { brentMaximize } from '../numeric/maximizeOnInterval.js';
 import type { Project } from '../project/types.js';
 import { ladderMetrics, type LadderMetrics } from './ladderMetrics.js';
 import { metricPlan, type MetricPlan } from './metricPlan.js';

@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { ladderFromProject } from '../../src/circuit/fromProject.js';
+import { ladderFromProject } from '../../src/project/ladderFromProject.js';
 import { designSearch } from '../../src/design/designSearch.js';
 import { DesignInputError } from '../../src/design/designInputError.js';
-import { robustDesigns, worstCaseCheck, yieldCheck, type RobustCheck } from '../../src/design/robustDesigns.js';
+import { robustDesigns, type RobustCheck } from '../../src/design/robustDesigns.js';
+import { robustChecks as checks, worstCaseCheck, yieldCheck } from '../../src/tolerance/robustChecks.js';
 import type { Candidate, DesignOptions, DesignResult } from '../../src/design/types.js';
 import { parseProject } from '../../src/project/index.js';
 
@@ -26,7 +27,7 @@ describe('robustDesigns: scan of the nominal ranking', () => {
   it('returns a subset of the nominal list in the same order, and skips only designs that fail the check', () => {
     // 20 % capacitors: the nominal leaders sit near the ripple limit, so some must be skipped.
     const p = project(BASE + TOL('1 %', '20 %'));
-    const robust = robustDesigns(p, 'worst-case', { top: 3 });
+    const robust = robustDesigns(p, 'worst-case', { checks, top: 3 });
     const nominal = designSearch(p, { top: robust.asked, compare: false, diagnose: false }).candidates.map(key);
     const ranks = robust.candidates.map((r) => r.nominalRank);
     expect(robust.candidates.length).toBe(3);
@@ -47,7 +48,7 @@ describe('robustDesigns: scan of the nominal ranking', () => {
 
   it('with 0 % tolerance the robust list equals the nominal list (worst case = nominal; common practice sanity check)', () => {
     const p = project(BASE + TOL('0 %', '0 %'));
-    const robust = robustDesigns(p, 'worst-case', { top: 5 });
+    const robust = robustDesigns(p, 'worst-case', { checks, top: 5 });
     const nominal = designSearch(p, { top: 5, compare: false, diagnose: false }).candidates;
     expect(robust.candidates.map((r) => key(r.candidate))).toEqual(nominal.map(key));
     expect(robust.candidates.map((r) => r.nominalRank)).toEqual([1, 2, 3, 4, 5]);
@@ -72,16 +73,16 @@ describe('robustDesigns: scan of the nominal ranking', () => {
       return { pass: (ladder.stages[0].r - 1000) % 40 === 39 };
     };
     const p = project(BASE + TOL('1 %', '10 %'));
-    const r = robustDesigns(p, 'worst-case', { top: 3, search, check });
+    const r = robustDesigns(p, 'worst-case', { checks, top: 3, search, check });
     expect(asked).toEqual([12, 48, 192]);
     expect(r.candidates.map((x) => x.nominalRank)).toEqual([40, 80, 120]);
     expect(r.scanned).toBe(120);
     expect(calls).toBe(120); // each design checked once across the three rounds
     // A cap stops the growth; a short list is reported as exhausted.
-    const capped = robustDesigns(p, 'worst-case', { top: 20, search, check, cap: 100 });
+    const capped = robustDesigns(p, 'worst-case', { checks, top: 20, search, check, cap: 100 });
     expect(capped.asked).toBe(100);
     expect(capped.candidates.length).toBe(2);
-    const few = robustDesigns(p, 'worst-case', { top: 50, search: (q, o) => search(q, { ...o, top: Math.min(o.top!, 130) }), check, cap: 2000 });
+    const few = robustDesigns(p, 'worst-case', { checks, top: 50, search: (q, o) => search(q, { ...o, top: Math.min(o.top!, 130) }), check, cap: 2000 });
     expect(few.exhausted).toBe(true);
     expect(few.candidates.map((x) => x.nominalRank)).toEqual([40, 80, 120]);
   });
@@ -107,7 +108,7 @@ tolerance:
 `;
   it('matches the closed-form one-stage ripple at (R - tol, C - tol) and Ohm\'s law for the pin current', () => {
     const p = project(ONE);
-    const r = robustDesigns(p, 'worst-case', { top: 4 });
+    const r = robustDesigns(p, 'worst-case', { checks, top: 4 });
     expect(r.candidates.length).toBe(4);
     const T = 1e-4;
     const V = 5;
@@ -126,14 +127,14 @@ tolerance:
 
 describe('robustDesigns: input', () => {
   it('needs a tolerance block, and a yield target for yield mode', () => {
-    expect(() => robustDesigns(project(BASE), 'worst-case')).toThrow(DesignInputError);
-    expect(() => robustDesigns(project(BASE), 'worst-case')).toThrow(/tolerance/);
-    expect(() => robustDesigns(project(BASE + TOL('1 %', '10 %')), 'yield')).toThrow(/tolerance\.yield/);
+    expect(() => robustDesigns(project(BASE), 'worst-case', { checks })).toThrow(DesignInputError);
+    expect(() => robustDesigns(project(BASE), 'worst-case', { checks })).toThrow(/tolerance/);
+    expect(() => robustDesigns(project(BASE + TOL('1 %', '10 %')), 'yield', { checks })).toThrow(/tolerance\.yield/);
   });
 
   it('yield mode uses min(tolerance.samples, 2000) samples and keeps designs whose yield reaches the target', () => {
     const p = project(BASE + TOL('1 %', '5 %') + '  yield: 90 %\n');
-    const r = robustDesigns(p, 'yield', { top: 2 });
+    const r = robustDesigns(p, 'yield', { checks, top: 2 });
     expect(r.samples).toBe(200);
     expect(r.candidates.length).toBeGreaterThan(0);
     for (const x of r.candidates) {
@@ -148,7 +149,7 @@ describe('robustDesigns: input', () => {
     const p = project(BASE.replace('search:\n', 'search:\n  pin_current: 3.3 mA\n') + TOL('10 %', '5 %') + '  yield: 50 %\n');
     const nominal = designSearch(p, { top: 40, compare: false, diagnose: false }).candidates;
     expect(nominal.slice(0, 10).some((c) => c.stages[0].r === 1000)).toBe(true); // the case really arises
-    const r = robustDesigns(p, 'yield', { top: 3 });
+    const r = robustDesigns(p, 'yield', { checks, top: 3 });
     expect(r.candidates.length).toBe(3);
     for (const x of r.candidates) {
       expect(x.candidate.stages[0].r).toBeGreaterThan(1000);
@@ -161,7 +162,7 @@ describe('robustDesigns: input', () => {
     const skipped = nominal.slice(0, last).filter((c) => !kept.has(key(c)));
     expect(skipped.length).toBeGreaterThan(0);
     for (const c of skipped) {
-      expect(yieldCheck(200)(p, ladderFromProject(p, c.stages.map((st) => ({ r: st.r, c: st.c, buffered: false }))), c).pass).toBe(false);
+      expect(yieldCheck(200)(p, ladderFromProject(p, c.stages.map((st) => ({ r: st.r, c: st.c, buffered: false })))).pass).toBe(false);
     }
   });
 });

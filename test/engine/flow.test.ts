@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { expm as mathjsExpm, inv, matrix, multiply, subtract, identity as mIdentity } from 'mathjs';
 import { doubleFlow, flow } from '../../src/engine/flow.js';
-import { phi2 } from '../../src/engine/phi2.js';
+import { phi2 } from '../../src/numeric/phi.js';
 
 const rows = (a: number[], n: number): number[][] =>
   Array.from({ length: n }, (_, i) => a.slice(i * n, i * n + n));

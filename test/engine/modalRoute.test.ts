@@ -20,6 +20,7 @@ describe('modalRoute', () => {
     // isolated sections have no modal form; making them distinct in place must not be noticed.
     const l = ladder([stage(1e3, 1e-7, true), stage(1e3, 1e-7)]);
     expect(modalRoute(l)).toBeNull();
+    // @ts-expect-error Ladder is deeply readonly: the compiler refuses this write (test/circuit/ladder.test.ts)
     l.stages[1].c = 3e-7;
     expect(modalLadder(l)).not.toBeNull();
     expect(modalRoute(l)).toBeNull();
@@ -27,6 +28,7 @@ describe('modalRoute', () => {
     const k = ladder([stage(1e3, 1e-7, true), stage(1e3, 3e-7)]);
     const m = modalRoute(k);
     expect(m).not.toBeNull();
+    // @ts-expect-error as above
     k.stages[1].c = 1e-7;
     expect(modalRoute(k)).toBe(m);
   });

@@ -9,7 +9,8 @@ import { worstRipple } from '../../src/engine/worstRipple.js';
 import { dcTransfer } from '../../src/engine/dcTransfer.js';
 import { prepare } from '../../src/engine/prepare.js';
 import { dutyPlan } from '../../src/engine/dutyPlan.js';
-import { luFactor, luSolve, normInf } from '../../src/engine/dense.js';
+import { luFactor, luSolve } from '../../src/numeric/lu.js';
+import { normInf } from '../../src/numeric/dense.js';
 import { hasModalForm } from '../../src/engine/hasModalForm.js';
 import { timeConstants } from '../../src/engine/timeConstants.js';
 import { oneStageSteadyState } from '../../src/engine/oneStage.js';
@@ -80,7 +81,7 @@ describe('the modal route against the matrix exponentials (fast-check, random la
 
   it('steadyState: the extremes sit at the same instants (within 1e-9 T; ripple >= 1e-6 of the level, tau_min > T/10)', () => {
     // Both methods locate turning points by root finding on the exact derivative, to 1e-12 of a grid
-    // step (periodTrajectory.ts) and 1e-13 of a phase (modal/expSumRoots.ts); measured up to 1e-10 T
+    // step (periodTrajectory.ts) and 1e-13 of a phase (numeric/expSumRoots.ts); measured up to 1e-10 T
     // apart (the exponentials' instant, against an 80-digit reference; the modal one was 3e-12 T off). Excluded: tiny ripples, where the instants carry few digits, and ladders with
     // tau << T, whose output rests on a DC level for part of a phase (any instant there is an extreme).
     const periodic = (x: number, y: number, T: number) => {

@@ -2,7 +2,7 @@
 import type { Project, ToleranceSettings } from '../../src/project/types.js';
 import type { Stage } from '../../src/circuit/ladder.js';
 
-export function project(stages: Stage[], tolerance: Partial<ToleranceSettings>, extra: Partial<Project> = {}): Project {
+export function project(stages: readonly Stage[], tolerance: Partial<ToleranceSettings>, extra: Partial<Project> = {}): Project {
   return {
     file: 'demo.yaml',
     pwm: {
@@ -15,7 +15,7 @@ export function project(stages: Stage[], tolerance: Partial<ToleranceSettings>, 
       duty: { min: 0.1, max: 0.9 },
     },
     load: { capacitance: 0 },
-    filter: { stages },
+    filter: { stages: [...stages] },
     spec: {},
     tolerance: { resistor: 0.01, capacitor: 0.1, distribution: 'normal', samples: 1000, seed: 1, ...tolerance },
     ...extra,

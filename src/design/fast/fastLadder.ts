@@ -1,6 +1,6 @@
 import type { Ladder } from '../../circuit/ladder.js';
-import { symmetricEigen } from '../../engine/symmetricEigen.js';
-import { zeros } from '../../engine/dense.js';
+import { symmetricEigen } from '../../numeric/symmetricEigen.js';
+import { zeros } from '../../numeric/dense.js';
 
 /** One pin state (high or low) of an unbuffered ladder, in symmetric coordinates y = C^(1/2) x. */
 export interface FastPhase {
@@ -38,7 +38,7 @@ export interface FastLadder {
  * Method: nodal analysis C x' = -G_p x + b_p per pin state p (driver in series with R1, load at the
  * last node); with y = C^(1/2) x the system matrix becomes the symmetric S_p = C^(-1/2) G_p C^(-1/2),
  * a positive definite Jacobi (tridiagonal) matrix, so its eigenvalues are real, positive and
- * distinct and exp(-S_p t) = U exp(-Lambda t) U^T exactly (engine/symmetricEigen.ts). DC states from the
+ * distinct and exp(-S_p t) = U exp(-Lambda t) U^T exactly (numeric/symmetricEigen.ts). DC states from the
  * tridiagonal solve G_p x = b_p (Thomas algorithm).
  *
  * Syntax: fastLadder(ladder)

@@ -1,8 +1,8 @@
 import type { FastLadder } from './fastLadder.js';
-import { expSumRoots } from './expSumRoots.js';
+import { expSumRoots } from '../../numeric/expSumRoots.js';
 import { fastSteadyState, type FastSteady, type PhaseAtDuty } from './fastSteadyState.js';
-import { symmetricEigen } from '../../engine/symmetricEigen.js';
-import { matmul, matvec, spectralMatrix, transposeMatvec, zeros } from '../../engine/dense.js';
+import { symmetricEigen } from '../../numeric/symmetricEigen.js';
+import { matmul, matvec, spectralMatrix, transposeMatvec, zeros } from '../../numeric/dense.js';
 
 /** Largest period index the search looks at (2^52: beyond it a period count is no longer exact). */
 const MAX_PERIODS = 2 ** 52;
@@ -21,7 +21,7 @@ const MAX_PERIODS = 2 ** 52;
  * M^k = Phi_l^(1/2) B^(k-1) Phi_l^(1/2) Phi_h, and B = I - N with N = Psi_l + Phi_l^(1/2) Psi_h
  * Phi_l^(1/2) formed without cancellation, so beta^k = exp(k log1p(-nu)) stays accurate when the
  * time constants dwarf the period. Inside a period the error is a constant plus n exponentials
- * per phase; its band crossings come from expSumRoots.ts. The last violating period is found by
+ * per phase; its band crossings come from numeric/expSumRoots.ts. The last violating period is found by
  * galloping from the slowest mode's estimate, then bisection.
  *
  * Syntax: fastSettlingBound(model, from, to, band[, steadyFrom, steadyTo])
@@ -146,11 +146,11 @@ function lateCrossing(p: PhaseAtDuty, c: number, w: number[], e: number[], band:
   if (p.t <= 0) return -1;
   const modal = transposeMatvec(p.ph.mode, e, n);
   const b = zeros(n + 1);
-  const rate = zeros(n + 1);
+  const rate = zeros(n + 1); // exponents -rate_i (expSumRoots' convention); rate[0] = 0, the constant
   let end = c;
   for (let i = 0; i < n; i++) {
     b[i + 1] = p.ph.out[i] * modal[i] - w[i];
-    rate[i + 1] = p.ph.rate[i];
+    rate[i + 1] = -p.ph.rate[i];
     end += b[i + 1] * p.decay[i];
   }
   if (end > band || end < -band) return Infinity;

@@ -1,6 +1,8 @@
 import type { FastLadder, FastPhase } from './fastLadder.js';
-import { expSumRoots } from './expSumRoots.js';
-import { luFactor, luSolve, matmul, matvec, spectralMatrix, transposeMatvec, zeros } from '../../engine/dense.js';
+import { expSumRoots } from '../../numeric/expSumRoots.js';
+import { luFactor, luSolve } from '../../numeric/lu.js';
+import { matmul, matvec, spectralMatrix, transposeMatvec, zeros } from '../../numeric/dense.js';
+import { oneMinusPhi1 } from '../../numeric/phi.js';
 
 /** One phase of a period at a given duty, ready to be evaluated at any time inside it. */
 export interface PhaseAtDuty {
@@ -47,7 +49,7 @@ export interface FastSteady {
  * cancellation), the rising-edge deviation u = y_s - yEq(low) solves (Psi_l + Phi_l Psi_h) u =
  * Phi_l Psi_h Delta, i.e. the fixed point of the one-period map written without I - M. In each
  * phase the output is a constant plus a sum of n exponentials; its extremes are at the phase ends
- * or at zeros of the derivative (expSumRoots.ts). The average integrates the exponentials exactly.
+ * or at zeros of the derivative (numeric/expSumRoots.ts). The average integrates the exponentials exactly.
  *
  * Syntax: fastSteadyState(model, duty)
  * Example: fastSteadyState(fastLadder(ladder), 0.5).ripple   // V peak-to-peak
@@ -117,9 +119,14 @@ export function fastSteadyState(model: FastLadder, duty: number): FastSteady {
 
 /** Extremes of offset + sum_i w_i (1 - exp(-rate_i s)) at its turning points in (0, t), into ext. */
 function scanPhase(w: number[], rate: number[], t: number, offset: number, n: number, ext: number[]): void {
+  // derivative sum_i w_i r_i exp(-r_i s): exponents -r_i in expSumRoots' convention
   const slope = zeros(n);
-  for (let i = 0; i < n; i++) slope[i] = w[i] * rate[i];
-  for (const s of expSumRoots(slope, rate, t)) {
+  const exponent = zeros(n);
+  for (let i = 0; i < n; i++) {
+    slope[i] = w[i] * rate[i];
+    exponent[i] = -rate[i];
+  }
+  for (const s of expSumRoots(slope, exponent, t)) {
     let v = offset;
     for (let i = 0; i < n; i++) v -= w[i] * Math.expm1(-rate[i] * s);
     if (v > ext[0]) ext[0] = v;
@@ -137,10 +144,4 @@ export function phaseAt(ph: FastPhase, t: number): PhaseAtDuty {
     gone[i] = -Math.expm1(-ph.rate[i] * t);
   }
   return { ph, t, decay, gone };
-}
-
-/** 1 - (1 - exp(-x)) / x, the mean of 1 - exp(-r s) over a phase; series below x = 1e-2. */
-export function oneMinusPhi1(x: number): number {
-  if (x < 1e-2) return x * (1 / 2 - x * (1 / 6 - x * (1 / 24 - x * (1 / 120 - x / 720))));
-  return (x + Math.expm1(-x)) / x;
 }

@@ -1,5 +1,6 @@
 import type { FastCircuit } from './fastLadder.js';
-import { oneMinusPhi1 } from './fastSteadyState.js';
+import { solveTwoByTwo } from '../../numeric/lu.js';
+import { oneMinusPhi1 } from '../../numeric/phi.js';
 
 /** The steady-state figures the search's cheap checks need (see fastSteadyState for all of them). */
 export interface TwoStageSteady {
@@ -91,18 +92,9 @@ export function twoStageSteady(k: FastCircuit, r1: number, c1: number, r2: numbe
   const m22 = PSI_L[3] + a22;
   const r1v = a11 * d1 + a12 * d2;
   const r2v = a21 * d1 + a22 * d2;
-  // Solve with partial pivoting (Gaussian elimination unrolled for order 2, as engine/dense.luFactor).
-  let u1: number;
-  let u2: number;
-  if (Math.abs(m11) >= Math.abs(m21)) {
-    const f = m21 / m11;
-    u2 = (r2v - f * r1v) / (m22 - f * m12);
-    u1 = (r1v - m12 * u2) / m11;
-  } else {
-    const f = m11 / m21;
-    u2 = (r1v - f * r2v) / (m12 - f * m22);
-    u1 = (r2v - m22 * u2) / m21;
-  }
+  if (!solveTwoByTwo(m11, m12, m21, m22, r1v, r2v, SOLVED)) SOLVED[0] = SOLVED[1] = NaN;
+  const u1 = SOLVED[0];
+  const u2 = SOLVED[1];
 
   // High phase: deviation sum_i wh_i (1 - e^(-l_i s)), modal coordinates of Delta - u.
   const vh1 = d1 - u1;
@@ -162,6 +154,7 @@ const L: Mode = { l1: 0, l2: 0, u11: 1, u12: 0, u21: 0, u22: 1 };
 const PSI_H = [0, 0, 0, 0];
 const PHI_L = [0, 0, 0, 0];
 const PSI_L = [0, 0, 0, 0];
+const SOLVED = [0, 0];
 
 /** Eigen decomposition of [[p, q], [q, r]] (one Jacobi rotation), ascending. */
 function mode(p: number, q: number, r: number, out: Mode): void {

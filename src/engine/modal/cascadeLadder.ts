@@ -1,9 +1,9 @@
 import type { Ladder } from '../../circuit/ladder.js';
 import { stateSpace, type PhaseSystem, type Section } from '../../circuit/stateSpace.js';
-import type { ModalLadder, PhaseModes } from './modalLadder.js';
-import { solveSmall } from './solveSmall.js';
-import { symmetricEigen } from '../symmetricEigen.js';
-import { zeros } from '../dense.js';
+import type { ModalLadder, PhaseModes } from './modalTypes.js';
+import { solveLinear } from '../../numeric/lu.js';
+import { symmetricEigen } from '../../numeric/symmetricEigen.js';
+import { normInf, zeros } from '../../numeric/dense.js';
 import { dcStates } from './dcStates.js';
 
 /**
@@ -26,7 +26,7 @@ const MAX_CONDITION = 1e5;
  * own eigenvector in it, and continues into each later section t by solving
  * (A_tt - rate I) v_t = -(coupling from the sections before) v (block forward substitution;
  * Golub & Van Loan, "Matrix Computations", 4th ed., section 7.6 on block-triangular eigenproblems).
- * V^-1 by Gaussian elimination (solveSmall); the DC states from the resistive chain (dcStates.ts).
+ * V^-1 by Gaussian elimination (solveLinear, numeric/lu.ts); the DC states from the resistive chain (dcStates.ts).
  *
  * Syntax: cascadeLadder(ladder)
  * Example: cascadeLadder(bufferedTwoStage)?.hi.rate  // [-1/((R1 + Rd) C1), -1/(R2 C2)]
@@ -102,13 +102,13 @@ function phaseModes(
           for (let k = 0; k < f; k++) sum += A[(f + i) * n + k] * V[k * n + col];
           rhs[i] = -sum;
         }
-        const x = solveSmall(block, size, rhs);
+        const x = solveLinear(block, size, rhs);
         if (!x) return null; // the mode is also a mode of section t: a Jordan block
         for (let i = 0; i < size; i++) V[(f + i) * n + col] = x[i];
       }
     }
   }
-  const W = solveSmall(V, n, Array.from({ length: n * n }, (_, i) => (i % (n + 1) === 0 ? 1 : 0)), n);
+  const W = solveLinear(V, n, Array.from({ length: n * n }, (_, i) => (i % (n + 1) === 0 ? 1 : 0)), n);
   if (!W || !(normInf(V, n) * normInf(W, n) <= MAX_CONDITION)) return null;
   const out = zeros(n);
   for (let i = 0; i < n; i++) out[i] = V[(n - 1) * n + i];
@@ -126,13 +126,3 @@ function phaseModes(
   return { modes: { rate, out }, V, W, condition: normInf(Vb, n) * normInf(Wb, n) };
 }
 
-/** Largest absolute row sum. */
-function normInf(a: number[], n: number): number {
-  let best = 0;
-  for (let i = 0; i < n; i++) {
-    let s = 0;
-    for (let j = 0; j < n; j++) s += Math.abs(a[i * n + j]);
-    best = Math.max(best, s);
-  }
-  return best;
-}

@@ -1,47 +1,11 @@
-import { zeros } from '../dense.js';
+import { zeros } from '../../numeric/dense.js';
 import type { Ladder } from '../../circuit/ladder.js';
 import { cascadeLadder } from './cascadeLadder.js';
-import { symmetricEigen } from '../symmetricEigen.js';
+import { symmetricEigen } from '../../numeric/symmetricEigen.js';
 import { dcStates } from './dcStates.js';
+import type { ModalLadder, PhaseModes } from './modalTypes.js';
 
-/** The modes of one pin state: x' = A x + b with A = V diag(rate) W, W = V^-1. */
-export interface PhaseModes {
-  /** Eigenvalues of A, 1/s (negative). */
-  rate: number[];
-  /** Output (last node) per unit of each modal coordinate: the last row of V. */
-  out: number[];
-}
-
-/**
- * A ladder in modal form, both pin states. Modal coordinates of a state deviation z in the
- * high-phase basis are W_h z; `mix` = W_l V_h turns them into low-phase ones.
- */
-export interface ModalLadder {
-  n: number;
-  period: number;
-  high: number;
-  low: number;
-  /**
-   * No follower inside the ladder: V = Cs^-1 Q with Q orthogonal, so `mix` is orthogonal (the
-   * settling fast path needs that). False for a cascade of sections (cascadeLadder.ts).
-   */
-  symmetric: boolean;
-  hi: PhaseModes;
-  lo: PhaseModes;
-  mix: number[];
-  /** DC state of the high phase minus that of the low phase, in high-phase modal coordinates. */
-  delta: number[];
-  /** Output at the DC state of the low phase, V. */
-  outLow: number;
-  /** Output at the DC state of the high phase, V. */
-  outHigh: number;
-  /**
-   * Condition number ||V||_inf ||V^-1||_inf of the modal basis in the balanced coordinates
-   * sqrt(C) x, the larger of the two phases: 1 for a follower-free ladder (orthonormal basis), large
-   * for a cascade whose sections have nearly equal modes. Rounding in the modal sums grows with it.
-   */
-  condition: number;
-}
+export type { ModalLadder, PhaseModes } from './modalTypes.js';
 
 /**
  * The modal form of a ladder, or null when it does not apply. A follower after the last stage
@@ -56,7 +20,7 @@ export interface ModalLadder {
  * Cs^-1-scaled orthonormal eigenvectors; a follower-free RC ladder gives an irreducible tridiagonal
  * S, whose eigenvalues are distinct (an unreduced symmetric tridiagonal has simple eigenvalues:
  * B. N. Parlett, "The Symmetric Eigenvalue Problem", SIAM 1998, ch. 7; cited from memory).
- * Eigen-decomposition by Jacobi rotations (engine/symmetricEigen.ts). DC states from the
+ * Eigen-decomposition by Jacobi rotations (numeric/symmetricEigen.ts). DC states from the
  * resistive chain (dcStates.ts).
  *
  * Syntax: modalLadder(ladder)

@@ -1,6 +1,6 @@
-import { zeros } from '../dense.js';
-import { solveSmall } from './solveSmall.js';
-import { phi2 } from '../phi2.js';
+import { zeros } from '../../numeric/dense.js';
+import { solveLinear } from '../../numeric/lu.js';
+import { phi2 } from '../../numeric/phi.js';
 import type { ModalLadder } from './modalLadder.js';
 import type { PhaseCurve } from './phaseCurve.js';
 
@@ -82,7 +82,7 @@ export function periodicState(m: ModalLadder, duty: number): PeriodicState {
       rhs[2 * i] = el[i] * sHigh;
       rhs[2 * i + 1] = kl[i] * sAll;
     }
-    const solved = n === 2 ? solveTwoByTwo(Y, rhs) : solveSmall(Y, n, rhs, 2);
+    const solved = solveLinear(Y, n, rhs, 2);
     if (!solved) throw new RangeError('periodicState: singular period map (not a physical ladder)');
     start = zeros(n);
     drive = zeros(n);
@@ -131,19 +131,3 @@ export function periodicState(m: ModalLadder, duty: number): PeriodicState {
   };
 }
 
-/**
- * Y X = B for 2 x 2 Y (row-major) and two right-hand sides (B row-major 2 x 2), by Gaussian
- * elimination with partial pivoting (Golub & Van Loan, Alg. 3.4.1); null when Y is singular.
- */
-function solveTwoByTwo(Y: number[], B: number[]): number[] | null {
-  let [a, b, c, d] = Y;
-  let [e0, e1, f0, f1] = B;
-  if (Math.abs(c) > Math.abs(a)) [a, b, c, d, e0, e1, f0, f1] = [c, d, a, b, f0, f1, e0, e1];
-  if (a === 0) return null;
-  const l = c / a;
-  const pivot = d - l * b;
-  if (pivot === 0) return null;
-  const y0 = (f0 - l * e0) / pivot;
-  const y1 = (f1 - l * e1) / pivot;
-  return [(e0 - b * y0) / a, (e1 - b * y1) / a, y0, y1];
-}

@@ -1,5 +1,5 @@
-import { zeros } from '../dense.js';
-import { expSumRoots } from './expSumRoots.js';
+import { zeros } from '../../numeric/dense.js';
+import { expSumRoots } from '../../numeric/expSumRoots.js';
 
 /**
  * The output during one phase of one period as an exact function of the time tau since the phase
@@ -9,7 +9,7 @@ import { expSumRoots } from './expSumRoots.js';
 export interface PhaseCurve {
   offset: number;
   gain: number[];
-  rate: number[];
+  readonly rate: readonly number[];
   length: number;
 }
 

@@ -1,9 +1,9 @@
-import { zeros } from '../dense.js';
-import { brentRoot } from '../brentRoot.js';
+import { zeros } from '../../numeric/dense.js';
+import { brentRoot } from '../../numeric/brentRoot.js';
 import type { ModalLadder } from './modalLadder.js';
 import { curveExtrema, curveTurningPoints, curveValue, type PhaseCurve } from './phaseCurve.js';
 import { periodicState, type PeriodicState } from './periodicState.js';
-import { symmetricEigen } from '../symmetricEigen.js';
+import { symmetricEigen } from '../../numeric/symmetricEigen.js';
 
 /**
  * A safety net on the branch and bound: beyond this many period evaluations (never seen in

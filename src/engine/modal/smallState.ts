@@ -1,4 +1,5 @@
-import { phi2 } from '../phi2.js';
+import { solveTwoByTwo } from '../../numeric/lu.js';
+import { phi2 } from '../../numeric/phi.js';
 import type { ModalLadder } from './modalLadder.js';
 
 /**
@@ -64,22 +65,22 @@ export function smallState(m: ModalLadder, duty: number): SmallState {
   } else {
     const kl1 = -Math.expm1(rl1 * t2);
     const el1 = Math.exp(rl1 * t2);
-    // (K_l + E_l K_h) [u v] = [E_l K_h Delta, K_l Delta] in modal coordinates; partial pivoting
-    let a = x00 * (kl0 + el0 * kh0);
-    let b = x01 * (kl0 + el0 * kh1);
-    let c = x10 * (kl1 + el1 * kh0);
-    let d = x11 * (kl1 + el1 * kh1);
-    let e = el0 * (x00 * kh0 * delta[0] + x01 * kh1 * delta[1]);
-    let f = el1 * (x10 * kh0 * delta[0] + x11 * kh1 * delta[1]);
-    let g = kl0 * (x00 * delta[0] + x01 * delta[1]);
-    let h = kl1 * (x10 * delta[0] + x11 * delta[1]);
-    if (Math.abs(c) > Math.abs(a)) [a, b, c, d, e, f, g, h] = [c, d, a, b, f, e, h, g];
-    const l = c / a;
-    const pivot = d - l * b;
-    u1 = (f - l * e) / pivot;
-    u0 = (e - b * u1) / a;
-    v1 = (h - l * g) / pivot;
-    v0 = (g - b * v1) / a;
+    // (K_l + E_l K_h) [u v] = [E_l K_h Delta, K_l Delta] in modal coordinates
+    const a = x00 * (kl0 + el0 * kh0);
+    const b = x01 * (kl0 + el0 * kh1);
+    const c = x10 * (kl1 + el1 * kh0);
+    const d = x11 * (kl1 + el1 * kh1);
+    const e = el0 * (x00 * kh0 * delta[0] + x01 * kh1 * delta[1]);
+    const f = el1 * (x10 * kh0 * delta[0] + x11 * kh1 * delta[1]);
+    const g = kl0 * (x00 * delta[0] + x01 * delta[1]);
+    const h = kl1 * (x10 * delta[0] + x11 * delta[1]);
+    // a zero pivot leaves NaN, as the inline elimination this replaces did (0/0)
+    if (!solveTwoByTwo(a, b, c, d, e, f, SOLVED)) SOLVED[0] = SOLVED[1] = NaN;
+    u0 = SOLVED[0];
+    u1 = SOLVED[1];
+    if (!solveTwoByTwo(a, b, c, d, g, h, SOLVED)) SOLVED[0] = SOLVED[1] = NaN;
+    v0 = SOLVED[0];
+    v1 = SOLVED[1];
   }
   const aHigh0 = hi.out[0] * v0;
   const aHigh1 = two ? hi.out[1] * v1 : 0;
@@ -148,3 +149,6 @@ function turningPoint(d0: number, d1: number, r0: number, r1: number, length: nu
   const t = Math.log(ratio) / (r0 - r1);
   return t > 0 && t < length ? t : -1;
 }
+
+/** Scratch for solveTwoByTwo's answer (read at once, so one per module is enough). */
+const SOLVED = [0, 0];

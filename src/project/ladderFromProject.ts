@@ -1,5 +1,5 @@
-import type { Project } from '../project/types.js';
-import type { Ladder, Stage } from './ladder.js';
+import type { Project } from './types.js';
+import type { Ladder, Stage } from '../circuit/ladder.js';
 
 /**
  * The engine's view of a project: its PWM source, ladder and load, optionally with other stages.
@@ -7,7 +7,7 @@ import type { Ladder, Stage } from './ladder.js';
  * Syntax: ladderFromProject(project[, stages])
  * Example: ladderFromProject(p).period  // 1 / p.pwm.frequency
  */
-export function ladderFromProject(project: Project, stages: Stage[] = project.filter.stages): Ladder {
+export function ladderFromProject(project: Project, stages: readonly Stage[] = project.filter.stages): Ladder {
   const { pwm, load } = project;
   return {
     period: 1 / pwm.frequency,

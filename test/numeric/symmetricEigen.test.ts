@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { eigs } from 'mathjs';
-import { symmetricEigen } from '../../src/engine/symmetricEigen.js';
+import { symmetricEigen } from '../../src/numeric/symmetricEigen.js';
 
 /** A random symmetric matrix of order n from n (n + 1) / 2 free entries. */
 const symmetric = (n: number) =>

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { expm as mathjsExpm, matrix } from 'mathjs';
-import { expm, PADE_COEFFICIENTS } from '../../src/engine/expm.js';
+import { expm, PADE_COEFFICIENTS } from '../../src/numeric/expm.js';
 
 const toRows = (a: number[], n: number): number[][] =>
   Array.from({ length: n }, (_, i) => a.slice(i * n, i * n + n));

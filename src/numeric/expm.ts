@@ -2,7 +2,7 @@ import { matmul, norm1, zeros, type Matrix } from './dense.js';
 
 /**
  * Padé coefficients b_0..b_m of the diagonal [m/m] approximant of exp, scaled so that b_m = 1
- * (Higham 2005, section 2: b_k proportional to (2m-k)! m! / ((2m)! k! (m-k)!)). Exact integers; test/engine/expm.test.ts re-derives them from the factorial formula.
+ * (Higham 2005, section 2: b_k proportional to (2m-k)! m! / ((2m)! k! (m-k)!)). Exact integers; test/numeric/expm.test.ts re-derives them from the factorial formula.
  */
 export const PADE_COEFFICIENTS: Readonly<Record<3 | 5 | 7 | 9 | 13, readonly number[]>> = {
   3: [120, 60, 12, 1],

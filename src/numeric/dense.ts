@@ -5,8 +5,8 @@
  * Plain arrays rather than Float64Array: V8 allocates small typed arrays off the managed heap,
  * which made allocation and garbage collection the largest cost of the engine.
  *
- * Method: textbook kernels (Golub & Van Loan, "Matrix Computations", 4th ed., ch. 1 and 3):
- * ijk products, LU factorization with partial pivoting (Algorithm 3.4.1) and triangular solves.
+ * Method: textbook kernels (Golub & Van Loan, "Matrix Computations", 4th ed., ch. 1 and 2.3):
+ * ijk products and the 1- and infinity-norms. The LU factorization is in lu.ts.
  */
 
 /** Row-major square matrix of order n. */
@@ -141,17 +141,19 @@ export function norm1(a: Matrix, n: number): number {
 }
 
 /**
- * Maximum absolute row sum, the matrix infinity-norm.
+ * Maximum absolute row sum, the matrix infinity-norm (Golub & Van Loan, eq. 2.3.10). NaN when an
+ * entry is NaN, so that a caller's check `norm <= limit` fails on a broken matrix (the modal
+ * route's condition test relies on that to fall back to the matrix exponential).
  *
  * Syntax: normInf(a, n)
  * Example: normInf([1, -2, 3, 4], 2)  // 7
  */
-export function normInf(a: Matrix, n: number): number {
+export function normInf(a: ArrayLike<number>, n: number): number {
   let best = 0;
   for (let i = 0; i < n; i++) {
     let s = 0;
     for (let j = 0; j < n; j++) s += Math.abs(a[i * n + j]);
-    if (s > best) best = s;
+    best = Math.max(best, s);
   }
   return best;
 }
@@ -169,77 +171,4 @@ export function vectorNormInf(x: Vector): number {
     if (v > best) best = v;
   }
   return best;
-}
-
-/** An LU factorization P a = L U, L unit lower triangular, both packed in `lu`. */
-export interface LuFactors {
-  n: number;
-  lu: Matrix;
-  /** Row i of the factored matrix is row piv[i] of a. */
-  piv: Int32Array;
-}
-
-/**
- * LU factorization with partial pivoting (Golub & Van Loan, Algorithm 3.4.1). Throws on an exactly
- * singular matrix; the engine's matrices are nonsingular by construction.
- *
- * Syntax: luFactor(a, n)
- * Example: luSolve(luFactor(a, 2), b)  // x with a x = b
- */
-export function luFactor(a: Matrix, n: number): LuFactors {
-  const lu = a.slice();
-  const piv = new Int32Array(n);
-  for (let i = 0; i < n; i++) piv[i] = i;
-  for (let k = 0; k < n; k++) {
-    let p = k;
-    let big = Math.abs(lu[k * n + k]);
-    for (let i = k + 1; i < n; i++) {
-      const v = Math.abs(lu[i * n + k]);
-      if (v > big) {
-        big = v;
-        p = i;
-      }
-    }
-    if (big === 0) throw new RangeError('singular matrix in luFactor');
-    if (p !== k) {
-      for (let j = 0; j < n; j++) {
-        const t = lu[k * n + j];
-        lu[k * n + j] = lu[p * n + j];
-        lu[p * n + j] = t;
-      }
-      const t = piv[k];
-      piv[k] = piv[p];
-      piv[p] = t;
-    }
-    const pivot = lu[k * n + k];
-    for (let i = k + 1; i < n; i++) {
-      const m = lu[i * n + k] / pivot;
-      lu[i * n + k] = m;
-      if (m === 0) continue;
-      for (let j = k + 1; j < n; j++) lu[i * n + j] -= m * lu[k * n + j];
-    }
-  }
-  return { n, lu, piv };
-}
-
-/**
- * Solve a x = b from the LU factors of a.
- *
- * Syntax: luSolve(factors, b)
- * Example: luSolve(luFactor([2, 0, 0, 4], 2), [2, 2])  // [1, 0.5]
- */
-export function luSolve(f: LuFactors, b: Vector): Vector {
-  const { n, lu, piv } = f;
-  const x = zeros(n);
-  for (let i = 0; i < n; i++) {
-    let s = b[piv[i]];
-    for (let k = 0; k < i; k++) s -= lu[i * n + k] * x[k];
-    x[i] = s;
-  }
-  for (let i = n - 1; i >= 0; i--) {
-    let s = x[i];
-    for (let k = i + 1; k < n; k++) s -= lu[i * n + k] * x[k];
-    x[i] = s / lu[i * n + i];
-  }
-  return x;
 }

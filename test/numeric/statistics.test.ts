@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { histogram, percentiles, quantileSorted, wilsonInterval } from '../../src/tolerance/statistics.js';
+import { histogram, percentiles, quantileSorted, wilsonInterval } from '../../src/numeric/statistics.js';
 
 describe('statistics', () => {
   it('quantiles follow Hyndman & Fan definition 7 (R default, NumPy "linear")', () => {
