@@ -1,3 +1,4 @@
+import { partValueWarnings } from '../engine/index.js';
 import { ladderFromProject } from '../project/ladderFromProject.js';
 import type { Project } from '../project/types.js';
 import { designProblem, type DesignProblem } from './designProblem.js';
@@ -91,6 +92,7 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
     current,
     resolutions,
     diagnosis,
+    warnings: partValueWarnings(project),
     ...(explained && { fixes: explained.fixes, proven: explained.proven }),
     basis: {
       stageCounts,

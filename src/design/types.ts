@@ -1,5 +1,5 @@
 /** Types of the design search (`dacsmith design`). SI base units throughout (V, s, Hz, ohm, F, A). */
-import type { Check, CheckName } from '../engine/index.js';
+import type { Check, CheckName, Warning } from '../engine/index.js';
 
 /** One stage of a proposed filter. */
 export interface CandidateStage {
@@ -88,6 +88,8 @@ export interface DesignResult {
   resolutions: ResolutionRow[];
   /** When nothing is feasible: what binds, in words, one line each. */
   diagnosis: string[];
+  /** Plausibility warnings on the file's parts and load (model.md 1.1; engine partValueWarnings). */
+  warnings: Warning[];
   /** When nothing is feasible: changes verified to make the project feasible (nearestFix.ts). */
   fixes?: NearestFix[];
   /** Limits proven out of reach before the search, per stage count (infeasibilityBounds.ts). */

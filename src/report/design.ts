@@ -96,6 +96,7 @@ export function designReport(project: Project, result: DesignResult, format: Des
       verified: result.stats.verified,
       space: result.stats.space,
       diagnosis: result.diagnosis,
+      warnings: result.warnings,
       // When nothing is feasible: changes verified by a search, and limits proven out of reach.
       fixes: (result.fixes ?? []).map((f) => ({ kind: f.kind, change: f.change, design: candidateJson(f.best) })),
       proven: (result.proven ?? []).map((m) => ({ stages: m.stages, limit: m.limit, reach: m.reach, limitValue: m.limitValue, reason: m.reason })),

@@ -1,3 +1,4 @@
+import { warningsSection } from './warnings.js';
 import type { TradeoffCurve } from '../design/tradeoffCurves.js';
 import type { RobustResult } from '../design/robustDesigns.js';
 import type { Candidate, DesignResult } from '../design/types.js';
@@ -289,6 +290,8 @@ export function designDocument(project: Project, result: DesignResult, options: 
   const curveLimit = inLsb.ripple !== undefined && curveScale.lsb !== null ? inLsb.ripple * curveScale.lsb : L.ripple;
   const chart = tradeoffSection(options.tradeoff ?? [], curveScale, curveLimit, options);
   if (chart) sections.push(chart);
+  const warnings = warningsSection(result.warnings);
+  if (warnings) sections.push(warnings);
   if (result.resolutions.length > 0) {
     sections.push({
       title: 'Best design per resolution',

@@ -130,3 +130,16 @@ describe('tolerance covers the gain check', () => {
     expect(report).toMatch(/gain error\s+[\d.]+ % of full scale\s+[\d.]+ % of full scale\s+0\.5 % of full scale\s+FAIL/);
   });
 });
+
+describe('design carries the warnings too (model.md 1.1: every command)', () => {
+  it('lists the unit slip of the load in JSON and under a Warnings heading', () => {
+    const text = readFileSync(slip, 'utf8') + 'search:\n  stages: [1]\n  series: E6\n  resistance: { min: 1k, max: 10k }\n  capacitance: { min: 10n, max: 100n }\n';
+    const path = join(mkdtempSync(join(tmpdir(), 'dacsmith-design-warn-')), 'slip-search.yaml');
+    writeFileSync(path, text);
+    const r = json(['design', path, '--format', 'json', '--no-charts']);
+    expect(r.body.warnings[0]).toMatchObject({ key: 'load.resistance' });
+    expect(r.body.warnings[0].message).toMatch(/did you mean 1M/);
+    const report = runBuilt(['design', path, '--no-charts', '--width', '300']).stdout;
+    expect(report).toMatch(/\nWarnings\n/);
+  });
+});
