@@ -9,6 +9,8 @@ export interface DesignArgs {
   format: 'text' | 'json' | 'markdown';
   top: number;
   write?: string;
+  /** Stop the search after this many seconds with the designs found so far (marked incomplete). */
+  maxTime?: number;
   force: boolean;
   charts: boolean;
   quiet?: boolean;
@@ -53,7 +55,14 @@ export async function runDesign(
   args: DesignArgs,
   tty: { color: boolean; progress?: NodeJS.WriteStream; columns?: number },
 ): Promise<CommandOutput> {
+  const started = performance.now();
   if (!Number.isInteger(args.top) || args.top < 1) throw new UsageError(`--top ${args.top}: give a whole number of at least 1`);
+  if (args.maxTime !== undefined && !(Number.isInteger(args.maxTime) && args.maxTime >= 1)) {
+    throw new UsageError(`--max-time ${args.maxTime}: give whole seconds, at least 1`);
+  }
+  if (args.maxTime !== undefined && args.robust !== undefined) {
+    throw new UsageError('--max-time bounds the nominal search; it cannot be combined with --robust yet');
+  }
   const width = reportWidth(args.width, { isTTY: tty.columns !== undefined, columns: tty.columns });
   const fs = await import('node:fs');
   if (args.write !== undefined && !args.force && fs.existsSync(args.write)) {
@@ -76,14 +85,20 @@ export async function runDesign(
   let robust;
   try {
     const share = args.charts ? 0.5 : 1;
+    const deadline = args.maxTime !== undefined ? started + 1000 * args.maxTime : undefined;
     if (args.robust) {
       robust = robustDesigns(project, args.robust, { checks: robustChecks, top: args.top, ...(bar && { onProgress: (f: number) => bar.update(share * f) }) });
       result = { ...robust.nominal, candidates: robust.candidates.map((r) => r.candidate), feasible: robust.candidates.length > 0, diagnosis: [] };
     } else {
-      result = designSearch(project, { top: args.top, ...(bar && { onProgress: (f: number, d?: DesignProgress) => bar.update(share * f, d) }) });
+      result = designSearch(project, {
+        top: args.top,
+        ...(deadline !== undefined && { deadline }),
+        ...(bar && { onProgress: (f: number, d?: DesignProgress) => bar.update(share * f, d) }),
+      });
     }
     // Nothing feasible: the explanation carries the numbers; curves would rerun many empty searches.
-    if (args.charts && result.feasible) {
+    // Out of time (--max-time): no curves either; the report says the search is incomplete.
+    if (args.charts && result.feasible && result.complete !== false && (deadline === undefined || performance.now() < deadline)) {
       const best = result.candidates[0];
       const atBits = result.resolutions.length > 0 && best?.bits != null ? best.bits : undefined;
       const ripple = result.basis.limits.ripple;
@@ -153,6 +168,11 @@ export function designCommand(
         .option('top', { describe: 'Number of designs to list', type: 'number', default: 10, requiresArg: true })
         .option('write', { describe: 'Write design #1 as a project file (the original with filter.stages replaced)', type: 'string', requiresArg: true })
         .option('force', { describe: 'Let --write replace an existing file', type: 'boolean', default: false })
+        .option('max-time', {
+          describe: 'Stop the search after this many seconds with the designs found so far, marked incomplete (no trade-off curves then)',
+          type: 'number',
+          requiresArg: true,
+        })
         .option('robust', {
           describe: 'Keep only designs that meet every limit at the worst case of the tolerance: block, or whose Monte Carlo yield reaches tolerance.yield',
           choices: ['worst-case', 'yield'] as const,

@@ -1,7 +1,7 @@
 import { designProblem, type DesignProblem } from './designProblem.js';
 import { rankCandidates } from './rankCandidates.js';
 import { infeasibilityBounds } from './infeasibilityBounds.js';
-import { solveProblem, type ProblemOutcome, type ProblemProgress } from './solveProblem.js';
+import { solveProblem, type ProblemOutcome, type ProblemProgress, type SolveOptions } from './solveProblem.js';
 
 /**
  * The `top` best designs of one design problem (one resolution) over every follower option the
@@ -13,7 +13,7 @@ import { solveProblem, type ProblemOutcome, type ProblemProgress } from './solve
  * so the merged top list is optimal over the union. The follower variant is the same ladder
  * unloaded (designProblem.ts `buffered`): the fast model and every bound apply to it unchanged.
  *
- * Syntax: bestDesigns(problem, top[, stageCounts][, onProgress])
+ * Syntax: bestDesigns(problem, top[, stageCounts][, onProgress][, { budget, deadline }])
  * Example: bestDesigns(designProblem(p), 5).feasible.filter((c) => c.needsFollower).length
  */
 export function bestDesigns(
@@ -21,14 +21,15 @@ export function bestDesigns(
   top: number,
   stageCounts: number[] = problem.stageCounts,
   onProgress?: (fraction: number, detail?: ProblemProgress) => void,
+  solve: SolveOptions = {},
 ): ProblemOutcome {
   const options = [...new Set(problem.project.search?.buffered ?? [problem.buffered])].sort((a, b) => Number(a) - Number(b));
   // Stage counts proven out of reach for this variant (infeasibilityBounds.ts) are not walked.
   const open = (p: DesignProblem) => stageCounts.filter((n) => infeasibilityBounds(p, n).misses.length === 0);
-  if (options.length === 1 && options[0] === problem.buffered) return solveProblem(problem, top, open(problem), onProgress);
+  if (options.length === 1 && options[0] === problem.buffered) return solveProblem(problem, top, open(problem), onProgress, solve);
   const outcomes = options.map((buffered, i) => {
     const variant = buffered === problem.buffered ? problem : designProblem(problem.project, undefined, buffered);
-    return solveProblem(variant, top, open(variant), (f, d) => onProgress?.((i + f) / options.length, d));
+    return solveProblem(variant, top, open(variant), (f, d) => onProgress?.((i + f) / options.length, d), solve);
   });
   return {
     feasible: rankCandidates(outcomes.flatMap((o) => o.feasible)).slice(0, top),

@@ -45,6 +45,8 @@ export interface CollectState {
   budget?: number;
   /** The walk stopped at the budget: what was collected is not the whole bounded set. */
   cut?: boolean;
+  /** Stop the walk once performance.now() passes this (ms; `design --max-time`); `cut` then tells. */
+  deadline?: number;
 }
 
 /** A fresh state: theta starts at the settling-time limit (nothing slower is feasible). */
@@ -208,7 +210,10 @@ export function collectCandidates(
   };
 
   const overBudget = () => {
-    if (state.budget === undefined || state.evaluated <= state.budget) return false;
+    if (state.cut) return true;
+    // The clock is read every 256 evaluations: a few microseconds late at most.
+    const late = state.deadline !== undefined && (state.evaluated & 255) === 0 && performance.now() > state.deadline;
+    if (!late && (state.budget === undefined || state.evaluated <= state.budget)) return false;
     state.cut = true;
     return true;
   };

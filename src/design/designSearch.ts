@@ -51,8 +51,9 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
     bestDesigns(problem, top, stageCounts, (f, d) => {
       if (d?.best != null && (best === null || d.best < best)) best = d.best;
       options.onProgress?.((i + f) / problems.length, { phase: 'search', stages: d?.stages, bits: problem.bits, frequency: problem.frequency, best });
-    }),
+    }, options.deadline !== undefined ? { deadline: options.deadline } : {}),
   );
+  const complete = outcomes.every((o) => o.complete);
   const candidates = rankCandidates(outcomes.flatMap((o) => o.feasible)).slice(0, top);
   const resolutions: ResolutionRow[] =
     problems.length > 1 || bitsRange
@@ -66,7 +67,8 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
   let shown = candidates;
   let diagnosis: string[] = [];
   let explained;
-  if (!feasible && (options.diagnose ?? true)) {
+  // Out of time: no explanation either (it runs searches of its own).
+  if (!feasible && complete && (options.diagnose ?? true)) {
     const withoutMargin = base.margin > 0 ? designsWithoutMargin(project, problems, top, stageCounts) : [];
     if (withoutMargin.length > 0) {
       diagnosis = [
@@ -93,6 +95,7 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
     resolutions,
     diagnosis,
     warnings: partValueWarnings(project),
+    complete,
     ...(explained && { fixes: explained.fixes, proven: explained.proven }),
     basis: {
       stageCounts,

@@ -34,6 +34,8 @@ export interface ProblemProgress {
 export interface SolveOptions {
   /** Largest number of fast evaluations before the walk stops (side searches of explanations). */
   budget?: number;
+  /** performance.now() in ms after which the search stops with what it has (`design --max-time`). */
+  deadline?: number;
 }
 
 /** Growth of theta per extra collection round when the walk's threshold proved too low. */
@@ -68,6 +70,7 @@ export function solveProblem(
 ): ProblemOutcome {
   const state = newCollectState(problem, top);
   if (options.budget !== undefined) state.budget = options.budget;
+  if (options.deadline !== undefined) state.deadline = options.deadline;
   const cap = state.theta; // the settling-time limit (or Infinity) before any lowering
   const collectAll = () => {
     stageCounts.forEach((n, i) =>
@@ -87,6 +90,10 @@ export function solveProblem(
     let tN = ranked.length === top ? (ranked[top - 1].settlingTime ?? Infinity) : Infinity;
     for (const e of entries) {
       if (e.lb > tN * (1 + REL) + 1e-12) break;
+      if (options.deadline !== undefined && performance.now() > options.deadline) {
+        state.cut = true; // out of time: the designs verified so far stand, unproven as the best
+        break;
+      }
       if (e.ruledOut || verified.has(e)) continue;
       if (problem.searchLimits.ripple !== undefined) {
         e.worst ??= worstRippleOf(problem, e.r, e.c);

@@ -90,6 +90,11 @@ export interface DesignResult {
   diagnosis: string[];
   /** Plausibility warnings on the file's parts and load (model.md 1.1; engine partValueWarnings). */
   warnings: Warning[];
+  /**
+   * False when the search stopped at its deadline (`--max-time`): the designs listed meet the spec
+   * (exact figures) but are the best found so far, not proven the best of the space.
+   */
+  complete: boolean;
   /** When nothing is feasible: changes verified to make the project feasible (nearestFix.ts). */
   fixes?: NearestFix[];
   /** Limits proven out of reach before the search, per stage count (infeasibilityBounds.ts). */
@@ -142,6 +147,11 @@ export interface DesignOptions {
   compare?: boolean;
   /** Explain and show the closest designs when nothing is feasible (default true). */
   diagnose?: boolean;
+  /**
+   * performance.now() in ms after which the search stops with the designs found so far
+   * (`design --max-time`); the result then says `complete: false`.
+   */
+  deadline?: number;
 }
 
 /** What the search is doing, for a progress line. */

@@ -91,6 +91,8 @@ export function designReport(project: Project, result: DesignResult, format: Des
   if (format === 'json') {
     const body = {
       pass: result.feasible,
+      // false: stopped at --max-time; the designs meet the spec but are not proven the best
+      complete: result.complete !== false,
       candidates: result.candidates.map(candidateJson),
       evaluated: result.stats.evaluated,
       verified: result.stats.verified,

@@ -272,6 +272,19 @@ export function designDocument(project: Project, result: DesignResult, options: 
     ],
   ];
   const sections: Section[] = [{ title: 'Search', blocks: [{ kind: 'pairs', pairs }] }];
+  if (result.complete === false) {
+    sections.push({
+      title: 'Incomplete: stopped at the time limit (--max-time)',
+      blocks: [
+        {
+          kind: 'text',
+          text: result.feasible
+            ? 'The designs below meet the spec (exact figures) but are the best found before the time limit, not proven the best of the space; allow more time for the full search.'
+            : 'No design meeting the spec was found before the time limit; that does not prove there is none. Allow more time for the full search and its explanation.',
+        },
+      ],
+    });
+  }
 
   const robust = options.robust;
   if (robust) {

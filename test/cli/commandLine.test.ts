@@ -152,3 +152,23 @@ describe('tolerance.stages longer than the filter', () => {
     expect(r.stderr).toMatch(/tolerance-stage-overrides-too-many\.yaml:8:7: tolerance\.stages\[1\]: the filter has 1 stage/);
   });
 });
+
+describe('design --max-time stops a long search cleanly', () => {
+  it('marks the result incomplete (JSON complete: false) and says so, without an explanation it had no time for', () => {
+    const file = join(root, 'test', 'fixtures', 'projects', 'slow-three-stage-e24.yaml');
+    const r = runBuilt(['design', file, '--max-time', '1', '--format', 'json']);
+    expect(r.code).toBe(1);
+    const out = JSON.parse(r.stdout);
+    expect(out.complete).toBe(false);
+    expect(out.diagnosis).toEqual([]);
+    const text = runBuilt(['design', file, '--max-time', '1', '--no-charts', '--width', '300']).stdout;
+    expect(text).toMatch(/Incomplete: stopped at the time limit \(--max-time\)/);
+  });
+
+  it('a search that ends in time is complete, and bad values are refused', () => {
+    const out = JSON.parse(runBuilt(['design', join(root, 'sample-configs', 'design-tight-ripple.yaml'), '--max-time', '60', '--format', 'json', '--no-charts']).stdout);
+    expect(out.complete).toBe(true);
+    expect(runBuilt(['design', sample, '--max-time', '0']).stderr).toMatch(/--max-time 0: give whole seconds/);
+    expect(runBuilt(['design', sample, '--max-time', '1.5']).code).toBe(2);
+  });
+});
