@@ -24,6 +24,9 @@ describe('options are read as written, or refused with exit 2 naming the option'
     [['tolerance', sample, '--samples=1e3'], /--samples must be a whole number .* got '1e3'/],
     [['tolerance', sample, '--samples', '1000001'], /--samples 1000001: at most 1000000/],
     [['analyze', sample, '-q', '--quiet'], /-q is given more than once|--quiet is given more than once/],
+    // the report said "uniform" while the normal distribution was sampled
+    [['tolerance', sample, '--distribution', 'normal', '--distribution', 'uniform'], /--distribution is given more than once/],
+    [['analyze', sample, '--csv', 'a.csv', '--csv', 'b.csv'], /--csv is given more than once/],
   ];
   for (const [args, message] of refused) {
     it(args.slice(2).join(' '), () => {

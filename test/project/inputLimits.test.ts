@@ -68,6 +68,11 @@ describe('project reader: messages point where the mistake is', () => {
     expect(e.format()).toBe(`${fixture('duplicate-section.yaml')}:8:1: pwm: duplicate key 'pwm'; a key may appear only once in a mapping`);
   });
 
+  it('a repeated key inside a section names the key on its second line, not the section', () => {
+    const e = projectErrorOf(() => loadProject(fixture('duplicate-stages.yaml')));
+    expect(e.format()).toBe(`${fixture('duplicate-stages.yaml')}:6:3: filter.stages: duplicate key 'stages'; a key may appear only once in a mapping`);
+  });
+
   it('CR-only line endings are line breaks (YAML 1.2, 5.4): messages have real lines and no raw CR', () => {
     const e = projectErrorOf(() => loadProject(fixture('cr-line-endings.yaml')));
     expect(e.format()).toBe(`${fixture('cr-line-endings.yaml')}:4:3: pwm.high: duplicate key 'high'; a key may appear only once in a mapping`);
