@@ -1,5 +1,5 @@
 import type { Ladder } from '../circuit/ladder.js';
-import { defaultBand } from '../engine/index.js';
+import { settlingSteps } from '../engine/index.js';
 import type { Project } from '../project/types.js';
 import { seriesValues } from '../units/index.js';
 import { DesignInputError } from './designInputError.js';
@@ -80,13 +80,8 @@ export function designProblem(project: Project, bits?: number, buffered = false)
   }
   const { min: dutyMin, max: dutyMax } = pwm.duty;
   const settling = spec.settling;
-  const hasStep = settling?.from !== undefined || settling?.to !== undefined;
-  const steps: Array<[number, number]> = hasStep
-    ? [[settling?.from ?? dutyMin, settling?.to ?? dutyMax]]
-    : [
-        [dutyMin, dutyMax],
-        [dutyMax, dutyMin],
-      ];
+  const plan = settlingSteps(at);
+  const steps = plan.steps.map(([from, to]): [number, number] => [from, to]);
   const limits: DesignLimits = {
     ...(spec.ripple !== undefined && { ripple: spec.ripple }),
     ...(spec.droop !== undefined && { droop: spec.droop }),
@@ -121,9 +116,9 @@ export function designProblem(project: Project, bits?: number, buffered = false)
     searchLimits,
     margin,
     buffered,
-    band: settling?.band ?? defaultBand(at),
+    band: plan.band,
     steps,
-    defaultStep: !hasStep,
+    defaultStep: plan.defaultStep,
     stageCounts: [...search.stages].sort((a, b) => a - b),
     series: search.series.resistor === search.series.capacitor ? search.series.resistor : `${search.series.resistor} resistors, ${search.series.capacitor} capacitors`,
     resistorSeries: search.series.resistor,

@@ -13,6 +13,7 @@ import { settlingTime } from './settlingTime.js';
 import { steadyState } from './steadyState.js';
 import { worstRipple as findWorstRipple } from './worstRipple.js';
 import { specChecks, type Check } from './checks.js';
+import { settlingSteps } from './settlingSteps.js';
 import { plausibilityWarnings, type Warning } from './plausibilityWarnings.js';
 import { warningFigures } from './warningFigures.js';
 import { capacitorWorkingVoltage } from './capacitorWorkingVoltage.js';
@@ -60,10 +61,9 @@ export interface AnalyzeOptions {
   grid?: number;
 }
 
-/** Settling band when the spec gives none: 0.5 LSB, else 0.1 % of full scale (common practice). */
+/** Settling band when the spec gives none: 0.5 LSB, else 0.1 % of full scale (settlingSteps.ts). */
 export function defaultBand(project: Project): number {
-  const fullScale = Math.abs(project.pwm.high - project.pwm.low);
-  return project.lsb !== undefined ? 0.5 * project.lsb : 1e-3 * fullScale;
+  return settlingSteps({ ...project, spec: { ...project.spec, settling: undefined } }).band;
 }
 
 /**
@@ -88,12 +88,8 @@ export function analyzeProject(project: Project, options: AnalyzeOptions = {}): 
     if (!(d >= 0 && d <= 1)) throw new RangeError(`duty ${d} is outside 0..1`);
   }
 
-  const settlingSpec = project.spec.settling;
-  const band = settlingSpec?.band ?? defaultBand(project);
-  const hasStep = settlingSpec?.from !== undefined || settlingSpec?.to !== undefined;
-  const settling = hasStep
-    ? settlingTime(ladder, settlingSpec?.from ?? dMin, settlingSpec?.to ?? dMax, band)
-    : defaultSettling(ladder, dMin, dMax, band);
+  const { band, steps, defaultStep } = settlingSteps(project);
+  const settling = defaultStep ? defaultSettling(ladder, dMin, dMax, band) : settlingTime(ladder, steps[0][0], steps[0][1], band);
 
   const worstRipple = findWorstRipple(ladder, dMin, dMax);
   const dc = dcTransfer(ladder, dMin, dMax);

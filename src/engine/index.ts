@@ -26,6 +26,7 @@ export { dcErrorAcrossDuty } from './dcErrorAcrossDuty.js';
 export type { ChartSeries, CompareOverlays, Overlay, StepRecord, SteadyRecord, MagnitudeSeries, DcErrorSeries, WaveformRecords } from './types.js';
 export type { RobustCheck, RobustChecks, RobustVerdict, WorstCaseFigures, YieldFigures } from './robustVerdict.js';
 export { analyzeProject, defaultBand, type Analysis, type AnalyzeOptions } from './analyze.js';
+export { settlingSteps, type SettlingPlan } from './settlingSteps.js';
 export { specChecks, type Check, type CheckInputs, type CheckName } from './checks.js';
 // For the tolerance studies, which evaluate many ladders through the modal form directly.
 export { averageOutput } from './averageOutput.js';

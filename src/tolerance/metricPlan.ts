@@ -1,5 +1,5 @@
 import type { Ladder } from '../circuit/ladder.js';
-import { defaultBand, modalAverageOutput as averageOutput, averageOutput as engineAverage, prepare, modalLadder, rippleAt } from '../engine/index.js';
+import { settlingSteps, modalAverageOutput as averageOutput, averageOutput as engineAverage, prepare, modalLadder, rippleAt } from '../engine/index.js';
 import type { Project } from '../project/types.js';
 import { gridPeaks } from './dutySearch.js';
 
@@ -57,13 +57,8 @@ export interface MetricPlanOptions {
 export function metricPlan(project: Project, ladder: Ladder, options: MetricPlanOptions = {}): MetricPlan {
   const { min: dutyMin, max: dutyMax } = project.pwm.duty;
   const s = project.spec.settling;
-  const steps =
-    s?.from !== undefined || s?.to !== undefined
-      ? [{ from: s?.from ?? dutyMin, to: s?.to ?? dutyMax }]
-      : [
-          { from: dutyMin, to: dutyMax },
-          { from: dutyMax, to: dutyMin },
-        ];
+  const plan = settlingSteps(project);
+  const steps = plan.steps.map(([from, to]) => ({ from, to }));
   const limits: MetricPlan['limits'] = {};
   if (project.spec.ripple !== undefined) limits.ripple = project.spec.ripple;
   if (project.spec.droop !== undefined) limits.droop = project.spec.droop;
@@ -74,7 +69,7 @@ export function metricPlan(project: Project, ladder: Ladder, options: MetricPlan
   return {
     dutyMin,
     dutyMax,
-    band: s?.band ?? defaultBand(project),
+    band: plan.band,
     steps,
     inl: project.spec.inl !== undefined,
     gain,
