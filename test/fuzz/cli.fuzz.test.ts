@@ -15,10 +15,12 @@ import { describe, expect, it } from 'vitest';
 import { bin } from '../cli/runBuilt.js';
 import { mutatedData, projectText, textMutation, validProject, type ProjectData } from './projectArbitraries.js';
 
-const SEED = 20261202;
+/** `npm run fuzz` sets DACSMITH_FUZZ_SCALE (and may set DACSMITH_FUZZ_SEED) for a longer run. */
+const SCALE = Math.max(1, Number(process.env.DACSMITH_FUZZ_SCALE ?? 1) || 1);
+const SEED = Number(process.env.DACSMITH_FUZZ_SEED ?? 20261202) || 20261202;
 /** A run longer than this is a hang (a robustness limit, not a speed goal: those live in the bench). */
 const HANG_MS = 20_000;
-const COUNTS = { valid: 16, data: 40, text: 24 };
+const COUNTS = { valid: 16 * SCALE, data: 40 * SCALE, text: 24 * SCALE };
 
 interface Case {
   name: string;
