@@ -1,8 +1,8 @@
 import type { Project } from '../project/types.js';
+import { SPEC_LIMITS, type CheckName } from './specLimits.js';
 import type { DcTransfer, Settling, WorstRipple } from './types.js';
 
-/** Project-file key a check comes from. */
-export type CheckName = 'ripple' | 'droop' | 'inl' | 'gain' | 'settling' | 'pin_current';
+export type { CheckName } from './specLimits.js';
 
 /** One spec limit compared with the analysis. `value` is null when it does not exist (never settles). */
 export interface Check {
@@ -33,17 +33,20 @@ export interface CheckInputs {
  * Example: specChecks(p, figures).every((c) => c.pass)
  */
 export function specChecks(project: Project, figures: CheckInputs): Check[] {
-  const { spec } = project;
+  const value: Record<CheckName, () => number | null> = {
+    ripple: () => figures.worstRipple.ripple,
+    droop: () => Math.abs(figures.dc.droop.error),
+    inl: () => Math.abs(figures.dc.inl.error),
+    gain: () => Math.abs(figures.dc.gainError) / (project.pwm.high - project.pwm.low),
+    settling: () => figures.settling.time,
+    pin_current: () => figures.pinPeakCurrent,
+  };
   const checks: Check[] = [];
-  const add = (name: CheckName, value: number | null, limit: number, unit: Check['unit']) =>
-    checks.push({ name, value, limit, unit, pass: value !== null && value <= limit });
-
-  if (spec.ripple !== undefined) add('ripple', figures.worstRipple.ripple, spec.ripple, 'V');
-  if (spec.droop !== undefined) add('droop', Math.abs(figures.dc.droop.error), spec.droop, 'V');
-  if (spec.inl !== undefined) add('inl', Math.abs(figures.dc.inl.error), spec.inl, 'V');
-  if (spec.gain !== undefined) add('gain', Math.abs(figures.dc.gainError) / (project.pwm.high - project.pwm.low), spec.gain, '1');
-  if (spec.settling?.time !== undefined) add('settling', figures.settling.time, spec.settling.time, 's');
-  const pinLimit = project.search?.pinCurrent;
-  if (pinLimit !== undefined) add('pin_current', figures.pinPeakCurrent, pinLimit, 'A');
+  for (const row of SPEC_LIMITS) {
+    const limit = row.limitOf(project);
+    if (limit === undefined) continue;
+    const v = value[row.name]();
+    checks.push({ name: row.name, value: v, limit, unit: row.unit, pass: v !== null && v <= limit });
+  }
   return checks;
 }
