@@ -5,7 +5,6 @@ import { designProblem, type DesignProblem } from './designProblem.js';
 import { DesignInputError } from './designInputError.js';
 import { checkSearchDomain } from './checkSearchDomain.js';
 import { explainInfeasible } from './explainInfeasible.js';
-import { infeasibilityBounds } from './infeasibilityBounds.js';
 import { exactCandidate } from './exactCandidate.js';
 import { rankCandidates } from './rankCandidates.js';
 import { recheck } from './recheck.js';

@@ -1,5 +1,6 @@
 import { formatEng } from '../units/index.js';
 import type { DesignProblem } from './designProblem.js';
+import { settlingLogFactor, transferCap } from './settlingBounds.js';
 import type { ProvenMiss } from './types.js';
 
 export type { ProvenMiss } from './types.js';
@@ -56,7 +57,7 @@ export interface SpaceBounds {
  *          // 'ripple: any 2-stage design has at least 2.1 mV ...'
  */
 export function infeasibilityBounds(problem: DesignProblem, stages: number): { misses: ProvenMiss[]; bounds: SpaceBounds } {
-  const { project, limits, rValues, cValues, period, band, steps, dutyMin, dutyMax } = problem;
+  const { project, limits, rValues, cValues, period, dutyMin, dutyMax } = problem;
   const { pwm } = project;
   // The load as the ladder sees it: none behind a follower (designProblem.ts `buffered`).
   const load = { resistance: problem.circuit.loadResistance ?? undefined, capacitance: problem.circuit.loadCapacitance };
@@ -143,26 +144,9 @@ export function infeasibilityBounds(problem: DesignProblem, stages: number): { m
       });
     }
     // Settling floor of the smallest slowest time constant the ripple limit allows.
-    let hStar = Infinity;
-    const sine = Math.sin(Math.PI * dNear);
-    if (limits.ripple !== undefined && sine > 0) hStar = limits.ripple / (span * sine);
-    for (const [, to] of steps) {
-      const st = Math.sin(Math.PI * to);
-      if (st > 0) hStar = Math.min(hStar, (2 * band) / (span * st));
-    }
-    const gamma = (g / hStar) ** 2;
+    const gamma = (g / transferCap(problem, limits)) ** 2;
     const tauSlow = gamma > 1 ? Math.sqrt(gamma ** (1 / stages) - 1) / omega : 0;
-    const inRange = (d: number) => d >= dutyMin && d <= dutyMax;
-    const rippleCap = (d: number) => (limits.ripple !== undefined && inRange(d) ? limits.ripple : Infinity);
-    let factor = 0;
-    for (const [from, to] of steps) {
-      const step = g * Math.abs(to - from) * span;
-      const pTo = Math.min(band, rippleCap(to));
-      const pFrom = Math.min(problem.defaultStep ? band : Infinity, rippleCap(from));
-      const ratio = (step - pTo - pFrom) / (band + pTo);
-      if (ratio > 1) factor = Math.max(factor, Math.log(ratio));
-    }
-    settlingFloor = tauSlow * factor;
+    settlingFloor = tauSlow * settlingLogFactor(problem, limits, g);
     if (limits.settlingTime !== undefined && over(settlingFloor, limits.settlingTime)) {
       misses.push({
         stages,

@@ -16,6 +16,55 @@ export interface TupleBounds {
 }
 
 /**
+ * The largest |H(j w)| at the PWM frequency (relative to DC full scale) that meets a ripple limit
+ * near duty 1/2 and settles at all (ripple <= 2 band at every step's target duty): peak-to-peak >=
+ * (pi/2) |fundamental| and the PWM fundamental is (2/pi)(high - low) sin(pi D) (Fourier series of a
+ * pulse train, any signals textbook), so ripple >= (high - low) sin(pi D) |H(j w)|.
+ *
+ * Syntax: transferCap(problem, limits)
+ * Example: transferCap(problem, problem.searchLimits)   // Infinity without a ripple limit or steps
+ */
+export function transferCap(problem: DesignProblem, limits: DesignProblem['limits']): number {
+  const { dutyMin, dutyMax, steps, band, project } = problem;
+  const span = Math.abs(project.pwm.high - project.pwm.low);
+  let hStar = Infinity;
+  if (limits.ripple !== undefined) {
+    const sine = Math.sin(Math.PI * Math.min(dutyMax, Math.max(dutyMin, 0.5)));
+    if (sine > 0) hStar = limits.ripple / (span * sine);
+  }
+  for (const [, to] of steps) {
+    const sine = Math.sin(Math.PI * to);
+    if (sine > 0) hStar = Math.min(hStar, (2 * band) / (span * sine));
+  }
+  return hStar;
+}
+
+/**
+ * The ln(...) factor of the settling bound: settled needs exp(-t / tau_slow) (S - 2P) <= band + P
+ * for the slowest step, with S = g |to - from| (high - low) and P the steady excursion at the ends
+ * (at most the band, or the ripple limit where it applies); 0 when no bound follows. Method and
+ * proof: tupleBounds below.
+ *
+ * Syntax: settlingLogFactor(problem, limits, g)
+ * Example: settlingLogFactor(problem, problem.searchLimits, 1)   // ln((S - 2P) / (band + P))
+ */
+export function settlingLogFactor(problem: DesignProblem, limits: DesignProblem['limits'], g: number): number {
+  const { dutyMin, dutyMax, steps, band, project } = problem;
+  const span = Math.abs(project.pwm.high - project.pwm.low);
+  const inRange = (d: number) => d >= dutyMin && d <= dutyMax;
+  const rippleCap = (d: number) => (limits.ripple !== undefined && inRange(d) ? limits.ripple : Infinity);
+  let factor = 0;
+  for (const [from, to] of steps) {
+    const step = g * Math.abs(to - from) * span;
+    const pTo = Math.min(band, rippleCap(to));
+    const pFrom = Math.min(problem.defaultStep ? band : Infinity, rippleCap(from));
+    const ratio = (step - pTo - pFrom) / (band + pTo);
+    if (ratio > 1) factor = Math.max(factor, Math.log(ratio));
+  }
+  return factor;
+}
+
+/**
  * Lower bounds for one resistor choice r (pin side first) that hold for every capacitor choice
  * that can meet the ripple limit and settle at all.
  *
@@ -46,11 +95,10 @@ export interface TupleBounds {
  * Example: tupleBounds(problem, [4700, 47e3]).tauMin   // s
  */
 export function tupleBounds(problem: DesignProblem, r: ArrayLike<number>): TupleBounds {
-  const { project, searchLimits: limits, band, steps, dutyMin, dutyMax, period, circuit } = problem;
+  const { project, searchLimits: limits, period, circuit } = problem;
   const { pwm } = project;
   // The load as the ladder sees it (none behind a follower after the last stage).
   const load = { resistance: circuit.loadResistance ?? undefined };
-  const span = Math.abs(pwm.high - pwm.low);
   const lti = pwm.driver.high === pwm.driver.low;
   const driver = Math.min(pwm.driver.high, pwm.driver.low);
   const n = r.length;
@@ -58,28 +106,9 @@ export function tupleBounds(problem: DesignProblem, r: ArrayLike<number>): Tuple
   for (let k = 0; k < n; k++) series += r[k];
   const gain = load.resistance === undefined ? 1 : load.resistance / (load.resistance + series);
 
-  const inRange = (d: number) => d >= dutyMin && d <= dutyMax;
-  const rippleCap = (d: number) => (limits.ripple !== undefined && inRange(d) ? limits.ripple : Infinity);
-  let factor = 0;
-  for (const [from, to] of steps) {
-    const step = gain * Math.abs(to - from) * span;
-    const pTo = Math.min(band, rippleCap(to));
-    const pFrom = Math.min(problem.defaultStep ? band : Infinity, rippleCap(from));
-    const ratio = (step - pTo - pFrom) / (band + pTo);
-    if (ratio > 1) factor = Math.max(factor, Math.log(ratio));
-  }
-
+  const factor = settlingLogFactor(problem, limits, gain);
   // |H(j w)| cap from the ripple limit and from settling at all.
-  let hStar = Infinity;
-  if (limits.ripple !== undefined) {
-    const dNear = Math.min(dutyMax, Math.max(dutyMin, 0.5));
-    const sine = Math.sin(Math.PI * dNear);
-    if (sine > 0) hStar = limits.ripple / (span * sine);
-  }
-  for (const [, to] of steps) {
-    const sine = Math.sin(Math.PI * to);
-    if (sine > 0) hStar = Math.min(hStar, (2 * band) / (span * sine));
-  }
+  const hStar = transferCap(problem, limits);
   let tauMin = 0;
   const gamma = (gain / hStar) ** 2;
   if (gamma > 1) {

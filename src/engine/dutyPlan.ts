@@ -1,5 +1,5 @@
 import { luFactor, luSolve } from '../numeric/lu.js';
-import { matmul, matvec, normInf, rowDot, zeros, type Matrix, type Vector } from '../numeric/dense.js';
+import { matmul, matvec, normInf, rowDot, zeros, type Matrix } from '../numeric/dense.js';
 import { doubleFlow, flow, type Flow } from './flow.js';
 import { PLAN_CACHE_SIZE, type DutyPlan, type PhasePlan, type Prepared } from './planTypes.js';
 

@@ -1,8 +1,7 @@
 import type { Ladder } from '../circuit/ladder.js';
 import { rememberRecentLadders } from './recentLadders.js';
-import { stateSpace, type StateSpace } from '../circuit/stateSpace.js';
+import { stateSpace } from '../circuit/stateSpace.js';
 import { dcGain } from '../circuit/dcGain.js';
-import type { Vector } from '../numeric/dense.js';
 import type { Prepared } from './planTypes.js';
 
 export { PLAN_CACHE_SIZE, type Prepared } from './planTypes.js';

@@ -2,7 +2,6 @@ import type { Analysis, ChartSeries, Waveform } from '../engine/index.js';
 import { formatEng } from '../units/index.js';
 import { lineChart } from './lineChart.js';
 import { tidy } from './quantities.js';
-import { textWidth } from './wrapText.js';
 
 /** Plot columns per chart at most (fewer on a narrow terminal). */
 const COLUMNS = 72;
