@@ -1,4 +1,7 @@
-import { loadProject, parseProject, requireFilter, type Project } from '../project/index.js';
+import { loadProject } from '../project/loadProject.js';
+import { parseProject } from '../project/parseProject.js';
+import { requireFilter } from '../project/requireFilter.js';
+import type { Project } from '../project/types.js';
 
 /** A project file's path, its YAML text with a label, or a project already loaded. */
 export type ProjectInput = string | { text: string; label?: string } | Project;
