@@ -312,6 +312,47 @@ function trainCodeCache(bundleFile, cacheFile) {
   }
 }
 
+/**
+ * Bundle the library API (src/api/index.ts) into dist/index.js, an ES module beside cli.cjs (it
+ * shares the mathjs chunk and the tolerance worker), and emit its type declarations with tsc into
+ * dist/types (package.json `exports` points at both). The same build-time project validator and
+ * lazy built-ins as the command line; `require` comes from createRequire, for the chunk and the
+ * built-ins.
+ *
+ * Syntax: await buildLibrary([{ outdir, minify, types }])
+ * Example: await buildLibrary()   // [{ file: '.../dist/index.js', bytes: 600000 }]
+ */
+export async function buildLibrary({ outdir: out = dist, minify = true, types = true } = {}) {
+  const outdir = resolve(out);
+  const lib = await build({
+    ...common(outdir, minify),
+    entryPoints: { index: join(root, 'src', 'api', 'index.ts') },
+    format: 'esm',
+    plugins: [projectValidatorAtBuildTime(await standaloneProjectValidator()), lazyBuiltins, lazyMathjs],
+    banner: {
+      js: "import { createRequire as __dacsmithCreateRequire } from 'node:module';\nconst require = __dacsmithCreateRequire(import.meta.url);",
+    },
+  });
+  mkdirSync(outdir, { recursive: true });
+  const written = [];
+  for (const file of lib.outputFiles) {
+    writeAtomically(file.path, file.contents);
+    if (/\.js$/.test(file.path)) written.push({ file: file.path, bytes: file.contents.length });
+  }
+  if (types) {
+    const typesDir = join(outdir, 'types');
+    rmSync(typesDir, { recursive: true, force: true });
+    const tsc = spawnSync(
+      process.execPath,
+      [require.resolve('typescript/bin/tsc'), '-p', join(root, 'tsconfig.types.json'), '--declarationDir', typesDir],
+      { cwd: root, encoding: 'utf8' },
+    );
+    if (tsc.status !== 0) throw new Error(`build: tsc could not emit the type declarations:\n${tsc.stdout}${tsc.stderr}`);
+  }
+  return written;
+}
+
 if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
   await buildCli();
+  await buildLibrary();
 }

@@ -3,6 +3,7 @@ import type { CommandOutput } from './analyze.js';
 import { describeError, EXIT_BAD_INPUT, EXIT_PASS, EXIT_SPEC_FAILS, UsageError } from './errors.js';
 import { reportWidth, terminalColumns, widthOption } from './width.js';
 import type { CheckedFile, CheckFormat } from '../report/check.js';
+import type { ProjectIssue } from '../project/index.js';
 
 export interface CheckArgs {
   files: string[];
@@ -11,6 +12,8 @@ export interface CheckArgs {
   /** Warnings count as failures (exit 1). */
   strict?: boolean;
   width?: number;
+  /** Also write a JUnit XML report to this file. */
+  junit?: string;
 }
 
 /** Exit code of a set of results: 2 when any file is invalid, else 1 when any spec fails, else 0. */
@@ -33,13 +36,16 @@ export async function runCheck(args: CheckArgs, tty: { color: boolean; columns?:
     throw new UsageError("check reads project files by name, not standard input ('-'); name at least one file (a check of no file does not pass)");
   }
   const width = reportWidth(args.width, { isTTY: tty.columns !== undefined, columns: tty.columns });
-  const [{ loadProject, requireFilter }, { analyzeProject }, { renderCheck }] = await Promise.all([
+  const [{ loadProject, requireFilter, keyPositions, ProjectError }, { analyzeProject }, { renderCheck }, { checkKey }] = await Promise.all([
     import('../project/index.js'),
     import('../engine/index.js'),
     import('../report/check.js'),
+    import('../report/checkKey.js'),
   ]);
+  // Annotations and JUnit cases point at the line of each limit: read the positions only for them.
+  const wantPositions = args.format === 'github' || args.junit !== undefined;
   const strict = args.strict ?? false;
-  const results: CheckedFile[] = args.files.map((file) => {
+  const results: CheckedFile[] = await mapInOrder(args.files, async (file) => {
     try {
       const loaded = loadProject(file);
       if (loaded.filter.stages.length === 0) {
@@ -49,11 +55,14 @@ export async function runCheck(args: CheckArgs, tty: { color: boolean; columns?:
       const project = requireFilter(loaded, 'check');
       const analysis = analyzeProject(project);
       const pass = analysis.pass && !(strict && analysis.warnings.length > 0);
-      return { file, pass, checks: analysis.checks, warnings: analysis.warnings, lsb: analysis.lsb };
+      const keys = [...analysis.checks.map((c) => checkKey(c.name)), ...analysis.warnings.map((w) => w.key)];
+      const positions = wantPositions ? { positions: keyPositions(file, keys) } : {};
+      return { file, pass, checks: analysis.checks, warnings: analysis.warnings, lsb: analysis.lsb, ...positions };
     } catch (error) {
       const { code, message } = describeError(error);
       if (code !== EXIT_BAD_INPUT) throw error; // a bug, not a bad file: do not hide it
-      return { file, pass: false, checks: [], warnings: [], lsb: null, error: message };
+      const problems = error instanceof ProjectError ? { problems: error.issues } : await inputProblem(error, file);
+      return { file, pass: false, checks: [], warnings: [], lsb: null, error: message, ...problems };
     }
   });
   if (results.every((r) => r.skipped !== undefined)) {
@@ -61,7 +70,28 @@ export async function runCheck(args: CheckArgs, tty: { color: boolean; columns?:
   }
   const stderr = results.flatMap((r) => (r.error !== undefined ? [`${r.error}\n`] : [])).join('');
   const stdout = args.quiet ? '' : renderCheck(results, args.format, { color: tty.color, strict, width });
+  if (args.junit !== undefined) {
+    const [{ writeOutputFile }, { junitReport }] = await Promise.all([import('./writeOutputFile.js'), import('../report/junit.js')]);
+    // A CI report is rewritten at every run; the project files themselves are never written over.
+    writeOutputFile(args.junit, junitReport(results, { strict }), { force: true, inputs: args.files, option: '--junit' });
+  }
   return { stdout, stderr, code: checkExitCode(results) };
+}
+
+/** One after the other, in order (each file's positions are read right after its analysis). */
+async function mapInOrder<T, U>(items: readonly T[], f: (item: T) => Promise<U>): Promise<U[]> {
+  const out: U[] = [];
+  for (const item of items) out.push(await f(item));
+  return out;
+}
+
+/** An input error found after loading (design space, numerical domain) as one problem, with the line of its key when found. */
+async function inputProblem(error: unknown, file: string): Promise<{ problems?: ProjectIssue[] }> {
+  const { InputError } = await import('../units/index.js');
+  if (!(error instanceof InputError) || error.key === undefined) return {};
+  const { positionOfKey } = await import('../project/index.js');
+  const at = positionOfKey(error.file ?? file, error.key);
+  return { problems: [{ file: error.file ?? file, path: error.key, message: error.detail, ...(at && { line: at.line, column: at.column }) }] };
 }
 
 /**
@@ -82,9 +112,10 @@ export function checkCommand(
         .positional('files', { describe: 'Project files (YAML)', type: 'string', array: true, demandOption: true })
         .option('format', {
           describe: 'Output format',
-          choices: ['text', 'json', 'markdown'] as const,
+          choices: ['text', 'json', 'markdown', 'github'] as const,
           default: 'text' as const,
         })
+        .option('junit', { describe: 'Also write a JUnit XML report to this file (one test suite per file, one test case per check)', type: 'string', requiresArg: true })
         .option('quiet', { alias: 'q', describe: 'Print nothing but errors; the exit code tells', type: 'boolean', default: false })
         .option('strict', {
           describe: 'Treat plausibility warnings (a part value or span that is probably a typing slip) as failures: exit 1',
@@ -95,6 +126,7 @@ export function checkCommand(
         .example('$0 check boards/*.yaml --quiet', 'Only the exit code (and errors), for scripts')
         .example('$0 check boards/*.yaml --strict', 'Also fail (exit 1) on a warning, e.g. a load typed as 1m (milliohm)')
         .example('$0 check boards/*.yaml --format markdown >> "$GITHUB_STEP_SUMMARY"', 'A table for a CI job summary')
+        .example('$0 check boards/*.yaml --format github --junit dacsmith-junit.xml', 'GitHub annotations on the line of each failing limit, and a JUnit report')
         .epilogue(
           'Exit codes: 0 every file passes, 1 a spec fails (with --strict: or a file has a warning), 2 a file is invalid (the others are still checked). ' +
             'Without --strict a warning is printed but never changes the exit code.',

@@ -3,12 +3,13 @@ import type { CommandOutput } from './analyze.js';
 import { EXIT_PASS, EXIT_SPEC_FAILS, UsageError } from './errors.js';
 import { reportWidth, terminalColumns, widthOption } from './width.js';
 import type { CompareFormat } from '../report/compare.js';
+import type { Analysis } from '../engine/index.js';
 
 export interface CompareArgs {
   base: string;
   head?: string;
   git?: string;
-  format: CompareFormat;
+  format: CompareFormat | 'github';
   quiet: boolean;
   width?: number;
 }
@@ -58,17 +59,47 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean; colum
   const headLabel = args.head ?? args.base;
   const headAnalysis = analyzeProject(head);
   let stdout = '';
-  if (!args.quiet) {
+  const format = args.format;
+  if (args.quiet) {
+    // the exit code tells
+  } else if (format === 'github') {
+    stdout = await headAnnotations(headLabel, headAnalysis, analyzeProject(base), baseLabel);
+  } else {
     const baseAnalysis = analyzeProject(base);
     stdout = compareReport(
       { label: baseLabel, project: base, analysis: baseAnalysis },
       { label: headLabel, project: head, analysis: headAnalysis },
-      compareOverlays(baseAnalysis, headAnalysis, args.format === 'text' ? overlayColumns(width) : 72),
-      args.format,
+      compareOverlays(baseAnalysis, headAnalysis, format === 'text' ? overlayColumns(width) : 72),
+      format,
       { color: tty.color, width },
     );
   }
   return { stdout, stderr: '', code: headAnalysis.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
+}
+
+/**
+ * GitHub annotations for the head of a comparison: each failing check on the line of its limit in
+ * the head file, with what the base said of it, and each warning of the head.
+ */
+async function headAnnotations(
+  headFile: string,
+  head: Analysis,
+  base: Analysis,
+  baseLabel: string,
+): Promise<string> {
+  const [{ keyPositions }, { renderCheck }, { checkKey }] = await Promise.all([
+    import('../project/index.js'),
+    import('../report/check.js'),
+    import('../report/checkKey.js'),
+  ]);
+  const checkNotes: Record<string, string> = {};
+  for (const c of head.checks) {
+    const was = base.checks.find((b) => b.name === c.name);
+    checkNotes[c.name] = was === undefined ? `no such limit in ${baseLabel}` : was.pass ? `passes in ${baseLabel}` : `fails in ${baseLabel} too`;
+  }
+  const keys = [...head.checks.map((c) => checkKey(c.name)), ...head.warnings.map((w) => w.key)];
+  const file = { file: headFile, pass: head.pass, checks: head.checks, warnings: head.warnings, lsb: head.lsb, positions: keyPositions(headFile, keys), checkNotes };
+  return renderCheck([file], 'github', { command: `dacsmith compare ${baseLabel} -> ${headFile}` });
 }
 
 /**
@@ -91,13 +122,14 @@ export function compareCommand(
         .option('git', { describe: 'Compare the file with its version at this git revision (branch, tag, commit)', type: 'string', requiresArg: true })
         .option('format', {
           describe: 'Output format',
-          choices: ['text', 'json', 'markdown'] as const,
+          choices: ['text', 'json', 'markdown', 'github'] as const,
           default: 'text' as const,
         })
         .option('quiet', { alias: 'q', describe: "Print nothing but errors; the exit code is the head's spec status", type: 'boolean', default: false })
         .example('$0 compare old.yaml new.yaml', 'Two files side by side')
         .example('$0 compare dacsmith.yaml --git main', 'The file against its version on branch main')
         .example('$0 compare dacsmith.yaml --git HEAD --format markdown >> "$GITHUB_STEP_SUMMARY"', 'Uncommitted changes, as Markdown for a CI summary')
+        .example('$0 compare dacsmith.yaml --git origin/main --format github', "GitHub annotations on the head's failing limits, saying whether the base passed")
         .epilogue("Exit codes: 0 the head passes its spec, 1 it fails, 2 bad input (a file, or git). Warnings shown are the head's; they never change the exit code.") as unknown as Argv<CompareArgs>,
     handler: (args) => run(() => runCompare(args, { color: args.format === 'text' && color(), ...terminalColumns() })),
   };

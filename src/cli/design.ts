@@ -68,53 +68,28 @@ export async function runDesign(
   if (args.write !== undefined && !args.force && fs.existsSync(args.write)) {
     return { stdout: '', stderr: `dacsmith: ${args.write} exists; use --force to overwrite it\n`, code: EXIT_BAD_INPUT };
   }
-  const [{ loadProject }, { designSearch, tradeoffCurves }, { designReport }, { robustDesigns }, { designProgressLine }, { robustChecks }] =
-    await Promise.all([
-      import('../project/index.js'),
-      import('../design/index.js'),
-      import('../report/design.js'),
-      import('../design/robustDesigns.js'),
-      import('../report/designProgress.js'),
-      import('../tolerance/index.js'),
-    ]);
+  const [{ loadProject }, { designStudy }, { designReport }, { designProgressLine }] = await Promise.all([
+    import('../project/index.js'),
+    import('../api/designStudy.js'),
+    import('../report/design.js'),
+    import('../report/designProgress.js'),
+  ]);
   const project = loadProject(args.file);
   // Progress only on a terminal, and not when asked to be quiet.
   const bar = tty.progress && !args.quiet ? progressBar(tty.progress, designProgressLine) : null;
-  let result;
-  let tradeoff;
-  let robust;
+  let study;
   try {
-    const share = args.charts ? 0.5 : 1;
-    const deadline = args.maxTime !== undefined ? started + 1000 * args.maxTime : undefined;
-    if (args.robust) {
-      robust = robustDesigns(project, args.robust, { checks: robustChecks, top: args.top, ...(bar && { onProgress: (f: number) => bar.update(share * f) }) });
-      result = { ...robust.nominal, candidates: robust.candidates.map((r) => r.candidate), feasible: robust.candidates.length > 0, diagnosis: [] };
-    } else {
-      result = designSearch(project, {
-        top: args.top,
-        ...(deadline !== undefined && { deadline }),
-        ...(bar && { onProgress: (f: number, d?: DesignProgress) => bar.update(share * f, d) }),
-      });
-    }
-    // Nothing feasible: the explanation carries the numbers; curves would rerun many empty searches.
-    // Out of time (--max-time): no curves either; the report says the search is incomplete.
-    if (args.charts && result.feasible && result.complete !== false && (deadline === undefined || performance.now() < deadline)) {
-      const best = result.candidates[0];
-      const atBits = result.resolutions.length > 0 && best?.bits != null ? best.bits : undefined;
-      const ripple = result.basis.limits.ripple;
-      const lsbAt = result.resolutions.find((r) => r.bits === atBits)?.lsb;
-      const inLsb = project.specInLsb?.ripple;
-      const center = ripple === undefined ? best?.worstRipple : inLsb !== undefined && lsbAt !== undefined ? inLsb * lsbAt : ripple;
-      if (center !== undefined && center > 0) {
-        tradeoff = tradeoffCurves(project, result.basis.stageCounts, center, {
-          ...(atBits !== undefined && { bits: atBits }),
-          ...(bar && { onProgress: (f: number) => bar.update(0.5 + 0.5 * f, { phase: 'curves' }) }),
-        });
-      }
-    }
+    study = designStudy(project, {
+      top: args.top,
+      tradeoff: args.charts,
+      ...(args.maxTime !== undefined && { deadline: started + 1000 * args.maxTime }),
+      ...(args.robust && { robust: args.robust }),
+      ...(bar && { onProgress: (f: number, d?: DesignProgress) => bar.update(f, d) }),
+    });
   } finally {
     bar?.done();
   }
+  const { result, tradeoff, robust } = study;
 
   let written: string | undefined;
   let changes;

@@ -11,6 +11,8 @@ import { toleranceCommand } from './tolerance.js';
 import { describeError, UsageError } from './errors.js';
 import { InputError } from '../units/index.js';
 import { checkOptionTokens, operandsAfterDoubleDash, type OptionKinds } from './checkOptionTokens.js';
+import { completionCandidates, completionShell } from './completion.js';
+import { readdirSync } from 'node:fs';
 
 /** Print what a command produced and set the exit code; map thrown errors to messages and codes. */
 async function run(work: () => Promise<CommandOutput>): Promise<void> {
@@ -45,6 +47,31 @@ function optionTokensChecker(argv: readonly string[]): (args: object) => void {
 }
 
 /**
+ * yargs' completion hook: its own candidates (commands, options, choices), or YAML files where a
+ * command takes project files. The words come from the command line after --get-yargs-completions.
+ */
+function completeWord(
+  current: string,
+  _argv: unknown,
+  defaults: (done: (error: Error | null, candidates: string[] | undefined) => void) => void,
+  done: (candidates: string[]) => void,
+): void {
+  defaults((_error, candidates) => {
+    const at = process.argv.indexOf('--get-yargs-completions');
+    // the words after the program name, without the one being completed
+    const words = process.argv.slice(at + 2, -1);
+    const list = (dir: string) => {
+      try {
+        return readdirSync(dir, { withFileTypes: true });
+      } catch {
+        return [];
+      }
+    };
+    done(completionCandidates(words, current, candidates ?? [], list));
+  });
+}
+
+/**
  * The command-line shell: parse arguments with yargs and dispatch to one command module per file.
  * Argument errors print the message and a hint on standard error and exit 2.
  *
@@ -59,6 +86,9 @@ export async function main(argv: string[]): Promise<void> {
     process.exit();
   });
   const color = () => colorWanted(process.stdout.isTTY, process.env);
+  const shell = completionShell(argv, process.env);
+  if (shell.shell !== undefined) process.env.SHELL = shell.shell; // yargs picks the script's shell from $SHELL
+  argv = shell.argv;
   const cli = yargs(operandsAfterDoubleDash(argv))
     .scriptName('dacsmith')
     .usage('$0 <command> [options]\n\nPlan the RC filter that turns a PWM output into an analog voltage.')
@@ -68,6 +98,7 @@ export async function main(argv: string[]): Promise<void> {
     .command(checkCommand(run, color))
     .command(compareCommand(run, color))
     .command(initCommand(run))
+    .completion('completion', 'Print a shell completion script: dacsmith completion [bash|zsh] >> ~/.bashrc (commands, options, .yaml files)', completeWord)
     .middleware(optionTokensChecker(argv), true)
     .demandCommand(1, 'Name a command.')
     .recommendCommands()

@@ -8,3 +8,4 @@ export { requireFilter } from './requireFilter.js';
 export { parseSpecLevel, type SpecLevel } from './parseSpecLevel.js';
 export type * from './types.js';
 export { positionOfKey } from './positionOfKey.js';
+export { keyPositions, type KeyPosition } from './keyPositions.js';

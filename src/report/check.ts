@@ -1,4 +1,6 @@
 import type { Check, Warning } from '../engine/index.js';
+import type { KeyPosition, ProjectIssue } from '../project/index.js';
+import { checkKey } from './checkKey.js';
 import { formatEng } from '../units/index.js';
 import { palette } from './color.js';
 import { textWidth, wrapParagraph, wrapText } from './wrapText.js';
@@ -17,9 +19,15 @@ export interface CheckedFile {
   error?: string;
   /** Why the file was not checked: a design-only file (a search and no filter) has no spec to hold. */
   skipped?: string;
+  /** Where each limit and warned key sits in the file (key path -> line, column), for annotations. */
+  positions?: ReadonlyMap<string, KeyPosition>;
+  /** Each problem of an invalid file with its key path and, when known, line and column. */
+  problems?: readonly ProjectIssue[];
+  /** Said after a failing check's annotation, by check name (compare: 'passed in main.yaml'). */
+  checkNotes?: Readonly<Record<string, string>>;
 }
 
-export type CheckFormat = 'text' | 'markdown' | 'json';
+export type CheckFormat = 'text' | 'markdown' | 'json' | 'github';
 
 export interface CheckRenderOptions {
   /** ANSI colour for the text format (default false). */
@@ -28,6 +36,8 @@ export interface CheckRenderOptions {
   strict?: boolean;
   /** Text: the widest line, columns (default 80); longer lines wrap under the details. */
   width?: number;
+  /** GitHub: what the summary line starts with (default 'dacsmith check'). */
+  command?: string;
 }
 
 /** A check value or limit: a fraction of full scale ('1') in percent, else engineering units. */
@@ -48,7 +58,7 @@ function valueAndLimit(value: number, limit: number, unit: Check['unit']): [stri
 }
 
 /** 'ripple 4.12 mV > 1.61 mV' or 'settling never settles (limit 20 ms)'. */
-function failure(c: Check): string {
+export function failure(c: Check): string {
   if (c.value === null) return `${c.name} never settles (limit ${quantity(c.limit, c.unit, 3)})`;
   const [value, limit] = valueAndLimit(c.value, c.limit, c.unit);
   return `${c.name} ${value} > ${limit}`;
@@ -96,6 +106,54 @@ const cell = (s: string) => s.replace(/\\/g, '\\\\').replace(/\|/g, '\\|').repla
 const warningLines = (files: CheckedFile[]) => files.flatMap((f) => f.warnings.map((w) => `${f.file}: ${w.key}: ${w.message}`));
 
 /**
+ * GitHub's workflow-command escaping (from memory of actions/toolkit, command.ts: escapeData and
+ * escapeProperty): in the message `%`, CR and LF become %25, %0D, %0A; in a property value also
+ * `:` and `,` (they end a property) become %3A and %2C.
+ */
+const escapeData = (s: string) => s.replace(/%/g, '%25').replace(/\r/g, '%0D').replace(/\n/g, '%0A');
+const escapeProperty = (s: string) => escapeData(s).replace(/:/g, '%3A').replace(/,/g, '%2C');
+
+/** One workflow command: `::error file=F,line=L,col=C,title=T::message`. */
+function annotation(level: 'error' | 'warning', file: string, at: { line?: number; column?: number } | undefined, title: string, message: string): string {
+  const props = [`file=${escapeProperty(file)}`];
+  if (at?.line !== undefined) props.push(`line=${at.line}`, `col=${at.column ?? 1}`);
+  props.push(`title=${escapeProperty(title)}`);
+  return `::${level} ${props.join(',')}::${escapeData(message)}`;
+}
+
+/**
+ * GitHub Actions annotations: one `::error` per failing check at the line of its limit, one
+ * `::warning` per plausibility warning at its key (`::error` under --strict, where it fails), one
+ * `::error` per problem of an invalid file; then a plain summary line for the log.
+ */
+function githubAnnotations(files: CheckedFile[], strict: boolean, command: string): string {
+  const lines: string[] = [];
+  for (const f of files) {
+    if (f.error !== undefined) {
+      const problems = f.problems && f.problems.length > 0 ? f.problems : [{ path: '', message: f.error }];
+      for (const p of problems) {
+        const at = 'line' in p ? p : undefined;
+        lines.push(annotation('error', f.file, at, 'dacsmith: invalid project file', p.path ? `${p.path}: ${p.message}` : p.message));
+      }
+      continue;
+    }
+    for (const c of f.checks.filter((k) => !k.pass)) {
+      const key = checkKey(c.name);
+      const at = f.positions?.get(key);
+      const where = at === undefined || at.exact ? `limit ${key}` : `default limit: the file has no ${key}`;
+      const note = f.checkNotes?.[c.name];
+      lines.push(annotation('error', f.file, at, `dacsmith: ${c.name} fails`, `${failure(c)} (${where})${note ? `; ${note}` : ''}`));
+    }
+    for (const w of f.warnings) {
+      const title = strict ? 'dacsmith: warning (strict: fails)' : 'dacsmith: warning';
+      lines.push(annotation(strict ? 'error' : 'warning', f.file, f.positions?.get(w.key), title, `${w.key}: ${w.message}`));
+    }
+  }
+  lines.push(`${command}: ${summary(files, strict)}`);
+  return lines.join('\n') + '\n';
+}
+
+/**
  * Render the results of `check`:
  * - `text`: one line per valid file, `PASS  file  (n checks hold)` or
  *   `FAIL  file  ripple 4.12 mV > 1.61 mV, ...` (invalid files are left to standard error), then a
@@ -104,7 +162,10 @@ const warningLines = (files: CheckedFile[]) => files.flatMap((f) => f.warnings.m
  *   a "Warnings" list when there are any;
  * A design-only file (a search and no filter) is listed as SKIP and neither passes nor fails.
  * - `json`: `{ files: [{ file, pass, checks, warnings, error?, skipped? }], warnings: [{ file, key, message }],
- *   strict, pass }`, SI units, nothing else.
+ *   strict, pass }`, SI units, nothing else;
+ * - `github`: GitHub Actions workflow commands, `::error file=F,line=L,col=C,title=T::message` per
+ *   failing check at the line of its limit (from `positions`), `::warning` per warning, then a
+ *   summary line.
  * With `strict` (check --strict) a warning is a failure: the caller sets `pass` so, and the details
  * name the warned keys.
  *
@@ -115,6 +176,7 @@ const warningLines = (files: CheckedFile[]) => files.flatMap((f) => f.warnings.m
 export function renderCheck(files: CheckedFile[], format: CheckFormat, options: CheckRenderOptions = {}): string {
   const strict = options.strict ?? false;
   const pass = files.every((f) => f.pass && f.error === undefined);
+  if (format === 'github') return githubAnnotations(files, strict, options.command ?? 'dacsmith check');
   if (format === 'json') {
     const body = {
       files: files.map((f) => ({

@@ -1,3 +1,4 @@
+import { jsonValue } from './jsonValue.js';
 import { plot } from 'asciichart';
 import type { Analysis, CompareOverlays, Overlay } from '../engine/index.js';
 import type { Project } from '../project/types.js';
@@ -329,20 +330,7 @@ export function compareReport(
   const { from, to, ...step } = overlays.step;
   const pass = head.analysis.pass;
 
-  if (format === 'json') {
-    const side = (s: CompareSide) => ({ label: s.label, file: s.project.file, pass: s.analysis.pass });
-    const body = {
-      base: side(base),
-      head: side(head),
-      inputs,
-      figures,
-      checks,
-      warnings: head.analysis.warnings,
-      waveforms: { steady: { duty, ...steady, quantity: 'output minus ideal, V' }, step: { from, to, ...step, quantity: 'output, V' } },
-      pass,
-    };
-    return JSON.stringify(body, (_k, v) => (typeof v === 'number' && !Number.isFinite(v) ? null : v), 2) + '\n';
-  }
+  if (format === 'json') return JSON.stringify(compareJson(base, head, overlays), null, 2) + '\n';
 
   const colored = format === 'text' && (options.color ?? false);
   const paint = palette(colored);
@@ -406,4 +394,28 @@ export function compareReport(
   if (doc.warnings.length > 0) out.push('', paint.bold('Warnings (head)'), ...doc.warnings.map((w) => wrap(w, '  - ', '    ')));
   for (const c of doc.charts) out.push('', paint.accent(wrap(c.title, '  ', '  ')), c.body, wrap(legend, '  ', '    '));
   return out.join('\n') + '\n';
+}
+
+/**
+ * The object `compare --format json` prints (see compareReport): { base, head, inputs, figures,
+ * checks, warnings, waveforms, pass }, as plain JSON data: what the library API's compare() returns.
+ *
+ * Syntax: compareJson(base, head, overlays)
+ * Example: compareJson(baseSide, headSide, compareOverlays(aa, ab, 72)).figures
+ */
+export function compareJson(base: CompareSide, head: CompareSide, overlays: CompareOverlays) {
+  const { duty, ...steady } = overlays.steady;
+  const { from, to, ...step } = overlays.step;
+  const side = (s: CompareSide) => ({ label: s.label, file: s.project.file, pass: s.analysis.pass });
+  const body = {
+    base: side(base),
+    head: side(head),
+    inputs: changedInputs(base.project, head.project),
+    figures: metrics(base.analysis, head.analysis),
+    checks: checkRows(base.analysis, head.analysis),
+    warnings: head.analysis.warnings,
+    waveforms: { steady: { duty, ...steady, quantity: 'output minus ideal, V' }, step: { from, to, ...step, quantity: 'output, V' } },
+    pass: head.analysis.pass,
+  };
+  return jsonValue(body);
 }

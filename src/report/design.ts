@@ -1,3 +1,4 @@
+import { jsonValue } from './jsonValue.js';
 import type { TradeoffCurve } from '../design/tradeoffCurves.js';
 import type { RobustResult } from '../design/robustDesigns.js';
 import type { Candidate, DesignResult } from '../design/types.js';
@@ -88,33 +89,7 @@ function candidateJson(c: Candidate) {
  * Example: JSON.parse(designReport(p, designSearch(p), 'json')).candidates[0].settlingTime
  */
 export function designReport(project: Project, result: DesignResult, format: DesignFormat, options: DesignReportOptions = {}): string {
-  if (format === 'json') {
-    const body = {
-      pass: result.feasible,
-      // false: stopped at --max-time; the designs meet the spec but are not proven the best
-      complete: result.complete !== false,
-      candidates: result.candidates.map(candidateJson),
-      evaluated: result.stats.evaluated,
-      verified: result.stats.verified,
-      space: result.stats.space,
-      diagnosis: result.diagnosis,
-      warnings: result.warnings,
-      // When nothing is feasible: changes verified by a search, and limits proven out of reach.
-      fixes: (result.fixes ?? []).map((f) => ({ kind: f.kind, change: f.change, design: candidateJson(f.best) })),
-      proven: (result.proven ?? []).map((m) => ({ stages: m.stages, limit: m.limit, reach: m.reach, limitValue: m.limitValue, reason: m.reason })),
-      current: result.current ? candidateJson(result.current) : null,
-      resolutions: result.resolutions.map((r) => ({ ...r, best: r.best ? candidateJson(r.best) : null })),
-      tradeoff: (options.tradeoff ?? []).map((c) => ({
-        stages: c.stages,
-        points: c.points.map((p) => ({ ripple: p.ripple, settlingTime: finite(p.settlingTime), best: p.best ? candidateJson(p.best) : null })),
-      })),
-      basis: result.basis,
-      written: options.written ?? null,
-      changes: options.written ? (options.changes ?? []) : null,
-      ...(options.robust && { robust: robustJson(options.robust) }),
-    };
-    return JSON.stringify(body, null, 2) + '\n';
-  }
+  if (format === 'json') return JSON.stringify(designJson(result, options), null, 2) + '\n';
   const color = format === 'text' && (options.color ?? false);
   const doc = designDocument(project, result, {
     ...(options.tradeoff ? { tradeoff: options.tradeoff } : {}),
@@ -124,4 +99,39 @@ export function designReport(project: Project, result: DesignResult, format: Des
     ...(options.width && { width: options.width }),
   });
   return renderDocument(doc, format, { color, ...(options.width && { width: options.width }) });
+}
+
+/**
+ * The object `design --format json` prints (see designReport), as plain JSON data: what the
+ * library API's design() returns.
+ *
+ * Syntax: designJson(result[, { tradeoff, written, changes, robust }])
+ * Example: designJson(designSearch(p)).candidates[0].settlingTime
+ */
+export function designJson(result: DesignResult, options: Pick<DesignReportOptions, 'tradeoff' | 'written' | 'changes' | 'robust'> = {}) {
+  const body = {
+    pass: result.feasible,
+    // false: stopped at --max-time; the designs meet the spec but are not proven the best
+    complete: result.complete !== false,
+    candidates: result.candidates.map(candidateJson),
+    evaluated: result.stats.evaluated,
+    verified: result.stats.verified,
+    space: result.stats.space,
+    diagnosis: result.diagnosis,
+    warnings: result.warnings,
+    // When nothing is feasible: changes verified by a search, and limits proven out of reach.
+    fixes: (result.fixes ?? []).map((f) => ({ kind: f.kind, change: f.change, design: candidateJson(f.best) })),
+    proven: (result.proven ?? []).map((m) => ({ stages: m.stages, limit: m.limit, reach: m.reach, limitValue: m.limitValue, reason: m.reason })),
+    current: result.current ? candidateJson(result.current) : null,
+    resolutions: result.resolutions.map((r) => ({ ...r, best: r.best ? candidateJson(r.best) : null })),
+    tradeoff: (options.tradeoff ?? []).map((c) => ({
+      stages: c.stages,
+      points: c.points.map((p) => ({ ripple: p.ripple, settlingTime: finite(p.settlingTime), best: p.best ? candidateJson(p.best) : null })),
+    })),
+    basis: result.basis,
+    written: options.written ?? null,
+    changes: options.written ? (options.changes ?? []) : null,
+    ...(options.robust && { robust: robustJson(options.robust) }),
+  };
+  return jsonValue(body);
 }

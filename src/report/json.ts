@@ -1,6 +1,7 @@
 import type { Analysis } from '../engine/index.js';
 import type { Project } from '../project/types.js';
 import { cautions } from './cautions.js';
+import { jsonValue } from './jsonValue.js';
 
 /**
  * The analysis as one JSON object (the machine-readable contract of `analyze --format json` in
@@ -16,6 +17,17 @@ import { cautions } from './cautions.js';
  * Example: JSON.parse(jsonReport(p, a)).worstRipple.ripple
  */
 export function jsonReport(project: Project, analysis: Analysis): string {
+  return JSON.stringify(analysisJson(project, analysis), null, 2) + '\n';
+}
+
+/**
+ * The object `analyze --format json` prints (see jsonReport), as plain JSON data: what the library
+ * API's analyze() returns, so the command line and the library cannot disagree.
+ *
+ * Syntax: analysisJson(project, analysis)
+ * Example: analysisJson(p, a).worstRipple.ripple
+ */
+export function analysisJson(project: Project, analysis: Analysis) {
   const { ladder: _ladder, ...figures } = analysis;
   const { file, pwm, load, filter, spec, lsb } = project;
   const body = {
@@ -23,5 +35,5 @@ export function jsonReport(project: Project, analysis: Analysis): string {
     cautions: cautions(project, analysis),
     inputs: { file, pwm, load, stages: filter.stages, spec, lsb: lsb ?? null },
   };
-  return JSON.stringify(body, null, 2) + '\n';
+  return jsonValue(body);
 }

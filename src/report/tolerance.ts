@@ -1,3 +1,4 @@
+import { jsonValue } from './jsonValue.js';
 import type { Project } from '../project/types.js';
 import type { MonteCarloResult } from '../tolerance/monteCarlo.js';
 import type { ToleranceParameter } from '../tolerance/parameters.js';
@@ -45,7 +46,7 @@ export function toleranceReport(
   format: ToleranceFormat,
   options: ToleranceReportOptions = {},
 ): string {
-  if (format === 'json') return toleranceJson(project, study, options.bins ?? 12);
+  if (format === 'json') return JSON.stringify(toleranceJson(project, study, options.bins ?? 12), null, 2) + '\n';
   const width = options.width ?? 80;
   const doc = toleranceDocument(project, study, { charts: options.charts ?? true, bins: options.bins ?? 12, width });
   return renderDocument(doc, format, { color: options.color ?? false, width });
@@ -347,7 +348,14 @@ function verdictText(study: ToleranceStudy): string {
 // ---------------------------------------------------------------------------------------------
 // JSON
 
-function toleranceJson(project: Project, study: ToleranceStudy, bins: number): string {
+/**
+ * The object `tolerance --format json` prints (see toleranceReport), as plain JSON data: what the
+ * library API's tolerance() returns.
+ *
+ * Syntax: toleranceJson(project, study[, bins])
+ * Example: toleranceJson(p, await toleranceStudy(p)).monteCarlo.yield
+ */
+export function toleranceJson(project: Project, study: ToleranceStudy, bins = 12) {
   const { worstCase: wc, monteCarlo: mc } = study;
   const keyed = <T>(values: T[]) => Object.fromEntries(wc.parameters.map((p, i) => [p.key, values[i]]));
   const figure = (f: WorstCaseFigure | null) =>
@@ -401,5 +409,5 @@ function toleranceJson(project: Project, study: ToleranceStudy, bins: number): s
     pass: study.pass,
   };
   // JSON has no Infinity: a step that never settles is null.
-  return JSON.stringify(body, (_k, v) => (typeof v === 'number' && !Number.isFinite(v) ? null : v), 2) + '\n';
+  return jsonValue(body);
 }

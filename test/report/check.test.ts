@@ -96,3 +96,38 @@ describe('renderCheck JSON and Markdown', () => {
     );
   });
 });
+
+describe('renderCheck github', () => {
+  // GitHub's workflow-command escaping, from memory of actions/toolkit command.ts: data escapes
+  // % CR LF as %25 %0D %0A; property values also : and , as %3A %2C.
+  const unescape = (s: string) => s.replace(/%0D/g, '\r').replace(/%0A/g, '\n').replace(/%3A/g, ':').replace(/%2C/g, ',').replace(/%25/g, '%');
+
+  it('escapes file names and messages so that the runner reads them back unchanged', () => {
+    const name = 'boards/a,b:100%.yaml';
+    const warned: CheckedFile = {
+      ...file(name, [ripple(4.12e-3, 1.61e-3)]),
+      warnings: [{ key: 'load.resistance', message: 'spans 50 % of\nthe ideal\r' }],
+      positions: new Map([
+        ['spec.ripple', { line: 12, column: 3, exact: true }],
+        ['load.resistance', { line: 7, column: 3, exact: true }],
+      ]),
+    };
+    const lines = renderCheck([warned], 'github').trimEnd().split('\n');
+    expect(lines).toHaveLength(3); // two annotations (no raw line break leaks) and the summary
+    const [error, warning] = lines.map((l) => /^::(\w+) ([^:]*)::(.*)$/.exec(l));
+    expect(error?.[1]).toBe('error');
+    const props = Object.fromEntries((error?.[2] ?? '').split(',').map((p) => [p.slice(0, p.indexOf('=')), unescape(p.slice(p.indexOf('=') + 1))]));
+    expect(props).toEqual({ file: name, line: '12', col: '3', title: 'dacsmith: ripple fails' });
+    expect(unescape(error?.[3] ?? '')).toBe('ripple 4.12 mV > 1.61 mV (limit spec.ripple)');
+    expect(warning?.[1]).toBe('warning');
+    expect(unescape(warning?.[3] ?? '')).toBe('load.resistance: spans 50 % of\nthe ideal\r');
+  });
+
+  it('leaves out line and column when the position is unknown, and says when the limit is a default', () => {
+    const gain: Check = { name: 'gain', value: 0.5, limit: 0.02, unit: '1', pass: false };
+    const unknown = renderCheck([file('x.yaml', [gain])], 'github');
+    expect(unknown.split('\n')[0]).toBe('::error file=x.yaml,title=dacsmith%3A gain fails::gain 50 %25 of full scale > 2 %25 of full scale (limit spec.gain)');
+    const fallback = renderCheck([{ ...file('x.yaml', [gain]), positions: new Map([['spec.gain', { line: 1, column: 1, exact: false }]]) }], 'github');
+    expect(fallback.split('\n')[0]).toBe('::error file=x.yaml,line=1,col=1,title=dacsmith%3A gain fails::gain 50 %25 of full scale > 2 %25 of full scale (default limit: the file has no spec.gain)');
+  });
+});

@@ -1,0 +1,25 @@
+import { designJson } from '../report/design.js';
+import { designStudy } from './designStudy.js';
+import { projectOf, type ProjectInput } from './projectOf.js';
+
+export interface DesignApiOptions {
+  /** Designs to list (default 10), as `--top`. */
+  top?: number;
+  /** As `--robust`: only designs that survive the `tolerance:` box ('worst-case') or reach its yield target ('yield'). */
+  robust?: 'worst-case' | 'yield';
+  /** Compute the trade-off curves (default true, as the command; false as `--no-charts`). */
+  tradeoff?: boolean;
+}
+
+/**
+ * Recommend standard-value filters from the project's `search:`: the object
+ * `dacsmith design FILE --format json` prints (pass, candidates best first, diagnosis, fixes,
+ * tradeoff, basis, ...), SI units.
+ *
+ * Syntax: design(input[, { top, robust, tradeoff }])
+ * Example: design('sample-configs/design-tight-ripple.yaml', { top: 3 }).candidates[0].settlingTime
+ */
+export function design(input: ProjectInput, options: DesignApiOptions = {}) {
+  const study = designStudy(projectOf(input), options);
+  return designJson(study.result, { ...(study.tradeoff && { tradeoff: study.tradeoff }), ...(study.robust && { robust: study.robust }) });
+}

@@ -1,0 +1,74 @@
+import type { Project } from '../project/index.js';
+import { designSearch, tradeoffCurves } from '../design/index.js';
+import { robustDesigns } from '../design/robustDesigns.js';
+import type { DesignProgress, DesignResult } from '../design/types.js';
+import type { TradeoffCurve } from '../design/tradeoffCurves.js';
+import type { RobustResult } from '../design/robustDesigns.js';
+import { robustChecks } from '../tolerance/index.js';
+
+export interface DesignStudyOptions {
+  /** Designs to list (default 10). */
+  top?: number;
+  /** Keep only designs that meet every limit at the worst case, or reach the yield target. */
+  robust?: 'worst-case' | 'yield';
+  /** Also compute the settling/ripple trade-off curves (default true, as the command). */
+  tradeoff?: boolean;
+  onProgress?: (fraction: number, detail?: DesignProgress) => void;
+  /**
+   * performance.now() in ms after which the search stops with the designs found so far
+   * (`--max-time`): the result says `complete: false`, and no curves are computed past it.
+   */
+  deadline?: number;
+}
+
+export interface DesignStudy {
+  result: DesignResult;
+  tradeoff?: TradeoffCurve[];
+  robust?: RobustResult;
+}
+
+/**
+ * The standard-value search behind `dacsmith design` and the library's design(): the ranked
+ * designs, with `robust` only those that survive the tolerance box, and the trade-off curves around
+ * the spec's ripple limit (skipped when nothing is feasible: they would rerun many empty searches).
+ *
+ * Syntax: designStudy(project[, { top, robust, tradeoff, onProgress, deadline }])
+ * Example: designStudy(p, { top: 3, tradeoff: false }).result.candidates[0]
+ */
+export function designStudy(project: Project, options: DesignStudyOptions = {}): DesignStudy {
+  const top = options.top ?? 10;
+  const charts = options.tradeoff ?? true;
+  const report = options.onProgress;
+  const share = charts ? 0.5 : 1;
+  let result: DesignResult;
+  let robust: RobustResult | undefined;
+  if (options.robust) {
+    robust = robustDesigns(project, options.robust, { checks: robustChecks, top, ...(report && { onProgress: (f: number) => report(share * f) }) });
+    result = { ...robust.nominal, candidates: robust.candidates.map((r) => r.candidate), feasible: robust.candidates.length > 0, diagnosis: [] };
+  } else {
+    result = designSearch(project, {
+      top,
+      ...(options.deadline !== undefined && { deadline: options.deadline }),
+      ...(report && { onProgress: (f: number, d?: DesignProgress) => report(share * f, d) }),
+    });
+  }
+  let tradeoff: TradeoffCurve[] | undefined;
+  // Nothing feasible: the explanation carries the numbers; curves would rerun many empty searches.
+  // Out of time (--max-time): no curves either; the report says the search is incomplete.
+  const inTime = options.deadline === undefined || (result.complete !== false && performance.now() < options.deadline);
+  if (charts && result.feasible && inTime) {
+    const best = result.candidates[0];
+    const atBits = result.resolutions.length > 0 && best?.bits != null ? best.bits : undefined;
+    const ripple = result.basis.limits.ripple;
+    const lsbAt = result.resolutions.find((r) => r.bits === atBits)?.lsb;
+    const inLsb = project.specInLsb?.ripple;
+    const center = ripple === undefined ? best?.worstRipple : inLsb !== undefined && lsbAt !== undefined ? inLsb * lsbAt : ripple;
+    if (center !== undefined && center > 0) {
+      tradeoff = tradeoffCurves(project, result.basis.stageCounts, center, {
+        ...(atBits !== undefined && { bits: atBits }),
+        ...(report && { onProgress: (f: number) => report(0.5 + 0.5 * f, { phase: 'curves' }) }),
+      });
+    }
+  }
+  return { result, ...(tradeoff && { tradeoff }), ...(robust && { robust }) };
+}
