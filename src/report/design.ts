@@ -4,9 +4,11 @@ import type { Candidate, DesignResult } from '../design/types.js';
 import type { Project } from '../project/types.js';
 import type { DesignEdit } from './designYaml.js';
 import { designDocument, FOLLOWER_NOTE, stageCodes } from './designDocument.js';
+import { htmlPage } from './htmlPage.js';
 import { renderDocument } from './renderDocument.js';
+import { tradeoffPlot } from './tradeoffPlot.js';
 
-export type DesignFormat = 'text' | 'markdown' | 'json';
+export type DesignFormat = 'text' | 'markdown' | 'json' | 'html';
 
 export interface DesignReportOptions {
   tradeoff?: TradeoffCurve[];
@@ -77,7 +79,8 @@ function candidateJson(c: Candidate) {
 }
 
 /**
- * The design result as text (terminal), GitHub-flavoured Markdown, or one JSON object (model.md:
+ * The design result as text (terminal), GitHub-flavoured Markdown, one self-contained HTML page
+ * (the Markdown's sections, the trade-off as an SVG plot, the JSON embedded), or one JSON object (model.md:
  * `candidates` best first, each { stages: [{ r, c[, buffered] }], worstRipple, settlingTime, droop,
  * pass } and more: `margins` per limit (fractions of the limit), `keepsMargin`, `needsFollower` and
  * `notes`; `evaluated`; with `robust`, `robust: { mode, scanned, candidates: [{ nominalRank, worstCase |
@@ -111,6 +114,19 @@ export function designReport(project: Project, result: DesignResult, format: Des
       ...(options.robust && { robust: robustJson(options.robust) }),
     };
     return JSON.stringify(body, null, 2) + '\n';
+  }
+  if (format === 'html') {
+    const doc = designDocument(project, result, {
+      ...(options.tradeoff ? { tradeoff: options.tradeoff } : {}),
+      ...(options.written ? { written: options.written } : {}),
+      ...(options.robust ? { robust: options.robust } : {}),
+    });
+    // The trade-off curve replaces the ASCII chart in its section; the page embeds the JSON.
+    const curves = options.tradeoff ?? [];
+    return htmlPage(doc, {
+      charts: curves.length > 0 ? [tradeoffPlot(curves, project.spec.ripple)] : [],
+      json: designReport(project, result, 'json', options),
+    });
   }
   const color = format === 'text' && (options.color ?? false);
   const doc = designDocument(project, result, {

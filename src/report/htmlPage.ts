@@ -6,6 +6,8 @@ export interface HtmlPageOptions {
   plots?: string[];
   /** Put the plots before the first section with one of these titles (default: Warnings, Cautions; else last). */
   plotsBefore?: string[];
+  /** Figures that take the place of the document's ASCII chart blocks, in document order. */
+  charts?: string[];
   /** The command's JSON report, embedded verbatim so the page carries the same numbers. */
   json?: string;
 }
@@ -39,7 +41,7 @@ body{max-width:none;padding:0;font-size:11pt}details{display:none}h2{break-after
 
 const NUMERIC = /^[-+±]?[\d.]/;
 
-function blockHtml(block: Block): string {
+function blockHtml(block: Block, nextChart: () => string | undefined): string {
   switch (block.kind) {
     case 'table': {
       const align = (i: number, cell: string) => (block.align ? block.align[i] === 'right' : NUMERIC.test(cell) && i > 0) ? ' class="r"' : '';
@@ -53,13 +55,17 @@ function blockHtml(block: Block): string {
       return `<ul>${block.items.map((i) => `<li>${htmlEscape(i)}</li>`).join('')}</ul>`;
     case 'text':
       return `<p>${htmlEscape(block.text)}</p>`;
-    case 'chart':
-      // ASCII charts belong to the terminal; a page gets them only where no plot replaces them.
+    case 'chart': {
+      const plot = nextChart();
+      if (plot !== undefined) return plot;
+      // ASCII charts belong to the terminal; a page keeps one only where no plot replaces it.
       return `<figure><figcaption>${htmlEscape(block.title)}</figcaption><pre>${htmlEscape(block.body)}</pre></figure>`;
+    }
   }
 }
 
-const sectionHtml = (s: Section) => `<section>\n<h2>${htmlEscape(s.title)}</h2>\n${s.blocks.map(blockHtml).join('\n')}\n</section>`;
+const sectionHtml = (s: Section, nextChart: () => string | undefined) =>
+  `<section>\n<h2>${htmlEscape(s.title)}</h2>\n${s.blocks.map((b) => blockHtml(b, nextChart)).join('\n')}\n</section>`;
 
 /**
  * A report document (document.ts) as one self-contained HTML page: inline CSS with light, dark
@@ -67,11 +73,12 @@ const sectionHtml = (s: Section) => `<section>\n<h2>${htmlEscape(s.title)}</h2>\
  * inline SVG, and the command's JSON in a collapsed block (`<script type="application/json"
  * id="report-data">` carries it for other programs too; no script runs, nothing is fetched).
  *
- * Syntax: htmlPage(doc[, { plots, plotsBefore, json }])
+ * Syntax: htmlPage(doc[, { plots, plotsBefore, charts, json }])
  * Example: htmlPage(reportDocument(p, a), { plots: [svgPlot(...)], json: jsonReport(p, a) }).startsWith('<!DOCTYPE html>')
  */
 export function htmlPage(doc: ReportDocument, options: HtmlPageOptions = {}): string {
-  const sections = doc.sections.map(sectionHtml);
+  const charts = [...(options.charts ?? [])];
+  const sections = doc.sections.map((s) => sectionHtml(s, () => charts.shift()));
   if (options.plots && options.plots.length > 0) {
     const before = options.plotsBefore ?? ['Warnings', 'Cautions'];
     const at = doc.sections.findIndex((s) => before.includes(s.title));

@@ -174,9 +174,11 @@ export function svgPlot(plot: LinePlot): string {
   for (const m of plot.xMarks ?? []) {
     if (!X.inside(m.at)) continue;
     const x = px(X.at(m.at));
+    // a label right of the middle reads leftwards from its line, so that it stays inside the frame
+    const end = x > (left + right) / 2;
     out.push(
       `<g class="mark" data-mark="${htmlEscape(m.label)}"><line x1="${x}" y1="${top}" x2="${x}" y2="${bottom}"/>` +
-        `<text x="${x + 4}" y="${top + 12}">${htmlEscape(m.label)}</text></g>`,
+        `<text x="${end ? x - 4 : x + 4}" y="${top + 12}" text-anchor="${end ? 'end' : 'start'}">${htmlEscape(m.label)}</text></g>`,
     );
   }
   for (const m of plot.yMarks ?? []) {
