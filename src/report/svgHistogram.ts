@@ -19,7 +19,7 @@ export interface HistogramPlot {
   notFinite?: number;
 }
 
-const M = { left: 62, right: 16, top: 14, bottom: 46 };
+const M = { left: 62, right: 34, top: 14, bottom: 46 };
 const px = (v: number) => Number(v.toFixed(2));
 
 /**

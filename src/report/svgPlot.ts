@@ -47,20 +47,23 @@ export interface LinePlot {
 
 export const PLOT_WIDTH = 640;
 export const PLOT_HEIGHT = 300;
-const M = { left: 78, right: 16, top: 14, bottom: 46 };
+const M = { left: 78, right: 34, top: 14, bottom: 46 };
 
 /** Numbers in SVG coordinates: two decimals are a hundredth of a pixel. */
 const px = (v: number) => Number(v.toFixed(2));
 
 /** Domain [lo, hi] of the values, widened so that nothing touches the frame; positive for log. */
-function domain(values: number[], log: boolean, minSpan = 0): [number, number] {
+function domain(values: number[], log: boolean, minSpan = 0, padded = true): [number, number] {
   const usable = values.filter((v) => Number.isFinite(v) && (!log || v > 0));
   if (usable.length === 0) return log ? [1, 10] : [-1, 1];
   let lo = Math.min(...usable);
   let hi = Math.max(...usable);
   if (log) {
     if (hi / lo < 1.5) return [lo / 1.25, hi * 1.25];
-    return [lo, hi];
+    if (!padded) return [lo, hi];
+    // 3 % of the span in log space on each side, so that dots at the ends stay whole
+    const pad = (hi / lo) ** 0.03;
+    return [lo / pad, hi * pad];
   }
   if (hi - lo < minSpan) {
     const mid = (hi + lo) / 2;
@@ -70,16 +73,16 @@ function domain(values: number[], log: boolean, minSpan = 0): [number, number] {
     const d = lo === 0 ? 1 : Math.abs(lo) * 0.1;
     return [lo - d, hi + d];
   }
-  const pad = 0.05 * (hi - lo);
+  const pad = padded ? 0.05 * (hi - lo) : 0;
   lo -= pad;
   hi += pad;
   return [lo, hi];
 }
 
 /** The scale of one axis: value to pixel, its ticks and their labels. */
-function scale(axis: PlotAxis, values: number[], from: number, to: number) {
+function scale(axis: PlotAxis, values: number[], from: number, to: number, padded: boolean) {
   const log = axis.log ?? false;
-  const [lo, hi] = domain(values, log, axis.minSpan);
+  const [lo, hi] = domain(values, log, axis.minSpan, padded);
   const ticks = svgTicks(lo, hi, { log });
   const f = log ? Math.log10 : (v: number) => v;
   const a = f(lo);
@@ -106,12 +109,13 @@ function scale(axis: PlotAxis, values: number[], from: number, to: number) {
 export function svgPlot(plot: LinePlot): string {
   const xs = plot.series.flatMap((s) => s.x.filter((_, i) => s.y[i] !== null && Number.isFinite(s.y[i] as number)));
   const ys = plot.series.flatMap((s) => s.y.filter((v): v is number => v !== null));
-  const X = scale(plot.x, [...xs, ...(plot.xMarks ?? []).map((m) => m.at)], M.left, PLOT_WIDTH - M.right);
+  const X = scale(plot.x, [...xs, ...(plot.xMarks ?? []).map((m) => m.at)], M.left, PLOT_WIDTH - M.right, plot.series.some((s) => s.dots));
   const Y = scale(
     plot.y,
     [...ys, ...(plot.yMarks ?? []).map((m) => m.at), ...(plot.yBand ? [plot.yBand.lo, plot.yBand.hi] : [])],
     PLOT_HEIGHT - M.bottom,
     M.top,
+    true,
   );
   const left = M.left;
   const right = PLOT_WIDTH - M.right;

@@ -26,7 +26,11 @@ export function svgTicks(lo: number, hi: number, options: { log?: boolean; targe
   const target = options.target ?? 6;
   const raw = (hi - lo) / Math.max(1, target - 1);
   const power = 10 ** Math.floor(Math.log10(raw));
-  const step = ([1, 2, 5, 10].find((m) => m * power >= raw * (1 - 1e-9)) ?? 10) * power;
+  // of the nice steps around the raw one, the one whose tick count comes closest to the target
+  const count = (step: number) => Math.floor(hi / step + 1e-9) - Math.ceil(lo / step - 1e-9) + 1;
+  const step = [0.5, 1, 2, 5, 10]
+    .map((m) => m * power)
+    .reduce((best, s) => (Math.abs(count(s) - target) < Math.abs(count(best) - target) ? s : best));
   const ticks: number[] = [];
   for (let k = Math.ceil(lo / step - 1e-9); k * step <= hi + step * 1e-9; k++) {
     // toPrecision removes the 0.30000000000000004 of k * step
