@@ -65,7 +65,7 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean; colum
     stdout = compareReport(
       { label: baseLabel, project: base, analysis: baseAnalysis },
       { label: headLabel, project: head, analysis: headAnalysis },
-      compareOverlays(baseAnalysis, headAnalysis, args.format === 'text' ? overlayColumns(width) : args.format === 'html' ? (await import('../report/analysisHtml.js')).HTML_PLOT_POINTS : 72),
+      compareOverlays(baseAnalysis, headAnalysis, args.format === 'text' ? overlayColumns(width) : 72),
       args.format,
       { color: tty.color, width },
     );
@@ -73,11 +73,11 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean; colum
   let stderr = '';
   if (args.html !== undefined) {
     const baseAnalysis = analyzeProject(base);
-    const { HTML_PLOT_POINTS } = await import('../report/analysisHtml.js');
     const page = compareReport(
       { label: baseLabel, project: base, analysis: baseAnalysis },
       { label: headLabel, project: head, analysis: headAnalysis },
-      compareOverlays(baseAnalysis, headAnalysis, HTML_PLOT_POINTS),
+      // the JSON's grid, so that the page and --format json hold the same waveforms
+      compareOverlays(baseAnalysis, headAnalysis, 72),
       'html',
     );
     const { writeOutputFile } = await import('./writeOutputFile.js');
