@@ -73,7 +73,7 @@ export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean; colum
   }
   if (args.html !== undefined) {
     const { writeOutputFile } = await import('./writeOutputFile.js');
-    writeOutputFile(args.html, await page(), { force: args.force ?? false, inputs: [args.file], option: '--html' });
+    writeOutputFile(args.html, args.format === 'html' && !args.quiet ? stdout : await page(), { force: args.force ?? false, inputs: [args.file], option: '--html' });
     stderr += `HTML report written to ${args.html}\n`;
   }
   return { stdout: args.quiet ? '' : stdout, stderr, code: analysis.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
