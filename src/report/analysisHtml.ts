@@ -11,13 +11,13 @@ import { svgPlot } from './svgPlot.js';
 export const HTML_PLOT_POINTS = 200;
 
 /**
- * The four analysis plots as SVG figures, from the engine's chart series: the steady state over
+ * The analysis plots as SVG figures, from the engine's chart series: the steady state over
  * two periods at the worst-ripple duty (output minus its average), the settling step with its band
- * and settling instant, the magnitude response on a log frequency axis with the cutoff and the
+ * and settling instant (whole, and near the final value so that the band shows), the magnitude response on a log frequency axis with the cutoff and the
  * PWM frequency marked, and the DC error across the used duty range (in LSB when the LSB is known).
  *
  * Syntax: analysisPlots(analysis, series)
- * Example: analysisPlots(a, chartSeries(a, p.pwm.duty)).length   // 4
+ * Example: analysisPlots(a, chartSeries(a, p.pwm.duty)).length   // 5
  */
 export function analysisPlots(analysis: Analysis, series: ChartSeries): string[] {
   const { ladder, lsb } = analysis;
@@ -41,6 +41,19 @@ export function analysisPlots(analysis: Analysis, series: ChartSeries): string[]
       title: `Step response ${percent(step.from)} → ${percent(step.to)}: ${step.time === null ? 'never settles (the ripple leaves the band)' : `settles in ${formatEng(step.time, 's', 3)}`}`,
       x: { label: 'time after the step', unit: 's' },
       y: { label: 'output', unit: 'V' },
+      series: [{ name: 'output', x: step.wave.t, y: step.wave.v }],
+      yBand: { lo: step.final - step.band, hi: step.final + step.band, label: band },
+      xMarks: [step.time === null ? { at: tEnd, label: 'never settles' } : { at: step.time, label: `settled ${formatEng(step.time, 's', 3)}` }],
+    }),
+  );
+  // Near the final value, so that the band and the ripple inside it can be seen: ±3 bands, clipped.
+  const zoom = 3 * step.band;
+  plots.push(
+    svgPlot({
+      id: 'step-zoom',
+      title: `Step response near the final value (±${formatEng(zoom, 'V', 3)}, clipped)`,
+      x: { label: 'time after the step', unit: 's' },
+      y: { label: 'output', unit: 'V', range: [step.final - zoom, step.final + zoom] },
       series: [{ name: 'output', x: step.wave.t, y: step.wave.v }],
       yBand: { lo: step.final - step.band, hi: step.final + step.band, label: band },
       xMarks: [step.time === null ? { at: tEnd, label: 'never settles' } : { at: step.time, label: `settled ${formatEng(step.time, 's', 3)}` }],
@@ -77,7 +90,7 @@ export function analysisPlots(analysis: Analysis, series: ChartSeries): string[]
 
 /**
  * The analysis as one self-contained HTML page: the text report's sections (inputs, output at each
- * duty, spec, figures, warnings, cautions) as HTML tables, the four plots as inline SVG, and the
+ * duty, spec, figures, warnings, cautions) as HTML tables, the plots as inline SVG, and the
  * JSON report (jsonReport) embedded, so the page carries exactly the JSON's numbers.
  *
  * Syntax: analysisHtml(project, analysis[, series])

@@ -31,7 +31,7 @@ svg.plot-svg{width:100%;height:auto;max-width:48rem;display:block;font:12px syst
 svg .grid line{stroke:var(--grid);stroke-width:1}svg .frame{fill:none;stroke:var(--frame)}svg text{fill:var(--fg)}svg .tick{fill:var(--muted);font-size:11px}
 svg .series{fill:none;stroke-width:2;stroke-linejoin:round}svg .dot{stroke:none}
 .s0{stroke:var(--s0);fill:var(--s0)}.s1{stroke:var(--s1);fill:var(--s1);stroke-dasharray:7 4}.s2{stroke:var(--s2);fill:var(--s2);stroke-dasharray:2 3}.s3{stroke:var(--s3);fill:var(--s3);stroke-dasharray:10 3 2 3}
-path.series,line.series{fill:none}svg .mark line{stroke:var(--mark);stroke-dasharray:4 3}svg .mark text{fill:var(--mark);font-size:11px}svg .mark.limit line{stroke:var(--over);stroke-dasharray:none;stroke-width:2}svg .mark.limit text{fill:var(--over)}
+path.series,line.series{fill:none}svg .mark line{stroke:var(--mark);stroke-dasharray:4 3}svg .mark text{fill:var(--mark);font-size:11px;paint-order:stroke;stroke:var(--bg);stroke-width:3px;stroke-linejoin:round}svg .mark.limit line{stroke:var(--over);stroke-dasharray:none;stroke-width:2}svg .mark.limit text{fill:var(--over);stroke:var(--bg)}
 svg .band{fill:var(--band)}svg .bar{fill:var(--bar)}svg .bar.over{fill:var(--over)}
 ul.legend{list-style:none;padding:0;margin:.2rem 0;display:flex;flex-wrap:wrap;gap:.3rem 1.2rem;font-size:13px}ul.legend svg{margin-right:.4rem;vertical-align:middle}ul.legend line{stroke-width:3}
 .note{color:var(--muted);font-size:13px}

@@ -11,6 +11,8 @@ export interface PlotAxis {
   /** Units without prefixes (dB, %). */
   plain?: boolean;
   log?: boolean;
+  /** Fixed range of the axis; what lies outside is clipped at the frame. */
+  range?: [number, number];
   /** Smallest span of a linear axis: below it, differences are numerical noise and are drawn flat. */
   minSpan?: number;
   /** Tick label of a value (default: engineering form in `unit`). */
@@ -82,7 +84,7 @@ function domain(values: number[], log: boolean, minSpan = 0, padded = true): [nu
 /** The scale of one axis: value to pixel, its ticks and their labels. */
 function scale(axis: PlotAxis, values: number[], from: number, to: number, padded: boolean) {
   const log = axis.log ?? false;
-  const [lo, hi] = domain(values, log, axis.minSpan, padded);
+  const [lo, hi] = axis.range ?? domain(values, log, axis.minSpan, padded);
   const ticks = svgTicks(lo, hi, { log });
   const f = log ? Math.log10 : (v: number) => v;
   const a = f(lo);
@@ -126,6 +128,8 @@ export function svgPlot(plot: LinePlot): string {
     `<svg class="plot-svg" xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${PLOT_WIDTH} ${PLOT_HEIGHT}" role="img" aria-label="${htmlEscape(plot.title)}">`,
     `<title>${htmlEscape(plot.title)}</title>`,
   );
+  const clip = `clip-${plot.id.replace(/[^A-Za-z0-9_-]/g, '_')}`;
+  out.push(`<defs><clipPath id="${clip}"><rect x="${left}" y="${top}" width="${right - left}" height="${bottom - top}"/></clipPath></defs>`);
   const grid: string[] = [];
   const labels: string[] = [];
   for (const t of X.ticks) {
@@ -159,6 +163,7 @@ export function svgPlot(plot: LinePlot): string {
     let drawn = 0;
     for (let i = 0; i < s.x.length; i++) {
       const v = s.y[i];
+      // beyond a fixed y range the line runs on outside the frame, where the clip path hides it
       if (v === null || v === undefined || !X.inside(s.x[i]) || !Number.isFinite(v) || (plot.y.log && v <= 0)) {
         pen = 'M';
         continue;
@@ -171,7 +176,7 @@ export function svgPlot(plot: LinePlot): string {
       if (s.dots) dots.push(`<circle class="dot s${k % 4}" cx="${x}" cy="${y}" r="3"/>`);
     }
     out.push(
-      `<path class="series s${k % 4}" data-series="${htmlEscape(s.name)}" data-points="${drawn}" fill="none" d="${parts.join('')}"/>`,
+      `<path class="series s${k % 4}" data-series="${htmlEscape(s.name)}" data-points="${drawn}" fill="none" clip-path="url(#${clip})" d="${parts.join('')}"/>`,
       ...dots,
     );
   });

@@ -100,10 +100,10 @@ describe.skipIf(!haveChromium)('HTML reports in headless Chromium', () => {
     }
   };
 
-  it('analyze: the greenhouse sample with its four plots, in light, dark and print', async () => {
+  it('analyze: the greenhouse sample with its five plots, in light, dark and print', async () => {
     const { page, plots, problems } = await open('analyze', ['analyze', 'sample-configs/greenhouse-heater.yaml']);
     expect(problems).toEqual([]);
-    expect(plots.map((p) => p.id)).toEqual(['steady', 'step', 'magnitude', 'dc-error']);
+    expect(plots.map((p) => p.id)).toEqual(['steady', 'step', 'step-zoom', 'magnitude', 'dc-error']);
     for (const p of plots) {
       expect(p.series).toHaveLength(1);
       drawn(p);

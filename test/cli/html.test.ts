@@ -27,11 +27,11 @@ function project(name: string, text = GOOD): string {
 }
 
 describe('analyze --format html / --html', () => {
-  it('--format html prints one page with the four plots; the exit code is the spec status', () => {
+  it('--format html prints one page with the five plots; the exit code is the spec status', () => {
     const r = runBuilt(['analyze', project('a.yaml'), '--format', 'html']);
     expect(r.code).toBe(0);
     expect(r.stdout.startsWith('<!DOCTYPE html>')).toBe(true);
-    expect(r.stdout.match(/data-plot="/g)).toHaveLength(4);
+    expect(r.stdout.match(/data-plot="/g)).toHaveLength(5);
   });
 
   it('--no-charts leaves the plots out of the page', () => {

@@ -36,7 +36,7 @@ function embedded(html: string): unknown {
 function expectSelfContained(html: string) {
   expect(html.startsWith('<!DOCTYPE html>')).toBe(true);
   expect(html).not.toMatch(/\s(src|href)=/);
-  expect(html).not.toMatch(/url\(/);
+  expect(html).not.toMatch(/url\((?!#)/); // only references inside the page (clip paths)
   expect(html.match(/<script/g)).toHaveLength(1);
   expect(html).toContain('<script type="application/json"');
   expect(html).toContain('prefers-color-scheme:dark');
@@ -51,7 +51,7 @@ describe('analysis HTML (greenhouse sample)', () => {
 
   it('is one self-contained page', () => expectSelfContained(html));
 
-  it('draws the four plots, each series with the engine series’ number of points', () => {
+  it('draws the five plots, each series with the engine series’ number of points', () => {
     const steady = plot(html, 'steady');
     expect(Object.values(steady.series)).toEqual([series.steady.t.length]);
     const step = plot(html, 'step');
@@ -59,13 +59,18 @@ describe('analysis HTML (greenhouse sample)', () => {
     expect(step.figure).toContain('class="band"');
     expect(step.marks).toHaveLength(1);
     expect(step.marks[0]).toMatch(/^settled /);
+    const zoom = plot(html, 'step-zoom');
+    expect(Object.values(zoom.series)).toEqual([series.step.wave.t.length]);
+    expect(zoom.figure).toContain('class="band"');
+    expect(zoom.figure).toMatch(/clip-path="url\(#clip-step-zoom\)"/);
     const magnitude = plot(html, 'magnitude');
     expect(Object.values(magnitude.series)).toEqual([series.magnitude.frequency.length]);
     expect(magnitude.marks.some((m) => m.startsWith('cutoff '))).toBe(true);
     expect(magnitude.marks.some((m) => m.startsWith('PWM '))).toBe(true);
     const dc = plot(html, 'dc-error');
     expect(Object.values(dc.series)).toEqual([series.dcError.duty.length]);
-    for (const p of [steady, step, magnitude, dc]) expect(p.figure.match(/class="axis-label/g)).toHaveLength(2);
+    expect(html.match(/data-plot="/g)).toHaveLength(5);
+    for (const p of [steady, step, zoom, magnitude, dc]) expect(p.figure.match(/class="axis-label/g)).toHaveLength(2);
   });
 
   it('embeds exactly the JSON report', () => {

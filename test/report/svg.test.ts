@@ -11,7 +11,7 @@ import { histogram } from '../../src/numeric/statistics.js';
 
 /** The `d` attribute of each series path as [x, y] pairs, split at gaps (an `M`). */
 function paths(svg: string): Array<{ name: string; points: number; runs: number[][][] }> {
-  return [...svg.matchAll(/<path class="series[^"]*" data-series="([^"]*)" data-points="(\d+)" fill="none" d="([^"]*)"/g)].map((m) => ({
+  return [...svg.matchAll(/<path class="series[^"]*" data-series="([^"]*)" data-points="(\d+)" fill="none"[^>]* d="([^"]*)"/g)].map((m) => ({
     name: m[1],
     points: Number(m[2]),
     runs: m[3]
@@ -122,5 +122,17 @@ describe('svgHistogram', () => {
     for (const lo of over) expect(lo).toBeGreaterThanOrEqual(0.85);
     expect(svg).toContain('>ripple</text>');
     expect(svg).toContain('>samples</text>');
+  });
+});
+
+describe('svgPlot with a fixed range', () => {
+  it('keeps the range and clips the lines at the frame', () => {
+    const svg = svgPlot({ id: 'zoom 1', title: 'z', x: { label: 't', unit: 's' }, y: { label: 'v', unit: 'V', range: [0.9, 1.1] }, series: [{ name: 'v', x: [0, 1, 2], y: [0, 1, 2] }] });
+    expect(svg).toContain('<clipPath id="clip-zoom_1">');
+    expect(svg).toContain('clip-path="url(#clip-zoom_1)"');
+    // ticks only inside the range
+    const ticks = [...svg.matchAll(/class="tick y-tick"[^>]*>([^<]*)</g)].map((m) => m[1]);
+    expect(ticks[0]).toBe('0.900 V'); // axis.ts: one prefix per axis, from its largest value
+    expect(ticks[ticks.length - 1]).toBe('1.100 V');
   });
 });
