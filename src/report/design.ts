@@ -79,6 +79,18 @@ function candidateJson(c: Candidate) {
 }
 
 /**
+ * The ripple limit at the resolution the curves are drawn at (that of their designs when the search
+ * chose the resolution): a limit the file gave in LSB is so many of that resolution's LSB, one in
+ * V or % stays (as designDocument.ts reads it).
+ */
+function curveRippleLimit(project: Project, result: DesignResult, curves: TradeoffCurve[]): number | undefined {
+  const bits = curves.flatMap((c) => c.points.map((p) => p.best?.bits ?? null)).find((b) => b !== null) ?? null;
+  const lsb = result.resolutions.find((r) => r.bits === bits)?.lsb;
+  const inLsb = project.specInLsb?.ripple;
+  return inLsb !== undefined && lsb !== undefined ? inLsb * lsb : result.basis.limits.ripple;
+}
+
+/**
  * The design result as text (terminal), GitHub-flavoured Markdown, one self-contained HTML page
  * (the Markdown's sections, the trade-off as an SVG plot, the JSON embedded), or one JSON object (model.md:
  * `candidates` best first, each { stages: [{ r, c[, buffered] }], worstRipple, settlingTime, droop,
@@ -124,7 +136,7 @@ export function designReport(project: Project, result: DesignResult, format: Des
     // The trade-off curve replaces the ASCII chart in its section; the page embeds the JSON.
     const curves = options.tradeoff ?? [];
     return htmlPage(doc, {
-      charts: curves.length > 0 ? [tradeoffPlot(curves, project.spec.ripple)] : [],
+      charts: curves.length > 0 ? [tradeoffPlot(curves, curveRippleLimit(project, result, curves))] : [],
       json: designReport(project, result, 'json', options),
     });
   }
