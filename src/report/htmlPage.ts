@@ -35,7 +35,8 @@ path.series,line.series{fill:none}svg .mark line{stroke:var(--mark);stroke-dasha
 svg .band{fill:var(--band)}svg .bar{fill:var(--bar)}svg .bar.over{fill:var(--over)}
 ul.legend{list-style:none;padding:0;margin:.2rem 0;display:flex;flex-wrap:wrap;gap:.3rem 1.2rem;font-size:13px}ul.legend svg{margin-right:.4rem;vertical-align:middle}ul.legend line{stroke-width:3}
 .note{color:var(--muted);font-size:13px}
-@media print{:root{--fg:#000;--bg:#fff;--muted:#333;--grid:#ddd;--frame:#555;--rule:#999;--band:rgba(0,0,0,.08)}
+@media print{:root{color-scheme:light;--fg:#000;--bg:#fff;--muted:#333;--grid:#ddd;--frame:#555;--rule:#999;--band:rgba(0,0,0,.08);
+--s0:#1f5fbf;--s1:#c2410c;--s2:#2e7d32;--s3:#7b3fa0;--mark:#444;--bar:#4a7fc1;--over:#c62828;--pass:#2e7d32;--fail:#c62828}
 body{max-width:none;padding:0;font-size:11pt}details{display:none}h2{break-after:avoid;page-break-after:avoid}a{color:inherit}}
 `;
 

@@ -116,8 +116,16 @@ describe.skipIf(!haveChromium)('HTML reports in headless Chromium', () => {
     expect(await background()).toBe('rgb(255, 255, 255)');
     await page.emulateMedia({ colorScheme: 'dark' });
     expect(await background()).toBe('rgb(22, 25, 29)');
+    const stroke = () => page.evaluate(() => getComputedStyle(document.querySelector('path.series')!).stroke);
+    const darkStroke = await stroke();
     await page.emulateMedia({ media: 'print', colorScheme: 'dark' });
     expect(await background()).toBe('rgb(255, 255, 255)');
+    // print draws the light palette whatever the reader's preference
+    await page.emulateMedia({ media: 'screen', colorScheme: 'light' });
+    const lightStroke = await stroke();
+    expect(lightStroke).not.toBe(darkStroke);
+    await page.emulateMedia({ media: 'print', colorScheme: 'dark' });
+    expect(await stroke()).toBe(lightStroke);
     await page.close();
   });
 
