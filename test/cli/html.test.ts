@@ -7,7 +7,8 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { runBuilt } from './runBuilt.js';
+import { formatEng } from '../../src/units/index.js';
+import { root, runBuilt } from './runBuilt.js';
 
 const work = mkdtempSync(join(tmpdir(), 'dacsmith-html-cli-'));
 
@@ -85,5 +86,22 @@ describe('compare and tolerance --html', () => {
     const r = runBuilt(['tolerance', project('t.yaml', text), '--samples', '300', '--workers', '1', '--format', 'html']);
     expect([0, 1]).toContain(r.code);
     expect(r.stdout.match(/data-plot="mc-/g)).toHaveLength(3);
+  });
+});
+
+describe('design --format html', () => {
+  it('marks the spec ripple at the resolution the curves are drawn at (a limit in LSB scales with it)', () => {
+    // sample-configs/design-open-resolution.yaml states spec.ripple: 0.5 LSB and lets the search choose the bits
+    const r = runBuilt(['design', join(root, 'sample-configs', 'design-open-resolution.yaml'), '--top', '1', '--format', 'html']);
+    expect(r.code).toBe(0);
+    const json = JSON.parse(r.stdout.match(/<script type="application\/json" id="report-data">([\s\S]*?)<\/script>/)![1]) as {
+      resolutions: Array<{ bits: number; lsb: number }>;
+      tradeoff: Array<{ points: Array<{ best: { bits: number } | null }> }>;
+      basis: { limits: { ripple: number } };
+    };
+    const bits = json.tradeoff.flatMap((c) => c.points).find((p) => p.best !== null)!.best!.bits;
+    const lsb = json.resolutions.find((x) => x.bits === bits)!.lsb;
+    expect(lsb).not.toBe(json.basis.limits.ripple / 0.5); // the curves are at another resolution than the file's
+    expect(r.stdout).toContain(`data-mark="spec ripple ${formatEng(0.5 * lsb, 'V', 3)}"`);
   });
 });
