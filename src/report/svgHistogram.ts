@@ -42,7 +42,8 @@ export function svgHistogram(plot: HistogramPlot): string {
   const xAt = (v: number) => left + ((v - lo) / (hi - lo)) * (right - left);
   const most = Math.max(1, ...plot.counts);
   const yTicks = svgTicks(0, most, { target: 5 }).filter((t) => Number.isInteger(t));
-  const yMax = Math.max(most, yTicks[yTicks.length - 1] ?? most);
+  // headroom above the tallest bar, so that it does not merge with the frame
+  const yMax = Math.max(most * 1.08, yTicks[yTicks.length - 1] ?? most);
   const yAt = (c: number) => bottom - (c / yMax) * (bottom - top);
   const xTicks = svgTicks(lo, hi);
   const xLabel = plot.x.format ?? axisFormatter(xTicks[0] ?? lo, xTicks[xTicks.length - 1] ?? hi, Math.max(1, xTicks.length - 1), plot.x.unit, !plot.x.plain);
