@@ -6,8 +6,9 @@ import { reportWidth, terminalColumns, widthOption } from './width.js';
 export interface AnalyzeArgs {
   file: string;
   duty?: string | string[];
-  format: 'text' | 'json' | 'markdown';
+  format: 'text' | 'json' | 'markdown' | 'html';
   charts: boolean;
+  html?: string;
   quiet?: boolean;
   csv?: string;
   force?: boolean;
@@ -39,14 +40,21 @@ export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean; colum
   const analysis = analyzeProject(project, duties ? { duties } : {});
   // Chart series only for a report that draws them (JSON and --no-charts skip their cost).
   const charts =
-    args.format !== 'json' && args.charts && !args.quiet
+    (args.format === 'text' || args.format === 'markdown') && args.charts && !args.quiet
       ? (await import('../engine/index.js')).chartSeries(analysis, project.pwm.duty, {
           // one sample per plot column; the text report's columns follow its width
           ...(args.format === 'text' && { columns: (await import('../report/charts.js')).chartColumns(width) }),
         })
       : undefined;
+  // The page's plots are drawn at their own resolution (and always: a page is for looking at).
+  const page = async () => {
+    const [{ chartSeries }, { analysisHtml, HTML_PLOT_POINTS }] = await Promise.all([import('../engine/index.js'), import('../report/analysisHtml.js')]);
+    return analysisHtml(project, analysis, args.charts ? chartSeries(analysis, project.pwm.duty, { columns: HTML_PLOT_POINTS }) : undefined);
+  };
   let stdout: string;
-  if (args.format === 'json') {
+  if (args.format === 'html') {
+    stdout = args.quiet ? '' : await page();
+  } else if (args.format === 'json') {
     stdout = (await import('../report/json.js')).jsonReport(project, analysis);
   } else if (args.format === 'markdown') {
     stdout = (await import('../report/markdown.js')).markdownReport(project, analysis, charts ? { charts } : {});
@@ -62,6 +70,11 @@ export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean; colum
     ]);
     writeOutputFile(args.csv, waveformCsv(waveformRecords(analysis)), { force: args.force ?? false, inputs: [args.file], option: '--csv' });
     stderr = `waveforms written to ${args.csv}\n`;
+  }
+  if (args.html !== undefined) {
+    const { writeOutputFile } = await import('./writeOutputFile.js');
+    writeOutputFile(args.html, args.format === 'html' && !args.quiet ? stdout : await page(), { force: args.force ?? false, inputs: [args.file], option: '--html' });
+    stderr += `HTML report written to ${args.html}\n`;
   }
   return { stdout: args.quiet ? '' : stdout, stderr, code: analysis.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
 }
@@ -91,7 +104,7 @@ export function analyzeCommand(
         .option('quiet', { alias: 'q', describe: 'Print nothing but errors; the exit code tells', type: 'boolean', default: false })
         .option('format', {
           describe: 'Report format',
-          choices: ['text', 'json', 'markdown'] as const,
+          choices: ['text', 'json', 'markdown', 'html'] as const,
           default: 'text' as const,
         })
         .option('charts', { describe: 'Draw ASCII charts (--no-charts to leave them out)', type: 'boolean', default: true })
@@ -100,11 +113,17 @@ export function analyzeCommand(
           type: 'string',
           requiresArg: true,
         })
-        .option('force', { describe: 'Let --csv replace an existing file (never the project file itself)', type: 'boolean', default: false })
+        .option('html', {
+          describe: 'Also write the report as one self-contained HTML page with SVG plots to this file',
+          type: 'string',
+          requiresArg: true,
+        })
+        .option('force', { describe: 'Let --csv or --html replace an existing file (never the project file itself)', type: 'boolean', default: false })
         .example('$0 analyze board.yaml', 'Full report with charts')
         .example('$0 analyze board.yaml --duty 25% --duty 0.75', 'Report at two chosen duties')
         .example('$0 analyze board.yaml --format json', 'One JSON object, SI units')
         .example('$0 analyze board.yaml --no-charts --csv w.csv', 'Tables only; waveforms to w.csv')
+        .example('$0 analyze board.yaml --html board.html', 'Text report, and the HTML page with plots in board.html')
         .epilogue(
           'Exit codes: 0 every spec holds, 1 a spec fails, 2 bad input. Warnings (values that are probably a typing slip, ' +
             "such as a load typed as 1m for 1M) are printed under 'Warnings' and never change the exit code; 'check --strict' fails on them.",

@@ -12,6 +12,8 @@ export interface CompareArgs {
   format: CompareFormat | 'github';
   quiet: boolean;
   width?: number;
+  html?: string;
+  force?: boolean;
 }
 
 /**
@@ -74,7 +76,21 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean; colum
       { color: tty.color, width },
     );
   }
-  return { stdout, stderr: '', code: headAnalysis.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
+  let stderr = '';
+  if (args.html !== undefined) {
+    const baseAnalysis = analyzeProject(base);
+    const page = compareReport(
+      { label: baseLabel, project: base, analysis: baseAnalysis },
+      { label: headLabel, project: head, analysis: headAnalysis },
+      // the JSON's grid, so that the page and --format json hold the same waveforms
+      compareOverlays(baseAnalysis, headAnalysis, 72),
+      'html',
+    );
+    const { writeOutputFile } = await import('./writeOutputFile.js');
+    writeOutputFile(args.html, page, { force: args.force ?? false, inputs: [args.base, ...(args.head !== undefined ? [args.head] : [])], option: '--html' });
+    stderr = `HTML report written to ${args.html}\n`;
+  }
+  return { stdout, stderr, code: headAnalysis.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
 }
 
 /**
@@ -122,12 +138,15 @@ export function compareCommand(
         .option('git', { describe: 'Compare the file with its version at this git revision (branch, tag, commit)', type: 'string', requiresArg: true })
         .option('format', {
           describe: 'Output format',
-          choices: ['text', 'json', 'markdown', 'github'] as const,
+          choices: ['text', 'json', 'markdown', 'github', 'html'] as const,
           default: 'text' as const,
         })
         .option('quiet', { alias: 'q', describe: "Print nothing but errors; the exit code is the head's spec status", type: 'boolean', default: false })
+        .option('html', { describe: 'Also write the comparison as one self-contained HTML page with SVG overlays to this file', type: 'string', requiresArg: true })
+        .option('force', { describe: 'Let --html replace an existing file (never an input file)', type: 'boolean', default: false })
         .example('$0 compare old.yaml new.yaml', 'Two files side by side')
         .example('$0 compare dacsmith.yaml --git main', 'The file against its version on branch main')
+        .example('$0 compare old.yaml new.yaml --html change.html', 'Text report, and the HTML page with the overlays')
         .example('$0 compare dacsmith.yaml --git HEAD --format markdown >> "$GITHUB_STEP_SUMMARY"', 'Uncommitted changes, as Markdown for a CI summary')
         .example('$0 compare dacsmith.yaml --git origin/main --format github', "GitHub annotations on the head's failing limits, saying whether the base passed")
         .epilogue("Exit codes: 0 the head passes its spec, 1 it fails, 2 bad input (a file, or git). Warnings shown are the head's; they never change the exit code.") as unknown as Argv<CompareArgs>,

@@ -6,8 +6,9 @@ import { reportWidth, terminalColumns, widthOption } from './width.js';
 
 export interface DesignArgs {
   file: string;
-  format: 'text' | 'json' | 'markdown';
+  format: 'text' | 'json' | 'markdown' | 'html';
   top: number;
+  html?: string;
   write?: string;
   /** Stop the search after this many seconds with the designs found so far (marked incomplete). */
   maxTime?: number;
@@ -111,13 +112,20 @@ export async function runDesign(
       stderr = `dacsmith: no feasible design, nothing written to ${args.write}\n`;
     }
   }
-  const stdout = designReport(project, result, args.format, {
+  const options = {
     ...(tradeoff && { tradeoff }),
     color: args.format === 'text' && tty.color,
     ...(written && { written, changes }),
     ...(robust && { robust }),
     width,
-  });
+  };
+  const stdout = designReport(project, result, args.format, options);
+  if (args.html !== undefined) {
+    const { writeOutputFile } = await import('./writeOutputFile.js');
+    const page = args.format === 'html' ? stdout : designReport(project, result, 'html', options);
+    writeOutputFile(args.html, page, { force: args.force, inputs: [args.file], option: '--html' });
+    stderr += `HTML report written to ${args.html}\n`;
+  }
   return { stdout: args.quiet ? '' : stdout, stderr, code: result.feasible ? EXIT_PASS : EXIT_SPEC_FAILS };
 }
 
@@ -139,10 +147,11 @@ export function designCommand(
       widthOption(y)
         .positional('file', { describe: 'Project file (YAML) with a search: section', type: 'string', demandOption: true })
         .option('quiet', { alias: 'q', describe: 'Print nothing but errors; the exit code tells', type: 'boolean', default: false })
-        .option('format', { describe: 'Report format', choices: ['text', 'json', 'markdown'] as const, default: 'text' as const })
+        .option('format', { describe: 'Report format', choices: ['text', 'json', 'markdown', 'html'] as const, default: 'text' as const })
+        .option('html', { describe: 'Also write the report as one self-contained HTML page with SVG plots to this file', type: 'string', requiresArg: true })
         .option('top', { describe: 'Number of designs to list', type: 'number', default: 10, requiresArg: true })
         .option('write', { describe: 'Write design #1 as a project file (the original with filter.stages replaced)', type: 'string', requiresArg: true })
-        .option('force', { describe: 'Let --write replace an existing file', type: 'boolean', default: false })
+        .option('force', { describe: 'Let --write or --html replace an existing file', type: 'boolean', default: false })
         .option('max-time', {
           describe: 'Stop the search after this many seconds with the designs found so far, marked incomplete (no trade-off curves then)',
           type: 'number',
@@ -158,6 +167,7 @@ export function designCommand(
         .example('$0 design board.yaml --top 3 --no-charts', 'Three best designs, no trade-off curves')
         .example('$0 design board.yaml --write board-designed.yaml', 'Save design #1 as a new project file')
         .example('$0 design board.yaml --robust worst-case --no-charts', 'Only designs that survive the tolerance box')
+        .example('$0 design board.yaml --html designs.html', 'Text report, and the HTML page with the trade-off plot')
         .example('$0 design board.yaml --format json > designs.json', 'Machine-readable result (SI units)') as unknown as Argv<DesignArgs>,
     handler: (args) =>
       run(() =>

@@ -9,7 +9,9 @@ export interface ToleranceArgs {
   seed?: number;
   distribution?: 'normal' | 'uniform';
   workers?: number;
-  format: 'text' | 'json' | 'markdown';
+  format: 'text' | 'json' | 'markdown' | 'html';
+  html?: string;
+  force?: boolean;
   charts: boolean;
   quiet?: boolean;
   width?: number;
@@ -72,7 +74,14 @@ export async function runTolerance(
     bar?.clear();
   }
   const stdout = toleranceReport(project, study, args.format, { charts: args.charts, color: tty.color, width });
-  return { stdout: args.quiet ? '' : stdout, stderr: '', code: study.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
+  let stderr = '';
+  if (args.html !== undefined) {
+    const { writeOutputFile } = await import('./writeOutputFile.js');
+    const page = args.format === 'html' ? stdout : toleranceReport(project, study, 'html', { charts: args.charts });
+    writeOutputFile(args.html, page, { force: args.force ?? false, inputs: [args.file], option: '--html' });
+    stderr = `HTML report written to ${args.html}\n`;
+  }
+  return { stdout: args.quiet ? '' : stdout, stderr, code: study.pass ? EXIT_PASS : EXIT_SPEC_FAILS };
 }
 
 /** Largest Monte Carlo sample count, as the project schema allows for tolerance.samples. */
@@ -123,11 +132,14 @@ export function toleranceCommand(
         })
         .option('workers', { describe: 'Threads for the Monte Carlo run, this one included (default and most: the cores, up to 4 by default)', type: 'number', requiresArg: true })
         .option('quiet', { alias: 'q', describe: 'Print nothing but errors; the exit code tells', type: 'boolean', default: false })
-        .option('format', { describe: 'Report format', choices: ['text', 'json', 'markdown'] as const, default: 'text' as const })
+        .option('format', { describe: 'Report format', choices: ['text', 'json', 'markdown', 'html'] as const, default: 'text' as const })
+        .option('html', { describe: 'Also write the report as one self-contained HTML page with SVG histograms to this file', type: 'string', requiresArg: true })
+        .option('force', { describe: 'Let --html replace an existing file (never the project file itself)', type: 'boolean', default: false })
         .option('charts', { describe: 'Draw the histograms (--no-charts to leave them out)', type: 'boolean', default: true })
         .example('$0 tolerance board.yaml', 'Worst case, yield and histograms')
         .example('$0 tolerance board.yaml --samples 100000 --seed 7', 'A larger, reproducible run')
         .example('$0 tolerance board.yaml --format json', 'One JSON object, SI units')
+        .example('$0 tolerance board.yaml --html tolerance.html', 'Text report, and the HTML page with histograms')
         .epilogue('Exit codes: 0 every limit holds at the worst case and the yield meets its target, 1 not, 2 bad input. Warnings never change the exit code.') as unknown as Argv<ToleranceArgs>,
     handler: (args) =>
       run(() =>

@@ -5,6 +5,9 @@ import type { Project } from '../project/types.js';
 import { formatEng } from '../units/index.js';
 import { axisFormatter } from './axis.js';
 import { palette, type Palette } from './color.js';
+import type { ReportDocument } from './document.js';
+import { htmlPage } from './htmlPage.js';
+import { svgPlot } from './svgPlot.js';
 import { table } from './table.js';
 import { wrapParagraph } from './wrapText.js';
 
@@ -16,7 +19,7 @@ export interface CompareSide {
   analysis: Analysis;
 }
 
-export type CompareFormat = 'text' | 'markdown' | 'json';
+export type CompareFormat = 'text' | 'markdown' | 'json' | 'html';
 
 export interface CompareOptions {
   /** ANSI colour in the text format (default false). */
@@ -302,7 +305,8 @@ export function overlayColumns(width: number): number {
  * the head's settling step. Base is drawn thin (─), head heavy (━).
  *
  * Formats: `text` for a terminal; `markdown` for a pull-request comment or a CI job summary (a
- * heading, a verdict line, GFM tables, charts in fenced blocks); `json`: { base, head, inputs,
+ * heading, a verdict line, GFM tables, charts in fenced blocks); `html`: one self-contained page,
+ * the same tables, both overlays as SVG plots, the JSON embedded; `json`: { base, head, inputs,
  * figures, checks, warnings, waveforms, pass }, SI units, `pass` and `warnings` being the head's.
  * The head's warnings are printed under "Warnings (head)" after the checks (compare prints no
  * cautions); they never change `pass`.
@@ -363,6 +367,37 @@ export function compareReport(
     ],
   };
   const legend = `─ base: ${base.label}    ━ head: ${head.label}`;
+
+  if (format === 'html') {
+    const page: ReportDocument = {
+      title: doc.title,
+      verdict: { pass, text: doc.verdict },
+      sections: [
+        { title: 'Inputs changed', blocks: [doc.inputs.rows.length > 0 ? { kind: 'table', ...doc.inputs } : { kind: 'text', text: 'No input changed.' }] },
+        { title: 'Figures', blocks: [{ kind: 'table', ...doc.figures }] },
+        {
+          title: 'Spec checks',
+          blocks: [doc.checks.rows.length > 0 ? { kind: 'table', ...doc.checks, align: ['left', 'right', 'right', 'right', 'left'] } : { kind: 'text', text: 'Neither file states a spec limit.' }],
+        },
+        ...(doc.warnings.length > 0 ? [{ title: 'Warnings (head)', blocks: [{ kind: 'list' as const, items: doc.warnings }] }] : []),
+      ],
+    };
+    const sides = (o: Overlay) => [
+      { name: `base: ${base.label}`, x: o.t, y: o.base },
+      { name: `head: ${head.label}`, x: o.t, y: o.head },
+    ];
+    const plots = [
+      svgPlot({
+        id: 'compare-steady',
+        title: doc.charts[0].title,
+        x: { label: 'time', unit: 's' },
+        y: { label: 'output − ideal', unit: 'V', minSpan: 1e-6 },
+        series: sides(steady),
+      }),
+      svgPlot({ id: 'compare-step', title: doc.charts[1].title, x: { label: 'time after the step', unit: 's' }, y: { label: 'output', unit: 'V' }, series: sides(step) }),
+    ];
+    return htmlPage(page, { plots, json: compareReport(base, head, overlays, 'json', options) });
+  }
 
   if (format === 'markdown') {
     const esc = (s: string) => s.replace(/\\/g, '\\\\').replace(/\|/g, '\\|');

@@ -5,9 +5,11 @@ import type { Candidate, DesignResult } from '../design/types.js';
 import type { Project } from '../project/types.js';
 import type { DesignEdit } from './designYaml.js';
 import { designDocument, FOLLOWER_NOTE, stageCodes } from './designDocument.js';
+import { htmlPage } from './htmlPage.js';
 import { renderDocument } from './renderDocument.js';
+import { tradeoffPlot } from './tradeoffPlot.js';
 
-export type DesignFormat = 'text' | 'markdown' | 'json';
+export type DesignFormat = 'text' | 'markdown' | 'json' | 'html';
 
 export interface DesignReportOptions {
   tradeoff?: TradeoffCurve[];
@@ -78,7 +80,20 @@ function candidateJson(c: Candidate) {
 }
 
 /**
- * The design result as text (terminal), GitHub-flavoured Markdown, or one JSON object (model.md:
+ * The ripple limit at the resolution the curves are drawn at (that of their designs when the search
+ * chose the resolution): a limit the file gave in LSB is so many of that resolution's LSB, one in
+ * V or % stays (as designDocument.ts reads it).
+ */
+function curveRippleLimit(project: Project, result: DesignResult, curves: TradeoffCurve[]): number | undefined {
+  const bits = curves.flatMap((c) => c.points.map((p) => p.best?.bits ?? null)).find((b) => b !== null) ?? null;
+  const lsb = result.resolutions.find((r) => r.bits === bits)?.lsb;
+  const inLsb = project.specInLsb?.ripple;
+  return inLsb !== undefined && lsb !== undefined ? inLsb * lsb : result.basis.limits.ripple;
+}
+
+/**
+ * The design result as text (terminal), GitHub-flavoured Markdown, one self-contained HTML page
+ * (the Markdown's sections, the trade-off as an SVG plot, the JSON embedded), or one JSON object (model.md:
  * `candidates` best first, each { stages: [{ r, c[, buffered] }], worstRipple, settlingTime, droop,
  * pass } and more: `margins` per limit (fractions of the limit), `keepsMargin`, `needsFollower` and
  * `notes`; `evaluated`; with `robust`, `robust: { mode, scanned, candidates: [{ nominalRank, worstCase |
@@ -90,6 +105,19 @@ function candidateJson(c: Candidate) {
  */
 export function designReport(project: Project, result: DesignResult, format: DesignFormat, options: DesignReportOptions = {}): string {
   if (format === 'json') return JSON.stringify(designJson(result, options), null, 2) + '\n';
+  if (format === 'html') {
+    const doc = designDocument(project, result, {
+      ...(options.tradeoff ? { tradeoff: options.tradeoff } : {}),
+      ...(options.written ? { written: options.written } : {}),
+      ...(options.robust ? { robust: options.robust } : {}),
+    });
+    // The trade-off curve replaces the ASCII chart in its section; the page embeds the JSON.
+    const curves = options.tradeoff ?? [];
+    return htmlPage(doc, {
+      charts: curves.length > 0 ? [tradeoffPlot(curves, curveRippleLimit(project, result, curves))] : [],
+      json: designReport(project, result, 'json', options),
+    });
+  }
   const color = format === 'text' && (options.color ?? false);
   const doc = designDocument(project, result, {
     ...(options.tradeoff ? { tradeoff: options.tradeoff } : {}),

@@ -8,14 +8,16 @@ import type { Effect, WorstCaseFigure, WorstCaseResult } from '../tolerance/wors
 import { formatEng } from '../units/index.js';
 import type { Block, ReportDocument, Section } from './document.js';
 import { percent, tidy, voltsAndLsb } from './quantities.js';
+import { htmlPage } from './htmlPage.js';
 import { renderDocument } from './renderDocument.js';
+import { svgHistogram } from './svgHistogram.js';
 import { warningsSection } from './warnings.js';
 import { wrapParagraph } from './wrapText.js';
 import type { Align } from './table.js';
 
 type ToleranceStudy = ToleranceStudyResult;
 
-export type ToleranceFormat = 'text' | 'markdown' | 'json';
+export type ToleranceFormat = 'text' | 'markdown' | 'json' | 'html';
 
 export interface ToleranceReportOptions {
   /** Include the histograms (default true). */
@@ -30,7 +32,8 @@ export interface ToleranceReportOptions {
 
 /**
  * The report of a tolerance study as text (aligned tables, ASCII histograms with the spec limit
- * marked) or GitHub-flavoured Markdown (the same document, drawn by renderDocument), or one JSON
+ * marked) or GitHub-flavoured Markdown (the same document, drawn by renderDocument), one
+ * self-contained HTML page (the same document, SVG histograms with the limits, the JSON embedded), or one JSON
  * object in SI units holding
  * at least worstCase.{worstRipple, droop, settlingTime} and monteCarlo.{samples, seed, yield}, and
  * `warnings` (the nominal circuit's, [{key, message}], empty when none); worstCase.gain is the gain
@@ -47,6 +50,11 @@ export function toleranceReport(
   options: ToleranceReportOptions = {},
 ): string {
   if (format === 'json') return JSON.stringify(toleranceJson(project, study, options.bins ?? 12), null, 2) + '\n';
+  if (format === 'html') {
+    const bins = options.bins ?? 12;
+    const doc = toleranceDocument(project, study, { charts: options.charts ?? true, bins, width: 80 });
+    return htmlPage(doc, { charts: histogramPlots(study.monteCarlo, bins), json: JSON.stringify(toleranceJson(project, study, bins), null, 2) + '\n' });
+  }
   const width = options.width ?? 80;
   const doc = toleranceDocument(project, study, { charts: options.charts ?? true, bins: options.bins ?? 12, width });
   return renderDocument(doc, format, { color: options.color ?? false, width });
@@ -270,6 +278,32 @@ function histogramSection(mc: MonteCarloResult, bins: number, width: number): Se
     },
   ];
   return { title: 'Distributions', blocks: charts };
+}
+
+/**
+ * The Monte Carlo histograms as SVG figures with the spec limits drawn in: the same bins as the
+ * JSON `monteCarlo.histograms` (equal-width bins spanning the samples and the limit).
+ */
+function histogramPlots(mc: MonteCarloResult, bins: number): string[] {
+  const { limits } = mc.plan;
+  const one = (id: string, title: string, label: string, unit: string, values: ArrayLike<number>, limit: number | undefined) => {
+    const h = histogram(values, bins, limit === undefined ? [] : [limit]);
+    return svgHistogram({
+      id,
+      title: `${title}: ${mc.samples} samples`,
+      x: { label, unit },
+      lo: h.lo,
+      hi: h.hi,
+      counts: h.counts,
+      notFinite: h.notFinite,
+      ...(limit !== undefined && { limit: { at: limit, label: `limit ${formatEng(limit, unit, 3)}` } }),
+    });
+  };
+  return [
+    one('mc-ripple', 'Worst ripple', 'worst ripple (peak-to-peak)', 'V', mc.values.worstRipple, limits.ripple),
+    one('mc-droop', '|DC error| (droop)', '|droop|', 'V', mc.values.droop.map(Math.abs), limits.droop),
+    one('mc-settling', 'Settling time', 'settling time', 's', mc.values.settlingTime, limits.settling),
+  ];
 }
 
 /**
