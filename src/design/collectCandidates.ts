@@ -45,6 +45,21 @@ export interface CollectState {
   budget?: number;
   /** The walk stopped at the budget: what was collected is not the whole bounded set. */
   cut?: boolean;
+  /** Pareto mode (trade-off curves, paretoSearch.ts): several ripple limits in one walk. */
+  pareto?: ParetoState;
+}
+
+/**
+ * Pareto mode: instead of one top list, the best fast settling bound per ripple limit. A
+ * candidate is kept unless its settling bound exceeds the best already known for every limit its
+ * ripple could meet (it is then dominated in (worst ripple, settling time)); theta is the largest
+ * of those bests (the tightest limit's), so the walk's own cuts stay valid for every limit.
+ */
+export interface ParetoState {
+  /** Ripple limits the search must meet, V, ascending (problem.searchLimits.ripple is the last). */
+  limits: number[];
+  /** Best fast settling bound of a candidate that passes every fast check under each limit, s. */
+  best: number[];
 }
 
 /** A fresh state: theta starts at the settling-time limit (nothing slower is feasible). */
@@ -62,6 +77,16 @@ export function newCollectState(problem: DesignProblem, top: number): CollectSta
 }
 
 const exceeds = (value: number, limit: number | undefined) => limit !== undefined && value > limit * (1 + REL) + 1e-300;
+
+/** Pareto mode: the settling threshold of a candidate whose worst ripple is at least `ripple`. */
+function paretoThreshold(pareto: ParetoState, ripple: number): number {
+  let out = -Infinity;
+  for (let i = 0; i < pareto.limits.length; i++) {
+    if (exceeds(ripple, pareto.limits[i])) continue;
+    out = Math.max(out, pareto.best[i] * (1 + REL) + ABS_T);
+  }
+  return out;
+}
 
 /**
  * Collect every `stages`-stage candidate of the problem's discrete space that the fast model cannot
@@ -152,6 +177,16 @@ export function collectCandidates(
   }
   const order = keys.map((_, i) => i).sort((a, b) => keys[a] - keys[b]);
 
+  // Pareto mode: points already evaluated, by a number made of their value indices (no strings).
+  const paretoSeen = new Set<number>();
+  const rIndex = new Map(R.map((v, i) => [v, i]));
+  const cIndex = new Map(C.map((v, i) => [v, i]));
+  const indexCode = (rs: number[], cs: number[]): number => {
+    let code = 0;
+    for (let k = 0; k < rs.length; k++) code = (code * nR + rIndex.get(rs[k])!) * nC + cIndex.get(cs[k])!;
+    return code;
+  };
+
   // One-entry model cache: the staircase check is usually followed by the full evaluation.
   let lastR: number[] = [];
   let lastC: number[] = [];
@@ -201,8 +236,10 @@ export function collectCandidates(
     return { ripple: s.ripple, average: s.average, yStart: s.yStart, above: s.maxDev - s.meanOffset, below: s.meanOffset - s.minDev };
   };
 
+  // The ripple limit of the staircase: the problem's, or in Pareto mode each limit's in turn.
+  let rippleLimit = limits.ripple;
   const rippleOk = (rs: number[], cs: number[]): boolean => {
-    if (limits.ripple !== undefined && exceeds(lite(rs, cs, dNear).ripple, limits.ripple)) return false;
+    if (rippleLimit !== undefined && exceeds(lite(rs, cs, dNear).ripple, rippleLimit)) return false;
     if (checkTo) for (const d of toDuties) if (exceeds(lite(rs, cs, d).ripple, 2 * problem.band)) return false;
     return true;
   };
@@ -216,6 +253,15 @@ export function collectCandidates(
     if (overBudget()) return;
     const key = state.dynamic ? '' : keyOf(rs, cs);
     if (!state.dynamic && state.seen.has(key)) return;
+    if (state.pareto) {
+      // Several staircases (one per limit) share points: evaluate each once.
+      const code = indexCode(rs, cs);
+      if (paretoSeen.has(code)) return;
+      paretoSeen.add(code);
+      // Dominated already by the capacitors' settling floor (before any costlier bound).
+      const floor = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) * tb.factor - tb.slack;
+      if (floor > paretoThreshold(state.pareto, lite(rs, cs, dNear).ripple)) return;
+    }
     // Unequal drivers: droop depends on the capacitors and may peak inside the range. Its largest
     // value on a 9-point duty grid (a lower bound: values at some duties) rules a candidate out
     // before settling; the full maximum is taken before the candidate may lower theta.
@@ -249,6 +295,22 @@ export function collectCandidates(
     let totalC = 0;
     for (const c of cs) totalC += c;
     const entry: FastEntry = { r: [...rs], c: [...cs], lb, totalC };
+    const pareto = state.pareto;
+    if (pareto) {
+      // The ripple near 50 % is a lower bound on the worst: a first, cheap dominance test.
+      if (lb > paretoThreshold(pareto, lite(rs, cs, dNear).ripple)) return;
+      entry.worst = maximizeOverDuty((d) => lite(rs, cs, d).ripple, problem.dutyMin, problem.dutyMax);
+      const droop = checkDroop ? maximizeOverDuty(droopError, problem.dutyMin, problem.dutyMax) : 0;
+      if (exceeds(droop, limits.droop) || lb > paretoThreshold(pareto, entry.worst)) return;
+      state.entries.push(entry);
+      let theta = -Infinity;
+      for (let i = 0; i < pareto.limits.length; i++) {
+        if (!exceeds(entry.worst, pareto.limits[i]) && lb < pareto.best[i]) pareto.best[i] = lb;
+        theta = Math.max(theta, pareto.best[i] * (1 + REL) + ABS_T);
+      }
+      state.theta = Math.min(state.theta, theta);
+      return;
+    }
     if (!state.dynamic) state.seen.add(key);
     state.entries.push(entry);
     if (state.dynamic && (state.best.length < state.top || lb < state.best[state.top - 1])) {
@@ -288,7 +350,21 @@ export function collectCandidates(
 
   const walk = (rs: number[], tb: TupleBounds): Column[] => {
     const bound = (cs: number[]) => slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) * tb.factor - tb.slack;
-    const within = (cs: number[]) => bound(cs) <= state.theta;
+    const pareto = state.pareto;
+    if (!pareto) return walkUnder(rs, tb, (cs) => bound(cs) <= state.theta);
+    // Pareto mode: the union of each limit's region (its staircase, its own threshold), so a
+    // loose limit's long columns stop at its own best, not at the tightest limit's.
+    const columns: Column[] = [];
+    pareto.limits.forEach((limit, i) => {
+      rippleLimit = limit;
+      columns.push(...walkUnder(rs, tb, (cs) => bound(cs) <= Math.min(state.theta, pareto.best[i] * (1 + REL) + ABS_T)));
+    });
+    rippleLimit = limits.ripple;
+    return columns;
+  };
+
+  /** The walk of one resistor tuple's capacitor space under a threshold test `within`. */
+  const walkUnder = (rs: number[], tb: TupleBounds, within: (cs: number[]) => boolean): Column[] => {
     const columns: Column[] = [];
     if (stages === 1) {
       const s = firstTrue(nC, (i) => rippleOk(rs, [C[i]]));
