@@ -238,7 +238,20 @@ export function collectCandidates(
 
   // The ripple limit of the staircase: the problem's, or in Pareto mode each limit's in turn.
   let rippleLimit = limits.ripple;
+  // Pareto mode: the staircases of one tuple ask about the same points; remember each point's
+  // ripple near 50 % (NaN: its ripple at a target duty rules settling out).
+  const nearMemo = new Map<number, number>();
   const rippleOk = (rs: number[], cs: number[]): boolean => {
+    if (state.pareto) {
+      const code = indexCode(rs, cs);
+      let near = nearMemo.get(code);
+      if (near === undefined) {
+        near = lite(rs, cs, dNear).ripple;
+        if (checkTo) for (const d of toDuties) if (exceeds(lite(rs, cs, d).ripple, 2 * problem.band)) near = Number.NaN;
+        nearMemo.set(code, near);
+      }
+      return !Number.isNaN(near) && !exceeds(near, rippleLimit);
+    }
     if (rippleLimit !== undefined && exceeds(lite(rs, cs, dNear).ripple, rippleLimit)) return false;
     if (checkTo) for (const d of toDuties) if (exceeds(lite(rs, cs, d).ripple, 2 * problem.band)) return false;
     return true;
@@ -355,6 +368,7 @@ export function collectCandidates(
     // Pareto mode: the union of each limit's region (its staircase, its own threshold), so a
     // loose limit's long columns stop at its own best, not at the tightest limit's.
     const columns: Column[] = [];
+    nearMemo.clear();
     pareto.limits.forEach((limit, i) => {
       rippleLimit = limit;
       columns.push(...walkUnder(rs, tb, (cs) => bound(cs) <= Math.min(state.theta, pareto.best[i] * (1 + REL) + ABS_T)));
