@@ -4,6 +4,7 @@ import type { Project } from '../project/types.js';
 import { monteCarlo, requireTolerance, ToleranceInputError } from './monteCarlo.js';
 import { ladderAt, toleranceParameters } from './parameters.js';
 import { worstCase } from './worstCase.js';
+import { cornerMiss } from './cornerMiss.js';
 
 /**
  * The robust checks the design search applies to each nominal design (design/robustDesigns.ts
@@ -22,15 +23,21 @@ export const robustChecks: RobustChecks = {
  * their worst points of the tolerance box (worstCase.ts), and the pin peak current with
  * R1 and both driver resistances at their minimum and the supply at the end that raises it (the
  * current |high - low| / (driver + R1) falls with R1 and the driver, rises with the swing; Ohm's
- * law). Passes when every limited figure is within its limit.
+ * law). Passes when every limited figure is within its limit. A design that two corners already
+ * prove failing (cornerMiss.ts) gets the same verdict without the full search.
  *
  * Syntax: worstCaseCheck(project, ladder)
  * Example: worstCaseCheck(p, ladder).worstCase.settlingTime   // s at the slowest corner
  */
 export function worstCaseCheck(project: Project, ladder: Ladder): RobustVerdict {
-  const w = worstCase(project, ladder);
   const pinCurrent = worstPinCurrent(project, ladder);
   const pinLimit = project.search?.pinCurrent;
+  // Two corners often prove the miss already (cornerMiss.ts): same verdict, no full search.
+  const miss = cornerMiss(project, ladder);
+  if (miss !== null) {
+    return { pass: false, worstCase: { settlingTime: Number.NaN, worstRipple: Number.NaN, droop: Number.NaN, inl: null, pinCurrent, missedAtCorner: miss } };
+  }
+  const w = worstCase(project, ladder);
   const pass = w.pass && (pinLimit === undefined || pinCurrent <= pinLimit);
   return {
     pass,
