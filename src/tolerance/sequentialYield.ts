@@ -17,13 +17,13 @@ export interface SequentialYield {
   early: boolean;
 }
 
-/** Samples per look. */
+/** Samples per look (at least; larger caps take larger batches, so there are at most LOOKS looks). */
 export const SEQUENTIAL_BATCH = 250;
+const LOOKS = 8;
 /**
- * Normal quantile of each look's interval: 3 gives 99.73 % two-sided per look; over at most 10
- * looks (2500 samples in batches of 250) the chance that any look's interval misses the true yield
- * is at most 10 x 0.27 % = 2.7 % (Bonferroni's inequality), so every early verdict holds with at
- * least 97 % confidence.
+ * Normal quantile of each look's interval: 3 gives 99.73 % two-sided per look; over at most 8
+ * looks the chance that any look's interval misses the true yield is at most 8 x 0.27 % = 2.2 %
+ * (Bonferroni's inequality), so every early verdict holds with at least 97 % confidence.
  */
 export const SEQUENTIAL_Z = 3;
 
@@ -34,8 +34,8 @@ export const SEQUENTIAL_Z = 3;
  * exactly as one run of `cap` samples would (the same seeded deviates, drawn up front).
  *
  * Method: Wilson score interval (E. B. Wilson, "Probable inference, the law of succession, and
- * statistical inference", JASA 22(158), 1927; numeric/statistics.ts) at z = 3 after each batch of
- * 250, with a Bonferroni bound over the looks (SEQUENTIAL_Z). A group-sequential test with a
+ * statistical inference", JASA 22(158), 1927; numeric/statistics.ts) at z = 3 after each batch
+ * (250 samples, or cap / 8 when larger), with a Bonferroni bound over the looks (SEQUENTIAL_Z). A group-sequential test with a
  * constant boundary, conservative against repeated looks; samples from monteCarloSetup (the
  * project's seed and distribution) and evaluateSamples, as monteCarlo.ts.
  *
@@ -46,8 +46,9 @@ export function sequentialYield(project: Project, ladder: Ladder, target: number
   const setup = monteCarloSetup(project, ladder, { samples: cap });
   let passed = 0;
   let n = 0;
+  const batch = Math.max(SEQUENTIAL_BATCH, Math.ceil(cap / LOOKS));
   while (n < cap) {
-    const last = Math.min(cap, n + SEQUENTIAL_BATCH);
+    const last = Math.min(cap, n + batch);
     passed += summarizeSamples(evaluateSamples(setup.ladder, setup.parameters, setup.plan, setup.deviates, n, last), setup.plan).passed;
     n = last;
     const interval = wilsonInterval(passed, n, SEQUENTIAL_Z);
