@@ -264,6 +264,7 @@ export function collectCandidates(
   };
   const evaluate = (rs: number[], cs: number[], tb: TupleBounds): void => {
     if (overBudget()) return;
+    let theta = state.theta;
     const key = state.dynamic ? '' : keyOf(rs, cs);
     if (!state.dynamic && state.seen.has(key)) return;
     if (state.pareto) {
@@ -271,9 +272,10 @@ export function collectCandidates(
       const code = indexCode(rs, cs);
       if (paretoSeen.has(code)) return;
       paretoSeen.add(code);
+      // This point's own threshold: the best of the limits its ripple can meet.
+      theta = Math.min(theta, paretoThreshold(state.pareto, lite(rs, cs, dNear).ripple));
       // Dominated already by the capacitors' settling floor (before any costlier bound).
-      const floor = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) * tb.factor - tb.slack;
-      if (floor > paretoThreshold(state.pareto, lite(rs, cs, dNear).ripple)) return;
+      if (slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) * tb.factor - tb.slack > theta) return;
     }
     // Unequal drivers: droop depends on the capacitors and may peak inside the range. Its largest
     // value on a 9-point duty grid (a lower bound: values at some duties) rules a candidate out
@@ -295,7 +297,7 @@ export function collectCandidates(
       const b = lite(rs, cs, to);
       const z0 = Math.abs(b.yStart - a.yStart);
       const excursion = b.yStart > a.yStart ? b.above : b.below;
-      if (z0 > problem.band + excursion && tau * Math.log(z0 / (problem.band + excursion)) - tb.slack > state.theta) return;
+      if (z0 > problem.band + excursion && tau * Math.log(z0 / (problem.band + excursion)) - tb.slack > theta) return;
     }
     const model = use(rs, cs);
     let lb = 0;
@@ -304,7 +306,7 @@ export function collectCandidates(
       if (lb === Infinity) return;
     }
     if (exceeds(lb, limits.settlingTime)) return;
-    if (lb > state.theta) return;
+    if (lb > theta) return;
     let totalC = 0;
     for (const c of cs) totalC += c;
     const entry: FastEntry = { r: [...rs], c: [...cs], lb, totalC };

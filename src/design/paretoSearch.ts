@@ -47,19 +47,31 @@ export function paretoSearch(problems: DesignProblem[], stages: number, stats: P
   const fallback = new Set<number>();
   const found: Candidate[][] = problems.map(() => []);
 
+  // The tightest open limit alone first (an ordinary search): its best meets every looser limit
+  // too, so its settling time t0 bounds every other point from the walk's first candidate.
+  const tightest = order[0];
+  const first = bestDesigns(problems[tightest], 1, [stages]);
+  stats.evaluated += first.evaluated;
+  out[tightest] = first.feasible[0] ?? null;
+  const t0 = out[tightest]?.settlingTime ?? null;
+  // Widened by rounding tie widths (rankCandidates.ts) so the whole leading tie group stays in.
+  const seed = t0 !== null && Number.isFinite(t0) ? t0 * (1 + 20 * SETTLING_TIE) : Infinity;
+  const rest = order.slice(1);
+  if (rest.length === 0) return out;
+
   for (const buffered of options) {
     const variant = (p: DesignProblem) => (buffered === p.buffered ? p : designProblem(p.project, undefined, buffered));
     const walkProblem = variant(loosest);
     // Proven out of reach for this variant at the loosest limit: out of reach at every tighter one.
     if (infeasibilityBounds(walkProblem, stages).misses.length > 0) continue;
     const state = newCollectState(walkProblem, 1);
-    const limits = order.map((i) => rippleOf(problems[i]));
-    state.pareto = { limits, best: limits.map(() => Infinity) };
+    const limits = rest.map((i) => rippleOf(problems[i]));
+    state.pareto = { limits, best: limits.map(() => seed) };
     collectCandidates(walkProblem, stages, state);
     stats.evaluated += state.evaluated;
     const entries = [...state.entries].sort((a, b) => a.lb - b.lb || a.totalC - b.totalC);
     const verified = new Map<FastEntry, Candidate>();
-    order.forEach((i, k) => {
+    rest.forEach((i, k) => {
       const problem = variant(problems[i]);
       if (infeasibilityBounds(problem, stages).misses.length > 0) return;
       const theta = state.pareto!.best[k] * (1 + REL) + 1e-12;
@@ -78,11 +90,13 @@ export function paretoSearch(problems: DesignProblem[], stages: number, stats: P
       }
       // Proven as in solveProblem.ts: the best lies within the threshold this limit's pruning used
       // (an infinite one pruned nothing, so an empty answer is proven too).
-      if (theta !== Infinity && !(tN * (1 + 10 * SETTLING_TIE) <= theta)) fallback.add(i);
+      // A limit whose threshold stayed at the seed pruned only what cannot beat t0, which is met.
+      const seeded = state.pareto!.best[k] === seed && t0 !== null && tN <= t0;
+      if (theta !== Infinity && !seeded && !(tN * (1 + 10 * SETTLING_TIE) <= theta)) fallback.add(i);
       else found[i].push(...ranked);
     });
   }
-  for (const i of open) {
+  for (const i of rest) {
     if (fallback.has(i)) {
       stats.fallbacks++;
       const alone = bestDesigns(problems[i], 1, [stages]);
