@@ -20,7 +20,9 @@ export interface ParetoStats {
  * `problems[i]` is the project with the i-th ripple limit (same band, steps and other limits).
  * Same answers as `bestDesigns(problems[i], 1, [stages])` for every i (tested).
  *
- * Method: one bounded walk (collectCandidates.ts in Pareto mode) with the loosest limit's
+ * Method: the tightest open limit is searched alone first (bestDesigns); its best meets every
+ * looser limit, so its settling time seeds their thresholds. Then one bounded walk
+ * (collectCandidates.ts in Pareto mode, one staircase per limit, each point evaluated once) with the loosest limit's
  * staircase, keeping the best fast settling bound per limit; a candidate is dropped only when its
  * settling lower bound exceeds the best already found under every limit its worst ripple meets
  * (dominated in (worst ripple, settling time)), and the walk's threshold is the largest of those
