@@ -110,3 +110,46 @@ export function infeasibleDesignCost(root: string): { data: Array<{ name: string
     },
   };
 }
+
+/** The design answers users wait for (issue targets as multiples of a bare Node start). */
+const ANSWERS = [
+  { name: 'design, wide E24, trade-off curves (default)', args: ['design', 'scripts/bench-projects/wide-e24.yaml'], goal: 8 },
+  { name: 'design --robust worst-case, wide E24, 1 %/10 %', args: ['design', 'scripts/bench-projects/wide-e24.yaml', '--robust', 'worst-case'], goal: 15 },
+  { name: 'design --robust yield, wide E24, 1 %/10 %', args: ['design', 'scripts/bench-projects/wide-e24.yaml', '--robust', 'yield'], goal: 30 },
+  { name: 'design, three stages, wide E12 (--no-charts)', args: ['design', 'scripts/bench-projects/wide-e12-three.yaml', '--no-charts'], goal: 20 },
+];
+
+/**
+ * Whole-process time of the design answers (bench-process.ts: medians of 5 interleaved runs with a
+ * bare `node -e ''` start in the same runs): default design with its trade-off curves, both robust
+ * modes, and a three-stage search, all on the wide space (R 100 ohm..1 Mohm, C 100 pF..100 uF) of
+ * the greenhouse sample (scripts/bench-projects/).
+ *
+ * Syntax: designAnswersCost(root)
+ * Example: designAnswersCost(process.cwd()).data.rows[0].ratio   // x bare node
+ */
+export function designAnswersCost(root: string): {
+  data: { bare: number; rows: Array<{ name: string; goal: number; seconds: number; ratio: number; cpu: number | null; cpuRatio: number | null }> };
+  section: BenchSection;
+} {
+  const timing = processStart(
+    ANSWERS.map((a) => [join('bin', 'dacsmith.cjs'), ...a.args]),
+    { runs: 5, cwd: root },
+  );
+  const rows = ANSWERS.map((a, i) => {
+    const c = timing.commands[i];
+    return { name: a.name, goal: a.goal, seconds: c.median, ratio: c.ratio, cpu: c.cpu, cpuRatio: c.cpuRatio };
+  });
+  return {
+    data: { bare: timing.bare.median, rows },
+    section: {
+      title: "Design answers, whole process (5 runs each, interleaved with node -e ''; medians)",
+      columns: ['case', 'wall (ms)', 'x bare node', 'CPU (ms)', 'x bare node (CPU)', 'goal (x)'],
+      rows: [
+        ...rows.map((r) => [r.name, r.seconds * 1e3, r.ratio, r.cpu === null ? 'n/a' : r.cpu * 1e3, r.cpuRatio ?? 'n/a', r.goal]),
+        ["node -e ''", timing.bare.median * 1e3, 1, timing.bare.cpu === null ? 'n/a' : timing.bare.cpu * 1e3, 1, ''],
+      ],
+      notes: ['projects: scripts/bench-projects/*.yaml (the greenhouse sample over the wide space, tolerance 1 %/10 %, yield 99 %)'],
+    },
+  };
+}

@@ -11,7 +11,7 @@ import { performance } from 'node:perf_hooks';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { analyzeCost } from './bench-analyze.js';
-import { designCost, infeasibleDesignCost } from './bench-design.js';
+import { designAnswersCost, designCost, infeasibleDesignCost } from './bench-design.js';
 import { monteCarloRate } from './bench-monte-carlo.js';
 import { engineVersusOde } from './bench-ode-race.js';
 import { processStart } from './bench-process.js';
@@ -68,6 +68,11 @@ export async function runBench(): Promise<BenchReport> {
   const infeasible = buildError ? null : infeasibleDesignCost(root);
   if (infeasible) sections.push(infeasible.section);
   data.infeasibleDesign = infeasible?.data ?? null;
+
+  step('design answers, whole process (the three-stage search takes tens of seconds a run)');
+  const designRows = buildError ? null : designAnswersCost(root);
+  if (designRows) sections.push(designRows.section);
+  data.designAnswers = designRows?.data ?? null;
 
   step('Monte Carlo');
   const monteCarlo = await monteCarloRate(buildError ? undefined : new URL('../dist/tolerance-worker.js', import.meta.url));
@@ -159,6 +164,12 @@ export async function runBench(): Promise<BenchReport> {
       // Both must hold: under load the wall ratio alone flatters.
       met: typeof start === 'string' ? null : start.commands[0].ratio <= 3 && (start.commands[0].cpuRatio ?? 0) <= 3,
     },
+    ...(designRows?.data.rows.map((row): BenchTarget => ({
+      name: row.name,
+      goal: `<= ${row.goal}x bare node (wall)`,
+      measured: `${formatNumber(row.ratio)}x wall` + (row.cpuRatio === null ? '' : `, ${formatNumber(row.cpuRatio)}x CPU`),
+      met: row.ratio <= row.goal,
+    })) ?? []),
   ];
 
   const model = cpus()[0]?.model.trim() ?? 'unknown CPU';

@@ -47,6 +47,21 @@ export interface CollectState {
   cut?: boolean;
   /** Stop the walk once performance.now() passes this (ms; `design --max-time`); `cut` then tells. */
   deadline?: number;
+  /** Pareto mode (trade-off curves, paretoSearch.ts): several ripple limits in one walk. */
+  pareto?: ParetoState;
+}
+
+/**
+ * Pareto mode: instead of one top list, the best fast settling bound per ripple limit. A
+ * candidate is kept unless its settling bound exceeds the best already known for every limit its
+ * ripple could meet (it is then dominated in (worst ripple, settling time)); theta is the largest
+ * of those bests (the tightest limit's), so the walk's own cuts stay valid for every limit.
+ */
+export interface ParetoState {
+  /** Ripple limits the search must meet, V, ascending (problem.searchLimits.ripple is the last). */
+  limits: number[];
+  /** Best fast settling bound of a candidate that passes every fast check under each limit, s. */
+  best: number[];
 }
 
 /** A fresh state: theta starts at the settling-time limit (nothing slower is feasible). */
@@ -64,6 +79,16 @@ export function newCollectState(problem: DesignProblem, top: number): CollectSta
 }
 
 const exceeds = (value: number, limit: number | undefined) => limit !== undefined && value > limit * (1 + REL) + 1e-300;
+
+/** Pareto mode: the settling threshold of a candidate whose worst ripple is at least `ripple`. */
+function paretoThreshold(pareto: ParetoState, ripple: number): number {
+  let out = -Infinity;
+  for (let i = 0; i < pareto.limits.length; i++) {
+    if (exceeds(ripple, pareto.limits[i])) continue;
+    out = Math.max(out, pareto.best[i] * (1 + REL) + ABS_T);
+  }
+  return out;
+}
 
 /**
  * Collect every `stages`-stage candidate of the problem's discrete space that the fast model cannot
@@ -154,6 +179,16 @@ export function collectCandidates(
   }
   const order = keys.map((_, i) => i).sort((a, b) => keys[a] - keys[b]);
 
+  // Pareto mode: points already evaluated, by a number made of their value indices (no strings).
+  const paretoSeen = new Set<number>();
+  const rIndex = new Map(R.map((v, i) => [v, i]));
+  const cIndex = new Map(C.map((v, i) => [v, i]));
+  const indexCode = (rs: number[], cs: number[]): number => {
+    let code = 0;
+    for (let k = 0; k < rs.length; k++) code = (code * nR + rIndex.get(rs[k])!) * nC + cIndex.get(cs[k])!;
+    return code;
+  };
+
   // One-entry model cache: the staircase check is usually followed by the full evaluation.
   let lastR: number[] = [];
   let lastC: number[] = [];
@@ -203,8 +238,23 @@ export function collectCandidates(
     return { ripple: s.ripple, average: s.average, yStart: s.yStart, above: s.maxDev - s.meanOffset, below: s.meanOffset - s.minDev };
   };
 
+  // The ripple limit of the staircase: the problem's, or in Pareto mode each limit's in turn.
+  let rippleLimit = limits.ripple;
+  // Pareto mode: the staircases of one tuple ask about the same points; remember each point's
+  // ripple near 50 % (NaN: its ripple at a target duty rules settling out).
+  const nearMemo = new Map<number, number>();
   const rippleOk = (rs: number[], cs: number[]): boolean => {
-    if (limits.ripple !== undefined && exceeds(lite(rs, cs, dNear).ripple, limits.ripple)) return false;
+    if (state.pareto) {
+      const code = indexCode(rs, cs);
+      let near = nearMemo.get(code);
+      if (near === undefined) {
+        near = lite(rs, cs, dNear).ripple;
+        if (checkTo) for (const d of toDuties) if (exceeds(lite(rs, cs, d).ripple, 2 * problem.band)) near = Number.NaN;
+        nearMemo.set(code, near);
+      }
+      return !Number.isNaN(near) && !exceeds(near, rippleLimit);
+    }
+    if (rippleLimit !== undefined && exceeds(lite(rs, cs, dNear).ripple, rippleLimit)) return false;
     if (checkTo) for (const d of toDuties) if (exceeds(lite(rs, cs, d).ripple, 2 * problem.band)) return false;
     return true;
   };
@@ -219,8 +269,19 @@ export function collectCandidates(
   };
   const evaluate = (rs: number[], cs: number[], tb: TupleBounds): void => {
     if (overBudget()) return;
+    let theta = state.theta;
     const key = state.dynamic ? '' : keyOf(rs, cs);
     if (!state.dynamic && state.seen.has(key)) return;
+    if (state.pareto) {
+      // Several staircases (one per limit) share points: evaluate each once.
+      const code = indexCode(rs, cs);
+      if (paretoSeen.has(code)) return;
+      paretoSeen.add(code);
+      // This point's own threshold: the best of the limits its ripple can meet.
+      theta = Math.min(theta, paretoThreshold(state.pareto, lite(rs, cs, dNear).ripple));
+      // Dominated already by the capacitors' settling floor (before any costlier bound).
+      if (slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) * tb.factor - tb.slack > theta) return;
+    }
     // Unequal drivers: droop depends on the capacitors and may peak inside the range. Its largest
     // value on a 9-point duty grid (a lower bound: values at some duties) rules a candidate out
     // before settling; the full maximum is taken before the candidate may lower theta.
@@ -241,7 +302,7 @@ export function collectCandidates(
       const b = lite(rs, cs, to);
       const z0 = Math.abs(b.yStart - a.yStart);
       const excursion = b.yStart > a.yStart ? b.above : b.below;
-      if (z0 > problem.band + excursion && tau * Math.log(z0 / (problem.band + excursion)) - tb.slack > state.theta) return;
+      if (z0 > problem.band + excursion && tau * Math.log(z0 / (problem.band + excursion)) - tb.slack > theta) return;
     }
     const model = use(rs, cs);
     let lb = 0;
@@ -250,10 +311,26 @@ export function collectCandidates(
       if (lb === Infinity) return;
     }
     if (exceeds(lb, limits.settlingTime)) return;
-    if (lb > state.theta) return;
+    if (lb > theta) return;
     let totalC = 0;
     for (const c of cs) totalC += c;
     const entry: FastEntry = { r: [...rs], c: [...cs], lb, totalC };
+    const pareto = state.pareto;
+    if (pareto) {
+      // The ripple near 50 % is a lower bound on the worst: a first, cheap dominance test.
+      if (lb > paretoThreshold(pareto, lite(rs, cs, dNear).ripple)) return;
+      entry.worst = maximizeOverDuty((d) => lite(rs, cs, d).ripple, problem.dutyMin, problem.dutyMax);
+      const droop = checkDroop ? maximizeOverDuty(droopError, problem.dutyMin, problem.dutyMax) : 0;
+      if (exceeds(droop, limits.droop) || lb > paretoThreshold(pareto, entry.worst)) return;
+      state.entries.push(entry);
+      let theta = -Infinity;
+      for (let i = 0; i < pareto.limits.length; i++) {
+        if (!exceeds(entry.worst, pareto.limits[i]) && lb < pareto.best[i]) pareto.best[i] = lb;
+        theta = Math.max(theta, pareto.best[i] * (1 + REL) + ABS_T);
+      }
+      state.theta = Math.min(state.theta, theta);
+      return;
+    }
     if (!state.dynamic) state.seen.add(key);
     state.entries.push(entry);
     if (state.dynamic && (state.best.length < state.top || lb < state.best[state.top - 1])) {
@@ -293,7 +370,22 @@ export function collectCandidates(
 
   const walk = (rs: number[], tb: TupleBounds): Column[] => {
     const bound = (cs: number[]) => slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) * tb.factor - tb.slack;
-    const within = (cs: number[]) => bound(cs) <= state.theta;
+    const pareto = state.pareto;
+    if (!pareto) return walkUnder(rs, tb, (cs) => bound(cs) <= state.theta);
+    // Pareto mode: the union of each limit's region (its staircase, its own threshold), so a
+    // loose limit's long columns stop at its own best, not at the tightest limit's.
+    const columns: Column[] = [];
+    nearMemo.clear();
+    pareto.limits.forEach((limit, i) => {
+      rippleLimit = limit;
+      columns.push(...walkUnder(rs, tb, (cs) => bound(cs) <= Math.min(state.theta, pareto.best[i] * (1 + REL) + ABS_T)));
+    });
+    rippleLimit = limits.ripple;
+    return columns;
+  };
+
+  /** The walk of one resistor tuple's capacitor space under a threshold test `within`. */
+  const walkUnder = (rs: number[], tb: TupleBounds, within: (cs: number[]) => boolean): Column[] => {
     const columns: Column[] = [];
     if (stages === 1) {
       const s = firstTrue(nC, (i) => rippleOk(rs, [C[i]]));

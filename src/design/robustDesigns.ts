@@ -28,7 +28,7 @@ export interface RobustResult {
   exhausted: boolean;
   /** Largest `top` asked of the nominal search. */
   asked: number;
-  /** Monte Carlo samples per design (yield mode), else null. */
+  /** Largest Monte Carlo sample count per design (yield mode; sampling stops earlier once the yield interval clears the target), else null. */
   samples: number | null;
   /** The last nominal search (basis, stats, resolutions, comparison). */
   nominal: DesignResult;

@@ -20,6 +20,11 @@ export interface WorstCaseFigures {
   inl: number | null;
   /** Pin peak current with R1 and the driver at their minimum and the supply at its worst, A. */
   pinCurrent: number;
+  /**
+   * A figure a single corner of the box already took over its limit: the full search was skipped
+   * and the other figures are NaN (tolerance/cornerMiss.ts).
+   */
+  missedAtCorner?: 'ripple' | 'droop' | 'inl' | 'settling';
 }
 
 /** Monte Carlo outcome of one design. */
@@ -28,6 +33,12 @@ export interface YieldFigures {
   yield: number;
   samples: number;
   target: number;
+  /**
+   * Sequential runs: the confidence interval of the yield when sampling stopped (tolerance/
+   * sequentialYield.ts); the verdict is then `lower >= target` or `upper < target`, or at the
+   * sample cap the point estimate against the target.
+   */
+  interval?: [number, number];
   /** Pin peak current at its worst corner of the tolerance box, A (as in WorstCaseFigures). */
   pinCurrent: number;
 }

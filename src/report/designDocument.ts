@@ -119,7 +119,7 @@ function followerNote(list: Candidate[]): Block[] {
 /** The robust designs' figures under tolerance: worst case over the box, or Monte Carlo yield. */
 function robustSection(r: RobustResult, lsbOf: (c: Candidate) => LsbScale): Section {
   const pairs: Array<[string, string]> = [
-    ['Check', r.mode === 'worst-case' ? 'every limit at the worst case over the box of the tolerance: block' : `Monte Carlo yield, ${r.samples} samples per design; pin current at the worst case of the box`],
+    ['Check', r.mode === 'worst-case' ? 'every limit at the worst case over the box of the tolerance: block' : `Monte Carlo yield, up to ${r.samples} samples per design (sampling stops once the yield's 3-sigma Wilson interval clears the target); pin current at the worst case of the box`],
     ['Scanned', `${r.scanned} nominally feasible design${r.scanned === 1 ? '' : 's'} in ranking order${r.exhausted ? ' (all of them)' : ''}`],
   ];
   const blocks: Block[] = [{ kind: 'pairs', pairs }];

@@ -1,9 +1,11 @@
 import type { Ladder } from '../circuit/ladder.js';
 import { pinPeakCurrent, type RobustCheck, type RobustChecks, type RobustVerdict } from '../engine/index.js';
 import type { Project } from '../project/types.js';
-import { monteCarlo, requireTolerance, ToleranceInputError } from './monteCarlo.js';
+import { requireTolerance, ToleranceInputError } from './monteCarlo.js';
+import { sequentialYield } from './sequentialYield.js';
 import { ladderAt, toleranceParameters } from './parameters.js';
 import { worstCase } from './worstCase.js';
+import { cornerMiss } from './cornerMiss.js';
 
 /**
  * The robust checks the design search applies to each nominal design (design/robustDesigns.ts
@@ -22,15 +24,21 @@ export const robustChecks: RobustChecks = {
  * their worst points of the tolerance box (worstCase.ts), and the pin peak current with
  * R1 and both driver resistances at their minimum and the supply at the end that raises it (the
  * current |high - low| / (driver + R1) falls with R1 and the driver, rises with the swing; Ohm's
- * law). Passes when every limited figure is within its limit.
+ * law). Passes when every limited figure is within its limit. A design that two corners already
+ * prove failing (cornerMiss.ts) gets the same verdict without the full search.
  *
  * Syntax: worstCaseCheck(project, ladder)
  * Example: worstCaseCheck(p, ladder).worstCase.settlingTime   // s at the slowest corner
  */
 export function worstCaseCheck(project: Project, ladder: Ladder): RobustVerdict {
-  const w = worstCase(project, ladder);
   const pinCurrent = worstPinCurrent(project, ladder);
   const pinLimit = project.search?.pinCurrent;
+  // Two corners often prove the miss already (cornerMiss.ts): same verdict, no full search.
+  const miss = cornerMiss(project, ladder);
+  if (miss !== null) {
+    return { pass: false, worstCase: { settlingTime: Number.NaN, worstRipple: Number.NaN, droop: Number.NaN, inl: null, pinCurrent, missedAtCorner: miss } };
+  }
+  const w = worstCase(project, ladder);
   const pass = w.pass && (pinLimit === undefined || pinCurrent <= pinLimit);
   return {
     pass,
@@ -45,8 +53,9 @@ export function worstCaseCheck(project: Project, ladder: Ladder): RobustVerdict 
 }
 
 /**
- * Yield check of one design with a given sample count: Monte Carlo yield (monteCarlo.ts,
- * the project's seed and distribution) against tolerance.yield, and the pin peak current at its
+ * Yield check of one design with a given sample cap: Monte Carlo yield (the project's seed and
+ * distribution) against tolerance.yield, sampled until its confidence interval clears the target
+ * or the cap is reached (sequentialYield.ts), and the pin peak current at its
  * worst corner against search.pin_current. The pin limit protects the part, so it holds for every
  * unit, not for a share of them: absolute maximum ratings are checked at the worst case (common
  * practice; the data sheet's absolute maximum ratings table).
@@ -63,8 +72,8 @@ export function yieldCheck(samples: number): RobustCheck {
     const pinOk = pinLimit === undefined || pinCurrent <= pinLimit;
     // A design over the pin limit fails whatever its yield: skip the Monte Carlo run.
     if (!pinOk) return { pass: false, yield: { yield: Number.NaN, samples: 0, target, pinCurrent } };
-    const m = monteCarlo(project, ladder, { samples });
-    return { pass: m.yield >= target, yield: { yield: m.yield, samples: m.samples, target, pinCurrent } };
+    const m = sequentialYield(project, ladder, target, samples);
+    return { pass: m.pass, yield: { yield: m.yield, samples: m.samples, target, pinCurrent, interval: m.interval } };
   };
 }
 

@@ -1,6 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { relaxProject } from '../../src/design/relaxProject.js';
 import { tradeoffCurves } from '../../src/design/tradeoffCurves.js';
+import { bestDesigns } from '../../src/design/bestDesigns.js';
+import { designProblem } from '../../src/design/designProblem.js';
+import { paretoSearch } from '../../src/design/paretoSearch.js';
 import { parseProject } from '../../src/project/index.js';
 import type { Project } from '../../src/project/types.js';
 import { bruteForce, designKey } from './bruteForce.js';
@@ -92,6 +95,42 @@ search:
         expect(point, `${curve.stages} stages at ${point.ripple} V`).toStrictEqual(alone.points[0]);
         if (point.best) found++;
       }
+    }
+    expect(found).toBeGreaterThan(10);
+  });
+
+  it('one Pareto walk gives what one search per ripple limit gives (followers, load, unequal drivers)', () => {
+    // Invented scenario, E12 over three decades of each part: a space too large for the
+    // exhaustive reference, so the reference is the design search itself (bestDesigns.ts), run
+    // alone at each limit, which test/design/designSearch.test.ts holds to exhaustive search.
+    const p = parseProject(
+      `
+pwm: { frequency: 20 kHz, bits: 10, high: 3.3 V, low: 0 V, driver: { high: 40 ohm, low: 25 ohm }, duty: { min: 5 %, max: 95 % } }
+load: { resistance: 200 kohm, capacitance: 47 pF }
+spec:
+  ripple: 1 LSB
+  droop: 3 %
+search:
+  stages: [1, 2]
+  series: E12
+  margin: 10 %
+  buffered: [false, true]
+  resistance: { min: 100 ohm, max: 100k }
+  capacitance: { min: 1n, max: 10u }
+`,
+      'pareto.yaml',
+    );
+    const free = relaxProject(p, ['settling'], Infinity);
+    const ripples = [2e-4, 5e-4, 1e-3, 2e-3, 3.2e-3, 6e-3, 1.2e-2, 2.5e-2];
+    const problems = ripples.map((ripple) => designProblem({ ...free, spec: { ...free.spec, ripple } }));
+    let found = 0;
+    for (const n of [1, 2]) {
+      const front = paretoSearch(problems, n);
+      problems.forEach((problem, i) => {
+        const alone = bestDesigns(problem, 1, [n]).feasible[0] ?? null;
+        expect(front[i], `${n} stages at ${ripples[i]} V`).toStrictEqual(alone);
+        if (alone) found++;
+      });
     }
     expect(found).toBeGreaterThan(10);
   });

@@ -1,0 +1,110 @@
+import { bestDesigns } from './bestDesigns.js';
+import { collectCandidates, newCollectState, REL, type FastEntry } from './collectCandidates.js';
+import { designProblem, type DesignProblem } from './designProblem.js';
+import { exactCandidate } from './exactCandidate.js';
+import { infeasibilityBounds } from './infeasibilityBounds.js';
+import { rankCandidates, SETTLING_TIE } from './rankCandidates.js';
+import type { Candidate } from './types.js';
+
+/** What paretoSearch did, for tests and the bench. */
+export interface ParetoStats {
+  /** Candidates the fast model evaluated, over every walk (the fallbacks' included). */
+  evaluated: number;
+  /** Limits whose proof failed and were searched alone (bestDesigns). */
+  fallbacks: number;
+}
+
+/**
+ * The best design (top 1, rankCandidates.ts, engine-verified) of one stage count under each of
+ * several design problems that differ only in their ripple limit, from one walk of the space:
+ * `problems[i]` is the project with the i-th ripple limit (same band, steps and other limits).
+ * Same answers as `bestDesigns(problems[i], 1, [stages])` for every i (tested).
+ *
+ * Method: the tightest open limit is searched alone first (bestDesigns); its best meets every
+ * looser limit, so its settling time seeds their thresholds. Then one bounded walk
+ * (collectCandidates.ts in Pareto mode, one staircase per limit, each point evaluated once) with the loosest limit's
+ * staircase, keeping the best fast settling bound per limit; a candidate is dropped only when its
+ * settling lower bound exceeds the best already found under every limit its worst ripple meets
+ * (dominated in (worst ripple, settling time)), and the walk's threshold is the largest of those
+ * bests. Each limit then takes the collected candidates that meet it, engine-verifies them in
+ * ascending order of the bound until the bound passes the best exact settling time, and is proven
+ * when that time lies within the threshold the walk used for it, as in solveProblem.ts. A limit
+ * that is not proven so (the engine rejected what the fast model kept, e.g. by INL) is searched
+ * alone by bestDesigns. Stage counts proven out of reach (infeasibilityBounds.ts) give null. With
+ * follower options (search.buffered) one walk per option, merged by rankCandidates.
+ *
+ * Syntax: paretoSearch(problems, stages[, stats])
+ * Example: paretoSearch(limits.map((r) => designProblem(withRipple(p, r))), 2).map((c) => c?.settlingTime)
+ */
+export function paretoSearch(problems: DesignProblem[], stages: number, stats: ParetoStats = { evaluated: 0, fallbacks: 0 }): Array<Candidate | null> {
+  const out: Array<Candidate | null> = problems.map(() => null);
+  const base = problems[0];
+  if (!base) return out;
+  const rippleOf = (p: DesignProblem) => p.searchLimits.ripple ?? Infinity;
+  const open = problems.map((p, i) => i).filter((i) => infeasibilityBounds(problems[i], stages).misses.length === 0);
+  if (open.length === 0) return out;
+  const order = [...open].sort((a, b) => rippleOf(problems[a]) - rippleOf(problems[b]));
+  const loosest = problems[order[order.length - 1]];
+  const options = [...new Set(base.project.search?.buffered ?? [base.buffered])].sort((a, b) => Number(a) - Number(b));
+  const fallback = new Set<number>();
+  const found: Candidate[][] = problems.map(() => []);
+
+  // The tightest open limit alone first (an ordinary search): its best meets every looser limit
+  // too, so its settling time t0 bounds every other point from the walk's first candidate.
+  const tightest = order[0];
+  const first = bestDesigns(problems[tightest], 1, [stages]);
+  stats.evaluated += first.evaluated;
+  out[tightest] = first.feasible[0] ?? null;
+  const t0 = out[tightest]?.settlingTime ?? null;
+  // Widened by rounding tie widths (rankCandidates.ts) so the whole leading tie group stays in.
+  const seed = t0 !== null && Number.isFinite(t0) ? t0 * (1 + 20 * SETTLING_TIE) : Infinity;
+  const rest = order.slice(1);
+  if (rest.length === 0) return out;
+
+  for (const buffered of options) {
+    const variant = (p: DesignProblem) => (buffered === p.buffered ? p : designProblem(p.project, undefined, buffered));
+    const walkProblem = variant(loosest);
+    // Proven out of reach for this variant at the loosest limit: out of reach at every tighter one.
+    if (infeasibilityBounds(walkProblem, stages).misses.length > 0) continue;
+    const state = newCollectState(walkProblem, 1);
+    const limits = rest.map((i) => rippleOf(problems[i]));
+    state.pareto = { limits, best: limits.map(() => seed) };
+    collectCandidates(walkProblem, stages, state);
+    stats.evaluated += state.evaluated;
+    const entries = [...state.entries].sort((a, b) => a.lb - b.lb || a.totalC - b.totalC);
+    const verified = new Map<FastEntry, Candidate>();
+    rest.forEach((i, k) => {
+      const problem = variant(problems[i]);
+      if (infeasibilityBounds(problem, stages).misses.length > 0) return;
+      const theta = state.pareto!.best[k] * (1 + REL) + 1e-12;
+      let ranked: Candidate[] = [];
+      let tN = Infinity;
+      for (const e of entries) {
+        if (e.lb > tN * (1 + REL) + 1e-12) break;
+        if (e.worst! > limits[k] * (1 + REL)) continue;
+        // Figures are the ladder's; checks and margins are this limit's.
+        const candidate = exactCandidate(problem, problem.ladderOf(e.r, e.c));
+        verified.set(e, candidate);
+        if (candidate.keepsMargin) {
+          ranked = rankCandidates([...ranked, candidate]).slice(0, 1);
+          tN = ranked[0].settlingTime ?? Infinity;
+        }
+      }
+      // Proven as in solveProblem.ts: the best lies within the threshold this limit's pruning used
+      // (an infinite one pruned nothing, so an empty answer is proven too).
+      // A limit whose threshold stayed at the seed pruned only what cannot beat t0, which is met.
+      const seeded = state.pareto!.best[k] === seed && t0 !== null && tN <= t0;
+      if (theta !== Infinity && !seeded && !(tN * (1 + 10 * SETTLING_TIE) <= theta)) fallback.add(i);
+      else found[i].push(...ranked);
+    });
+  }
+  for (const i of rest) {
+    if (fallback.has(i)) {
+      stats.fallbacks++;
+      const alone = bestDesigns(problems[i], 1, [stages]);
+      stats.evaluated += alone.evaluated;
+      out[i] = alone.feasible[0] ?? null;
+    } else out[i] = rankCandidates(found[i])[0] ?? null;
+  }
+  return out;
+}
