@@ -31,17 +31,7 @@ export function bruteForce(project: Project, top: number, bits?: number): { rank
       loadCapacitance: load.capacitance,
     });
     for (const n of p.stageCounts) {
-      const total = (R.length * C.length) ** n;
-      for (let k = 0; k < total; k++) {
-        let rest = k;
-        const r: number[] = [];
-        const c: number[] = [];
-        for (let s = 0; s < n; s++) {
-          r.push(R[rest % R.length]);
-          rest = Math.floor(rest / R.length);
-          c.push(C[rest % C.length]);
-          rest = Math.floor(rest / C.length);
-        }
+      for (const [r, c] of everyTuple(R, C, n)) {
         const l = ladderOf(r, c);
         const s = p.defaultStep ? defaultSettling(l, p.dutyMin, p.dutyMax, p.band) : settlingTime(l, p.steps[0][0], p.steps[0][1], p.band);
         all.push({ p, l, t: s.time ?? Infinity });
@@ -67,4 +57,27 @@ export function bruteForce(project: Project, top: number, bits?: number): { rank
 }
 
 /** A design as text, for comparing lists ('+F': a follower after that stage). */
+/**
+ * Every n-stage choice of resistors from R and capacitors from C (pin side first), each once:
+ * the whole discrete space the design search walks.
+ *
+ * Syntax: everyTuple(R, C, n)
+ * Example: [...everyTuple([1e3, 2e3], [1e-9], 2)].length   // 4
+ */
+export function* everyTuple(R: readonly number[], C: readonly number[], n: number): Generator<[number[], number[]]> {
+  const total = (R.length * C.length) ** n;
+  for (let k = 0; k < total; k++) {
+    let rest = k;
+    const r: number[] = [];
+    const c: number[] = [];
+    for (let s = 0; s < n; s++) {
+      r.push(R[rest % R.length]);
+      rest = Math.floor(rest / R.length);
+      c.push(C[rest % C.length]);
+      rest = Math.floor(rest / C.length);
+    }
+    yield [r, c];
+  }
+}
+
 export const designKey = (c: Pick<Candidate, 'stages'>) => c.stages.map((s) => `${s.r}/${s.c}${s.buffered ? '+F' : ''}`).join(' + ');

@@ -3,6 +3,7 @@ import { designProblem } from '../../src/design/designProblem.js';
 import { exactCandidate } from '../../src/design/exactCandidate.js';
 import { infeasibilityBounds } from '../../src/design/infeasibilityBounds.js';
 import { parseProject } from '../../src/project/index.js';
+import { everyTuple } from './bruteForce.js';
 
 /** An invented project with a search section; `o` overrides pieces of the YAML. */
 function project(o: Record<string, string>) {
@@ -31,19 +32,7 @@ function everyDesign(p: ReturnType<typeof project>, n: number) {
   const R = problem.rValues;
   const C = problem.cValues;
   const out = [];
-  const total = (R.length * C.length) ** n;
-  for (let k = 0; k < total; k++) {
-    let rest = k;
-    const r: number[] = [];
-    const c: number[] = [];
-    for (let s = 0; s < n; s++) {
-      r.push(R[rest % R.length]);
-      rest = Math.floor(rest / R.length);
-      c.push(C[rest % C.length]);
-      rest = Math.floor(rest / C.length);
-    }
-    out.push(exactCandidate(problem, problem.ladderOf(r, c)));
-  }
+  for (const [r, c] of everyTuple(R, C, n)) out.push(exactCandidate(problem, problem.ladderOf(r, c)));
   return { problem, designs: out };
 }
 
