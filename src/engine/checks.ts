@@ -1,8 +1,8 @@
 import type { Project } from '../project/types.js';
-import { SPEC_LIMITS, type CheckName } from './specLimits.js';
+import { SPEC_LIMITS, type CheckName } from '../project/specLimits.js';
 import type { DcTransfer, Settling, WorstRipple } from './types.js';
 
-export type { CheckName } from './specLimits.js';
+export type { CheckName } from '../project/specLimits.js';
 
 /** One spec limit compared with the analysis. `value` is null when it does not exist (never settles). */
 export interface Check {

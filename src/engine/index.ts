@@ -28,7 +28,6 @@ export type { RobustCheck, RobustChecks, RobustVerdict, WorstCaseFigures, YieldF
 export { analyzeProject, defaultBand, type Analysis, type AnalyzeOptions } from './analyze.js';
 export { settlingSteps, type SettlingPlan } from './settlingSteps.js';
 export { specChecks, type Check, type CheckInputs, type CheckName } from './checks.js';
-export { SPEC_LIMITS, specLimit } from './specLimits.js';
 // For the tolerance studies, which evaluate many ladders through the modal form directly.
 export { averageOutput } from './averageOutput.js';
 export { prepare, type Prepared } from './prepare.js';

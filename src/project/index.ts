@@ -8,4 +8,5 @@ export { requireFilter } from './requireFilter.js';
 export { parseSpecLevel, type SpecLevel } from './parseSpecLevel.js';
 export type * from './types.js';
 export { positionOfKey } from './positionOfKey.js';
+export { SPEC_LIMITS, specLimit, type CheckName } from './specLimits.js';
 export { keyPositions, type KeyPosition } from './keyPositions.js';

@@ -1,3 +1,4 @@
+import { ofFullScale } from './quantities.js';
 import type { Check, Warning } from '../engine/index.js';
 import type { KeyPosition, ProjectIssue } from '../project/index.js';
 import { checkKey } from './checkKey.js';
@@ -42,7 +43,7 @@ export interface CheckRenderOptions {
 
 /** A check value or limit: a fraction of full scale ('1') in percent, else engineering units. */
 function quantity(x: number, unit: Check['unit'], digits: number): string {
-  return unit === '1' ? `${Number((100 * x).toPrecision(digits))} % of full scale` : formatEng(x, unit, digits);
+  return unit === '1' ? ofFullScale(x, digits) : formatEng(x, unit, digits);
 }
 
 /**

@@ -1,3 +1,4 @@
+import { ofFullScale } from './quantities.js';
 import { jsonValue } from './jsonValue.js';
 import { plot } from 'asciichart';
 import type { Analysis, CompareOverlays, Overlay } from '../engine/index.js';
@@ -245,7 +246,7 @@ function showFigure(v: number | null, unit: string, key: string): string {
 }
 
 /** A check value or limit: a fraction of full scale (unit '1') in percent, else engineering units. */
-const checkText = (x: number, unit: string) => (unit === '1' ? `${Number((100 * x).toPrecision(3))} % of full scale` : formatEng(x, unit, 3));
+const checkText = (x: number, unit: string) => (unit === '1' ? ofFullScale(x) : formatEng(x, unit, 3));
 
 function showCheckSide(c: CheckSide | null, unit: string): string {
   if (c === null) return '-';

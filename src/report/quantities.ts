@@ -40,6 +40,16 @@ export function voltsAndLsb(v: number, lsb: number | null): string {
 
 /** A check value or limit in its unit ('V' also in LSB). */
 export function checkQuantity(x: number, unit: 'V' | 's' | 'A' | '1', lsb: number | null): string {
-  if (unit === '1') return `${Number((x * 100).toPrecision(3))} % of full scale`;
+  if (unit === '1') return ofFullScale(x);
   return unit === 'V' ? voltsAndLsb(x, lsb) : formatEng(x, unit, 3);
+}
+
+/**
+ * A fraction of full scale as the reports print it.
+ *
+ * Syntax: ofFullScale(fraction[, digits])
+ * Example: ofFullScale(0.0215)   // '2.15 % of full scale'
+ */
+export function ofFullScale(fraction: number, digits = 3): string {
+  return `${Number((100 * fraction).toPrecision(digits))} % of full scale`;
 }

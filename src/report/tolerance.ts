@@ -7,7 +7,7 @@ import { histogram, type Percentiles } from '../numeric/statistics.js';
 import type { Effect, WorstCaseFigure, WorstCaseResult } from '../tolerance/worstCase.js';
 import { formatEng } from '../units/index.js';
 import type { Block, ReportDocument, Section } from './document.js';
-import { percent, tidy, voltsAndLsb } from './quantities.js';
+import { percent, tidy, voltsAndLsb, ofFullScale } from './quantities.js';
 import { htmlPage } from './htmlPage.js';
 import { renderDocument } from './renderDocument.js';
 import { svgHistogram } from './svgHistogram.js';
@@ -72,7 +72,6 @@ const FIGURE_NAMES: Record<WorstCaseFigure['figure'], string> = {
 };
 
 /** A fraction of full scale (the gain check's unit) as text. */
-const ofFullScale = (x: number) => `${Number((100 * x).toPrecision(3))} % of full scale`;
 
 function toleranceDocument(
   project: Project,

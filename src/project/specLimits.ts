@@ -1,4 +1,4 @@
-import type { Project } from '../project/types.js';
+import type { Project } from './types.js';
 
 /**
  * The spec limits dacsmith checks, in report order: the check's name (as JSON and reports spell
