@@ -56,6 +56,8 @@ export interface SecondPwm {
   readonly role: 'fine' | 'complement';
   /** Fine channel resolution b (code = coarse * 2^b + fine); null for `complement`. */
   readonly bits: number | null;
+  /** Resolution of the first (coarse) output, `pwm.bits`; needed for `fine`, null otherwise. */
+  readonly coarseBits: number | null;
   readonly pin: PwmPin;
   /** 0-based index of the RC stage whose node the injection enters. */
   readonly stage: number;

@@ -1,0 +1,121 @@
+import type { Duties, Network } from '../../circuit/network.js';
+import { solveLinear } from '../../numeric/lu.js';
+import { networkCache, phaseFlows, type PhaseFlows } from './phaseFlows.js';
+import { pinSchedule } from './pinSchedule.js';
+import { periodTrajectoryPoints, type TrajectoryPoint } from './trajectory.js';
+
+/** The periodic steady state of a network at one pair of duties. */
+export interface PeriodicOrbit {
+  readonly duties: Duties;
+  readonly phases: readonly PhaseFlows[];
+  /** State at the period start, V. */
+  readonly start: readonly number[];
+  /** S = I - M, M the one-period map of deviations (kept for settling). */
+  readonly S: readonly number[];
+  /** Output at the period start, time average, extremes (V) and their instants (s from the period start). */
+  readonly yStart: number;
+  readonly average: number;
+  readonly min: number;
+  readonly max: number;
+  readonly ripple: number;
+  readonly tMin: number;
+  readonly tMax: number;
+  /** The period's trajectory as deviations from `start` (trajectory.ts). */
+  readonly points: readonly TrajectoryPoint[];
+}
+
+/**
+ * Exact periodic steady state of a network (two PWM outputs, RC and Sallen-Key stages) at the given
+ * duties: start state, time-average output and the extremes of the output over one period.
+ *
+ * Method: the period is a sequence of linear phases x' = A_p x + b_p (pinSchedule.ts), each solved
+ * exactly, x(t) = x* + E(t)(x(0) - x*) with E = e^{tA}, K = I - E and J = int K (flow.ts). In
+ * deviation form the period map's fixed point solves S (x_s - r) = sum_p P_p K_p (x*_p - r) with
+ * S = I - E_N...E_1 accumulated as S_p = K_p + E_p S_{p-1} and P_p = E_N...E_{p+1}, r the
+ * duty-weighted mean of the phase DC states; K is formed without cancellation, so the solve keeps
+ * its accuracy when the time constants are 1e8 periods. The average adds t_p d_p + J_p (x*_p - x_p)
+ * over the phases; the extremes come from the grid and the exactly located turning points of
+ * trajectory.ts. This is the general route for every network; `steadyState` (steadyState.ts) is the
+ * faster one for one output and RC stages, and the tests hold the two to each other.
+ *
+ * Without `withExtrema` only the start state and the average are exact (min = max = start).
+ *
+ * Syntax: periodicOrbit(network, duties[, withExtrema])
+ * Example: periodicOrbit(n, { first: 0.5, second: null }).ripple   // V peak-to-peak
+ */
+export function periodicOrbit(network: Network, duties: Duties, withExtrema = true): PeriodicOrbit {
+  const { equations } = networkCache(network);
+  const n = equations.n;
+  const T = network.period;
+  const phases = pinSchedule(network, duties).map((p) => phaseFlows(network, p.key, p.duration));
+  const r = new Array<number>(n).fill(0);
+  for (const ph of phases) for (let i = 0; i < n; i++) r[i] += (ph.duration / T) * ph.xStar[i];
+  let S = new Array<number>(n * n).fill(0);
+  let acc = new Array<number>(n).fill(0);
+  for (const ph of phases) {
+    const { E, K } = ph.full;
+    const nextS = K.slice();
+    const nextAcc = new Array<number>(n).fill(0);
+    for (let i = 0; i < n; i++) {
+      let a = 0;
+      for (let j = 0; j < n; j++) {
+        a += E[i * n + j] * acc[j] + K[i * n + j] * (ph.xStar[j] - r[j]);
+        let s = 0;
+        for (let k = 0; k < n; k++) s += E[i * n + k] * S[k * n + j];
+        nextS[i * n + j] += s;
+      }
+      nextAcc[i] = a;
+    }
+    S = nextS;
+    acc = nextAcc;
+  }
+  const u = solveLinear(S, n, acc);
+  if (!u) throw new RangeError('periodicOrbit: the period map has no unique fixed point');
+  const start = r.map((v, i) => v + u[i]);
+  const c = equations.output;
+  const points = withExtrema
+    ? periodTrajectoryPoints(phases, c, start, new Array<number>(n).fill(0), equations.scale)
+    : [{ phase: 0, tau: 0, t: 0, d: new Array<number>(n).fill(0), w: 0 }];
+  // Average: integral of d over each phase, t_p d_p + J_p (x*_p - x_s - d_p).
+  let integral = 0;
+  let d = new Array<number>(n).fill(0);
+  for (const ph of phases) {
+    const g = ph.xStar.map((v, i) => v - start[i] - d[i]);
+    const J = ph.full.J!;
+    const K = ph.full.K;
+    const next = d.slice();
+    for (let i = 0; i < n; i++) {
+      let jg = 0;
+      let kg = 0;
+      for (let j = 0; j < n; j++) {
+        jg += J[i * n + j] * g[j];
+        kg += K[i * n + j] * g[j];
+      }
+      integral += c[i] * (ph.duration * d[i] + jg);
+      next[i] += kg;
+    }
+    d = next;
+  }
+  let yStart = 0;
+  for (let i = 0; i < n; i++) yStart += c[i] * start[i];
+  let minP = points[0];
+  let maxP = points[0];
+  for (const p of points) {
+    if (p.w < minP.w) minP = p;
+    if (p.w > maxP.w) maxP = p;
+  }
+  return {
+    duties,
+    phases,
+    start,
+    S,
+    yStart,
+    average: yStart + integral / T,
+    min: yStart + minP.w,
+    max: yStart + maxP.w,
+    ripple: maxP.w - minP.w,
+    tMin: minP.t,
+    tMax: maxP.t,
+    points,
+  };
+}

@@ -1,0 +1,264 @@
+import type { Duties, Network } from '../../circuit/network.js';
+import { luFactor, luSolve, solveLinear } from '../../numeric/lu.js';
+import { brentRoot } from '../../numeric/brentRoot.js';
+import { networkCache } from './phaseFlows.js';
+import { periodicOrbit, type PeriodicOrbit } from './periodicOrbit.js';
+import { advanceInPhase, periodTrajectoryPoints, type TrajectoryPoint } from './trajectory.js';
+
+/** Result of a settling computation: s after the step, or null when the output never settles. */
+export interface NetworkSettling {
+  readonly time: number | null;
+  /** Average at the new duties, V (what the output settles to). */
+  readonly final: number;
+}
+
+/** Most sampled periods per scan of the transient (below the proven-safe period). */
+const SCAN_SAMPLES = 1024;
+
+/**
+ * Settling time after the duties change from `from` to `to` at a period start, the network having
+ * been in periodic steady state at `from` (model.md): the smallest t_s with |y(t) - average_to| <=
+ * band for every t >= t_s; null when the steady state at `to` leaves the band.
+ *
+ * Method: the deviation from the new periodic orbit at the start of period m is delta_m = M^m delta_0
+ * (M = I - S, periodicOrbit.ts); inside a period it moves with the exact phase flows.
+ * 1. A period m is proven safe when G ||delta_m||_P <= band - max|y_to(t) - average_to|, where
+ *    ||.||_P is the norm of the discrete Lyapunov solution P - M^T P M = I (so ||delta_m||_P never
+ *    grows) and G bounds |c Phi(t) delta| / ||delta||_P over the period's grid (times 1.25 for the
+ *    points between grid points); the first safe period is found by doubling and bisection with
+ *    powers of M kept in the form I - S_k (S_2k = 2 S_k - S_k^2, no cancellation).
+ * 2. Below it, periods are checked exactly (grid and turning points, trajectory.ts) on at most 1024
+ *    samples, stepping by at most one period per 0.2 rad of the fastest Sallen-Key ringing, from the
+ *    top down; the last violating sample is refined to a single period by bisection, and the
+ *    crossing into the band inside it by Brent's root finder on the monotone piece after the last
+ *    violating point.
+ * This assumes one crossing between two samples (true for RC networks, whose per-period transient is
+ * a sum of decaying exponentials in m, at the sample spacing used); tests compare with independent
+ * time-domain integration.
+ *
+ * Syntax: periodicSettling(network, from, to, band)
+ * Example: periodicSettling(n, { first: 0.1, second: null }, { first: 0.9, second: null }, 1e-3).time
+ */
+export function periodicSettling(network: Network, from: Duties, to: Duties, band: number): NetworkSettling {
+  const { equations } = networkCache(network);
+  const n = equations.n;
+  const c = equations.output;
+  const scale = equations.scale;
+  const T = network.period;
+  const orbitTo = periodicOrbit(network, to);
+  const orbitFrom = periodicOrbit(network, from);
+  const avg = orbitTo.average;
+  const steadyExcursion = Math.max(orbitTo.max - avg, avg - orbitTo.min);
+  if (steadyExcursion > band) return { time: null, final: avg };
+  const delta0 = orbitFrom.start.map((v, i) => v - orbitTo.start[i]);
+  const slack = band - steadyExcursion;
+
+  // Per-period check: the trajectory from start + delta, as deviations from orbitTo.start.
+  const trajectory = (delta: readonly number[]) => periodTrajectoryPoints(orbitTo.phases, c, orbitTo.start, delta, scale);
+  const offset = orbitTo.yStart - avg; // e(t) = offset + w(t)
+  const violates = (pts: readonly TrajectoryPoint[]) => pts.some((p) => Math.abs(offset + p.w) > band);
+
+  const S = orbitTo.S;
+  const safeFrom = firstSafePeriod(orbitTo, delta0, slack, n, c);
+  const ringing = fastestRinging(network);
+  let step = Math.max(1, Math.ceil(safeFrom / SCAN_SAMPLES));
+  if (ringing > 0) step = Math.min(step, Math.max(1, Math.floor(0.2 / (ringing * T))));
+  const powerStep = powerForm(S, step, n);
+  // Sample periods 0, step, 2 step, ... below safeFrom, keeping each delta.
+  const samples: Array<{ m: number; delta: number[] }> = [];
+  let delta = delta0.slice();
+  for (let m = 0; m < safeFrom; m += step) {
+    samples.push({ m, delta });
+    delta = applyPower(powerStep, delta, n);
+    if (samples.length > 4 * SCAN_SAMPLES + 8) break;
+  }
+  let last = -1;
+  for (let i = samples.length - 1; i >= 0; i--) {
+    if (violates(trajectory(samples[i].delta))) {
+      last = i;
+      break;
+    }
+  }
+  if (last < 0) return { time: 0, final: avg };
+  // Refine to the last violating period in [m_last, next sample).
+  let lo = samples[last].m;
+  let loDelta = samples[last].delta;
+  let hi = last + 1 < samples.length ? samples[last + 1].m : safeFrom;
+  while (hi - lo > 1) {
+    const mid = Math.floor((lo + hi) / 2);
+    const midDelta = applyPower(powerForm(S, mid - lo, n), loDelta, n);
+    if (violates(trajectory(midDelta))) {
+      lo = mid;
+      loDelta = midDelta;
+    } else hi = mid;
+  }
+  const pts = trajectory(loDelta);
+  let k = -1;
+  for (let i = pts.length - 1; i >= 0; i--) {
+    if (Math.abs(offset + pts[i].w) > band) {
+      k = i;
+      break;
+    }
+  }
+  if (k === pts.length - 1) return { time: (lo + 1) * T, final: avg };
+  const a = pts[k];
+  const b = pts[k + 1];
+  const sign = offset + a.w > 0 ? 1 : -1;
+  let tau: number;
+  if (b.phase === a.phase) {
+    const ph = orbitTo.phases[a.phase];
+    const f = (dt: number) => sign * (offset + advanceInPhase(ph, orbitTo.start, a.d, dt, c, scale)) - band;
+    const span = b.tau - a.tau;
+    tau = a.t + brentRoot(f, 0, span, span * 1e-12, sign * (offset + a.w) - band, sign * (offset + b.w) - band);
+  } else {
+    tau = b.t; // a phase boundary: the output jumps in slope only, the crossing is at b
+  }
+  return { time: lo * T + tau, final: avg };
+}
+
+/** I - M^k stored as S_k; the form of M^k used to apply it without cancellation. */
+function powerForm(S: readonly number[], k: number, n: number): number[] {
+  let result: number[] | null = null;
+  let base = S.slice();
+  let e = k;
+  while (e > 0) {
+    if (e & 1) result = result ? compose(result, base, n) : base.slice();
+    e = Math.floor(e / 2);
+    if (e > 0) base = compose(base, base, n);
+  }
+  return result ?? new Array<number>(n * n).fill(0);
+}
+
+/** S of M_a M_b given S_a, S_b: I - (I - S_a)(I - S_b) = S_a + S_b - S_a S_b. */
+function compose(Sa: readonly number[], Sb: readonly number[], n: number): number[] {
+  const out = new Array<number>(n * n);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      let p = 0;
+      for (let k = 0; k < n; k++) p += Sa[i * n + k] * Sb[k * n + j];
+      out[i * n + j] = Sa[i * n + j] + Sb[i * n + j] - p;
+    }
+  }
+  return out;
+}
+
+/** (I - S_k) delta. */
+function applyPower(Sk: readonly number[], delta: readonly number[], n: number): number[] {
+  const out = delta.slice();
+  for (let i = 0; i < n; i++) {
+    let s = 0;
+    for (let j = 0; j < n; j++) s += Sk[i * n + j] * delta[j];
+    out[i] -= s;
+  }
+  return out;
+}
+
+/** First period m from which the transient provably stays inside the slack (step 1 of the method). */
+function firstSafePeriod(
+  orbit: PeriodicOrbit,
+  delta0: readonly number[],
+  slack: number,
+  n: number,
+  c: readonly number[],
+): number {
+  const S = orbit.S;
+  // P - M^T P M = S^T P + P S - S^T P S = I, as an n^2 x n^2 linear system in P (row-major).
+  const nn = n * n;
+  const L = new Array<number>(nn * nn).fill(0);
+  for (let a = 0; a < n; a++) {
+    for (let b = 0; b < n; b++) {
+      const col = a * n + b; // P = e_a e_b^T
+      for (let i = 0; i < n; i++) {
+        for (let j = 0; j < n; j++) {
+          // (S^T E)_ij = S_ai [j = b]; (E S)_ij = [i = a] S_bj; (S^T E S)_ij = S_ai S_bj
+          let v = -S[a * n + i] * S[b * n + j];
+          if (j === b) v += S[a * n + i];
+          if (i === a) v += S[b * n + j];
+          L[(i * n + j) * nn + col] = v;
+        }
+      }
+    }
+  }
+  const rhs = new Array<number>(nn).fill(0);
+  for (let i = 0; i < n; i++) rhs[i * n + i] = 1;
+  const P = solveLinear(L, nn, rhs);
+  if (!P) return 1 << 30;
+  const pNorm = (d: readonly number[]) => {
+    let s = 0;
+    for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) s += d[i] * P[i * n + j] * d[j];
+    return Math.sqrt(Math.max(s, 0));
+  };
+  // G: max over the grid of sqrt(v^T P^{-1} v), v = Phi(t)^T c, Phi marched along the grid.
+  const Pf = luFactor(P, n);
+  let Phi = identityMatrix(n);
+  let G = dualNorm(Phi, c, Pf, n);
+  for (const ph of orbit.phases) {
+    for (const st of ph.steps) {
+      Phi = matmul(st.E, Phi, n);
+      G = Math.max(G, dualNorm(Phi, c, Pf, n));
+    }
+  }
+  G *= 1.25;
+  const safe = (delta: readonly number[]) => G * pNorm(delta) <= slack;
+  if (safe(delta0)) return 0;
+  // Doubling: find the first power of two that is safe.
+  let Sm = S.slice(); // S-form of M^m
+  let m = 1;
+  let delta = applyPower(S, delta0, n);
+  let prevM = 0;
+  let prevDelta = delta0.slice();
+  while (!safe(delta)) {
+    if (m >= 2 ** 52) return m;
+    prevM = m;
+    prevDelta = delta;
+    delta = applyPower(Sm, delta, n); // delta_2m = M^m delta_m
+    Sm = compose(Sm, Sm, n);
+    m *= 2;
+  }
+  // Bisection in (prevM, m]: prevM unsafe, m safe; the P-norm is monotone, so is `safe`.
+  let lo = prevM;
+  let loDelta = prevDelta;
+  let hi = m;
+  while (hi - lo > 1) {
+    const mid = Math.floor((lo + hi) / 2);
+    const midDelta = applyPower(powerForm(S, mid - lo, n), loDelta, n);
+    if (safe(midDelta)) hi = mid;
+    else {
+      lo = mid;
+      loDelta = midDelta;
+    }
+  }
+  return hi;
+}
+
+function dualNorm(Phi: readonly number[], c: readonly number[], Pf: ReturnType<typeof luFactor>, n: number): number {
+  const v = new Array<number>(n).fill(0);
+  for (let j = 0; j < n; j++) for (let i = 0; i < n; i++) v[j] += c[i] * Phi[i * n + j];
+  const z = luSolve(Pf, v);
+  let s = 0;
+  for (let i = 0; i < n; i++) s += v[i] * z[i];
+  return Math.sqrt(Math.max(s, 0));
+}
+
+function identityMatrix(n: number): number[] {
+  const I = new Array<number>(n * n).fill(0);
+  for (let i = 0; i < n; i++) I[i * n + i] = 1;
+  return I;
+}
+
+function matmul(a: readonly number[], b: readonly number[], n: number): number[] {
+  const out = new Array<number>(n * n).fill(0);
+  for (let i = 0; i < n; i++) for (let k = 0; k < n; k++) {
+    const v = a[i * n + k];
+    if (v === 0) continue;
+    for (let j = 0; j < n; j++) out[i * n + j] += v * b[k * n + j];
+  }
+  return out;
+}
+
+/** Largest undamped natural frequency of the Sallen-Key stages, rad/s (0 when none). */
+function fastestRinging(network: Network): number {
+  let w = 0;
+  for (const s of network.stages) if (s.kind === 'sallen-key') w = Math.max(w, 1 / Math.sqrt(s.r1 * s.r2 * s.c1 * s.c2));
+  return w;
+}
