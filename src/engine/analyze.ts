@@ -1,5 +1,6 @@
 import { ladderFromProject } from '../project/ladderFromProject.js';
 import type { Ladder } from '../circuit/ladder.js';
+import type { Network } from '../circuit/network.js';
 import type { Project } from '../project/types.js';
 // The modules themselves, not index.ts: index.ts exports analyzeProject, so importing it here would
 // make a cycle.
@@ -25,8 +26,10 @@ export type { Warning } from './plausibilityWarnings.js';
 
 /** Everything `analyze` reports about one project, SI base units throughout. */
 export interface Analysis {
-  /** The circuit that was analysed. */
-  ladder: Ladder;
+  /** The circuit that was analysed, when it is a passive ladder with one PWM output (else null). */
+  ladder: Ladder | null;
+  /** The circuit, when it has a second PWM output or an active stage (analyzeNetwork.ts); else null. */
+  network: Network | null;
   /** Periodic steady state at each requested duty (or on the default grid). */
   points: OperatingPoint[];
   worstRipple: WorstRipple;
@@ -99,6 +102,7 @@ export function analyzeProject(project: Project, options: AnalyzeOptions = {}): 
 
   return {
     ladder,
+    network: null,
     points: duties.map((d) => steadyState(ladder, d)),
     worstRipple,
     dc,

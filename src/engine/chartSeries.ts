@@ -5,6 +5,8 @@ import { dcErrorAcrossDuty } from './dcErrorAcrossDuty.js';
 import { magnitudeResponse } from './magnitudeResponse.js';
 import { settlingStepRecord } from './settlingStepRecord.js';
 import { steadyRecord } from './steadyRecord.js';
+import { ladderOf } from './ladderOf.js';
+import { networkDcErrorAcrossDuty, networkMagnitudeResponse, networkSteadyRecord } from './periodic/networkRecords.js';
 
 /** Plot columns of the analysis charts when the caller names none. */
 export const CHART_COLUMNS = 72;
@@ -30,8 +32,10 @@ export function chartSeries(
 ): ChartSeries {
   const columns = options.columns ?? CHART_COLUMNS;
   checkCount(columns, 'columns', true);
-  const { ladder } = analysis;
-  const steady = steadyRecord(ladder, analysis.worstRipple.duty, 2, Math.max(1, Math.round(columns / 2)));
+  const { ladder, network } = analysis;
+  const perPeriod = Math.max(1, Math.round(columns / 2));
+  const duty = analysis.worstRipple.duty;
+  const steady = network ? networkSteadyRecord(network, duty, 2, perPeriod) : steadyRecord(ladderOf(analysis), duty, 2, perPeriod);
   return {
     columns,
     steady: {
@@ -41,7 +45,9 @@ export function chartSeries(
       deviation: steady.wave.v.map((v) => v - steady.average),
     },
     step: settlingStepRecord(analysis),
-    magnitude: magnitudeResponse(ladder, columns, analysis.cutoff),
-    dcError: dcErrorAcrossDuty(ladder, dutyRange.min, dutyRange.max, columns),
+    magnitude: network ? networkMagnitudeResponse(network, columns, analysis.cutoff) : magnitudeResponse(ladderOf(analysis), columns, analysis.cutoff),
+    dcError: network
+      ? networkDcErrorAcrossDuty(network, dutyRange.min, dutyRange.max, columns)
+      : dcErrorAcrossDuty(ladder ?? ladderOf(analysis), dutyRange.min, dutyRange.max, columns),
   };
 }

@@ -1,10 +1,12 @@
-import type { Ladder } from '../circuit/ladder.js';
 import type { Analysis } from './analyze.js';
 import type { CompareOverlays, Overlay, Waveform } from './types.js';
 import { checkCount } from './checkArguments.js';
 import { steadyWaveform } from './steadyWaveform.js';
 import { stepRecordDuration } from './stepRecordDuration.js';
 import { stepWaveform } from './stepWaveform.js';
+import { ladderOf } from './ladderOf.js';
+import { networkIdeal } from './periodic/networkCodes.js';
+import { networkStepRecord, networkSteadyRecord } from './periodic/networkRecords.js';
 
 /** Linear interpolation of a sampled waveform at time t (held flat beyond its ends). */
 function valueAt(w: Waveform, t: number): number {
@@ -25,7 +27,15 @@ function valueAt(w: Waveform, t: number): number {
 const grid = (end: number, n: number) => Array.from({ length: n }, (_, i) => (end * i) / (n - 1));
 
 /** Output minus ideal of one side's steady state at `duty`, on the shared grid `t`. */
-function steadySide(ladder: Ladder, duty: number, t: number[], window: number, columns: number): number[] {
+function steadySide(analysis: Analysis, duty: number, t: number[], window: number, columns: number): number[] {
+  const network = analysis.network;
+  if (network) {
+    const periods = Math.max(1, Math.ceil(window / network.period - 1e-9));
+    const wave = networkSteadyRecord(network, duty, periods, Math.max(200, columns)).wave;
+    const ideal = networkIdeal(network, duty);
+    return t.map((x) => valueAt(wave, x) - ideal);
+  }
+  const ladder = ladderOf(analysis);
   const periods = Math.max(1, Math.ceil(window / ladder.period - 1e-9));
   // A multiple of (columns - 1) samples per period puts every grid instant on a sample
   // whenever the window holds a whole number of this side's periods (then nothing is interpolated).
@@ -56,19 +66,25 @@ export function compareOverlays(base: Analysis, head: Analysis, columns: number)
   const duty = head.worstRipple.duty;
   const { from, to } = head.settling;
 
-  const window = 2 * Math.max(base.ladder.period, head.ladder.period);
+  const periodOf = (a: Analysis) => (a.network ? a.network.period : ladderOf(a).period);
+  const window = 2 * Math.max(periodOf(base), periodOf(head));
   const tSteady = grid(window, columns);
   const steady: Overlay & { duty: number } = {
     duty,
     t: tSteady,
-    base: steadySide(base.ladder, duty, tSteady, window, columns),
-    head: steadySide(head.ladder, duty, tSteady, window, columns),
+    base: steadySide(base, duty, tSteady, window, columns),
+    head: steadySide(head, duty, tSteady, window, columns),
   };
 
   const duration = Math.max(stepRecordDuration(base), stepRecordDuration(head));
   const tStep = grid(duration, columns);
   // stepWaveform samples exactly the grid instants i duration / (columns - 1): nothing to interpolate.
-  const stepSide = (l: Ladder) => stepWaveform(l, from, to, duration, columns).v;
-  const step: Overlay & { from: number; to: number } = { from, to, t: tStep, base: stepSide(base.ladder), head: stepSide(head.ladder) };
+  const stepSide = (a: Analysis) => {
+    if (!a.network) return stepWaveform(ladderOf(a), from, to, duration, columns).v;
+    // The general engine samples on a per-period grid; read it at the shared instants.
+    const record = networkStepRecord(a.network, from, to, { duration, perPeriod: 16, maxSamples: 20_000, band: 0, time: null });
+    return tStep.map((x) => valueAt(record.wave, x));
+  };
+  const step: Overlay & { from: number; to: number } = { from, to, t: tStep, base: stepSide(base), head: stepSide(head) };
   return { steady, step };
 }

@@ -3,6 +3,8 @@ import type { StepRecord } from './types.js';
 import { steadyState } from './steadyState.js';
 import { stepRecordDuration } from './stepRecordDuration.js';
 import { stepWaveformOnGrid } from './stepWaveformOnGrid.js';
+import { ladderOf } from './ladderOf.js';
+import { networkStepRecord } from './periodic/networkRecords.js';
 
 /** Longest step record drawn or written, samples (keeps reports quick on very slow filters). */
 const MAX_STEP_SAMPLES = 20_000;
@@ -26,9 +28,20 @@ const STEP_SAMPLES_PER_PERIOD = 16;
  * Example: settlingStepRecord(a).wave.v.at(-1)   // close to settlingStepRecord(a).final
  */
 export function settlingStepRecord(analysis: Analysis, minSamples = 600): StepRecord {
-  const { ladder, settling } = analysis;
+  const { network, settling } = analysis;
   const duration = stepRecordDuration(analysis);
-  const perPeriod = Math.max(STEP_SAMPLES_PER_PERIOD, Math.ceil((minSamples * ladder.period) / duration));
+  const period = network ? network.period : ladderOf(analysis).period;
+  const perPeriod = Math.max(STEP_SAMPLES_PER_PERIOD, Math.ceil((minSamples * period) / duration));
+  if (network) {
+    return networkStepRecord(network, settling.from, settling.to, {
+      duration,
+      perPeriod,
+      maxSamples: MAX_STEP_SAMPLES,
+      band: settling.band,
+      time: settling.time,
+    });
+  }
+  const ladder = ladderOf(analysis);
   return {
     wave: stepWaveformOnGrid(ladder, settling.from, settling.to, duration, perPeriod, MAX_STEP_SAMPLES),
     from: settling.from,

@@ -1,4 +1,5 @@
 import type { Analysis } from './analyze.js';
+import { ladderOf } from './ladderOf.js';
 
 /**
  * Length of the record drawn or written for the settling step: 1.25 x the settling time, or, when
@@ -11,7 +12,7 @@ import type { Analysis } from './analyze.js';
  * Example: stepRecordDuration(a)   // s
  */
 export function stepRecordDuration(analysis: Analysis): number {
-  const period = analysis.ladder.period;
+  const period = analysis.network ? analysis.network.period : ladderOf(analysis).period;
   const tauSum = analysis.timeConstants.reduce((a, b) => a + b, 0);
   const base = analysis.settling.time !== null ? 1.25 * analysis.settling.time : 8 * tauSum;
   return Math.max(4 * period, base);

@@ -2,6 +2,8 @@ import type { Analysis } from './analyze.js';
 import type { WaveformRecords } from './types.js';
 import { settlingStepRecord } from './settlingStepRecord.js';
 import { steadyRecord } from './steadyRecord.js';
+import { ladderOf } from './ladderOf.js';
+import { networkSteadyRecord } from './periodic/networkRecords.js';
 
 /** Samples per period of the steady-state record written to CSV. */
 const CSV_SAMPLES_PER_PERIOD = 200;
@@ -18,7 +20,9 @@ const CSV_SAMPLES_PER_PERIOD = 200;
  */
 export function waveformRecords(analysis: Analysis): WaveformRecords {
   return {
-    steady: steadyRecord(analysis.ladder, analysis.worstRipple.duty, 2, CSV_SAMPLES_PER_PERIOD),
+    steady: analysis.network
+      ? networkSteadyRecord(analysis.network, analysis.worstRipple.duty, 2, CSV_SAMPLES_PER_PERIOD)
+      : steadyRecord(ladderOf(analysis), analysis.worstRipple.duty, 2, CSV_SAMPLES_PER_PERIOD),
     step: settlingStepRecord(analysis),
   };
 }

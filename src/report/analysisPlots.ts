@@ -16,8 +16,9 @@ export const HTML_PLOT_POINTS = 200;
  * Example: analysisPlots(a, chartSeries(a, p.pwm.duty)).length   // 5
  */
 export function analysisPlots(analysis: Analysis, series: ChartSeries): string[] {
-  const { ladder, lsb } = analysis;
-  const fullScale = ladder.high - ladder.low;
+  const { lsb } = analysis;
+  const levels = analysis.ladder ?? analysis.network!.pin;
+  const fullScale = levels.high - levels.low;
   const { steady, step, magnitude, dcError } = series;
   const plots: string[] = [];
   plots.push(

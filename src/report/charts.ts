@@ -84,7 +84,8 @@ export function reportCharts(analysis: Analysis, series: ChartSeries, options: C
   const width = options.width ?? 80;
   const height = options.height ?? 10;
   const colors = options.colors;
-  const { ladder, lsb } = analysis;
+  const { lsb } = analysis;
+  const ladder = analysis.ladder ?? analysis.network!.pin;
   const columns = series.columns;
   const charts: Chart[] = [];
 

@@ -11,7 +11,7 @@ describe('stepRecord', () => {
   const analysis = analyzeProject(loadProject('sample-configs/greenhouse-heater.yaml'));
   const record = stepRecord(analysis);
   const { t, v } = record.wave;
-  const T = analysis.ladder.period;
+  const T = analysis.ladder!.period;
 
   it('runs from the step to the end of the record on a 16-per-period grid, plus the exact end', () => {
     // Source: the record's contract (stepRecordDuration.ts rule, per-period grid).
@@ -27,7 +27,7 @@ describe('stepRecord', () => {
 
   it('is exact at its instants: the engine step response one instant at a time', () => {
     // Source: stepWaveform (uniform instants; checked in test/engine against mathjs and closed forms).
-    const { ladder } = analysis;
+    const ladder = analysis.ladder!;
     for (const i of [1, 7, 16, 500, 1234, t.length - 2, t.length - 1]) {
       const single = stepWaveform(ladder, record.from, record.to, t[i], 2).v[1];
       expect(Math.abs(single - v[i])).toBeLessThan(1e-12 * (ladder.high - ladder.low));
@@ -47,7 +47,7 @@ describe('stepRecord', () => {
     // Invented slow filter: 100 kohm + 10 uF (tau = 1 s) behind a 100 kHz PWM: ~9 s of record.
     const slow = analyzeProject(oneStageProject({ r: 100e3, c: 10e-6, frequency: 100e3 }));
     const s = stepRecord(slow);
-    const Ts = slow.ladder.period;
+    const Ts = slow.ladder!.period;
     const { t: ts, v: vs } = s.wave;
     expect(stepDuration(slow) / Ts).toBeGreaterThan(1e5);
     expect(ts.length).toBeLessThanOrEqual(20_000);
@@ -83,10 +83,10 @@ describe('stepRecord', () => {
     const a = analyzeProject(project);
     expect(a.settling.time).toBeNull();
     const s = stepRecord(a);
-    expect(stepDuration(a) / a.ladder.period).toBeGreaterThan(20_000 / 16);
+    expect(stepDuration(a) / a.ladder!.period).toBeGreaterThan(20_000 / 16);
     expect(s.wave.t.length).toBeLessThanOrEqual(20_000);
     const { lower, upper } = envelope(s.wave, 72);
-    const ripple = steadyState(a.ladder, 0.52).ripple;
+    const ripple = steadyState(a.ladder!, 0.52).ripple;
     const spread = upper[71] - lower[71];
     expect(spread).toBeGreaterThan(0.955 * ripple);
     expect(spread).toBeLessThan(ripple + 0.066 * Math.exp(-8) / 10);

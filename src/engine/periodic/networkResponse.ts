@@ -1,6 +1,7 @@
 import type { Network } from '../../circuit/network.js';
 import { solveLinear } from '../../numeric/lu.js';
 import { brentRoot } from '../../numeric/brentRoot.js';
+import { generalEigenvalues } from '../../numeric/generalEigenvalues.js';
 import { networkCache } from './phaseFlows.js';
 
 /**
@@ -59,23 +60,21 @@ export function networkMagnitude(network: Network, f: number): number {
  * frequency where |H| / |H(0)| falls to 1/sqrt(2). A response that peaks (a Sallen-Key stage with
  * Q above 0.707) first rises; the crossing counted is the first one going down.
  *
- * Method: scan of 24 points per decade from 1e-6 of the slowest rate bound up to 1e6 of the
- * fastest, then Brent's root finder on log f in the bracketing step.
+ * Method: scan of 24 points per decade from 1e-3 of the slowest pole's |lambda| / 2 pi to 1e3 n of
+ * the fastest (poles from numeric/generalEigenvalues.ts), then Brent's root finder on log f in the bracketing step.
  *
  * Syntax: networkCutoff(network)
  * Example: networkCutoff(oneRc)  // 1 / (2 pi R C) for one stage without driver or load
  */
 export function networkCutoff(network: Network): number {
   const { equations } = networkCache(network);
-  const n = equations.n;
-  const A = equations.mean.A;
-  let fast = 0;
-  for (let i = 0; i < n * n; i++) fast = Math.max(fast, Math.abs(A[i]));
+  const poles = generalEigenvalues(equations.mean.A, equations.n);
+  const rates = poles.re.map((r, i) => Math.hypot(r, poles.im[i]));
   const dc = networkMagnitude(network, 0);
   const target = dc / Math.SQRT2;
   const g = (logF: number) => networkMagnitude(network, 10 ** logF) - target;
-  const lo = Math.log10(fast / (2 * Math.PI)) - 6 - Math.log10(n * 1e6);
-  const hi = Math.log10(fast / (2 * Math.PI)) + 6;
+  const lo = Math.log10(Math.min(...rates) / (2 * Math.PI)) - 3;
+  const hi = Math.log10(Math.max(...rates) / (2 * Math.PI)) + 3 + Math.log10(equations.n);
   let prev = lo;
   let gPrev = g(prev);
   for (let x = lo + 1 / 24; x <= hi; x += 1 / 24) {

@@ -1,6 +1,7 @@
 import type { Duties, Network } from '../../circuit/network.js';
 import { luFactor, luSolve, solveLinear } from '../../numeric/lu.js';
 import { brentRoot } from '../../numeric/brentRoot.js';
+import { periodPowers, type PeriodPowers } from '../periodPowers.js';
 import { networkCache } from './phaseFlows.js';
 import { periodicOrbit, type PeriodicOrbit } from './periodicOrbit.js';
 import { advanceInPhase, periodTrajectoryPoints, type TrajectoryPoint } from './trajectory.js';
@@ -26,7 +27,7 @@ const SCAN_SAMPLES = 1024;
  *    ||.||_P is the norm of the discrete Lyapunov solution P - M^T P M = I (so ||delta_m||_P never
  *    grows) and G bounds |c Phi(t) delta| / ||delta||_P over the period's grid (times 1.25 for the
  *    points between grid points); the first safe period is found by doubling and bisection with
- *    powers of M kept in the form I - S_k (S_2k = 2 S_k - S_k^2, no cancellation).
+ *    powers of M (periodPowers.ts: I - S form while near the identity).
  * 2. Below it, periods are checked exactly (grid and turning points, trajectory.ts) on at most 1024
  *    samples, stepping by at most one period per 0.2 rad of the fastest Sallen-Key ringing, from the
  *    top down; the last violating sample is refined to a single period by bisection, and the
@@ -58,18 +59,17 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   const offset = orbitTo.yStart - avg; // e(t) = offset + w(t)
   const violates = (pts: readonly TrajectoryPoint[]) => pts.some((p) => Math.abs(offset + p.w) > band);
 
-  const S = orbitTo.S;
-  const safeFrom = firstSafePeriod(orbitTo, delta0, slack, n, c);
+  const powers = periodPowers([...orbitTo.S], n);
+  const safeFrom = firstSafePeriod(orbitTo, powers, delta0, slack, n, c);
   const ringing = fastestRinging(network);
   let step = Math.max(1, Math.ceil(safeFrom / SCAN_SAMPLES));
   if (ringing > 0) step = Math.min(step, Math.max(1, Math.floor(0.2 / (ringing * T))));
-  const powerStep = powerForm(S, step, n);
   // Sample periods 0, step, 2 step, ... below safeFrom, keeping each delta.
   const samples: Array<{ m: number; delta: number[] }> = [];
   let delta = delta0.slice();
   for (let m = 0; m < safeFrom; m += step) {
     samples.push({ m, delta });
-    delta = applyPower(powerStep, delta, n);
+    delta = powers.applyPower(step, delta);
     if (samples.length > 4 * SCAN_SAMPLES + 8) break;
   }
   let last = -1;
@@ -86,7 +86,7 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   let hi = last + 1 < samples.length ? samples[last + 1].m : safeFrom;
   while (hi - lo > 1) {
     const mid = Math.floor((lo + hi) / 2);
-    const midDelta = applyPower(powerForm(S, mid - lo, n), loDelta, n);
+    const midDelta = powers.applyPower(mid - lo, loDelta);
     if (violates(trajectory(midDelta))) {
       lo = mid;
       loDelta = midDelta;
@@ -104,58 +104,19 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   const a = pts[k];
   const b = pts[k + 1];
   const sign = offset + a.w > 0 ? 1 : -1;
-  let tau: number;
-  if (b.phase === a.phase) {
-    const ph = orbitTo.phases[a.phase];
-    const f = (dt: number) => sign * (offset + advanceInPhase(ph, orbitTo.start, a.d, dt, c, scale)) - band;
-    const span = b.tau - a.tau;
-    tau = a.t + brentRoot(f, 0, span, span * 1e-12, sign * (offset + a.w) - band, sign * (offset + b.w) - band);
-  } else {
-    tau = b.t; // a phase boundary: the output jumps in slope only, the crossing is at b
-  }
+  // Between a and b the output is monotone and inside one phase (a may be that phase's start).
+  const ph = orbitTo.phases[b.phase];
+  const aTau = b.phase === a.phase ? a.tau : 0;
+  const f = (dt: number) => sign * (offset + advanceInPhase(ph, orbitTo.start, a.d, dt, c, scale)) - band;
+  const span = b.tau - aTau;
+  const tau = a.t + brentRoot(f, 0, span, span * 1e-12, sign * (offset + a.w) - band, sign * (offset + b.w) - band);
   return { time: lo * T + tau, final: avg };
-}
-
-/** I - M^k stored as S_k; the form of M^k used to apply it without cancellation. */
-function powerForm(S: readonly number[], k: number, n: number): number[] {
-  let result: number[] | null = null;
-  let base = S.slice();
-  let e = k;
-  while (e > 0) {
-    if (e & 1) result = result ? compose(result, base, n) : base.slice();
-    e = Math.floor(e / 2);
-    if (e > 0) base = compose(base, base, n);
-  }
-  return result ?? new Array<number>(n * n).fill(0);
-}
-
-/** S of M_a M_b given S_a, S_b: I - (I - S_a)(I - S_b) = S_a + S_b - S_a S_b. */
-function compose(Sa: readonly number[], Sb: readonly number[], n: number): number[] {
-  const out = new Array<number>(n * n);
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      let p = 0;
-      for (let k = 0; k < n; k++) p += Sa[i * n + k] * Sb[k * n + j];
-      out[i * n + j] = Sa[i * n + j] + Sb[i * n + j] - p;
-    }
-  }
-  return out;
-}
-
-/** (I - S_k) delta. */
-function applyPower(Sk: readonly number[], delta: readonly number[], n: number): number[] {
-  const out = delta.slice();
-  for (let i = 0; i < n; i++) {
-    let s = 0;
-    for (let j = 0; j < n; j++) s += Sk[i * n + j] * delta[j];
-    out[i] -= s;
-  }
-  return out;
 }
 
 /** First period m from which the transient provably stays inside the slack (step 1 of the method). */
 function firstSafePeriod(
   orbit: PeriodicOrbit,
+  powers: PeriodPowers,
   delta0: readonly number[],
   slack: number,
   n: number,
@@ -202,17 +163,17 @@ function firstSafePeriod(
   const safe = (delta: readonly number[]) => G * pNorm(delta) <= slack;
   if (safe(delta0)) return 0;
   // Doubling: find the first power of two that is safe.
-  let Sm = S.slice(); // S-form of M^m
+  let j = 0;
   let m = 1;
-  let delta = applyPower(S, delta0, n);
+  let delta = powers.apply(0, [...delta0]);
   let prevM = 0;
   let prevDelta = delta0.slice();
   while (!safe(delta)) {
     if (m >= 2 ** 52) return m;
     prevM = m;
     prevDelta = delta;
-    delta = applyPower(Sm, delta, n); // delta_2m = M^m delta_m
-    Sm = compose(Sm, Sm, n);
+    delta = powers.apply(j, delta); // delta_2m = M^m delta_m
+    j++;
     m *= 2;
   }
   // Bisection in (prevM, m]: prevM unsafe, m safe; the P-norm is monotone, so is `safe`.
@@ -221,7 +182,7 @@ function firstSafePeriod(
   let hi = m;
   while (hi - lo > 1) {
     const mid = Math.floor((lo + hi) / 2);
-    const midDelta = applyPower(powerForm(S, mid - lo, n), loDelta, n);
+    const midDelta = powers.applyPower(mid - lo, loDelta);
     if (safe(midDelta)) hi = mid;
     else {
       lo = mid;
