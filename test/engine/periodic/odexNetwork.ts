@@ -110,7 +110,12 @@ export interface NetworkSettling {
   readonly periods: number;
 }
 
-/** The state layout of a network (see the file comment). */
+/**
+ * The state layout of a network (see the file comment); throws if a second output targets a
+ * stage that is not an RC stage.
+ * Syntax: networkStateLayout(network)
+ * Example: networkStateLayout(rcSallenKeyQ055).outputIndex // 2
+ */
 export function networkStateLayout(network: Network): NetworkStateLayout {
   const stageIndex: number[] = [];
   let size = 0;
@@ -136,12 +141,15 @@ const driver = (p: PwmPin, high: boolean): number => (high ? p.driverHigh : p.dr
  * The rates dy/dt (V/s) of the network's capacitor voltages with the pins in the given states
  * (time t in s, unused: each phase is time-invariant). The nodal equations are in the file comment.
  * For a `complement` second output the caller passes secondHigh = !firstHigh (pinSchedule does).
+ * Syntax: networkDerivative(network, firstHigh, secondHigh)(t, y)
+ * Example: networkDerivative(oneRc, true, false)(0, [0]) // [3.3 / ((25 + 10e3) * 10e-9)]
  */
 export function networkDerivative(network: Network, firstHigh: boolean, secondHigh: boolean): (t: number, y: number[]) => number[] {
   const layout = networkStateLayout(network);
   const { stages } = network;
   const n = stages.length;
-  const lastIsOpenNode = stages[n - 1].kind === 'rc' && !(stages[n - 1] as { buffered: boolean }).buffered;
+  const last = stages[n - 1];
+  const lastIsOpenNode = last.kind === 'rc' && !last.buffered;
   const e1 = level(network.pin, firstHigh);
   const rd1 = driver(network.pin, firstHigh);
   const second = network.second;
@@ -194,7 +202,11 @@ export function networkDerivative(network: Network, firstHigh: boolean, secondHi
   };
 }
 
-/** The output voltage of a state: the last RC node, or the Sallen-Key output (node b). */
+/**
+ * The output voltage of a state: the last RC node, or the Sallen-Key output (node b).
+ * Syntax: outputOf(network, y)
+ * Example: outputOf(rcSallenKeyQ055, [1, 0.2, 0.5]) // 0.5
+ */
 export function outputOf(network: Network, y: readonly number[]): number {
   return y[networkStateLayout(network).outputIndex];
 }
@@ -235,6 +247,8 @@ function scheduleFractions(network: Network, duties: Duties): Array<{ a: number;
  * from 0 to D T; center alignment: from (1 - D) T / 2 to (1 + D) T / 2; a complement output is the
  * inverse of the first. Equal-state neighbours are merged, zero-length intervals skipped. Without
  * a second output, secondHigh is false.
+ * Syntax: pinSchedule(network, duties)
+ * Example: pinSchedule(oneRcCenter, { first: 0.5, second: null }) // [0, T/4) low, [T/4, 3T/4) high, [3T/4, T) low
  */
 export function pinSchedule(network: Network, duties: Duties): PinInterval[] {
   const T = network.period;
