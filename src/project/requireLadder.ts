@@ -18,7 +18,7 @@ export function requireLadder(project: Project, command: string): Project {
     ? ['second_pwm', `a second PWM output (second_pwm, role ${network.second.role})`]
     : [`filter.stages[${active}].active`, 'an active stage (active: sallen-key)'];
   throw new InputError(
-    `'${command}' does not yet handle ${what}; support arrives with the engine for these circuits, and until then it refuses the file rather than compute it as a plain RC ladder`,
+    `'${command}' does not yet handle ${what}; it will with the engine for these circuits (until then the file is refused, not computed as a plain RC ladder)`,
     key,
     project.file,
   );
