@@ -20,6 +20,6 @@ export interface DesignApiOptions {
  * Example: design('sample-configs/design-tight-ripple.yaml', { top: 3 }).candidates[0].settlingTime
  */
 export function design(input: ProjectInput, options: DesignApiOptions = {}) {
-  const study = designStudy(projectOf(input), options);
+  const study = designStudy(projectOf(input, 'design', { filter: false }), options);
   return designJson(study.result, { ...(study.tradeoff && { tradeoff: study.tradeoff }), ...(study.robust && { robust: study.robust }) });
 }

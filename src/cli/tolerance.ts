@@ -51,14 +51,14 @@ export async function runTolerance(
   if (args.samples !== undefined && args.samples > MAX_SAMPLES) {
     throw new UsageError(`--samples ${args.samples}: at most ${MAX_SAMPLES} (as tolerance.samples in a project file)`);
   }
-  const [{ loadProject, requireFilter }, { toleranceStudy }, { toleranceReport }, { availableParallelism }] =
+  const [{ loadProject, requireFilter, requireLadder }, { toleranceStudy }, { toleranceReport }, { availableParallelism }] =
     await Promise.all([
       import('../project/index.js'),
       import('../tolerance/index.js'),
       import('../report/tolerance.js'),
       import('node:os'),
     ]);
-  const project = requireFilter(loadProject(args.file), 'tolerance');
+  const project = requireLadder(requireFilter(loadProject(args.file), 'tolerance'), 'tolerance');
   const bar = tty.progress?.isTTY ? progressBar(tty.progress) : undefined;
   let study;
   try {

@@ -5,6 +5,8 @@ export { ProjectError, formatIssue, type ProjectIssue } from './projectError.js'
 export { derivePwmFrequency } from './derivePwmFrequency.js';
 export { lsbOf } from './lsbOf.js';
 export { requireFilter } from './requireFilter.js';
+export { requireLadder } from './requireLadder.js';
+export { networkFromProject } from './networkFromProject.js';
 export { parseSpecLevel, type SpecLevel } from './parseSpecLevel.js';
 export type * from './types.js';
 export { positionOfKey } from './positionOfKey.js';

@@ -1,4 +1,5 @@
 import type { Stage } from '../circuit/ladder.js';
+import type { NetworkStage, PwmPin, SecondPwm } from '../circuit/network.js';
 import { formatEng, parseQuantity, QuantityError, type Dimension, type ParseQuantityOptions } from '../units/index.js';
 import { agreesAsWritten } from './agreesAsWritten.js';
 import { derivePwmFrequency } from './derivePwmFrequency.js';
@@ -8,6 +9,7 @@ import type {
   Alignment,
   LoadSettings,
   Project,
+  ProjectNetwork,
   PwmSettings,
   SearchSettings,
   SeriesName,
@@ -109,27 +111,35 @@ class Reader {
 export function normalizeProject(data: Record<string, unknown>, file: string): { project?: Project; issues: IssueDraft[] } {
   const read = new Reader(data);
   const pwm = readPwm(read);
-  const lsb = pwm && pwm.bits !== undefined ? (pwm.high - pwm.low) / 2 ** pwm.bits : undefined;
   const load = readLoad(read);
-  const stages = readStages(read);
+  const filter = readStages(read);
+  const second = readSecondPwm(read, pwm);
+  // A fine channel of b bits splits each step of pwm.bits into 2^b: one LSB is full scale over the
+  // combined code range (model.md 1.1), and spec levels in LSB are read against it.
+  const fineBits = second?.role === 'fine' && second.bits !== null ? second.bits : 0;
+  const lsb = pwm && pwm.bits !== undefined ? (pwm.high - pwm.low) / 2 ** (pwm.bits + fineBits) : undefined;
   const { spec, specInLsb } = readSpec(read, pwm, lsb);
   const search = read.has(['search']) ? readSearch(read, pwm) : undefined;
   const tolerance = read.has(['tolerance']) ? readTolerance(read, pwm) : undefined;
 
+  const stageCount = filter?.all.length ?? 0;
   const overrides = tolerance?.stages?.length ?? 0;
-  if (stages && stages.length > 0 && overrides > stages.length) {
+  if (stageCount > 0 && overrides > stageCount) {
     read.fail(
-      ['tolerance', 'stages', stages.length],
-      `the filter has ${stages.length} stage${stages.length > 1 ? 's' : ''}, so this override has no stage to apply to; remove it or add the stage`,
+      ['tolerance', 'stages', stageCount],
+      `the filter has ${stageCount} stage${stageCount > 1 ? 's' : ''}, so this override has no stage to apply to; remove it or add the stage`,
       'key',
     );
   }
-  if (read.issues.length > 0 || !pwm || !stages) return { issues: read.issues };
+  if (read.issues.length > 0 || !pwm || !filter || second === undefined) return { issues: read.issues };
+  const network: ProjectNetwork | undefined =
+    second !== null || filter.all.some((s) => s.kind !== 'rc') ? { stages: filter.all, second } : undefined;
   const project: Project = {
     file,
     pwm,
     load,
-    filter: { stages },
+    filter: { stages: filter.rc },
+    ...(network && { network }),
     spec,
     ...(search && { search }),
     ...(tolerance && { tolerance }),
@@ -146,16 +156,7 @@ function readPwm(read: Reader): PwmSettings | undefined {
     read.fail(['pwm', 'high'], `the high level (${formatEng(high, 'V')}) must be above the low level (${formatEng(low, 'V')})`);
   }
 
-  const driverRaw = read.raw(['pwm', 'driver']);
-  let driver: { high: number; low: number } | undefined = { high: 0, low: 0 };
-  if (driverRaw !== null && typeof driverRaw === 'object') {
-    const dh = read.quantity(['pwm', 'driver', 'high'], 'resistance', { sign: 'nonNegative' });
-    const dl = read.quantity(['pwm', 'driver', 'low'], 'resistance', { sign: 'nonNegative' });
-    driver = dh !== undefined && dl !== undefined ? { high: dh, low: dl } : undefined;
-  } else if (driverRaw !== undefined && driverRaw !== null) {
-    const both = read.quantity(['pwm', 'driver'], 'resistance', { sign: 'nonNegative' });
-    driver = both !== undefined ? { high: both, low: both } : undefined;
-  }
+  const driver = readDriver(read, ['pwm', 'driver'], { high: 0, low: 0 });
 
   const dutyMin = read.has(['pwm', 'duty', 'min']) ? read.quantity(['pwm', 'duty', 'min'], 'fraction') : 0;
   const dutyMax = read.has(['pwm', 'duty', 'max']) ? read.quantity(['pwm', 'duty', 'max'], 'fraction') : 1;
@@ -204,31 +205,144 @@ function readPwm(read: Reader): PwmSettings | undefined {
   };
 }
 
+/** A driver resistance: one value for both phases or {high, low}; `fallback` when absent, undefined when wrong. */
+function readDriver(read: Reader, path: Path, fallback: { high: number; low: number }): { high: number; low: number } | undefined {
+  const raw = read.raw(path);
+  if (raw !== null && typeof raw === 'object') {
+    const high = read.quantity([...path, 'high'], 'resistance', { sign: 'nonNegative' });
+    const low = read.quantity([...path, 'low'], 'resistance', { sign: 'nonNegative' });
+    return high !== undefined && low !== undefined ? { high, low } : undefined;
+  }
+  if (raw === undefined || raw === null) return { ...fallback };
+  const both = read.quantity(path, 'resistance', { sign: 'nonNegative' });
+  return both !== undefined ? { high: both, low: both } : undefined;
+}
+
 function readLoad(read: Reader): LoadSettings {
   const resistance = read.quantity(['load', 'resistance'], 'resistance', { sign: 'positive' });
   const capacitance = read.quantity(['load', 'capacitance'], 'capacitance', { sign: 'nonNegative' }) ?? 0;
   return { ...(resistance !== undefined && { resistance }), capacitance };
 }
 
-function readStages(read: Reader): Stage[] | undefined {
+const RC_KEYS = ['r', 'c'] as const;
+const SALLEN_KEY_KEYS = ['r1', 'r2', 'c1', 'c2'] as const;
+const PART_OF: Record<string, string> = {
+  r: 'series resistor of the RC stage',
+  c: 'capacitor from the node of the RC stage to ground',
+  r1: 'resistor from the previous node to the middle node',
+  r2: 'resistor from the middle node to the op-amp input',
+  c1: 'capacitor from the middle node to the op-amp output',
+  c2: 'capacitor from the op-amp input to ground',
+};
+
+/**
+ * filter.stages: `all` in file order (RC and active stages), `rc` the RC stages alone (what
+ * `Project.filter.stages` keeps, so that ladder code sees no active stage as an RC stage).
+ */
+function readStages(read: Reader): { all: NetworkStage[]; rc: Stage[] } | undefined {
   const list = read.raw(['filter', 'stages']);
   if (!Array.isArray(list)) {
     if (!read.has(['search'])) {
       read.fail(['filter'], 'missing; give filter.stages (1 to 4 RC stages), or a search section to design a filter', 'key');
       return undefined;
     }
-    return []; // design only: the search proposes the stages
+    return { all: [], rc: [] }; // design only: the search proposes the stages
   }
-  const stages: Stage[] = [];
+  const all: NetworkStage[] = [];
   let complete = true;
   list.forEach((_, i) => {
-    const r = read.quantity(['filter', 'stages', i, 'r'], 'resistance', { sign: 'positive' });
-    const c = read.quantity(['filter', 'stages', i, 'c'], 'capacitance', { sign: 'positive' });
-    const buffered = (read.raw(['filter', 'stages', i, 'buffered']) as boolean | undefined) ?? false;
+    const at = (key: string): Path => ['filter', 'stages', i, key];
+    const part = (key: string, dimension: Dimension): number | undefined => {
+      if (!read.has(at(key))) {
+        read.fail(at(key), `missing; ${PART_OF[key]}, e.g. '${dimension === 'resistance' ? '10k' : '100n'}'`, 'key');
+        return undefined;
+      }
+      return read.quantity(at(key), dimension, { sign: 'positive' });
+    };
+    const dimensionOf = (key: string): Dimension => (key.startsWith('r') ? 'resistance' : 'capacitance');
+    if (read.has(at('active'))) {
+      for (const key of RC_KEYS) {
+        if (read.has(at(key))) read.fail(at(key), `'${key}' belongs to an RC stage; an active (sallen-key) stage takes r1, r2, c1 and c2`, 'key');
+      }
+      if (read.has(at('buffered'))) {
+        read.fail(
+          at('buffered'),
+          "not allowed on an active stage: its output is already an op-amp output, which nothing after it loads; remove 'buffered'",
+          'key',
+        );
+      }
+      const [r1, r2, c1, c2] = SALLEN_KEY_KEYS.map((key) => part(key, dimensionOf(key)));
+      if (r1 === undefined || r2 === undefined || c1 === undefined || c2 === undefined) complete = false;
+      else all.push({ kind: 'sallen-key', r1, r2, c1, c2 });
+      return;
+    }
+    for (const key of SALLEN_KEY_KEYS) {
+      if (read.has(at(key))) {
+        read.fail(at(key), `'${key}' belongs to an active stage; add 'active: sallen-key', or give r and c for an RC stage`, 'key');
+        complete = false;
+      }
+    }
+    const [r, c] = RC_KEYS.map((key) => part(key, dimensionOf(key)));
+    const buffered = (read.raw(at('buffered')) as boolean | undefined) ?? false;
     if (r === undefined || c === undefined) complete = false;
-    else stages.push({ r, c, buffered });
+    else all.push({ kind: 'rc', r, c, buffered });
   });
-  return complete ? stages : undefined;
+  if (!complete) return undefined;
+  const rc = all.flatMap((s): Stage[] => (s.kind === 'rc' ? [{ r: s.r, c: s.c, buffered: s.buffered }] : []));
+  return { all, rc };
+}
+
+/**
+ * second_pwm (model.md 1.1): null when absent, undefined when wrong (issues recorded). Levels and
+ * driver default to those of pwm; `stage` becomes 0-based into the file's stages and must name an
+ * RC stage (the injection enters a node with a capacitor to ground).
+ */
+function readSecondPwm(read: Reader, pwm: PwmSettings | undefined): SecondPwm | null | undefined {
+  if (!read.has(['second_pwm'])) return null;
+  const role = read.raw(['second_pwm', 'role']) as SecondPwm['role'];
+  const bitsPath: Path = ['second_pwm', 'bits'];
+  const bits = read.has(bitsPath) ? (read.raw(bitsPath) as number) : null;
+  let valid = true;
+  const fail = (path: Path, message: string, at: 'key' | 'value' = 'value'): void => {
+    read.fail(path, message, at);
+    valid = false;
+  };
+  if (role === 'complement' && bits !== null) {
+    fail(bitsPath, "only role fine has bits of its own: a complement output is the inverted copy of pwm; remove bits, or write 'role: fine'", 'key');
+  } else if (role === 'fine' && bits === null) {
+    fail(bitsPath, 'missing; role fine needs the resolution of the fine channel (code = coarse * 2^bits + fine), e.g. 8', 'key');
+  } else if (role === 'fine' && !read.has(['pwm', 'bits'])) {
+    fail(bitsPath, 'needs pwm.bits: the code is coarse * 2^bits + fine, so the coarse resolution must be known; give pwm.bits', 'key');
+  }
+
+  const stagePath: Path = ['second_pwm', 'into', 'stage'];
+  const stage = read.raw(stagePath) as number;
+  const list = read.raw(['filter', 'stages']);
+  const stages = Array.isArray(list) ? (list as unknown[]) : [];
+  const rcNumbers = stages.flatMap((s, i) => (s !== null && typeof s === 'object' && 'active' in s ? [] : [i + 1]));
+  const choice = rcNumbers.length > 0 ? `name an RC stage (${rcNumbers.join(', ')})` : 'the filter has no RC stage to inject into';
+  if (stages.length === 0) {
+    fail(stagePath, 'needs filter.stages: the second output enters the node of an RC stage of the filter');
+  } else if (stage > stages.length) {
+    fail(stagePath, `the filter has ${stages.length} stage${stages.length > 1 ? 's' : ''}, so there is no stage ${stage}; ${choice}`);
+  } else if (!rcNumbers.includes(stage)) {
+    fail(stagePath, `stage ${stage} is an active (sallen-key) stage; the second output enters the node of an RC stage; ${choice}`);
+  }
+
+  const r = read.quantity(['second_pwm', 'into', 'r'], 'resistance', { sign: 'positive' });
+  const c = read.quantity(['second_pwm', 'into', 'c'], 'capacitance', { sign: 'positive' });
+  const high = read.has(['second_pwm', 'high']) ? read.quantity(['second_pwm', 'high'], 'voltage') : pwm?.high;
+  const low = read.has(['second_pwm', 'low']) ? read.quantity(['second_pwm', 'low'], 'voltage') : pwm?.low;
+  if (high !== undefined && low !== undefined && !(high > low)) {
+    const side = read.has(['second_pwm', 'high']) ? 'high' : 'low';
+    fail(['second_pwm', side], `the high level (${formatEng(high, 'V')}) must be above the low level (${formatEng(low, 'V')})`);
+  }
+  const driver = readDriver(read, ['second_pwm', 'driver'], pwm?.driver ?? { high: 0, low: 0 });
+
+  const partsRead = r !== undefined && (c !== undefined || !read.has(['second_pwm', 'into', 'c']));
+  if (!valid || !pwm || !partsRead || high === undefined || low === undefined || !driver) return undefined;
+  const pin: PwmPin = { high, low, driverHigh: driver.high, driverLow: driver.low };
+  return { role, bits: role === 'fine' ? bits : null, pin, stage: stage - 1, r: r as number, c: c ?? null };
 }
 
 function readSpec(

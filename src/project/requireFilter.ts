@@ -9,7 +9,8 @@ import type { Project } from './types.js';
  * Example: requireFilter(loadProject('board.yaml'), 'analyze').filter.stages.length   // >= 1
  */
 export function requireFilter(project: Project, command: string): Project {
-  if (project.filter.stages.length > 0) return project;
+  // A file whose stages are all active has no RC stage in filter.stages but still has a filter.
+  if (project.filter.stages.length > 0 || (project.network?.stages.length ?? 0) > 0) return project;
   throw new ProjectError([
     {
       file: project.file,

@@ -3,6 +3,7 @@
  * Produced by `loadProject`, consumed by the engine, design, tolerance and report layers.
  */
 import type { Stage } from '../circuit/ladder.js';
+import type { NetworkStage, SecondPwm } from '../circuit/network.js';
 
 export type Alignment = 'edge' | 'center';
 
@@ -18,7 +19,10 @@ export interface PwmSettings {
   high: number;
   low: number;
   driver: { high: number; low: number };
-  /** Used duty range, fractions 0..1. */
+  /**
+   * Used duty range, fractions 0..1; with a fine channel (`second_pwm.role: fine`), fractions of
+   * the combined code range N / 2^(bits + b) (model.md 1.1).
+   */
   duty: { min: number; max: number };
 }
 
@@ -94,17 +98,40 @@ export interface ToleranceSettings {
   yield?: number;
 }
 
+/**
+ * The circuit of a file that uses a version 1.1 element (`second_pwm`, an active stage): every
+ * stage in file order and the second PWM output (model.md, "Version 1.1 additions").
+ */
+export interface ProjectNetwork {
+  /** Every stage of filter.stages in file order; RC stages as { kind: 'rc', r, c, buffered }. */
+  readonly stages: readonly NetworkStage[];
+  /** The second PWM output; `stage` is 0-based into `stages` and names an RC stage. */
+  readonly second: SecondPwm | null;
+}
+
 /** A loaded, validated, normalized project file. */
 export interface Project {
   /** Path the project was read from (for messages). */
   file: string;
   pwm: PwmSettings;
   load: LoadSettings;
+  /**
+   * The RC stages. For a file with `network`, these are its RC stages only (its active stages are
+   * in `network.stages`), so ladder code must not run on it: see requireLadder.ts.
+   */
   filter: { stages: Stage[] };
+  /**
+   * Present exactly when the file has `second_pwm` or an active stage (commands that work on a
+   * `Ladder` refuse such a project until the engine for it arrives).
+   */
+  network?: ProjectNetwork;
   spec: Spec;
   search?: SearchSettings;
   tolerance?: ToleranceSettings;
-  /** LSB in V when bits is known: (high - low) / 2^bits. */
+  /**
+   * LSB in V when bits is known: (high - low) / 2^bits; with `second_pwm.role: fine` of b bits,
+   * (high - low) / 2^(bits + b), full scale over the combined code range (model.md 1.1).
+   */
   lsb?: number;
   /**
    * Spec limits that the file gave in LSB, as LSB counts, so that a search over the resolution can

@@ -47,9 +47,9 @@ const isQuantity = (n: Node) => types(n).includes('string') && types(n).includes
 
 describe('project schema documents every key for editors', () => {
   it('finds the keys of the design notes (the walk reaches nested and array keys)', () => {
-    // Keys named in the project-file section of the design notes (model.md).
+    // Keys named in the project-file section of the design notes (model.md, version 1 and 1.1).
     const paths = keys.map((k) => k.path);
-    for (const p of ['pwm.frequency', 'pwm.driver.high', 'pwm.duty.min', 'load.resistance', 'filter.stages[].r', 'spec.settling.band', 'search.pin_current', 'tolerance.capacitor']) {
+    for (const p of ['pwm.frequency', 'pwm.driver.high', 'pwm.duty.min', 'load.resistance', 'filter.stages[].r', 'spec.settling.band', 'search.pin_current', 'tolerance.capacitor', 'second_pwm.role', 'second_pwm.into.stage', 'second_pwm.driver.high', 'filter.stages[].active', 'filter.stages[].c2']) {
       expect(paths).toContain(p);
     }
   });
