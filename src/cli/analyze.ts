@@ -32,11 +32,11 @@ export interface CommandOutput {
 export async function runAnalyze(args: AnalyzeArgs, tty: { color: boolean; columns?: number }): Promise<CommandOutput> {
   const duties = parseDuties(args.duty);
   const width = reportWidth(args.width, { isTTY: tty.columns !== undefined, columns: tty.columns });
-  const [{ loadProject, requireFilter, requireLadder }, { analyzeProject }] = await Promise.all([
+  const [{ loadProject, requireFilter }, { analyzeProject }] = await Promise.all([
     import('../project/index.js'),
     import('../engine/index.js'),
   ]);
-  const project = requireLadder(requireFilter(loadProject(args.file), 'analyze'), 'analyze');
+  const project = requireFilter(loadProject(args.file), 'analyze');
   const analysis = analyzeProject(project, duties ? { duties } : {});
   // Chart series only for a report that draws them (JSON and --no-charts skip their cost).
   const charts =

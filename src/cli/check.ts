@@ -36,7 +36,7 @@ export async function runCheck(args: CheckArgs, tty: { color: boolean; columns?:
     throw new UsageError("check reads project files by name, not standard input ('-'); name at least one file (a check of no file does not pass)");
   }
   const width = reportWidth(args.width, { isTTY: tty.columns !== undefined, columns: tty.columns });
-  const [{ loadProject, requireFilter, requireLadder, keyPositions, ProjectError }, { analyzeProject }, { renderCheck }, { checkKey }] = await Promise.all([
+  const [{ loadProject, requireFilter, keyPositions, ProjectError }, { analyzeProject }, { renderCheck }, { checkKey }] = await Promise.all([
     import('../project/index.js'),
     import('../engine/index.js'),
     import('../report/check.js'),
@@ -52,7 +52,7 @@ export async function runCheck(args: CheckArgs, tty: { color: boolean; columns?:
         // A design-only file has no filter to hold to a spec: listed, never passing on its own.
         return { file, pass: true, checks: [], warnings: [], lsb: null, skipped: "design-only: a search and no filter; 'dacsmith design' reads it" };
       }
-      const project = requireLadder(requireFilter(loaded, 'check'), 'check');
+      const project = requireFilter(loaded, 'check');
       const analysis = analyzeProject(project);
       const pass = analysis.pass && !(strict && analysis.warnings.length > 0);
       const keys = [...analysis.checks.map((c) => checkKey(c.name)), ...analysis.warnings.map((w) => w.key)];

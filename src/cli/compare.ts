@@ -32,7 +32,7 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean; colum
   if (args.git === undefined && args.head === undefined) {
     throw new UsageError('compare needs two files (BASE HEAD), or one file and --git REF');
   }
-  const [{ loadProject, parseProject, requireFilter, requireLadder }, { analyzeProject, compareOverlays }, { compareReport, overlayColumns }] = await Promise.all([
+  const [{ loadProject, parseProject, requireFilter }, { analyzeProject, compareOverlays }, { compareReport, overlayColumns }] = await Promise.all([
     import('../project/index.js'),
     import('../engine/index.js'),
     import('../report/compare.js'),
@@ -43,7 +43,7 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean; colum
   let baseLabel: string;
   if (args.git !== undefined) {
     const { fileAtRevision, GitShowError } = await import('../project/gitShow.js');
-    head = requireLadder(requireFilter(loadProject(args.base), 'compare'), 'compare'); // first, so that a missing file is named as such
+    head = requireFilter(loadProject(args.base), 'compare'); // first, so that a missing file is named as such
     let old;
     try {
       old = fileAtRevision(args.base, args.git);
@@ -51,11 +51,11 @@ export async function runCompare(args: CompareArgs, tty: { color: boolean; colum
       if (error instanceof GitShowError) throw new UsageError(`compare --git ${args.git}: ${error.message}`);
       throw error;
     }
-    base = requireLadder(requireFilter(parseProject(old.text, old.label), 'compare'), 'compare');
+    base = requireFilter(parseProject(old.text, old.label), 'compare');
     baseLabel = old.label;
   } else {
-    base = requireLadder(requireFilter(loadProject(args.base), 'compare'), 'compare');
-    head = requireLadder(requireFilter(loadProject(args.head as string), 'compare'), 'compare');
+    base = requireFilter(loadProject(args.base), 'compare');
+    head = requireFilter(loadProject(args.head as string), 'compare');
     baseLabel = args.base;
   }
   const headLabel = args.head ?? args.base;

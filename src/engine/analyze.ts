@@ -1,4 +1,6 @@
 import { ladderFromProject } from '../project/ladderFromProject.js';
+import { networkFromProject } from '../project/networkFromProject.js';
+import { analyzeNetwork } from './analyzeNetwork.js';
 import type { Ladder } from '../circuit/ladder.js';
 import type { Network } from '../circuit/network.js';
 import type { Project } from '../project/types.js';
@@ -55,6 +57,8 @@ export interface Analysis {
   pass: boolean;
   /** Values that are legal but probably not meant (plausibilityWarnings.ts); never change `pass`. */
   warnings: Warning[];
+  /** Natural frequency (Hz) and Q of each Sallen-Key stage (0-based stage index); empty for a ladder. */
+  activeStages: Array<{ stage: number; f0: number; q: number }>;
 }
 
 export interface AnalyzeOptions {
@@ -83,13 +87,15 @@ export function defaultBand(project: Project): number {
  * Example: analyzeProject(p, { duties: [0.25, 0.5] }).worstRipple.ripple   // V peak-to-peak
  */
 export function analyzeProject(project: Project, options: AnalyzeOptions = {}): Analysis {
-  const ladder = ladderFromProject(project);
-  checkNumericalDomain(ladder, project.file);
   const { min: dMin, max: dMax } = project.pwm.duty;
   const duties = options.duties ?? dutyGrid(dMin, dMax, options.grid ?? 11);
   for (const d of duties) {
     if (!(d >= 0 && d <= 1)) throw new RangeError(`duty ${d} is outside 0..1`);
   }
+  // A second PWM output or an active stage: the general piecewise-linear engine.
+  if (project.network) return analyzeNetwork(project, networkFromProject(project), duties);
+  const ladder = ladderFromProject(project);
+  checkNumericalDomain(ladder, project.file);
 
   const { band, steps, defaultStep } = settlingSteps(project);
   const settling = defaultStep ? defaultSettling(ladder, dMin, dMax, band) : settlingTime(ladder, steps[0][0], steps[0][1], band);
@@ -120,6 +126,7 @@ export function analyzeProject(project: Project, options: AnalyzeOptions = {}): 
     checks,
     pass: checks.every((c) => c.pass),
     warnings: plausibilityWarnings(project, figures),
+    activeStages: [],
   };
 }
 

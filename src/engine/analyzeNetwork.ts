@@ -1,6 +1,7 @@
 import type { Network } from '../circuit/network.js';
+import { sallenKeyFigures } from '../circuit/sallenKeyFigures.js';
 import type { Project } from '../project/types.js';
-import type { Analysis, AnalyzeOptions } from './analyze.js';
+import type { Analysis } from './analyze.js';
 import { specChecks } from './checks.js';
 import { plausibilityWarnings } from './plausibilityWarnings.js';
 import { settlingSteps } from './settlingSteps.js';
@@ -25,10 +26,10 @@ import { networkDuties } from './periodic/networkCodes.js';
  * Duties are fractions of the code range (model.md 1.1: with a fine output, code N = fraction
  * 2^(bits + fine bits)).
  *
- * Syntax: analyzeNetwork(project, network[, options])
- * Example: analyzeNetwork(p, networkFromProject(p)).worstRipple.ripple
+ * Syntax: analyzeNetwork(project, network, fractions)
+ * Example: analyzeNetwork(p, networkFromProject(p), [0.25, 0.5]).worstRipple.ripple
  */
-export function analyzeNetwork(project: Project, network: Network, options: AnalyzeOptions = {}, duties: number[]): Analysis {
+export function analyzeNetwork(project: Project, network: Network, duties: readonly number[]): Analysis {
   checkNetworkDomain(network, project.file);
   const { min: dMin, max: dMax } = project.pwm.duty;
   const { band, steps, defaultStep } = settlingSteps(project);
@@ -41,7 +42,6 @@ export function analyzeNetwork(project: Project, network: Network, options: Anal
   const average = (f: number) => periodicOrbit(network, networkDuties(network, f), false).average;
   const levels = [network.pin.high, network.pin.low, network.second?.pin.high ?? 0, network.second?.pin.low ?? 0];
   const working = Math.max(...levels.map(Math.abs));
-  void options;
   return {
     ladder: null,
     network,
@@ -58,5 +58,6 @@ export function analyzeNetwork(project: Project, network: Network, options: Anal
     checks,
     pass: checks.every((c) => c.pass),
     warnings: plausibilityWarnings(project, { timeConstants, outputSpan: average(dMax) - average(dMin) }),
+    activeStages: network.stages.flatMap((s, stage) => (s.kind === 'sallen-key' ? [{ stage, ...sallenKeyFigures(s) }] : [])),
   };
 }

@@ -342,7 +342,7 @@ function readSecondPwm(read: Reader, pwm: PwmSettings | undefined): SecondPwm | 
   const partsRead = r !== undefined && (c !== undefined || !read.has(['second_pwm', 'into', 'c']));
   if (!valid || !pwm || !partsRead || high === undefined || low === undefined || !driver) return undefined;
   const pin: PwmPin = { high, low, driverHigh: driver.high, driverLow: driver.low };
-  return { role, bits: role === 'fine' ? bits : null, pin, stage: stage - 1, r: r as number, c: c ?? null };
+  return { role, bits: role === 'fine' ? bits : null, coarseBits: role === 'fine' ? (pwm.bits ?? null) : null, pin, stage: stage - 1, r: r as number, c: c ?? null };
 }
 
 function readSpec(

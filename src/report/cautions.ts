@@ -36,7 +36,7 @@ export function cautions(project: Project, analysis: Analysis): string[] {
   const notes: string[] = [];
   const { high, low } = project.pwm;
   const n = project.filter.stages.length;
-  const names = n === 1 ? 'C1 sees' : n === 2 ? 'C1 and C2 see' : `C1 to C${n} see`;
+  const names = project.network ? 'the filter capacitors see' : n === 1 ? 'C1 sees' : n === 2 ? 'C1 and C2 see' : `C1 to C${n} see`;
 
   const { working, factor, rating } = analysis.capacitorVoltage;
   const suggestion =
@@ -53,6 +53,15 @@ export function cautions(project: Project, analysis: Analysis): string[] {
       "manufacturer's DC-bias curve at the working voltage and enter the effective value (and tolerance.capacitor) " +
       'in the project; class-1 (C0G/NP0) or film parts keep their value.',
   );
+
+  if (analysis.activeStages.length > 0) {
+    notes.push(
+      'The Sallen-Key stage is computed with an ideal op-amp: input offset and bias current, output swing, ' +
+        'bandwidth, slew rate and output impedance are left out. Choose a unity-gain-stable op-amp whose input and ' +
+        'output ranges cover the whole output range (rail-to-rail near 0 V when the range starts there) and whose ' +
+        'gain-bandwidth is far above f0; its data sheet decides offset and settling.',
+    );
+  }
 
   if (Math.min(high, low) < 0) {
     notes.push(

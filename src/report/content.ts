@@ -22,9 +22,12 @@ function inputsSection(project: Project, analysis: Analysis): Section {
     pwm.clock !== undefined
       ? `clock ${formatEng(pwm.clock, 'Hz', 4)}, prescaler ${pwm.prescaler}, ${pwm.alignment}-aligned`
       : `${pwm.alignment}-aligned`;
+  const fineBits = project.network?.second?.role === 'fine' ? (project.network.second.bits ?? 0) : 0;
   const resolution =
     pwm.bits !== undefined && analysis.lsb !== null
-      ? `${pwm.bits} bits (${2 ** pwm.bits} steps), LSB ${formatEng(analysis.lsb, 'V', 4)}`
+      ? fineBits > 0
+        ? `${pwm.bits} + ${fineBits} bits (coarse and fine outputs, ${2 ** (pwm.bits + fineBits)} codes), LSB ${formatEng(analysis.lsb, 'V', 4)}`
+        : `${pwm.bits} bits (${2 ** pwm.bits} steps), LSB ${formatEng(analysis.lsb, 'V', 4)}`
       : 'not given (pwm.bits): errors shown in volts only';
   const loadText =
     (load.resistance !== undefined ? formatEng(load.resistance, 'Ω', 3) : 'open (no resistance)') +
@@ -40,6 +43,31 @@ function inputsSection(project: Project, analysis: Analysis): Section {
     ['Load', loadText],
     ['Time constants', analysis.timeConstants.map((t) => formatEng(t, 's', 3)).join(', ')],
   ];
+  const second = project.network?.second;
+  if (second) {
+    const path = `${formatEng(second.r, 'Ω', 3)}${second.c !== null ? ` + ${formatEng(second.c, 'F', 3)} in series` : ''}`;
+    const what = second.role === 'fine' ? `fine output, ${second.bits} bits` : 'complement of the first output (high while it is low)';
+    pairs.splice(7, 0, ['Second PWM', `${what}, into the node of stage ${second.stage + 1} through ${path}`]);
+  }
+  if (project.network) {
+    const table: Block = {
+      kind: 'table',
+      header: ['stage', 'parts', 'time scale', 'follower after'],
+      rows: project.network.stages.map((s, i) => {
+        if (s.kind === 'rc') {
+          const parts = `R ${formatEng(s.r, 'Ω', 3)} (${formatIec60062(s.r, 'resistance')}), C ${formatEng(s.c, 'F', 3)} (${formatIec60062(s.c, 'capacitance')})`;
+          return [String(i + 1), parts, `R x C ${formatEng(s.r * s.c, 's', 3)}`, s.buffered ? 'yes' : 'no'];
+        }
+        const f = analysis.activeStages.find((a) => a.stage === i);
+        const parts =
+          `Sallen-Key: r1 ${formatIec60062(s.r1, 'resistance')}, r2 ${formatIec60062(s.r2, 'resistance')}, ` +
+          `c1 ${formatIec60062(s.c1, 'capacitance')}, c2 ${formatIec60062(s.c2, 'capacitance')}`;
+        return [String(i + 1), parts, f ? `f0 ${formatEng(f.f0, 'Hz', 3)}, Q ${f.q.toFixed(3)}` : '', 'op-amp'];
+      }),
+      align: ['left', 'left', 'left', 'left'],
+    };
+    return { title: 'Inputs', blocks: [{ kind: 'pairs', pairs }, table] };
+  }
   const stages: Block = {
     kind: 'table',
     header: ['stage', 'R', 'R code', 'C', 'C code', 'R x C', 'follower after'],

@@ -1,7 +1,8 @@
 /**
- * Until the engine for version 1.1 circuits is in, every command that computes a ladder refuses a
- * file with second_pwm or an active stage: exit 2 (bad input, model.md), a message naming the
- * file, the line of the key, the key and the command, and nothing on standard output.
+ * Version 1.1 circuits (second_pwm, an active stage) on the command line: analyze, check and compare
+ * compute them with the general engine; tolerance and design do not handle them yet and refuse the
+ * file with exit 2 (bad input, model.md), a message naming the file, the line of the key, the key
+ * and the command, and nothing on standard output, rather than compute them as a plain RC ladder.
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
@@ -19,9 +20,8 @@ function lineOf(file: string, text: string): string {
   return `${line + 1}:${lines[line].indexOf(text) + 1}`;
 }
 
-describe('commands refuse version 1.1 circuits for now (exit 2)', () => {
+describe('tolerance and design refuse version 1.1 circuits for now (exit 2)', () => {
   for (const [command, extra] of [
-    ['analyze', []],
     ['design', ['--no-charts']],
     ['tolerance', ['--samples', '100', '--workers', '1']],
   ] as const) {
@@ -35,29 +35,47 @@ describe('commands refuse version 1.1 circuits for now (exit 2)', () => {
     });
   }
 
-  it('analyze and design on an active stage name filter.stages[1].active and its line', () => {
-    for (const command of ['analyze', 'design']) {
-      const r = runBuilt([command, sallenKey, '--format', 'json']);
-      expect(r.code).toBe(2);
-      expect(r.stdout).toBe('');
-      expect(r.stderr).toContain(`${sallenKey}:${lineOf(sallenKey, 'active:')}: filter.stages[1].active: '${command}' does not yet handle an active stage`);
-    }
-  });
-
-  it('compare refuses when either file is a version 1.1 circuit', () => {
-    for (const files of [[plain, fine], [fine, plain]]) {
-      const r = runBuilt(['compare', ...files]);
-      expect(r.code).toBe(2);
-      expect(r.stderr).toContain(`second_pwm: 'compare' does not yet handle a second PWM output (second_pwm, role fine)`);
-    }
-  });
-
-  it('check reports the file as bad input and still checks the others', () => {
-    const r = runBuilt(['check', plain, sallenKey, '--format', 'json']);
+  it('design on an active stage names filter.stages[1].active and its line', () => {
+    const r = runBuilt(['design', sallenKey, '--format', 'json']);
     expect(r.code).toBe(2);
-    expect(r.stderr).toContain(`filter.stages[1].active: 'check' does not yet handle an active stage`);
+    expect(r.stdout).toBe('');
+    expect(r.stderr).toContain(`${sallenKey}:${lineOf(sallenKey, 'active:')}: filter.stages[1].active: 'design' does not yet handle an active stage`);
+  });
+});
+
+describe('analyze, check and compare compute version 1.1 circuits', () => {
+  it('analyze --format json of each sample: the model.md contract, a settled step and its checks', () => {
+    for (const file of [complement, fine, sallenKey]) {
+      const r = runBuilt(['analyze', file, '--format', 'json']);
+      expect([0, 1]).toContain(r.code);
+      const j = JSON.parse(r.stdout);
+      expect(j.points.length).toBeGreaterThan(1);
+      expect(j.worstRipple.ripple).toBeGreaterThan(0);
+      expect(j.settling.time).toBeGreaterThan(0);
+      expect(j.cutoff).toBeGreaterThan(0);
+      expect(j.pass).toBe(j.checks.every((c: { pass: boolean }) => c.pass));
+      expect(r.code).toBe(j.pass ? 0 : 1);
+    }
+  });
+
+  it('the Sallen-Key report names the stage, its f0 and Q, and the ideal op-amp caution', () => {
+    const r = runBuilt(['analyze', sallenKey, '--no-charts']);
+    expect(r.stdout).toContain('Sallen-Key: r1 10k, r2 10k');
+    expect(r.stdout).toMatch(/f0 1\.45 kHz, Q 0\.548/);
+    expect(r.stdout).toContain('ideal op-amp');
+  });
+
+  it('check runs every file, plain and version 1.1 alike', () => {
+    const r = runBuilt(['check', plain, sallenKey, complement, '--format', 'json']);
+    expect([0, 1]).toContain(r.code);
     const rows = JSON.parse(r.stdout);
     const files = (Array.isArray(rows) ? rows : rows.files).map((f: { file: string }) => f.file);
-    expect(files).toEqual([plain, sallenKey]);
+    expect(files).toEqual([plain, sallenKey, complement]);
+  });
+
+  it('compare of a plain file and a version 1.1 file runs both engines', () => {
+    const r = runBuilt(['compare', plain, fine]);
+    expect([0, 1]).toContain(r.code);
+    expect(r.stderr).toBe('');
   });
 });

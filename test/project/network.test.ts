@@ -190,7 +190,7 @@ describe('normalized project', () => {
     expect(p.spec.droop).toBe(2e-3); // a limit in volts is not rescaled
     expect(p.spec.settling?.band).toBe(3.3 / 2 ** 16);
     expect(p.specInLsb).toEqual({ ripple: 0.5, band: 1 });
-    expect(p.network?.second).toMatchObject({ role: 'fine', bits: 8, stage: 0, r: 2.56e6, c: null });
+    expect(p.network?.second).toMatchObject({ role: 'fine', bits: 8, coarseBits: 8, stage: 0, r: 2.56e6, c: null });
     // duty.min/max keep meaning fractions of the code range: read as written
     expect(load(edited({}, [])).pwm.duty).toEqual({ min: 0, max: 1 });
   });
@@ -202,6 +202,7 @@ describe('normalized project', () => {
     expect(p.network?.second).toEqual({
       role: 'complement',
       bits: null,
+      coarseBits: null,
       pin: { high: 3.3, low: 0, driverHigh: 40, driverLow: 25 },
       stage: 1,
       r: 10e3,

@@ -15,7 +15,7 @@ describe('version 1.1 samples', () => {
         { kind: 'rc', r: 10e3, c: 100e-9, buffered: false },
         { kind: 'rc', r: 10e3, c: 100e-9, buffered: false },
       ],
-      second: { role: 'complement', bits: null, pin: { high: 5, low: 0, driverHigh: 35, driverLow: 25 }, stage: 0, r: 10e3, c: 1e-6 },
+      second: { role: 'complement', bits: null, coarseBits: null, pin: { high: 5, low: 0, driverHigh: 35, driverLow: 25 }, stage: 0, r: 10e3, c: 1e-6 },
     });
     expect(p.filter.stages).toHaveLength(2);
     expect(p.pwm.frequency).toBe(10e6 / 256); // clock / 2^bits, edge-aligned
@@ -25,7 +25,7 @@ describe('version 1.1 samples', () => {
   it('fine-16bit-setpoint: 8 + 8 bits, weighted in through 256 x the first resistor', () => {
     const p = sample('fine-16bit-setpoint');
     const second = p.network?.second;
-    expect(second).toEqual({ role: 'fine', bits: 8, pin: { high: 3.3, low: 0, driverHigh: 40, driverLow: 25 }, stage: 0, r: 2.56e6, c: null });
+    expect(second).toEqual({ role: 'fine', bits: 8, coarseBits: 8, pin: { high: 3.3, low: 0, driverHigh: 40, driverLow: 25 }, stage: 0, r: 2.56e6, c: null });
     expect(second!.r / (p.network!.stages[0] as { r: number }).r).toBeCloseTo(256, 12);
     expect(p.lsb).toBe(3.3 / 65536);
     expect(p.spec.ripple).toBe(3.3 / 65536); // 1 LSB of the 16-bit code

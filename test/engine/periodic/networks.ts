@@ -25,9 +25,9 @@ export function network(stages: NetworkStage[], extra: Partial<Network> = {}): N
   };
 }
 
-/** A second output (levels and drivers as `pin()` unless given). */
-export function secondPwm(role: 'fine' | 'complement', stage: number, r: number, c: number | null, bits: number | null, p: PwmPin = pin()): SecondPwm {
-  return { role, bits, pin: p, stage, r, c };
+/** A second output (levels and drivers as `pin()` unless given); a fine one after a coarse output of `coarseBits` (default: as many as the fine one). */
+export function secondPwm(role: 'fine' | 'complement', stage: number, r: number, c: number | null, bits: number | null, p: PwmPin = pin(), coarseBits: number | null = bits): SecondPwm {
+  return { role, bits, coarseBits: role === 'fine' ? coarseBits : null, pin: p, stage, r, c };
 }
 
 /** One RC stage, 10 kohm + 10 nF (tau = 100 us + driver = 2 periods). */
