@@ -156,6 +156,7 @@ export function collectCandidates(
   const keys: number[] = [];
   const minC = new Array<number>(stages).fill(C[0]);
   const idx = new Array<number>(stages).fill(0);
+  const scratch = new Array<number>(stages).fill(0);
   const total = nR ** stages;
   for (let count = 0; count < total; count++) {
     let rest = count;
@@ -163,7 +164,8 @@ export function collectCandidates(
       idx[k] = rest % nR;
       rest = Math.floor(rest / nR);
     }
-    const rs = idx.map((i) => R[i]);
+    for (let k = 0; k < stages; k++) scratch[k] = R[idx[k]];
+    const rs = scratch;
     if (limits.pinCurrent !== undefined && exceeds(span / (Math.min(pwm.driver.high, pwm.driver.low) + rs[0]), limits.pinCurrent)) continue;
     if (droopFloorApplies) {
       let series = pwm.driver.low;
@@ -173,9 +175,12 @@ export function collectCandidates(
     if (gainFloorApplies && exceeds(gainFloor(circuit, rs, problem.dutyMin, problem.dutyMax), limits.gain)) continue;
     const tb = tupleBounds(problem, rs);
     const tauFloor = Math.max(tb.tauMin, slowestTimeConstant(rs, minC, tb.driver, loadR, loadC));
-    tuples.push(rs);
+    const key = tauFloor * tb.factor - tb.slack;
+    // Beyond the threshold already: the walk below would stop before it (theta only falls in a round).
+    if (key > state.theta) continue;
+    tuples.push(rs.slice());
     bounds.push(tb);
-    keys.push(tauFloor * tb.factor - tb.slack);
+    keys.push(key);
   }
   const order = keys.map((_, i) => i).sort((a, b) => keys[a] - keys[b]);
 
