@@ -235,9 +235,28 @@ export function collectCandidates(
   };
 
   /** Steady-state figures for the cheap checks: scalar code for two stages, else the full model. */
+  // Two stages: the last point's steady states by duty (the droop grid and the INL grid share duties).
+  let liteR: number[] = [];
+  let liteC: number[] = [];
+  let liteDuty: number[] = [];
+  let liteOf: TwoStageSteady[] = [];
   const lite = (rs: number[], cs: number[], d: number): TwoStageSteady => {
     touch(rs, cs);
-    if (stages === 2) return twoStageSteady(problem.circuit, rs[0], cs[0], rs[1], cs[1], d);
+    if (stages === 2) {
+      if (!sameAs(rs, liteR) || !sameAs(cs, liteC)) {
+        liteR = rs;
+        liteC = cs.slice();
+        liteDuty = [];
+        liteOf = [];
+      }
+      for (let k = 0; k < liteDuty.length; k++) if (liteDuty[k] === d) return liteOf[k];
+      const s = twoStageSteady(problem.circuit, rs[0], cs[0], rs[1], cs[1], d);
+      if (liteDuty.length < 16) {
+        liteDuty.push(d);
+        liteOf.push(s);
+      }
+      return s;
+    }
     use(rs, cs);
     const s = steady(d);
     return { ripple: s.ripple, average: s.average, yStart: s.yStart, above: s.maxDev - s.meanOffset, below: s.meanOffset - s.minDev };
@@ -290,6 +309,10 @@ export function collectCandidates(
     // Unequal drivers: droop depends on the capacitors and may peak inside the range. Its largest
     // value on a 9-point duty grid (a lower bound: values at some duties) rules a candidate out
     // before settling; the full maximum is taken before the candidate may lower theta.
+    // INL and gain error (endpoint fit) from fast averages: only the engine checked them, so a
+    // space where they bind was verified candidate by candidate (fast/dcTransferMiss.ts). First,
+    // because its first three duties usually decide it; the droop grid then reuses its duties.
+    if (dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null) return;
     const droopError = (d: number) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - lite(rs, cs, d).average);
     const checkDroop = !lti && limits.droop !== undefined;
     if (checkDroop) {
@@ -297,9 +320,6 @@ export function collectCandidates(
         if (exceeds(droopError(problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8), limits.droop)) return;
       }
     }
-    // INL and gain error (endpoint fit) from fast averages: only the engine checked them, so a
-    // space where they bind was verified candidate by candidate (fast/dcTransferMiss.ts).
-    if (dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null) return;
     // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
     const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);
     for (const [from, to] of problem.steps) {

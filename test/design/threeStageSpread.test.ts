@@ -21,7 +21,7 @@ const ladderArb = fc.record({
   load: fc.option(fc.double({ min: 2, max: 7, noNaN: true })),
   logCL: fc.option(fc.double({ min: -12, max: -8, noNaN: true })),
 });
-const ladderOf = (x: fc.TypeOf<typeof ladderArb>) => {
+const ladderOf = (x: { logR: number[]; logC: number[]; driver: number; load: number | null; logCL: number | null }) => {
   const r = x.logR.map((v) => 10 ** v);
   const c = x.logC.map((v) => 10 ** v);
   const loadR = x.load === null ? null : 10 ** x.load;
