@@ -3,6 +3,7 @@ import { fastLadderOf, type FastLadder } from './fast/fastLadder.js';
 import { fastSettlingBound } from './fast/fastSettlingBound.js';
 import { dcTransferMiss } from './fast/dcTransferMiss.js';
 import { gainFloor } from './gainFloor.js';
+import { inlFloor, inlFloorPlan, type InlFloorPlan } from './inlFloor.js';
 import { fastSteadyState, type FastSteady } from './fast/fastSteadyState.js';
 import { maximizeOverDuty } from './fast/maximizeOverDuty.js';
 import { twoStageSteady, type TwoStageSteady } from './fast/twoStageSteady.js';
@@ -149,6 +150,18 @@ export function collectCandidates(
   // Gain floor from the resistors alone (gainFloor.ts): exact for equal drivers, a proven bound otherwise.
   const gainFloorApplies = loadR !== null && limits.gain !== undefined;
   const idealTop = Math.max(pwm.low + problem.dutyMin * (pwm.high - pwm.low), pwm.low + problem.dutyMax * (pwm.high - pwm.low));
+  // Unequal drivers with an INL limit: a floor on the INL from the resistors and the first two
+  // capacitors (inlFloor.ts), per resistor tuple; a point it rules out is one the fast INL check
+  // (fast/dcTransferMiss.ts, same duties, same allowance) rules out too, without a steady state.
+  const inlPlans = new WeakMap<number[], InlFloorPlan | null>();
+  const inlOver = (rs: number[], cs: number[]): boolean => {
+    let plan = inlPlans.get(rs);
+    if (plan === undefined) {
+      plan = inlFloorPlan(problem, rs);
+      inlPlans.set(rs, plan);
+    }
+    return plan !== null && inlFloor(plan, cs) > problem.limits.inl! * (1 + REL) + 1e-15;
+  };
 
   // Resistor tuples that pass the pin current and (time-invariant) droop limits, with bounds.
   const tuples: number[][] = [];
@@ -296,6 +309,7 @@ export function collectCandidates(
     let theta = state.theta;
     const key = state.dynamic ? '' : keyOf(rs, cs);
     if (!state.dynamic && state.seen.has(key)) return;
+    if (inlOver(rs, cs)) return;
     if (state.pareto) {
       // Several staircases (one per limit) share points: evaluate each once.
       const code = indexCode(rs, cs);
@@ -389,6 +403,8 @@ export function collectCandidates(
       const v = col.cs.slice();
       v[col.p] = C[b];
       if (!col.within(v)) break;
+      // The INL floor only grows along a column (larger capacitor): nothing further passes.
+      if (inlOver(col.rs, v)) break;
       evaluate(col.rs, v, col.tb);
     }
   };
