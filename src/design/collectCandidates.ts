@@ -154,7 +154,9 @@ export function collectCandidates(
   // capacitors (inlFloor.ts), per resistor tuple; a point it rules out is one the fast INL check
   // (fast/dcTransferMiss.ts, same duties, same allowance) rules out too, without a steady state.
   const inlPlans = new WeakMap<number[], InlFloorPlan | null>();
+  const inlApplies = limits.inl !== undefined && !lti;
   const inlOver = (rs: number[], cs: number[]): boolean => {
+    if (!inlApplies) return false;
     let plan = inlPlans.get(rs);
     if (plan === undefined) {
       plan = inlFloorPlan(problem, rs);
@@ -248,25 +250,33 @@ export function collectCandidates(
   };
 
   /** Steady-state figures for the cheap checks: scalar code for two stages, else the full model. */
-  // Two stages: the last point's steady states by duty (the droop grid and the INL grid share duties).
-  let liteR: number[] = [];
-  let liteC: number[] = [];
-  let liteDuty: number[] = [];
-  let liteOf: TwoStageSteady[] = [];
+  // Two stages with an INL limit: the last point's steady states by duty (its checks below, the
+  // INL grid, the droop grid and the settling steps, share duties). Only there: elsewhere the
+  // bookkeeping cost more than it saved (measured on sample-configs/design-wide-e24.yaml).
+  const keepSteady = inlApplies;
+  let kR0 = NaN;
+  let kR1 = NaN;
+  let kC0 = NaN;
+  let kC1 = NaN;
+  let kN = 0;
+  const kDuty = new Float64Array(16);
+  const kOf: TwoStageSteady[] = [];
   const lite = (rs: number[], cs: number[], d: number): TwoStageSteady => {
     touch(rs, cs);
     if (stages === 2) {
-      if (!sameAs(rs, liteR) || !sameAs(cs, liteC)) {
-        liteR = rs;
-        liteC = cs.slice();
-        liteDuty = [];
-        liteOf = [];
+      if (!keepSteady) return twoStageSteady(problem.circuit, rs[0], cs[0], rs[1], cs[1], d);
+      if (rs[0] !== kR0 || rs[1] !== kR1 || cs[0] !== kC0 || cs[1] !== kC1) {
+        kR0 = rs[0];
+        kR1 = rs[1];
+        kC0 = cs[0];
+        kC1 = cs[1];
+        kN = 0;
       }
-      for (let k = 0; k < liteDuty.length; k++) if (liteDuty[k] === d) return liteOf[k];
+      for (let k = 0; k < kN; k++) if (kDuty[k] === d) return kOf[k];
       const s = twoStageSteady(problem.circuit, rs[0], cs[0], rs[1], cs[1], d);
-      if (liteDuty.length < 16) {
-        liteDuty.push(d);
-        liteOf.push(s);
+      if (kN < kDuty.length) {
+        kDuty[kN] = d;
+        kOf[kN++] = s;
       }
       return s;
     }
@@ -324,16 +334,16 @@ export function collectCandidates(
     // value on a 9-point duty grid (a lower bound: values at some duties) rules a candidate out
     // before settling; the full maximum is taken before the candidate may lower theta.
     // INL and gain error (endpoint fit) from fast averages: only the engine checked them, so a
-    // space where they bind was verified candidate by candidate (fast/dcTransferMiss.ts). First,
-    // because its first three duties usually decide it; the droop grid then reuses its duties.
-    if (dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null) return;
+    // space where they bind was verified candidate by candidate (fast/dcTransferMiss.ts). Steady
+    // states are kept per duty meanwhile: the droop grid and the INL grid share duties.
     const droopError = (d: number) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - lite(rs, cs, d).average);
     const checkDroop = !lti && limits.droop !== undefined;
-    if (checkDroop) {
-      for (let i = 0; i <= 8; i++) {
-        if (exceeds(droopError(problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8), limits.droop)) return;
-      }
-    }
+    // Both rule out; the one more likely to decide first goes first: with an INL limit (unequal
+    // drivers) the INL check, middle duty first, else the droop grid.
+    let miss = inlApplies && dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null;
+    for (let i = 0; checkDroop && !miss && i <= 8; i++) miss = exceeds(droopError(problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8), limits.droop);
+    if (!inlApplies && !miss) miss = dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null;
+    if (miss) return;
     // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
     const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);
     for (const [from, to] of problem.steps) {
