@@ -84,6 +84,8 @@ async function loadDesignSearch(): Promise<DesignSearch | string> {
 const INFEASIBLE = [
   { name: '1-2 stages E12, bits 8..12, INL binds', file: join('test', 'fixtures', 'projects', 'infeasible-inl-bits.yaml') },
   { name: '1-3 stages E12, bits 8..12, ripple and settling bind', file: join('test', 'fixtures', 'projects', 'infeasible-ripple-three-stage.yaml') },
+  { name: '1-2 stages E24, bits 8..12, INL binds', file: join('test', 'fixtures', 'projects', 'infeasible-inl-e24.yaml') },
+  { name: '1-3 stages E24, bits 8..12, settling binds', file: join('test', 'fixtures', 'projects', 'slow-three-stage-e24.yaml') },
 ];
 
 /**

@@ -3,6 +3,7 @@ import { fastLadderOf, type FastLadder } from './fast/fastLadder.js';
 import { fastSettlingBound } from './fast/fastSettlingBound.js';
 import { dcTransferMiss } from './fast/dcTransferMiss.js';
 import { gainFloor } from './gainFloor.js';
+import { inlFloor, inlFloorPlan, type InlFloorPlan } from './inlFloor.js';
 import { fastSteadyState, type FastSteady } from './fast/fastSteadyState.js';
 import { maximizeOverDuty } from './fast/maximizeOverDuty.js';
 import { twoStageSteady, type TwoStageSteady } from './fast/twoStageSteady.js';
@@ -149,6 +150,20 @@ export function collectCandidates(
   // Gain floor from the resistors alone (gainFloor.ts): exact for equal drivers, a proven bound otherwise.
   const gainFloorApplies = loadR !== null && limits.gain !== undefined;
   const idealTop = Math.max(pwm.low + problem.dutyMin * (pwm.high - pwm.low), pwm.low + problem.dutyMax * (pwm.high - pwm.low));
+  // Unequal drivers with an INL limit: a floor on the INL from the resistors and the first two
+  // capacitors (inlFloor.ts), per resistor tuple; a point it rules out is one the fast INL check
+  // (fast/dcTransferMiss.ts, same duties, same allowance) rules out too, without a steady state.
+  const inlPlans = new WeakMap<number[], InlFloorPlan | null>();
+  const inlApplies = limits.inl !== undefined && !lti;
+  const inlOver = (rs: number[], cs: number[]): boolean => {
+    if (!inlApplies) return false;
+    let plan = inlPlans.get(rs);
+    if (plan === undefined) {
+      plan = inlFloorPlan(problem, rs);
+      inlPlans.set(rs, plan);
+    }
+    return plan !== null && inlFloor(plan, cs) > problem.limits.inl! * (1 + REL) + 1e-15;
+  };
 
   // Resistor tuples that pass the pin current and (time-invariant) droop limits, with bounds.
   const tuples: number[][] = [];
@@ -156,6 +171,7 @@ export function collectCandidates(
   const keys: number[] = [];
   const minC = new Array<number>(stages).fill(C[0]);
   const idx = new Array<number>(stages).fill(0);
+  const scratch = new Array<number>(stages).fill(0);
   const total = nR ** stages;
   for (let count = 0; count < total; count++) {
     let rest = count;
@@ -163,7 +179,8 @@ export function collectCandidates(
       idx[k] = rest % nR;
       rest = Math.floor(rest / nR);
     }
-    const rs = idx.map((i) => R[i]);
+    for (let k = 0; k < stages; k++) scratch[k] = R[idx[k]];
+    const rs = scratch;
     if (limits.pinCurrent !== undefined && exceeds(span / (Math.min(pwm.driver.high, pwm.driver.low) + rs[0]), limits.pinCurrent)) continue;
     if (droopFloorApplies) {
       let series = pwm.driver.low;
@@ -173,9 +190,12 @@ export function collectCandidates(
     if (gainFloorApplies && exceeds(gainFloor(circuit, rs, problem.dutyMin, problem.dutyMax), limits.gain)) continue;
     const tb = tupleBounds(problem, rs);
     const tauFloor = Math.max(tb.tauMin, slowestTimeConstant(rs, minC, tb.driver, loadR, loadC));
-    tuples.push(rs);
+    const key = tauFloor * tb.factor - tb.slack;
+    // Beyond the threshold already: the walk below would stop before it (theta only falls in a round).
+    if (key > state.theta) continue;
+    tuples.push(rs.slice());
     bounds.push(tb);
-    keys.push(tauFloor * tb.factor - tb.slack);
+    keys.push(key);
   }
   const order = keys.map((_, i) => i).sort((a, b) => keys[a] - keys[b]);
 
@@ -230,9 +250,36 @@ export function collectCandidates(
   };
 
   /** Steady-state figures for the cheap checks: scalar code for two stages, else the full model. */
+  // Two stages with an INL limit: the last point's steady states by duty (its checks below, the
+  // INL grid, the droop grid and the settling steps, share duties). Only there: elsewhere the
+  // bookkeeping cost more than it saved (measured on sample-configs/design-wide-e24.yaml).
+  const keepSteady = inlApplies;
+  let kR0 = NaN;
+  let kR1 = NaN;
+  let kC0 = NaN;
+  let kC1 = NaN;
+  let kN = 0;
+  const kDuty = new Float64Array(16);
+  const kOf: TwoStageSteady[] = [];
   const lite = (rs: number[], cs: number[], d: number): TwoStageSteady => {
     touch(rs, cs);
-    if (stages === 2) return twoStageSteady(problem.circuit, rs[0], cs[0], rs[1], cs[1], d);
+    if (stages === 2) {
+      if (!keepSteady) return twoStageSteady(problem.circuit, rs[0], cs[0], rs[1], cs[1], d);
+      if (rs[0] !== kR0 || rs[1] !== kR1 || cs[0] !== kC0 || cs[1] !== kC1) {
+        kR0 = rs[0];
+        kR1 = rs[1];
+        kC0 = cs[0];
+        kC1 = cs[1];
+        kN = 0;
+      }
+      for (let k = 0; k < kN; k++) if (kDuty[k] === d) return kOf[k];
+      const s = twoStageSteady(problem.circuit, rs[0], cs[0], rs[1], cs[1], d);
+      if (kN < kDuty.length) {
+        kDuty[kN] = d;
+        kOf[kN++] = s;
+      }
+      return s;
+    }
     use(rs, cs);
     const s = steady(d);
     return { ripple: s.ripple, average: s.average, yStart: s.yStart, above: s.maxDev - s.meanOffset, below: s.meanOffset - s.minDev };
@@ -272,6 +319,7 @@ export function collectCandidates(
     let theta = state.theta;
     const key = state.dynamic ? '' : keyOf(rs, cs);
     if (!state.dynamic && state.seen.has(key)) return;
+    if (inlOver(rs, cs)) return;
     if (state.pareto) {
       // Several staircases (one per limit) share points: evaluate each once.
       const code = indexCode(rs, cs);
@@ -285,16 +333,17 @@ export function collectCandidates(
     // Unequal drivers: droop depends on the capacitors and may peak inside the range. Its largest
     // value on a 9-point duty grid (a lower bound: values at some duties) rules a candidate out
     // before settling; the full maximum is taken before the candidate may lower theta.
+    // INL and gain error (endpoint fit) from fast averages: only the engine checked them, so a
+    // space where they bind was verified candidate by candidate (fast/dcTransferMiss.ts). Steady
+    // states are kept per duty meanwhile: the droop grid and the INL grid share duties.
     const droopError = (d: number) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - lite(rs, cs, d).average);
     const checkDroop = !lti && limits.droop !== undefined;
-    if (checkDroop) {
-      for (let i = 0; i <= 8; i++) {
-        if (exceeds(droopError(problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8), limits.droop)) return;
-      }
-    }
-    // INL and gain error (endpoint fit) from fast averages: only the engine checked them, so a
-    // space where they bind was verified candidate by candidate (fast/dcTransferMiss.ts).
-    if (dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null) return;
+    // Both rule out; the one more likely to decide first goes first: with an INL limit (unequal
+    // drivers) the INL check, middle duty first, else the droop grid.
+    let miss = inlApplies && dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null;
+    for (let i = 0; checkDroop && !miss && i <= 8; i++) miss = exceeds(droopError(problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8), limits.droop);
+    if (!inlApplies && !miss) miss = dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null;
+    if (miss) return;
     // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
     const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);
     for (const [from, to] of problem.steps) {
@@ -364,6 +413,8 @@ export function collectCandidates(
       const v = col.cs.slice();
       v[col.p] = C[b];
       if (!col.within(v)) break;
+      // The INL floor only grows along a column (larger capacitor): nothing further passes.
+      if (inlOver(col.rs, v)) break;
       evaluate(col.rs, v, col.tb);
     }
   };

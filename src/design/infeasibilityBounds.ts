@@ -1,6 +1,8 @@
 import { formatEng } from '../units/index.js';
 import type { DesignProblem } from './designProblem.js';
 import { settlingLogFactor, transferCap } from './settlingBounds.js';
+import { threeStageTauMin } from './threeStageSpread.js';
+import { threeStageSpreadFloor } from './threeStageSpreadFloor.js';
 import type { ProvenMiss } from './types.js';
 
 export type { ProvenMiss } from './types.js';
@@ -47,8 +49,11 @@ export interface SpaceBounds {
  * - Settling (equal drivers): as tupleBounds (settlingBounds.ts), settling >= tau_slow
  *   ln((g step - P_to - P_from) / (band + P_to)) and prod(1 + w^2 tau_i^2) >= (g / h*)^2, h* the
  *   |H(j w)| the ripple limit (and settling at all: ripple <= 2 band at the target) allows;
- *   with every tau_i <= tau_slow, tau_slow >= sqrt((g / h*)^(2/n) - 1) / w. Both grow with g,
- *   so g(seriesMax) gives a bound for every design.
+ *   with every tau_i <= tau_slow, tau_slow >= sqrt((g / h*)^(2/n) - 1) / w. Three stages: the
+ *   poles of a ladder stay apart, (sum tau)^3 >= 27 kappa_3 prod tau (threeStageSpread.ts), and
+ *   tau_slow >= threeStageTauMin(gamma, kappa), which grows with kappa, taken at the smallest
+ *   kappa_3 of any admissible resistor choice (threeStageSpreadFloor.ts). Both grow with g, so
+ *   g(seriesMax) gives a bound for every design.
  * With unequal driver resistances the circuit is not time-invariant and only the pin-current and
  * droop bounds are claimed.
  *
@@ -145,7 +150,13 @@ export function infeasibilityBounds(problem: DesignProblem, stages: number): { m
     }
     // Settling floor of the smallest slowest time constant the ripple limit allows.
     const gamma = (g / transferCap(problem, limits)) ** 2;
-    const tauSlow = gamma > 1 ? Math.sqrt(gamma ** (1 / stages) - 1) / omega : 0;
+    let tauSlow = gamma > 1 ? Math.sqrt(gamma ** (1 / stages) - 1) / omega : 0;
+    if (stages === 3 && gamma > 1) {
+      // The three poles cannot coincide (threeStageSpread.ts): the least spread any admissible
+      // resistor choice allows, and tauMin grows with the spread.
+      const kappa = threeStageSpreadFloor(rValues, Number.isFinite(r1Min) ? r1Min : rMax, dLow, loadR, S);
+      if (Number.isFinite(kappa)) tauSlow = Math.max(tauSlow, threeStageTauMin(gamma, kappa, omega));
+    }
     settlingFloor = tauSlow * settlingLogFactor(problem, limits, g);
     if (limits.settlingTime !== undefined && over(settlingFloor, limits.settlingTime)) {
       misses.push({

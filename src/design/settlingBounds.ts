@@ -1,4 +1,5 @@
 import type { DesignProblem } from './designProblem.js';
+import { threeStageSpread, threeStageTauMin } from './threeStageSpread.js';
 
 /**
  * The pieces of the search's lower bounds on the settling time of one resistor choice
@@ -89,7 +90,8 @@ export function settlingLogFactor(problem: DesignProblem, limits: DesignProblem[
  * stages: with tau_a >= tau_b, tau_a + tau_b = trace(G^-1 C) >= 2 sqrt(kappa tau_a tau_b),
  * kappa = (G^-1)_11 (G^-1)_22 / det(G^-1), so tau_b <= tau_a / phi^2 with phi = sqrt(kappa) +
  * sqrt(kappa - 1), and (1 + u)(1 + u / phi^4) >= Gamma with u = w^2 tau_a^2. Three stages:
- * (1 + u)^3 >= Gamma.
+ * (1 + u)^3 >= Gamma, and for equal drivers the sharper (1 + u)^2 (1 + u p*^2) >= Gamma, p* from
+ * the ladder's pole spread (threeStageSpread.ts).
  *
  * Syntax: tupleBounds(problem, r)
  * Example: tupleBounds(problem, [4700, 47e3]).tauMin   // s
@@ -125,6 +127,8 @@ export function tupleBounds(problem: DesignProblem, r: ArrayLike<number>): Tuple
       u = (2 * (gamma - 1)) / (1 + q + Math.sqrt((1 + q) ** 2 + 4 * q * (gamma - 1)));
     } else u = Math.cbrt(gamma) - 1;
     tauMin = Math.sqrt(u) / omega;
+    // Three stages, time-invariant: the ladder keeps its poles apart (threeStageSpread.ts).
+    if (n === 3 && lti) tauMin = Math.max(tauMin, threeStageTauMin(gamma, threeStageSpread(r, driver, load.resistance ?? null), omega));
   }
   if (!lti) tauMin *= 0.8;
   return { driver, factor, slack: lti ? 0 : 2 * period, tauMin };

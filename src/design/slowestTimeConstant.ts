@@ -6,7 +6,8 @@ import { symmetricEigen } from '../numeric/symmetricEigen.js';
  *
  * Method: tau_max = 1 / lambda_min of S = C^(-1/2) G C^(-1/2) (nodal conductance matrix G,
  * capacitances C); closed form for one and two stages (lambda_min = det / lambda_max, the
- * determinant written without cancellation), cyclic Jacobi beyond (numeric/symmetricEigen.ts).
+ * determinant written without cancellation), the largest root of the time constants' cubic for
+ * three (slowestOfThree below), cyclic Jacobi beyond (numeric/symmetricEigen.ts).
  * By the Rayleigh quotient tau_max = max_v (v^T C v) / (v^T G v), it never falls when any C or
  * any R grows (common practice; Courant-Fischer, Golub & Van Loan, Theorem 8.1.2), which the search
  * relies on for its windows.
@@ -37,6 +38,7 @@ export function slowestTimeConstant(
     const lambdaMax = 0.5 * (a + d) + Math.sqrt(half * half + b2);
     return lambdaMax / det;
   }
+  if (n === 3) return slowestOfThree(g1, 1 / r[1], 1 / r[2], gL, c[0], c[1], c[2] + loadCapacitance);
   const g = new Float64Array(n);
   const cap = new Float64Array(n);
   for (let k = 0; k < n; k++) {
@@ -53,4 +55,38 @@ export function slowestTimeConstant(
     }
   }
   return 1 / symmetricEigen(s, n).values[0];
+}
+
+/**
+ * Slowest time constant of a three-node ladder: conductances g1 (pin to node 1, driver included),
+ * g2 (1-2), g3 (2-3), gL (node 3 to ground), node capacitances c1..c3.
+ *
+ * Method: the time constants are the roots of tau^3 - b1 tau^2 + b2 tau - b3 with b1 = E2 / E3,
+ * b2 = E1 / E3, b3 = 1 / E3, where E1, E2, E3 are the sums of the 1x1, 2x2 and 3x3 principal
+ * minors of C^-1 G, each written as a sum of positive terms (spanning forests of the ladder, so no
+ * cancellation): E3 = (g1 g2 g3 + g1 g2 gL + g1 g3 gL + g2 g3 gL) / (c1 c2 c3). The roots are real
+ * and positive, the largest at most b1 (their sum), and the cubic is convex and rising to the
+ * right of its largest root, so Newton's method from b1 falls to it monotonically (a few steps;
+ * Acton, Numerical Methods That Work, chapter 7, from memory; common practice).
+ */
+function slowestOfThree(g1: number, g2: number, g3: number, gL: number, c1: number, c2: number, c3: number): number {
+  const a1 = (g1 + g2) / c1;
+  const a2 = (g2 + g3) / c2;
+  const a3 = (g3 + gL) / c3;
+  const e1 = a1 + a2 + a3;
+  const e2 = (g1 * g2 + g1 * g3 + g2 * g3) / (c1 * c2) + ((g1 + g2) * (g3 + gL)) / (c1 * c3) + (g2 * g3 + g2 * gL + g3 * gL) / (c2 * c3);
+  const e3 = (g1 * g2 * g3 + gL * (g1 * g2 + g1 * g3 + g2 * g3)) / (c1 * c2 * c3);
+  const b1 = e2 / e3;
+  const b2 = e1 / e3;
+  const b3 = 1 / e3;
+  let t = b1;
+  for (let i = 0; i < 200; i++) {
+    const q = ((t - b1) * t + b2) * t - b3;
+    const slope = (3 * t - 2 * b1) * t + b2;
+    if (!(q > 0 && slope > 0)) break;
+    const step = q / slope;
+    t -= step;
+    if (step <= 1e-15 * t) break;
+  }
+  return t;
 }
