@@ -1,7 +1,7 @@
 import type { Network } from '../circuit/network.js';
 import { sallenKeyFigures } from '../circuit/sallenKeyFigures.js';
 import type { Project } from '../project/types.js';
-import type { Analysis } from './analyze.js';
+import type { Analysis } from './analysisTypes.js';
 import { specChecks } from './checks.js';
 import { plausibilityWarnings } from './plausibilityWarnings.js';
 import { settlingSteps } from './settlingSteps.js';
