@@ -8,7 +8,8 @@
  * Usage: npx tsx scripts/circuit-table.ts
  */
 import type { Network, NetworkStage, SecondPwm } from '../src/circuit/network.js';
-import { networkDefaultSettling, networkWorstRipple } from '../src/engine/periodic/networkFigures.js';
+import { slowerSettling } from '../src/engine/defaultSettling.js';
+import { networkSettling, networkWorstRipple } from '../src/engine/periodic/networkFigures.js';
 
 const CLOCK = 20e6;
 const BITS = 12;
@@ -100,7 +101,7 @@ export function circuitRow(t: Topology): CircuitRow {
     pwmFrequency: 1 / period,
     scale: k,
     worstRipple: ripple(k),
-    settling: networkDefaultSettling(net, 0.05, 0.95, 0.5 * LSB).time,
+    settling: slowerSettling(networkSettling(net, 0.05, 0.95, 0.5 * LSB), networkSettling(net, 0.95, 0.05, 0.5 * LSB)).time,
     parts: t.parts(k),
   };
 }

@@ -8,7 +8,7 @@ import type { DcTransfer, OperatingPoint, Settling, WorstRipple } from './types.
 export interface Analysis {
   /** The circuit that was analysed, when it is a passive ladder with one PWM output (else null). */
   ladder: Ladder | null;
-  /** The circuit, when it has a second PWM output or an active stage (analyzeNetwork.ts); else null. */
+  /** The circuit, when it has a second PWM output or an active stage (circuitEngine.ts); else null. */
   network: Network | null;
   /** Periodic steady state at each requested duty (or on the default grid). */
   points: OperatingPoint[];

@@ -1,25 +1,10 @@
-import { ladderFromProject } from '../project/ladderFromProject.js';
-import { networkFromProject } from '../project/networkFromProject.js';
-import { analyzeNetwork } from './analyzeNetwork.js';
-import type { Ladder } from '../circuit/ladder.js';
-import type { Network } from '../circuit/network.js';
 import type { Project } from '../project/types.js';
 // The modules themselves, not index.ts: index.ts exports analyzeProject, so importing it here would
 // make a cycle.
-import { checkNumericalDomain } from './numericalDomain.js';
-import { cutoff as cutoffFrequency } from './cutoff.js';
-import { dcTransfer } from './dcTransfer.js';
-import { defaultSettling } from './defaultSettling.js';
-import { magnitude } from './magnitude.js';
-import { pinPeakCurrent as pinPeak } from './pinPeakCurrent.js';
-import { settlingTime } from './settlingTime.js';
-import { steadyState } from './steadyState.js';
-import { worstRipple as findWorstRipple } from './worstRipple.js';
-import { specChecks, type Check } from './checks.js';
+import { circuitEngineOf } from './circuitEngine.js';
+import { specChecks } from './checks.js';
 import { settlingSteps } from './settlingSteps.js';
-import { plausibilityWarnings, type Warning } from './plausibilityWarnings.js';
-import { warningFigures } from './warningFigures.js';
-import { capacitorWorkingVoltage } from './capacitorWorkingVoltage.js';
+import { plausibilityWarnings } from './plausibilityWarnings.js';
 import { CAPACITOR_DERATING, suggestedCapacitorRating } from './suggestedCapacitorRating.js';
 import type { Analysis, AnalyzeOptions } from './analysisTypes.js';
 
@@ -37,8 +22,9 @@ export function defaultBand(project: Project): number {
  * Analyse a project: operating points, worst ripple, DC transfer, settling, cutoff, attenuation at
  * the PWM frequency, pin current, time constants, the spec checks and the plausibility warnings.
  *
- * Method: every figure comes from the exact engine (src/engine); this function only chooses the
- * duties and the settling step and compares the results with the spec (see checks.ts).
+ * Method: every figure comes from the exact engine for the project's circuit (circuitEngine.ts: the
+ * ladder engine, or src/engine/periodic for a second PWM output or an active stage); this function
+ * only chooses the duties and the settling step and compares the results with the spec (see checks.ts).
  * Settling step: `spec.settling.from`/`to` when given (a missing end defaults to that end of the used
  * duty range), else the slower of the full-range rising and falling steps. Band: `spec.settling.band`,
  * else 0.5 LSB when `pwm.bits` is known, else 0.1 % of full scale.
@@ -52,41 +38,33 @@ export function analyzeProject(project: Project, options: AnalyzeOptions = {}): 
   for (const d of duties) {
     if (!(d >= 0 && d <= 1)) throw new RangeError(`duty ${d} is outside 0..1`);
   }
-  // A second PWM output or an active stage: the general piecewise-linear engine.
-  if (project.network) return analyzeNetwork(project, networkFromProject(project), duties);
-  const ladder = ladderFromProject(project);
-  checkNumericalDomain(ladder, project.file);
-
+  const engine = circuitEngineOf(project);
   const { band, steps, defaultStep } = settlingSteps(project);
-  const settling = defaultStep ? defaultSettling(ladder, dMin, dMax, band) : settlingTime(ladder, steps[0][0], steps[0][1], band);
-
-  const worstRipple = findWorstRipple(ladder, dMin, dMax);
-  const dc = dcTransfer(ladder, dMin, dMax);
-  const peak = pinPeak(ladder);
+  const settling = defaultStep ? engine.defaultSettling(dMin, dMax, band) : engine.settling(steps[0][0], steps[0][1], band);
+  const worstRipple = engine.worstRipple(dMin, dMax);
+  const dc = engine.dcTransfer(dMin, dMax);
+  const peak = engine.pinPeakCurrent();
   const checks = specChecks(project, { worstRipple, dc, settling, pinPeakCurrent: peak });
-  const figures = warningFigures(ladder, dMin, dMax);
+  const figures = engine.warningFigures(dMin, dMax);
+  const working = engine.workingVoltage();
 
   return {
-    ladder,
-    network: null,
-    points: duties.map((d) => steadyState(ladder, d)),
+    ladder: engine.ladder,
+    network: engine.network,
+    points: duties.map((d) => engine.point(d)),
     worstRipple,
     dc,
     settling,
-    cutoff: cutoffFrequency(ladder),
-    attenuation: -20 * Math.log10(magnitude(ladder, 1 / ladder.period)),
+    cutoff: engine.cutoff(),
+    attenuation: engine.attenuation(),
     pinPeakCurrent: peak,
-    capacitorVoltage: {
-      working: capacitorWorkingVoltage(ladder),
-      factor: CAPACITOR_DERATING,
-      rating: suggestedCapacitorRating(capacitorWorkingVoltage(ladder)),
-    },
+    capacitorVoltage: { working, factor: CAPACITOR_DERATING, rating: suggestedCapacitorRating(working) },
     timeConstants: figures.timeConstants,
     lsb: project.lsb ?? null,
     checks,
     pass: checks.every((c) => c.pass),
     warnings: plausibilityWarnings(project, figures),
-    activeStages: [],
+    activeStages: engine.activeStages(),
   };
 }
 

@@ -3,7 +3,7 @@ import type { DcTransfer } from './types.js';
 import { averageOutput } from './averageOutput.js';
 import { averageOutputByExpm } from './averageOutputByExpm.js';
 import { checkRange } from './checkArguments.js';
-import { maximizeOnInterval } from '../numeric/maximizeOnInterval.js';
+import { endpointFit } from './endpointFit.js';
 import { prepare } from './prepare.js';
 import type { SteadyMethod } from './steadyState.js';
 
@@ -19,9 +19,7 @@ import type { SteadyMethod } from './steadyState.js';
  * With a single duty (dutyMin = dutyMax) the fit takes the ideal slope.
  *
  * Method: exact averages (averageOutput.ts; with method 'expm' always by matrix exponentials,
- * averageOutputByExpm.ts). With unequal high and low driver resistances average(D)
- * is not affine, so the extremes are searched: 16-cell grid plus Brent refinement
- * (maximizeOnInterval.ts). Endpoint-fit terms as DAC data sheets define them (common practice).
+ * averageOutputByExpm.ts), errors and their search by endpointFit.ts.
  *
  * Syntax: dcTransfer(ladder, dutyMin, dutyMax[, method])
  * Example: dcTransfer(loadedLadder, 0.05, 0.95).droop  // { duty: 0.95, error: 0.03 }
@@ -30,21 +28,6 @@ export function dcTransfer(ladder: Ladder, dutyMin: number, dutyMax: number, met
   checkRange(dutyMin, dutyMax);
   const p = prepare(ladder);
   const span = ladder.high - ladder.low;
-  const ideal = (d: number) => ladder.low + d * span;
   const average = method === 'expm' ? (d: number) => averageOutputByExpm(p, d) : (d: number) => averageOutput(ladder, p, d);
-  const error = (d: number) => ideal(d) - average(d);
-
-  const droopAt = maximizeOnInterval((d) => Math.abs(error(d)), dutyMin, dutyMax).x;
-  const yMin = average(dutyMin);
-  const yMax = average(dutyMax);
-  const slope = dutyMax > dutyMin ? (yMax - yMin) / (dutyMax - dutyMin) : span;
-  const fit = (d: number) => yMin + slope * (d - dutyMin);
-  const deviation = (d: number) => fit(d) - average(d);
-  const inlAt = maximizeOnInterval((d) => Math.abs(deviation(d)), dutyMin, dutyMax).x;
-  return {
-    droop: { duty: droopAt, error: error(droopAt) },
-    offsetError: ideal(0) - fit(0),
-    gainError: span - slope,
-    inl: { duty: inlAt, error: deviation(inlAt) },
-  };
+  return endpointFit({ average, ideal: (d) => ladder.low + d * span, quantize: (d) => d, span, low: ladder.low }, dutyMin, dutyMax);
 }

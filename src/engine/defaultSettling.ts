@@ -14,8 +14,16 @@ import { settlingTime } from './settlingTime.js';
  */
 export function defaultSettling(ladder: Ladder, dutyMin: number, dutyMax: number, band: number): Settling {
   checkRange(dutyMin, dutyMax);
-  const rising = settlingTime(ladder, dutyMin, dutyMax, band);
-  const falling = settlingTime(ladder, dutyMax, dutyMin, band);
+  return slowerSettling(settlingTime(ladder, dutyMin, dutyMax, band), settlingTime(ladder, dutyMax, dutyMin, band));
+}
+
+/**
+ * The slower of two settling results; one that never settles (time null) is the slowest.
+ *
+ * Syntax: slowerSettling(rising, falling)
+ * Example: slowerSettling({ ...s, time: 1e-3 }, { ...s, time: null }).time  // null
+ */
+export function slowerSettling(rising: Settling, falling: Settling): Settling {
   if (rising.time === null) return rising;
   if (falling.time === null) return falling;
   return falling.time > rising.time ? falling : rising;

@@ -34,7 +34,7 @@ export interface Flow {
  * Syntax: flow(A, n, t[, withIntegral, scale])
  * Example: flow([-1], 1, 1e-12).K  // [1e-12 * (1 - 5e-13)], to full precision
  */
-export function flow(A: Matrix, n: number, t: number, withIntegral = true, scale?: readonly number[]): Flow {
+export function flow(A: readonly number[], n: number, t: number, withIntegral = true, scale?: readonly number[]): Flow {
   const blocks = withIntegral ? 3 : 2;
   const m = blocks * n;
   if (t === 0) {

@@ -44,7 +44,7 @@ export function identity(n: number): Matrix {
  * Syntax: matmul(a, b, n[, out])
  * Example: matmul(identity(2), m, 2)  // a copy of m
  */
-export function matmul(a: Matrix, b: Matrix, n: number, out: Matrix = zeros(n * n)): Matrix {
+export function matmul(a: readonly number[], b: readonly number[], n: number, out: Matrix = zeros(n * n)): Matrix {
   for (let i = 0; i < n; i++) {
     const row = i * n;
     for (let j = 0; j < n; j++) out[row + j] = 0;
@@ -64,7 +64,7 @@ export function matmul(a: Matrix, b: Matrix, n: number, out: Matrix = zeros(n * 
  * Syntax: matvec(a, x, n[, out])
  * Example: matvec(identity(2), [1, 2], 2)  // [1, 2]
  */
-export function matvec(a: Matrix, x: Vector, n: number, out: Vector = zeros(n)): Vector {
+export function matvec(a: readonly number[], x: readonly number[], n: number, out: Vector = zeros(n)): Vector {
   for (let i = 0; i < n; i++) {
     let s = 0;
     const row = i * n;
@@ -117,7 +117,7 @@ export function spectralMatrix(u: Matrix, d: ArrayLike<number>, n: number): Matr
  * Syntax: rowDot(a, i, x, n)
  * Example: rowDot(identity(2), 1, [3, 4], 2)  // 4
  */
-export function rowDot(a: Matrix, i: number, x: Vector, n: number): number {
+export function rowDot(a: readonly number[], i: number, x: readonly number[], n: number): number {
   let s = 0;
   const row = i * n;
   for (let k = 0; k < n; k++) s += a[row + k] * x[k];
@@ -171,4 +171,16 @@ export function vectorNormInf(x: Vector): number {
     if (v > best) best = v;
   }
   return best;
+}
+
+/**
+ * Inner product a . b of two vectors of equal length.
+ *
+ * Syntax: dot(a, b)
+ * Example: dot([1, 2], [3, 4])  // 11
+ */
+export function dot(a: readonly number[], b: readonly number[]): number {
+  let s = 0;
+  for (let i = 0; i < a.length; i++) s += a[i] * b[i];
+  return s;
 }

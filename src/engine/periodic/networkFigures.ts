@@ -1,5 +1,6 @@
 import type { Network } from '../../circuit/network.js';
 import { maximizeOnInterval } from '../../numeric/maximizeOnInterval.js';
+import { endpointFit } from '../endpointFit.js';
 import type { DcTransfer, OperatingPoint, Settling, WorstRipple } from '../types.js';
 import { codeParts, networkDuties, networkIdeal, quantizedFraction } from './networkCodes.js';
 import { periodicOrbit } from './periodicOrbit.js';
@@ -79,8 +80,8 @@ export function networkWorstRipple(network: Network, min: number, max: number): 
  * DC transfer errors over the used range, with the definitions and signs of dcTransfer.ts (ideal
  * minus actual; endpoint fit through the averages at the range ends).
  *
- * Method: exact averages (periodicOrbit.ts without extrema). Without a fine output the largest
- * errors are searched over the duty (16-cell grid and Brent). With a fine output the average is
+ * Method: exact averages (periodicOrbit.ts without extrema), errors by endpointFit.ts. Without a
+ * fine output the largest errors are searched over the duty. With a fine output the average is
  * affine in each duty when the drivers are equal and close to it otherwise, so the extremes sit at
  * the ends of a coarse code's fine range: every coarse code at fine codes 0, half and full.
  *
@@ -88,23 +89,9 @@ export function networkWorstRipple(network: Network, min: number, max: number): 
  * Example: networkDcTransfer(n, 0.05, 0.95).droop.error  // V
  */
 export function networkDcTransfer(network: Network, min: number, max: number): DcTransfer {
-  const span = network.pin.high - network.pin.low;
-  const average = (f: number) => periodicOrbit(network, networkDuties(network, f), false).average;
-  const error = (f: number) => networkIdeal(network, f) - average(f);
-  const qMin = quantizedFraction(network, min);
-  const qMax = quantizedFraction(network, max);
-  const yMin = average(min);
-  const yMax = average(max);
-  const slope = qMax > qMin ? (yMax - yMin) / (qMax - qMin) : span;
-  const fit = (f: number) => yMin + slope * (quantizedFraction(network, f) - qMin);
-  const deviation = (f: number) => fit(f) - average(f);
-  let droopAt: number;
-  let inlAt: number;
   const second = network.second;
-  if (second?.role !== 'fine') {
-    droopAt = maximizeOnInterval((d) => Math.abs(error(d)), min, max).x;
-    inlAt = maximizeOnInterval((d) => Math.abs(deviation(d)), min, max).x;
-  } else {
+  let candidates: number[] | undefined;
+  if (second?.role === 'fine') {
     const b = second.bits!;
     const total = 2 ** (b + second.coarseBits!);
     const lo = codeParts(network, min).code;
@@ -113,31 +100,20 @@ export function networkDcTransfer(network: Network, min: number, max: number): D
     for (let coarse = Math.floor(lo / 2 ** b); coarse * 2 ** b <= hi; coarse++) {
       for (const p of FINE_PROBES) codes.add(Math.min(Math.max(coarse * 2 ** b + Math.round(p * (2 ** b - 1)), lo), hi));
     }
-    droopAt = qMin;
-    inlAt = qMin;
-    let droopBest = -1;
-    let inlBest = -1;
-    for (const code of codes) {
-      const f = code / total;
-      const y = average(f);
-      const e = Math.abs(networkIdeal(network, f) - y);
-      const dev = Math.abs(fit(f) - y);
-      if (e > droopBest) {
-        droopBest = e;
-        droopAt = f;
-      }
-      if (dev > inlBest) {
-        inlBest = dev;
-        inlAt = f;
-      }
-    }
+    candidates = [...codes].map((code) => code / total);
   }
-  return {
-    droop: { duty: droopAt, error: error(droopAt) },
-    offsetError: network.pin.low - (yMin - slope * qMin),
-    gainError: span - slope,
-    inl: { duty: inlAt, error: deviation(inlAt) },
-  };
+  return endpointFit(
+    {
+      average: (f) => periodicOrbit(network, networkDuties(network, f), false).average,
+      ideal: (f) => networkIdeal(network, f),
+      quantize: (f) => quantizedFraction(network, f),
+      span: network.pin.high - network.pin.low,
+      low: network.pin.low,
+      candidates,
+    },
+    min,
+    max,
+  );
 }
 
 /**
@@ -149,19 +125,6 @@ export function networkDcTransfer(network: Network, min: number, max: number): D
 export function networkSettling(network: Network, from: number, to: number, band: number): Settling {
   const r = periodicSettling(network, networkDuties(network, from), networkDuties(network, to), band);
   return { from: quantizedFraction(network, from), to: quantizedFraction(network, to), band, time: r.time };
-}
-
-/**
- * The slower of the full-range rising and falling steps (never settling is the slowest).
- *
- * Syntax: networkDefaultSettling(network, min, max, band)
- */
-export function networkDefaultSettling(network: Network, min: number, max: number, band: number): Settling {
-  const rising = networkSettling(network, min, max, band);
-  const falling = networkSettling(network, max, min, band);
-  if (rising.time === null) return rising;
-  if (falling.time === null) return falling;
-  return falling.time > rising.time ? falling : rising;
 }
 
 /**

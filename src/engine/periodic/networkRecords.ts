@@ -1,4 +1,5 @@
-import type { Duties, Network } from '../../circuit/network.js';
+import type { Network } from '../../circuit/network.js';
+import { identity, matmul } from '../../numeric/dense.js';
 import { checkCount } from '../checkArguments.js';
 import { periodPowers } from '../periodPowers.js';
 import { flow } from '../flow.js';
@@ -19,14 +20,14 @@ function inPeriod(network: Network, orbit: PeriodicOrbit, taus: readonly number[
   const y: number[] = [];
   const rows: number[][] = [];
   let x = orbit.start.slice();
-  let Phi = identity(n);
+  let Phi: number[] = identity(n);
   let t0 = 0;
   let i = 0;
   orbit.phases.forEach((ph, p) => {
     const last = p === orbit.phases.length - 1;
     while (i < taus.length && (taus[i] < t0 + ph.duration || last)) {
       const local = Math.min(Math.max(taus[i] - t0, 0), ph.duration);
-      const f = flow([...ph.A], n, local, false, equations.scale);
+      const f = flow(ph.A, n, local, false, equations.scale);
       let v = 0;
       const row = new Array<number>(n).fill(0);
       for (let a = 0; a < n; a++) {
@@ -147,21 +148,4 @@ export function networkDcErrorAcrossDuty(network: Network, min: number, max: num
   checkCount(points, 'points', true);
   const duty = Array.from({ length: points }, (_, i) => (points === 1 ? min : min + ((max - min) * i) / (points - 1)));
   return { duty, error: duty.map((d) => networkIdeal(network, d) - periodicOrbit(network, networkDuties(network, d), false).average) };
-}
-
-/** The duties behind a fraction (re-exported for callers that hold only fractions). */
-export function dutiesAt(network: Network, fraction: number): Duties {
-  return networkDuties(network, fraction);
-}
-
-function identity(n: number): number[] {
-  const I = new Array<number>(n * n).fill(0);
-  for (let i = 0; i < n; i++) I[i * n + i] = 1;
-  return I;
-}
-
-function matmul(a: readonly number[], b: readonly number[], n: number): number[] {
-  const out = new Array<number>(n * n).fill(0);
-  for (let i = 0; i < n; i++) for (let k = 0; k < n; k++) for (let j = 0; j < n; j++) out[i * n + j] += a[i * n + k] * b[k * n + j];
-  return out;
 }

@@ -1,8 +1,8 @@
 import type { Network } from '../../circuit/network.js';
-import { solveLinear } from '../../numeric/lu.js';
 import { brentRoot } from '../../numeric/brentRoot.js';
 import { generalEigenvalues } from '../../numeric/generalEigenvalues.js';
 import { networkCache } from './phaseFlows.js';
+import { transferMagnitude } from '../transferMagnitude.js';
 
 /**
  * The small-signal input of a network: per volt of the PWM signal, the first output drives its
@@ -20,39 +20,14 @@ function smallSignalInput(network: Network): number[] {
  * |H(j 2 pi f)|: the magnitude of the small-signal transfer from the PWM signal to the output,
  * H(s) = c (sI - A)^{-1} b with the drivers at the mean of high and low (model.md, cutoff).
  *
- * Method: the complex solve (j w I - A)(u + j v) = b written as the real 2n x 2n system
- * [[-A, -w I], [w I, -A]] [u; v] = [b; 0] and solved by the one LU (numeric/lu.ts).
+ * Method: transferMagnitude.ts (the real 2n x 2n form of the complex solve, by the one LU).
  *
  * Syntax: networkMagnitude(network, f)
  * Example: networkMagnitude(n, 0)  // DC gain of the small-signal path
  */
 export function networkMagnitude(network: Network, f: number): number {
   const { equations } = networkCache(network);
-  const n = equations.n;
-  const A = equations.mean.A;
-  const b = smallSignalInput(network);
-  const c = equations.output;
-  const w = 2 * Math.PI * f;
-  const m = 2 * n;
-  const M = new Array<number>(m * m).fill(0);
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      M[i * m + j] = -A[i * n + j];
-      M[(n + i) * m + n + j] = -A[i * n + j];
-    }
-    M[i * m + n + i] = -w;
-    M[(n + i) * m + i] = w;
-  }
-  const rhs = [...b, ...new Array<number>(n).fill(0)];
-  const x = solveLinear(M, m, rhs);
-  if (!x) return Infinity;
-  let re = 0;
-  let im = 0;
-  for (let i = 0; i < n; i++) {
-    re += c[i] * x[i];
-    im += c[i] * x[n + i];
-  }
-  return Math.hypot(re, im);
+  return transferMagnitude(equations.mean.A, smallSignalInput(network), equations.output, equations.n, 2 * Math.PI * f);
 }
 
 /**

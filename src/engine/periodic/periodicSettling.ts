@@ -1,4 +1,5 @@
 import type { Duties, Network } from '../../circuit/network.js';
+import { identity, matmul } from '../../numeric/dense.js';
 import { luFactor, luSolve, solveLinear } from '../../numeric/lu.js';
 import { brentRoot } from '../../numeric/brentRoot.js';
 import { periodPowers, type PeriodPowers } from '../periodPowers.js';
@@ -151,7 +152,7 @@ function firstSafePeriod(
   };
   // G: max over the grid of sqrt(v^T P^{-1} v), v = Phi(t)^T c, Phi marched along the grid.
   const Pf = luFactor(P, n);
-  let Phi = identityMatrix(n);
+  let Phi = identity(n);
   let G = dualNorm(Phi, c, Pf, n);
   for (const ph of orbit.phases) {
     for (const st of ph.steps) {
@@ -199,22 +200,6 @@ function dualNorm(Phi: readonly number[], c: readonly number[], Pf: ReturnType<t
   let s = 0;
   for (let i = 0; i < n; i++) s += v[i] * z[i];
   return Math.sqrt(Math.max(s, 0));
-}
-
-function identityMatrix(n: number): number[] {
-  const I = new Array<number>(n * n).fill(0);
-  for (let i = 0; i < n; i++) I[i * n + i] = 1;
-  return I;
-}
-
-function matmul(a: readonly number[], b: readonly number[], n: number): number[] {
-  const out = new Array<number>(n * n).fill(0);
-  for (let i = 0; i < n; i++) for (let k = 0; k < n; k++) {
-    const v = a[i * n + k];
-    if (v === 0) continue;
-    for (let j = 0; j < n; j++) out[i * n + j] += v * b[k * n + j];
-  }
-  return out;
 }
 
 /** Largest undamped natural frequency of the Sallen-Key stages, rad/s (0 when none). */

@@ -66,7 +66,7 @@ export function phaseFlows(network: Network, key: PinStateKey, duration: number)
   const xStar = solveLinear(A, n, b.map((v) => -v));
   if (!xStar) throw new RangeError('phaseFlows: the circuit has no DC state (singular state matrix)');
   const scale = eq.scale;
-  const full = flow([...A], n, duration, true, scale);
+  const full = flow(A, n, duration, true, scale);
   const rate = normInf(scaled(A, n, scale), n);
   const cells = Math.min(64, Math.max(4, Math.ceil(duration * rate)));
   const h = duration / cells;
@@ -74,12 +74,12 @@ export function phaseFlows(network: Network, key: PinStateKey, duration: number)
   const fine = h * rate > 1 ? Math.min(60, Math.ceil(Math.log2(h * rate))) : 0;
   if (fine > 0) {
     const geometric: Flow[] = [];
-    for (let j = fine; j >= 1; j--) geometric.push(flow([...A], n, h * 2 ** -j, false, scale));
+    for (let j = fine; j >= 1; j--) geometric.push(flow(A, n, h * 2 ** -j, false, scale));
     steps.push(geometric[0], ...geometric);
-    const cell = flow([...A], n, h, false, scale);
+    const cell = flow(A, n, h, false, scale);
     for (let i = 1; i < cells; i++) steps.push(cell);
   } else {
-    const cell = flow([...A], n, h, false, scale);
+    const cell = flow(A, n, h, false, scale);
     for (let i = 0; i < cells; i++) steps.push(cell);
   }
   const outputRate = new Array<number>(n).fill(0);

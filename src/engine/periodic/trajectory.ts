@@ -1,4 +1,5 @@
 import { brentRoot } from '../../numeric/brentRoot.js';
+import { dot, rowDot } from '../../numeric/dense.js';
 import { flow } from '../flow.js';
 import type { PhaseFlows } from './phaseFlows.js';
 
@@ -47,7 +48,7 @@ export function periodTrajectoryPoints(
     let rate = -dot(ph.outputRate, sub(target, d));
     for (const step of ph.steps) {
       const g = sub(target, d);
-      const next = d.map((v, i) => v + rowDotK(step.K, i, g, n));
+      const next = d.map((v, i) => v + rowDot(step.K, i, g, n));
       const nextRate = -dot(ph.outputRate, sub(target, next));
       if (rate * nextRate < 0) {
         const turning = refineTurning(ph, g, d, rate, nextRate, step.t, scale, n);
@@ -79,9 +80,9 @@ export function advanceInPhase(
 ): number {
   const n = ref.length;
   const g = ph.xStar.map((v, i) => v - ref[i] - d[i]);
-  const f = flow([...ph.A], n, delta, false, scale);
+  const f = flow(ph.A, n, delta, false, scale);
   let w = 0;
-  for (let i = 0; i < n; i++) w += output[i] * (d[i] + rowDotK(f.K, i, g, n));
+  for (let i = 0; i < n; i++) w += output[i] * (d[i] + rowDot(f.K, i, g, n));
   return w;
 }
 
@@ -97,26 +98,14 @@ function refineTurning(
 ): { delta: number; d: number[] } {
   // Rate at delta: -(c^T A) E(delta) g, since x* - x(delta) = E(delta) g.
   const rateAt = (delta: number) => {
-    const f = flow([...ph.A], n, delta, false, scale);
+    const f = flow(ph.A, n, delta, false, scale);
     let s = 0;
-    for (let i = 0; i < n; i++) s -= ph.outputRate[i] * rowDotK(f.E, i, g, n);
+    for (let i = 0; i < n; i++) s -= ph.outputRate[i] * rowDot(f.E, i, g, n);
     return s;
   };
   const delta = brentRoot(rateAt, 0, h, h * 1e-13, rateA, rateB);
-  const f = flow([...ph.A], n, delta, false, scale);
-  return { delta, d: d.map((v, i) => v + rowDotK(f.K, i, g, n)) };
-}
-
-function rowDotK(M: readonly number[], i: number, x: readonly number[], n: number): number {
-  let s = 0;
-  for (let j = 0; j < n; j++) s += M[i * n + j] * x[j];
-  return s;
-}
-
-function dot(a: readonly number[], b: readonly number[]): number {
-  let s = 0;
-  for (let i = 0; i < a.length; i++) s += a[i] * b[i];
-  return s;
+  const f = flow(ph.A, n, delta, false, scale);
+  return { delta, d: d.map((v, i) => v + rowDot(f.K, i, g, n)) };
 }
 
 function sub(a: readonly number[], b: readonly number[]): number[] {
