@@ -253,7 +253,7 @@ export function collectCandidates(
   // Two stages with an INL limit: the last point's steady states by duty (its checks below, the
   // INL grid, the droop grid and the settling steps, share duties). Only there: elsewhere the
   // bookkeeping cost more than it saved (measured on sample-configs/design-wide-e24.yaml).
-  const keepSteady = inlApplies;
+  const keepSteady = inlApplies || state.pareto !== undefined;
   let kR0 = NaN;
   let kR1 = NaN;
   let kC0 = NaN;
@@ -290,16 +290,28 @@ export function collectCandidates(
   // Pareto mode: the staircases of one tuple ask about the same points; remember each point's
   // ripple near 50 % (NaN: its ripple at a target duty rules settling out).
   const nearMemo = new Map<number, number>();
+  // Pareto mode: points whose target-duty ripple has been checked (NaN in nearMemo if it failed).
+  const toChecked = new Set<number>();
   const rippleOk = (rs: number[], cs: number[]): boolean => {
     if (state.pareto) {
       const code = indexCode(rs, cs);
       let near = nearMemo.get(code);
       if (near === undefined) {
         near = lite(rs, cs, dNear).ripple;
-        if (checkTo) for (const d of toDuties) if (exceeds(lite(rs, cs, d).ripple, 2 * problem.band)) near = Number.NaN;
         nearMemo.set(code, near);
       }
-      return !Number.isNaN(near) && !exceeds(near, rippleLimit);
+      if (Number.isNaN(near) || exceeds(near, rippleLimit)) return false;
+      // The target duties' ripple only once the ripple near 50 % passes (the looser limits share it).
+      if (checkTo && !toChecked.has(code)) {
+        toChecked.add(code);
+        for (const d of toDuties) {
+          if (exceeds(lite(rs, cs, d).ripple, 2 * problem.band)) {
+            nearMemo.set(code, Number.NaN);
+            return false;
+          }
+        }
+      }
+      return true;
     }
     if (rippleLimit !== undefined && exceeds(lite(rs, cs, dNear).ripple, rippleLimit)) return false;
     if (checkTo) for (const d of toDuties) if (exceeds(lite(rs, cs, d).ripple, 2 * problem.band)) return false;
@@ -314,6 +326,10 @@ export function collectCandidates(
     state.cut = true;
     return true;
   };
+  // Droop grid index (0..8) where the last candidate missed its droop limit.
+  let droopMissAt = 8;
+  // Index into problem.steps of the step whose settling bound was largest for the last candidate.
+  let slowStep = 0;
   const evaluate = (rs: number[], cs: number[], tb: TupleBounds): void => {
     if (overBudget()) return;
     let theta = state.theta;
@@ -338,10 +354,14 @@ export function collectCandidates(
     // states are kept per duty meanwhile: the droop grid and the INL grid share duties.
     const droopError = (d: number) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - lite(rs, cs, d).average);
     const checkDroop = !lti && limits.droop !== undefined;
-    // Both rule out; the one more likely to decide first goes first: with an INL limit (unequal
-    // drivers) the INL check, middle duty first, else the droop grid.
+    // Every check below only rules out, so their order changes the cost, never the answer: the one
+    // more likely to decide first goes first. With an INL limit (unequal drivers) the INL check,
+    // middle duty first; then the droop grid's duty where the last candidate missed (neighbours in
+    // the walk miss alike); the rest of the droop grid (eight more steady states) only after the
+    // settling bounds, which rule out most of the points that pass that one duty.
+    const gridDuty = (i: number) => problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8;
     let miss = inlApplies && dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null;
-    for (let i = 0; checkDroop && !miss && i <= 8; i++) miss = exceeds(droopError(problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8), limits.droop);
+    if (checkDroop && !miss) miss = exceeds(droopError(gridDuty(droopMissAt)), limits.droop);
     if (!inlApplies && !miss) miss = dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null;
     if (miss) return;
     // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
@@ -355,12 +375,23 @@ export function collectCandidates(
     }
     const model = use(rs, cs);
     let lb = 0;
-    for (const [from, to] of problem.steps) {
-      lb = Math.max(lb, fastSettlingBound(model, from, to, problem.band, steady(from), steady(to)));
-      if (lb === Infinity) return;
+    // The step that was slower for the last candidate first: its bound alone often rules the point out.
+    for (let j = 0; j < problem.steps.length; j++) {
+      const [from, to] = problem.steps[j === 0 ? slowStep : j <= slowStep ? j - 1 : j];
+      // Only whether the bound passes theta matters for a point that cannot enter (early stop).
+      const t = fastSettlingBound(model, from, to, problem.band, steady(from), steady(to), theta);
+      if (t > lb) {
+        lb = t;
+        if (j > 0) slowStep = j <= slowStep ? j - 1 : j;
+      }
+      if (lb === Infinity || exceeds(lb, limits.settlingTime) || lb > theta) return;
     }
-    if (exceeds(lb, limits.settlingTime)) return;
-    if (lb > theta) return;
+    for (let i = 0; checkDroop && i <= 8; i++) {
+      if (i !== droopMissAt && exceeds(droopError(gridDuty(i)), limits.droop)) {
+        droopMissAt = i;
+        return;
+      }
+    }
     let totalC = 0;
     for (const c of cs) totalC += c;
     const entry: FastEntry = { r: [...rs], c: [...cs], lb, totalC };
@@ -427,6 +458,7 @@ export function collectCandidates(
     // loose limit's long columns stop at its own best, not at the tightest limit's.
     const columns: Column[] = [];
     nearMemo.clear();
+    toChecked.clear();
     pareto.limits.forEach((limit, i) => {
       rippleLimit = limit;
       columns.push(...walkUnder(rs, tb, (cs) => bound(cs) <= Math.min(state.theta, pareto.best[i] * (1 + REL) + ABS_T)));

@@ -24,7 +24,11 @@ const MAX_PERIODS = 2 ** 52;
  * per phase; its band crossings come from numeric/expSumRoots.ts. The last violating period is found by
  * galloping from the slowest mode's estimate, then bisection.
  *
- * Syntax: fastSettlingBound(model, from, to, band[, steadyFrom, steadyTo])
+ * With a finite `ceiling` (s) the bound may stop early: when the first period starting after the
+ * ceiling still holds a violation, that violation's instant is returned (above the ceiling, still
+ * a verified violation, so still a lower bound), for callers that only compare the bound with it.
+ *
+ * Syntax: fastSettlingBound(model, from, to, band[, steadyFrom, steadyTo, ceiling])
  * Example: fastSettlingBound(fastLadder(ladder), 0.1, 0.9, 1.6e-3)   // s (a lower bound)
  */
 export function fastSettlingBound(
@@ -34,6 +38,7 @@ export function fastSettlingBound(
   band: number,
   steadyFrom: FastSteady = fastSteadyState(model, from),
   steadyTo: FastSteady = fastSteadyState(model, to),
+  ceiling = Infinity,
 ): number {
   const { n, period } = model;
   const plan = steadyTo;
@@ -96,6 +101,15 @@ export function fastSettlingBound(
     return e;
   };
   const leaves = (k: number) => lastViolation(stateAt(k)) >= 0;
+
+  // A caller that only asks whether the bound passes `ceiling`: a violation in the first period
+  // that starts after it answers yes (and is itself a valid, verified lower bound).
+  const kCeiling = Math.floor(ceiling / period) + 1;
+  if (kCeiling < MAX_PERIODS) {
+    const e = stateAt(kCeiling);
+    const t = lastViolation(e);
+    if (t >= 0) return kCeiling * period + t;
+  }
 
   // Estimate from the slowest mode (largest beta = smallest nu = index 0).
   const slowOut = (g[last * n] * z[0]) / model.sqrtC[last];

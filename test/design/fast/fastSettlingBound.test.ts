@@ -51,6 +51,24 @@ describe('fastSettlingBound', () => {
       const dt = l.period / samples;
       expect(got).toBeGreaterThanOrEqual(after.t[last] - 1e-3 * dt);
       expect(got).toBeLessThanOrEqual(after.t[last] + dt * 1.001);
+
+      // With a ceiling the bound may stop early, but it answers "above the ceiling?" as the full
+      // bound does, stays a violation instant of the simulation (at most the last one), and is the
+      // full bound itself when that lies under the ceiling.
+      for (const fraction of [0.1, 0.5, 0.9, 0.99, 1.01, 2]) {
+        const ceiling = got * fraction;
+        const capped = fastSettlingBound(fastLadder(l), from, to, band, undefined, undefined, ceiling);
+        expect(capped > ceiling).toBe(got > ceiling);
+        expect(capped).toBeLessThanOrEqual(after.t[last] + dt * 1.001);
+        if (got <= ceiling) expect(capped).toBe(got);
+        else {
+          // the simulation's samples around that instant leave the band (to the sample spacing)
+          const i = after.t.findIndex((t) => t >= capped);
+          const nearby = [i - 1, i].filter((k) => k >= 0 && k < after.v.length);
+          const worst = Math.max(...nearby.map((k) => Math.abs(after.v[k] - average)));
+          expect(worst).toBeGreaterThan(band * 0.999);
+        }
+      }
     });
   }
 
