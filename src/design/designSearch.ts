@@ -10,6 +10,7 @@ import { rankCandidates } from './rankCandidates.js';
 import { recheck } from './recheck.js';
 import { bestDesigns } from './bestDesigns.js';
 import type { ProblemOutcome } from './solveProblem.js';
+import type { Admit } from './cornerScreen.js';
 import type { Candidate, DesignOptions, DesignResult, ResolutionRow } from './types.js';
 
 /**
@@ -26,11 +27,15 @@ import type { Candidate, DesignOptions, DesignResult, ResolutionRow } from './ty
  * engine verification in bound order, proof of optimality by threshold); when nothing is
  * feasible, explainInfeasible.ts says which limit binds and which designs come closest.
  *
- * Syntax: designSearch(project[, { top, stageCounts, onProgress, compare, diagnose }])
+ * With `admit` only candidates it admits are verified and ranked (checked before the engine runs;
+ * the ranking and its proof then hold among admitted designs): `design --robust worst-case`
+ * screens with the tolerance box's corners (cornerScreen.ts).
+ *
+ * Syntax: designSearch(project[, { top, stageCounts, onProgress, compare, diagnose, admit }])
  * Example: designSearch(loadProject('sample-configs/design-tight-ripple.yaml')).candidates[0]
  *          // { stages: [{ r, c }, { r, c }], settlingTime, worstRipple, droop, pass: true, ... }
  */
-export function designSearch(project: Project, options: DesignOptions = {}): DesignResult {
+export function designSearch(project: Project, options: DesignSearchOptions = {}): DesignResult {
   const started = performance.now();
   const top = options.top ?? 10;
   if (!Number.isInteger(top) || top < 1) throw new DesignInputError(`top must be a whole number >= 1, got ${top}`);
@@ -50,7 +55,7 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
     bestDesigns(problem, top, stageCounts, (f, d) => {
       if (d?.best != null && (best === null || d.best < best)) best = d.best;
       options.onProgress?.((i + f) / problems.length, { phase: 'search', stages: d?.stages, bits: problem.bits, frequency: problem.frequency, best });
-    }, options.deadline !== undefined ? { deadline: options.deadline } : {}),
+    }, { ...(options.deadline !== undefined && { deadline: options.deadline }), ...(options.admit && { admit: options.admit }) }),
   );
   const complete = outcomes.every((o) => o.complete);
   const candidates = rankCandidates(outcomes.flatMap((o) => o.feasible)).slice(0, top);
@@ -111,6 +116,11 @@ export function designSearch(project: Project, options: DesignOptions = {}): Des
       lsb: base.lsb,
     },
   };
+}
+
+/** DesignOptions and a screen of the candidates (cornerScreen.ts). */
+export interface DesignSearchOptions extends DesignOptions {
+  admit?: Admit;
 }
 
 /** The best designs that meet every limit when the margin is 0 (checked with the real margin: keepsMargin false). */

@@ -3,9 +3,10 @@ import type { Ladder } from '../circuit/ladder.js';
 import type { Project, ToleranceSettings } from '../project/types.js';
 import type { RobustCheck, RobustChecks, RobustVerdict } from '../engine/index.js';
 import { DesignInputError } from './designInputError.js';
-import { designSearch } from './designSearch.js';
+import { cornerScreen } from './cornerScreen.js';
+import { designSearch, type DesignSearchOptions } from './designSearch.js';
 import { projectAtResolution } from './projectAtResolution.js';
-import type { Candidate, DesignOptions, DesignResult } from './types.js';
+import type { Candidate, DesignResult } from './types.js';
 
 export type RobustMode = 'worst-case' | 'yield';
 export type { RobustCheck, RobustChecks, RobustVerdict, WorstCaseFigures, YieldFigures } from '../engine/index.js';
@@ -13,7 +14,7 @@ export type { RobustCheck, RobustChecks, RobustVerdict, WorstCaseFigures, YieldF
 export interface RobustCandidate {
   /** The design with its nominal (exact engine) figures. */
   candidate: Candidate;
-  /** 1-based place in the nominal ranking. */
+  /** 1-based place in the nominal ranking (worst-case mode: among the designs that pass the corner screen). */
   nominalRank: number;
   verdict: RobustVerdict;
 }
@@ -24,6 +25,13 @@ export interface RobustResult {
   candidates: RobustCandidate[];
   /** Nominally feasible designs checked. */
   scanned: number;
+  /**
+   * The nominal list left out designs that a corner of the tolerance box already fails
+   * (worst-case mode, cornerScreen.ts): `scanned` and `nominalRank` count the designs that pass.
+   */
+  screened: boolean;
+  /** Some design of the space meets every limit with nominal parts (the list was not empty before any screen). */
+  nominalFeasible: boolean;
   /** Every nominally feasible design was scanned (none left beyond the list). */
   exhausted: boolean;
   /** Largest `top` asked of the nominal search. */
@@ -47,7 +55,7 @@ export interface RobustOptions {
   /** One check for every design (tests); overrides `checks`. */
   check?: RobustCheck;
   /** Override the nominal search (tests); default designSearch. */
-  search?: (project: Project, options: DesignOptions) => DesignResult;
+  search?: (project: Project, options: DesignSearchOptions) => DesignResult;
   /** Monte Carlo samples per design in yield mode (default min(tolerance.samples, 2000)). */
   samples?: number;
   /** Passed to the nominal search. */
@@ -70,7 +78,10 @@ export const ROBUST_SAMPLES_CAP = 2000;
  * nominal search (designSearch) for a list 4 times longer (4N, 16N, ... up to `cap`) until N
  * robust designs are found or the list is exhausted; the first N robust ones of the ranked list
  * are then exactly the robust optimum within the scanned prefix. Checks are memoized across
- * rounds. The checks come from the caller (tolerance/robustChecks.ts: worst case over the
+ * rounds. In worst-case mode the nominal search first screens out designs that a corner of the box
+ * already takes beyond a limit (cornerScreen.ts, with the checks' `corners`): the check would fail
+ * them, so the robust answer is the same, from a far shorter list (`nominalRank` then counts the
+ * designs that pass the screen). The checks come from the caller (tolerance/robustChecks.ts: worst case over the
  * box plus the pin peak current at its worst corner, or Monte Carlo yield with the project's seed
  * for every design).
  *
@@ -88,6 +99,10 @@ export function robustDesigns(project: Project, mode: RobustMode, options: Robus
   const check = options.check ?? (checks && (mode === 'worst-case' ? checks.worstCase : checks.yield(samples!)));
   if (!check) throw new TypeError('robustDesigns: pass options.checks (tolerance/robustChecks.ts) or options.check');
 
+  // Worst case: designs a corner of the box already fails are screened out before the engine
+  // verifies them (the check itself would fail them), so the nominal list holds candidates only.
+  const admit = mode === 'worst-case' && !options.check && checks?.corners ? cornerScreen(checks.corners) : undefined;
+
   const verdicts = new Map<string, RobustVerdict>();
   let asked = Math.min(4 * top, cap);
   for (;;) {
@@ -96,6 +111,7 @@ export function robustDesigns(project: Project, mode: RobustMode, options: Robus
       compare: true,
       diagnose: false,
       ...(options.stageCounts && { stageCounts: options.stageCounts }),
+      ...(admit && { admit }),
     });
     const list = nominal.feasible ? nominal.candidates : [];
     const exhausted = list.length < asked;
@@ -116,7 +132,12 @@ export function robustDesigns(project: Project, mode: RobustMode, options: Robus
     }
     if (found.length >= top || exhausted || asked >= cap) {
       options.onProgress?.(1);
-      return { mode, candidates: found, scanned, exhausted, asked, samples, nominal };
+      // An empty screened list: were there nominal designs at all (for the verdict's wording)?
+      const nominalFeasible =
+        list.length > 0 ||
+        (admit !== undefined &&
+          search(project, { top: 1, compare: false, diagnose: false, ...(options.stageCounts && { stageCounts: options.stageCounts }) }).feasible);
+      return { mode, candidates: found, scanned, screened: admit !== undefined, nominalFeasible, exhausted, asked, samples, nominal };
     }
     asked = Math.min(asked * 4, cap);
   }

@@ -1,4 +1,5 @@
 import { collectCandidates, keyOf, newCollectState, REL, type FastEntry } from './collectCandidates.js';
+import type { Admit } from './cornerScreen.js';
 import type { DesignProblem } from './designProblem.js';
 import { exactCandidate } from './exactCandidate.js';
 import { dcTransferMiss } from './fast/dcTransferMiss.js';
@@ -36,6 +37,8 @@ export interface SolveOptions {
   budget?: number;
   /** performance.now() in ms after which the search stops with what it has (`design --max-time`). */
   deadline?: number;
+  /** Verify and rank only candidates this admits (DesignOptions.admit). */
+  admit?: Admit;
 }
 
 /** Growth of theta per extra collection round when the walk's threshold proved too low. */
@@ -104,6 +107,10 @@ export function solveProblem(
       }
       const at = fastPoint(problem, e.r, e.c);
       if (droopExceeds(problem, e.r, e.c) || dcTransferMiss(problem, (d) => at(d).average) !== null) {
+        e.ruledOut = true;
+        continue;
+      }
+      if (options.admit && !options.admit(problem, e.r, e.c)) {
         e.ruledOut = true;
         continue;
       }

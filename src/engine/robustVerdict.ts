@@ -61,4 +61,10 @@ export interface RobustChecks {
   worstCase: RobustCheck;
   /** A yield check with the given Monte Carlo sample count per design. */
   yield: (samples: number) => RobustCheck;
+  /**
+   * Corners of the tolerance box, as circuits, whose exact figures the worst-case check takes
+   * into its worst values, so that a corner beyond a limit fails the check; empty when the check
+   * cannot promise that. Lets the design search screen designs out before the full check.
+   */
+  corners?: (project: Project, ladder: Ladder) => Ladder[];
 }

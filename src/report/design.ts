@@ -35,6 +35,8 @@ function robustJson(r: RobustResult) {
   return {
     mode: r.mode,
     scanned: r.scanned,
+    screened: r.screened,
+    nominalFeasible: r.nominalFeasible,
     exhausted: r.exhausted,
     asked: r.asked,
     samples: r.samples,

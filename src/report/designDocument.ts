@@ -120,7 +120,11 @@ function followerNote(list: Candidate[]): Block[] {
 function robustSection(r: RobustResult, lsbOf: (c: Candidate) => LsbScale): Section {
   const pairs: Array<[string, string]> = [
     ['Check', r.mode === 'worst-case' ? 'every limit at the worst case over the box of the tolerance: block' : `Monte Carlo yield, up to ${r.samples} samples per design (sampling stops once the yield's 3-sigma Wilson interval clears the target); pin current at the worst case of the box`],
-    ['Scanned', `${r.scanned} nominally feasible design${r.scanned === 1 ? '' : 's'} in ranking order${r.exhausted ? ' (all of them)' : ''}`],
+    [
+      'Scanned',
+      `${r.scanned} nominally feasible design${r.scanned === 1 ? '' : 's'} in ranking order${r.exhausted ? ' (all of them)' : ''}` +
+        (r.screened ? '; designs that a corner of the box (every part at its minimum, or at its maximum) already fails were left out first, and the nominal rank counts those that remain' : ''),
+    ],
   ];
   const blocks: Block[] = [{ kind: 'pairs', pairs }];
   if (r.candidates.length > 0) {
@@ -337,7 +341,9 @@ export function designDocument(project: Project, result: DesignResult, options: 
           pass: false,
           text:
             robust.scanned === 0
-              ? 'FAIL: no design in the search space meets every limit even with nominal parts'
+              ? robust.nominalFeasible
+                ? `FAIL: every nominally feasible design misses a limit at a corner of the tolerance box (every part at its minimum, or at its maximum)`
+                : 'FAIL: no design in the search space meets every limit even with nominal parts'
               : robust.scanned === 1
                 ? `FAIL: the only nominally feasible design misses a limit ${under}`
                 : `FAIL: none of the ${robust.scanned} nominally feasible designs scanned meets every limit ${under}`,

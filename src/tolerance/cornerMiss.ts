@@ -24,16 +24,29 @@ const SWEPT = 10;
  * Example: cornerMiss(p, ladder)   // 'ripple' | 'droop' | 'inl' | 'settling' | null
  */
 export function cornerMiss(project: Project, ladder: Ladder): 'ripple' | 'droop' | 'inl' | 'settling' | null {
-  const parameters = toleranceParameters(requireTolerance(project), ladder);
-  if (parameters.length > SWEPT) return null;
+  const corners = boxCorners(project, ladder);
+  if (corners.length === 0) return null;
   const plan = metricPlan(project, ladder);
   const fullScale = Math.abs(ladder.high - ladder.low);
-  for (const level of [-1, 1]) {
-    const m = ladderMetrics(ladderAt(ladder, parameters, new Array<number>(parameters.length).fill(level)), plan);
-    const miss = missAt(m, plan, fullScale, ladder.period);
+  for (const corner of corners) {
+    const miss = missAt(ladderMetrics(corner, plan), plan, fullScale, ladder.period);
     if (miss) return miss;
   }
   return null;
+}
+
+/**
+ * The two corners of the tolerance box cornerMiss looks at (every parameter at its minimum, then
+ * every one at its maximum) as ladders, or none when worstCase does not sweep every corner of
+ * this box (more than SWEPT parameters): only then is a corner's figure a floor of worstCase's.
+ *
+ * Syntax: boxCorners(project, ladder)
+ * Example: boxCorners(p, ladder)[0].stages[0].r   // R1 at the bottom of its tolerance
+ */
+export function boxCorners(project: Project, ladder: Ladder): Ladder[] {
+  const parameters = toleranceParameters(requireTolerance(project), ladder);
+  if (parameters.length > SWEPT) return [];
+  return [-1, 1].map((level) => ladderAt(ladder, parameters, new Array<number>(parameters.length).fill(level)));
 }
 
 function missAt(m: LadderMetrics, plan: MetricPlan, fullScale: number, period: number): 'ripple' | 'droop' | 'inl' | 'settling' | null {

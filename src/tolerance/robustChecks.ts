@@ -5,7 +5,7 @@ import { requireTolerance, ToleranceInputError } from './monteCarlo.js';
 import { sequentialYield } from './sequentialYield.js';
 import { ladderAt, toleranceParameters } from './parameters.js';
 import { worstCase } from './worstCase.js';
-import { cornerMiss } from './cornerMiss.js';
+import { boxCorners, cornerMiss } from './cornerMiss.js';
 
 /**
  * The robust checks the design search applies to each nominal design (design/robustDesigns.ts
@@ -17,6 +17,7 @@ import { cornerMiss } from './cornerMiss.js';
 export const robustChecks: RobustChecks = {
   worstCase: (project, ladder) => worstCaseCheck(project, ladder),
   yield: (samples) => yieldCheck(samples),
+  corners: boxCorners,
 };
 
 /**

@@ -3,6 +3,8 @@ import { ladderFromProject } from '../../src/project/ladderFromProject.js';
 import { designSearch } from '../../src/design/designSearch.js';
 import { DesignInputError } from '../../src/design/designInputError.js';
 import { robustDesigns, type RobustCheck } from '../../src/design/robustDesigns.js';
+import { cornerScreen } from '../../src/design/cornerScreen.js';
+import { designProblem } from '../../src/design/designProblem.js';
 import { robustChecks as checks, worstCaseCheck, yieldCheck } from '../../src/tolerance/robustChecks.js';
 import type { Candidate, DesignOptions, DesignResult } from '../../src/design/types.js';
 import { parseProject } from '../../src/project/index.js';
@@ -21,13 +23,15 @@ search:
 `;
 const TOL = (r: string, c: string) => `tolerance:\n  resistor: ${r}\n  capacitor: ${c}\n  samples: 200\n  seed: 5\n`;
 const project = (yaml: string) => parseProject(yaml, 'robust.yaml');
+// The same checks without the corners: robustDesigns then walks the unscreened nominal ranking.
+const unscreened = { worstCase: checks.worstCase, yield: checks.yield };
 const key = (c: Pick<Candidate, 'stages'>) => c.stages.map((s) => `${s.r}/${s.c}`).join('+');
 
 describe('robustDesigns: scan of the nominal ranking', () => {
   it('returns a subset of the nominal list in the same order, and skips only designs that fail the check', () => {
     // 20 % capacitors: the nominal leaders sit near the ripple limit, so some must be skipped.
     const p = project(BASE + TOL('1 %', '20 %'));
-    const robust = robustDesigns(p, 'worst-case', { checks, top: 3 });
+    const robust = robustDesigns(p, 'worst-case', { checks: unscreened, top: 3 });
     const nominal = designSearch(p, { top: robust.asked, compare: false, diagnose: false }).candidates.map(key);
     const ranks = robust.candidates.map((r) => r.nominalRank);
     expect(robust.candidates.length).toBe(3);
@@ -43,6 +47,28 @@ describe('robustDesigns: scan of the nominal ranking', () => {
     expect(skipped.length).toBe(ranks[ranks.length - 1] - ranks.length);
     for (const c of skipped) {
       expect(worstCaseCheck(p, ladderFromProject(p, c.stages.map((s) => ({ r: s.r, c: s.c, buffered: false })))).pass).toBe(false);
+    }
+  });
+
+  it('the corner screen changes the work, not the answer: same robust designs, and every design it screens out fails the check', () => {
+    for (const tol of [TOL('1 %', '20 %'), TOL('5 %', '10 %'), TOL('1 %', '5 %')]) {
+      const p = project(BASE + tol);
+      const screened = robustDesigns(p, 'worst-case', { checks, top: 3 });
+      const plain = robustDesigns(p, 'worst-case', { checks: unscreened, top: 3 });
+      expect(screened.candidates.map((r) => key(r.candidate))).toEqual(plain.candidates.map((r) => key(r.candidate)));
+      expect(screened.scanned).toBeLessThanOrEqual(plain.scanned);
+      // Soundness on the whole nominal list the plain run walked: screened out => fails the full check.
+      const problem = designProblem(p);
+      const screen = cornerScreen(checks.corners!);
+      let out = 0;
+      for (const c of designSearch(p, { top: plain.asked, compare: false, diagnose: false }).candidates) {
+        const r = c.stages.map((s) => s.r);
+        const cs = c.stages.map((s) => s.c);
+        if (screen(problem, r, cs)) continue;
+        out++;
+        expect(worstCaseCheck(p, problem.ladderOf(r, cs)).pass).toBe(false);
+      }
+      if (tol === TOL('1 %', '20 %')) expect(out).toBeGreaterThan(0); // the scenario really screens
     }
   });
 
