@@ -509,13 +509,17 @@ export function collectCandidates(
       return v;
     };
     if (!within(at(0, 0))) return;
-    // Largest first capacitor whose column can still be within theta.
+    // Largest first capacitor whose column can still be within theta, and largest staircase step:
+    // a step s with at(0, s) beyond theta ends the walk below, so no step above bMax is sought
+    // (theta only falls meanwhile, and the bound grows with every capacitor).
     const top = firstTrue(nC, (i) => !within(at(i, 0))) - 1;
+    const bMax = firstTrue(nC, (b) => !within(at(0, b))) - 1;
     let s = -1;
     for (let a = top; a >= 0; a--) {
-      if (s < 0) s = firstTrue(nC, (b) => rippleOk(rs, at(a, b)));
-      else while (s < nC && !rippleOk(rs, at(a, s))) s++;
-      if (s >= nC) break; // smaller first capacitors only raise the ripple
+      // One look at the top of the range first: a slice with no ripple-feasible step there has none.
+      if (s < 0) s = rippleOk(rs, at(a, bMax)) ? firstTrue(bMax + 1, (b) => rippleOk(rs, at(a, b))) : nC;
+      else while (s <= bMax && !rippleOk(rs, at(a, s))) s++;
+      if (s > bMax) break; // smaller first capacitors only raise the ripple
       if (!within(at(0, s))) break; // every remaining column starts at or above s
       if (within(at(a, s))) {
         evaluate(rs, at(a, s), tb);
