@@ -48,6 +48,8 @@ export interface Candidate<S extends AnyCandidateStage = CandidateStage> {
   stages: S[];
   /** The second output's parts, for a project with second_pwm (design/network); else absent. */
   secondPwm?: SecondPwmParts;
+  /** Natural frequency f0 (Hz) and Q of each Sallen-Key stage (0-based index), when there is one. */
+  activeStages?: Array<{ stage: number; f0: number; q: number }>;
   /** Resolution the figures belong to (null when the project gives none). */
   bits: number | null;
   /** PWM frequency, Hz. */
@@ -157,6 +159,18 @@ export interface DesignBasis {
   steps: Array<[number, number]>;
   /** LSB at the project's resolution, V, or null. */
   lsb: number | null;
+  /** A version 1.1 circuit (design/network): its topology and the extra ranges searched. */
+  network?: NetworkBasis;
+}
+
+/** The design space of a version 1.1 circuit beyond the series and ranges of the passive search. */
+export interface NetworkBasis {
+  /** The file's circuit in words ('RC + Sallen-Key'). */
+  topology: string;
+  /** Q window of the Sallen-Key stages (search.q). */
+  q?: { min: number; max: number };
+  /** The second output's path: its role, where its resistor values come from, its capacitor range. */
+  secondPwm?: { role: 'fine' | 'complement'; r: string; c?: { min: number; max: number } };
 }
 
 /** Spec limits in SI units; undefined = no limit. */
