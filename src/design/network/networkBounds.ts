@@ -103,9 +103,11 @@ export function rippleLowerBound(problem: NetworkProblem, probe: Probe, count: n
  * t = m T and t_s > m T. The search doubles m from 1 while the period start violates the band, then
  * bisects between the last violating and the first clean power of two; whatever violating m it
  * ends on gives a valid bound m T (a transient that rings may make it end early; the bound is then
- * lower, still valid). With `refine`, the output is also sampled inside periods m and m + 1
- * (sampledOutput's instants, from the exact state delta_m): the last sample outside the band is a
- * later violating instant. A violation must exceed the band by a relative 1e-9 to count, so
+ * lower, still valid). With `refine`, a period counts as violating when any of sampledOutput's
+ * instants inside it (from the exact state delta_m) leaves the band, and the bound is the last such
+ * instant of the period found: this catches the periods whose start is inside the band while the
+ * ripple on top of the transient is not, and brings the bound to within a sample of the settling
+ * time. A violation must exceed the band by a relative 1e-9 to count, so
  * rounding never makes the bound exceed the engine's figure. Powers of M by repeated squaring in
  * the I - S form (engine/periodPowers.ts), which keeps their digits when M is close to the
  * identity. Valid for any drivers and either output role: nothing here linearizes the switched
@@ -130,48 +132,41 @@ function stepBound(probe: Probe, from: number, to: number, band: number, refine:
   const offset = end.yStart - end.average;
   const delta0 = start.start.map((v, i) => v - end.start[i]);
   const limit = band * (1 + 1e-9);
-  const violates = (delta: readonly number[]) => {
+  // Whether period m (deviation delta at its start) leaves the band: at its start, or with
+  // `refine` at any of its samples.
+  const atStart = (delta: readonly number[]) => {
     let y = offset;
     for (let i = 0; i < n; i++) y += c[i] * delta[i];
     return Math.abs(y) > limit;
   };
+  const late = (delta: readonly number[]) => lastSampleOutside(probe, end, end.start.map((v, i) => v + delta[i]), end.average, limit);
+  const violates = refine ? (delta: readonly number[]) => late(delta) >= 0 : atStart;
+  if (!violates(delta0)) return 0;
   const powers = periodPowers([...end.S], n);
   let lo = 0;
   let loDelta: number[] = delta0;
-  if (violates(delta0)) {
-    // Doubling: delta at 2m = 2^(j+1) from delta at m = 2^j by M^(2^j).
-    let m = 1;
-    let delta = powers.apply(0, delta0);
-    let j = 0;
-    while (violates(delta)) {
-      lo = m;
-      loDelta = delta;
-      if (m >= MAX_PERIODS) return m * T;
-      delta = powers.apply(j, delta);
-      j++;
-      m *= 2;
-    }
-    let hi = m;
-    while (hi - lo > 1) {
-      const mid = Math.floor((lo + hi) / 2);
-      const midDelta = powers.applyPower(mid - lo, loDelta);
-      if (violates(midDelta)) {
-        lo = mid;
-        loDelta = midDelta;
-      } else hi = mid;
-    }
-  } else if (!refine) return 0;
-  if (!refine) return lo * T;
-  // Inside periods lo and lo + 1: the last sampled instant outside the band.
-  let best = violates(loDelta) ? lo * T : 0;
-  let delta = loDelta;
-  for (let k = 0; k < 2; k++) {
-    const state = end.start.map((v, i) => v + delta[i]);
-    const late = lastSampleOutside(probe, end, state, end.average, limit);
-    if (late >= 0) best = Math.max(best, (lo + k) * T + late);
-    delta = powers.apply(0, delta);
+  // Doubling: delta at 2m = 2^(j+1) from delta at m = 2^j by M^(2^j).
+  let m = 1;
+  let delta = powers.apply(0, delta0);
+  let j = 0;
+  while (violates(delta)) {
+    lo = m;
+    loDelta = delta;
+    if (m >= MAX_PERIODS) return m * T;
+    delta = powers.apply(j, delta);
+    j++;
+    m *= 2;
   }
-  return best;
+  let hi = m;
+  while (hi - lo > 1) {
+    const mid = Math.floor((lo + hi) / 2);
+    const midDelta = powers.applyPower(mid - lo, loDelta);
+    if (violates(midDelta)) {
+      lo = mid;
+      loDelta = midDelta;
+    } else hi = mid;
+  }
+  return refine ? lo * T + late(loDelta) : lo * T;
 }
 
 /** The last of sampledOutput's instants in one period from `state` at which |y - average| > limit, or -1. */
