@@ -18,7 +18,7 @@ export const DEFAULT_Q = { min: 0.5, max: 0.8 } as const;
 export const FINE_WINDOW = 1.25;
 
 /** Largest design space the search walks (candidates); beyond it the key ranges must be narrowed. */
-export const MAX_NETWORK_SPACE = 2e6;
+export const MAX_NETWORK_SPACE = 1e6;
 
 /** The parts of the second output's path a design chooses. */
 export interface SecondParts {
