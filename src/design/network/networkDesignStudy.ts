@@ -4,7 +4,7 @@ import type { AnyCandidateStage, AnyDesignResult, DesignProgress } from '../type
 import { networkDesignSearch } from './networkDesignSearch.js';
 import { networkProblem } from './networkProblem.js';
 import { networkTradeoffCurves } from './networkTradeoffCurves.js';
-import { walkNetworkSpace } from './solveNetwork.js';
+import { walkDeadline, walkNetworkSpace } from './solveNetwork.js';
 
 export interface NetworkStudyOptions {
   top?: number;
@@ -29,8 +29,9 @@ export function networkDesignStudy(project: Project, options: NetworkStudyOption
   const report = options.onProgress;
   const charts = options.tradeoff ?? true;
   const deadline = options.deadline !== undefined ? { deadline: options.deadline } : {};
+  const cut = walkDeadline(options.deadline);
   const walk = walkNetworkSpace(networkProblem(project), {
-    ...deadline,
+    ...(cut !== undefined && { deadline: cut }),
     ...(report && { onProgress: (f: number) => report(0.7 * f, { phase: 'search' }) }),
   });
   const result = networkDesignSearch(project, {

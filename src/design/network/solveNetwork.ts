@@ -80,6 +80,20 @@ export interface NetworkWalk {
   complete: boolean;
 }
 
+/** Share of the time left before a deadline that the walk may take: the rest verifies what it found. */
+const WALK_SHARE = 0.7;
+
+/**
+ * The walk's own deadline within a search's (performance.now() ms): WALK_SHARE of the time left,
+ * so that a walk cut short still leaves time to verify the candidates it collected.
+ *
+ * Syntax: walkDeadline(deadline)
+ * Example: walkDeadline(performance.now() + 10000)   // about 7 s from now
+ */
+export function walkDeadline(deadline: number | undefined): number | undefined {
+  return deadline === undefined ? undefined : performance.now() + WALK_SHARE * Math.max(0, deadline - performance.now());
+}
+
 const over = (value: number, limit: number | undefined) => limit !== undefined && value > limit * (1 + REL) + 1e-15;
 
 /**
@@ -149,7 +163,8 @@ export function verifyInOrder(problem: NetworkProblem, walk: NetworkWalk, top: n
   let fastest: number | null = null;
   const { entries } = walk;
   const slowest = limits.settlingTime === undefined ? Infinity : limits.settlingTime * (1 + REL) + 1e-12;
-  for (let i = 0; i < entries.length && complete; i++) {
+  // A walk cut at its deadline: its candidates are verified all the same (the result then says incomplete).
+  for (let i = 0; i < entries.length; i++) {
     const e = entries[i];
     if (e.lb > slowest) {
       // This and every later entry settle slower than the limit allows.
@@ -234,8 +249,9 @@ export function verifyInOrder(problem: NetworkProblem, walk: NetworkWalk, top: n
  */
 export function solveNetwork(problem: NetworkProblem, top: number, options: SolveNetworkOptions & { walk?: NetworkWalk } = {}): NetworkOutcome {
   const report = options.onProgress;
+  const cut = walkDeadline(options.deadline);
   const walk = options.walk ?? walkNetworkSpace(problem, {
-    ...(options.deadline !== undefined && { deadline: options.deadline }),
+    ...(cut !== undefined && { deadline: cut }),
     ...(report && { onProgress: (f: number, b: number | null) => report(0.8 * f, b) }),
   });
   return verifyInOrder(problem, walk, top, {
