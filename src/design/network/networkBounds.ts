@@ -111,7 +111,10 @@ export function rippleLowerBound(problem: NetworkProblem, probe: Probe, count: n
  * rounding never makes the bound exceed the engine's figure. Powers of M by repeated squaring in
  * the I - S form (engine/periodPowers.ts), which keeps their digits when M is close to the
  * identity. Valid for any drivers and either output role: nothing here linearizes the switched
- * circuit.
+ * circuit. (A bound from the slowest pole alone would need a linear circuit and the amplitude at
+ * which the step excites that mode; the period map gives the exact deviation instead.) The bound
+ * is against the settling time as model.md defines it; the tests hold it to the engine's figure
+ * (periodicSettling.ts, whose scan of late periods assumes one band crossing between samples).
  *
  * Syntax: settlingLowerBound(problem, probe[, refine])
  * Example: settlingLowerBound(p, probeOf(fastNetwork(n)))   // s
