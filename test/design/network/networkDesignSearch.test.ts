@@ -88,6 +88,26 @@ search:
   second_pwm: { r: { min: 560k, max: 1M } }
 `,
   ],
+  [
+    'complement through R and C, center-aligned, default step (both directions)',
+    `
+pwm: { frequency: 39 kHz, alignment: center, bits: 8, high: 5 V, low: 0 V, driver: { high: 35 ohm, low: 25 ohm }, duty: { min: 5 %, max: 95 % } }
+second_pwm: { role: complement, into: { stage: 1, r: 10k, c: 1u } }
+filter:
+  stages:
+    - { r: 10k, c: 100n }
+    - { r: 10k, c: 100n }
+spec:
+  ripple: 0.003 LSB
+  settling: { band: 0.5 LSB }
+search:
+  series: E3
+  resistance: { min: 4k7, max: 22k }
+  capacitance: { min: 10n, max: 100n }
+  second_pwm: { r: { min: 4k7, max: 10k }, c: { min: 100n, max: 220n } }
+`,
+  ],
+
 ];
 
 describe('networkDesignSearch finds the exhaustive optimum', () => {
