@@ -1,7 +1,7 @@
 /**
  * The search over version 1.1 circuits (design/network) against exhaustive search: on small spaces
  * of each circuit (a Sallen-Key stage alone, RC + Sallen-Key, two RC stages with a complement output
- * through R and C, two RC stages with a fine output), unequal drivers throughout, every candidate
+ * through R and C, edge- and center-aligned, two RC stages with a fine output), unequal drivers throughout, every candidate
  * gets the exact engine's settling time and the full engine evaluation in settling order
  * (bruteForceNetwork.ts, which builds the space itself from model.md's Q formula and the explicit
  * ranges); the top designs must be the same designs with the same figures. Invented scenarios.
