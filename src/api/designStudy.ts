@@ -43,11 +43,11 @@ export interface DesignStudy {
  * Example: designStudy(p, { top: 3, tradeoff: false }).result.candidates[0]
  */
 export function designStudy(project: Project, options: DesignStudyOptions = {}): DesignStudy {
+  if (project.network) return networkStudy(project, options);
   const top = options.top ?? 10;
   const charts = options.tradeoff ?? true;
   const report = options.onProgress;
   const share = charts ? 0.5 : 1;
-  if (project.network) return networkStudy(project, options);
   let result: DesignResult;
   let robust: RobustResult | undefined;
   if (options.robust) {
