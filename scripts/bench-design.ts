@@ -119,6 +119,10 @@ const ANSWERS = [
   { name: 'design --robust worst-case, wide E24, 1 %/10 %', args: ['design', 'scripts/bench-projects/wide-e24.yaml', '--robust', 'worst-case'], goal: 15 },
   { name: 'design --robust yield, wide E24, 1 %/10 %', args: ['design', 'scripts/bench-projects/wide-e24.yaml', '--robust', 'yield'], goal: 30 },
   { name: 'design, three stages, wide E12 (--no-charts)', args: ['design', 'scripts/bench-projects/wide-e12-three.yaml', '--no-charts'], goal: 20 },
+  // Version 1.1 circuits (design/network): the demo samples as shipped, trade-off curve included.
+  { name: 'design, RC + Sallen-Key sample (38 493 candidates)', args: ['design', 'sample-configs/design-sallen-key.yaml'], goal: 60 },
+  { name: 'design, complement sample (40 500 candidates)', args: ['design', 'sample-configs/design-complement.yaml'], goal: 60 },
+  { name: 'design, fine-output sample (23 800 candidates)', args: ['design', 'sample-configs/design-fine.yaml'], goal: 60 },
 ];
 
 /**
@@ -151,7 +155,7 @@ export function designAnswersCost(root: string): {
         ...rows.map((r) => [r.name, r.seconds * 1e3, r.ratio, r.cpu === null ? 'n/a' : r.cpu * 1e3, r.cpuRatio ?? 'n/a', r.goal]),
         ["node -e ''", timing.bare.median * 1e3, 1, timing.bare.cpu === null ? 'n/a' : timing.bare.cpu * 1e3, 1, ''],
       ],
-      notes: ['projects: scripts/bench-projects/*.yaml (the greenhouse sample over the wide space, tolerance 1 %/10 %, yield 99 %)'],
+      notes: ['projects: scripts/bench-projects/*.yaml (the greenhouse sample over the wide space, tolerance 1 %/10 %, yield 99 %) and the version 1.1 design samples'],
     },
   };
 }

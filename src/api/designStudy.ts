@@ -1,7 +1,9 @@
 import type { Project } from '../project/index.js';
 import { designSearch, tradeoffCurves } from '../design/index.js';
 import { robustDesigns } from '../design/robustDesigns.js';
-import type { DesignProgress, DesignResult } from '../design/types.js';
+import type { AnyCandidateStage, AnyDesignResult, DesignProgress, DesignResult } from '../design/types.js';
+import { networkDesignStudy } from '../design/network/networkDesignStudy.js';
+import { DesignInputError } from '../design/designInputError.js';
 import type { TradeoffCurve } from '../design/tradeoffCurves.js';
 import type { RobustResult } from '../design/robustDesigns.js';
 import { robustChecks } from '../tolerance/index.js';
@@ -22,8 +24,8 @@ export interface DesignStudyOptions {
 }
 
 export interface DesignStudy {
-  result: DesignResult;
-  tradeoff?: TradeoffCurve[];
+  result: AnyDesignResult;
+  tradeoff?: TradeoffCurve<AnyCandidateStage>[];
   robust?: RobustResult;
 }
 
@@ -32,10 +34,16 @@ export interface DesignStudy {
  * designs, with `robust` only those that survive the tolerance box, and the trade-off curves around
  * the spec's ripple limit (skipped when nothing is feasible: they would rerun many empty searches).
  *
+ * A project with a second PWM output or an active stage (model.md 1.1) goes to the search over its
+ * own topology (design/network/networkDesignSearch.ts) and its trade-off curves
+ * (networkTradeoffCurves.ts); `robust` refuses it for now (the tolerance study does not take these
+ * circuits yet).
+ *
  * Syntax: designStudy(project[, { top, robust, tradeoff, onProgress, deadline }])
  * Example: designStudy(p, { top: 3, tradeoff: false }).result.candidates[0]
  */
 export function designStudy(project: Project, options: DesignStudyOptions = {}): DesignStudy {
+  if (project.network) return networkStudy(project, options);
   const top = options.top ?? 10;
   const charts = options.tradeoff ?? true;
   const report = options.onProgress;
@@ -71,4 +79,21 @@ export function designStudy(project: Project, options: DesignStudyOptions = {}):
     }
   }
   return { result, ...(tradeoff && { tradeoff }), ...(robust && { robust }) };
+}
+
+/** designStudy for a version 1.1 circuit (design/network/networkDesignStudy.ts). */
+function networkStudy(project: Project, options: DesignStudyOptions): DesignStudy {
+  if (options.robust) {
+    throw new DesignInputError(
+      `--robust ${options.robust} does not yet handle a file with second_pwm or an active stage: the tolerance study does not take these circuits yet; run design without --robust`,
+      project.network!.second ? 'second_pwm' : 'filter.stages',
+      project.file,
+    );
+  }
+  return networkDesignStudy(project, {
+    ...(options.top !== undefined && { top: options.top }),
+    ...(options.tradeoff !== undefined && { tradeoff: options.tradeoff }),
+    ...(options.deadline !== undefined && { deadline: options.deadline }),
+    ...(options.onProgress && { onProgress: options.onProgress }),
+  });
 }

@@ -69,13 +69,13 @@ export async function runDesign(
   if (args.write !== undefined && !args.force && fs.existsSync(args.write)) {
     return { stdout: '', stderr: `dacsmith: ${args.write} exists; use --force to overwrite it\n`, code: EXIT_BAD_INPUT };
   }
-  const [{ loadProject, requireLadder }, { designStudy }, { designReport }, { designProgressLine }] = await Promise.all([
+  const [{ loadProject }, { designStudy }, { designReport }, { designProgressLine }] = await Promise.all([
     import('../project/index.js'),
     import('../api/designStudy.js'),
     import('../report/design.js'),
     import('../report/designProgress.js'),
   ]);
-  const project = requireLadder(loadProject(args.file), 'design');
+  const project = loadProject(args.file);
   // Progress only on a terminal, and not when asked to be quiet.
   const bar = tty.progress && !args.quiet ? progressBar(tty.progress, designProgressLine) : null;
   let study;

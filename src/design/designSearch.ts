@@ -36,6 +36,8 @@ import type { Candidate, DesignOptions, DesignResult, ResolutionRow } from './ty
  *          // { stages: [{ r, c }, { r, c }], settlingTime, worstRipple, droop, pass: true, ... }
  */
 export function designSearch(project: Project, options: DesignSearchOptions = {}): DesignResult {
+  // A second PWM output or an active stage: design/network/networkDesignSearch.ts (designStudy routes it).
+  if (project.network) throw new RangeError('designSearch: a version 1.1 circuit goes to networkDesignSearch');
   const started = performance.now();
   const top = options.top ?? 10;
   if (!Number.isInteger(top) || top < 1) throw new DesignInputError(`top must be a whole number >= 1, got ${top}`);

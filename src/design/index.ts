@@ -11,3 +11,5 @@ export type * from './types.js';
 export { infeasibilityBounds, type ProvenMiss, type SpaceBounds } from './infeasibilityBounds.js';
 export { nearestFixes, type NearestFix, type FixKind } from './nearestFix.js';
 export { boundedSearch, type SearchBudget } from './boundedSearch.js';
+export { networkDesignSearch } from './network/networkDesignSearch.js';
+export { networkTradeoffCurves } from './network/networkTradeoffCurves.js';

@@ -1,7 +1,7 @@
 import { specChecks } from '../engine/index.js';
 import type { DesignProblem } from './designProblem.js';
 import { marginsOf } from './exactCandidate.js';
-import type { Candidate } from './types.js';
+import type { AnyCandidateStage, Candidate } from './types.js';
 
 /**
  * A candidate's checks against another problem's limits (same circuit figures: the band and the
@@ -13,7 +13,7 @@ import type { Candidate } from './types.js';
  * Syntax: recheck(problem, candidate)
  * Example: recheck(strict, relaxedBest).pass   // false: it misses a real limit
  */
-export function recheck(problem: DesignProblem, candidate: Candidate): Candidate {
+export function recheck<S extends AnyCandidateStage>(problem: DesignProblem, candidate: Candidate<S>): Candidate<S> {
   const checks = specChecks(problem.project, {
     worstRipple: { duty: candidate.rippleDuty, ripple: candidate.worstRipple },
     dc: {

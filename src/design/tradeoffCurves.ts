@@ -2,20 +2,20 @@ import type { Project } from '../project/types.js';
 import { designProblem } from './designProblem.js';
 import { paretoSearch } from './paretoSearch.js';
 import { relaxProject } from './relaxProject.js';
-import type { Candidate } from './types.js';
+import type { AnyCandidateStage, Candidate, CandidateStage } from './types.js';
 
-/** One point of a trade-off curve. */
-export interface TradeoffPoint {
+/** One point of a trade-off curve (RC stages for the passive search; any stages for a version 1.1 circuit). */
+export interface TradeoffPoint<S extends AnyCandidateStage = CandidateStage> {
   /** Ripple limit, V. */
   ripple: number;
   /** Best exact settling time under that limit (other limits as specified, no time limit), s; null: no design. */
   settlingTime: number | null;
-  best: Candidate | null;
+  best: Candidate<S> | null;
 }
 
-export interface TradeoffCurve {
+export interface TradeoffCurve<S extends AnyCandidateStage = CandidateStage> {
   stages: number;
-  points: TradeoffPoint[];
+  points: TradeoffPoint<S>[];
 }
 
 export interface TradeoffOptions {

@@ -14,9 +14,42 @@ export interface CandidateStage {
   buffered?: boolean;
 }
 
-/** A proposed filter with the engine's exact figures. */
-export interface Candidate {
-  stages: CandidateStage[];
+/**
+ * A unity-gain Sallen-Key stage of a proposed filter (version 1.1 circuits, model.md): c1 to the
+ * op-amp output, c2 to ground.
+ */
+export interface SallenKeyCandidateStage {
+  active: 'sallen-key';
+  /** ohm */
+  r1: number;
+  r2: number;
+  /** F */
+  c1: number;
+  c2: number;
+}
+
+/** Any stage of a proposed filter: RC, or (in a file with an active stage) Sallen-Key. */
+export type AnyCandidateStage = CandidateStage | SallenKeyCandidateStage;
+
+/** The parts of the second PWM output's path (second_pwm.into) a design chose. */
+export interface SecondPwmParts {
+  /** ohm */
+  r: number;
+  /** F; null when the path has no series capacitor. */
+  c: number | null;
+}
+
+/**
+ * A proposed filter with the engine's exact figures. `S` is the kind of stage: RC stages for the
+ * passive search (the default), RC or Sallen-Key stages for a version 1.1 circuit (design/network).
+ */
+export interface Candidate<S extends AnyCandidateStage = CandidateStage> {
+  /** The stages, pin side first. */
+  stages: S[];
+  /** The second output's parts, for a project with second_pwm (design/network); else absent. */
+  secondPwm?: SecondPwmParts;
+  /** Natural frequency f0 (Hz) and Q of each Sallen-Key stage (0-based index), when there is one. */
+  activeStages?: Array<{ stage: number; f0: number; q: number }>;
   /** Resolution the figures belong to (null when the project gives none). */
   bits: number | null;
   /** PWM frequency, Hz. */
@@ -73,17 +106,17 @@ export interface ResolutionRow {
   best: Candidate | null;
 }
 
-export interface DesignResult {
+export interface DesignResult<S extends AnyCandidateStage = CandidateStage> {
   /**
    * Feasible designs (every limit met with search.margin to spare), best first; when none is
    * feasible, the closest ones (keepsMargin false; pass true when they meet the limits only
    * without the margin).
    */
-  candidates: Candidate[];
+  candidates: Candidate<S>[];
   feasible: boolean;
   stats: SearchStats;
   /** The project's own `filter:` design at the project's resolution, when there is one. */
-  current: Candidate | null;
+  current: Candidate<S> | null;
   /** One row per resolution when the search chose the resolution, else empty. */
   resolutions: ResolutionRow[];
   /** When nothing is feasible: what binds, in words, one line each. */
@@ -102,6 +135,9 @@ export interface DesignResult {
   /** Limits and settings the search used (at the project's resolution). */
   basis: DesignBasis;
 }
+
+/** Any design result: of the passive search, or of a version 1.1 circuit (design/network). */
+export type AnyDesignResult = DesignResult<AnyCandidateStage>;
 
 /** What the search optimised against (for the report). */
 export interface DesignBasis {
@@ -123,6 +159,18 @@ export interface DesignBasis {
   steps: Array<[number, number]>;
   /** LSB at the project's resolution, V, or null. */
   lsb: number | null;
+  /** A version 1.1 circuit (design/network): its topology and the extra ranges searched. */
+  network?: NetworkBasis;
+}
+
+/** The design space of a version 1.1 circuit beyond the series and ranges of the passive search. */
+export interface NetworkBasis {
+  /** The file's circuit in words ('RC + Sallen-Key'). */
+  topology: string;
+  /** Q window of the Sallen-Key stages (search.q). */
+  q?: { min: number; max: number };
+  /** The second output's path: its role, where its resistor values come from, its capacitor range. */
+  secondPwm?: { role: 'fine' | 'complement'; r: string; c?: { min: number; max: number } };
 }
 
 /** Spec limits in SI units; undefined = no limit. */

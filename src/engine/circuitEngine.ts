@@ -85,7 +85,19 @@ function ladderEngine(ladder: Ladder, file: string): CircuitEngine {
   };
 }
 
-function networkEngine(network: Network, file: string): CircuitEngine {
+/**
+ * The engine for one network (src/engine/periodic), after refusing it outside the numerical domain
+ * (periodic/networkDomain.ts): what circuitEngineOf gives a project with a second output or an
+ * active stage, and what the design search evaluates its candidates with.
+ *
+ * Syntax: networkCircuitEngine(network[, file])
+ * Example: networkCircuitEngine(networkFromProject(p), p.file).settling(0.1, 0.9, 1e-3).time
+ */
+export function networkCircuitEngine(network: Network, file?: string): CircuitEngine {
+  return networkEngine(network, file);
+}
+
+function networkEngine(network: Network, file: string | undefined): CircuitEngine {
   checkNetworkDomain(network, file);
   const average = (f: number) => periodicOrbit(network, networkDuties(network, f), false).average;
   return {

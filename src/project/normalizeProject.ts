@@ -131,6 +131,7 @@ export function normalizeProject(data: Record<string, unknown>, file: string): {
       'key',
     );
   }
+  if (search && filter && second !== undefined) checkNetworkSearch(read, filter.all, second);
   if (read.issues.length > 0 || !pwm || !filter || second === undefined) return { issues: read.issues };
   const network: ProjectNetwork | undefined =
     second !== null || filter.all.some((s) => s.kind !== 'rc') ? { stages: filter.all, second } : undefined;
@@ -141,7 +142,8 @@ export function normalizeProject(data: Record<string, unknown>, file: string): {
     filter: { stages: filter.rc },
     ...(network && { network }),
     spec,
-    ...(search && { search }),
+    // A version 1.1 circuit keeps its stages: the search chooses their parts (checkNetworkSearch).
+    ...(search && { search: network ? { ...search, stages: [filter.all.length] } : search }),
     ...(tolerance && { tolerance }),
     ...(lsb !== undefined && { lsb }),
     ...(Object.keys(specInLsb).length > 0 && { specInLsb }),
@@ -422,6 +424,15 @@ function readSearch(read: Reader, pwm: PwmSettings | undefined): SearchSettings 
       read.fail(['search', 'bits'], 'needs pwm.clock: the frequency at each resolution follows from the timer clock', 'key');
     }
   }
+  let q: Range | undefined;
+  if (read.has(['search', 'q'])) {
+    const min = read.raw(['search', 'q', 'min']) as number;
+    const max = read.raw(['search', 'q', 'max']) as number;
+    if (!(min <= max)) read.fail(['search', 'q', 'min'], `min (${min}) must be at most max (${max})`);
+    else q = { min, max };
+  }
+  const secondR = read.has(['search', 'second_pwm', 'r']) ? read.range(['search', 'second_pwm', 'r'], 'resistance', 'ohm', { sign: 'positive' }, false) : undefined;
+  const secondC = read.has(['search', 'second_pwm', 'c']) ? read.range(['search', 'second_pwm', 'c'], 'capacitance', 'F', { sign: 'positive' }, false) : undefined;
   if (!resistance || !capacitance || !pwm || margin === undefined || !(margin >= 0 && margin < 1)) return undefined;
   return {
     stages: [...stages],
@@ -432,7 +443,45 @@ function readSearch(read: Reader, pwm: PwmSettings | undefined): SearchSettings 
     capacitance,
     ...(pinCurrent !== undefined && { pinCurrent }),
     ...(bits && { bits }),
+    ...(q && { q }),
+    ...(read.has(['search', 'second_pwm']) && { secondPwm: { ...(secondR && { r: secondR }), ...(secondC && { c: secondC }) } }),
   };
+}
+
+/**
+ * The search keys that depend on the circuit (model.md 1.1): a file with second_pwm or an active
+ * stage keeps its own topology, so search.stages may only repeat its stage count and search.buffered
+ * may not add a follower; search.q needs a Sallen-Key stage, search.second_pwm a second output, and
+ * search.second_pwm.c a series capacitor (second_pwm.into.c) to choose.
+ */
+function checkNetworkSearch(read: Reader, stages: readonly NetworkStage[], second: SecondPwm | null): void {
+  const network = second !== null || stages.some((s) => s.kind !== 'rc');
+  const activeCount = stages.filter((s) => s.kind === 'sallen-key').length;
+  if (network) {
+    const given = read.raw(['search', 'stages']) as number[] | undefined;
+    if (given !== undefined && !(given.length === 1 && given[0] === stages.length)) {
+      read.fail(
+        ['search', 'stages'],
+        `a file with second_pwm or an active stage keeps its own ${stages.length} stage${stages.length > 1 ? 's' : ''} (filter.stages) and the search chooses their parts; give [${stages.length}] or leave search.stages out`,
+      );
+    }
+    const buffered = read.raw(['search', 'buffered']) as boolean[] | undefined;
+    if (buffered?.includes(true)) {
+      read.fail(
+        ['search', 'buffered'],
+        "a file with second_pwm or an active stage keeps its own followers (filter.stages[k].buffered); leave search.buffered out",
+      );
+    }
+  }
+  if (read.has(['search', 'q']) && activeCount === 0) {
+    read.fail(['search', 'q'], "applies to Sallen-Key stages (active: sallen-key), and filter.stages has none; remove search.q", 'key');
+  }
+  if (read.has(['search', 'second_pwm']) && second === null) {
+    read.fail(['search', 'second_pwm'], 'chooses the parts of the second PWM output, and the file has no second_pwm; remove it', 'key');
+  }
+  if (read.has(['search', 'second_pwm', 'c']) && second !== null && second.c === null) {
+    read.fail(['search', 'second_pwm', 'c'], 'second_pwm.into has no series capacitor c to choose; give into.c in the file, or remove this range', 'key');
+  }
 }
 
 function readTolerance(read: Reader, pwm: PwmSettings | undefined): ToleranceSettings | undefined {

@@ -76,6 +76,13 @@ export interface SearchSettings {
   pinCurrent?: number;
   /** With pwm.clock: the resolutions the search may choose. */
   bits?: { min: number; max: number };
+  /**
+   * Sallen-Key stages: the window of Q the search may use (search.q); the design search applies
+   * its default (0.5 to 0.8) when absent.
+   */
+  q?: { min: number; max: number };
+  /** Ranges of the second PWM output's parts (search.second_pwm); absent: the search's defaults. */
+  secondPwm?: { r?: { min: number; max: number }; c?: { min: number; max: number } };
 }
 
 export interface ToleranceSettings {

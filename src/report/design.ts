@@ -1,7 +1,7 @@
 import { jsonValue } from './jsonValue.js';
-import type { TradeoffCurve } from '../design/tradeoffCurves.js';
+import type { TradeoffCurve as AnyTradeoffCurve } from '../design/tradeoffCurves.js';
 import type { RobustResult } from '../design/robustDesigns.js';
-import type { Candidate, DesignResult } from '../design/types.js';
+import type { AnyCandidateStage, AnyDesignResult, Candidate as AnyStageCandidate } from '../design/types.js';
 import type { Project } from '../project/types.js';
 import type { DesignEdit } from './designYaml.js';
 import { designDocument, FOLLOWER_NOTE, stageCodes } from './designDocument.js';
@@ -10,6 +10,11 @@ import { renderDocument } from './renderDocument.js';
 import { tradeoffPlot } from './tradeoffPlot.js';
 
 export type DesignFormat = 'text' | 'markdown' | 'json' | 'html';
+
+/** A design of either search (RC stages, or a version 1.1 circuit's stages and second output). */
+type Candidate = AnyStageCandidate<AnyCandidateStage>;
+type DesignResult = AnyDesignResult;
+type TradeoffCurve = AnyTradeoffCurve<AnyCandidateStage>;
 
 export interface DesignReportOptions {
   tradeoff?: TradeoffCurve[];
@@ -59,7 +64,12 @@ function robustJson(r: RobustResult) {
 
 function candidateJson(c: Candidate) {
   return {
-    stages: c.stages.map((s) => (s.buffered ? { r: s.r, c: s.c, buffered: true } : { r: s.r, c: s.c })),
+    stages: c.stages.map((s) =>
+      'active' in s ? { active: s.active, r1: s.r1, r2: s.r2, c1: s.c1, c2: s.c2 } : s.buffered ? { r: s.r, c: s.c, buffered: true } : { r: s.r, c: s.c },
+    ),
+    // A second PWM output's parts (version 1.1 circuits): { r } or { r, c } with a series capacitor.
+    ...(c.secondPwm && { secondPwm: c.secondPwm.c !== null ? { r: c.secondPwm.r, c: c.secondPwm.c } : { r: c.secondPwm.r } }),
+    ...(c.activeStages && { activeStages: c.activeStages }),
     worstRipple: c.worstRipple,
     settlingTime: finite(c.settlingTime),
     droop: c.droop,
@@ -97,7 +107,9 @@ function curveRippleLimit(project: Project, result: DesignResult, curves: Tradeo
  * The design result as text (terminal), GitHub-flavoured Markdown, one self-contained HTML page
  * (the Markdown's sections, the trade-off as an SVG plot, the JSON embedded), or one JSON object (model.md:
  * `candidates` best first, each { stages: [{ r, c[, buffered] }], worstRipple, settlingTime, droop,
- * pass } and more: `margins` per limit (fractions of the limit), `keepsMargin`, `needsFollower` and
+ * pass } and more; for a version 1.1 circuit a Sallen-Key stage is { active: 'sallen-key', r1, r2,
+ * c1, c2 }, a second output's parts `secondPwm: { r[, c] }` and each Sallen-Key stage's f0 and Q
+ * `activeStages: [{ stage, f0, q }]`; `margins` per limit (fractions of the limit), `keepsMargin`, `needsFollower` and
  * `notes`; `evaluated`; with `robust`, `robust: { mode, scanned, candidates: [{ nominalRank, worstCase |
  * yield }] }`; all numbers SI, null for never / unknown). The JSON holds no wall time, so two
  * identical runs print identical JSON; the text and Markdown reports state the search time.

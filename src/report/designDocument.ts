@@ -1,13 +1,18 @@
 import { warningsSection } from './warnings.js';
-import type { TradeoffCurve } from '../design/tradeoffCurves.js';
+import type { TradeoffCurve as AnyTradeoffCurve } from '../design/tradeoffCurves.js';
 import type { RobustResult } from '../design/robustDesigns.js';
-import type { Candidate, DesignResult } from '../design/types.js';
+import type { AnyCandidateStage, AnyDesignResult, Candidate as AnyStageCandidate, CandidateStage, SallenKeyCandidateStage } from '../design/types.js';
 import type { Project } from '../project/types.js';
 import { formatEng, formatIec60062 } from '../units/index.js';
 import type { Block, ReportDocument, Section } from './document.js';
 import { lineChart } from './lineChart.js';
 import { percent } from './quantities.js';
 import { designColumnPriority } from './designColumns.js';
+
+/** A design of either search (RC stages, or a version 1.1 circuit's stages and second output). */
+type Candidate = AnyStageCandidate<AnyCandidateStage>;
+type DesignResult = AnyDesignResult;
+type TradeoffCurve = AnyTradeoffCurve<AnyCandidateStage>;
 
 export interface DesignDocumentOptions {
   /** Trade-off curves to draw (none: no chart section). */
@@ -49,13 +54,31 @@ function volts(v: number, scale: LsbScale): string {
   return `${Number((v / scale.lsb).toPrecision(3))} LSB${at}`;
 }
 
-/** One stage as 'R / C' in engineering form. */
-const stageText = (s: { r: number; c: number; buffered?: boolean }) =>
-  `${formatEng(s.r, 'Ω', 3)} / ${formatEng(s.c, 'F', 3)}${s.buffered ? ' +follower' : ''}`;
+const isActive = (s: AnyCandidateStage): s is SallenKeyCandidateStage => 'active' in s && s.active === 'sallen-key';
 
-/** The stages as IEC 60062 codes: '4k7-100n + 47k-10n'. */
-export const stageCodes = (c: Pick<Candidate, 'stages'>) =>
-  c.stages.map((s) => `${formatIec60062(s.r, 'resistance')}-${formatIec60062(s.c, 'capacitance')}`).join(' + ');
+/** One stage as 'R / C' in engineering form; a Sallen-Key stage as 'r1, r2 / c1, c2'. */
+const stageText = (s: AnyCandidateStage) =>
+  isActive(s)
+    ? `${formatEng(s.r1, 'Ω', 3)}, ${formatEng(s.r2, 'Ω', 3)} / ${formatEng(s.c1, 'F', 3)}, ${formatEng(s.c2, 'F', 3)}`
+    : `${formatEng((s as CandidateStage).r, 'Ω', 3)} / ${formatEng((s as CandidateStage).c, 'F', 3)}${(s as CandidateStage).buffered ? ' +follower' : ''}`;
+
+/** A stage as IEC 60062 codes: '4k7-100n', a Sallen-Key stage 'SK 10k/22k-10n/4n7' (r1/r2-c1/c2). */
+const stageCode = (s: AnyCandidateStage) =>
+  isActive(s)
+    ? `SK ${formatIec60062(s.r1, 'resistance')}/${formatIec60062(s.r2, 'resistance')}-${formatIec60062(s.c1, 'capacitance')}/${formatIec60062(s.c2, 'capacitance')}`
+    : `${formatIec60062((s as CandidateStage).r, 'resistance')}-${formatIec60062((s as CandidateStage).c, 'capacitance')}`;
+
+/** The second output's parts as codes: 'r 2M55', 'r 10k c 1u'. */
+const secondCode = (p: { r: number; c: number | null }) =>
+  `r ${formatIec60062(p.r, 'resistance')}${p.c !== null ? ` c ${formatIec60062(p.c, 'capacitance')}` : ''}`;
+
+/** The stages (and a second output's parts) as IEC 60062 codes: '4k7-100n + 47k-10n', '10k-1u + 10k-1u; 2nd r 2M55'. */
+export const stageCodes = (c: Pick<Candidate, 'stages' | 'secondPwm'>) =>
+  c.stages.map(stageCode).join(' + ') + (c.secondPwm ? `; 2nd ${secondCode(c.secondPwm)}` : '');
+
+/** f0 and Q of a design's Sallen-Key stages: 'f0 1.2 kHz, Q 0.55'. */
+const activeText = (c: Pick<Candidate, 'activeStages'>) =>
+  (c.activeStages ?? []).map((a) => `f0 ${formatEng(a.f0, 'Hz', 3)}, Q ${a.q.toPrecision(3)}`).join('; ');
 
 /** Note on a design that needs an op-amp after its last stage (JSON `notes`, text list). */
 export const FOLLOWER_NOTE = 'needs an op-amp follower';
@@ -73,9 +96,19 @@ function marginText(c: Candidate): string {
 function candidateTable(result: DesignResult, lsbOf: (c: Candidate) => LsbScale): Block {
   const width = Math.max(...result.candidates.map((c) => c.stages.length));
   const withBits = result.resolutions.length > 0;
+  // A version 1.1 circuit: every design has the file's topology, so the first one names the columns.
+  const first = result.candidates[0];
+  const stageHeader = (i: number) => {
+    const s = first?.stages[i];
+    return s && isActive(s) ? `stage ${i + 1} Sallen-Key: r1, r2 / c1, c2` : `R${i + 1} / C${i + 1}`;
+  };
+  const second = first?.secondPwm;
+  const active = result.candidates.some((c) => (c.activeStages ?? []).length > 0);
   const header = [
     '#',
-    ...Array.from({ length: width }, (_, i) => `R${i + 1} / C${i + 1}`),
+    ...Array.from({ length: width }, (_, i) => stageHeader(i)),
+    ...(second ? [second.c !== null ? 'second output r / c' : 'second output r'] : []),
+    ...(active ? ['f0, Q'] : []),
     'codes (IEC 60062)',
     ...(withBits ? ['bits', 'PWM'] : []),
     'settling',
@@ -87,6 +120,8 @@ function candidateTable(result: DesignResult, lsbOf: (c: Candidate) => LsbScale)
   const rows = result.candidates.map((c, i) => [
     String(i + 1),
     ...Array.from({ length: width }, (_, k) => (c.stages[k] ? stageText(c.stages[k]) : '')),
+    ...(second ? [c.secondPwm ? `${formatEng(c.secondPwm.r, 'Ω', 3)}${c.secondPwm.c !== null ? ` / ${formatEng(c.secondPwm.c, 'F', 3)}` : ''}` : ''] : []),
+    ...(active ? [activeText(c)] : []),
     stageCodes(c),
     ...(withBits ? [String(c.bits ?? '-'), formatEng(c.frequency, 'Hz', 4)] : []),
     c.settlingTime === null ? 'never' : formatEng(c.settlingTime, 's', 4),
@@ -95,7 +130,8 @@ function candidateTable(result: DesignResult, lsbOf: (c: Candidate) => LsbScale)
     formatEng(c.pinCurrent, 'A', 3),
     marginText(c),
   ]);
-  const align = header.map((_, i) => (i === 0 || i === header.length - 1 || (i > 0 && i <= width + 1) ? 'left' : 'right')) as Array<
+  const extra = (second ? 1 : 0) + (active ? 1 : 0);
+  const align = header.map((_, i) => (i === 0 || i === header.length - 1 || (i > 0 && i <= width + 1 + extra) ? 'left' : 'right')) as Array<
     'left' | 'right'
   >;
   return { kind: 'table', header, rows, align, priority: header.map(designColumnPriority) };
@@ -208,6 +244,8 @@ function comparisonSection(current: Candidate, best: Candidate | undefined, lsbO
   const row = (label: string, f: (c: Candidate) => string) => [label, column(current, f), column(best, f)];
   const rows = [
     row('stages', (c) => c.stages.map(stageText).join(' + ')),
+    ...(current.secondPwm ? [row('second output', (c) => (c.secondPwm ? secondCode(c.secondPwm) : '-'))] : []),
+    ...((current.activeStages ?? []).length > 0 ? [row('Sallen-Key f0, Q', activeText)] : []),
     row('settling', (c) => (c.settlingTime === null ? 'never' : formatEng(c.settlingTime, 's', 4))),
     row('worst ripple', (c) => volts(c.worstRipple, lsbOf(c))),
     row('droop', (c) => volts(c.droop, lsbOf(c))),
@@ -261,18 +299,31 @@ export function designDocument(project: Project, result: DesignResult, options: 
       : `${percent(basis.steps[0][0])} to ${percent(basis.steps[0][1])}`;
   const pairs: Array<[string, string]> = [
     ['File', project.file],
-    ['Stages tried', basis.stageCounts.join(', ')],
+    ...(basis.network
+      ? ([['Circuit', `${basis.network.topology} (the file's; the search chooses every part)`]] as Array<[string, string]>)
+      : ([['Stages tried', basis.stageCounts.join(', ')]] as Array<[string, string]>)),
     ['Values', `${basis.series} (IEC 60063), R ${formatEng(basis.resistance.min, 'Ω', 3)} to ${formatEng(basis.resistance.max, 'Ω', 3)}, C ${formatEng(basis.capacitance.min, 'F', 3)} to ${formatEng(basis.capacitance.max, 'F', 3)}`],
+    ...(basis.network?.q
+      ? ([['Sallen-Key', `Q from ${basis.network.q.min} to ${basis.network.q.max} (search.q): for each r1, r2, c2 only the c1 values that put Q in the window`]] as Array<[string, string]>)
+      : []),
+    ...(basis.network?.secondPwm
+      ? ([
+          [
+            'Second output',
+            `${basis.network.secondPwm.role}: r ${basis.network.secondPwm.r}${basis.network.secondPwm.c ? `, c ${formatEng(basis.network.secondPwm.c.min, 'F', 3)} to ${formatEng(basis.network.secondPwm.c.max, 'F', 3)}` : ''}`,
+          ],
+        ] as Array<[string, string]>)
+      : []),
     ['Limits', limitList.length > 0 ? limitList.join(', ') : 'none'],
     ['Settling', `to within ${limitText(basis.band, inLsb.band)} after a step ${step}`],
     ['Margin', `every recommended design keeps ${percent(basis.margin)} of each limit in reserve (search.margin); the table shows each design's own margins`],
     ...(basis.buffered.includes(true)
       ? ([['Follower', `${basis.buffered.includes(false) ? 'also' : 'only'} designs with an ideal unity-gain follower after the last stage (search.buffered); such a design ${FOLLOWER_NOTE}`]] as Array<[string, string]>)
       : []),
-    ['Ranking', `settling time, then fewer stages, ${basis.buffered.includes(true) ? 'then no follower, ' : ''}then smaller total capacitance`],
+    ['Ranking', `settling time, ${basis.network ? '' : 'then fewer stages, '}${basis.buffered.includes(true) ? 'then no follower, ' : ''}then smaller total capacitance`],
     [
       'Search',
-      `${stats.space.toExponential(2).replace('e+', 'e')} candidates, ${stats.evaluated} evaluated by the fast model, ${stats.verified} by the exact engine, ${formatEng(stats.elapsed, 's', 3)}`,
+      `${stats.space.toExponential(2).replace('e+', 'e')} candidates, ${stats.evaluated} evaluated by the fast model${basis.network ? ' (exact period map: proven bounds)' : ''}, ${stats.verified} by the exact engine, ${formatEng(stats.elapsed, 's', 3)}`,
     ],
   ];
   const sections: Section[] = [{ title: 'Search', blocks: [{ kind: 'pairs', pairs }] }];

@@ -1,5 +1,5 @@
 import { isMap, isScalar, isSeq, parseDocument, type Document, type Node, type Pair, YAMLMap, YAMLSeq } from 'yaml';
-import type { Candidate, CandidateStage } from '../design/types.js';
+import type { AnyCandidateStage, Candidate, CandidateStage, SallenKeyCandidateStage } from '../design/types.js';
 import { formatEng, formatIec60062, parseQuantity, type Dimension } from '../units/index.js';
 
 /** One change `--write` made to the project file: `pwm.bits 8 -> 6`, a stage added or removed. */
@@ -38,10 +38,22 @@ interface Splice {
   text: string;
 }
 
-type Target = Pick<Candidate, 'stages' | 'bits' | 'frequency'>;
+type Target = Pick<Candidate<AnyCandidateStage>, 'stages' | 'bits' | 'frequency' | 'secondPwm'>;
 
-const stageFlow = (s: CandidateStage) =>
-  `{ r: ${formatIec60062(s.r, 'resistance')}, c: ${formatIec60062(s.c, 'capacitance')}${s.buffered ? ', buffered: true' : ''} }`;
+const isActive = (s: AnyCandidateStage): s is SallenKeyCandidateStage => 'active' in s && s.active === 'sallen-key';
+
+/** The parts of a Sallen-Key stage, in file order. */
+const SK_PARTS = [
+  ['r1', 'resistance'],
+  ['r2', 'resistance'],
+  ['c1', 'capacitance'],
+  ['c2', 'capacitance'],
+] as const;
+
+const stageFlow = (s: AnyCandidateStage) =>
+  isActive(s)
+    ? `{ active: sallen-key, ${SK_PARTS.map(([k, d]) => `${k}: ${formatIec60062(s[k], d)}`).join(', ')} }`
+    : `{ r: ${formatIec60062((s as CandidateStage).r, 'resistance')}, c: ${formatIec60062((s as CandidateStage).c, 'capacitance')}${(s as CandidateStage).buffered ? ', buffered: true' : ''} }`;
 
 /** The value as SI, or NaN when it does not read as that dimension. */
 function valueOf(node: unknown, dimension: Dimension): number {
@@ -121,16 +133,57 @@ function splices(text: string, doc: Document, target: Target): { edits: Splice[]
       }
     }
   }
+
+  // The second output's parts (version 1.1 circuits): second_pwm.into.r and .c.
+  if (target.secondPwm) {
+    const second = root.get('second_pwm', true);
+    const into = isMap(second) ? second.get('into', true) : undefined;
+    if (!isMap(into)) throw new Unsupported('second_pwm.into is not a map');
+    const parts: Array<['r' | 'c', number | null, 'resistance' | 'capacitance']> = [
+      ['r', target.secondPwm.r, 'resistance'],
+      ['c', target.secondPwm.c, 'capacitance'],
+    ];
+    for (const [key, value, dim] of parts) {
+      if (value === null) continue;
+      const node = into.get(key, true);
+      if (!isScalar(node)) throw new Unsupported(`second_pwm.into.${key} is not a plain value`);
+      if (sameValue(valueOf(node, dim), value)) continue;
+      const to = formatIec60062(value, dim);
+      edits.push({ start: node.range![0], end: node.range![1], text: to });
+      changes.push({ path: `second_pwm.into.${key}`, from: sourceOf(text, node), to });
+    }
+  }
   return { edits, changes };
 }
 
-function stageSplices(text: string, filter: YAMLMap, seq: YAMLSeq, want: CandidateStage[], edits: Splice[], changes: DesignEdit[]) {
+function stageSplices(text: string, filter: YAMLMap, seq: YAMLSeq, want: AnyCandidateStage[], edits: Splice[], changes: DesignEdit[]) {
   const items = seq.items as Node[];
   const keep = Math.min(items.length, want.length);
   for (let i = 0; i < keep; i++) {
     const item = items[i];
-    const s = want[i];
+    const want_i = want[i];
     const path = `filter.stages[${i}]`;
+    if (isActive(want_i)) {
+      // A Sallen-Key stage over one in the file: each of r1, r2, c1, c2 that differs is spliced.
+      const nodes = SK_PARTS.map(([key]) => (isMap(item) ? item.get(key, true) : undefined));
+      const active = isMap(item) ? item.get('active', true) : undefined;
+      if (isMap(item) && isScalar(active) && active.value === 'sallen-key' && nodes.every((n) => isScalar(n))) {
+        SK_PARTS.forEach(([key, dim], k) => {
+          const node = nodes[k] as Node;
+          if (sameValue(valueOf(node, dim), want_i[key])) return;
+          const to = formatIec60062(want_i[key], dim);
+          edits.push({ start: node.range![0], end: node.range![1], text: to });
+          changes.push({ path: `${path}.${key}`, from: sourceOf(text, node), to });
+        });
+      } else {
+        const from = sourceOf(text, item).replace(/\s+/g, ' ').trim();
+        const to = stageFlow(want_i);
+        edits.push({ start: item.range![0], end: item.range![1], text: to });
+        changes.push({ path, from, to });
+      }
+      continue;
+    }
+    const s = want_i as CandidateStage;
     const r = isMap(item) ? item.get('r', true) : undefined;
     const c = isMap(item) ? item.get('c', true) : undefined;
     const buffered = isMap(item) ? item.get('buffered', true) : undefined;
@@ -222,13 +275,22 @@ function rewrite(text: string, target: Target): string {
   for (const s of target.stages) {
     const m = new YAMLMap();
     m.flow = true;
-    m.set('r', formatIec60062(s.r, 'resistance'));
-    m.set('c', formatIec60062(s.c, 'capacitance'));
-    if (s.buffered) m.set('buffered', true);
+    if (isActive(s)) {
+      m.set('active', 'sallen-key');
+      for (const [key, dim] of SK_PARTS) m.set(key, formatIec60062(s[key], dim));
+    } else {
+      m.set('r', formatIec60062(s.r, 'resistance'));
+      m.set('c', formatIec60062(s.c, 'capacitance'));
+      if (s.buffered) m.set('buffered', true);
+    }
     stages.items.push(m);
   }
   if (!isMap(doc.get('filter'))) doc.set('filter', new YAMLMap());
   doc.setIn(['filter', 'stages'], stages);
+  if (target.secondPwm) {
+    doc.setIn(['second_pwm', 'into', 'r'], formatIec60062(target.secondPwm.r, 'resistance'));
+    if (target.secondPwm.c !== null) doc.setIn(['second_pwm', 'into', 'c'], formatIec60062(target.secondPwm.c, 'capacitance'));
+  }
   if (target.bits !== null && doc.hasIn(['pwm']) && doc.getIn(['pwm', 'bits']) !== target.bits) {
     doc.setIn(['pwm', 'bits'], target.bits);
     if (doc.hasIn(['pwm', 'frequency'])) doc.setIn(['pwm', 'frequency'], formatEng(target.frequency, 'Hz', 8));
@@ -236,35 +298,56 @@ function rewrite(text: string, target: Target): string {
   return doc.toString({ lineWidth: 0 });
 }
 
-/** The stages and bits a YAML text states, as SI, for the read-back check. */
-function readBack(text: string): { stages: CandidateStage[]; bits: number | undefined } | null {
+/** A stage as a YAML text states it, as SI (NaN where a value does not read). */
+function stageBack(m: unknown): AnyCandidateStage {
+  if (isMap(m) && m.get('active') === 'sallen-key') {
+    const part = (key: string, dim: Dimension) => valueOf(m.get(key, true), dim);
+    return { active: 'sallen-key', r1: part('r1', 'resistance'), r2: part('r2', 'resistance'), c1: part('c1', 'capacitance'), c2: part('c2', 'capacitance') };
+  }
+  return {
+    r: isMap(m) ? valueOf(m.get('r', true), 'resistance') : NaN,
+    c: isMap(m) ? valueOf(m.get('c', true), 'capacitance') : NaN,
+    buffered: isMap(m) && m.get('buffered') === true,
+  };
+}
+
+/** The stages, bits and second output's parts a YAML text states, as SI, for the read-back check. */
+function readBack(text: string): { stages: AnyCandidateStage[]; bits: number | undefined; second: { r: number; c: number } | null } | null {
   const doc = parseDocument(text, { version: '1.2' });
   if (doc.errors.length > 0) return null;
   const stages = doc.getIn(['filter', 'stages'], true);
   if (!isSeq(stages)) return null;
+  const into = doc.getIn(['second_pwm', 'into'], true);
   return {
-    stages: (stages.items as unknown[]).map((m) => ({
-      r: isMap(m) ? valueOf(m.get('r', true), 'resistance') : NaN,
-      c: isMap(m) ? valueOf(m.get('c', true), 'capacitance') : NaN,
-      buffered: isMap(m) && m.get('buffered') === true,
-    })),
+    stages: (stages.items as unknown[]).map(stageBack),
     bits: (doc.getIn(['pwm', 'bits']) as number | undefined) ?? undefined,
+    second: isMap(into) ? { r: valueOf(into.get('r', true), 'resistance'), c: valueOf(into.get('c', true), 'capacitance') } : null,
   };
+}
+
+/** Whether two stages are the same design. */
+function sameStage(a: AnyCandidateStage, b: AnyCandidateStage): boolean {
+  if (isActive(a) || isActive(b)) return isActive(a) && isActive(b) && SK_PARTS.every(([k]) => sameValue(a[k], b[k]));
+  const x = a as CandidateStage;
+  const y = b as CandidateStage;
+  return sameValue(x.r, y.r) && sameValue(x.c, y.c) && (x.buffered === true) === (y.buffered === true);
 }
 
 function agrees(text: string, target: Target): boolean {
   const got = readBack(text);
   if (!got || got.stages.length !== target.stages.length) return false;
-  const stagesAgree = got.stages.every(
-    (s, i) => sameValue(s.r, target.stages[i].r) && sameValue(s.c, target.stages[i].c) && s.buffered === (target.stages[i].buffered === true),
-  );
-  return stagesAgree && (target.bits === null || got.bits === undefined || Number(got.bits) === target.bits);
+  const stagesAgree = got.stages.every((s, i) => sameStage(s, target.stages[i]));
+  const secondAgrees =
+    !target.secondPwm ||
+    (got.second !== null && sameValue(got.second.r, target.secondPwm.r) && (target.secondPwm.c === null || sameValue(got.second.c, target.secondPwm.c)));
+  return stagesAgree && secondAgrees && (target.bits === null || got.bits === undefined || Number(got.bits) === target.bits);
 }
 
 /**
  * The project file's text with `filter.stages` set to a chosen design and, for a design at another
- * resolution, `pwm.bits` (and `pwm.frequency` when the file states it) set to the design's; nothing
- * else changes. Each change is listed (`pwm.bits 8 -> 6`, `filter.stages[0].r 10k -> 4k7`,
+ * resolution, `pwm.bits` (and `pwm.frequency` when the file states it) set to the design's; for a
+ * version 1.1 circuit, each Sallen-Key stage's r1, r2, c1, c2 and `second_pwm.into.r` / `.c` as the
+ * design chose them (a loadable version 1.1 project); nothing else changes. Each change is listed (`pwm.bits 8 -> 6`, `filter.stages[0].r 10k -> 4k7`,
  * `filter.stages[1] added: { r: 8k2, c: 1n0 }`); values that already read as the design's stay as
  * written (`10 kohm` is not rewritten as `10k`). New values are IEC 60062 codes.
  *
@@ -308,10 +391,17 @@ function rewriteChanges(text: string, target: Target): DesignEdit[] {
     const a = before[i];
     const b = target.stages[i];
     const path = `filter.stages[${i}]`;
-    const text = (s: CandidateStage) => (Number.isFinite(s.r) && Number.isFinite(s.c) ? stageFlow(s) : '(another kind of stage)');
+    const text = (s: AnyCandidateStage) => (Object.values(s).every((v) => typeof v !== 'number' || Number.isFinite(v)) ? stageFlow(s) : '(another kind of stage)');
     if (!a) changes.push({ path, from: null, to: stageFlow(b) });
     else if (!b) changes.push({ path, from: text(a), to: null });
-    else if (!sameValue(a.r, b.r) || !sameValue(a.c, b.c) || a.buffered !== (b.buffered === true)) changes.push({ path, from: text(a), to: stageFlow(b) });
+    else if (!sameStage(a, b)) changes.push({ path, from: text(a), to: stageFlow(b) });
+  }
+  if (target.secondPwm && old?.second) {
+    for (const [key, dim] of [['r', 'resistance'], ['c', 'capacitance']] as const) {
+      const to = target.secondPwm[key];
+      if (to === null || sameValue(old.second[key], to)) continue;
+      changes.push({ path: `second_pwm.into.${key}`, from: formatIec60062(old.second[key], dim), to: formatIec60062(to, dim) });
+    }
   }
   if (target.bits !== null && old?.bits !== undefined && Number(old.bits) !== target.bits) {
     changes.push({ path: 'pwm.bits', from: String(old.bits), to: String(target.bits) });

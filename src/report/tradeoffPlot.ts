@@ -1,4 +1,5 @@
 import type { TradeoffCurve } from '../design/tradeoffCurves.js';
+import type { AnyCandidateStage } from '../design/types.js';
 import { formatEng } from '../units/index.js';
 import { svgPlot } from './svgPlot.js';
 
@@ -10,7 +11,7 @@ import { svgPlot } from './svgPlot.js';
  * Syntax: tradeoffPlot(curves[, rippleLimit])
  * Example: tradeoffPlot(tradeoffCurves(p, [1, 2], p.spec.ripple), p.spec.ripple)
  */
-export function tradeoffPlot(curves: TradeoffCurve[], rippleLimit?: number): string {
+export function tradeoffPlot(curves: TradeoffCurve<AnyCandidateStage>[], rippleLimit?: number): string {
   return svgPlot({
     id: 'tradeoff',
     title: 'Trade-off: best settling time against the allowed ripple, one line per stage count',
