@@ -5,7 +5,7 @@ import { requireLadder } from '../project/requireLadder.js';
 import type { Project } from '../project/types.js';
 
 /** Commands that do not yet handle a second PWM output or an active stage. */
-const LADDER_ONLY = new Set(['tolerance', 'design']);
+const LADDER_ONLY = new Set(['design']);
 
 /** A project file's path, its YAML text with a label, or a project already loaded. */
 export type ProjectInput = string | { text: string; label?: string } | Project;
@@ -13,7 +13,7 @@ export type ProjectInput = string | { text: string; label?: string } | Project;
 /**
  * The project an API call works on: loaded from a path, parsed from text, or taken as given;
  * refused the way `command` refuses it: a design-only file (no filter) unless `filter` is false,
- * and, for the commands that handle only ladders (tolerance, design), a file whose circuit is not a
+ * and, for the commands that handle only ladders (design), a file whose circuit is not a
  * ladder (second_pwm, an active stage; requireLadder.ts).
  *
  * Syntax: projectOf(input, command[, { filter }])

@@ -37,3 +37,17 @@ export { rippleAt } from './modal/rippleAt.js';
 export type { PeriodicState } from './modal/periodicState.js';
 export { modalSettling } from './modal/settling.js';
 export { MAX_MODAL_CONDITION } from './modalRoute.js';
+// For tolerance studies of version 1.1 circuits (second PWM output, Sallen-Key stages): the general
+// engine's figures of one network, its code arithmetic and its domain check.
+export {
+  networkPoint,
+  networkAverage,
+  networkWorstRipple,
+  networkDcTransfer,
+  networkSettling,
+  networkPinPeakCurrent,
+} from './periodic/networkFigures.js';
+export type { ExtremumSearch } from './endpointFit.js';
+export { codeParts, quantizedFraction } from './periodic/networkCodes.js';
+export { checkNetworkDomain } from './periodic/networkDomain.js';
+export { circuitEngineOf, engineOfCircuit, type CircuitEngine } from './circuitEngine.js';

@@ -1,6 +1,6 @@
 import type { Network } from '../../circuit/network.js';
 import { maximizeOnInterval } from '../../numeric/maximizeOnInterval.js';
-import { endpointFit } from '../endpointFit.js';
+import { endpointFit, type ExtremumSearch } from '../endpointFit.js';
 import type { DcTransfer, OperatingPoint, Settling, WorstRipple } from '../types.js';
 import { codeParts, networkDuties, networkIdeal, quantizedFraction } from './networkCodes.js';
 import { periodicOrbit } from './periodicOrbit.js';
@@ -85,13 +85,16 @@ export function networkWorstRipple(network: Network, min: number, max: number): 
  * affine in each duty when the drivers are equal and close to it otherwise, so the extremes sit at
  * the ends of a coarse code's fine range: every coarse code at fine codes 0, half and full.
  *
- * Syntax: networkDcTransfer(network, min, max)
+ * `search`, when given, replaces both searches (a tolerance study's, started from a nominal
+ * circuit's peaks; endpointFit.ts).
+ *
+ * Syntax: networkDcTransfer(network, min, max[, search])
  * Example: networkDcTransfer(n, 0.05, 0.95).droop.error  // V
  */
-export function networkDcTransfer(network: Network, min: number, max: number): DcTransfer {
+export function networkDcTransfer(network: Network, min: number, max: number, search?: ExtremumSearch): DcTransfer {
   const second = network.second;
   let candidates: number[] | undefined;
-  if (second?.role === 'fine') {
+  if (second?.role === 'fine' && !search) {
     const b = second.bits!;
     const total = 2 ** (b + second.coarseBits!);
     const lo = codeParts(network, min).code;
@@ -104,16 +107,28 @@ export function networkDcTransfer(network: Network, min: number, max: number): D
   }
   return endpointFit(
     {
-      average: (f) => periodicOrbit(network, networkDuties(network, f), false).average,
+      average: (f) => networkAverage(network, f),
       ideal: (f) => networkIdeal(network, f),
       quantize: (f) => quantizedFraction(network, f),
       span: network.pin.high - network.pin.low,
       low: network.pin.low,
       candidates,
+      search,
     },
     min,
     max,
   );
+}
+
+/**
+ * Exact time-average output of a network at a fraction of its code range (periodicOrbit.ts
+ * without extrema), V.
+ *
+ * Syntax: networkAverage(network, fraction)
+ * Example: networkAverage(n, 0.5)  // V
+ */
+export function networkAverage(network: Network, fraction: number): number {
+  return periodicOrbit(network, networkDuties(network, fraction), false).average;
 }
 
 /**
