@@ -46,7 +46,8 @@ export function maximizeOverCodes(g: (code: number) => number, lo: number, hi: n
       const t = x - k;
       return t === 0 ? node(k) : (1 - t) * node(k) + t * node(k + 1);
     };
-    const m = maximizeFromHints(interpolant, 0, count - 1, [k0]);
+    // The interpolant peaks on a code: a bracket narrower than a code settles which one.
+    const m = maximizeFromHints(interpolant, 0, count - 1, [k0], 0.01);
     const k = Math.min(Math.floor(m.x), count - 2);
     return node(k + 1) > node(k) ? first + (k + 1) * stride : first + k * stride;
   };

@@ -5,6 +5,13 @@ import { maximizeFromHints } from './dutySearch.js';
 import type { MetricPlan } from './metricPlan.js';
 import type { CircuitMetrics } from './metrics.js';
 
+/**
+ * Brent's tolerance on the duty for a network's searches: near a smooth maximum the value is then
+ * within about f'' (1e-6)^2 / 2, 1e-11 of it for ripple and DC errors (both vary on the scale of the
+ * whole duty range), while each evaluation is a periodic orbit of the general engine.
+ */
+const DUTY_XTOL = 1e-6;
+
 export interface NetworkMetricsOptions {
   /** The engine's own full searches for every figure (a reference; slow for a fine output). */
   engineOnly?: boolean;
@@ -47,11 +54,11 @@ export function networkMetrics(network: Network, plan: MetricPlan, options: Netw
       return maximizeOverCodes((code) => g(code / fine.total), lo, hi, fine.bits, hints).x / fine.total;
     };
   } else {
-    const best = maximizeFromHints((d) => networkPoint(network, d).ripple, a, b, plan.rippleHints);
+    const best = maximizeFromHints((d) => networkPoint(network, d).ripple, a, b, plan.rippleHints, DUTY_XTOL);
     worstRipple = { duty: best.x, ripple: best.value };
     search = (g, min, max, figure) => {
       if (figure === 'inl' && !plan.inl) return min;
-      return maximizeFromHints(g, min, max, figure === 'droop' ? plan.droopHints : plan.inlHints).x;
+      return maximizeFromHints(g, min, max, figure === 'droop' ? plan.droopHints : plan.inlHints, DUTY_XTOL).x;
     };
   }
   const dc = networkDcTransfer(network, a, b, search);

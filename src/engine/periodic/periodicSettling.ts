@@ -5,6 +5,7 @@ import { brentRoot } from '../../numeric/brentRoot.js';
 import { periodPowers, type PeriodPowers } from '../periodPowers.js';
 import { networkCache } from './phaseFlows.js';
 import { periodicOrbit, type PeriodicOrbit } from './periodicOrbit.js';
+import { transientBound } from './phaseSeries.js';
 import { advanceInPhase, periodTrajectoryPoints, type TrajectoryPoint } from './trajectory.js';
 
 /** Result of a settling computation: s after the step, or null when the output never settles. */
@@ -31,7 +32,10 @@ const SCAN_SAMPLES = 1024;
  *    powers of M (periodPowers.ts: I - S form while near the identity).
  * 2. Below it, periods are checked exactly (grid and turning points, trajectory.ts) on at most 1024
  *    samples, stepping by at most one period per 0.2 rad of the fastest Sallen-Key ringing, from the
- *    top down; the last violating sample is refined to a single period by bisection, and the
+ *    top down (a period whose transient provably stays within band - max|y_to(t) - average_to|
+ *    by the series bound of phaseSeries.ts, max over the period of |c Phi(t) delta| <= U(delta),
+ *    passes without its trajectory); the last violating sample is refined to a single period by
+ *    bisection, and the
  *    crossing into the band inside it by Brent's root finder on the monotone piece after the last
  *    violating point.
  * This assumes one crossing between two samples (true for RC networks, whose per-period transient is
@@ -48,7 +52,8 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   const scale = equations.scale;
   const T = network.period;
   const orbitTo = periodicOrbit(network, to);
-  const orbitFrom = periodicOrbit(network, from);
+  // Only its start state is needed: no extrema.
+  const orbitFrom = periodicOrbit(network, from, false);
   const avg = orbitTo.average;
   const steadyExcursion = Math.max(orbitTo.max - avg, avg - orbitTo.min);
   if (steadyExcursion > band) return { time: null, final: avg };
@@ -59,6 +64,9 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   const trajectory = (delta: readonly number[]) => periodTrajectoryPoints(orbitTo.phases, c, orbitTo.start, delta, scale);
   const offset = orbitTo.yStart - avg; // e(t) = offset + w(t)
   const violates = (pts: readonly TrajectoryPoint[]) => pts.some((p) => Math.abs(offset + p.w) > band);
+  // A period whose transient provably stays inside the slack needs no trajectory (phaseSeries.ts).
+  const bound = transientBound(orbitTo.phases, c, scale);
+  const violatesFrom = (delta: readonly number[]) => (bound !== null && bound(delta) <= slack ? false : violates(trajectory(delta)));
 
   const powers = periodPowers([...orbitTo.S], n);
   const safeFrom = firstSafePeriod(orbitTo, powers, delta0, slack, n, c);
@@ -75,7 +83,7 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   }
   let last = -1;
   for (let i = samples.length - 1; i >= 0; i--) {
-    if (violates(trajectory(samples[i].delta))) {
+    if (violatesFrom(samples[i].delta)) {
       last = i;
       break;
     }
@@ -88,7 +96,7 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   while (hi - lo > 1) {
     const mid = Math.floor((lo + hi) / 2);
     const midDelta = powers.applyPower(mid - lo, loDelta);
-    if (violates(trajectory(midDelta))) {
+    if (violatesFrom(midDelta)) {
       lo = mid;
       loDelta = midDelta;
     } else hi = mid;

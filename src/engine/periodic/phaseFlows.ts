@@ -17,6 +17,8 @@ export interface PhaseFlows {
   readonly steps: readonly Flow[];
   /** c^T A: the output's rate is -(c^T A) (x* - x). */
   readonly outputRate: readonly number[];
+  /** ||D A D^{-1}||_inf (D = diag(scale)): bounds every modal rate, 1/s. */
+  readonly rate: number;
 }
 
 /** A network's equations and its phase flows, computed once per network object. */
@@ -68,6 +70,27 @@ export function phaseFlows(network: Network, key: PinStateKey, duration: number)
   const scale = eq.scale;
   const full = flow(A, n, duration, true, scale);
   const rate = normInf(scaled(A, n, scale), n);
+  const outputRate = new Array<number>(n).fill(0);
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) outputRate[j] += eq.output[i] * A[i * n + j];
+  let steps: Flow[] | null = null;
+  const result: PhaseFlows = {
+    key,
+    duration,
+    A,
+    xStar,
+    full,
+    get steps() {
+      return (steps ??= gridSteps(A, n, duration, rate, scale));
+    },
+    outputRate,
+    rate,
+  };
+  if (cache.flows.size >= FLOW_CACHE_SIZE) cache.flows.clear();
+  cache.flows.set(id, result);
+  return result;
+}
+
+function gridSteps(A: readonly number[], n: number, duration: number, rate: number, scale: readonly number[]): Flow[] {
   const cells = Math.min(64, Math.max(4, Math.ceil(duration * rate)));
   const h = duration / cells;
   const steps: Flow[] = [];
@@ -82,15 +105,16 @@ export function phaseFlows(network: Network, key: PinStateKey, duration: number)
     const cell = flow(A, n, h, false, scale);
     for (let i = 0; i < cells; i++) steps.push(cell);
   }
-  const outputRate = new Array<number>(n).fill(0);
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) outputRate[j] += eq.output[i] * A[i * n + j];
-  const result: PhaseFlows = { key, duration, A, xStar, full, steps, outputRate };
-  if (cache.flows.size >= FLOW_CACHE_SIZE) cache.flows.clear();
-  cache.flows.set(id, result);
-  return result;
+  return steps;
 }
 
-function scaled(A: readonly number[], n: number, d: readonly number[]): number[] {
+/**
+ * D A D^{-1} for D = diag(d): the balanced form of a phase's matrix.
+ *
+ * Syntax: scaled(A, n, d)
+ * Example: scaled([-1, 1, 2, -3], 2, [1, 2])  // [-1, 0.5, 4, -3]
+ */
+export function scaled(A: readonly number[], n: number, d: readonly number[]): number[] {
   const out = new Array<number>(n * n);
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) out[i * n + j] = (A[i * n + j] * d[i]) / d[j];
   return out;
