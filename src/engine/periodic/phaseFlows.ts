@@ -1,8 +1,8 @@
 import type { Network } from '../../circuit/network.js';
 import { networkEquations, type NetworkEquations, type PinStateKey } from '../../circuit/networkEquations.js';
 import { solveLinear } from '../../numeric/lu.js';
-import { normInf } from '../../numeric/dense.js';
-import { flow, type Flow } from '../flow.js';
+import { matmul, normInf } from '../../numeric/dense.js';
+import { doubleFlow, flow, type Flow } from '../flow.js';
 
 /** Everything the engine keeps about one phase (pin state and length) of a network. */
 export interface PhaseFlows {
@@ -25,6 +25,22 @@ export interface PhaseFlows {
 export interface NetworkCache {
   readonly equations: NetworkEquations;
   readonly flows: Map<string, PhaseFlows>;
+  /** What each pin state needs whatever the phase length. */
+  readonly states: Map<PinStateKey, PinStateFlows>;
+  /**
+   * With a fine output every phase length is a whole multiple of this quantum, s (the duties are
+   * codes: multiples of 2^-max(B, b), edges at d or (1 -+ d) / 2); null otherwise.
+   */
+  readonly quantum: number | null;
+}
+
+/** One pin state's DC state, rates and, with a quantum, its flows over 2^j quanta. */
+interface PinStateFlows {
+  readonly xStar: readonly number[];
+  readonly rate: number;
+  readonly outputRate: readonly number[];
+  /** Flows (with J) over 2^j quanta, j = 0, 1, ..., formed as needed. */
+  readonly powers: Flow[];
 }
 
 const caches = new WeakMap<Network, NetworkCache>();
@@ -39,7 +55,9 @@ const FLOW_CACHE_SIZE = 256;
 export function networkCache(network: Network): NetworkCache {
   let cache = caches.get(network);
   if (!cache) {
-    cache = { equations: networkEquations(network), flows: new Map() };
+    const second = network.second;
+    const quantum = second?.role === 'fine' ? network.period * 2 ** -(Math.max(second.bits!, second.coarseBits!) + 1) : null;
+    cache = { equations: networkEquations(network), flows: new Map(), states: new Map(), quantum };
     caches.set(network, cache);
   }
   return cache;
@@ -48,7 +66,9 @@ export function networkCache(network: Network): NetworkCache {
 /**
  * Flows of one phase of a network, remembered per (pin state, length).
  *
- * Method: the exact flow of x' = A x + b (flow.ts, augmented matrix exponential). The grid that
+ * Method: the exact flow of x' = A x + b (flow.ts, augmented matrix exponential); with a fine output,
+ * whose phase lengths are whole numbers of quanta, composed from the flows over 2^j quanta
+ * (composedFlow, below), one matrix exponential per pin state and network. The grid that
  * locates turning points of the output: cells of length h with h * rate <= 1 where rate = ||A||_inf
  * bounds every modal rate, at least 4 and at most 64 cells; when a cell is still longer than the
  * fastest time scale, the first cell is marched on the geometric grid h 2^-K, ..., h/2, h so that
@@ -64,14 +84,14 @@ export function phaseFlows(network: Network, key: PinStateKey, duration: number)
   if (hit) return hit;
   const eq = cache.equations;
   const n = eq.n;
-  const { A, b } = eq.phases[key];
-  const xStar = solveLinear(A, n, b.map((v) => -v));
-  if (!xStar) throw new RangeError('phaseFlows: the circuit has no DC state (singular state matrix)');
+  const { A } = eq.phases[key];
   const scale = eq.scale;
-  const full = flow(A, n, duration, true, scale);
-  const rate = normInf(scaled(A, n, scale), n);
-  const outputRate = new Array<number>(n).fill(0);
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) outputRate[j] += eq.output[i] * A[i * n + j];
+  const state = pinStateFlows(cache, key);
+  const { xStar, rate, outputRate } = state;
+  // A whole number of quanta to rounding (a few units in the last place of the duration).
+  const quanta = cache.quantum === null ? NaN : Math.round(duration / cache.quantum);
+  const onGrid = quanta > 0 && Math.abs(duration / cache.quantum! - quanta) < 1e-9;
+  const full = onGrid ? composedFlow(state.powers, A, n, quanta, cache.quantum!, scale) : flow(A, n, duration, true, scale);
   let steps: Flow[] | null = null;
   const result: PhaseFlows = {
     key,
@@ -88,6 +108,52 @@ export function phaseFlows(network: Network, key: PinStateKey, duration: number)
   if (cache.flows.size >= FLOW_CACHE_SIZE) cache.flows.clear();
   cache.flows.set(id, result);
   return result;
+}
+
+function pinStateFlows(cache: NetworkCache, key: PinStateKey): PinStateFlows {
+  let state = cache.states.get(key);
+  if (state) return state;
+  const eq = cache.equations;
+  const n = eq.n;
+  const { A, b } = eq.phases[key];
+  const xStar = solveLinear(A, n, b.map((v) => -v));
+  if (!xStar) throw new RangeError('phaseFlows: the circuit has no DC state (singular state matrix)');
+  const outputRate = new Array<number>(n).fill(0);
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) outputRate[j] += eq.output[i] * A[i * n + j];
+  state = { xStar, rate: normInf(scaled(A, n, eq.scale), n), outputRate, powers: [] };
+  cache.states.set(key, state);
+  return state;
+}
+
+/**
+ * The flow over k quanta (k a whole number) from the flows over 2^j quanta: one matrix exponential
+ * for the quantum (flow.ts), then doublings (doubleFlow) and sums over the binary digits of k with
+ * E(a + b) = E(a) E(b), K(a + b) = K(a) + E(a) K(b), J(a + b) = J(a) + b K(a) + E(a) J(b) (from
+ * K(a + s) = K(a) + E(a) K(s)): every term keeps its relative accuracy, as in scaling and squaring.
+ */
+function composedFlow(powers: Flow[], A: readonly number[], n: number, k: number, quantum: number, scale: readonly number[]): Flow {
+  if (powers.length === 0) powers.push(flow(A, n, quantum, true, scale));
+  let sum: Flow | null = null;
+  for (let j = 0; k > 0; j++, k = Math.floor(k / 2)) {
+    while (powers.length <= j) powers.push(doubleFlow(powers[powers.length - 1], n));
+    if (k % 2 === 1) sum = sum === null ? powers[j] : addFlows(sum, powers[j], n);
+  }
+  return sum!;
+}
+
+/** The flow over a.t + b.t from the flows over a.t and b.t (both with J). */
+function addFlows(a: Flow, b: Flow, n: number): Flow {
+  const nn = n * n;
+  const E = matmul(a.E, b.E, n);
+  const EK = matmul(a.E, b.K, n);
+  const EJ = matmul(a.E, b.J!, n);
+  const K = new Array<number>(nn);
+  const J = new Array<number>(nn);
+  for (let i = 0; i < nn; i++) {
+    K[i] = a.K[i] + EK[i];
+    J[i] = a.J![i] + b.t * a.K[i] + EJ[i];
+  }
+  return { t: a.t + b.t, E, K, J };
 }
 
 function gridSteps(A: readonly number[], n: number, duration: number, rate: number, scale: readonly number[]): Flow[] {
