@@ -41,6 +41,7 @@ export { MAX_MODAL_CONDITION } from './modalRoute.js';
 // engine's figures of one network, its code arithmetic and its domain check.
 export {
   networkPoint,
+  networkRipple,
   networkAverage,
   networkWorstRipple,
   networkDcTransfer,

@@ -9,7 +9,7 @@ import {
   rippleAt,
   networkAverage,
   networkDcTransfer,
-  networkPoint,
+  networkRipple,
   networkWorstRipple,
 } from '../engine/index.js';
 import type { Project } from '../project/types.js';
@@ -64,7 +64,7 @@ export interface MetricPlanOptions {
  * maximum refined by Brent's method. DC peaks also on the ladder with (driver high, driver low) at
  * (max, min) and (min, max) of their ranges: unequal drivers bend average(D), equal ones leave it
  * affine, so a nominal with equal drivers alone would show no interior DC peak. A network takes
- * the same peaks from the general engine (networkPoint, networkAverage); with a fine output, whose
+ * the same peaks from the general engine (networkRipple, networkAverage); with a fine output, whose
  * codes are discrete, the hints are the worst codes of the engine's own searches
  * (networkWorstRipple, networkDcTransfer) on the nominal and on the two driver probes.
  *
@@ -169,7 +169,7 @@ function networkPeaks(project: Project, network: Network, a: number, b: number) 
     }
   }
   return {
-    rippleHints: gridPeaks((d) => networkPoint(network, d).ripple, a, b),
+    rippleHints: gridPeaks((d) => networkRipple(network, d), a, b),
     droopHints: droopHints.sort((x, y) => x - y),
     inlHints: inlHints.sort((x, y) => x - y),
   };

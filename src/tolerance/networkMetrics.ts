@@ -1,5 +1,5 @@
 import type { Network } from '../circuit/network.js';
-import { codeParts, networkDcTransfer, networkPoint, networkSettling, networkWorstRipple, type ExtremumSearch } from '../engine/index.js';
+import { codeParts, networkDcTransfer, networkRipple, networkSettling, networkWorstRipple, type ExtremumSearch } from '../engine/index.js';
 import { maximizeOverCodes } from './codeSearch.js';
 import { maximizeFromHints } from './dutySearch.js';
 import type { MetricPlan } from './metricPlan.js';
@@ -22,7 +22,7 @@ export interface NetworkMetricsOptions {
  * Sallen-Key stages: model.md 1.1) for tolerance studies, with the definitions of `analyze`.
  *
  * Method: every value comes from the general periodic engine (src/engine/periodic: exact ripple
- * of one operating point, networkPoint; the endpoint-fit DC errors, networkDcTransfer; settling,
+ * of one operating point, networkRipple; the endpoint-fit DC errors, networkDcTransfer; settling,
  * networkSettling, the slowest of the plan's steps). What differs from the engine's own figures is
  * only where the searches start: worst ripple by Brent's maximization from the nominal network's
  * ripple peaks in the plan (maximizeFromHints, dutySearch.ts), and the largest DC errors likewise
@@ -46,7 +46,7 @@ export function networkMetrics(network: Network, plan: MetricPlan, options: Netw
     const lo = codeParts(network, a).code;
     const hi = codeParts(network, b).code;
     const codes = (hints: number[] | null) => (hints ?? []).map((d) => Math.round(d * fine.total));
-    const best = maximizeOverCodes((code) => networkPoint(network, code / fine.total).ripple, lo, hi, fine.bits, codes(plan.rippleHints));
+    const best = maximizeOverCodes((code) => networkRipple(network, code / fine.total), lo, hi, fine.bits, codes(plan.rippleHints));
     worstRipple = { duty: best.x / fine.total, ripple: best.value };
     search = (g, _min, _max, figure) => {
       if (figure === 'inl' && !plan.inl) return a;
@@ -54,7 +54,7 @@ export function networkMetrics(network: Network, plan: MetricPlan, options: Netw
       return maximizeOverCodes((code) => g(code / fine.total), lo, hi, fine.bits, hints).x / fine.total;
     };
   } else {
-    const best = maximizeFromHints((d) => networkPoint(network, d).ripple, a, b, plan.rippleHints, DUTY_XTOL);
+    const best = maximizeFromHints((d) => networkRipple(network, d), a, b, plan.rippleHints, DUTY_XTOL);
     worstRipple = { duty: best.x, ripple: best.value };
     search = (g, min, max, figure) => {
       if (figure === 'inl' && !plan.inl) return min;

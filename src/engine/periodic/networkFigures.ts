@@ -26,6 +26,17 @@ export function networkPoint(network: Network, fraction: number): OperatingPoint
   };
 }
 
+/**
+ * Steady-state peak-to-peak ripple of a network at a fraction of its code range (periodicOrbit.ts
+ * with extrema, without the average), V.
+ *
+ * Syntax: networkRipple(network, fraction)
+ * Example: networkRipple(n, 0.5)  // V
+ */
+export function networkRipple(network: Network, fraction: number): number {
+  return periodicOrbit(network, networkDuties(network, fraction), true, false).ripple;
+}
+
 /** Fine codes scanned per coarse code in the first pass of a fine output's ripple search. */
 const FINE_PROBES = [0, 0.5, 1];
 /** Coarse codes whose every fine code is scanned in the second pass. */
@@ -45,14 +56,14 @@ const FINE_FINALISTS = 4;
 export function networkWorstRipple(network: Network, min: number, max: number): WorstRipple {
   const second = network.second;
   if (second?.role !== 'fine') {
-    const best = maximizeOnInterval((d) => periodicOrbit(network, { first: d, second: null }).ripple, min, max, 32, 3);
+    const best = maximizeOnInterval((d) => periodicOrbit(network, { first: d, second: null }, true, false).ripple, min, max, 32, 3);
     return { duty: best.x, ripple: best.value };
   }
   const b = second.bits!;
   const total = 2 ** (b + second.coarseBits!);
   const lo = codeParts(network, min).code;
   const hi = codeParts(network, max).code;
-  const rippleAt = (code: number) => periodicOrbit(network, networkDuties(network, code / total)).ripple;
+  const rippleAt = (code: number) => networkRipple(network, code / total);
   const scores: Array<{ coarse: number; ripple: number; code: number }> = [];
   for (let coarse = Math.floor(lo / 2 ** b); coarse * 2 ** b <= hi; coarse++) {
     let best = { coarse, ripple: -Infinity, code: -1 };

@@ -52,8 +52,8 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   const scale = equations.scale;
   const T = network.period;
   const orbitTo = periodicOrbit(network, to);
-  // Only its start state is needed: no extrema.
-  const orbitFrom = periodicOrbit(network, from, false);
+  // Only its start state is needed: no extrema, no average.
+  const orbitFrom = periodicOrbit(network, from, false, false);
   const avg = orbitTo.average;
   const steadyExcursion = Math.max(orbitTo.max - avg, avg - orbitTo.min);
   if (steadyExcursion > band) return { time: null, final: avg };

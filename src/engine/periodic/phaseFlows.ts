@@ -11,9 +11,18 @@ export interface PhaseFlows {
   readonly A: readonly number[];
   /** DC state of the phase alone, x* = -A^{-1} b. */
   readonly xStar: readonly number[];
-  /** Flow (E, K = I - E, J) over the whole phase. */
+  /** Flow (E, K = I - E, J) over the whole phase; formed on first use. */
   readonly full: Flow;
-  /** Flows over the grid steps that cover the phase, in order (geometric start, then equal cells). */
+  /**
+   * E and K over the whole phase, without J (with J when composed from quanta): what the periodic
+   * orbit needs when it does not ask for the average. Formed on first use, independently of
+   * `full`, so that a figure does not depend on what was asked before.
+   */
+  readonly map: Flow;
+  /**
+   * Flows over the grid steps that cover the phase, in order (geometric start, then equal cells);
+   * formed on first use (an average needs only the whole phase's flow).
+   */
   readonly steps: readonly Flow[];
   /** c^T A: the output's rate is -(c^T A) (x* - x). */
   readonly outputRate: readonly number[];
@@ -91,14 +100,21 @@ export function phaseFlows(network: Network, key: PinStateKey, duration: number)
   // A whole number of quanta to rounding (a few units in the last place of the duration).
   const quanta = cache.quantum === null ? NaN : Math.round(duration / cache.quantum);
   const onGrid = quanta > 0 && Math.abs(duration / cache.quantum! - quanta) < 1e-9;
-  const full = onGrid ? composedFlow(state.powers, A, n, quanta, cache.quantum!, scale) : flow(A, n, duration, true, scale);
+  // With a quantum the composed flow is cheap and has J anyway.
+  let full: Flow | null = onGrid ? composedFlow(state.powers, A, n, quanta, cache.quantum!, scale) : null;
+  let map: Flow | null = full;
   let steps: Flow[] | null = null;
   const result: PhaseFlows = {
     key,
     duration,
     A,
     xStar,
-    full,
+    get full() {
+      return (full ??= flow(A, n, duration, true, scale));
+    },
+    get map() {
+      return (map ??= flow(A, n, duration, false, scale));
+    },
     get steps() {
       return (steps ??= gridSteps(A, n, duration, rate, scale));
     },

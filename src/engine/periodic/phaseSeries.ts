@@ -7,7 +7,7 @@ import { scaled, type PhaseFlows } from './phaseFlows.js';
  */
 export const SERIES_TERMS = 21;
 
-/** What a phase's series need, formed once per phase object. */
+/** What a pin state's series need, formed once per state matrix (shared by its phases of any length). */
 interface PhaseSeries {
   readonly n: number;
   /** D A D^{-1}, row-major. */
@@ -16,10 +16,11 @@ interface PhaseSeries {
   readonly rows: readonly number[];
 }
 
-const cache = new WeakMap<PhaseFlows, PhaseSeries>();
+const cache = new WeakMap<readonly number[], PhaseSeries>();
 
 function seriesOf(ph: PhaseFlows, output: readonly number[], d: readonly number[]): PhaseSeries {
-  let s = cache.get(ph);
+  // Keyed by the state matrix: the phases of one pin state share it (networkEquations.ts).
+  let s = cache.get(ph.A);
   if (s) return s;
   const n = d.length;
   const As = scaled(ph.A, n, d);
@@ -33,7 +34,7 @@ function seriesOf(ph: PhaseFlows, output: readonly number[], d: readonly number[
     }
   }
   s = { n, As, rows };
-  cache.set(ph, s);
+  cache.set(ph.A, s);
   return s;
 }
 
@@ -89,20 +90,21 @@ export function seriesRate(b: readonly number[], s: number): number {
 export function seriesStep(ph: PhaseFlows, g: readonly number[], s: number, output: readonly number[], scale: readonly number[]): number[] {
   const { n, As } = seriesOf(ph, output, scale);
   let v = g.map((x, i) => x * scale[i]);
+  let next = new Array<number>(n).fill(0);
   const sum = new Array<number>(n).fill(0);
   let coefficient = 1;
   for (let k = 1; k < SERIES_TERMS; k++) {
     coefficient *= s / k;
-    const next = new Array<number>(n).fill(0);
     for (let i = 0; i < n; i++) {
       let a = 0;
       for (let j = 0; j < n; j++) a += As[i * n + j] * v[j];
       next[i] = a;
     }
-    v = next;
+    [v, next] = [next, v];
     for (let i = 0; i < n; i++) sum[i] -= coefficient * v[i];
   }
-  return sum.map((x, i) => x / scale[i]);
+  for (let i = 0; i < n; i++) sum[i] /= scale[i];
+  return sum;
 }
 
 /**
