@@ -17,10 +17,21 @@ const ROUNDS = 3;
  * coordinate, as ripple and DC errors are (the coarse duty and the fine duty each move them
  * smoothly); the largest value seen wins. Without hints the search starts at lo and at hi.
  *
- * Syntax: maximizeOverCodes(g, lo, hi, fineBits, hints)
+ * With `fineCodes` only the coarse lines at those fine codes are searched, each once from the
+ * hints' coarse codes: for a function whose extremes along each coarse code's fine codes sit at
+ * known fine codes (the DC errors at fine 0, half and full: networkFigures.ts, networkDcTransfer).
+ *
+ * Syntax: maximizeOverCodes(g, lo, hi, fineBits, hints[, fineCodes])
  * Example: maximizeOverCodes((n) => -Math.abs(n - 1000), 0, 65535, 8, [0]).x  // 1000
  */
-export function maximizeOverCodes(g: (code: number) => number, lo: number, hi: number, fineBits: number, hints: readonly number[]): Maximum {
+export function maximizeOverCodes(
+  g: (code: number) => number,
+  lo: number,
+  hi: number,
+  fineBits: number,
+  hints: readonly number[],
+  fineCodes?: readonly number[],
+): Maximum {
   const seen = new Map<number, number>();
   const at = (code: number): number => {
     let v = seen.get(code);
@@ -52,15 +63,24 @@ export function maximizeOverCodes(g: (code: number) => number, lo: number, hi: n
     return node(k + 1) > node(k) ? first + (k + 1) * stride : first + k * stride;
   };
   const clamp = (code: number) => Math.min(Math.max(Math.round(code), lo), hi);
-  for (const hint of hints.length > 0 ? hints : [lo, hi]) {
+  // Along the coarse codes with fine part f held, from the first to the last code in range.
+  const coarseLine = (f: number, from: number) => {
+    const cFirst = Math.ceil((lo - f) / step);
+    const cLast = Math.floor((hi - f) / step);
+    if (cLast < cFirst) return from;
+    const k0 = Math.min(Math.max(Math.floor(from / step) - cFirst, 0), cLast - cFirst);
+    return line(cFirst * step + f, step, cLast - cFirst + 1, k0);
+  };
+  const starts = hints.length > 0 ? hints : [lo, hi];
+  if (fineCodes) {
+    for (const hint of starts) for (const f of fineCodes) consider(coarseLine(f, clamp(hint)));
+    return best;
+  }
+  for (const hint of starts) {
     let code = clamp(hint);
     for (let round = 0; round < ROUNDS; round++) {
       const start = code;
-      // Along the coarse codes: fine part f held, coarse from the first to the last code in range.
-      const f = code % step;
-      const cFirst = Math.ceil((lo - f) / step);
-      const cLast = Math.floor((hi - f) / step);
-      code = line(cFirst * step + f, step, cLast - cFirst + 1, Math.floor(code / step) - cFirst);
+      code = coarseLine(code % step, code);
       consider(code);
       // Along the fine codes: coarse part held, fine codes in range.
       const base = code - (code % step);

@@ -28,7 +28,8 @@ export interface NetworkMetricsOptions {
  * ripple peaks in the plan (maximizeFromHints, dutySearch.ts), and the largest DC errors likewise
  * from the plan's DC peaks; with a fine output the codes are discrete, and both are searched over
  * codes from the nominal's worst codes (maximizeOverCodes, codeSearch.ts) instead of the engine's
- * scan of every coarse code. `engineOnly` calls networkWorstRipple and networkDcTransfer
+ * scan of every coarse code: the ripple along coarse and fine codes, the DC errors along the coarse
+ * codes at the fine codes where the engine looks for them (0, half and full). `engineOnly` calls networkWorstRipple and networkDcTransfer
  * themselves (the full searches, as analyze does); tests hold the two to each other.
  *
  * Syntax: networkMetrics(network, plan[, { engineOnly }])
@@ -48,10 +49,14 @@ export function networkMetrics(network: Network, plan: MetricPlan, options: Netw
     const codes = (hints: number[] | null) => (hints ?? []).map((d) => Math.round(d * fine.total));
     const best = maximizeOverCodes((code) => networkRipple(network, code / fine.total), lo, hi, fine.bits, codes(plan.rippleHints));
     worstRipple = { duty: best.x / fine.total, ripple: best.value };
+    // The engine's premise for DC errors (networkDcTransfer): along a coarse code's fine codes
+    // their extremes sit at fine 0, half and full, so three coarse lines are searched.
+    const last = 2 ** fine.bits - 1;
+    const probes = [...new Set([0, Math.round(0.5 * last), last])];
     search = (g, _min, _max, figure) => {
       if (figure === 'inl' && !plan.inl) return a;
       const hints = codes(figure === 'droop' ? plan.droopHints : plan.inlHints);
-      return maximizeOverCodes((code) => g(code / fine.total), lo, hi, fine.bits, hints).x / fine.total;
+      return maximizeOverCodes((code) => g(code / fine.total), lo, hi, fine.bits, hints, probes).x / fine.total;
     };
   } else {
     const best = maximizeFromHints((d) => networkRipple(network, d), a, b, plan.rippleHints, DUTY_XTOL);

@@ -33,7 +33,8 @@ export interface PhaseFlows {
 /** A network's equations and its phase flows, computed once per network object. */
 export interface NetworkCache {
   readonly equations: NetworkEquations;
-  readonly flows: Map<string, PhaseFlows>;
+  /** Phase flows per pin state and length (numbers as keys: no string formatting per lookup). */
+  readonly flows: Map<PinStateKey, Map<number, PhaseFlows>>;
   /** What each pin state needs whatever the phase length. */
   readonly states: Map<PinStateKey, PinStateFlows>;
   /**
@@ -88,8 +89,12 @@ export function networkCache(network: Network): NetworkCache {
  */
 export function phaseFlows(network: Network, key: PinStateKey, duration: number): PhaseFlows {
   const cache = networkCache(network);
-  const id = `${key}:${duration}`;
-  const hit = cache.flows.get(id);
+  let byLength = cache.flows.get(key);
+  if (!byLength) {
+    byLength = new Map();
+    cache.flows.set(key, byLength);
+  }
+  const hit = byLength.get(duration);
   if (hit) return hit;
   const eq = cache.equations;
   const n = eq.n;
@@ -121,8 +126,8 @@ export function phaseFlows(network: Network, key: PinStateKey, duration: number)
     outputRate,
     rate,
   };
-  if (cache.flows.size >= FLOW_CACHE_SIZE) cache.flows.clear();
-  cache.flows.set(id, result);
+  if (byLength.size >= FLOW_CACHE_SIZE) byLength.clear();
+  byLength.set(duration, result);
   return result;
 }
 
