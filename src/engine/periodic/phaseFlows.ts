@@ -15,8 +15,9 @@ export interface PhaseFlows {
   readonly full: Flow;
   /**
    * E and K over the whole phase, without J (with J when composed from quanta): what the periodic
-   * orbit needs when it does not ask for the average. Formed on first use, independently of
-   * `full`, so that a figure does not depend on what was asked before.
+   * orbit needs when it does not ask for the average. Formed on first use from the grid cell's
+   * flow (powerFlow), independently of `full`, so that a figure does not depend on what was asked
+   * before.
    */
   readonly map: Flow;
   /**
@@ -82,7 +83,9 @@ export function networkCache(network: Network): NetworkCache {
  * locates turning points of the output: cells of length h with h * rate <= 1 where rate = ||A||_inf
  * bounds every modal rate, at least 4 and at most 64 cells; when a cell is still longer than the
  * fastest time scale, the first cell is marched on the geometric grid h 2^-K, ..., h/2, h so that
- * a turning point caused by a fast mode near the phase start is bracketed too.
+ * a turning point caused by a fast mode near the phase start is bracketed too. The grid's flows are
+ * formed when `steps` is first read; `map` (E and K without J) is the cell's flow composed over the
+ * cells, so an orbit without its average costs one matrix exponential per phase.
  *
  * Syntax: phaseFlows(network, key, duration)
  * Example: phaseFlows(n, 'hl', 0.25 * n.period).full.E
@@ -109,6 +112,10 @@ export function phaseFlows(network: Network, key: PinStateKey, duration: number)
   let full: Flow | null = onGrid ? composedFlow(state.powers, A, n, quanta, cache.quantum!, scale) : null;
   let map: Flow | null = full;
   let steps: Flow[] | null = null;
+  // The grid's equal cells; the whole phase's E and K are the cell's flow composed `cells` times.
+  const cells = Math.min(64, Math.max(4, Math.ceil(duration * rate)));
+  let cell: Flow | null = null;
+  const cellFlow = () => (cell ??= flow(A, n, duration / cells, false, scale));
   const result: PhaseFlows = {
     key,
     duration,
@@ -118,10 +125,10 @@ export function phaseFlows(network: Network, key: PinStateKey, duration: number)
       return (full ??= flow(A, n, duration, true, scale));
     },
     get map() {
-      return (map ??= flow(A, n, duration, false, scale));
+      return (map ??= powerFlow(cellFlow(), cells, n));
     },
     get steps() {
-      return (steps ??= gridSteps(A, n, duration, rate, scale));
+      return (steps ??= gridSteps(A, n, cellFlow(), cells, rate, scale));
     },
     outputRate,
     rate,
@@ -162,34 +169,46 @@ function composedFlow(powers: Flow[], A: readonly number[], n: number, k: number
   return sum!;
 }
 
-/** The flow over a.t + b.t from the flows over a.t and b.t (both with J). */
+/**
+ * The flow over k steps of f (k >= 1) by binary powering with the same sums (E and K; J too when f
+ * has it): the flow over a phase from the flow over one of its grid cells, without a second
+ * matrix exponential.
+ */
+function powerFlow(f: Flow, k: number, n: number): Flow {
+  let sum: Flow | null = null;
+  let power = f;
+  for (;;) {
+    if (k % 2 === 1) sum = sum === null ? power : addFlows(sum, power, n);
+    k = Math.floor(k / 2);
+    if (k === 0) return sum!;
+    power = doubleFlow(power, n);
+  }
+}
+
+/** The flow over a.t + b.t from the flows over a.t and b.t (J when both have it). */
 function addFlows(a: Flow, b: Flow, n: number): Flow {
   const nn = n * n;
   const E = matmul(a.E, b.E, n);
   const EK = matmul(a.E, b.K, n);
-  const EJ = matmul(a.E, b.J!, n);
   const K = new Array<number>(nn);
+  for (let i = 0; i < nn; i++) K[i] = a.K[i] + EK[i];
+  if (!a.J || !b.J) return { t: a.t + b.t, E, K, J: null };
+  const EJ = matmul(a.E, b.J, n);
   const J = new Array<number>(nn);
-  for (let i = 0; i < nn; i++) {
-    K[i] = a.K[i] + EK[i];
-    J[i] = a.J![i] + b.t * a.K[i] + EJ[i];
-  }
+  for (let i = 0; i < nn; i++) J[i] = a.J[i] + b.t * a.K[i] + EJ[i];
   return { t: a.t + b.t, E, K, J };
 }
 
-function gridSteps(A: readonly number[], n: number, duration: number, rate: number, scale: readonly number[]): Flow[] {
-  const cells = Math.min(64, Math.max(4, Math.ceil(duration * rate)));
-  const h = duration / cells;
+function gridSteps(A: readonly number[], n: number, cell: Flow, cells: number, rate: number, scale: readonly number[]): Flow[] {
+  const h = cell.t;
   const steps: Flow[] = [];
   const fine = h * rate > 1 ? Math.min(60, Math.ceil(Math.log2(h * rate))) : 0;
   if (fine > 0) {
     const geometric: Flow[] = [];
     for (let j = fine; j >= 1; j--) geometric.push(flow(A, n, h * 2 ** -j, false, scale));
     steps.push(geometric[0], ...geometric);
-    const cell = flow(A, n, h, false, scale);
     for (let i = 1; i < cells; i++) steps.push(cell);
   } else {
-    const cell = flow(A, n, h, false, scale);
     for (let i = 0; i < cells; i++) steps.push(cell);
   }
   return steps;

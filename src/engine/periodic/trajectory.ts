@@ -84,7 +84,8 @@ export function periodTrajectoryPoints(
 }
 
 /**
- * The state and output a time delta after a trajectory point inside its phase.
+ * The output a time delta after a trajectory point inside its phase (the series of e^{sA} when
+ * delta is short against every mode, else the exact flow).
  *
  * Syntax: advanceInPhase(phase, ref, point, delta, output, scale)
  */
@@ -98,8 +99,14 @@ export function advanceInPhase(
 ): number {
   const n = ref.length;
   const g = ph.xStar.map((v, i) => v - ref[i] - d[i]);
-  const f = flow(ph.A, n, delta, false, scale);
   let w = 0;
+  if (delta * ph.rate <= 1) {
+    // short against every mode: the series of e^{sA} (phaseSeries.ts)
+    const change = seriesStep(ph, g, delta, output, scale);
+    for (let i = 0; i < n; i++) w += output[i] * (d[i] + change[i]);
+    return w;
+  }
+  const f = flow(ph.A, n, delta, false, scale);
   for (let i = 0; i < n; i++) w += output[i] * (d[i] + rowDot(f.K, i, g, n));
   return w;
 }
