@@ -1,5 +1,5 @@
 import type { Duties, Network } from '../../circuit/network.js';
-import { identity, matmul } from '../../numeric/dense.js';
+import { identity, matmul, matvec } from '../../numeric/dense.js';
 import { luFactor, luSolve, solveLinear } from '../../numeric/lu.js';
 import { brentRoot } from '../../numeric/brentRoot.js';
 import { periodPowers, type PeriodPowers } from '../periodPowers.js';
@@ -73,12 +73,14 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   const ringing = fastestRinging(network);
   let step = Math.max(1, Math.ceil(safeFrom / SCAN_SAMPLES));
   if (ringing > 0) step = Math.min(step, Math.max(1, Math.floor(0.2 / (ringing * T))));
-  // Sample periods 0, step, 2 step, ... below safeFrom, keeping each delta.
+  // Sample periods 0, step, 2 step, ... below safeFrom, keeping each delta: M^step is formed once
+  // (its columns by binary powering, periodPowers.ts), then one product per sample.
+  const stepMap = stepMatrix(powers, step, n);
   const samples: Array<{ m: number; delta: number[] }> = [];
   let delta = delta0.slice();
   for (let m = 0; m < safeFrom; m += step) {
     samples.push({ m, delta });
-    delta = powers.applyPower(step, delta);
+    delta = matvec(stepMap, delta, n);
     if (samples.length > 4 * SCAN_SAMPLES + 8) break;
   }
   let last = -1;
@@ -120,6 +122,18 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   const span = b.tau - aTau;
   const tau = a.t + brentRoot(f, 0, span, span * 1e-12, sign * (offset + a.w) - band, sign * (offset + b.w) - band);
   return { time: lo * T + tau, final: avg };
+}
+
+/** M^k as a matrix (row-major), its columns M^k e_j by binary powering. */
+function stepMatrix(powers: PeriodPowers, k: number, n: number): number[] {
+  const out = new Array<number>(n * n).fill(0);
+  for (let j = 0; j < n; j++) {
+    const e = new Array<number>(n).fill(0);
+    e[j] = 1;
+    const col = powers.applyPower(k, e);
+    for (let i = 0; i < n; i++) out[i * n + j] = col[i];
+  }
+  return out;
 }
 
 /** First period m from which the transient provably stays inside the slack (step 1 of the method). */
