@@ -155,10 +155,20 @@ export function worstCase(project: Project, circuit?: ToleranceCircuit, options:
     }
   }
 
+  // Figures often share their worst point: the engine confirms each point once.
+  const confirmed = new Map<string, CircuitMetrics>();
+  const confirm = (z: number[]): CircuitMetrics => {
+    const key = z.join(',');
+    let m = confirmed.get(key);
+    if (!m) {
+      m = circuitMetrics(circuitAt(nominalCircuit, parameters, z), plan, { engineOnly: true });
+      confirmed.set(key, m);
+    }
+    return m;
+  };
   const figureResult = (f: Figure): WorstCaseFigure => {
     const r = results.get(f)!;
-    const worst = circuitAt(nominalCircuit, parameters, r.z);
-    const m = options.confirmWithEngine ? circuitMetrics(worst, plan, { engineOnly: true }) : evaluate(r.z);
+    const m = options.confirmWithEngine ? confirm(r.z) : evaluate(r.z);
     const { value, duty } = figureValue(m, f);
     const limit = limitOf(plan, f);
     return {
