@@ -1,8 +1,9 @@
 import type { Network } from '../../circuit/network.js';
 import { networkEquations, type NetworkEquations, type PinStateKey } from '../../circuit/networkEquations.js';
 import { solveLinear } from '../../numeric/lu.js';
-import { matmul, normInf } from '../../numeric/dense.js';
+import { normInf } from '../../numeric/dense.js';
 import { doubleFlow, flow, type Flow } from '../flow.js';
+import { addFlows, quantaTable, tableFlow, type QuantaTable } from './quantaFlows.js';
 
 /** Everything the engine keeps about one phase (pin state and length) of a network. */
 export interface PhaseFlows {
@@ -45,14 +46,19 @@ export interface NetworkCache {
   readonly quantum: number | null;
 }
 
-/** One pin state's DC state, rates and, with a quantum, its flows over 2^j quanta. */
+/** One pin state's DC state, rates and, with a quantum, its flows over whole numbers of quanta. */
 interface PinStateFlows {
   readonly xStar: readonly number[];
   readonly rate: number;
   readonly outputRate: readonly number[];
-  /** Flows (with J) over 2^j quanta, j = 0, 1, ..., formed as needed. */
-  readonly powers: Flow[];
+  /** Flows (with J) over k quanta (quantaFlows.ts), formed on first use. */
+  quanta: QuantaTable | null;
+  /** Flows (without J) over k quarter quanta: the grid cells of a phase cut in 4. */
+  quarters: QuantaTable | null;
 }
+
+/** Quarter quanta per quantum: a phase of k quanta cut in 4 grid cells has cells of k quarters. */
+const QUARTERS = 4;
 
 const caches = new WeakMap<Network, NetworkCache>();
 const FLOW_CACHE_SIZE = 256;
@@ -78,8 +84,9 @@ export function networkCache(network: Network): NetworkCache {
  * Flows of one phase of a network, remembered per (pin state, length).
  *
  * Method: the exact flow of x' = A x + b (flow.ts, augmented matrix exponential); with a fine output,
- * whose phase lengths are whole numbers of quanta, composed from the flows over 2^j quanta
- * (composedFlow, below), one matrix exponential per pin state and network. The grid that
+ * whose phase lengths are whole numbers of quanta, from the pin state's table of flows over whole
+ * quanta (quantaFlows.ts; grid cells of whole quarter quanta likewise), one matrix exponential per
+ * pin state and network. The grid that
  * locates turning points of the output: cells of length h with h * rate <= 1 where rate = ||A||_inf
  * bounds every modal rate, at least 4 and at most 64 cells; when a cell is still longer than the
  * fastest time scale, the first cell is marched on the geometric grid h 2^-K, ..., h/2, h so that
@@ -106,16 +113,26 @@ export function phaseFlows(network: Network, key: PinStateKey, duration: number)
   const state = pinStateFlows(cache, key);
   const { xStar, rate, outputRate } = state;
   // A whole number of quanta to rounding (a few units in the last place of the duration).
-  const quanta = cache.quantum === null ? NaN : Math.round(duration / cache.quantum);
-  const onGrid = quanta > 0 && Math.abs(duration / cache.quantum! - quanta) < 1e-9;
-  // With a quantum the composed flow is cheap and has J anyway.
-  let full: Flow | null = onGrid ? composedFlow(state.powers, A, n, quanta, cache.quantum!, scale) : null;
+  const q = cache.quantum;
+  const quanta = q === null ? NaN : Math.round(duration / q);
+  const onGrid = quanta > 0 && Math.abs(duration / q! - quanta) < 1e-9;
+  const maxQuanta = q === null ? 0 : Math.round(network.period / q);
+  // With a quantum the flows come from the pin state's tables (no matrix exponential per phase).
+  const table = () => (state.quanta ??= quantaTable(flow(A, n, q!, true, scale), n, maxQuanta));
+  let full: Flow | null = onGrid ? tableFlow(table(), quanta) : null;
   let map: Flow | null = full;
   let steps: Flow[] | null = null;
   // The grid's equal cells; the whole phase's E and K are the cell's flow composed `cells` times.
   const cells = Math.min(64, Math.max(4, Math.ceil(duration * rate)));
   let cell: Flow | null = null;
-  const cellFlow = () => (cell ??= flow(A, n, duration / cells, false, scale));
+  const cellFlow = () => {
+    if (cell) return cell;
+    if (onGrid && (QUARTERS * quanta) % cells === 0) {
+      state.quarters ??= quantaTable(flow(A, n, q! / QUARTERS, false, scale), n, QUARTERS * maxQuanta);
+      cell = tableFlow(state.quarters, (QUARTERS * quanta) / cells);
+    } else cell = flow(A, n, duration / cells, false, scale);
+    return cell;
+  };
   const result: PhaseFlows = {
     key,
     duration,
@@ -148,29 +165,13 @@ function pinStateFlows(cache: NetworkCache, key: PinStateKey): PinStateFlows {
   if (!xStar) throw new RangeError('phaseFlows: the circuit has no DC state (singular state matrix)');
   const outputRate = new Array<number>(n).fill(0);
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) outputRate[j] += eq.output[i] * A[i * n + j];
-  state = { xStar, rate: normInf(scaled(A, n, eq.scale), n), outputRate, powers: [] };
+  state = { xStar, rate: normInf(scaled(A, n, eq.scale), n), outputRate, quanta: null, quarters: null };
   cache.states.set(key, state);
   return state;
 }
 
 /**
- * The flow over k quanta (k a whole number) from the flows over 2^j quanta: one matrix exponential
- * for the quantum (flow.ts), then doublings (doubleFlow) and sums over the binary digits of k with
- * E(a + b) = E(a) E(b), K(a + b) = K(a) + E(a) K(b), J(a + b) = J(a) + b K(a) + E(a) J(b) (from
- * K(a + s) = K(a) + E(a) K(s)): every term keeps its relative accuracy, as in scaling and squaring.
- */
-function composedFlow(powers: Flow[], A: readonly number[], n: number, k: number, quantum: number, scale: readonly number[]): Flow {
-  if (powers.length === 0) powers.push(flow(A, n, quantum, true, scale));
-  let sum: Flow | null = null;
-  for (let j = 0; k > 0; j++, k = Math.floor(k / 2)) {
-    while (powers.length <= j) powers.push(doubleFlow(powers[powers.length - 1], n));
-    if (k % 2 === 1) sum = sum === null ? powers[j] : addFlows(sum, powers[j], n);
-  }
-  return sum!;
-}
-
-/**
- * The flow over k steps of f (k >= 1) by binary powering with the same sums (E and K; J too when f
+ * The flow over k steps of f (k >= 1) by binary powering with the flow sums (E and K; J too when f
  * has it): the flow over a phase from the flow over one of its grid cells, without a second
  * matrix exponential.
  */
@@ -183,20 +184,6 @@ function powerFlow(f: Flow, k: number, n: number): Flow {
     if (k === 0) return sum!;
     power = doubleFlow(power, n);
   }
-}
-
-/** The flow over a.t + b.t from the flows over a.t and b.t (J when both have it). */
-function addFlows(a: Flow, b: Flow, n: number): Flow {
-  const nn = n * n;
-  const E = matmul(a.E, b.E, n);
-  const EK = matmul(a.E, b.K, n);
-  const K = new Array<number>(nn);
-  for (let i = 0; i < nn; i++) K[i] = a.K[i] + EK[i];
-  if (!a.J || !b.J) return { t: a.t + b.t, E, K, J: null };
-  const EJ = matmul(a.E, b.J, n);
-  const J = new Array<number>(nn);
-  for (let i = 0; i < nn; i++) J[i] = a.J[i] + b.t * a.K[i] + EJ[i];
-  return { t: a.t + b.t, E, K, J };
 }
 
 function gridSteps(A: readonly number[], n: number, cell: Flow, cells: number, rate: number, scale: readonly number[]): Flow[] {
