@@ -82,6 +82,17 @@ describe('tolerance computes version 1.1 circuits (the general engine)', () => {
   });
 });
 
+describe('tolerance of a network in the built worker (dist/tolerance-worker.js)', () => {
+  it('two threads give the JSON of one (1200 samples: 600 per thread, above the network threshold of 500)', () => {
+    const run = (workers: string) => runBuilt(['tolerance', sallenKey, '--samples', '1200', '--workers', workers, '--format', 'json']);
+    const one = run('1');
+    const two = run('2');
+    expect(two.stderr).toBe('');
+    expect(two.stdout).toBe(one.stdout);
+    expect(JSON.parse(two.stdout).monteCarlo.samples).toBe(1200);
+  });
+});
+
 describe('analyze, check and compare compute version 1.1 circuits', () => {
   it('analyze --format json of each sample: the model.md contract, a settled step and its checks', () => {
     for (const file of [complement, fine, sallenKey]) {

@@ -116,9 +116,19 @@ export function networkDcTransfer(network: Network, min: number, max: number, se
     }
     candidates = [...codes].map((code) => code / total);
   }
+  // Each average once: the droop and INL searches look at the same points (endpointFit.ts).
+  const averages = new Map<number, number>();
+  const average = (f: number) => {
+    let y = averages.get(f);
+    if (y === undefined) {
+      y = networkAverage(network, f);
+      averages.set(f, y);
+    }
+    return y;
+  };
   return endpointFit(
     {
-      average: (f) => networkAverage(network, f),
+      average,
       ideal: (f) => networkIdeal(network, f),
       quantize: (f) => quantizedFraction(network, f),
       span: network.pin.high - network.pin.low,
