@@ -13,6 +13,7 @@ import { fileURLToPath } from 'node:url';
 import { analyzeCost } from './bench-analyze.js';
 import { designAnswersCost, designCost, infeasibleDesignCost } from './bench-design.js';
 import { monteCarloRate } from './bench-monte-carlo.js';
+import { networkToleranceCost } from './bench-network-tolerance.js';
 import { engineVersusOde } from './bench-ode-race.js';
 import { processStart } from './bench-process.js';
 import { settlingCost } from './bench-settling.js';
@@ -78,6 +79,11 @@ export async function runBench(): Promise<BenchReport> {
   const monteCarlo = await monteCarloRate(buildError ? undefined : new URL('../dist/tolerance-worker.js', import.meta.url));
   sections.push(monteCarlo.section);
   data.monteCarlo = monteCarlo.data;
+
+  step('tolerance of version 1.1 circuits (whole process, tens of seconds a run)');
+  const networkTolerance = buildError ? null : networkToleranceCost(root);
+  if (networkTolerance) sections.push(networkTolerance.section);
+  data.networkTolerance = networkTolerance?.data ?? null;
 
   step('whole process: dacsmith against node -e ""');
   const dacsmith = join('bin', 'dacsmith.cjs');
@@ -153,6 +159,12 @@ export async function runBench(): Promise<BenchReport> {
       goal: '< 2 s',
       measured: slowestMc && slowestMc.length > 0 ? `${formatNumber(Math.max(...slowestMc))} s (slower case)` : 'skipped',
       met: slowestMc && slowestMc.length > 0 ? Math.max(...slowestMc) < 2 : null,
+    },
+    {
+      name: 'tolerance of version 1.1 circuits, 10 000 samples',
+      goal: '< 5 s whole process',
+      measured: networkTolerance ? `${formatNumber(Math.max(...networkTolerance.data.map((d) => d.seconds)))} s wall (slowest sample)` : 'skipped',
+      met: networkTolerance ? Math.max(...networkTolerance.data.map((d) => d.seconds)) < 5 : null,
     },
     {
       name: 'dacsmith analyze, whole process',

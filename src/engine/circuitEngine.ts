@@ -66,7 +66,18 @@ export function circuitEngineOf(project: Project): CircuitEngine {
   return project.network ? networkEngine(networkFromProject(project), project.file) : ladderEngine(ladderFromProject(project), project.file);
 }
 
-function ladderEngine(ladder: Ladder, file: string): CircuitEngine {
+/**
+ * The engine for a circuit given as such (a tolerance study's nominal `Ladder` or `Network`), with
+ * the same domain checks as circuitEngineOf.
+ *
+ * Syntax: engineOfCircuit(circuit[, file])
+ * Example: engineOfCircuit(networkFromProject(p), p.file).warningFigures(0.05, 0.95)
+ */
+export function engineOfCircuit(circuit: Ladder | Network, file?: string): CircuitEngine {
+  return 'pin' in circuit ? networkEngine(circuit, file) : ladderEngine(circuit, file);
+}
+
+function ladderEngine(ladder: Ladder, file: string | undefined): CircuitEngine {
   checkNumericalDomain(ladder, file);
   return {
     ladder,

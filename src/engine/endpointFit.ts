@@ -15,7 +15,18 @@ export interface TransferSource {
   low: number;
   /** Discrete points to scan for the largest errors; absent: search the interval. */
   candidates?: readonly number[];
+  /**
+   * A search of one's own for where g = |error| or |deviation| is largest (a tolerance study
+   * starting from a nominal circuit's peaks); it replaces the candidates and the interval search.
+   */
+  search?: ExtremumSearch;
 }
+
+/**
+ * Where g (>= 0) is largest over [min, max]: `figure` says which error g is (`droop`: |ideal -
+ * average|, `inl`: |fit - average|). Returns the fraction.
+ */
+export type ExtremumSearch = (g: (d: number) => number, min: number, max: number, figure: 'droop' | 'inl') => number;
 
 /**
  * DC transfer errors over [min, max], every one signed ideal minus actual (README "Sign
@@ -24,15 +35,15 @@ export interface TransferSource {
  * fit - average. With min = max the fit takes the ideal slope. Endpoint-fit terms as DAC data
  * sheets define them (common practice).
  *
- * Method: the largest errors over `candidates` when given (discrete codes), else a 16-cell grid
- * plus Brent refinement (numeric/maximizeOnInterval.ts): with unequal driver resistances the
- * average is not affine in the duty, so the extremes must be searched.
+ * Method: the largest errors by `search` when given, else over `candidates` when given (discrete
+ * codes), else a 16-cell grid plus Brent refinement (numeric/maximizeOnInterval.ts): with unequal
+ * driver resistances the average is not affine in the duty, so the extremes must be searched.
  *
  * Syntax: endpointFit(source, min, max)
  * Example: endpointFit({ average, ideal, quantize: (d) => d, span: 3.3, low: 0 }, 0.05, 0.95).inl.error
  */
 export function endpointFit(source: TransferSource, min: number, max: number): DcTransfer {
-  const { average, ideal, quantize, span, low, candidates } = source;
+  const { average, ideal, quantize, span, low, candidates, search } = source;
   const error = (d: number) => ideal(d) - average(d);
   const qMin = quantize(min);
   const qMax = quantize(max);
@@ -41,7 +52,8 @@ export function endpointFit(source: TransferSource, min: number, max: number): D
   const slope = qMax > qMin ? (yMax - yMin) / (qMax - qMin) : span;
   const fit = (d: number) => yMin + slope * (quantize(d) - qMin);
   const deviation = (d: number) => fit(d) - average(d);
-  const largest = (f: (d: number) => number): number => {
+  const largest = (f: (d: number) => number, figure: 'droop' | 'inl'): number => {
+    if (search) return search((d) => Math.abs(f(d)), min, max, figure);
     if (!candidates) return maximizeOnInterval((d) => Math.abs(f(d)), min, max).x;
     let at = candidates[0];
     let best = -1;
@@ -51,8 +63,8 @@ export function endpointFit(source: TransferSource, min: number, max: number): D
     }
     return at;
   };
-  const droopAt = largest(error);
-  const inlAt = largest(deviation);
+  const droopAt = largest(error, 'droop');
+  const inlAt = largest(deviation, 'inl');
   return {
     droop: { duty: droopAt, error: error(droopAt) },
     offsetError: low - (yMin - slope * qMin),

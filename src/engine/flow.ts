@@ -40,7 +40,10 @@ export function flow(A: readonly number[], n: number, t: number, withIntegral = 
   if (t === 0) {
     return { t, E: identity(n), K: zeros(n * n), J: withIntegral ? zeros(n * n) : null };
   }
-  const z = zeros(m * m);
+  // Scratch for the augmented matrix and its exponential, reused between calls (allocation was a
+  // large share of the engine's time; flow never calls itself).
+  const { z, ez: buffer } = scratch(m);
+  z.fill(0);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       const x = scale ? (t * A[i * n + j] * scale[i]) / scale[j] : t * A[i * n + j];
@@ -49,7 +52,7 @@ export function flow(A: readonly number[], n: number, t: number, withIntegral = 
     }
   }
   if (withIntegral) for (let i = 0; i < n; i++) z[(n + i) * m + 2 * n + i] = 1;
-  const ez = expm(z, m);
+  const ez = expm(z, m, buffer);
   const E = zeros(n * n);
   const K = zeros(n * n);
   const J = withIntegral ? zeros(n * n) : null;
@@ -62,6 +65,17 @@ export function flow(A: readonly number[], n: number, t: number, withIntegral = 
     }
   }
   return { t, E, K, J };
+}
+
+const scratches = new Map<number, { z: Matrix; ez: Matrix }>();
+
+function scratch(m: number): { z: Matrix; ez: Matrix } {
+  let s = scratches.get(m);
+  if (!s) {
+    s = { z: zeros(m * m), ez: zeros(m * m) };
+    scratches.set(m, s);
+  }
+  return s;
 }
 
 /**

@@ -38,11 +38,21 @@ export type { PeriodicState } from './modal/periodicState.js';
 export { modalSettling } from './modal/settling.js';
 export { MAX_MODAL_CONDITION } from './modalRoute.js';
 // For the design search over version 1.1 circuits (design/network), which evaluates many
-// networks: the general engine's parts, and an engine for one network.
+// networks, and for their tolerance studies: the general engine's parts and figures of one
+// network, its code arithmetic and its domain check.
 export { flow, type Flow } from './flow.js';
 export { periodPowers, type PeriodPowers } from './periodPowers.js';
 export { pinSchedule, type ScheduledPhase } from './periodic/pinSchedule.js';
+export {
+  networkPoint,
+  networkRipple,
+  networkAverage,
+  networkWorstRipple,
+  networkDcTransfer,
+  networkSettling,
+  networkPinPeakCurrent,
+} from './periodic/networkFigures.js';
+export type { ExtremumSearch } from './endpointFit.js';
 export { codeParts, networkDuties, networkIdeal, quantizedFraction } from './periodic/networkCodes.js';
-export { networkPinPeakCurrent } from './periodic/networkFigures.js';
 export { checkNetworkDomain } from './periodic/networkDomain.js';
-export { networkCircuitEngine, type CircuitEngine } from './circuitEngine.js';
+export { circuitEngineOf, engineOfCircuit, networkCircuitEngine, type CircuitEngine } from './circuitEngine.js';

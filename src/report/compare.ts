@@ -2,6 +2,7 @@ import { ofFullScale } from './quantities.js';
 import { jsonValue } from './jsonValue.js';
 import { plot } from 'asciichart';
 import type { Analysis, CompareOverlays, Overlay } from '../engine/index.js';
+import type { NetworkStage } from '../circuit/network.js';
 import type { Project } from '../project/types.js';
 import { formatEng } from '../units/index.js';
 import { axisFormatter } from './axis.js';
@@ -72,7 +73,16 @@ interface CheckRow {
 
 // ---------------------------------------------------------------- inputs
 
-/** Every input the comparison looks at, in file order, with its SI unit ('fraction' for 0..1, '' for none). */
+/** The stages of a project in file order (its `network` keeps the active ones too). */
+function stagesOf(p: Project): readonly NetworkStage[] {
+  return p.network?.stages ?? p.filter.stages.map((s) => ({ kind: 'rc' as const, r: s.r, c: s.c, buffered: s.buffered }));
+}
+
+/**
+ * Every input the comparison looks at, in file order, with its SI unit ('fraction' for 0..1, '' for
+ * none): for each stage both kinds' parts (null where the stage is of the other kind, or absent),
+ * so that the two files' rows line up; the second PWM output's keys (model.md 1.1), null without one.
+ */
 function inputsOf(p: Project, stageCount: number): InputRow[] {
   const { pwm, load, spec } = p;
   const rows: Array<Omit<InputRow, 'head' | 'base'> & { value: InputValue }> = [
@@ -90,15 +100,36 @@ function inputsOf(p: Project, stageCount: number): InputRow[] {
     { key: 'load.resistance', label: 'load resistance', unit: 'ohm', value: load.resistance ?? null },
     { key: 'load.capacitance', label: 'load capacitance', unit: 'F', value: load.capacitance },
   ];
+  const stages = stagesOf(p);
   for (let i = 0; i < stageCount; i++) {
-    const s = p.filter.stages[i];
+    const s: NetworkStage | undefined = stages[i];
+    const rc = s?.kind === 'rc' ? s : null;
+    const sk = s?.kind === 'sallen-key' ? s : null;
     const k = `filter.stages[${i}]`;
     rows.push(
-      { key: `${k}.r`, label: `R${i + 1}`, unit: 'ohm', value: s?.r ?? null },
-      { key: `${k}.c`, label: `C${i + 1}`, unit: 'F', value: s?.c ?? null },
-      { key: `${k}.buffered`, label: `follower after stage ${i + 1}`, unit: '', value: s ? s.buffered : null },
+      // An RC stage has no `active` key: null, as for a missing stage (showInput tells them apart).
+      { key: `${k}.active`, label: `stage ${i + 1} active`, unit: '', value: sk ? 'sallen-key' : null },
+      { key: `${k}.r`, label: `R${i + 1}`, unit: 'ohm', value: rc?.r ?? null },
+      { key: `${k}.c`, label: `C${i + 1}`, unit: 'F', value: rc?.c ?? null },
+      { key: `${k}.buffered`, label: `follower after stage ${i + 1}`, unit: '', value: rc ? rc.buffered : null },
+      { key: `${k}.r1`, label: `stage ${i + 1} R1`, unit: 'ohm', value: sk?.r1 ?? null },
+      { key: `${k}.r2`, label: `stage ${i + 1} R2`, unit: 'ohm', value: sk?.r2 ?? null },
+      { key: `${k}.c1`, label: `stage ${i + 1} C1`, unit: 'F', value: sk?.c1 ?? null },
+      { key: `${k}.c2`, label: `stage ${i + 1} C2`, unit: 'F', value: sk?.c2 ?? null },
     );
   }
+  const second = p.network?.second ?? null;
+  rows.push(
+    { key: 'second_pwm.role', label: 'second output role', unit: '', value: second?.role ?? null },
+    { key: 'second_pwm.bits', label: 'second output bits (fine)', unit: '', value: second?.bits ?? null },
+    { key: 'second_pwm.into.stage', label: 'second output enters stage', unit: '', value: second ? second.stage + 1 : null },
+    { key: 'second_pwm.into.r', label: 'second output R', unit: 'ohm', value: second?.r ?? null },
+    { key: 'second_pwm.into.c', label: 'second output C', unit: 'F', value: second?.c ?? null },
+    { key: 'second_pwm.high', label: 'second output high level', unit: 'V', value: second?.pin.high ?? null },
+    { key: 'second_pwm.low', label: 'second output low level', unit: 'V', value: second?.pin.low ?? null },
+    { key: 'second_pwm.driver.high', label: 'second output driver resistance, high', unit: 'ohm', value: second?.pin.driverHigh ?? null },
+    { key: 'second_pwm.driver.low', label: 'second output driver resistance, low', unit: 'ohm', value: second?.pin.driverLow ?? null },
+  );
   rows.push(
     { key: 'spec.ripple', label: 'ripple limit', unit: 'V', value: spec.ripple ?? null },
     { key: 'spec.droop', label: 'droop limit', unit: 'V', value: spec.droop ?? null },
@@ -120,7 +151,7 @@ function same(a: InputValue, b: InputValue): boolean {
 }
 
 function changedInputs(base: Project, head: Project): InputRow[] {
-  const n = Math.max(base.filter.stages.length, head.filter.stages.length);
+  const n = Math.max(stagesOf(base).length, stagesOf(head).length);
   const b = inputsOf(base, n);
   const h = inputsOf(head, n);
   return b.map((row, i) => ({ ...row, head: h[i].head })).filter((r) => !same(r.base, r.head));
@@ -213,8 +244,15 @@ const pct = (d: number) => `${(100 * d).toFixed(1)} %`;
 /** Unit symbol for display. */
 const symbol = (unit: string) => (unit === 'ohm' ? 'Ω' : unit);
 
-function showInput(v: InputValue, unit: string, key: string): string {
-  if (v === null) return key === 'load.resistance' ? 'open' : key.startsWith('filter.') ? '(no stage)' : '(none)';
+/** An input's value as text; `stageCount` is that side's number of stages (a null part of a stage that exists belongs to the other kind). */
+function showInput(v: InputValue, unit: string, key: string, stageCount: number): string {
+  if (v === null) {
+    if (key === 'load.resistance') return 'open';
+    const stage = /^filter\.stages\[(\d+)\]/.exec(key);
+    if (!stage) return '(none)';
+    if (Number(stage[1]) >= stageCount) return '(no stage)';
+    return key.endsWith('.active') ? 'no (RC)' : '-';
+  }
   if (typeof v === 'boolean') return v ? 'yes' : 'no';
   if (typeof v === 'string') return v;
   if (unit === 'fraction') return pct(v);
@@ -345,7 +383,12 @@ export function compareReport(
     verdict: verdictText(checks, pass, inputs.length),
     inputs: {
       header: ['input', 'base', 'head', 'change'],
-      rows: inputs.map((r) => [r.label, showInput(r.base, r.unit, r.key), showInput(r.head, r.unit, r.key), inputDelta(r)]),
+      rows: inputs.map((r) => [
+        r.label,
+        showInput(r.base, r.unit, r.key, stagesOf(base.project).length),
+        showInput(r.head, r.unit, r.key, stagesOf(head.project).length),
+        inputDelta(r),
+      ]),
     },
     figures: {
       header: ['figure', 'base', 'head', 'change'],

@@ -37,14 +37,15 @@ export function gridPeaks(f: (d: number) => number, a: number, b: number): numbe
  * peaks, maximizeOnInterval). With no hints (the similar f peaked only at the ends) f is also
  * checked at the three inner points of a 4-cell grid, and the full search runs if one of them beats
  * both ends; hints = null always runs the full search. When an end wins but f rises just inside it,
- * that end's grid cell is searched by Brent too (a peak just inside the range).
+ * that end's grid cell is searched by Brent too (a peak just inside the range). `xtol` is Brent's
+ * absolute tolerance (default 1e-9); near a smooth maximum the value's error is of order f'' xtol^2.
  *
- * Syntax: maximizeFromHints(f, a, b, hints)
+ * Syntax: maximizeFromHints(f, a, b, hints[, xtol])
  * Example: maximizeFromHints((d) => d * (1 - d), 0, 1, [0.48]).x  // 0.5
  */
-export function maximizeFromHints(f: (d: number) => number, a: number, b: number, hints: number[] | null): Maximum {
+export function maximizeFromHints(f: (d: number) => number, a: number, b: number, hints: readonly number[] | null, xtol = 1e-9): Maximum {
   if (!(b > a)) return { x: a, value: f(a) };
-  const full = () => maximizeOnInterval(f, a, b, DUTY_CELLS, 2, 1e-9);
+  const full = () => maximizeOnInterval(f, a, b, DUTY_CELLS, 2, xtol);
   if (hints === null) return full();
   let best: Maximum = { x: a, value: f(a) };
   const atB = f(b);
@@ -56,7 +57,7 @@ export function maximizeFromHints(f: (d: number) => number, a: number, b: number
     if (m.x !== a && m.x !== b) return m;
     const inside = m.x === a ? a + 1e-7 * step : b - 1e-7 * step;
     if (!(f(inside) > m.value)) return m;
-    const inCell = m.x === a ? brentMaximize(f, a, a + step, 1e-9) : brentMaximize(f, b - step, b, 1e-9);
+    const inCell = m.x === a ? brentMaximize(f, a, a + step, xtol) : brentMaximize(f, b - step, b, xtol);
     return inCell.value > m.value ? inCell : m;
   };
   if (hints.length === 0) {
@@ -93,7 +94,7 @@ export function maximizeFromHints(f: (d: number) => number, a: number, b: number
         f3 = f(x3);
       }
     }
-    const top = lastCell ? brentMaximize(f, lastCell[0], lastCell[1], 1e-9) : brentMaximize(f, x1, x3, 1e-9);
+    const top = lastCell ? brentMaximize(f, lastCell[0], lastCell[1], xtol) : brentMaximize(f, x1, x3, xtol);
     const bracketBest = [top, { x: x1, value: f1 }, { x: x3, value: f3 }].reduce((p, q) => (q.value > p.value ? q : p));
     if (bracketBest.value > best.value) best = bracketBest;
   }

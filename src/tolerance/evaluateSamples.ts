@@ -1,7 +1,7 @@
-import type { Ladder } from '../circuit/ladder.js';
-import { ladderMetrics } from './ladderMetrics.js';
+import { circuitMetrics } from './circuitMetrics.js';
 import type { MetricPlan } from './metricPlan.js';
-import { ladderAt, type ToleranceParameter } from './parameters.js';
+import type { ToleranceParameter } from './parameters.js';
+import { circuitAt, type ToleranceCircuit } from './toleranceCircuit.js';
 
 /** Per-sample figures, one entry per sample (SI: V, s). */
 export interface SampleTable {
@@ -23,13 +23,14 @@ export interface SampleTable {
  * parameter) and return their figures. The same code runs in-process and in worker threads, so
  * both give identical numbers.
  *
- * Method: ladderAt turns each row into a ladder; ladderMetrics computes its exact figures.
+ * Method: circuitAt turns each row into a ladder or network; circuitMetrics computes its exact
+ * figures.
  *
- * Syntax: evaluateSamples(ladder, parameters, plan, z, first, last[, onProgress])
+ * Syntax: evaluateSamples(circuit, parameters, plan, z, first, last[, onProgress])
  * Example: evaluateSamples(ladder, params, plan, z, 0, 100).worstRipple[0]  // V
  */
 export function evaluateSamples(
-  ladder: Ladder,
+  circuit: ToleranceCircuit,
   parameters: ToleranceParameter[],
   plan: MetricPlan,
   z: Float64Array,
@@ -48,7 +49,7 @@ export function evaluateSamples(
     engineSamples: 0,
   };
   for (let i = 0; i < count; i++) {
-    const m = ladderMetrics(ladderAt(ladder, parameters, z, (first + i) * width), plan);
+    const m = circuitMetrics(circuitAt(circuit, parameters, z, (first + i) * width), plan);
     table.worstRipple[i] = m.worstRipple.ripple;
     table.droop[i] = m.droop.error;
     if (table.inl) table.inl[i] = m.inl?.error ?? 0;

@@ -1,26 +1,11 @@
 import type { Ladder } from '../circuit/ladder.js';
 import { dcTransfer, settlingTime, worstRipple, modalLadder, type ModalLadder, MAX_MODAL_CONDITION, rippleAt, modalAverageOutput as averageOutput, type PeriodicState, modalSettling } from '../engine/index.js';
 import type { MetricPlan } from './metricPlan.js';
+import type { CircuitMetrics } from './metrics.js';
 import { maximizeFromHints } from './dutySearch.js';
 
-/** The figures a tolerance study checks for one ladder (SI: V, s). */
-export interface LadderMetrics {
-  /** Largest ripple over the used duty range and where. */
-  worstRipple: { duty: number; ripple: number };
-  /** DC error (ideal - average) of largest magnitude over the range, sign kept, and where. */
-  droop: { duty: number; error: number };
-  /** Largest deviation from the endpoint line (sign kept), when the plan asks for it. */
-  inl: { duty: number; error: number } | null;
-  /**
-   * Endpoint-fit gain error as a fraction of this ladder's full scale, signed ideal - actual
-   * ((high - low) - fit slope) / (high - low), when the plan asks for it.
-   */
-  gain: number | null;
-  /** Slowest settling time over the plan's steps, s; null = never settles. */
-  settlingTime: number | null;
-  /** Some figure needed the engine's matrix-exponential path (a cascade's settling, ...). */
-  usedEngine: boolean;
-}
+/** The figures of one ladder (metrics.ts; the name predates networks). */
+export type LadderMetrics = CircuitMetrics;
 
 export interface LadderMetricsOptions {
   /** Use the engine for every figure (a reference; slow). */

@@ -1,9 +1,22 @@
 import type { Ladder } from '../circuit/ladder.js';
-import { settlingSteps, modalAverageOutput as averageOutput, averageOutput as engineAverage, prepare, modalLadder, rippleAt } from '../engine/index.js';
+import type { Network } from '../circuit/network.js';
+import {
+  settlingSteps,
+  modalAverageOutput as averageOutput,
+  averageOutput as engineAverage,
+  prepare,
+  modalLadder,
+  rippleAt,
+  networkAverage,
+  networkDcTransfer,
+  networkRipple,
+  networkWorstRipple,
+} from '../engine/index.js';
 import type { Project } from '../project/types.js';
 import { gridPeaks } from './dutySearch.js';
+import { isNetwork, type ToleranceCircuit } from './toleranceCircuit.js';
 
-/** What to compute for each ladder of a tolerance study, and the limits to check. */
+/** What to compute for each circuit of a tolerance study, and the limits to check. */
 export interface MetricPlan {
   dutyMin: number;
   dutyMax: number;
@@ -18,8 +31,9 @@ export interface MetricPlan {
   /** Spec limits in SI (V, s; gain: a fraction of full scale); absent = not checked. */
   limits: { ripple?: number; droop?: number; inl?: number; gain?: number; settling?: number };
   /**
-   * Duties of the nominal ladder's local ripple maxima: each sample's worst-ripple search starts
-   * from them (empty: search the whole range).
+   * Duties of the nominal circuit's local ripple maxima (with a fine output: its worst code, as a
+   * fraction of the code range): each sample's worst-ripple search starts from them (null: search
+   * the whole range).
    */
   rippleHints: number[] | null;
   /**
@@ -40,21 +54,24 @@ export interface MetricPlanOptions {
 }
 
 /**
- * The metric plan of a project for a given nominal ladder: duty range, settling steps and band
- * exactly as `analyze` chooses them (analyze.ts), spec limits, and where the nominal ladder's
- * ripple peaks.
+ * The metric plan of a project for a given nominal circuit (ladder or network): duty range,
+ * settling steps and band exactly as `analyze` chooses them (analyze.ts), spec limits, and where
+ * the nominal circuit's ripple and DC errors peak.
  *
  * Method: settling step = spec.settling.from/to when either is given (a missing end is that end of
  * the used range), else both full-range steps; band = spec.settling.band, else defaultBand (0.5 LSB
  * or 0.1 % of full scale). Peaks (gridPeaks): the engine's 16-cell duty grid, each grid local
  * maximum refined by Brent's method. DC peaks also on the ladder with (driver high, driver low) at
  * (max, min) and (min, max) of their ranges: unequal drivers bend average(D), equal ones leave it
- * affine, so a nominal with equal drivers alone would show no interior DC peak.
+ * affine, so a nominal with equal drivers alone would show no interior DC peak. A network takes
+ * the same peaks from the general engine (networkRipple, networkAverage); with a fine output, whose
+ * codes are discrete, the hints are the worst codes of the engine's own searches
+ * (networkWorstRipple, networkDcTransfer) on the nominal and on the two driver probes.
  *
  * Syntax: metricPlan(project, ladder[, { gain }])
  * Example: metricPlan(p, ladderFromProject(p)).rippleHints  // [0.5] for a symmetric filter
  */
-export function metricPlan(project: Project, ladder: Ladder, options: MetricPlanOptions = {}): MetricPlan {
+export function metricPlan(project: Project, circuit: ToleranceCircuit, options: MetricPlanOptions = {}): MetricPlan {
   const { min: dutyMin, max: dutyMax } = project.pwm.duty;
   const s = project.spec.settling;
   const plan = settlingSteps(project);
@@ -74,7 +91,7 @@ export function metricPlan(project: Project, ladder: Ladder, options: MetricPlan
     inl: project.spec.inl !== undefined,
     gain,
     limits,
-    ...peaks(project, ladder, dutyMin, dutyMax),
+    ...(isNetwork(circuit) ? networkPeaks(project, circuit, dutyMin, dutyMax) : peaks(project, circuit, dutyMin, dutyMax)),
   };
 }
 
@@ -110,6 +127,49 @@ function peaks(project: Project, ladder: Ladder, a: number, b: number) {
   }
   return {
     rippleHints: gridPeaks((d) => rippleAt(m, d), a, b),
+    droopHints: droopHints.sort((x, y) => x - y),
+    inlHints: inlHints.sort((x, y) => x - y),
+  };
+}
+
+function networkPeaks(project: Project, network: Network, a: number, b: number) {
+  const probes = [network];
+  const driver = project.tolerance?.driver;
+  if (driver) {
+    // Both outputs' drivers at the two most unequal corners (parameters.ts varies the second's too).
+    const at = (high: number, low: number): Network => ({
+      ...network,
+      pin: { ...network.pin, driverHigh: high, driverLow: low },
+      second: network.second ? { ...network.second, pin: { ...network.second.pin, driverHigh: high, driverLow: low } } : null,
+    });
+    probes.push(at(driver.high.max, driver.low.min), at(driver.high.min, driver.low.max));
+  }
+  const cell = (b - a) / 16;
+  const droopHints: number[] = [];
+  const inlHints: number[] = [];
+  const addFar = (list: number[], found: number[]) => {
+    for (const x of found) if (list.every((y) => Math.abs(x - y) > 4 * cell)) list.push(x);
+  };
+  if (network.second?.role === 'fine') {
+    for (const probe of probes) {
+      const dc = networkDcTransfer(probe, a, b);
+      addFar(droopHints, [dc.droop.duty]);
+      if (project.spec.inl !== undefined) addFar(inlHints, [dc.inl.duty]);
+    }
+    return { rippleHints: [networkWorstRipple(network, a, b).duty], droopHints, inlHints };
+  }
+  for (const probe of probes) {
+    const average = (d: number) => networkAverage(probe, d);
+    const span = probe.pin.high - probe.pin.low;
+    addFar(droopHints, gridPeaks((d) => Math.abs(probe.pin.low + d * span - average(d)), a, b));
+    if (project.spec.inl !== undefined && b > a) {
+      const yA = average(a);
+      const slope = (average(b) - yA) / (b - a);
+      addFar(inlHints, gridPeaks((d) => Math.abs(average(d) - yA - slope * (d - a)), a, b));
+    }
+  }
+  return {
+    rippleHints: gridPeaks((d) => networkRipple(network, d), a, b),
     droopHints: droopHints.sort((x, y) => x - y),
     inlHints: inlHints.sort((x, y) => x - y),
   };

@@ -1,12 +1,11 @@
 import { InputError } from '../units/index.js';
-import { ladderFromProject } from '../project/ladderFromProject.js';
-import type { Ladder } from '../circuit/ladder.js';
 import type { Project, ToleranceSettings } from '../project/types.js';
 import { drawDeviates, type Distribution } from './deviates.js';
 import { evaluateSamples, type SampleTable } from './evaluateSamples.js';
 import { metricPlan, type MetricPlan } from './metricPlan.js';
 import { toleranceParameters, type ToleranceParameter } from './parameters.js';
 import { summarizeSamples, type SampleSummary } from './summarizeSamples.js';
+import { toleranceCircuitOf, type ToleranceCircuit } from './toleranceCircuit.js';
 
 export interface MonteCarloOptions {
   /** Sample count (default: tolerance.samples). */
@@ -37,7 +36,8 @@ export interface MonteCarloResult extends SampleSummary {
 
 /** Everything a run needs, shared by the in-process and the worker-thread runs. */
 export interface MonteCarloSetup {
-  ladder: Ladder;
+  /** The nominal circuit: a ladder, or a network (second PWM output, Sallen-Key stages). */
+  circuit: ToleranceCircuit;
   parameters: ToleranceParameter[];
   plan: MetricPlan;
   deviates: Float64Array;
@@ -48,23 +48,25 @@ export interface MonteCarloSetup {
 }
 
 /**
- * Monte Carlo tolerance analysis of a ladder (default: the project's filter): draw every part
+ * Monte Carlo tolerance analysis of a circuit, ladder or network (default: the project's, see
+ * toleranceCircuit.ts): draw every part
  * value from its distribution, compute each sample's exact worst ripple, droop, INL (when the spec
  * limits it) and settling time, and count the yield against the spec.
  *
  * Method: deviates from drawDeviates (xoroshiro128+, Box-Muller, truncation by rejection), drawn
  * up front in one stream so the result depends on the seed only, not on how the work is split;
- * figures by ladderMetrics (exact modal fast path, engine fallback); summary by summarizeSamples.
+ * figures by circuitMetrics (a ladder: exact modal fast path, engine fallback; a network: the
+ * general periodic engine); summary by summarizeSamples.
  * Runs in the calling thread; monteCarloParallel spreads the same work over worker threads.
  *
- * Syntax: monteCarlo(project[, ladder, { samples, seed, distribution, onProgress }])
+ * Syntax: monteCarlo(project[, circuit, { samples, seed, distribution, onProgress }])
  * Example: monteCarlo(p, undefined, { samples: 1000, seed: 7 }).yield  // 0.998
  */
-export function monteCarlo(project: Project, ladder?: Ladder, options: MonteCarloOptions = {}): MonteCarloResult {
-  const setup = monteCarloSetup(project, ladder, options);
+export function monteCarlo(project: Project, circuit?: ToleranceCircuit, options: MonteCarloOptions = {}): MonteCarloResult {
+  const setup = monteCarloSetup(project, circuit, options);
   const { onProgress } = options;
   const table = evaluateSamples(
-    setup.ladder,
+    setup.circuit,
     setup.parameters,
     setup.plan,
     setup.deviates,
@@ -78,12 +80,12 @@ export function monteCarlo(project: Project, ladder?: Ladder, options: MonteCarl
 /**
  * The shared set-up of a run: parameters, plan and deviates.
  *
- * Syntax: monteCarloSetup(project[, ladder, options])
+ * Syntax: monteCarloSetup(project[, circuit, options])
  * Example: monteCarloSetup(p).deviates.length  // samples * parameters
  */
-export function monteCarloSetup(project: Project, ladder?: Ladder, options: MonteCarloOptions = {}): MonteCarloSetup {
+export function monteCarloSetup(project: Project, circuit?: ToleranceCircuit, options: MonteCarloOptions = {}): MonteCarloSetup {
   const settings = requireTolerance(project);
-  const nominal = ladder ?? ladderFromProject(project);
+  const nominal = circuit ?? toleranceCircuitOf(project);
   const samples = options.samples ?? settings.samples;
   const seed = options.seed ?? settings.seed;
   const distribution = options.distribution ?? settings.distribution;
@@ -93,7 +95,7 @@ export function monteCarloSetup(project: Project, ladder?: Ladder, options: Mont
   }
   const parameters = toleranceParameters(settings, nominal);
   return {
-    ladder: nominal,
+    circuit: nominal,
     parameters,
     plan: metricPlan(project, nominal, { gain: options.gain }),
     deviates: drawDeviates(samples, parameters.length, seed, distribution),

@@ -1,16 +1,17 @@
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import type { Ladder } from '../circuit/ladder.js';
 import type { Project } from '../project/types.js';
 import { evaluateSamples, type SampleTable } from './evaluateSamples.js';
 import type { MetricPlan } from './metricPlan.js';
 import { monteCarloResult, monteCarloSetup, type MonteCarloOptions, type MonteCarloResult } from './monteCarlo.js';
 import type { ToleranceParameter } from './parameters.js';
+import { isNetwork, type ToleranceCircuit } from './toleranceCircuit.js';
 
 /** What one worker evaluates. */
 export interface WorkerJob {
-  ladder: Ladder;
+  /** The nominal ladder or network (plain data: structured cloning copies it). */
+  circuit: ToleranceCircuit;
   parameters: ToleranceParameter[];
   plan: MetricPlan;
   deviates: Float64Array;
@@ -24,7 +25,10 @@ export interface ParallelOptions extends MonteCarloOptions {
   workers?: number;
   /** The worker script; default: tolerance-worker.js next to this module (the bundle), else worker.ts via tsx. */
   workerUrl?: URL;
-  /** Fewer samples per thread than this: fewer threads (default MIN_SAMPLES_PER_THREAD). */
+  /**
+   * Fewer samples per thread than this: fewer threads (default MIN_SAMPLES_PER_THREAD for a
+   * ladder, MIN_NETWORK_SAMPLES_PER_THREAD for a network).
+   */
   minSamplesPerThread?: number;
 }
 
@@ -37,6 +41,13 @@ export interface ParallelOptions extends MonteCarloOptions {
  */
 export const MIN_SAMPLES_PER_THREAD = 30_000;
 
+/**
+ * The same threshold for a network (second PWM output, Sallen-Key stages): each sample runs the
+ * general periodic engine, a hundred times or more the work of a ladder sample, so a worker's start
+ * (about 0.2 s) pays off from a few hundred samples per thread.
+ */
+export const MIN_NETWORK_SAMPLES_PER_THREAD = 500;
+
 /** Samples the calling thread evaluates between two looks at the workers' messages. */
 const OWN_SLICE = 2000;
 
@@ -48,21 +59,22 @@ const OWN_SLICE = 2000;
  * process when workers <= 1, when there are fewer than minSamplesPerThread samples per thread (a
  * smaller run finishes sooner in one thread), or when no worker script is found.
  *
- * Syntax: await monteCarloParallel(project[, ladder, { workers, samples, seed, distribution, onProgress }])
+ * Syntax: await monteCarloParallel(project[, circuit, { workers, samples, seed, distribution, onProgress }])
  * Example: (await monteCarloParallel(p, undefined, { workers: 2 })).yield
  */
 export async function monteCarloParallel(
   project: Project,
-  ladder?: Ladder,
+  circuit?: ToleranceCircuit,
   options: ParallelOptions = {},
 ): Promise<MonteCarloResult> {
-  const setup = monteCarloSetup(project, ladder, options);
+  const setup = monteCarloSetup(project, circuit, options);
   const { samples, parameters } = setup;
-  const workers = Math.min(options.workers ?? 1, Math.floor(samples / (options.minSamplesPerThread ?? MIN_SAMPLES_PER_THREAD)));
+  const perThread = options.minSamplesPerThread ?? (isNetwork(setup.circuit) ? MIN_NETWORK_SAMPLES_PER_THREAD : MIN_SAMPLES_PER_THREAD);
+  const workers = Math.min(options.workers ?? 1, Math.floor(samples / perThread));
   const script = workers <= 1 ? null : options.workerUrl ? { url: options.workerUrl, viaTsx: false } : findWorkerScript();
   const progress = options.onProgress;
   if (workers <= 1 || script === null) {
-    const table = evaluateSamples(setup.ladder, parameters, setup.plan, setup.deviates, 0, samples, progress && ((d) => progress(d, samples)));
+    const table = evaluateSamples(setup.circuit, parameters, setup.plan, setup.deviates, 0, samples, progress && ((d) => progress(d, samples)));
     return monteCarloResult(setup, table);
   }
   const width = parameters.length;
@@ -74,7 +86,7 @@ export async function monteCarloParallel(
     const w = i + 1;
     const count = bounds[w + 1] - first;
     const job: WorkerJob = {
-      ladder: setup.ladder,
+      circuit: setup.circuit,
       parameters,
       plan: setup.plan,
       deviates: setup.deviates.slice(first * width, (first + count) * width),
@@ -108,7 +120,7 @@ export async function monteCarloParallel(
   const own: SampleTable[] = [];
   for (let first = 0; first < bounds[1]; first += OWN_SLICE) {
     const last = Math.min(bounds[1], first + OWN_SLICE);
-    own.push(evaluateSamples(setup.ladder, parameters, setup.plan, setup.deviates, first, last));
+    own.push(evaluateSamples(setup.circuit, parameters, setup.plan, setup.deviates, first, last));
     done[0] = last;
     report();
     await new Promise<void>((resolve) => setImmediate(resolve));

@@ -49,7 +49,7 @@ export function sequentialYield(project: Project, ladder: Ladder, target: number
   const batch = Math.max(SEQUENTIAL_BATCH, Math.ceil(cap / LOOKS));
   while (n < cap) {
     const last = Math.min(cap, n + batch);
-    passed += summarizeSamples(evaluateSamples(setup.ladder, setup.parameters, setup.plan, setup.deviates, n, last), setup.plan).passed;
+    passed += summarizeSamples(evaluateSamples(setup.circuit, setup.parameters, setup.plan, setup.deviates, n, last), setup.plan).passed;
     n = last;
     const interval = wilsonInterval(passed, n, SEQUENTIAL_Z);
     const early = n < cap && (interval[0] >= target || interval[1] < target);

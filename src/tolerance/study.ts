@@ -1,40 +1,45 @@
-import { ladderFromProject } from '../project/ladderFromProject.js';
-import type { Ladder } from '../circuit/ladder.js';
-import { checkNumericalDomain, plausibilityWarnings, warningFigures, type Warning } from '../engine/index.js';
+import { engineOfCircuit, plausibilityWarnings, type Warning } from '../engine/index.js';
 import type { Project } from '../project/types.js';
 import type { MonteCarloResult } from './monteCarlo.js';
 import { monteCarloParallel, type ParallelOptions } from './parallel.js';
+import { toleranceCircuitOf, type ToleranceCircuit } from './toleranceCircuit.js';
+import { toleranceWarnings } from './toleranceWarnings.js';
 import { worstCase, type WorstCaseResult } from './worstCase.js';
 
-/** Worst case and Monte Carlo of one ladder. */
+/** Worst case and Monte Carlo of one circuit. */
 export interface ToleranceStudyResult {
   worstCase: WorstCaseResult;
   monteCarlo: MonteCarloResult;
   /** Every limited figure passes at its worst case, and the yield meets its target. */
   pass: boolean;
-  /** Plausibility warnings of the nominal project (never change `pass`). */
+  /** Plausibility warnings of the nominal project, and what the study leaves fixed (never change `pass`). */
   warnings: Warning[];
 }
 
 /**
  * The full tolerance study behind `dacsmith tolerance`: worst case over the tolerance box (each
  * worst point confirmed by the engine), the Monte Carlo yield and the plausibility warnings of the
- * nominal circuit.
+ * nominal circuit, for a ladder or a network (second PWM output, Sallen-Key stages; model.md 1.1).
  *
- * Method: worstCase and monteCarloParallel (see there); plausibilityWarnings.
+ * Method: the circuit's engine refuses a circuit outside the numerical domain first
+ * (engineOfCircuit); worstCase and monteCarloParallel (see there); plausibilityWarnings and
+ * toleranceWarnings.
  *
- * Syntax: await toleranceStudy(project[, ladder, { samples, seed, distribution, workers, onProgress }])
+ * Syntax: await toleranceStudy(project[, circuit, { samples, seed, distribution, workers, onProgress }])
  * Example: (await toleranceStudy(p)).pass
  */
 export async function toleranceStudy(
   project: Project,
-  ladder: Ladder = ladderFromProject(project),
+  circuit: ToleranceCircuit = toleranceCircuitOf(project),
   options: ParallelOptions = {},
 ): Promise<ToleranceStudyResult> {
-  checkNumericalDomain(ladder, project.file);
+  const engine = engineOfCircuit(circuit, project.file);
   // The command's study covers the gain check too (model.md 1.1), as analyze and check do.
-  const wc = worstCase(project, ladder, { confirmWithEngine: true, gain: true });
-  const mc = await monteCarloParallel(project, ladder, { ...options, gain: true });
-  const warnings = plausibilityWarnings(project, warningFigures(ladder, project.pwm.duty.min, project.pwm.duty.max));
+  const wc = worstCase(project, circuit, { confirmWithEngine: true, gain: true });
+  const mc = await monteCarloParallel(project, circuit, { ...options, gain: true });
+  const warnings = [
+    ...plausibilityWarnings(project, engine.warningFigures(project.pwm.duty.min, project.pwm.duty.max)),
+    ...toleranceWarnings(project, circuit),
+  ];
   return { worstCase: wc, monteCarlo: mc, pass: wc.pass && mc.pass, warnings };
 }

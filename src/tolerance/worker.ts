@@ -8,7 +8,7 @@ import type { WorkerJob, WorkerMessage } from './parallel.js';
 
 const job = workerData as WorkerJob;
 const post = (m: WorkerMessage, transfer: ArrayBuffer[] = []) => parentPort!.postMessage(m, transfer);
-const table = evaluateSamples(job.ladder, job.parameters, job.plan, job.deviates, 0, job.count, (done) =>
+const table = evaluateSamples(job.circuit, job.parameters, job.plan, job.deviates, 0, job.count, (done) =>
   post({ kind: 'progress', done }),
 );
 const buffers = [table.worstRipple, table.droop, table.settlingTime, ...(table.inl ? [table.inl] : []), ...(table.gain ? [table.gain] : [])].map(

@@ -1,11 +1,11 @@
-import { ladderFromProject } from '../project/ladderFromProject.js';
-import type { Ladder } from '../circuit/ladder.js';
 import { brentMaximize } from '../numeric/maximizeOnInterval.js';
 import type { Project } from '../project/types.js';
-import { ladderMetrics, type LadderMetrics } from './ladderMetrics.js';
+import { circuitMetrics } from './circuitMetrics.js';
 import { metricPlan, type MetricPlan } from './metricPlan.js';
+import type { CircuitMetrics } from './metrics.js';
 import { requireTolerance } from './monteCarlo.js';
-import { ladderAt, toleranceParameters, type ToleranceParameter } from './parameters.js';
+import { toleranceParameters, type ToleranceParameter } from './parameters.js';
+import { circuitAt, circuitScale, toleranceCircuitOf, type ToleranceCircuit } from './toleranceCircuit.js';
 
 export type Figure = 'ripple' | 'droop' | 'inl' | 'gain' | 'settling';
 
@@ -41,7 +41,7 @@ export interface WorstCaseFigure {
 export interface WorstCaseResult {
   parameters: ToleranceParameter[];
   plan: MetricPlan;
-  nominal: LadderMetrics;
+  nominal: CircuitMetrics;
   worstRipple: WorstCaseFigure;
   droop: WorstCaseFigure;
   inl: WorstCaseFigure | null;
@@ -50,7 +50,7 @@ export interface WorstCaseResult {
   settlingTime: WorstCaseFigure;
   /** Every limited figure passes at its worst case. */
   pass: boolean;
-  /** Ladders evaluated. */
+  /** Circuits evaluated. */
   evaluations: number;
 }
 
@@ -68,7 +68,7 @@ const LINE_POINTS = 9;
 
 /**
  * Worst case of worst ripple, droop, INL (when limited) and settling time over the tolerance box
- * of a ladder (default: the project's filter).
+ * of a circuit, ladder or network (default: the project's, toleranceCircuit.ts).
  *
  * Method: (1) sign scan: at several points of the box (centre, all-low and all-high corners, two
  * alternating corners, a half-and-half corner) each parameter is set to its minimum, centre and
@@ -77,24 +77,25 @@ const LINE_POINTS = 9;
  * parameters go to the bound that makes the figure worse; mixed ones are searched along their range
  * (9-point line plus Brent's maximization, brentMaximize, coordinate by coordinate, two rounds).
  * (3) Unless disabled, all 2^P corners are evaluated too and a worse corner replaces the result
- * (flagged). Figures come from ladderMetrics (exact); optionally each worst point is recomputed
- * by the engine alone.
+ * (flagged). Figures come from circuitMetrics (exact; searches started from the nominal's peaks);
+ * optionally each worst point is recomputed by the engine alone (its full searches).
  *
- * Syntax: worstCase(project[, ladder, { cornerSweep, confirmWithEngine }])
+ * Syntax: worstCase(project[, circuit, { cornerSweep, confirmWithEngine }])
  * Example: worstCase(p).worstRipple.value  // V at the worst corner
  */
-export function worstCase(project: Project, ladder?: Ladder, options: WorstCaseOptions = {}): WorstCaseResult {
+export function worstCase(project: Project, circuit?: ToleranceCircuit, options: WorstCaseOptions = {}): WorstCaseResult {
   const settings = requireTolerance(project);
-  const nominalLadder = ladder ?? ladderFromProject(project);
-  const parameters = toleranceParameters(settings, nominalLadder);
-  const plan = metricPlan(project, nominalLadder, { gain: options.gain });
+  const nominalCircuit = circuit ?? toleranceCircuitOf(project);
+  const parameters = toleranceParameters(settings, nominalCircuit);
+  const plan = metricPlan(project, nominalCircuit, { gain: options.gain });
+  const scale = circuitScale(nominalCircuit);
   const P = parameters.length;
-  const memo = new Map<string, LadderMetrics>();
-  const evaluate = (z: number[]): LadderMetrics => {
+  const memo = new Map<string, CircuitMetrics>();
+  const evaluate = (z: number[]): CircuitMetrics => {
     const key = z.join(',');
     let m = memo.get(key);
     if (!m) {
-      m = ladderMetrics(ladderAt(nominalLadder, parameters, z), plan);
+      m = circuitMetrics(circuitAt(nominalCircuit, parameters, z), plan);
       memo.set(key, m);
     }
     return m;
@@ -104,7 +105,7 @@ export function worstCase(project: Project, ladder?: Ladder, options: WorstCaseO
   // Below these a change is rounding noise: 1e-12 of full scale for voltages (and for the gain
   // error, a fraction of full scale), 1e-9 T for time.
   const floorOf = (f: Figure) =>
-    f === 'settling' ? 1e-9 * nominalLadder.period : f === 'gain' ? 1e-12 : 1e-12 * Math.abs(nominalLadder.high - nominalLadder.low);
+    f === 'settling' ? 1e-9 * scale.period : f === 'gain' ? 1e-12 : 1e-12 * scale.fullScale;
   const scanPoints = distinctPoints([
     new Array(P).fill(0),
     new Array(P).fill(-1),
@@ -154,10 +155,20 @@ export function worstCase(project: Project, ladder?: Ladder, options: WorstCaseO
     }
   }
 
+  // Figures often share their worst point: the engine confirms each point once.
+  const confirmed = new Map<string, CircuitMetrics>();
+  const confirm = (z: number[]): CircuitMetrics => {
+    const key = z.join(',');
+    let m = confirmed.get(key);
+    if (!m) {
+      m = circuitMetrics(circuitAt(nominalCircuit, parameters, z), plan, { engineOnly: true });
+      confirmed.set(key, m);
+    }
+    return m;
+  };
   const figureResult = (f: Figure): WorstCaseFigure => {
     const r = results.get(f)!;
-    const worstLadder = ladderAt(nominalLadder, parameters, r.z);
-    const m = options.confirmWithEngine ? ladderMetrics(worstLadder, plan, { engineOnly: true }) : evaluate(r.z);
+    const m = options.confirmWithEngine ? confirm(r.z) : evaluate(r.z);
     const { value, duty } = figureValue(m, f);
     const limit = limitOf(plan, f);
     return {
@@ -183,7 +194,7 @@ export function worstCase(project: Project, ladder?: Ladder, options: WorstCaseO
   return {
     parameters,
     plan,
-    nominal: ladderMetrics(nominalLadder, plan),
+    nominal: circuitMetrics(nominalCircuit, plan),
     worstRipple,
     droop,
     inl,
@@ -195,7 +206,7 @@ export function worstCase(project: Project, ladder?: Ladder, options: WorstCaseO
 }
 
 /** How bad a figure is: larger is worse (a step that never settles is infinitely bad). */
-function severity(m: LadderMetrics, f: Figure): number {
+function severity(m: CircuitMetrics, f: Figure): number {
   switch (f) {
     case 'ripple':
       return m.worstRipple.ripple;
@@ -210,7 +221,7 @@ function severity(m: LadderMetrics, f: Figure): number {
   }
 }
 
-function figureValue(m: LadderMetrics, f: Figure): { value: number | null; duty: number | null } {
+function figureValue(m: CircuitMetrics, f: Figure): { value: number | null; duty: number | null } {
   switch (f) {
     case 'ripple':
       return { value: m.worstRipple.ripple, duty: m.worstRipple.duty };

@@ -89,6 +89,48 @@ describe('compareReport figures', () => {
   });
 });
 
+describe('compareReport inputs of version 1.1 circuits (model.md 1.1)', () => {
+  // Invented: the base is one RC stage; the head adds a Sallen-Key stage and a fine second output.
+  const base = side('base.yaml', yaml());
+  const text = yaml()
+    .replace('    - { r: 4.7k, c: 1u }\n', '    - { r: 4.7k, c: 1u }\n    - { active: sallen-key, r1: 10k, r2: 12k, c1: 22n, c2: 10n }\n')
+    .replace('filter:', 'second_pwm:\n  role: fine\n  bits: 4\n  into: { stage: 1, r: 75k, c: 1u }\n  driver: { high: 30 ohm, low: 20 ohm }\nfilter:');
+  const head = side('head.yaml', text);
+
+  it('lists the Sallen-Key parts and every key of the second output, in SI units', () => {
+    const rows = json(base, head).inputs as Array<{ key: string; base: unknown; head: unknown }>;
+    const at = Object.fromEntries(rows.map((r) => [r.key, [r.base, r.head]]));
+    expect(at['filter.stages[1].active']).toEqual([null, 'sallen-key']);
+    expect(at['filter.stages[1].r1']).toEqual([null, 10e3]);
+    expect(at['filter.stages[1].r2']).toEqual([null, 12e3]);
+    expect(at['filter.stages[1].c1']).toEqual([null, 22e-9]);
+    expect(at['filter.stages[1].c2']).toEqual([null, 10e-9]);
+    expect(at['second_pwm.role']).toEqual([null, 'fine']);
+    expect(at['second_pwm.bits']).toEqual([null, 4]);
+    expect(at['second_pwm.into.stage']).toEqual([null, 1]);
+    expect(at['second_pwm.into.r']).toEqual([null, 75e3]);
+    expect(at['second_pwm.into.c']).toEqual([null, 1e-6]);
+    // levels default to pwm's, drivers set apart
+    expect(at['second_pwm.high']).toEqual([null, 3.3]);
+    expect(at['second_pwm.driver.high']).toEqual([null, 30]);
+    expect(at['second_pwm.driver.low']).toEqual([null, 20]);
+    // an RC stage's parts are not listed for a Sallen-Key stage, nor unchanged stage 1
+    expect(rows.some((r) => r.key === 'filter.stages[1].r' || r.key.startsWith('filter.stages[0]'))).toBe(false);
+    // the fine channel's 4 bits make the LSB 16 times smaller (model.md 1.1), so the ripple limit moves
+    expect(at['spec.ripple'][1]).toBeCloseTo((at['spec.ripple'][0] as number) / 16, 15);
+  });
+
+  it('tells a missing stage from a part of the other kind, and an RC stage from an active one', () => {
+    const out = compareReport(head, side('rc2.yaml', yaml().replace('    - { r: 4.7k, c: 1u }\n', '    - { r: 4.7k, c: 1u }\n    - { r: 47k, c: 100n }\n')), compareOverlays(head.analysis, base.analysis, 72), 'text', { width: 120 });
+    expect(out).toMatch(/stage 2 active\s+sallen-key\s+no \(RC\)/);
+    expect(out).toMatch(/stage 2 R1\s+10 kΩ\s+-/);
+    expect(out).toMatch(/R2\s+-\s+47 kΩ/);
+    expect(out).toMatch(/second output role\s+fine\s+\(none\)/);
+    const three = compareReport(base, head, compareOverlays(base.analysis, head.analysis, 72), 'text', { width: 120 });
+    expect(three).toMatch(/stage 2 R1\s+\(no stage\)\s+10 kΩ/);
+  });
+});
+
 describe('compareReport check status', () => {
   // Ripple 3.3 V tanh(T/(4 RC)) (see above): about 17 mV at 1 uF and 7.9 mV at 2.2 uF, so a
   // 10 mV limit fails the first and holds for the second.

@@ -1,6 +1,6 @@
 import type { Network } from '../../circuit/network.js';
 import { maximizeOnInterval } from '../../numeric/maximizeOnInterval.js';
-import { endpointFit } from '../endpointFit.js';
+import { endpointFit, type ExtremumSearch } from '../endpointFit.js';
 import type { DcTransfer, OperatingPoint, Settling, WorstRipple } from '../types.js';
 import { codeParts, networkDuties, networkIdeal, quantizedFraction } from './networkCodes.js';
 import { periodicOrbit } from './periodicOrbit.js';
@@ -26,6 +26,17 @@ export function networkPoint(network: Network, fraction: number): OperatingPoint
   };
 }
 
+/**
+ * Steady-state peak-to-peak ripple of a network at a fraction of its code range (periodicOrbit.ts
+ * with extrema, without the average), V.
+ *
+ * Syntax: networkRipple(network, fraction)
+ * Example: networkRipple(n, 0.5)  // V
+ */
+export function networkRipple(network: Network, fraction: number): number {
+  return periodicOrbit(network, networkDuties(network, fraction), true, false).ripple;
+}
+
 /** Fine codes scanned per coarse code in the first pass of a fine output's ripple search. */
 const FINE_PROBES = [0, 0.5, 1];
 /** Coarse codes whose every fine code is scanned in the second pass. */
@@ -45,14 +56,14 @@ const FINE_FINALISTS = 4;
 export function networkWorstRipple(network: Network, min: number, max: number): WorstRipple {
   const second = network.second;
   if (second?.role !== 'fine') {
-    const best = maximizeOnInterval((d) => periodicOrbit(network, { first: d, second: null }).ripple, min, max, 32, 3);
+    const best = maximizeOnInterval((d) => periodicOrbit(network, { first: d, second: null }, true, false).ripple, min, max, 32, 3);
     return { duty: best.x, ripple: best.value };
   }
   const b = second.bits!;
   const total = 2 ** (b + second.coarseBits!);
   const lo = codeParts(network, min).code;
   const hi = codeParts(network, max).code;
-  const rippleAt = (code: number) => periodicOrbit(network, networkDuties(network, code / total)).ripple;
+  const rippleAt = (code: number) => networkRipple(network, code / total);
   const scores: Array<{ coarse: number; ripple: number; code: number }> = [];
   for (let coarse = Math.floor(lo / 2 ** b); coarse * 2 ** b <= hi; coarse++) {
     let best = { coarse, ripple: -Infinity, code: -1 };
@@ -85,13 +96,16 @@ export function networkWorstRipple(network: Network, min: number, max: number): 
  * affine in each duty when the drivers are equal and close to it otherwise, so the extremes sit at
  * the ends of a coarse code's fine range: every coarse code at fine codes 0, half and full.
  *
- * Syntax: networkDcTransfer(network, min, max)
+ * `search`, when given, replaces both searches (a tolerance study's, started from a nominal
+ * circuit's peaks; endpointFit.ts).
+ *
+ * Syntax: networkDcTransfer(network, min, max[, search])
  * Example: networkDcTransfer(n, 0.05, 0.95).droop.error  // V
  */
-export function networkDcTransfer(network: Network, min: number, max: number): DcTransfer {
+export function networkDcTransfer(network: Network, min: number, max: number, search?: ExtremumSearch): DcTransfer {
   const second = network.second;
   let candidates: number[] | undefined;
-  if (second?.role === 'fine') {
+  if (second?.role === 'fine' && !search) {
     const b = second.bits!;
     const total = 2 ** (b + second.coarseBits!);
     const lo = codeParts(network, min).code;
@@ -102,18 +116,40 @@ export function networkDcTransfer(network: Network, min: number, max: number): D
     }
     candidates = [...codes].map((code) => code / total);
   }
+  // Each average once: the droop and INL searches look at the same points (endpointFit.ts).
+  const averages = new Map<number, number>();
+  const average = (f: number) => {
+    let y = averages.get(f);
+    if (y === undefined) {
+      y = networkAverage(network, f);
+      averages.set(f, y);
+    }
+    return y;
+  };
   return endpointFit(
     {
-      average: (f) => periodicOrbit(network, networkDuties(network, f), false).average,
+      average,
       ideal: (f) => networkIdeal(network, f),
       quantize: (f) => quantizedFraction(network, f),
       span: network.pin.high - network.pin.low,
       low: network.pin.low,
       candidates,
+      search,
     },
     min,
     max,
   );
+}
+
+/**
+ * Exact time-average output of a network at a fraction of its code range (periodicOrbit.ts
+ * without extrema), V.
+ *
+ * Syntax: networkAverage(network, fraction)
+ * Example: networkAverage(n, 0.5)  // V
+ */
+export function networkAverage(network: Network, fraction: number): number {
+  return periodicOrbit(network, networkDuties(network, fraction), false).average;
 }
 
 /**

@@ -38,12 +38,13 @@ export interface PeriodicOrbit {
  * trajectory.ts. This is the general route for every network; `steadyState` (steadyState.ts) is the
  * faster one for one output and RC stages, and the tests hold the two to each other.
  *
- * Without `withExtrema` only the start state and the average are exact (min = max = start).
+ * Without `withExtrema` only the start state and the average are exact (min = max = start); without
+ * `withAverage` the average is NaN and the phases' integrals J are not formed (cheaper flows).
  *
- * Syntax: periodicOrbit(network, duties[, withExtrema])
+ * Syntax: periodicOrbit(network, duties[, withExtrema, withAverage])
  * Example: periodicOrbit(n, { first: 0.5, second: null }).ripple   // V peak-to-peak
  */
-export function periodicOrbit(network: Network, duties: Duties, withExtrema = true): PeriodicOrbit {
+export function periodicOrbit(network: Network, duties: Duties, withExtrema = true, withAverage = true): PeriodicOrbit {
   const { equations } = networkCache(network);
   const n = equations.n;
   const T = network.period;
@@ -53,7 +54,7 @@ export function periodicOrbit(network: Network, duties: Duties, withExtrema = tr
   let S = new Array<number>(n * n).fill(0);
   let acc = new Array<number>(n).fill(0);
   for (const ph of phases) {
-    const { E, K } = ph.full;
+    const { E, K } = withAverage ? ph.full : ph.map;
     const nextS = K.slice();
     const nextAcc = new Array<number>(n).fill(0);
     for (let i = 0; i < n; i++) {
@@ -77,9 +78,9 @@ export function periodicOrbit(network: Network, duties: Duties, withExtrema = tr
     ? periodTrajectoryPoints(phases, c, start, new Array<number>(n).fill(0), equations.scale)
     : [{ phase: 0, tau: 0, t: 0, d: new Array<number>(n).fill(0), w: 0 }];
   // Average: integral of d over each phase, t_p d_p + J_p (x*_p - x_s - d_p).
-  let integral = 0;
+  let integral = withAverage ? 0 : NaN;
   let d = new Array<number>(n).fill(0);
-  for (const ph of phases) {
+  for (const ph of withAverage ? phases : []) {
     const g = ph.xStar.map((v, i) => v - start[i] - d[i]);
     const J = ph.full.J!;
     const K = ph.full.K;

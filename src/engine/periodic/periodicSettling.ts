@@ -1,10 +1,11 @@
 import type { Duties, Network } from '../../circuit/network.js';
-import { identity, matmul } from '../../numeric/dense.js';
+import { identity, matmul, matvec } from '../../numeric/dense.js';
 import { luFactor, luSolve, solveLinear } from '../../numeric/lu.js';
 import { brentRoot } from '../../numeric/brentRoot.js';
 import { periodPowers, type PeriodPowers } from '../periodPowers.js';
 import { networkCache } from './phaseFlows.js';
 import { periodicOrbit, type PeriodicOrbit } from './periodicOrbit.js';
+import { transientBound } from './phaseSeries.js';
 import { advanceInPhase, periodTrajectoryPoints, type TrajectoryPoint } from './trajectory.js';
 
 /** Result of a settling computation: s after the step, or null when the output never settles. */
@@ -31,7 +32,10 @@ const SCAN_SAMPLES = 1024;
  *    powers of M (periodPowers.ts: I - S form while near the identity).
  * 2. Below it, periods are checked exactly (grid and turning points, trajectory.ts) on at most 1024
  *    samples, stepping by at most one period per 0.2 rad of the fastest Sallen-Key ringing, from the
- *    top down; the last violating sample is refined to a single period by bisection, and the
+ *    top down (a period whose transient provably stays within band - max|y_to(t) - average_to|
+ *    by the series bound of phaseSeries.ts, max over the period of |c Phi(t) delta| <= U(delta),
+ *    passes without its trajectory); the last violating sample is refined to a single period by
+ *    bisection, and the
  *    crossing into the band inside it by Brent's root finder on the monotone piece after the last
  *    violating point.
  * This assumes one crossing between two samples (true for RC networks, whose per-period transient is
@@ -48,7 +52,8 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   const scale = equations.scale;
   const T = network.period;
   const orbitTo = periodicOrbit(network, to);
-  const orbitFrom = periodicOrbit(network, from);
+  // Only its start state is needed: no extrema, no average.
+  const orbitFrom = periodicOrbit(network, from, false, false);
   const avg = orbitTo.average;
   const steadyExcursion = Math.max(orbitTo.max - avg, avg - orbitTo.min);
   if (steadyExcursion > band) return { time: null, final: avg };
@@ -59,23 +64,28 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   const trajectory = (delta: readonly number[]) => periodTrajectoryPoints(orbitTo.phases, c, orbitTo.start, delta, scale);
   const offset = orbitTo.yStart - avg; // e(t) = offset + w(t)
   const violates = (pts: readonly TrajectoryPoint[]) => pts.some((p) => Math.abs(offset + p.w) > band);
+  // A period whose transient provably stays inside the slack needs no trajectory (phaseSeries.ts).
+  const bound = transientBound(orbitTo.phases, c, scale);
+  const violatesFrom = (delta: readonly number[]) => (bound !== null && bound(delta) <= slack ? false : violates(trajectory(delta)));
 
   const powers = periodPowers([...orbitTo.S], n);
   const safeFrom = firstSafePeriod(orbitTo, powers, delta0, slack, n, c);
   const ringing = fastestRinging(network);
   let step = Math.max(1, Math.ceil(safeFrom / SCAN_SAMPLES));
   if (ringing > 0) step = Math.min(step, Math.max(1, Math.floor(0.2 / (ringing * T))));
-  // Sample periods 0, step, 2 step, ... below safeFrom, keeping each delta.
+  // Sample periods 0, step, 2 step, ... below safeFrom, keeping each delta: M^step is formed once
+  // (its columns by binary powering, periodPowers.ts), then one product per sample.
+  const stepMap = stepMatrix(powers, step, n);
   const samples: Array<{ m: number; delta: number[] }> = [];
   let delta = delta0.slice();
   for (let m = 0; m < safeFrom; m += step) {
     samples.push({ m, delta });
-    delta = powers.applyPower(step, delta);
+    delta = matvec(stepMap, delta, n);
     if (samples.length > 4 * SCAN_SAMPLES + 8) break;
   }
   let last = -1;
   for (let i = samples.length - 1; i >= 0; i--) {
-    if (violates(trajectory(samples[i].delta))) {
+    if (violatesFrom(samples[i].delta)) {
       last = i;
       break;
     }
@@ -88,7 +98,7 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   while (hi - lo > 1) {
     const mid = Math.floor((lo + hi) / 2);
     const midDelta = powers.applyPower(mid - lo, loDelta);
-    if (violates(trajectory(midDelta))) {
+    if (violatesFrom(midDelta)) {
       lo = mid;
       loDelta = midDelta;
     } else hi = mid;
@@ -112,6 +122,18 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   const span = b.tau - aTau;
   const tau = a.t + brentRoot(f, 0, span, span * 1e-12, sign * (offset + a.w) - band, sign * (offset + b.w) - band);
   return { time: lo * T + tau, final: avg };
+}
+
+/** M^k as a matrix (row-major), its columns M^k e_j by binary powering. */
+function stepMatrix(powers: PeriodPowers, k: number, n: number): number[] {
+  const out = new Array<number>(n * n).fill(0);
+  for (let j = 0; j < n; j++) {
+    const e = new Array<number>(n).fill(0);
+    e[j] = 1;
+    const col = powers.applyPower(k, e);
+    for (let i = 0; i < n; i++) out[i * n + j] = col[i];
+  }
+  return out;
 }
 
 /** First period m from which the transient provably stays inside the slack (step 1 of the method). */
