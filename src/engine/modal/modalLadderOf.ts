@@ -1,0 +1,91 @@
+import { zeros } from '../../numeric/dense.js';
+import type { LadderCircuit } from '../../circuit/ladder.js';
+import { dividerGain } from '../../circuit/dcGain.js';
+import { symmetricEigen } from '../../numeric/symmetricEigen.js';
+import type { ModalLadder, PhaseModes } from './modalTypes.js';
+
+/**
+ * The modal form of a follower-free ladder given as its circuit and plain resistor and capacitor
+ * lists (pin side first), without building a Ladder: modalLadder uses it for every follower-free
+ * ladder, and the design search for each of its candidates. The load in `circuit` is the load the
+ * last stage sees (none behind a follower).
+ *
+ * Method: nodal state equations C x' = -G x + g (Kirchhoff's current law at each capacitor node, as
+ * in circuit/stateSpace.ts). With Cs = diag(sqrt C), S = Cs A Cs^-1 = -Cs^-1 G Cs^-1 is symmetric
+ * (G is), so A has real negative eigenvalues and Cs^-1-scaled orthonormal eigenvectors; the RC
+ * ladder gives an irreducible tridiagonal S, whose eigenvalues are distinct (an unreduced symmetric
+ * tridiagonal has simple eigenvalues: B. N. Parlett, "The Symmetric Eigenvalue Problem", SIAM
+ * 1998, ch. 7; cited from memory). Eigen-decomposition by Jacobi rotations
+ * (numeric/symmetricEigen.ts), once when both drivers are equal (the two phases then share S).
+ * DC states from the resistive divider (circuit/dcGain.ts), Delta = (V_h - V_l) g with equal
+ * drivers, else V_h g_h - V_l g_l (engine/modal/dcStates.ts).
+ *
+ * Syntax: modalLadderOf(circuit, r, c)
+ * Example: modalLadderOf(circuit, [4700, 47e3], [1e-6, 10e-9]).hi.rate  // two rates, 1/s, fastest first
+ */
+export function modalLadderOf(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>): ModalLadder {
+  const n = r.length;
+  for (let k = 0; k < n; k++) {
+    if (!(r[k] > 0) || !(c[k] > 0)) throw new RangeError('invalid ladder: every stage needs r > 0 and c > 0');
+  }
+  const { loadResistance, loadCapacitance, driverHigh, driverLow } = circuit;
+  const cs = zeros(n);
+  for (let k = 0; k < n; k++) cs[k] = Math.sqrt(c[k] + (k === n - 1 ? loadCapacitance : 0));
+  // Conductance into node k from the node before (node 0: from the pin through driver + R1).
+  const gIn = zeros(n + 1);
+  for (let k = 1; k < n; k++) gIn[k] = 1 / r[k];
+  gIn[n] = loadResistance !== null ? 1 / loadResistance : 0;
+  const phase = (driver: number): { modes: PhaseModes; basis: number[] } => {
+    gIn[0] = 1 / (r[0] + driver);
+    const S = zeros(n * n);
+    for (let k = 0; k < n; k++) {
+      S[k * n + k] = -(gIn[k] + gIn[k + 1]) / (cs[k] * cs[k]);
+      if (k + 1 < n) {
+        const off = gIn[k + 1] / (cs[k] * cs[k + 1]);
+        S[k * n + k + 1] = off;
+        S[(k + 1) * n + k] = off;
+      }
+    }
+    const { values, vectors } = symmetricEigen(S, n, { vectors: true });
+    const out = zeros(n);
+    for (let i = 0; i < n; i++) out[i] = vectors[(n - 1) * n + i] / cs[n - 1];
+    return { modes: { rate: values, out }, basis: vectors };
+  };
+  const equal = driverHigh === driverLow;
+  const high = phase(driverHigh);
+  const low = equal ? high : phase(driverLow);
+  // DC gains per volt of the pin (an open output: every node at the pin's level).
+  const gHigh = new Array<number>(n).fill(1);
+  if (loadResistance !== null) dividerGain(r, 0, n - 1, loadResistance, driverHigh, 1, gHigh);
+  let gLow = gHigh;
+  if (!equal) {
+    gLow = new Array<number>(n).fill(1);
+    if (loadResistance !== null) dividerGain(r, 0, n - 1, loadResistance, driverLow, 1, gLow);
+  }
+  const span = circuit.high - circuit.low;
+  const mix = zeros(n * n);
+  const delta = zeros(n);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      let s = 0;
+      for (let k = 0; k < n; k++) s += low.basis[k * n + i] * high.basis[k * n + j];
+      mix[i * n + j] = s;
+      const dj = equal ? gHigh[j] * span : gHigh[j] * circuit.high - gLow[j] * circuit.low;
+      delta[i] += high.basis[j * n + i] * cs[j] * dj;
+    }
+  }
+  return {
+    n,
+    period: circuit.period,
+    high: circuit.high,
+    low: circuit.low,
+    symmetric: true,
+    hi: high.modes,
+    lo: low.modes,
+    mix,
+    delta,
+    outLow: gLow[n - 1] * circuit.low,
+    outHigh: gHigh[n - 1] * circuit.high,
+    condition: 1,
+  };
+}
