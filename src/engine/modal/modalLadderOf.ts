@@ -18,7 +18,8 @@ import type { ModalLadder, PhaseModes } from './modalTypes.js';
  * 1998, ch. 7; cited from memory). Eigen-decomposition by Jacobi rotations
  * (numeric/symmetricEigen.ts), once when both drivers are equal (the two phases then share S).
  * DC states from the resistive divider (circuit/dcGain.ts), Delta = (V_h - V_l) g with equal
- * drivers, else V_h g_h - V_l g_l (engine/modal/dcStates.ts).
+ * drivers, else V_h g_h - V_l g_l (engine/modal/dcStates.ts). The search builds millions of these,
+ * so the intermediate arrays are module scratch.
  *
  * Syntax: modalLadderOf(circuit, r, c)
  * Example: modalLadderOf(circuit, [4700, 47e3], [1e-6, 10e-9]).hi.rate  // two rates, 1/s, fastest first
@@ -28,50 +29,35 @@ export function modalLadderOf(circuit: LadderCircuit, r: ArrayLike<number>, c: A
   for (let k = 0; k < n; k++) {
     if (!(r[k] > 0) || !(c[k] > 0)) throw new RangeError('invalid ladder: every stage needs r > 0 and c > 0');
   }
+  if (CS.length < n) grow(n);
   const { loadResistance, loadCapacitance, driverHigh, driverLow } = circuit;
-  const cs = zeros(n);
-  for (let k = 0; k < n; k++) cs[k] = Math.sqrt(c[k] + (k === n - 1 ? loadCapacitance : 0));
+  for (let k = 0; k < n; k++) CS[k] = Math.sqrt(c[k] + (k === n - 1 ? loadCapacitance : 0));
   // Conductance into node k from the node before (node 0: from the pin through driver + R1).
-  const gIn = zeros(n + 1);
-  for (let k = 1; k < n; k++) gIn[k] = 1 / r[k];
-  gIn[n] = loadResistance !== null ? 1 / loadResistance : 0;
-  const phase = (driver: number): { modes: PhaseModes; basis: number[] } => {
-    gIn[0] = 1 / (r[0] + driver);
-    const S = zeros(n * n);
-    for (let k = 0; k < n; k++) {
-      S[k * n + k] = -(gIn[k] + gIn[k + 1]) / (cs[k] * cs[k]);
-      if (k + 1 < n) {
-        const off = gIn[k + 1] / (cs[k] * cs[k + 1]);
-        S[k * n + k + 1] = off;
-        S[(k + 1) * n + k] = off;
-      }
-    }
-    const { values, vectors } = symmetricEigen(S, n, { vectors: true });
-    const out = zeros(n);
-    for (let i = 0; i < n; i++) out[i] = vectors[(n - 1) * n + i] / cs[n - 1];
-    return { modes: { rate: values, out }, basis: vectors };
-  };
+  for (let k = 1; k < n; k++) G_IN[k] = 1 / r[k];
+  G_IN[n] = loadResistance !== null ? 1 / loadResistance : 0;
   const equal = driverHigh === driverLow;
-  const high = phase(driverHigh);
-  const low = equal ? high : phase(driverLow);
+  const high = phase(n, r[0] + driverHigh);
+  const low = equal ? high : phase(n, r[0] + driverLow);
   // DC gains per volt of the pin (an open output: every node at the pin's level).
-  const gHigh = new Array<number>(n).fill(1);
-  if (loadResistance !== null) dividerGain(r, 0, n - 1, loadResistance, driverHigh, 1, gHigh);
-  let gLow = gHigh;
+  for (let k = 0; k < n; k++) G_HIGH[k] = 1;
+  if (loadResistance !== null) dividerGain(r, 0, n - 1, loadResistance, driverHigh, 1, G_HIGH);
+  const gLow = equal ? G_HIGH : G_LOW;
   if (!equal) {
-    gLow = new Array<number>(n).fill(1);
-    if (loadResistance !== null) dividerGain(r, 0, n - 1, loadResistance, driverLow, 1, gLow);
+    for (let k = 0; k < n; k++) G_LOW[k] = 1;
+    if (loadResistance !== null) dividerGain(r, 0, n - 1, loadResistance, driverLow, 1, G_LOW);
   }
   const span = circuit.high - circuit.low;
+  for (let j = 0; j < n; j++) DC_DELTA[j] = equal ? G_HIGH[j] * span : G_HIGH[j] * circuit.high - gLow[j] * circuit.low;
+  const hb = high.basis;
+  const lb = low.basis;
   const mix = zeros(n * n);
   const delta = zeros(n);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       let s = 0;
-      for (let k = 0; k < n; k++) s += low.basis[k * n + i] * high.basis[k * n + j];
+      for (let k = 0; k < n; k++) s += lb[k * n + i] * hb[k * n + j];
       mix[i * n + j] = s;
-      const dj = equal ? gHigh[j] * span : gHigh[j] * circuit.high - gLow[j] * circuit.low;
-      delta[i] += high.basis[j * n + i] * cs[j] * dj;
+      delta[i] += hb[j * n + i] * CS[j] * DC_DELTA[j];
     }
   }
   return {
@@ -85,7 +71,43 @@ export function modalLadderOf(circuit: LadderCircuit, r: ArrayLike<number>, c: A
     mix,
     delta,
     outLow: gLow[n - 1] * circuit.low,
-    outHigh: gHigh[n - 1] * circuit.high,
+    outHigh: G_HIGH[n - 1] * circuit.high,
     condition: 1,
   };
+}
+
+/** The modes of one pin state whose first node is fed through `first` ohm (driver + R1), from the scratch. */
+function phase(n: number, first: number): { modes: PhaseModes; basis: number[] } {
+  G_IN[0] = 1 / first;
+  S.fill(0, 0, n * n);
+  for (let k = 0; k < n; k++) {
+    S[k * n + k] = -(G_IN[k] + G_IN[k + 1]) / (CS[k] * CS[k]);
+    if (k + 1 < n) {
+      const off = G_IN[k + 1] / (CS[k] * CS[k + 1]);
+      S[k * n + k + 1] = off;
+      S[(k + 1) * n + k] = off;
+    }
+  }
+  const { values, vectors } = symmetricEigen(S, n, { vectors: true });
+  const out = zeros(n);
+  for (let i = 0; i < n; i++) out[i] = vectors[(n - 1) * n + i] / CS[n - 1];
+  return { modes: { rate: values, out }, basis: vectors };
+}
+
+// Scratch of one call (single-threaded; each worker has its own module): sqrt C, conductances into
+// each node, the symmetric matrix S, DC gains per volt and Delta in node coordinates.
+let CS = new Float64Array(4);
+let G_IN = new Float64Array(5);
+let S = new Float64Array(16);
+let G_HIGH = new Float64Array(4);
+let G_LOW = new Float64Array(4);
+let DC_DELTA = new Float64Array(4);
+
+function grow(n: number): void {
+  CS = new Float64Array(n);
+  G_IN = new Float64Array(n + 1);
+  S = new Float64Array(n * n);
+  G_HIGH = new Float64Array(n);
+  G_LOW = new Float64Array(n);
+  DC_DELTA = new Float64Array(n);
 }

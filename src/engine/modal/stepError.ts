@@ -24,8 +24,8 @@ export interface SteadyError {
  */
 export function steadyError(target: PeriodicState): SteadyError {
   const { meanOffset } = target;
-  const high: PhaseCurve = { ...target.high, offset: target.high.offset - meanOffset };
-  const low: PhaseCurve = { ...target.low, offset: target.low.offset - meanOffset };
+  const high: PhaseCurve = { offset: target.high.offset - meanOffset, gain: target.high.gain, rate: target.high.rate, length: target.high.length };
+  const low: PhaseCurve = { offset: target.low.offset - meanOffset, gain: target.low.gain, rate: target.low.rate, length: target.low.length };
   const eh = curveExtrema(high);
   const el = curveExtrema(low);
   return { high, low, above: Math.max(eh.max, el.max), below: Math.min(eh.min, el.min) };
@@ -85,8 +85,12 @@ export function stepError(m: ModalLadder, target: PeriodicState, source: Periodi
   const ssHigh = ss.high;
   const ssLow = ss.low;
   const e0 = zeros(n);
-  for (let i = 0; i < n; i++) e0[i] = source.start[i] - target.start[i];
-  if (e0.every((v) => v === 0)) return null;
+  let moved = false;
+  for (let i = 0; i < n; i++) {
+    e0[i] = source.start[i] - target.start[i];
+    if (e0[i] !== 0) moved = true;
+  }
+  if (!moved) return null;
 
   // The period map's modes, in the symmetric form.
   const kh = zeros(n);
@@ -108,7 +112,8 @@ export function stepError(m: ModalLadder, target: PeriodicState, source: Periodi
     }
   }
   const { values: nu, vectors: Z } = symmetricEigen(N, n, { vectors: true });
-  const logMu = Array.from(nu, (v) => (v > -1 ? Math.log1p(v) : -Infinity));
+  const logMu = zeros(n);
+  for (let j = 0; j < n; j++) logMu[j] = nu[j] > -1 ? Math.log1p(nu[j]) : -Infinity;
 
   // Output weights (per rate i) of a state w given in high-phase modal coordinates, in each phase.
   const highWeights = (w: number[], out: number[]) => {
@@ -121,13 +126,16 @@ export function stepError(m: ModalLadder, target: PeriodicState, source: Periodi
       out[i] = lo.out[i] * s;
     }
   };
+  // etaHigh[j * n + i], etaLow[j * n + i]: output weight i of r_j in each phase.
   const zeta = zeros(n);
-  const etaHigh: number[][] = [];
-  const etaLow: number[][] = [];
+  const etaHigh = zeros(n * n);
+  const etaLow = zeros(n * n);
   const bound = zeros(n);
   const lead = zeros(n);
   const r = zeros(n);
   const xr = zeros(n);
+  const wh = zeros(n);
+  const wl = zeros(n);
   for (let j = 0; j < n; j++) {
     let z = 0;
     for (let i = 0; i < n; i++) z += half[i] * Z[i * n + j] * e0[i];
@@ -143,37 +151,43 @@ export function stepError(m: ModalLadder, target: PeriodicState, source: Periodi
       for (let k = 0; k < n; k++) s += mix[k * n + i] * xr[k];
       r[i] = s;
     }
-    const wh = zeros(n);
-    const wl = zeros(n);
     highWeights(r, wh);
     lowWeights(r, wl);
-    etaHigh.push(wh);
-    etaLow.push(wl);
-    bound[j] = Math.max(
-      wh.reduce((a, v) => a + Math.abs(v), 0),
-      wl.reduce((a, v) => a + Math.abs(v), 0),
-    );
-    lead[j] = wh.reduce((a, v) => a + v, 0);
+    let sumHigh = 0;
+    let sumLow = 0;
+    let sum = 0;
+    for (let i = 0; i < n; i++) {
+      etaHigh[j * n + i] = wh[i];
+      etaLow[j * n + i] = wl[i];
+      sumHigh += Math.abs(wh[i]);
+      sumLow += Math.abs(wl[i]);
+      sum += wh[i];
+    }
+    bound[j] = Math.max(sumHigh, sumLow);
+    lead[j] = sum;
   }
 
-  // Error curves of one period from the output weights of its starting state; the two curve
-  // objects are refilled on each call (each is used up before the next call).
+  // Error curves of one period from the output weights bh, bl of its starting state; the two
+  // curve objects are refilled for each period examined.
   const errHigh: PhaseCurve = { offset: 0, gain: zeros(n), rate: hi.rate, length: t1 };
   const errLow: PhaseCurve = { offset: 0, gain: zeros(n), rate: lo.rate, length: t2 };
   const bh = zeros(n);
   const bl = zeros(n);
-  const curves = (): [PhaseCurve, PhaseCurve] => {
-    let oHigh = ssHigh.offset;
-    let oLow = ssLow.offset;
+  const fillHigh = () => {
+    let o = ssHigh.offset;
     for (let i = 0; i < n; i++) {
       errHigh.gain[i] = ssHigh.gain[i] + bh[i];
-      errLow.gain[i] = ssLow.gain[i] + bl[i];
-      oHigh += bh[i];
-      oLow += bl[i];
+      o += bh[i];
     }
-    errHigh.offset = oHigh;
-    errLow.offset = oLow;
-    return [errHigh, errLow];
+    errHigh.offset = o;
+  };
+  const fillLow = () => {
+    let o = ssLow.offset;
+    for (let i = 0; i < n; i++) {
+      errLow.gain[i] = ssLow.gain[i] + bl[i];
+      o += bl[i];
+    }
+    errLow.offset = o;
   };
   return {
     n,
@@ -191,24 +205,28 @@ export function stepError(m: ModalLadder, target: PeriodicState, source: Periodi
         let h = 0;
         let l = 0;
         for (let j = 0; j < n; j++) {
-          h += c[j] * etaHigh[j][i];
-          l += c[j] * etaLow[j][i];
+          h += c[j] * etaHigh[j * n + i];
+          l += c[j] * etaLow[j * n + i];
         }
         bh[i] = h;
         bl[i] = l;
       }
     },
+    // the low phase first: in a violating period it is usually the one that leaves
     leaves: (band, slack) => {
-      const [ch, cl] = curves();
-      const xh = curveExtrema(ch);
-      const xl = curveExtrema(cl);
-      return Math.max(xh.max, xl.max) + slack > band || Math.min(xh.min, xl.min) - slack < -band;
+      fillLow();
+      const xl = curveExtrema(errLow);
+      if (xl.max + slack > band || xl.min - slack < -band) return true;
+      fillHigh();
+      const xh = curveExtrema(errHigh);
+      return xh.max + slack > band || xh.min - slack < -band;
     },
     lastExit: (k, band) => {
-      const [ch, cl] = curves();
-      const inLow = curveLastExit(cl, band, period);
+      fillLow();
+      const inLow = curveLastExit(errLow, band, period);
       if (inLow >= 0) return k * period + t1 + inLow;
-      const inHigh = curveLastExit(ch, band, period);
+      fillHigh();
+      const inHigh = curveLastExit(errHigh, band, period);
       return k * period + Math.max(inHigh, 0);
     },
   };
