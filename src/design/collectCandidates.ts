@@ -207,13 +207,16 @@ export function collectCandidates(
     return code;
   };
 
-  // One-entry model cache: the staircase check is usually followed by the full evaluation.
+  // One-entry model cache: the staircase check is usually followed by the full evaluation. With it
+  // the candidate's steady states by duty (its checks below, the INL grid, the droop grid and the
+  // settling steps share duties): the figures of the cheap checks, and the full state for settling.
   let lastR: number[] = [];
   let lastC: number[] = [];
   let model: ModalLadder | null = null;
-  let steadyDuty: number[] = [];
-  let steadyOf: PeriodicState[] = [];
-  let swingOf: Array<SteadySwing | null> = [];
+  let slots = 0;
+  const steadyDuty: number[] = [];
+  const steadyOf: Array<PeriodicState | null> = [];
+  const swingOf: Array<SteadySwing | null> = [];
   const sameAs = (x: number[], y: number[]) => {
     if (x.length !== y.length) return false;
     for (let k = 0; k < x.length; k++) if (x[k] !== y[k]) return false;
@@ -224,24 +227,27 @@ export function collectCandidates(
       lastR = rs;
       lastC = cs.slice();
       model = modalLadderOf(problem.circuit, rs, cs);
-      steadyDuty = [];
-      steadyOf = [];
-      swingOf = [];
+      slots = 0;
     }
     return model;
   };
-  /** Slot of the model last used's steady state at a duty (computed once). */
+  /** Slot of a duty in the steady states of the model last used. */
   const slot = (d: number): number => {
-    for (let k = 0; k < steadyDuty.length; k++) if (steadyDuty[k] === d) return k;
-    steadyDuty.push(d);
-    steadyOf.push(periodicState(model!, d));
-    swingOf.push(null);
-    return steadyDuty.length - 1;
+    for (let k = 0; k < slots; k++) if (steadyDuty[k] === d) return k;
+    steadyDuty[slots] = d;
+    steadyOf[slots] = null;
+    swingOf[slots] = null;
+    return slots++;
   };
-  const steady = (d: number): PeriodicState => steadyOf[slot(d)];
+  /** Periodic state of the model last used at a duty (computed once). */
+  const steady = (d: number): PeriodicState => {
+    const k = slot(d);
+    return (steadyOf[k] ??= periodicState(model!, d));
+  };
+  /** Steady-state figures of the model last used at a duty (computed once): scalar code for one and two stages. */
   const swing = (d: number): SteadySwing => {
     const k = slot(d);
-    return (swingOf[k] ??= steadySwing(model!, d, steadyOf[k]));
+    return (swingOf[k] ??= stages <= 2 ? steadySwing(model!, d) : steadySwing(model!, d, steady(d)));
   };
 
   // Count each candidate the fast model looks at once (consecutive looks are at the same candidate).
@@ -254,37 +260,9 @@ export function collectCandidates(
     state.evaluated++;
   };
 
-  /** Steady-state figures for the cheap checks: scalar code for one and two stages, else the full model. */
-  // Two stages with an INL limit: the last point's steady states by duty (its checks below, the
-  // INL grid, the droop grid and the settling steps, share duties). Only there: elsewhere the
-  // bookkeeping cost more than it saved (measured on sample-configs/design-wide-e24.yaml).
-  const keepSteady = inlApplies;
-  let kR0 = NaN;
-  let kR1 = NaN;
-  let kC0 = NaN;
-  let kC1 = NaN;
-  let kN = 0;
-  const kDuty = new Float64Array(16);
-  const kOf: SteadySwing[] = [];
+  /** Steady-state figures for the cheap checks. */
   const lite = (rs: number[], cs: number[], d: number): SteadySwing => {
     touch(rs, cs);
-    if (stages <= 2) {
-      if (stages === 1 || !keepSteady) return steadySwing(use(rs, cs), d);
-      if (rs[0] !== kR0 || rs[1] !== kR1 || cs[0] !== kC0 || cs[1] !== kC1) {
-        kR0 = rs[0];
-        kR1 = rs[1];
-        kC0 = cs[0];
-        kC1 = cs[1];
-        kN = 0;
-      }
-      for (let k = 0; k < kN; k++) if (kDuty[k] === d) return kOf[k];
-      const s = steadySwing(use(rs, cs), d);
-      if (kN < kDuty.length) {
-        kDuty[kN] = d;
-        kOf[kN++] = s;
-      }
-      return s;
-    }
     use(rs, cs);
     return swing(d);
   };

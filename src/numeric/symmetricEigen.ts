@@ -25,7 +25,7 @@ export function symmetricEigen(a: ArrayLike<number>, n: number): { values: numbe
 export function symmetricEigen(a: ArrayLike<number>, n: number, options: { vectors: true }): SymmetricEigen;
 export function symmetricEigen(a: ArrayLike<number>, n: number, options?: { vectors?: boolean }): { values: number[]; vectors?: number[] } {
   if (n === 1) return { values: [a[0]], vectors: [1] };
-  if (n === 2) return eigen2(a[0], a[1], a[3]);
+  if (n === 2) return symmetricEigen2(a[0], a[1], a[3]);
   const withVectors = options?.vectors === true;
   const m = zeros(n * n);
   for (let i = 0; i < n * n; i++) m[i] = a[i];
@@ -98,8 +98,14 @@ export function symmetricEigen(a: ArrayLike<number>, n: number, options?: { vect
   return { values, vectors };
 }
 
-/** Order 2: one Jacobi rotation is exact. */
-function eigen2(app: number, apq: number, aqq: number): SymmetricEigen {
+/**
+ * symmetricEigen of the order-2 matrix [[app, apq], [apq, aqq]] with vectors, from its three
+ * entries (for callers that keep them in scalars): one Jacobi rotation, which is exact.
+ *
+ * Syntax: symmetricEigen2(app, apq, aqq)
+ * Example: symmetricEigen2(2, 1, 2).values  // [1, 3]
+ */
+export function symmetricEigen2(app: number, apq: number, aqq: number): SymmetricEigen {
   if (apq === 0) {
     return app <= aqq ? { values: [app, aqq], vectors: [1, 0, 0, 1] } : { values: [aqq, app], vectors: [0, 1, 1, 0] };
   }

@@ -1,7 +1,7 @@
 import { zeros } from '../../numeric/dense.js';
 import type { LadderCircuit } from '../../circuit/ladder.js';
 import { dividerGain } from '../../circuit/dcGain.js';
-import { symmetricEigen } from '../../numeric/symmetricEigen.js';
+import { symmetricEigen, symmetricEigen2 } from '../../numeric/symmetricEigen.js';
 import type { ModalLadder, PhaseModes } from './modalTypes.js';
 
 /**
@@ -18,17 +18,28 @@ import type { ModalLadder, PhaseModes } from './modalTypes.js';
  * 1998, ch. 7; cited from memory). Eigen-decomposition by Jacobi rotations
  * (numeric/symmetricEigen.ts), once when both drivers are equal (the two phases then share S).
  * DC states from the resistive divider (circuit/dcGain.ts), Delta = (V_h - V_l) g with equal
- * drivers, else V_h g_h - V_l g_l (engine/modal/dcStates.ts). The search builds millions of these,
- * so the intermediate arrays are module scratch.
+ * drivers, else V_h g_h - V_l g_l (engine/modal/dcStates.ts). The search builds millions of these:
+ * one and two stages (most candidates) are written out on scalars (smallLadder, the same operations
+ * in the same order, so the same digits: test/engine/modal/modalLadderOf.test.ts), and the
+ * intermediate arrays of the general order are module scratch.
  *
  * Syntax: modalLadderOf(circuit, r, c)
  * Example: modalLadderOf(circuit, [4700, 47e3], [1e-6, 10e-9]).hi.rate  // two rates, 1/s, fastest first
  */
 export function modalLadderOf(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>): ModalLadder {
+  return r.length === 1 || r.length === 2 ? smallLadder(circuit, r, c) : modalLadderOfAnyOrder(circuit, r, c);
+}
+
+/**
+ * modalLadderOf by the general-order construction for any number of stages; modalLadderOf uses it
+ * from three stages on. Callable by name so that tests hold the scalar one- and two-stage path to it.
+ *
+ * Syntax: modalLadderOfAnyOrder(circuit, r, c)
+ * Example: modalLadderOfAnyOrder(circuit, [4700, 47e3], [1e-6, 10e-9])  // equal to modalLadderOf(circuit, ...)
+ */
+export function modalLadderOfAnyOrder(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>): ModalLadder {
   const n = r.length;
-  for (let k = 0; k < n; k++) {
-    if (!(r[k] > 0) || !(c[k] > 0)) throw new RangeError('invalid ladder: every stage needs r > 0 and c > 0');
-  }
+  checkStages(r, c);
   if (CS.length < n) grow(n);
   const { loadResistance, loadCapacitance, driverHigh, driverLow } = circuit;
   for (let k = 0; k < n; k++) CS[k] = Math.sqrt(c[k] + (k === n - 1 ? loadCapacitance : 0));
@@ -72,6 +83,71 @@ export function modalLadderOf(circuit: LadderCircuit, r: ArrayLike<number>, c: A
     delta,
     outLow: gLow[n - 1] * circuit.low,
     outHigh: G_HIGH[n - 1] * circuit.high,
+    condition: 1,
+  };
+}
+
+function checkStages(r: ArrayLike<number>, c: ArrayLike<number>): void {
+  for (let k = 0; k < r.length; k++) {
+    if (!(r[k] > 0) || !(c[k] > 0)) throw new RangeError('invalid ladder: every stage needs r > 0 and c > 0');
+  }
+}
+
+/**
+ * modalLadderOfAnyOrder for one or two stages on scalars: every operation of the general
+ * construction, in its order (sums started from 0 as there), without its loops and scratch arrays.
+ */
+function smallLadder(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>): ModalLadder {
+  const n = r.length;
+  checkStages(r, c);
+  const { loadResistance, loadCapacitance, driverHigh, driverLow, high: vHigh, low: vLow } = circuit;
+  const equal = driverHigh === driverLow;
+  const gLoad = loadResistance !== null ? 1 / loadResistance : 0;
+  // DC gains per volt of the pin (circuit/dcGain.ts), into G_HIGH and G_LOW
+  G_HIGH[0] = G_HIGH[1] = G_LOW[0] = G_LOW[1] = 1;
+  if (loadResistance !== null) {
+    dividerGain(r, 0, n - 1, loadResistance, driverHigh, 1, G_HIGH);
+    if (!equal) dividerGain(r, 0, n - 1, loadResistance, driverLow, 1, G_LOW);
+  }
+  const gLow = equal ? G_HIGH : G_LOW;
+  const span = vHigh - vLow;
+  const last = n - 1;
+  const outLow = gLow[last] * vLow;
+  const outHigh = G_HIGH[last] * vHigh;
+  if (n === 1) {
+    const cs0 = Math.sqrt(c[0] + loadCapacitance);
+    const cc = cs0 * cs0;
+    // order 1: the eigenvalue is the entry itself, the vector [1]
+    const hi: PhaseModes = { rate: [-(1 / (r[0] + driverHigh) + gLoad) / cc], out: [1 / cs0] };
+    const lo: PhaseModes = equal ? hi : { rate: [-(1 / (r[0] + driverLow) + gLoad) / cc], out: [1 / cs0] };
+    const d0 = equal ? G_HIGH[0] * span : G_HIGH[0] * vHigh - gLow[0] * vLow;
+    return { n, period: circuit.period, high: vHigh, low: vLow, symmetric: true, hi, lo, mix: [0 + 1 * 1], delta: [0 + 1 * cs0 * d0], outLow, outHigh, condition: 1 };
+  }
+  const cs0 = Math.sqrt(c[0] + 0);
+  const cs1 = Math.sqrt(c[1] + loadCapacitance);
+  const g1 = 1 / r[1];
+  const off = g1 / (cs0 * cs1);
+  const s11 = -(g1 + gLoad) / (cs1 * cs1);
+  const eh = symmetricEigen2(-(1 / (r[0] + driverHigh) + g1) / (cs0 * cs0), off, s11);
+  const el = equal ? eh : symmetricEigen2(-(1 / (r[0] + driverLow) + g1) / (cs0 * cs0), off, s11);
+  const H = eh.vectors;
+  const L = el.vectors;
+  const hi: PhaseModes = { rate: eh.values, out: [H[2] / cs1, H[3] / cs1] };
+  const lo: PhaseModes = equal ? hi : { rate: el.values, out: [L[2] / cs1, L[3] / cs1] };
+  const d0 = equal ? G_HIGH[0] * span : G_HIGH[0] * vHigh - gLow[0] * vLow;
+  const d1 = equal ? G_HIGH[1] * span : G_HIGH[1] * vHigh - gLow[1] * vLow;
+  return {
+    n,
+    period: circuit.period,
+    high: vHigh,
+    low: vLow,
+    symmetric: true,
+    hi,
+    lo,
+    mix: [0 + L[0] * H[0] + L[2] * H[2], 0 + L[0] * H[1] + L[2] * H[3], 0 + L[1] * H[0] + L[3] * H[2], 0 + L[1] * H[1] + L[3] * H[3]],
+    delta: [0 + H[0] * cs0 * d0 + H[2] * cs1 * d1, 0 + H[1] * cs0 * d0 + H[3] * cs1 * d1],
+    outLow,
+    outHigh,
     condition: 1,
   };
 }

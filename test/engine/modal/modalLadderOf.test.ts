@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import type { Ladder } from '../../../src/circuit/ladder.js';
 import { modalLadder } from '../../../src/engine/modal/modalLadder.js';
-import { modalLadderOf } from '../../../src/engine/modal/modalLadderOf.js';
+import { modalLadderOf, modalLadderOfAnyOrder } from '../../../src/engine/modal/modalLadderOf.js';
 import { ladder, stage } from '../ladders.js';
 import { pwmReference } from '../pwmReference.js';
 
@@ -71,6 +71,25 @@ describe('modalLadderOf', () => {
         expect(modalLadderOf({ ...l, loadResistance: null, loadCapacitance: 0 }, r, c)).toEqual(modalLadder(withFollower));
       }),
       { numRuns: 100 },
+    );
+  });
+
+  it('one and two stages: the scalar path gives the general construction digit for digit (fast-check)', () => {
+    // Same operations in the same order, so Object.is on every number (no tolerance).
+    const digits = (m: ReturnType<typeof modalLadderOf>) => [m.n, m.period, m.high, m.low, m.outLow, m.outHigh, m.condition, ...m.hi.rate, ...m.hi.out, ...m.lo.rate, ...m.lo.out, ...m.mix, ...m.delta];
+    fc.assert(
+      fc.property(ladderArb, (l) => {
+        const r = l.stages.slice(0, 2).map((s) => s.r);
+        const c = l.stages.slice(0, 2).map((s) => s.c);
+        for (const k of [1, 2]) {
+          if (r.length < k) continue;
+          const a = digits(modalLadderOf(l, r.slice(0, k), c.slice(0, k)));
+          const b = digits(modalLadderOfAnyOrder(l, r.slice(0, k), c.slice(0, k)));
+          expect(a.length).toBe(b.length);
+          a.forEach((v, i) => expect(Object.is(v, b[i]), `number ${i}: ${v} against ${b[i]}`).toBe(true));
+        }
+      }),
+      { numRuns: 300 },
     );
   });
 
