@@ -53,7 +53,7 @@ export function dividerGain(
   loadResistance: number,
   source: number,
   vIn: number,
-  gain: number[] | Float64Array,
+  gain: number[],
 ): void {
   let total = loadResistance + source;
   for (let j = first; j <= last; j++) total += r[j];

@@ -171,19 +171,27 @@ function phase(n: number, first: number): { modes: PhaseModes; basis: number[] }
 }
 
 // Scratch of one call (single-threaded; each worker has its own module): sqrt C, conductances into
-// each node, the symmetric matrix S, DC gains per volt and Delta in node coordinates.
-let CS = new Float64Array(4);
-let G_IN = new Float64Array(5);
-let S = new Float64Array(16);
-let G_HIGH = new Float64Array(4);
-let G_LOW = new Float64Array(4);
-let DC_DELTA = new Float64Array(4);
+// each node, the symmetric matrix S, DC gains per volt and Delta in node coordinates. Plain arrays
+// of doubles, as everywhere else symmetricEigen and dividerGain are called, so that their element
+// accesses stay monomorphic.
+let CS = doubles(4);
+let G_IN = doubles(5);
+let S = doubles(16);
+let G_HIGH = doubles(4);
+let G_LOW = doubles(4);
+let DC_DELTA = doubles(4);
+
+function doubles(n: number): number[] {
+  const v = zeros(n);
+  for (let i = 0; i < n; i++) v[i] = 0.5; // a double: the array is stored unboxed from the start
+  return v;
+}
 
 function grow(n: number): void {
-  CS = new Float64Array(n);
-  G_IN = new Float64Array(n + 1);
-  S = new Float64Array(n * n);
-  G_HIGH = new Float64Array(n);
-  G_LOW = new Float64Array(n);
-  DC_DELTA = new Float64Array(n);
+  CS = doubles(n);
+  G_IN = doubles(n + 1);
+  S = doubles(n * n);
+  G_HIGH = doubles(n);
+  G_LOW = doubles(n);
+  DC_DELTA = doubles(n);
 }
