@@ -226,7 +226,8 @@ export function collectCandidates(
     if (model === null || !sameAs(rs, lastR) || !sameAs(cs, lastC)) {
       lastR = rs;
       lastC = cs.slice();
-      model = modalLadderOf(problem.circuit, rs, cs);
+      // one and two stages: written over the last candidate's model (its states go with it)
+      model = modalLadderOf(problem.circuit, rs, cs, model ?? undefined);
       slots = 0;
     }
     return model;

@@ -23,11 +23,15 @@ import type { ModalLadder, PhaseModes } from './modalTypes.js';
  * in the same order, so the same digits: test/engine/modal/modalLadderOf.test.ts), and the
  * intermediate arrays of the general order are module scratch.
  *
- * Syntax: modalLadderOf(circuit, r, c)
+ * With `into`, a modal form of as many stages from an earlier call for the same circuit, one and
+ * two stages are written into it and it is returned instead of a new object (the design search
+ * keeps one per walk and allocates nothing per candidate); whatever holds it sees the new ladder.
+ *
+ * Syntax: modalLadderOf(circuit, r, c[, into])
  * Example: modalLadderOf(circuit, [4700, 47e3], [1e-6, 10e-9]).hi.rate  // two rates, 1/s, fastest first
  */
-export function modalLadderOf(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>): ModalLadder {
-  return r.length === 1 || r.length === 2 ? smallLadder(circuit, r, c) : modalLadderOfAnyOrder(circuit, r, c);
+export function modalLadderOf(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>, into?: ModalLadder): ModalLadder {
+  return r.length === 1 || r.length === 2 ? smallLadder(circuit, r, c, into) : modalLadderOfAnyOrder(circuit, r, c);
 }
 
 /**
@@ -95,9 +99,10 @@ function checkStages(r: ArrayLike<number>, c: ArrayLike<number>): void {
 
 /**
  * modalLadderOfAnyOrder for one or two stages on scalars: every operation of the general
- * construction, in its order (sums started from 0 as there), without its loops and scratch arrays.
+ * construction, in its order (sums started from 0 as there), without its loops and scratch arrays;
+ * written into `into` when it fits (same stage count, phases shared exactly when the drivers are equal).
  */
-function smallLadder(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>): ModalLadder {
+function smallLadder(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>, into?: ModalLadder): ModalLadder {
   const n = r.length;
   checkStages(r, c);
   const { loadResistance, loadCapacitance, driverHigh, driverLow, high: vHigh, low: vLow } = circuit;
@@ -112,45 +117,89 @@ function smallLadder(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<
   const gLow = equal ? G_HIGH : G_LOW;
   const span = vHigh - vLow;
   const last = n - 1;
-  const outLow = gLow[last] * vLow;
-  const outHigh = G_HIGH[last] * vHigh;
+  // Modes (EIG_H, EIG_L), output per mode, mix and Delta of both phases, as the general construction.
+  let cs0: number;
+  let cs1 = 0;
+  let d1 = 0;
+  let outH0: number;
+  let outH1 = 0;
+  let outL0: number;
+  let outL1 = 0;
   if (n === 1) {
-    const cs0 = Math.sqrt(c[0] + loadCapacitance);
+    cs0 = Math.sqrt(c[0] + loadCapacitance);
     const cc = cs0 * cs0;
     // order 1: the eigenvalue is the entry itself, the vector [1]
-    const hi: PhaseModes = { rate: [-(1 / (r[0] + driverHigh) + gLoad) / cc], out: [1 / cs0] };
-    const lo: PhaseModes = equal ? hi : { rate: [-(1 / (r[0] + driverLow) + gLoad) / cc], out: [1 / cs0] };
-    const d0 = equal ? G_HIGH[0] * span : G_HIGH[0] * vHigh - gLow[0] * vLow;
-    return { n, period: circuit.period, high: vHigh, low: vLow, symmetric: true, hi, lo, mix: [0 + 1 * 1], delta: [0 + 1 * cs0 * d0], outLow, outHigh, condition: 1 };
+    EIG_H.values[0] = -(1 / (r[0] + driverHigh) + gLoad) / cc;
+    EIG_H.vectors[0] = 1;
+    EIG_L.values[0] = -(1 / (r[0] + driverLow) + gLoad) / cc;
+    EIG_L.vectors[0] = 1;
+    outH0 = outL0 = 1 / cs0;
+  } else {
+    cs0 = Math.sqrt(c[0] + 0);
+    cs1 = Math.sqrt(c[1] + loadCapacitance);
+    const g1 = 1 / r[1];
+    const off = g1 / (cs0 * cs1);
+    const s11 = -(g1 + gLoad) / (cs1 * cs1);
+    symmetricEigen2(-(1 / (r[0] + driverHigh) + g1) / (cs0 * cs0), off, s11, EIG_H);
+    if (!equal) symmetricEigen2(-(1 / (r[0] + driverLow) + g1) / (cs0 * cs0), off, s11, EIG_L);
+    outH0 = EIG_H.vectors[2] / cs1;
+    outH1 = EIG_H.vectors[3] / cs1;
+    outL0 = EIG_L.vectors[2] / cs1;
+    outL1 = EIG_L.vectors[3] / cs1;
+    d1 = equal ? G_HIGH[1] * span : G_HIGH[1] * vHigh - gLow[1] * vLow;
   }
-  const cs0 = Math.sqrt(c[0] + 0);
-  const cs1 = Math.sqrt(c[1] + loadCapacitance);
-  const g1 = 1 / r[1];
-  const off = g1 / (cs0 * cs1);
-  const s11 = -(g1 + gLoad) / (cs1 * cs1);
-  const eh = symmetricEigen2(-(1 / (r[0] + driverHigh) + g1) / (cs0 * cs0), off, s11);
-  const el = equal ? eh : symmetricEigen2(-(1 / (r[0] + driverLow) + g1) / (cs0 * cs0), off, s11);
-  const H = eh.vectors;
-  const L = el.vectors;
-  const hi: PhaseModes = { rate: eh.values, out: [H[2] / cs1, H[3] / cs1] };
-  const lo: PhaseModes = equal ? hi : { rate: el.values, out: [L[2] / cs1, L[3] / cs1] };
+  const H = EIG_H.vectors;
+  const L = equal ? H : EIG_L.vectors;
   const d0 = equal ? G_HIGH[0] * span : G_HIGH[0] * vHigh - gLow[0] * vLow;
-  const d1 = equal ? G_HIGH[1] * span : G_HIGH[1] * vHigh - gLow[1] * vLow;
-  return {
-    n,
-    period: circuit.period,
-    high: vHigh,
-    low: vLow,
-    symmetric: true,
-    hi,
-    lo,
-    mix: [0 + L[0] * H[0] + L[2] * H[2], 0 + L[0] * H[1] + L[2] * H[3], 0 + L[1] * H[0] + L[3] * H[2], 0 + L[1] * H[1] + L[3] * H[3]],
-    delta: [0 + H[0] * cs0 * d0 + H[2] * cs1 * d1, 0 + H[1] * cs0 * d0 + H[3] * cs1 * d1],
-    outLow,
-    outHigh,
-    condition: 1,
-  };
+  const m = into !== undefined && into.n === n && (into.hi === into.lo) === equal ? (into as MutableModal) : fresh(n, equal);
+  const hi = m.hi as MutablePhase;
+  const lo = m.lo as MutablePhase;
+  hi.rate[0] = EIG_H.values[0];
+  hi.out[0] = outH0;
+  if (!equal) {
+    lo.rate[0] = EIG_L.values[0];
+    lo.out[0] = outL0;
+  }
+  if (n === 1) {
+    m.mix[0] = 0 + L[0] * H[0];
+    m.delta[0] = 0 + H[0] * cs0 * d0;
+  } else {
+    hi.rate[1] = EIG_H.values[1];
+    hi.out[1] = outH1;
+    if (!equal) {
+      lo.rate[1] = EIG_L.values[1];
+      lo.out[1] = outL1;
+    }
+    m.mix[0] = 0 + L[0] * H[0] + L[2] * H[2];
+    m.mix[1] = 0 + L[0] * H[1] + L[2] * H[3];
+    m.mix[2] = 0 + L[1] * H[0] + L[3] * H[2];
+    m.mix[3] = 0 + L[1] * H[1] + L[3] * H[3];
+    m.delta[0] = 0 + H[0] * cs0 * d0 + H[2] * cs1 * d1;
+    m.delta[1] = 0 + H[1] * cs0 * d0 + H[3] * cs1 * d1;
+  }
+  m.period = circuit.period;
+  m.symmetric = true;
+  m.condition = 1;
+  m.high = vHigh;
+  m.low = vLow;
+  m.outLow = gLow[last] * vLow;
+  m.outHigh = G_HIGH[last] * vHigh;
+  return m;
 }
+
+type MutablePhase = { rate: number[]; out: number[] };
+type MutableModal = { -readonly [K in keyof ModalLadder]: ModalLadder[K] } & { mix: number[]; delta: number[] };
+
+/** A modal form of n (1 or 2) stages to fill; both phases one object when the drivers are equal. */
+function fresh(n: number, equal: boolean): MutableModal {
+  const hi: PhaseModes = { rate: zeros(n), out: zeros(n) };
+  const lo: PhaseModes = equal ? hi : { rate: zeros(n), out: zeros(n) };
+  return { n, period: 0, high: 0, low: 0, symmetric: true, hi, lo, mix: zeros(n * n), delta: zeros(n), outLow: 0, outHigh: 0, condition: 1 };
+}
+
+/** Scratch of the order-2 eigenproblems (order 1 uses the first entries). */
+const EIG_H = { values: [0.5, 0.5], vectors: [0.5, 0.5, 0.5, 0.5] };
+const EIG_L = { values: [0.5, 0.5], vectors: [0.5, 0.5, 0.5, 0.5] };
 
 /** The modes of one pin state whose first node is fed through `first` ohm (driver + R1), from the scratch. */
 function phase(n: number, first: number): { modes: PhaseModes; basis: number[] } {

@@ -93,6 +93,22 @@ describe('modalLadderOf', () => {
     );
   });
 
+  it('written into an earlier model of as many stages: the same numbers, no new object', () => {
+    fc.assert(
+      fc.property(ladderArb, ladderArb, (a, b) => {
+        const k = Math.min(2, a.stages.length, b.stages.length);
+        const rc = (l: Ladder) => [l.stages.slice(0, k).map((s) => s.r), l.stages.slice(0, k).map((s) => s.c)] as const;
+        const circuit = { ...b, driverLow: b.driverHigh + (a.driverLow > 50 ? 10 : 0) };
+        const into = modalLadderOf(circuit, ...rc(a));
+        const want = modalLadderOf(circuit, ...rc(b));
+        const got = modalLadderOf(circuit, ...rc(b), into);
+        expect(got).toBe(into);
+        expect(got).toEqual(want);
+      }),
+      { numRuns: 200 },
+    );
+  });
+
   it('rejects a stage without a positive R or C', () => {
     const circuit = ladder([]);
     expect(() => modalLadderOf(circuit, [1e3, 0], [1e-6, 1e-7])).toThrow(RangeError);
