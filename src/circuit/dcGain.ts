@@ -25,14 +25,7 @@ export function dcGain(ladder: Ladder, driver: number): number[] {
     const last = k;
     const loaded = last === n - 1 && !stages[last].buffered && ladder.loadResistance !== null;
     if (loaded) {
-      const rl = ladder.loadResistance as number;
-      let total = rl + (first === 0 ? driver : 0);
-      for (let j = first; j <= last; j++) total += stages[j].r;
-      let after = rl;
-      for (let j = last; j >= first; j--) {
-        gain[j] = (vIn * after) / total;
-        after += stages[j].r;
-      }
+      dividerGain(stages.map((s) => s.r), first, last, ladder.loadResistance as number, first === 0 ? driver : 0, vIn, gain);
     } else {
       for (let j = first; j <= last; j++) gain[j] = vIn;
     }
@@ -40,4 +33,33 @@ export function dcGain(ladder: Ladder, driver: number): number[] {
     first = last + 1;
   }
   return gain;
+}
+
+/**
+ * DC node voltages of a follower-free chain of resistors r[first..last] (each into a capacitor
+ * node) fed from vIn through a further series resistance `source` (the driver, or 0) into a load
+ * R_L at node `last`, written into gain[first..last]: the plain divider
+ * v_k = vIn (R_L + sum of r after node k) / (R_L + source + sum of r[first..last]), from sums of
+ * positive terms only (see dcGain). Shared by dcGain and the engine's modal form of plain arrays
+ * (engine/modal/modalLadderOf.ts), so both give the same digits.
+ *
+ * Syntax: dividerGain(r, first, last, loadResistance, source, vIn, gain)
+ * Example: dividerGain([1e3], 0, 0, 9e3, 0, 1, g)  // g[0] = 0.9
+ */
+export function dividerGain(
+  r: ArrayLike<number>,
+  first: number,
+  last: number,
+  loadResistance: number,
+  source: number,
+  vIn: number,
+  gain: number[],
+): void {
+  let total = loadResistance + source;
+  for (let j = first; j <= last; j++) total += r[j];
+  let after = loadResistance;
+  for (let j = last; j >= first; j--) {
+    gain[j] = (vIn * after) / total;
+    after += r[j];
+  }
 }

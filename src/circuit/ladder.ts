@@ -37,3 +37,9 @@ export interface Ladder {
   /** Load capacitance in parallel with the last capacitor, F (0 when none). */
   readonly loadCapacitance: number;
 }
+
+/**
+ * The circuit around the stages: PWM source, drivers and the load as the last stage sees it. The
+ * design search describes its candidates by this and plain resistor and capacitor lists.
+ */
+export type LadderCircuit = Omit<Ladder, 'stages'>;

@@ -1,12 +1,9 @@
+import { modalLadderOf, periodicState, settlingLowerBound, steadySwing, type ModalLadder, type PeriodicState, type SteadySwing } from '../engine/index.js';
 import type { DesignProblem } from './designProblem.js';
-import { fastLadderOf, type FastLadder } from './fast/fastLadder.js';
-import { fastSettlingBound } from './fast/fastSettlingBound.js';
-import { dcTransferMiss } from './fast/dcTransferMiss.js';
+import { dcTransferMiss } from './dcTransferMiss.js';
 import { gainFloor } from './gainFloor.js';
 import { inlFloor, inlFloorPlan, type InlFloorPlan } from './inlFloor.js';
-import { fastSteadyState, type FastSteady } from './fast/fastSteadyState.js';
-import { maximizeOverDuty } from './fast/maximizeOverDuty.js';
-import { twoStageSteady, type TwoStageSteady } from './fast/twoStageSteady.js';
+import { maximizeOverDuty } from './maximizeOverDuty.js';
 import { tupleBounds, type TupleBounds } from './settlingBounds.js';
 import { slowestTimeConstant } from './slowestTimeConstant.js';
 
@@ -121,8 +118,9 @@ function paretoThreshold(pareto: ParetoState, ripple: number): number {
  * quotient, slowestTimeConstant.ts), which cuts each column and ends the walk. Staircase points
  * are evaluated first, so theta falls before the inner points are visited. A point then gets the
  * cheaper bound tau_slow ln(z0 / (band + excursion)) from its own steady states, and only then the
- * exact fast settling bound (fast/fastSettlingBound.ts). Two-stage steady states come from scalar
- * code (fast/twoStageSteady.ts), the rest from fast/fastSteadyState.ts.
+ * exact settling lower bound (the engine's settlingLowerBound). The fast model is the engine's
+ * modal form of each candidate (modalLadderOf): steady states from steadySwing (scalar code for one
+ * and two stages), periodicState for settling.
  *
  * Syntax: collectCandidates(problem, stages, state[, onTuple])
  * Example: collectCandidates(problem, 2, newCollectState(problem, 10)); state.entries.length
@@ -152,7 +150,7 @@ export function collectCandidates(
   const idealTop = Math.max(pwm.low + problem.dutyMin * (pwm.high - pwm.low), pwm.low + problem.dutyMax * (pwm.high - pwm.low));
   // Unequal drivers with an INL limit: a floor on the INL from the resistors and the first two
   // capacitors (inlFloor.ts), per resistor tuple; a point it rules out is one the fast INL check
-  // (fast/dcTransferMiss.ts, same duties, same allowance) rules out too, without a steady state.
+  // (dcTransferMiss.ts, same duties, same allowance) rules out too, without a steady state.
   const inlPlans = new WeakMap<number[], InlFloorPlan | null>();
   const inlApplies = limits.inl !== undefined && !lti;
   const inlOver = (rs: number[], cs: number[]): boolean => {
@@ -209,34 +207,48 @@ export function collectCandidates(
     return code;
   };
 
-  // One-entry model cache: the staircase check is usually followed by the full evaluation.
+  // One-entry model cache: the staircase check is usually followed by the full evaluation. With it
+  // the candidate's steady states by duty (its checks below, the INL grid, the droop grid and the
+  // settling steps share duties): the figures of the cheap checks, and the full state for settling.
   let lastR: number[] = [];
   let lastC: number[] = [];
-  let model: FastLadder | null = null;
-  let steadyDuty: number[] = [];
-  let steadyOf: FastSteady[] = [];
+  let model: ModalLadder | null = null;
+  let slots = 0;
+  const steadyDuty: number[] = [];
+  const steadyOf: Array<PeriodicState | null> = [];
+  const swingOf: Array<SteadySwing | null> = [];
   const sameAs = (x: number[], y: number[]) => {
     if (x.length !== y.length) return false;
     for (let k = 0; k < x.length; k++) if (x[k] !== y[k]) return false;
     return true;
   };
-  const use = (rs: number[], cs: number[]): FastLadder => {
+  const use = (rs: number[], cs: number[]): ModalLadder => {
     if (model === null || !sameAs(rs, lastR) || !sameAs(cs, lastC)) {
       lastR = rs;
       lastC = cs.slice();
-      model = fastLadderOf(problem.circuit, rs, cs);
-      steadyDuty = [];
-      steadyOf = [];
+      // one and two stages: written over the last candidate's model (its states go with it)
+      model = modalLadderOf(problem.circuit, rs, cs, model ?? undefined);
+      slots = 0;
     }
     return model;
   };
-  /** Steady state of the model last used, per duty (computed once). */
-  const steady = (d: number): FastSteady => {
-    for (let k = 0; k < steadyDuty.length; k++) if (steadyDuty[k] === d) return steadyOf[k];
-    const s = fastSteadyState(model!, d);
-    steadyDuty.push(d);
-    steadyOf.push(s);
-    return s;
+  /** Slot of a duty in the steady states of the model last used. */
+  const slot = (d: number): number => {
+    for (let k = 0; k < slots; k++) if (steadyDuty[k] === d) return k;
+    steadyDuty[slots] = d;
+    steadyOf[slots] = null;
+    swingOf[slots] = null;
+    return slots++;
+  };
+  /** Periodic state of the model last used at a duty (computed once). */
+  const steady = (d: number): PeriodicState => {
+    const k = slot(d);
+    return (steadyOf[k] ??= periodicState(model!, d));
+  };
+  /** Steady-state figures of the model last used at a duty (computed once): scalar code for one and two stages. */
+  const swing = (d: number): SteadySwing => {
+    const k = slot(d);
+    return (swingOf[k] ??= stages <= 2 ? steadySwing(model!, d) : steadySwing(model!, d, steady(d)));
   };
 
   // Count each candidate the fast model looks at once (consecutive looks are at the same candidate).
@@ -249,40 +261,11 @@ export function collectCandidates(
     state.evaluated++;
   };
 
-  /** Steady-state figures for the cheap checks: scalar code for two stages, else the full model. */
-  // Two stages with an INL limit: the last point's steady states by duty (its checks below, the
-  // INL grid, the droop grid and the settling steps, share duties). Only there: elsewhere the
-  // bookkeeping cost more than it saved (measured on sample-configs/design-wide-e24.yaml).
-  const keepSteady = inlApplies || state.pareto !== undefined;
-  let kR0 = NaN;
-  let kR1 = NaN;
-  let kC0 = NaN;
-  let kC1 = NaN;
-  let kN = 0;
-  const kDuty = new Float64Array(16);
-  const kOf: TwoStageSteady[] = [];
-  const lite = (rs: number[], cs: number[], d: number): TwoStageSteady => {
+  /** Steady-state figures for the cheap checks. */
+  const lite = (rs: number[], cs: number[], d: number): SteadySwing => {
     touch(rs, cs);
-    if (stages === 2) {
-      if (!keepSteady) return twoStageSteady(problem.circuit, rs[0], cs[0], rs[1], cs[1], d);
-      if (rs[0] !== kR0 || rs[1] !== kR1 || cs[0] !== kC0 || cs[1] !== kC1) {
-        kR0 = rs[0];
-        kR1 = rs[1];
-        kC0 = cs[0];
-        kC1 = cs[1];
-        kN = 0;
-      }
-      for (let k = 0; k < kN; k++) if (kDuty[k] === d) return kOf[k];
-      const s = twoStageSteady(problem.circuit, rs[0], cs[0], rs[1], cs[1], d);
-      if (kN < kDuty.length) {
-        kDuty[kN] = d;
-        kOf[kN++] = s;
-      }
-      return s;
-    }
     use(rs, cs);
-    const s = steady(d);
-    return { ripple: s.ripple, average: s.average, yStart: s.yStart, above: s.maxDev - s.meanOffset, below: s.meanOffset - s.minDev };
+    return swing(d);
   };
 
   // The ripple limit of the staircase: the problem's, or in Pareto mode each limit's in turn.
@@ -350,7 +333,7 @@ export function collectCandidates(
     // value on a 9-point duty grid (a lower bound: values at some duties) rules a candidate out
     // before settling; the full maximum is taken before the candidate may lower theta.
     // INL and gain error (endpoint fit) from fast averages: only the engine checked them, so a
-    // space where they bind was verified candidate by candidate (fast/dcTransferMiss.ts). Steady
+    // space where they bind was verified candidate by candidate (dcTransferMiss.ts). Steady
     // states are kept per duty meanwhile: the droop grid and the INL grid share duties.
     const droopError = (d: number) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - lite(rs, cs, d).average);
     const checkDroop = !lti && limits.droop !== undefined;
@@ -379,7 +362,7 @@ export function collectCandidates(
     for (let j = 0; j < problem.steps.length; j++) {
       const [from, to] = problem.steps[j === 0 ? slowStep : j <= slowStep ? j - 1 : j];
       // Only whether the bound passes theta matters for a point that cannot enter (early stop).
-      const t = fastSettlingBound(model, from, to, problem.band, steady(from), steady(to), theta);
+      const t = settlingLowerBound(model, from, to, problem.band, steady(from), steady(to), theta);
       if (t > lb) {
         lb = t;
         if (j > 0) slowStep = j <= slowStep ? j - 1 : j;

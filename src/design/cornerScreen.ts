@@ -1,10 +1,8 @@
 import type { Ladder } from '../circuit/ladder.js';
 import type { Project } from '../project/types.js';
 import type { DesignProblem } from './designProblem.js';
-import { fastLadder } from './fast/fastLadder.js';
-import { fastSettlingBound } from './fast/fastSettlingBound.js';
-import { fastSteadyState } from './fast/fastSteadyState.js';
-import { maximizeOverDuty } from './fast/maximizeOverDuty.js';
+import { modalLadder, periodicState, settlingLowerBound, steadySwing } from '../engine/index.js';
+import { maximizeOverDuty } from './maximizeOverDuty.js';
 
 /** Whether the search may recommend a candidate (resistors and capacitors, pin side first). */
 export type Admit = (problem: DesignProblem, r: readonly number[], c: readonly number[]) => boolean;
@@ -20,11 +18,12 @@ const REL = 1e-6;
  * verifies a nominal design, so that the nominal list the robust search walks holds only designs
  * the check could pass.
  *
- * Method: the fast exact model (fast/) at each corner gives lower bounds of that corner's figures:
- * the ripple and droop maximised over a duty grid (fast/maximizeOverDuty.ts) and the settling
- * lower bound (fast/fastSettlingBound.ts, Infinity when the output never settles); a bound beyond
- * its limit by more than ten fast-versus-engine rounding allowances proves the miss. Designs with a
- * follower are admitted unscreened (the fast model takes unbuffered ladders).
+ * Method: the engine's modal form at each corner (engine/modal) gives lower bounds of that
+ * corner's figures: the ripple and droop maximised over a duty grid (maximizeOverDuty.ts, from
+ * steadySwing) and the settling lower bound (settlingLowerBound, Infinity when the output never
+ * settles); a bound beyond its limit by more than ten search-versus-check rounding allowances
+ * proves the miss. Designs with a follower are admitted unscreened (the bound takes follower-free
+ * ladders).
  *
  * Syntax: cornerScreen(corners)(problem, r, c)
  * Example: cornerScreen(robustChecks.corners!)(problem, [1e3, 10e3], [1e-6, 1e-7])   // false: a corner misses
@@ -38,8 +37,9 @@ export function cornerScreen(corners: (project: Project, ladder: Ladder) => Ladd
       const fullScale = Math.abs(corner.high - corner.low);
       const beyond = (value: number, limit: number | undefined, floor: number) =>
         limit !== undefined && value - 10 * Math.max(REL * Math.abs(value), floor) > limit;
-      const model = fastLadder(corner);
-      const steady = (d: number) => fastSteadyState(model, d);
+      const model = modalLadder(corner);
+      if (model === null) continue;
+      const steady = (d: number) => steadySwing(model, d);
       if (limits.ripple !== undefined && beyond(maximizeOverDuty((d) => steady(d).ripple, dutyMin, dutyMax), limits.ripple, 1e-12 * fullScale)) return false;
       if (limits.droop !== undefined) {
         const droop = maximizeOverDuty((d) => Math.abs(corner.low + d * (corner.high - corner.low) - steady(d).average), dutyMin, dutyMax);
@@ -47,7 +47,7 @@ export function cornerScreen(corners: (project: Project, ladder: Ladder) => Ladd
       }
       if (limits.settlingTime !== undefined) {
         for (const [from, to] of problem.steps) {
-          const t = fastSettlingBound(model, from, to, problem.band, steady(from), steady(to), limits.settlingTime * 2);
+          const t = settlingLowerBound(model, from, to, problem.band, periodicState(model, from), periodicState(model, to), limits.settlingTime * 2);
           if (t === Infinity || beyond(t, limits.settlingTime, 1e-9 * corner.period)) return false;
         }
       }

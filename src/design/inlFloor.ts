@@ -1,6 +1,6 @@
 import type { DesignProblem } from './designProblem.js';
 
-/** Interior duties of the bound: the grid of fast/dcTransferMiss.ts (the endpoints define the fit). */
+/** Interior duties of the bound: the grid of dcTransferMiss.ts (the endpoints define the fit). */
 const GRID = 8;
 
 /** What an INL floor needs of one resistor choice; the capacitors enter through inlFloor. */

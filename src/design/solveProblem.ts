@@ -2,11 +2,9 @@ import { collectCandidates, keyOf, newCollectState, REL, type FastEntry } from '
 import type { Admit } from './cornerScreen.js';
 import type { DesignProblem } from './designProblem.js';
 import { exactCandidate } from './exactCandidate.js';
-import { dcTransferMiss } from './fast/dcTransferMiss.js';
-import { fastLadderOf } from './fast/fastLadder.js';
-import { fastSteadyState } from './fast/fastSteadyState.js';
-import { maximizeOverDuty } from './fast/maximizeOverDuty.js';
-import { twoStageSteady } from './fast/twoStageSteady.js';
+import { modalLadderOf, steadySwing, type SteadySwing } from '../engine/index.js';
+import { dcTransferMiss } from './dcTransferMiss.js';
+import { maximizeOverDuty } from './maximizeOverDuty.js';
 import { rankCandidates, SETTLING_TIE } from './rankCandidates.js';
 import type { Candidate } from './types.js';
 
@@ -137,12 +135,10 @@ export function solveProblem(
   return { feasible: ranked, failing, evaluated: state.evaluated, verified: verified.size, space, complete: !state.cut };
 }
 
-/** Fast steady state (ripple, average) of a candidate at a duty: scalar code for two stages. */
-function fastPoint(problem: DesignProblem, r: number[], c: number[]): (d: number) => { ripple: number; average: number } {
-  const k = problem.circuit;
-  if (r.length === 2) return (d) => twoStageSteady(k, r[0], c[0], r[1], c[1], d);
-  const model = fastLadderOf(k, r, c);
-  return (d) => fastSteadyState(model, d);
+/** Fast steady state (ripple, average) of a candidate at a duty: the engine's modal form (steadySwing). */
+function fastPoint(problem: DesignProblem, r: number[], c: number[]): (d: number) => SteadySwing {
+  const model = modalLadderOf(problem.circuit, r, c);
+  return (d) => steadySwing(model, d);
 }
 
 /** The fast worst ripple (a lower bound) of a candidate. */

@@ -28,14 +28,17 @@ export type { RobustCheck, RobustChecks, RobustVerdict, WorstCaseFigures, YieldF
 export { analyzeProject, defaultBand, type Analysis, type AnalyzeOptions } from './analyze.js';
 export { settlingSteps, type SettlingPlan } from './settlingSteps.js';
 export { specChecks, type Check, type CheckInputs, type CheckName } from './checks.js';
-// For the tolerance studies, which evaluate many ladders through the modal form directly.
+// For the tolerance studies and the design search, which evaluate many ladders through the modal form directly.
 export { averageOutput } from './averageOutput.js';
 export { prepare, type Prepared } from './prepare.js';
 export { modalLadder, type ModalLadder } from './modal/modalLadder.js';
+export { modalLadderOf } from './modal/modalLadderOf.js';
 export { averageOutput as modalAverageOutput } from './modal/averageOutput.js';
 export { rippleAt } from './modal/rippleAt.js';
-export type { PeriodicState } from './modal/periodicState.js';
+export { steadySwing, type SteadySwing } from './modal/steadySwing.js';
+export { periodicState, type PeriodicState } from './modal/periodicState.js';
 export { modalSettling } from './modal/settling.js';
+export { settlingLowerBound } from './modal/settlingLowerBound.js';
 export { MAX_MODAL_CONDITION } from './modalRoute.js';
 // For the design search over version 1.1 circuits (design/network), which evaluates many
 // networks, and for their tolerance studies: the general engine's parts and figures of one

@@ -112,10 +112,10 @@ function factor(a: ArrayLike<number>, n: number, strict: boolean): LuFactors | n
 
 /**
  * Order 2 without arrays: [a b; c d] x = [e; f] by the same elimination with partial pivoting
- * (rows swapped when |c| > |a|), x written into out[0], out[1]. For the hot two-stage paths
- * (engine/modal/smallState.ts, design/fast/twoStageSteady.ts), which call it hundreds of thousands
- * of times per search and keep their numbers in locals; the arithmetic is luFactor's and luSolve's,
- * operation for operation. Returns false (out untouched) on a zero pivot.
+ * (rows swapped when |c| > |a|), x written into out[0], out[1]. For the hot two-stage path
+ * (engine/modal/smallState.ts, behind the tolerance studies and the design search), which calls it
+ * hundreds of thousands of times per search and keeps its numbers in locals; the arithmetic is
+ * luFactor's and luSolve's, operation for operation. Returns false (out untouched) on a zero pivot.
  *
  * Syntax: solveTwoByTwo(a, b, c, d, e, f, out)
  * Example: solveTwoByTwo(2, 0, 0, 4, 2, 2, out)  // out = [1, 0.5]

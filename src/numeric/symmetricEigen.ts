@@ -25,7 +25,7 @@ export function symmetricEigen(a: ArrayLike<number>, n: number): { values: numbe
 export function symmetricEigen(a: ArrayLike<number>, n: number, options: { vectors: true }): SymmetricEigen;
 export function symmetricEigen(a: ArrayLike<number>, n: number, options?: { vectors?: boolean }): { values: number[]; vectors?: number[] } {
   if (n === 1) return { values: [a[0]], vectors: [1] };
-  if (n === 2) return eigen2(a[0], a[1], a[3]);
+  if (n === 2) return symmetricEigen2(a[0], a[1], a[3]);
   const withVectors = options?.vectors === true;
   const m = zeros(n * n);
   for (let i = 0; i < n * n; i++) m[i] = a[i];
@@ -98,10 +98,17 @@ export function symmetricEigen(a: ArrayLike<number>, n: number, options?: { vect
   return { values, vectors };
 }
 
-/** Order 2: one Jacobi rotation is exact. */
-function eigen2(app: number, apq: number, aqq: number): SymmetricEigen {
+/**
+ * symmetricEigen of the order-2 matrix [[app, apq], [apq, aqq]] with vectors, from its three
+ * entries (for callers that keep them in scalars): one Jacobi rotation, which is exact. With `out`
+ * the result is written into its arrays (lengths 2 and 4) and `out` returned: no allocation.
+ *
+ * Syntax: symmetricEigen2(app, apq, aqq[, out])
+ * Example: symmetricEigen2(2, 1, 2).values  // [1, 3]
+ */
+export function symmetricEigen2(app: number, apq: number, aqq: number, out?: SymmetricEigen): SymmetricEigen {
   if (apq === 0) {
-    return app <= aqq ? { values: [app, aqq], vectors: [1, 0, 0, 1] } : { values: [aqq, app], vectors: [0, 1, 1, 0] };
+    return app <= aqq ? put(app, aqq, 1, 0, 0, 1, out) : put(aqq, app, 0, 1, 1, 0, out);
   }
   const zeta = (aqq - app) / (2 * apq);
   const t = (zeta >= 0 ? 1 : -1) / (Math.abs(zeta) + Math.sqrt(1 + zeta * zeta));
@@ -109,5 +116,16 @@ function eigen2(app: number, apq: number, aqq: number): SymmetricEigen {
   const s = t * c;
   const l1 = app - t * apq; // eigenvector (c, -s)
   const l2 = aqq + t * apq; // eigenvector (s, c)
-  return l1 <= l2 ? { values: [l1, l2], vectors: [c, s, -s, c] } : { values: [l2, l1], vectors: [s, c, c, -s] };
+  return l1 <= l2 ? put(l1, l2, c, s, -s, c, out) : put(l2, l1, s, c, c, -s, out);
+}
+
+function put(v0: number, v1: number, a: number, b: number, c: number, d: number, out?: SymmetricEigen): SymmetricEigen {
+  if (!out) return { values: [v0, v1], vectors: [a, b, c, d] };
+  out.values[0] = v0;
+  out.values[1] = v1;
+  out.vectors[0] = a;
+  out.vectors[1] = b;
+  out.vectors[2] = c;
+  out.vectors[3] = d;
+  return out;
 }

@@ -1,9 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { designProblem } from '../../src/design/designProblem.js';
 import { designSearch } from '../../src/design/designSearch.js';
-import { fastLadderOf } from '../../src/design/fast/fastLadder.js';
-import { fastLadder } from '../../src/design/fast/fastLadder.js';
-import { fastSteadyState } from '../../src/design/fast/fastSteadyState.js';
+import { modalLadderOf } from '../../src/engine/modal/modalLadderOf.js';
+import { steadySwing } from '../../src/engine/modal/steadySwing.js';
 import { slowestTimeConstant } from '../../src/design/slowestTimeConstant.js';
 import { steadyState } from '../../src/engine/index.js';
 import { loadProject, parseProject } from '../../src/project/index.js';
@@ -234,8 +233,8 @@ describe('sample-configs/design-tight-ripple.yaml', () => {
     const best = one.candidates[0];
     const { pwm, load } = p;
     const tau = slowestTimeConstant([best.stages[0].r], [best.stages[0].c], (pwm.driver.high + pwm.driver.low) / 2, load.resistance ?? null, load.capacitance);
-    const m = fastLadder({ period: 1 / pwm.frequency, high: pwm.high, low: pwm.low, driverHigh: pwm.driver.high, driverLow: pwm.driver.low, stages: [{ ...best.stages[0], buffered: false }], loadResistance: load.resistance ?? null, loadCapacitance: load.capacitance });
-    const step = fastSteadyState(m, pwm.duty.max).average - fastSteadyState(m, pwm.duty.min).average;
+    const m = modalLadderOf({ period: 1 / pwm.frequency, high: pwm.high, low: pwm.low, driverHigh: pwm.driver.high, driverLow: pwm.driver.low, loadResistance: load.resistance ?? null, loadCapacitance: load.capacitance }, [best.stages[0].r], [best.stages[0].c]);
+    const step = steadySwing(m, pwm.duty.max).average - steadySwing(m, pwm.duty.min).average;
     const estimate = tau * Math.log(step / p.spec.settling!.band);
     expect(Math.abs(best.settlingTime! / estimate - 1)).toBeLessThan(0.1);
   });
@@ -356,9 +355,9 @@ describe('search.buffered: an ideal follower after the last stage', () => {
       const ladder = problem.ladderOf(r, c);
       expect(ladder.stages[ladder.stages.length - 1].buffered).toBe(true);
       expect(ladder.loadResistance).toBe(10e3); // the engine sees the real load, behind the follower
-      const fast = fastLadderOf(problem.circuit, r, c);
+      const fast = modalLadderOf(problem.circuit, r, c);
       for (const d of [0.05, 0.5, 0.9]) {
-        const f = fastSteadyState(fast, d);
+        const f = steadySwing(fast, d);
         const exact = steadyState(ladder, d);
         expect(f.average).toBeCloseTo(exact.average, 9);
         expect(f.ripple).toBeCloseTo(exact.ripple, 9);

@@ -66,20 +66,21 @@ export function curveExtrema(c: PhaseCurve): CurveExtrema {
   let min = c.offset;
   let tMax = 0;
   let tMin = 0;
-  const visit = (t: number) => {
-    const v = curveValue(c, t);
-    if (v > max) {
-      max = v;
-      tMax = t;
-    }
-    if (v < min) {
-      min = v;
-      tMin = t;
-    }
-  };
   if (c.length > 0) {
-    visit(c.length);
-    for (const t of curveTurningPoints(c)) visit(t);
+    const turns = curveTurningPoints(c);
+    // the phase end, then each turning point
+    for (let k = -1; k < turns.length; k++) {
+      const t = k < 0 ? c.length : turns[k];
+      const v = curveValue(c, t);
+      if (v > max) {
+        max = v;
+        tMax = t;
+      }
+      if (v < min) {
+        min = v;
+        tMin = t;
+      }
+    }
   }
   return { max, tMax, min, tMin };
 }

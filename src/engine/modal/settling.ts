@@ -1,9 +1,7 @@
 import { zeros } from '../../numeric/dense.js';
-import { brentRoot } from '../../numeric/brentRoot.js';
 import type { ModalLadder } from './modalLadder.js';
-import { curveExtrema, curveTurningPoints, curveValue, type PhaseCurve } from './phaseCurve.js';
 import { periodicState, type PeriodicState } from './periodicState.js';
-import { symmetricEigen } from '../../numeric/symmetricEigen.js';
+import { steadyError, stepError } from './stepError.js';
 
 /**
  * A safety net on the branch and bound: beyond this many period evaluations (never seen in
@@ -18,16 +16,9 @@ const MAX_PERIOD_EVALUATIONS = 4000;
  * output never leaves it; undefined for a cascade (followers inside the ladder) or when the search
  * gives up (see MAX_PERIOD_EVALUATIONS): the caller must then use the engine.
  *
- * Method: in period k after the step the state deviation from the periodic orbit at `to` is
- * e_k = M^k e_0, M = E_l E_h. In high-phase modal coordinates M = X^T diag(e_l) X diag(e_h) is
- * similar to the symmetric D X^T diag(e_l) X D, D = diag(e_h)^(1/2); its difference from I,
- * N = -(diag(k_h) + D X^T diag(k_l) X D) (all k = -expm1(rate t) >= 0), is formed without
- * cancellation and diagonalized by Jacobi (symmetricEigen): N z_j = nu_j z_j, mu_j = 1 + nu_j.
- * Then e_0 = sum_j zeta_j q_j with zeta_j = z_j^T D e_0 and q_j = D^-1 z_j; to avoid D^-1 (huge for
- * a mode that dies within the phase) period k >= 1 uses e_k = sum_j zeta_j mu_j^(k-1) r_j with
- * r_j = M q_j = X^T diag(e_l) X D z_j, and period 0 uses e_0 itself; mu_j^k = exp(k log1p(nu_j)).
- * The error in a period is then s(tau) plus an exponential sum in tau (phaseCurve.ts), whose
- * extremes are exact.
+ * Method: the error after the step period by period in the modes of the period map (stepError.ts:
+ * period k >= 1 is the steady error s(tau) plus sum_j zeta_j mu_j^(k-1) times the output of mode
+ * j's state r_j, period 0 comes from the starting deviation itself; exact extremes per period).
  * Last violating period: branch and bound over period ranges [a, b], latest first. Over a range
  * each coefficient zeta_j mu_j^(k-1) moves monotonically between its end values, so
  * error <= s + sum_j m_j h_j + sum_j |zeta_j| H_j (end-value difference) / 2, m_j the mid value,
@@ -50,7 +41,6 @@ export function modalSettling(
   band: number,
   states?: Map<number, PeriodicState>,
 ): number | null | undefined {
-  const { n, period, hi, lo, mix } = m;
   const stateAt = (d: number) => {
     let st = states?.get(d);
     if (!st) {
@@ -61,132 +51,16 @@ export function modalSettling(
   };
   const target = stateAt(to);
   const source = stateAt(from);
-  const { t1, t2, meanOffset } = target;
-  const ssHigh: PhaseCurve = { ...target.high, offset: target.high.offset - meanOffset };
-  const ssLow: PhaseCurve = { ...target.low, offset: target.low.offset - meanOffset };
-  const eh = curveExtrema(ssHigh);
-  const el = curveExtrema(ssLow);
-  const above = Math.max(eh.max, el.max);
-  const below = Math.min(eh.min, el.min);
-  if (above > band || below < -band) return null;
-  // The period-map symmetrization below needs an orthogonal `mix` (a follower-free ladder).
+  const ss = steadyError(target);
+  if (ss.above > band || ss.below < -band) return null;
+  // The period-map symmetrization needs an orthogonal `mix` (a follower-free ladder).
   if (!m.symmetric) return undefined;
+  const err = stepError(m, target, source, ss);
+  if (err === null) return 0;
+  const { n } = m;
+  const { zeta, bound, power } = err;
 
-  const e0 = zeros(n);
-  for (let i = 0; i < n; i++) e0[i] = source.start[i] - target.start[i];
-  if (e0.every((v) => v === 0)) return 0;
-
-  // The period map's modes, in the symmetric form.
-  const kh = zeros(n);
-  const half = zeros(n);
-  const kl = zeros(n);
-  const elow = zeros(n);
-  for (let i = 0; i < n; i++) {
-    kh[i] = -Math.expm1(hi.rate[i] * t1);
-    half[i] = Math.exp(0.5 * hi.rate[i] * t1);
-    kl[i] = -Math.expm1(lo.rate[i] * t2);
-    elow[i] = Math.exp(lo.rate[i] * t2);
-  }
-  const N = zeros(n * n);
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      let s = 0;
-      for (let k = 0; k < n; k++) s += mix[k * n + i] * kl[k] * mix[k * n + j];
-      N[i * n + j] = -(half[i] * s * half[j] + (i === j ? kh[i] : 0));
-    }
-  }
-  const { values: nu, vectors: Z } = symmetricEigen(N, n, { vectors: true });
-  const logMu = Array.from(nu, (v) => (v > -1 ? Math.log1p(v) : -Infinity));
-  /** mu_j^(k-1) for period k >= 1. */
-  const power = (j: number, k: number) => (k === 1 ? 1 : Math.exp((k - 1) * logMu[j]));
-
-  // Output weights (per rate i) of a state w given in high-phase modal coordinates, in each phase.
-  const highWeights = (w: number[], out: number[]) => {
-    for (let i = 0; i < n; i++) out[i] = hi.out[i] * w[i];
-  };
-  const lowWeights = (w: number[], out: number[]) => {
-    for (let i = 0; i < n; i++) {
-      let s = 0; // low-phase coordinates of the state at the end of the high phase
-      for (let k = 0; k < n; k++) s += mix[i * n + k] * half[k] * half[k] * w[k];
-      out[i] = lo.out[i] * s;
-    }
-  };
-  const zeta = zeros(n);
-  const etaHigh: number[][] = [];
-  const etaLow: number[][] = [];
-  const bound = zeros(n);
-  const r = zeros(n);
-  const xr = zeros(n);
-  for (let j = 0; j < n; j++) {
-    let z = 0;
-    for (let i = 0; i < n; i++) z += half[i] * Z[i * n + j] * e0[i];
-    zeta[j] = z;
-    // r_j = X^T diag(e_l) X D z_j
-    for (let i = 0; i < n; i++) {
-      let s = 0;
-      for (let k = 0; k < n; k++) s += mix[i * n + k] * half[k] * Z[k * n + j];
-      xr[i] = elow[i] * s;
-    }
-    for (let i = 0; i < n; i++) {
-      let s = 0;
-      for (let k = 0; k < n; k++) s += mix[k * n + i] * xr[k];
-      r[i] = s;
-    }
-    const wh = zeros(n);
-    const wl = zeros(n);
-    highWeights(r, wh);
-    lowWeights(r, wl);
-    etaHigh.push(wh);
-    etaLow.push(wl);
-    bound[j] = Math.max(
-      wh.reduce((a, v) => a + Math.abs(v), 0),
-      wl.reduce((a, v) => a + Math.abs(v), 0),
-    );
-  }
-
-  // Error curves of one period from the output weights of its starting state; the two curve
-  // objects are refilled on each call (each is used up before the next call).
-  const errHigh: PhaseCurve = { offset: 0, gain: zeros(n), rate: hi.rate, length: t1 };
-  const errLow: PhaseCurve = { offset: 0, gain: zeros(n), rate: lo.rate, length: t2 };
-  const bh = zeros(n);
-  const bl = zeros(n);
-  const curves = (): [PhaseCurve, PhaseCurve] => {
-    let oHigh = ssHigh.offset;
-    let oLow = ssLow.offset;
-    for (let i = 0; i < n; i++) {
-      errHigh.gain[i] = ssHigh.gain[i] + bh[i];
-      errLow.gain[i] = ssLow.gain[i] + bl[i];
-      oHigh += bh[i];
-      oLow += bl[i];
-    }
-    errHigh.offset = oHigh;
-    errLow.offset = oLow;
-    return [errHigh, errLow];
-  };
-  const weightsFromModes = (c: number[]) => {
-    for (let i = 0; i < n; i++) {
-      let h = 0;
-      let l = 0;
-      for (let j = 0; j < n; j++) {
-        h += c[j] * etaHigh[j][i];
-        l += c[j] * etaLow[j][i];
-      }
-      bh[i] = h;
-      bl[i] = l;
-    }
-  };
-  const leavesWith = (slack: number): boolean => {
-    const [ch, cl] = curves();
-    const xh = curveExtrema(ch);
-    const xl = curveExtrema(cl);
-    return Math.max(xh.max, xl.max) + slack > band || Math.min(xh.min, xl.min) - slack < -band;
-  };
-  const firstPeriod = () => {
-    highWeights(e0, bh);
-    lowWeights(e0, bl);
-  };
-
-  const margin = Math.min(band - above, band + below);
+  const margin = Math.min(band - ss.above, band + ss.below);
   const envelope = (k: number) => {
     let s = 0;
     for (let j = 0; j < n; j++) s += Math.abs(zeta[j]) * bound[j] * power(j, k);
@@ -220,8 +94,8 @@ export function modalSettling(
         coef[j] = zeta[j] * 0.5 * (pa + pb);
         slack += Math.abs(zeta[j]) * bound[j] * 0.5 * (pa - pb);
       }
-      weightsFromModes(coef);
-      return leavesWith(slack);
+      err.setModes(coef);
+      return err.leaves(band, slack);
     };
     // Right-first branch and bound inside [a, b], whose bound leaves the band (exactly so when
     // a = b). A half whose bound leaves may still hold no violating period: then the other half.
@@ -246,34 +120,13 @@ export function modalSettling(
     if (Number.isNaN(last)) return undefined;
   }
   if (last < 0) {
-    firstPeriod();
-    if (!leavesWith(0)) return 0;
+    err.setFirstPeriod();
+    if (!err.leaves(band, 0)) return 0;
     last = 0;
   } else {
     const coef = zeros(n);
     for (let j = 0; j < n; j++) coef[j] = zeta[j] * power(j, last);
-    weightsFromModes(coef);
+    err.setModes(coef);
   }
-  const [ch, cl] = curves();
-  const inLow = lastExit(cl, band, period);
-  if (inLow >= 0) return last * period + t1 + inLow;
-  const inHigh = lastExit(ch, band, period);
-  return last * period + Math.max(inHigh, 0);
-}
-
-/** The time in [0, length] after which |curve| stays within band, or -1 if it never leaves it. */
-function lastExit(c: PhaseCurve, band: number, period: number): number {
-  if (!(c.length > 0)) return -1;
-  const ends = [0, ...curveTurningPoints(c), c.length];
-  const values = ends.map((t) => curveValue(c, t));
-  for (let k = ends.length - 1; k > 0; k--) {
-    const va = values[k - 1];
-    const vb = values[k];
-    if (Math.abs(vb) > band) return ends[k];
-    if (Math.abs(va) > band) {
-      const level = va > 0 ? band : -band;
-      return brentRoot((t) => curveValue(c, t) - level, ends[k - 1], ends[k], 1e-12 * period);
-    }
-  }
-  return -1;
+  return err.lastExit(last, band);
 }

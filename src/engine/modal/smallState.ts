@@ -12,6 +12,8 @@ export interface SmallState {
   t1: number;
   t2: number;
   yStart: number;
+  /** average - yStart, V (kept apart: tiny next to the level when the ripple is). */
+  meanOffset: number;
   average: number;
   yEnd: number;
   aHigh0: number;
@@ -26,7 +28,8 @@ export interface SmallState {
 
 /**
  * periodicState (same method, same numbers) written out with scalars for ladders of one or two
- * stages, which are most tolerance samples: no arrays are allocated, so millions of calls stay cheap.
+ * stages, which are most tolerance samples and most design candidates: no arrays are allocated,
+ * so millions of calls stay cheap.
  *
  * Syntax: smallState(modal, duty)
  * Example: smallState(modalLadder(oneStage)!, 0.5).average  // V
@@ -96,11 +99,13 @@ export function smallState(m: ModalLadder, duty: number): SmallState {
     duty > 0.5
       ? m.outHigh - (hi.out[0] * v0 + (two ? hi.out[1] * v1 : 0))
       : m.outLow + hi.out[0] * u0 + (two ? hi.out[1] * u1 : 0);
+  const meanOffset = integral / period;
   return {
     t1,
     t2,
     yStart,
-    average: yStart + integral / period,
+    meanOffset,
+    average: yStart + meanOffset,
     yEnd,
     aHigh0,
     aHigh1,
@@ -114,13 +119,15 @@ export function smallState(m: ModalLadder, duty: number): SmallState {
 }
 
 /**
- * Peak-to-peak ripple (V) of a SmallState: the extremes lie among the phase ends and the one
- * turning point each two-term phase curve can have, t = ln(-a1 r1 / (a0 r0)) / (r0 - r1).
+ * The largest and smallest output deviation from the rising edge over the period (V) of a
+ * SmallState, written into `out`: the extremes lie among the phase ends and the one turning point
+ * each two-term phase curve can have, t = ln(-a1 r1 / (a0 r0)) / (r0 - r1). The ripple is
+ * out.max - out.min.
  *
- * Syntax: smallRipple(state)
- * Example: smallRipple(smallState(modal, 0.5))  // V
+ * Syntax: smallExtrema(state, out)
+ * Example: smallExtrema(smallState(modal, 0.5), out); out.max - out.min  // V peak-to-peak
  */
-export function smallRipple(s: SmallState): number {
+export function smallExtrema(s: SmallState, out: { max: number; min: number }): void {
   let max = Math.max(0, s.yEnd);
   let min = Math.min(0, s.yEnd);
   if (s.aHigh1 !== 0) {
@@ -139,7 +146,8 @@ export function smallRipple(s: SmallState): number {
       if (v < min) min = v;
     }
   }
-  return max - min;
+  out.max = max;
+  out.min = min;
 }
 
 function turningPoint(d0: number, d1: number, r0: number, r1: number, length: number): number {

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { designProblem } from '../../../src/design/designProblem.js';
-import { designSearch } from '../../../src/design/designSearch.js';
-import { exactCandidate } from '../../../src/design/exactCandidate.js';
-import { dcTransferMiss } from '../../../src/design/fast/dcTransferMiss.js';
-import { fastLadderOf } from '../../../src/design/fast/fastLadder.js';
-import { fastSteadyState } from '../../../src/design/fast/fastSteadyState.js';
-import { parseProject } from '../../../src/project/index.js';
-import { bruteForce, designKey } from '../bruteForce.js';
+import { designProblem } from '../../src/design/designProblem.js';
+import { designSearch } from '../../src/design/designSearch.js';
+import { exactCandidate } from '../../src/design/exactCandidate.js';
+import { dcTransferMiss } from '../../src/design/dcTransferMiss.js';
+import { modalLadderOf } from '../../src/engine/modal/modalLadderOf.js';
+import { steadySwing } from '../../src/engine/modal/steadySwing.js';
+import { parseProject } from '../../src/project/index.js';
+import { bruteForce, designKey } from './bruteForce.js';
 
 /** Invented: unequal drivers into a 10 kohm load bend the DC transfer (INL). */
 const project = (inl: string, gain: string, stages = '[1, 2]') =>
@@ -42,8 +42,8 @@ describe('dcTransferMiss rules out only what the engine fails (brute force over 
         for (const c1 of problem.cValues)
           for (const r2 of problem.rValues)
             for (const c2 of problem.cValues) {
-              const model = fastLadderOf(problem.circuit, [r1, r2], [c1, c2]);
-              const miss = dcTransferMiss(problem, (d) => fastSteadyState(model, d).average);
+              const model = modalLadderOf(problem.circuit, [r1, r2], [c1, c2]);
+              const miss = dcTransferMiss(problem, (d) => steadySwing(model, d).average);
               if (miss === null) continue;
               ruledOut++;
               // The engine (engine/dcTransfer.ts) fails that same check.

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { maximizeOverDuty } from '../../../src/design/fast/maximizeOverDuty.js';
+import { maximizeOverDuty } from '../../src/design/maximizeOverDuty.js';
 
 describe('maximizeOverDuty', () => {
   it('finds the largest D (1 - D), 1/4 at D = 1/2 (closed form: the one-stage ripple shape)', () => {

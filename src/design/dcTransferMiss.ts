@@ -1,6 +1,6 @@
-import type { DesignProblem } from '../designProblem.js';
+import type { DesignProblem } from './designProblem.js';
 
-/** Relative allowance between the fast model and the engine (both exact; rounding differs). */
+/** Relative allowance between the search's averages and the engine's DC transfer (both exact; rounding differs). */
 const REL = 1e-6;
 /** Interior duties of the INL lower bound (the endpoints define the fit). */
 const GRID = 8;
@@ -9,19 +9,20 @@ const MIDDLE_FIRST = [4, 2, 6, 1, 3, 5, 7];
 
 /**
  * Which endpoint-fit limit of the DC transfer a candidate certainly misses, from exact averages of
- * the fast model (`average(d)`, V): 'inl', 'gain', or null when neither is proven missed.
+ * the engine's modal form (`average(d)`, V; steadySwing or modalAverageOutput of engine/index.ts):
+ * 'inl', 'gain', or null when neither is proven missed.
  *
  * Method: the engine's figures (engine/dcTransfer.ts) are fit = the line through average(dutyMin)
  * and average(dutyMax); gain error = slope - (high - low), as a fraction of full scale for
  * spec.gain; INL = the largest |average - fit| over the range. The gain error needs only the two
- * endpoints, so the fast value is the engine's (to rounding). The INL here is the largest deviation
+ * endpoints, so the value here is the engine's (to rounding). The INL here is the largest deviation
  * on GRID + 1 evenly spaced duties: the maximum over the range is at least the value at any duty
  * in it, so this is a true lower bound. With equal driver resistances the ladder is linear and
  * time-invariant, the average is affine in the duty and INL is zero: not evaluated. A value is a
- * miss only beyond the limit by the fast/engine rounding allowance REL.
+ * miss only beyond the limit by the rounding allowance REL. Bound logic only: the physics is the engine's.
  *
  * Syntax: dcTransferMiss(problem, average)
- * Example: dcTransferMiss(problem, (d) => twoStageSteady(k, r1, c1, r2, c2, d).average)   // 'inl'
+ * Example: dcTransferMiss(problem, (d) => steadySwing(modalLadderOf(problem.circuit, r, c), d).average)   // 'inl'
  */
 export function dcTransferMiss(problem: DesignProblem, average: (duty: number) => number): 'inl' | 'gain' | null {
   const { pwm, spec } = problem.project;

@@ -1,0 +1,246 @@
+import { zeros } from '../../numeric/dense.js';
+import type { LadderCircuit } from '../../circuit/ladder.js';
+import { dividerGain } from '../../circuit/dcGain.js';
+import { symmetricEigen, symmetricEigen2 } from '../../numeric/symmetricEigen.js';
+import type { ModalLadder, PhaseModes } from './modalTypes.js';
+
+/**
+ * The modal form of a follower-free ladder given as its circuit and plain resistor and capacitor
+ * lists (pin side first), without building a Ladder: modalLadder uses it for every follower-free
+ * ladder, and the design search for each of its candidates. The load in `circuit` is the load the
+ * last stage sees (none behind a follower).
+ *
+ * Method: nodal state equations C x' = -G x + g (Kirchhoff's current law at each capacitor node, as
+ * in circuit/stateSpace.ts). With Cs = diag(sqrt C), S = Cs A Cs^-1 = -Cs^-1 G Cs^-1 is symmetric
+ * (G is), so A has real negative eigenvalues and Cs^-1-scaled orthonormal eigenvectors; the RC
+ * ladder gives an irreducible tridiagonal S, whose eigenvalues are distinct (an unreduced symmetric
+ * tridiagonal has simple eigenvalues: B. N. Parlett, "The Symmetric Eigenvalue Problem", SIAM
+ * 1998, ch. 7; cited from memory). Eigen-decomposition by Jacobi rotations
+ * (numeric/symmetricEigen.ts), once when both drivers are equal (the two phases then share S).
+ * DC states from the resistive divider (circuit/dcGain.ts), Delta = (V_h - V_l) g with equal
+ * drivers, else V_h g_h - V_l g_l (engine/modal/dcStates.ts). The search builds millions of these:
+ * one and two stages (most candidates) are written out on scalars (smallLadder, the same operations
+ * in the same order, so the same digits: test/engine/modal/modalLadderOf.test.ts), and the
+ * intermediate arrays of the general order are module scratch.
+ *
+ * With `into`, a modal form of as many stages from an earlier call for the same circuit, one and
+ * two stages are written into it and it is returned instead of a new object (the design search
+ * keeps one per walk and allocates nothing per candidate); whatever holds it sees the new ladder.
+ *
+ * Syntax: modalLadderOf(circuit, r, c[, into])
+ * Example: modalLadderOf(circuit, [4700, 47e3], [1e-6, 10e-9]).hi.rate  // two rates, 1/s, fastest first
+ */
+export function modalLadderOf(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>, into?: ModalLadder): ModalLadder {
+  return r.length === 1 || r.length === 2 ? smallLadder(circuit, r, c, into) : modalLadderOfAnyOrder(circuit, r, c);
+}
+
+/**
+ * modalLadderOf by the general-order construction for any number of stages; modalLadderOf uses it
+ * from three stages on. Callable by name so that tests hold the scalar one- and two-stage path to it.
+ *
+ * Syntax: modalLadderOfAnyOrder(circuit, r, c)
+ * Example: modalLadderOfAnyOrder(circuit, [4700, 47e3], [1e-6, 10e-9])  // equal to modalLadderOf(circuit, ...)
+ */
+export function modalLadderOfAnyOrder(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>): ModalLadder {
+  const n = r.length;
+  checkStages(r, c);
+  if (CS.length < n) grow(n);
+  const { loadResistance, loadCapacitance, driverHigh, driverLow } = circuit;
+  for (let k = 0; k < n; k++) CS[k] = Math.sqrt(c[k] + (k === n - 1 ? loadCapacitance : 0));
+  // Conductance into node k from the node before (node 0: from the pin through driver + R1).
+  for (let k = 1; k < n; k++) G_IN[k] = 1 / r[k];
+  G_IN[n] = loadResistance !== null ? 1 / loadResistance : 0;
+  const equal = driverHigh === driverLow;
+  const high = phase(n, r[0] + driverHigh);
+  const low = equal ? high : phase(n, r[0] + driverLow);
+  // DC gains per volt of the pin (an open output: every node at the pin's level).
+  for (let k = 0; k < n; k++) G_HIGH[k] = 1;
+  if (loadResistance !== null) dividerGain(r, 0, n - 1, loadResistance, driverHigh, 1, G_HIGH);
+  const gLow = equal ? G_HIGH : G_LOW;
+  if (!equal) {
+    for (let k = 0; k < n; k++) G_LOW[k] = 1;
+    if (loadResistance !== null) dividerGain(r, 0, n - 1, loadResistance, driverLow, 1, G_LOW);
+  }
+  const span = circuit.high - circuit.low;
+  for (let j = 0; j < n; j++) DC_DELTA[j] = equal ? G_HIGH[j] * span : G_HIGH[j] * circuit.high - gLow[j] * circuit.low;
+  const hb = high.basis;
+  const lb = low.basis;
+  const mix = zeros(n * n);
+  const delta = zeros(n);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      let s = 0;
+      for (let k = 0; k < n; k++) s += lb[k * n + i] * hb[k * n + j];
+      mix[i * n + j] = s;
+      delta[i] += hb[j * n + i] * CS[j] * DC_DELTA[j];
+    }
+  }
+  return {
+    n,
+    period: circuit.period,
+    high: circuit.high,
+    low: circuit.low,
+    symmetric: true,
+    hi: high.modes,
+    lo: low.modes,
+    mix,
+    delta,
+    outLow: gLow[n - 1] * circuit.low,
+    outHigh: G_HIGH[n - 1] * circuit.high,
+    condition: 1,
+  };
+}
+
+function checkStages(r: ArrayLike<number>, c: ArrayLike<number>): void {
+  for (let k = 0; k < r.length; k++) {
+    if (!(r[k] > 0) || !(c[k] > 0)) throw new RangeError('invalid ladder: every stage needs r > 0 and c > 0');
+  }
+}
+
+/**
+ * modalLadderOfAnyOrder for one or two stages on scalars: every operation of the general
+ * construction, in its order (sums started from 0 as there), without its loops and scratch arrays;
+ * written into `into` when it fits (same stage count, phases shared exactly when the drivers are equal).
+ */
+function smallLadder(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>, into?: ModalLadder): ModalLadder {
+  const n = r.length;
+  checkStages(r, c);
+  const { loadResistance, loadCapacitance, driverHigh, driverLow, high: vHigh, low: vLow } = circuit;
+  const equal = driverHigh === driverLow;
+  const gLoad = loadResistance !== null ? 1 / loadResistance : 0;
+  // DC gains per volt of the pin (circuit/dcGain.ts), into G_HIGH and G_LOW
+  G_HIGH[0] = G_HIGH[1] = G_LOW[0] = G_LOW[1] = 1;
+  if (loadResistance !== null) {
+    dividerGain(r, 0, n - 1, loadResistance, driverHigh, 1, G_HIGH);
+    if (!equal) dividerGain(r, 0, n - 1, loadResistance, driverLow, 1, G_LOW);
+  }
+  const gLow = equal ? G_HIGH : G_LOW;
+  const span = vHigh - vLow;
+  const last = n - 1;
+  // Modes (EIG_H, EIG_L), output per mode, mix and Delta of both phases, as the general construction.
+  let cs0: number;
+  let cs1 = 0;
+  let d1 = 0;
+  let outH0: number;
+  let outH1 = 0;
+  let outL0: number;
+  let outL1 = 0;
+  if (n === 1) {
+    cs0 = Math.sqrt(c[0] + loadCapacitance);
+    const cc = cs0 * cs0;
+    // order 1: the eigenvalue is the entry itself, the vector [1]
+    EIG_H.values[0] = -(1 / (r[0] + driverHigh) + gLoad) / cc;
+    EIG_H.vectors[0] = 1;
+    EIG_L.values[0] = -(1 / (r[0] + driverLow) + gLoad) / cc;
+    EIG_L.vectors[0] = 1;
+    outH0 = outL0 = 1 / cs0;
+  } else {
+    cs0 = Math.sqrt(c[0] + 0);
+    cs1 = Math.sqrt(c[1] + loadCapacitance);
+    const g1 = 1 / r[1];
+    const off = g1 / (cs0 * cs1);
+    const s11 = -(g1 + gLoad) / (cs1 * cs1);
+    symmetricEigen2(-(1 / (r[0] + driverHigh) + g1) / (cs0 * cs0), off, s11, EIG_H);
+    if (!equal) symmetricEigen2(-(1 / (r[0] + driverLow) + g1) / (cs0 * cs0), off, s11, EIG_L);
+    outH0 = EIG_H.vectors[2] / cs1;
+    outH1 = EIG_H.vectors[3] / cs1;
+    outL0 = EIG_L.vectors[2] / cs1;
+    outL1 = EIG_L.vectors[3] / cs1;
+    d1 = equal ? G_HIGH[1] * span : G_HIGH[1] * vHigh - gLow[1] * vLow;
+  }
+  const H = EIG_H.vectors;
+  const L = equal ? H : EIG_L.vectors;
+  const d0 = equal ? G_HIGH[0] * span : G_HIGH[0] * vHigh - gLow[0] * vLow;
+  const m = into !== undefined && into.n === n && (into.hi === into.lo) === equal ? (into as MutableModal) : fresh(n, equal);
+  const hi = m.hi as MutablePhase;
+  const lo = m.lo as MutablePhase;
+  hi.rate[0] = EIG_H.values[0];
+  hi.out[0] = outH0;
+  if (!equal) {
+    lo.rate[0] = EIG_L.values[0];
+    lo.out[0] = outL0;
+  }
+  if (n === 1) {
+    m.mix[0] = 0 + L[0] * H[0];
+    m.delta[0] = 0 + H[0] * cs0 * d0;
+  } else {
+    hi.rate[1] = EIG_H.values[1];
+    hi.out[1] = outH1;
+    if (!equal) {
+      lo.rate[1] = EIG_L.values[1];
+      lo.out[1] = outL1;
+    }
+    m.mix[0] = 0 + L[0] * H[0] + L[2] * H[2];
+    m.mix[1] = 0 + L[0] * H[1] + L[2] * H[3];
+    m.mix[2] = 0 + L[1] * H[0] + L[3] * H[2];
+    m.mix[3] = 0 + L[1] * H[1] + L[3] * H[3];
+    m.delta[0] = 0 + H[0] * cs0 * d0 + H[2] * cs1 * d1;
+    m.delta[1] = 0 + H[1] * cs0 * d0 + H[3] * cs1 * d1;
+  }
+  m.period = circuit.period;
+  m.symmetric = true;
+  m.condition = 1;
+  m.high = vHigh;
+  m.low = vLow;
+  m.outLow = gLow[last] * vLow;
+  m.outHigh = G_HIGH[last] * vHigh;
+  return m;
+}
+
+type MutablePhase = { rate: number[]; out: number[] };
+type MutableModal = { -readonly [K in keyof ModalLadder]: ModalLadder[K] } & { mix: number[]; delta: number[] };
+
+/** A modal form of n (1 or 2) stages to fill; both phases one object when the drivers are equal. */
+function fresh(n: number, equal: boolean): MutableModal {
+  const hi: PhaseModes = { rate: zeros(n), out: zeros(n) };
+  const lo: PhaseModes = equal ? hi : { rate: zeros(n), out: zeros(n) };
+  return { n, period: 0, high: 0, low: 0, symmetric: true, hi, lo, mix: zeros(n * n), delta: zeros(n), outLow: 0, outHigh: 0, condition: 1 };
+}
+
+/** Scratch of the order-2 eigenproblems (order 1 uses the first entries). */
+const EIG_H = { values: [0.5, 0.5], vectors: [0.5, 0.5, 0.5, 0.5] };
+const EIG_L = { values: [0.5, 0.5], vectors: [0.5, 0.5, 0.5, 0.5] };
+
+/** The modes of one pin state whose first node is fed through `first` ohm (driver + R1), from the scratch. */
+function phase(n: number, first: number): { modes: PhaseModes; basis: number[] } {
+  G_IN[0] = 1 / first;
+  S.fill(0, 0, n * n);
+  for (let k = 0; k < n; k++) {
+    S[k * n + k] = -(G_IN[k] + G_IN[k + 1]) / (CS[k] * CS[k]);
+    if (k + 1 < n) {
+      const off = G_IN[k + 1] / (CS[k] * CS[k + 1]);
+      S[k * n + k + 1] = off;
+      S[(k + 1) * n + k] = off;
+    }
+  }
+  const { values, vectors } = symmetricEigen(S, n, { vectors: true });
+  const out = zeros(n);
+  for (let i = 0; i < n; i++) out[i] = vectors[(n - 1) * n + i] / CS[n - 1];
+  return { modes: { rate: values, out }, basis: vectors };
+}
+
+// Scratch of one call (single-threaded; each worker has its own module): sqrt C, conductances into
+// each node, the symmetric matrix S, DC gains per volt and Delta in node coordinates. Plain arrays
+// of doubles, as everywhere else symmetricEigen and dividerGain are called, so that their element
+// accesses stay monomorphic.
+let CS = doubles(4);
+let G_IN = doubles(5);
+let S = doubles(16);
+let G_HIGH = doubles(4);
+let G_LOW = doubles(4);
+let DC_DELTA = doubles(4);
+
+function doubles(n: number): number[] {
+  const v = zeros(n);
+  for (let i = 0; i < n; i++) v[i] = 0.5; // a double: the array is stored unboxed from the start
+  return v;
+}
+
+function grow(n: number): void {
+  CS = doubles(n);
+  G_IN = doubles(n + 1);
+  S = doubles(n * n);
+  G_HIGH = doubles(n);
+  G_LOW = doubles(n);
+  DC_DELTA = doubles(n);
+}

@@ -1,0 +1,250 @@
+import { zeros } from '../../numeric/dense.js';
+import { brentRoot } from '../../numeric/brentRoot.js';
+import { symmetricEigen } from '../../numeric/symmetricEigen.js';
+import type { ModalLadder } from './modalLadder.js';
+import type { PeriodicState } from './periodicState.js';
+import { curveExtrema, curveTurningPoints, curveValue, type PhaseCurve } from './phaseCurve.js';
+
+/** The periodic steady state at the target duty as an error about its own mean, over one period. */
+export interface SteadyError {
+  /** Orbit minus its mean during the high phase and the low phase, V. */
+  high: PhaseCurve;
+  low: PhaseCurve;
+  /** Largest error (>= 0) and smallest (<= 0) over the period, V. */
+  above: number;
+  below: number;
+}
+
+/**
+ * The steady-state part of the error after a duty step: the orbit at the target duty minus its
+ * time average, with its exact extremes (curveExtrema).
+ *
+ * Syntax: steadyError(periodicState(modal, to))
+ * Example: steadyError(target).above - steadyError(target).below  // the ripple at `to`, V
+ */
+export function steadyError(target: PeriodicState): SteadyError {
+  const { meanOffset } = target;
+  const high: PhaseCurve = { offset: target.high.offset - meanOffset, gain: target.high.gain, rate: target.high.rate, length: target.high.length };
+  const low: PhaseCurve = { offset: target.low.offset - meanOffset, gain: target.low.gain, rate: target.low.rate, length: target.low.length };
+  const eh = curveExtrema(high);
+  const el = curveExtrema(low);
+  return { high, low, above: Math.max(eh.max, el.max), below: Math.min(eh.min, el.min) };
+}
+
+/**
+ * The output error v(t) - average(to) in the periods after a duty step, mode by mode of the
+ * period map (see stepError): error curves for one period at a time, set by setFirstPeriod or
+ * setModes and then examined by leaves or lastExit.
+ */
+export interface StepError {
+  readonly n: number;
+  /** Coefficient of each mode of the period map in the starting deviation. */
+  readonly zeta: readonly number[];
+  /** log mu_j: period k >= 1 carries zeta_j mu_j^(k-1) of mode j. */
+  readonly logMu: readonly number[];
+  /** H_j >= the largest |output| the state r_j of mode j gives during a period, V. */
+  readonly bound: readonly number[];
+  /** Output at the start of a period whose state is r_j, V (the high-phase curve at tau = 0). */
+  readonly lead: readonly number[];
+  /** mu_j^(k-1) for period k >= 1. */
+  power(j: number, k: number): number;
+  /** Set the error curves to those of period 0, the one the step starts. */
+  setFirstPeriod(): void;
+  /** Set them to a period that starts in state sum_j c_j r_j (period k: c_j = zeta_j mu_j^(k-1)). */
+  setModes(c: readonly number[]): void;
+  /** The curves set leave the band widened by `slack`: max + slack > band or min - slack < -band. */
+  leaves(band: number, slack: number): boolean;
+  /** With the curves of period k set: the time from the step after which they stay within band. */
+  lastExit(k: number, band: number): number;
+}
+
+/**
+ * The error after a duty step of a follower-free ladder (modal form with an orthogonal `mix`) in
+ * the modes of its period map, from the periodic states at the target and the source duty; null
+ * when the step moves nothing (equal starting states).
+ *
+ * Method: in period k after the step the state deviation from the periodic orbit at `to` is
+ * e_k = M^k e_0, M = E_l E_h. In high-phase modal coordinates M = X^T diag(e_l) X diag(e_h) is
+ * similar to the symmetric D X^T diag(e_l) X D, D = diag(e_h)^(1/2); its difference from I,
+ * N = -(diag(k_h) + D X^T diag(k_l) X D) (all k = -expm1(rate t) >= 0), is formed without
+ * cancellation and diagonalized by Jacobi (symmetricEigen): N z_j = nu_j z_j, mu_j = 1 + nu_j.
+ * Then e_0 = sum_j zeta_j q_j with zeta_j = z_j^T D e_0 and q_j = D^-1 z_j; to avoid D^-1 (huge for
+ * a mode that dies within the phase) period k >= 1 uses e_k = sum_j zeta_j mu_j^(k-1) r_j with
+ * r_j = M q_j = X^T diag(e_l) X D z_j, and period 0 uses e_0 itself; mu_j^k = exp(k log1p(nu_j)).
+ * The error in a period is then the steady error plus an exponential sum in tau (phaseCurve.ts),
+ * whose extremes are exact; inside a period the error is monotone between turning points, and
+ * Brent's method (brentRoot) finds its last band crossing.
+ *
+ * Syntax: stepError(modal, target, source, steadyError(target))
+ * Example: stepError(modal, periodicState(modal, 0.9), periodicState(modal, 0.1), ss)?.zeta
+ */
+export function stepError(m: ModalLadder, target: PeriodicState, source: PeriodicState, ss: SteadyError): StepError | null {
+  if (!m.symmetric) throw new RangeError('stepError: the period map needs a follower-free ladder (orthogonal mix)');
+  const { n, period, hi, lo, mix } = m;
+  const { t1, t2 } = target;
+  const ssHigh = ss.high;
+  const ssLow = ss.low;
+  const e0 = zeros(n);
+  let moved = false;
+  for (let i = 0; i < n; i++) {
+    e0[i] = source.start[i] - target.start[i];
+    if (e0[i] !== 0) moved = true;
+  }
+  if (!moved) return null;
+
+  // The period map's modes, in the symmetric form.
+  const kh = zeros(n);
+  const half = zeros(n);
+  const kl = zeros(n);
+  const elow = zeros(n);
+  for (let i = 0; i < n; i++) {
+    kh[i] = -Math.expm1(hi.rate[i] * t1);
+    half[i] = Math.exp(0.5 * hi.rate[i] * t1);
+    kl[i] = -Math.expm1(lo.rate[i] * t2);
+    elow[i] = Math.exp(lo.rate[i] * t2);
+  }
+  const N = zeros(n * n);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      let s = 0;
+      for (let k = 0; k < n; k++) s += mix[k * n + i] * kl[k] * mix[k * n + j];
+      N[i * n + j] = -(half[i] * s * half[j] + (i === j ? kh[i] : 0));
+    }
+  }
+  const { values: nu, vectors: Z } = symmetricEigen(N, n, { vectors: true });
+  const logMu = zeros(n);
+  for (let j = 0; j < n; j++) logMu[j] = nu[j] > -1 ? Math.log1p(nu[j]) : -Infinity;
+
+  // Output weights (per rate i) of a state w given in high-phase modal coordinates, in each phase.
+  const highWeights = (w: number[], out: number[]) => {
+    for (let i = 0; i < n; i++) out[i] = hi.out[i] * w[i];
+  };
+  const lowWeights = (w: number[], out: number[]) => {
+    for (let i = 0; i < n; i++) {
+      let s = 0; // low-phase coordinates of the state at the end of the high phase
+      for (let k = 0; k < n; k++) s += mix[i * n + k] * half[k] * half[k] * w[k];
+      out[i] = lo.out[i] * s;
+    }
+  };
+  // etaHigh[j * n + i], etaLow[j * n + i]: output weight i of r_j in each phase.
+  const zeta = zeros(n);
+  const etaHigh = zeros(n * n);
+  const etaLow = zeros(n * n);
+  const bound = zeros(n);
+  const lead = zeros(n);
+  const r = zeros(n);
+  const xr = zeros(n);
+  const wh = zeros(n);
+  const wl = zeros(n);
+  for (let j = 0; j < n; j++) {
+    let z = 0;
+    for (let i = 0; i < n; i++) z += half[i] * Z[i * n + j] * e0[i];
+    zeta[j] = z;
+    // r_j = X^T diag(e_l) X D z_j
+    for (let i = 0; i < n; i++) {
+      let s = 0;
+      for (let k = 0; k < n; k++) s += mix[i * n + k] * half[k] * Z[k * n + j];
+      xr[i] = elow[i] * s;
+    }
+    for (let i = 0; i < n; i++) {
+      let s = 0;
+      for (let k = 0; k < n; k++) s += mix[k * n + i] * xr[k];
+      r[i] = s;
+    }
+    highWeights(r, wh);
+    lowWeights(r, wl);
+    let sumHigh = 0;
+    let sumLow = 0;
+    let sum = 0;
+    for (let i = 0; i < n; i++) {
+      etaHigh[j * n + i] = wh[i];
+      etaLow[j * n + i] = wl[i];
+      sumHigh += Math.abs(wh[i]);
+      sumLow += Math.abs(wl[i]);
+      sum += wh[i];
+    }
+    bound[j] = Math.max(sumHigh, sumLow);
+    lead[j] = sum;
+  }
+
+  // Error curves of one period from the output weights bh, bl of its starting state; the two
+  // curve objects are refilled for each period examined.
+  const errHigh: PhaseCurve = { offset: 0, gain: zeros(n), rate: hi.rate, length: t1 };
+  const errLow: PhaseCurve = { offset: 0, gain: zeros(n), rate: lo.rate, length: t2 };
+  const bh = zeros(n);
+  const bl = zeros(n);
+  const fillHigh = () => {
+    let o = ssHigh.offset;
+    for (let i = 0; i < n; i++) {
+      errHigh.gain[i] = ssHigh.gain[i] + bh[i];
+      o += bh[i];
+    }
+    errHigh.offset = o;
+  };
+  const fillLow = () => {
+    let o = ssLow.offset;
+    for (let i = 0; i < n; i++) {
+      errLow.gain[i] = ssLow.gain[i] + bl[i];
+      o += bl[i];
+    }
+    errLow.offset = o;
+  };
+  return {
+    n,
+    zeta,
+    logMu,
+    bound,
+    lead,
+    power: (j, k) => (k === 1 ? 1 : Math.exp((k - 1) * logMu[j])),
+    setFirstPeriod: () => {
+      highWeights(e0, bh);
+      lowWeights(e0, bl);
+    },
+    setModes: (c) => {
+      for (let i = 0; i < n; i++) {
+        let h = 0;
+        let l = 0;
+        for (let j = 0; j < n; j++) {
+          h += c[j] * etaHigh[j * n + i];
+          l += c[j] * etaLow[j * n + i];
+        }
+        bh[i] = h;
+        bl[i] = l;
+      }
+    },
+    // the low phase first: in a violating period it is usually the one that leaves
+    leaves: (band, slack) => {
+      fillLow();
+      const xl = curveExtrema(errLow);
+      if (xl.max + slack > band || xl.min - slack < -band) return true;
+      fillHigh();
+      const xh = curveExtrema(errHigh);
+      return xh.max + slack > band || xh.min - slack < -band;
+    },
+    lastExit: (k, band) => {
+      fillLow();
+      const inLow = curveLastExit(errLow, band, period);
+      if (inLow >= 0) return k * period + t1 + inLow;
+      fillHigh();
+      const inHigh = curveLastExit(errHigh, band, period);
+      return k * period + Math.max(inHigh, 0);
+    },
+  };
+}
+
+/** The time in [0, length] after which |curve| stays within band, or -1 if it never leaves it. */
+function curveLastExit(c: PhaseCurve, band: number, period: number): number {
+  if (!(c.length > 0)) return -1;
+  const ends = [0, ...curveTurningPoints(c), c.length];
+  const values = ends.map((t) => curveValue(c, t));
+  for (let k = ends.length - 1; k > 0; k--) {
+    const va = values[k - 1];
+    const vb = values[k];
+    if (Math.abs(vb) > band) return ends[k];
+    if (Math.abs(va) > band) {
+      const level = va > 0 ? band : -band;
+      return brentRoot((t) => curveValue(c, t) - level, ends[k - 1], ends[k], 1e-12 * period);
+    }
+  }
+  return -1;
+}
