@@ -46,6 +46,7 @@ export { MAX_MODAL_CONDITION } from './modalRoute.js';
 export { flow, type Flow } from './flow.js';
 export { periodPowers, type PeriodPowers } from './periodPowers.js';
 export { pinSchedule, type ScheduledPhase } from './periodic/pinSchedule.js';
+export { periodStart, type PeriodPhase } from './periodic/periodStart.js';
 export {
   networkPoint,
   networkRipple,

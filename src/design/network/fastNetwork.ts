@@ -1,7 +1,7 @@
 import type { Duties, Network } from '../../circuit/network.js';
 import { networkEquations, type NetworkEquations, type PinStateKey } from '../../circuit/networkEquations.js';
 import { solveLinear } from '../../numeric/lu.js';
-import { flow, pinSchedule } from '../../engine/index.js';
+import { flow, periodStart, pinSchedule } from '../../engine/index.js';
 
 /** One phase of a period: its pin state, length and exact flow. */
 export interface FastPhase {
@@ -122,30 +122,8 @@ export function fastOrbit(model: FastNetwork, duties: Duties): FastOrbit {
   const { network, n, equations } = model;
   const T = network.period;
   const phases = pinSchedule(network, duties).map((p) => model.phase(p.key, p.duration));
-  const r = new Array<number>(n).fill(0);
-  for (const ph of phases) for (let i = 0; i < n; i++) r[i] += (ph.duration / T) * ph.xStar[i];
-  let S = new Array<number>(n * n).fill(0);
-  let acc = new Array<number>(n).fill(0);
-  for (const ph of phases) {
-    const { E, K } = ph;
-    const nextS = K.slice();
-    const nextAcc = new Array<number>(n).fill(0);
-    for (let i = 0; i < n; i++) {
-      let a = 0;
-      for (let j = 0; j < n; j++) {
-        a += E[i * n + j] * acc[j] + K[i * n + j] * (ph.xStar[j] - r[j]);
-        let s = 0;
-        for (let k = 0; k < n; k++) s += E[i * n + k] * S[k * n + j];
-        nextS[i * n + j] += s;
-      }
-      nextAcc[i] = a;
-    }
-    S = nextS;
-    acc = nextAcc;
-  }
-  const u = solveLinear(S, n, acc);
-  if (!u) throw new RangeError('fastOrbit: the period map has no unique fixed point');
-  const start = r.map((v, i) => v + u[i]);
+  // The engine's fixed point of the period map (periodic/periodStart.ts), on this model's flows.
+  const { start, S } = periodStart(phases, n, T);
   const c = equations.output;
   let integral = 0;
   let x = start.slice();

@@ -1,6 +1,6 @@
 import type { Duties, Network } from '../../circuit/network.js';
-import { solveLinear } from '../../numeric/lu.js';
 import { networkCache, phaseFlows, type PhaseFlows } from './phaseFlows.js';
+import { periodStart } from './periodStart.js';
 import { pinSchedule } from './pinSchedule.js';
 import { periodTrajectoryPoints, type TrajectoryPoint } from './trajectory.js';
 
@@ -49,30 +49,11 @@ export function periodicOrbit(network: Network, duties: Duties, withExtrema = tr
   const n = equations.n;
   const T = network.period;
   const phases = pinSchedule(network, duties).map((p) => phaseFlows(network, p.key, p.duration));
-  const r = new Array<number>(n).fill(0);
-  for (const ph of phases) for (let i = 0; i < n; i++) r[i] += (ph.duration / T) * ph.xStar[i];
-  let S = new Array<number>(n * n).fill(0);
-  let acc = new Array<number>(n).fill(0);
-  for (const ph of phases) {
-    const { E, K } = withAverage ? ph.full : ph.map;
-    const nextS = K.slice();
-    const nextAcc = new Array<number>(n).fill(0);
-    for (let i = 0; i < n; i++) {
-      let a = 0;
-      for (let j = 0; j < n; j++) {
-        a += E[i * n + j] * acc[j] + K[i * n + j] * (ph.xStar[j] - r[j]);
-        let s = 0;
-        for (let k = 0; k < n; k++) s += E[i * n + k] * S[k * n + j];
-        nextS[i * n + j] += s;
-      }
-      nextAcc[i] = a;
-    }
-    S = nextS;
-    acc = nextAcc;
-  }
-  const u = solveLinear(S, n, acc);
-  if (!u) throw new RangeError('periodicOrbit: the period map has no unique fixed point');
-  const start = r.map((v, i) => v + u[i]);
+  const { start, S } = periodStart(
+    phases.map((ph) => ({ duration: ph.duration, xStar: ph.xStar, ...(withAverage ? ph.full : ph.map) })),
+    n,
+    T,
+  );
   const c = equations.output;
   const points = withExtrema
     ? periodTrajectoryPoints(phases, c, start, new Array<number>(n).fill(0), equations.scale)
