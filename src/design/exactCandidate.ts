@@ -1,6 +1,7 @@
 import { specChecks, dcTransfer, defaultSettling, pinPeakCurrent, settlingTime, worstRipple, type Check, type Settling } from '../engine/index.js';
 import type { Ladder } from '../circuit/ladder.js';
 import type { DesignProblem } from './designProblem.js';
+import type { Project } from '../project/types.js';
 import type { Candidate } from './types.js';
 
 /**
@@ -22,15 +23,39 @@ export function exactCandidate(problem: DesignProblem, ladder: Ladder): Candidat
   const settling: Settling = problem.defaultStep
     ? defaultSettling(ladder, dutyMin, dutyMax, band)
     : settlingTime(ladder, steps[0][0], steps[0][1], band);
-  const pinCurrent = pinPeakCurrent(ladder);
-  const checks = specChecks(problem.project, { worstRipple: ripple, dc, settling, pinPeakCurrent: pinCurrent });
   let totalCapacitance = 0;
   for (const s of ladder.stages) totalCapacitance += s.c;
-  const pass = settling.time !== null && checks.every((k) => k.pass);
   return {
     stages: ladder.stages.map((s) => (s.buffered ? { r: s.r, c: s.c, buffered: true } : { r: s.r, c: s.c })),
     bits: problem.bits,
     frequency: problem.frequency,
+    ...candidateFigures(problem.project, problem.margin, { worstRipple: ripple, dc, settling, pinPeakCurrent: pinPeakCurrent(ladder) }),
+    totalCapacitance,
+    needsFollower: ladder.stages[ladder.stages.length - 1].buffered,
+  };
+}
+
+/** The exact figures of one design as the engine gives them (analyze's inputs to the checks). */
+export type DesignFigures = Parameters<typeof specChecks>[1];
+
+/**
+ * The fields every candidate takes from its exact figures, whatever its circuit: worst ripple,
+ * droop, INL, gain error, settling time, pin current, the project's spec checks, pass, and the
+ * margins against the file's limits and search.margin (marginsOf). Shared by exactCandidate (RC
+ * ladders) and design/network/networkCandidate.ts (version 1.1 circuits).
+ *
+ * Syntax: candidateFigures(project, margin, figures)
+ * Example: candidateFigures(p, 0.1, { worstRipple, dc, settling, pinPeakCurrent: 0.005 }).keepsMargin
+ */
+export function candidateFigures(
+  project: Project,
+  margin: number,
+  figures: DesignFigures,
+): Pick<Candidate, 'worstRipple' | 'rippleDuty' | 'droop' | 'droopDuty' | 'inl' | 'gainError' | 'settlingTime' | 'pinCurrent' | 'checks' | 'pass' | 'margins' | 'keepsMargin'> {
+  const { worstRipple: ripple, dc, settling, pinPeakCurrent: pinCurrent } = figures;
+  const checks = specChecks(project, figures);
+  const pass = settling.time !== null && checks.every((k) => k.pass);
+  return {
     worstRipple: ripple.ripple,
     rippleDuty: ripple.duty,
     droop: Math.abs(dc.droop.error),
@@ -39,11 +64,9 @@ export function exactCandidate(problem: DesignProblem, ladder: Ladder): Candidat
     gainError: dc.gainError,
     settlingTime: settling.time,
     pinCurrent,
-    totalCapacitance,
     checks,
     pass,
-    ...marginsOf(checks, problem.margin, pass),
-    needsFollower: ladder.stages[ladder.stages.length - 1].buffered,
+    ...marginsOf(checks, margin, pass),
   };
 }
 

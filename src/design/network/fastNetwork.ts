@@ -161,13 +161,44 @@ export function fastOrbit(model: FastNetwork, duties: Duties): FastOrbit {
  * Example: sampledOutput(m, fastOrbit(m, d), 8)   // { min, max } in V
  */
 export function sampledOutput(model: FastNetwork, orbit: FastOrbit, perPhase = 8): { min: number; max: number } {
+  let min = Infinity;
+  let max = -Infinity;
+  eachSample(model, orbit, orbit.start, perPhase, (_, y) => {
+    if (y < min) min = y;
+    if (y > max) max = y;
+  });
+  return { min, max };
+}
+
+/**
+ * Visits the output of one period started from `state` (the orbit's phases and DC states) at the
+ * period start and at `perPhase` evenly spaced instants of every phase, the phase ends included:
+ * visit(t, y) with t in s from the period start and y in V. The samples of sampledOutput and of the
+ * settling bound's refinement (networkBounds.ts).
+ *
+ * Method: within a phase x(t + h) = x* + e^{h A} (x(t) - x*), written x + K (x* - x) with
+ * K = I - e^{h A} from the engine's flow for h = t_p / perPhase.
+ *
+ * Syntax: eachSample(model, orbit, state, perPhase, visit)
+ * Example: eachSample(m, o, o.start, 8, (t, y) => console.log(t, y))
+ */
+export function eachSample(
+  model: FastNetwork,
+  orbit: FastOrbit,
+  state: readonly number[],
+  perPhase: number,
+  visit: (t: number, y: number) => void,
+): void {
   const { n, equations } = model;
   const c = equations.output;
-  let x = orbit.start.slice();
-  let min = orbit.yStart;
-  let max = orbit.yStart;
+  let x = state.slice();
+  let y0 = 0;
+  for (let i = 0; i < n; i++) y0 += c[i] * x[i];
+  visit(0, y0);
+  let t = 0;
   for (const ph of orbit.phases) {
-    const step = model.phase(ph.key, ph.duration / perPhase);
+    const h = ph.duration / perPhase;
+    const step = model.phase(ph.key, h);
     for (let k = 0; k < perPhase; k++) {
       const next = new Array<number>(n);
       let y = 0;
@@ -178,9 +209,8 @@ export function sampledOutput(model: FastNetwork, orbit: FastOrbit, perPhase = 8
         y += c[i] * next[i];
       }
       x = next;
-      if (y < min) min = y;
-      if (y > max) max = y;
+      t += h;
+      visit(t, y);
     }
   }
-  return { min, max };
 }

@@ -1,6 +1,6 @@
 import type { Duties, Network } from '../../circuit/network.js';
 import { codeParts, networkDuties, networkIdeal, periodPowers, quantizedFraction } from '../../engine/index.js';
-import { fastOrbit, sampledOutput, type FastNetwork, type FastOrbit } from './fastNetwork.js';
+import { eachSample, fastOrbit, sampledOutput, type FastNetwork, type FastOrbit } from './fastNetwork.js';
 import type { NetworkProblem } from './networkProblem.js';
 
 /** Output samples per phase for the ripple bound (a 16-point period misses < 2 % of a sine's peak-to-peak). */
@@ -174,31 +174,10 @@ function stepBound(probe: Probe, from: number, to: number, band: number, refine:
 
 /** The last of sampledOutput's instants in one period from `state` at which |y - average| > limit, or -1. */
 function lastSampleOutside(probe: Probe, orbit: FastOrbit, state: readonly number[], average: number, limit: number): number {
-  const { n, equations } = probe.fast;
-  const c = equations.output;
-  let x = state.slice();
-  let t = 0;
   let last = -1;
-  let y0 = 0;
-  for (let i = 0; i < n; i++) y0 += c[i] * x[i];
-  if (Math.abs(y0 - average) > limit) last = 0;
-  for (const ph of orbit.phases) {
-    const h = ph.duration / SAMPLES_PER_PHASE;
-    const step = probe.fast.phase(ph.key, h);
-    for (let k = 0; k < SAMPLES_PER_PHASE; k++) {
-      const next = new Array<number>(n);
-      let y = 0;
-      for (let i = 0; i < n; i++) {
-        let s = 0;
-        for (let j = 0; j < n; j++) s += step.K[i * n + j] * (ph.xStar[j] - x[j]);
-        next[i] = x[i] + s;
-        y += c[i] * next[i];
-      }
-      x = next;
-      t += h;
-      if (Math.abs(y - average) > limit) last = t;
-    }
-  }
+  eachSample(probe.fast, orbit, state, SAMPLES_PER_PHASE, (t, y) => {
+    if (Math.abs(y - average) > limit) last = t;
+  });
   return last;
 }
 

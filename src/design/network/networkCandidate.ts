@@ -1,7 +1,7 @@
 import type { Network } from '../../circuit/network.js';
 import { sallenKeyFigures } from '../../circuit/sallenKeyFigures.js';
-import { networkCircuitEngine, specChecks, type Settling } from '../../engine/index.js';
-import { marginsOf } from '../exactCandidate.js';
+import { networkCircuitEngine, type Settling } from '../../engine/index.js';
+import { candidateFigures } from '../exactCandidate.js';
 import type { AnyCandidateStage, Candidate } from '../types.js';
 import type { NetworkProblem } from './networkProblem.js';
 
@@ -20,9 +20,6 @@ export function networkCandidate(problem: NetworkProblem, network: Network): Can
   const ripple = engine.worstRipple(dutyMin, dutyMax);
   const dc = engine.dcTransfer(dutyMin, dutyMax);
   const settling: Settling = defaultStep ? engine.defaultSettling(dutyMin, dutyMax, band) : engine.settling(steps[0][0], steps[0][1], band);
-  const pinCurrent = engine.pinPeakCurrent();
-  const checks = specChecks(project, { worstRipple: ripple, dc, settling, pinPeakCurrent: pinCurrent });
-  const pass = settling.time !== null && checks.every((k) => k.pass);
   let totalCapacitance = 0;
   const stages = network.stages.map((s): AnyCandidateStage => {
     if (s.kind === 'rc') {
@@ -42,18 +39,8 @@ export function networkCandidate(problem: NetworkProblem, network: Network): Can
     ...(active.length > 0 && { activeStages: active }),
     bits: problem.base.bits,
     frequency: problem.base.frequency,
-    worstRipple: ripple.ripple,
-    rippleDuty: ripple.duty,
-    droop: Math.abs(dc.droop.error),
-    droopDuty: dc.droop.duty,
-    inl: Math.abs(dc.inl.error),
-    gainError: dc.gainError,
-    settlingTime: settling.time,
-    pinCurrent,
+    ...candidateFigures(project, margin, { worstRipple: ripple, dc, settling, pinPeakCurrent: engine.pinPeakCurrent() }),
     totalCapacitance,
-    checks,
-    pass,
-    ...marginsOf(checks, margin, pass),
     needsFollower: last.kind === 'rc' && last.buffered,
   };
 }
