@@ -1,4 +1,5 @@
 import { modalLadderOf, periodicState, settlingLowerBound, steadySwing, type ModalLadder, type PeriodicState, type SteadySwing } from '../engine/index.js';
+import type { Admit } from './cornerScreen.js';
 import type { DesignProblem } from './designProblem.js';
 import { dcTransferMiss } from './dcTransferMiss.js';
 import { gainFloor } from './gainFloor.js';
@@ -11,6 +12,11 @@ import { slowestTimeConstant } from './slowestTimeConstant.js';
 export const REL = 1e-6;
 /** Absolute allowance on times, s. */
 const ABS_T = 1e-12;
+/**
+ * Factor on the band above which the steady excursion at a target duty (steadySwing) certainly
+ * leaves it in the settling bound's own figures too (steadyError, same state, other rounding).
+ */
+const NEVER_SETTLES = 1 + 1e-9;
 
 /** A candidate the fast model could not rule out, with its settling lower bound. */
 export interface FastEntry {
@@ -23,6 +29,8 @@ export interface FastEntry {
   worst?: number;
   /** Ruled out by the fast worst ripple or worst droop. */
   ruledOut?: boolean;
+  /** The search's screen (CollectState.admit) was asked and admitted it. */
+  admitted?: boolean;
 }
 
 /** Shared state of one search (all stage counts of one problem). */
@@ -47,6 +55,11 @@ export interface CollectState {
   deadline?: number;
   /** Pareto mode (trade-off curves, paretoSearch.ts): several ripple limits in one walk. */
   pareto?: ParetoState;
+  /**
+   * Only candidates this admits count (SolveOptions.admit): one the screen rejects may not lower
+   * theta, so theta tracks the top-th best admitted estimate and the walk is not redone wider.
+   */
+  admit?: Admit;
 }
 
 /**
@@ -197,6 +210,8 @@ export function collectCandidates(
   }
   const order = keys.map((_, i) => i).sort((a, b) => keys[a] - keys[b]);
 
+  // Pareto mode: each ripple limit with the problem's other limits (per-limit tuple bounds).
+  const paretoLimits = state.pareto ? state.pareto.limits.map((ripple) => ({ ...limits, ripple })) : [];
   // Pareto mode: points already evaluated, by a number made of their value indices (no strings).
   const paretoSeen = new Set<number>();
   const rIndex = new Map(R.map((v, i) => [v, i]));
@@ -348,10 +363,14 @@ export function collectCandidates(
     if (!inlApplies && !miss) miss = dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null;
     if (miss) return;
     // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
+    // A steady state at the target that itself leaves the band never settles (settlingLowerBound
+    // says Infinity): its excursions about the average, from the same steady state (rounding
+    // apart, hence NEVER_SETTLES), decide that without the settling bound's period map.
     const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);
     for (const [from, to] of problem.steps) {
       const a = lite(rs, cs, from);
       const b = lite(rs, cs, to);
+      if (Math.max(b.above, b.below) > problem.band * NEVER_SETTLES) return;
       const z0 = Math.abs(b.yStart - a.yStart);
       const excursion = b.yStart > a.yStart ? b.above : b.below;
       if (z0 > problem.band + excursion && tau * Math.log(z0 / (problem.band + excursion)) - tb.slack > theta) return;
@@ -404,6 +423,13 @@ export function collectCandidates(
         entry.ruledOut = true;
         return;
       }
+      if (state.admit) {
+        if (!state.admit(problem, entry.r, entry.c)) {
+          entry.ruledOut = true;
+          return;
+        }
+        entry.admitted = true;
+      }
       let at = state.best.length;
       while (at > 0 && state.best[at - 1] > lb) at--;
       state.best.splice(at, 0, lb);
@@ -438,13 +464,19 @@ export function collectCandidates(
     const pareto = state.pareto;
     if (!pareto) return walkUnder(rs, tb, (cs) => bound(cs) <= state.theta);
     // Pareto mode: the union of each limit's region (its staircase, its own threshold), so a
-    // loose limit's long columns stop at its own best, not at the tightest limit's.
+    // loose limit's long columns stop at its own best, not at the tightest limit's. A limit whose
+    // own tuple bound (its ripple limit's tauMin and log factor; the tuple order used the loosest
+    // limit's) already passes its threshold has an empty region in this tuple: no staircase.
     const columns: Column[] = [];
     nearMemo.clear();
     toChecked.clear();
+    const tauAtMinC = slowestTimeConstant(rs, minC, tb.driver, loadR, loadC);
     pareto.limits.forEach((limit, i) => {
+      const cap = () => Math.min(state.theta, pareto.best[i] * (1 + REL) + ABS_T);
+      const own = tupleBounds(problem, rs, paretoLimits[i]);
+      if (Math.max(own.tauMin, tauAtMinC) * own.factor - own.slack > cap()) return;
       rippleLimit = limit;
-      columns.push(...walkUnder(rs, tb, (cs) => bound(cs) <= Math.min(state.theta, pareto.best[i] * (1 + REL) + ABS_T)));
+      columns.push(...walkUnder(rs, tb, (cs) => slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) * own.factor - own.slack <= cap()));
     });
     rippleLimit = limits.ripple;
     return columns;

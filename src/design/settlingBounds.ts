@@ -93,11 +93,14 @@ export function settlingLogFactor(problem: DesignProblem, limits: DesignProblem[
  * (1 + u)^3 >= Gamma, and for equal drivers the sharper (1 + u)^2 (1 + u p*^2) >= Gamma, p* from
  * the ladder's pole spread (threeStageSpread.ts).
  *
- * Syntax: tupleBounds(problem, r)
+ * `limits` (default problem.searchLimits) are the limits the capacitor choices must meet: the
+ * trade-off walk (paretoSearch.ts) asks with each of its ripple limits in turn.
+ *
+ * Syntax: tupleBounds(problem, r[, limits])
  * Example: tupleBounds(problem, [4700, 47e3]).tauMin   // s
  */
-export function tupleBounds(problem: DesignProblem, r: ArrayLike<number>): TupleBounds {
-  const { project, searchLimits: limits, period, circuit } = problem;
+export function tupleBounds(problem: DesignProblem, r: ArrayLike<number>, limits: DesignProblem['limits'] = problem.searchLimits): TupleBounds {
+  const { project, period, circuit } = problem;
   const { pwm } = project;
   // The load as the ladder sees it (none behind a follower after the last stage).
   const load = { resistance: circuit.loadResistance ?? undefined };

@@ -72,6 +72,7 @@ export function solveProblem(
   const state = newCollectState(problem, top);
   if (options.budget !== undefined) state.budget = options.budget;
   if (options.deadline !== undefined) state.deadline = options.deadline;
+  if (options.admit) state.admit = options.admit;
   const cap = state.theta; // the settling-time limit (or Infinity) before any lowering
   const collectAll = () => {
     stageCounts.forEach((n, i) =>
@@ -108,7 +109,7 @@ export function solveProblem(
         e.ruledOut = true;
         continue;
       }
-      if (options.admit && !options.admit(problem, e.r, e.c)) {
+      if (options.admit && !e.admitted && !options.admit(problem, e.r, e.c)) {
         e.ruledOut = true;
         continue;
       }
