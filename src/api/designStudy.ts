@@ -1,5 +1,6 @@
+import { availableParallelism, loadavg } from 'node:os';
 import type { Project } from '../project/index.js';
-import { designSearch, tradeoffCurves } from '../design/index.js';
+import { designProblem, designSearch, tradeoffCurves } from '../design/index.js';
 import { robustDesigns } from '../design/robustDesigns.js';
 import type { AnyCandidateStage, AnyDesignResult, DesignProgress, DesignResult } from '../design/types.js';
 import { networkDesignStudy } from '../design/network/networkDesignStudy.js';
@@ -7,6 +8,7 @@ import { DesignInputError } from '../design/designInputError.js';
 import type { TradeoffCurve } from '../design/tradeoffCurves.js';
 import type { RobustResult } from '../design/robustDesigns.js';
 import { robustChecks } from '../tolerance/index.js';
+import { tradeoffInWorker } from './tradeoffInWorker.js';
 
 export interface DesignStudyOptions {
   /** Designs to list (default 10). */
@@ -44,41 +46,142 @@ export interface DesignStudy {
  */
 export function designStudy(project: Project, options: DesignStudyOptions = {}): DesignStudy {
   if (project.network) return networkStudy(project, options);
-  const top = options.top ?? 10;
+  const result = studyResult(project, options);
+  const plan = curvePlan(project, result.result, options);
+  const tradeoff = plan ? drawCurves(project, plan, options) : undefined;
+  return { ...result, ...(tradeoff && { tradeoff }) };
+}
+
+/**
+ * designStudy with the trade-off curves of the largest stage count drawn in a worker thread beside
+ * the search (tradeoffInWorker.ts), which is what `dacsmith design` runs: the same study, the same
+ * numbers, in less wall time on a machine with a second core. The worker starts before the search
+ * when the curves' centre and stage counts follow from the file alone (a ripple limit, no search
+ * over the resolution; see expectedCurvePlan); otherwise, or when the worker cannot start or
+ * fails, everything runs in this thread as designStudy does. Not used with a deadline (--max-time)
+ * or for version 1.1 circuits.
+ *
+ * Syntax: await designStudyInParallel(project[, options][, { force, workerUrl }])
+ * Example: (await designStudyInParallel(p)).tradeoff?.[1].points[4].settlingTime   // s
+ */
+export async function designStudyInParallel(project: Project, options: DesignStudyOptions = {}, parallel: ParallelOptions = {}): Promise<DesignStudy> {
   const charts = options.tradeoff ?? true;
+  const guess = project.network || !charts || options.deadline !== undefined ? null : expectedCurvePlan(project);
+  if (!guess || guess.stageCounts.length < 2 || !(parallel.force ?? coreToSpare())) return designStudy(project, options);
+  const heavy = guess.stageCounts[guess.stageCounts.length - 1];
+  const run = tradeoffInWorker({ project, stageCounts: [heavy], center: guess.center, ...(guess.bits !== undefined && { bits: guess.bits }) }, parallel.workerUrl);
+  if (!run) return designStudy(project, options);
+  try {
+    const result = studyResult(project, options);
+    const plan = curvePlan(project, result.result, options);
+    if (!plan) return result;
+    if (!samePlan(plan, guess)) return { ...result, tradeoff: drawCurves(project, plan, options) };
+    const report = options.onProgress;
+    const light = plan.stageCounts.filter((n) => n !== heavy);
+    const own = drawCurves(project, { ...plan, stageCounts: light }, { ...options, ...(report && { onProgress: (f: number) => report(0.5 + 0.25 * f, { phase: 'curves' }) }) });
+    let waiting: ReturnType<typeof setInterval> | undefined;
+    if (report) waiting = setInterval(() => report(0.75 + 0.25 * run.progress(), { phase: 'curves' }), 100);
+    const fromWorker = await run.curves.finally(() => clearInterval(waiting));
+    parallel.onCurves?.(fromWorker ? 'worker' : 'this thread');
+    const heavyCurves = fromWorker ?? drawCurves(project, { ...plan, stageCounts: [heavy] }, options);
+    const byCount = new Map([...own, ...heavyCurves].map((c) => [c.stages, c]));
+    return { ...result, tradeoff: plan.stageCounts.map((n) => byCount.get(n)!) };
+  } finally {
+    run.stop();
+  }
+}
+
+export interface ParallelOptions {
+  /** Use the worker whatever the machine's load (tests); default: only with a core to spare. */
+  force?: boolean;
+  /** The worker script (tests: the TypeScript source); default dist/design-worker.js beside the bundle. */
+  workerUrl?: URL;
+  /** Told where the largest stage count's curves were drawn, once they are (tests, diagnostics). */
+  onCurves?: (drawnIn: 'worker' | 'this thread') => void;
+}
+
+/**
+ * A worker pays only on a core nobody else uses: on a busy machine it would share a core with
+ * this thread and add its start-up and cold code to the wall time (measured: 1.07x the wall time of
+ * the single-thread run on two cores kept busy by other work). The one-minute load average (Linux:
+ * runnable and waiting tasks) is the signal, as for `make -l`.
+ */
+function coreToSpare(): boolean {
+  const cores = availableParallelism();
+  return cores > 1 && loadavg()[0] <= cores - 1;
+}
+
+/** Stage counts, centre (V) and resolution of the trade-off curves. */
+interface CurvePlan {
+  stageCounts: number[];
+  center: number;
+  bits?: number;
+}
+
+const samePlan = (a: CurvePlan, b: CurvePlan) =>
+  a.center === b.center && a.bits === b.bits && a.stageCounts.length === b.stageCounts.length && a.stageCounts.every((n, i) => n === b.stageCounts[i]);
+
+/** The search (or robust) part of a study: designs, and robust verdicts when asked. */
+function studyResult(project: Project, options: DesignStudyOptions): { result: DesignResult; robust?: RobustResult } {
+  const top = options.top ?? 10;
   const report = options.onProgress;
-  const share = charts ? 0.5 : 1;
-  let result: DesignResult;
-  let robust: RobustResult | undefined;
+  const share = (options.tradeoff ?? true) ? 0.5 : 1;
   if (options.robust) {
-    robust = robustDesigns(project, options.robust, { checks: robustChecks, top, ...(report && { onProgress: (f: number) => report(share * f) }) });
-    result = { ...robust.nominal, candidates: robust.candidates.map((r) => r.candidate), feasible: robust.candidates.length > 0, diagnosis: [] };
-  } else {
-    result = designSearch(project, {
-      top,
-      ...(options.deadline !== undefined && { deadline: options.deadline }),
-      ...(report && { onProgress: (f: number, d?: DesignProgress) => report(share * f, d) }),
-    });
+    const robust = robustDesigns(project, options.robust, { checks: robustChecks, top, ...(report && { onProgress: (f: number) => report(share * f) }) });
+    const result = { ...robust.nominal, candidates: robust.candidates.map((r) => r.candidate), feasible: robust.candidates.length > 0, diagnosis: [] };
+    return { result, robust };
   }
-  let tradeoff: TradeoffCurve[] | undefined;
-  // Nothing feasible: the explanation carries the numbers; curves would rerun many empty searches.
-  // Out of time (--max-time): no curves either; the report says the search is incomplete.
+  const result = designSearch(project, {
+    top,
+    ...(options.deadline !== undefined && { deadline: options.deadline }),
+    ...(report && { onProgress: (f: number, d?: DesignProgress) => report(share * f, d) }),
+  });
+  return { result };
+}
+
+/**
+ * The curves a result gets: around the spec's ripple limit (at the best design's resolution when
+ * the search varied it), or null: no curves asked, nothing feasible (the explanation carries the
+ * numbers; curves would rerun many empty searches), or out of time (--max-time: the report says
+ * the search is incomplete).
+ */
+function curvePlan(project: Project, result: DesignResult, options: DesignStudyOptions): CurvePlan | null {
+  if (!(options.tradeoff ?? true) || !result.feasible) return null;
   const inTime = options.deadline === undefined || (result.complete !== false && performance.now() < options.deadline);
-  if (charts && result.feasible && inTime) {
-    const best = result.candidates[0];
-    const atBits = result.resolutions.length > 0 && best?.bits != null ? best.bits : undefined;
-    const ripple = result.basis.limits.ripple;
-    const lsbAt = result.resolutions.find((r) => r.bits === atBits)?.lsb;
-    const inLsb = project.specInLsb?.ripple;
-    const center = ripple === undefined ? best?.worstRipple : inLsb !== undefined && lsbAt !== undefined ? inLsb * lsbAt : ripple;
-    if (center !== undefined && center > 0) {
-      tradeoff = tradeoffCurves(project, result.basis.stageCounts, center, {
-        ...(atBits !== undefined && { bits: atBits }),
-        ...(report && { onProgress: (f: number) => report(0.5 + 0.5 * f, { phase: 'curves' }) }),
-      });
-    }
+  if (!inTime) return null;
+  const best = result.candidates[0];
+  const atBits = result.resolutions.length > 0 && best?.bits != null ? best.bits : undefined;
+  const ripple = result.basis.limits.ripple;
+  const lsbAt = result.resolutions.find((r) => r.bits === atBits)?.lsb;
+  const inLsb = project.specInLsb?.ripple;
+  const center = ripple === undefined ? best?.worstRipple : inLsb !== undefined && lsbAt !== undefined ? inLsb * lsbAt : ripple;
+  if (center === undefined || !(center > 0)) return null;
+  return { stageCounts: result.basis.stageCounts, center, ...(atBits !== undefined && { bits: atBits }) };
+}
+
+/**
+ * The plan curvePlan will give for a feasible result, known from the file alone when the file
+ * states a ripple limit and the search keeps the resolution (no search.bits): then the centre is
+ * that limit and the stage counts the search's (designSearch's basis). Null otherwise.
+ */
+function expectedCurvePlan(project: Project): CurvePlan | null {
+  if (project.search?.bits) return null;
+  let problem;
+  try {
+    problem = designProblem(project);
+  } catch {
+    return null; // the search reports it
   }
-  return { result, ...(tradeoff && { tradeoff }), ...(robust && { robust }) };
+  const ripple = problem.limits.ripple;
+  return ripple !== undefined && ripple > 0 ? { stageCounts: problem.stageCounts, center: ripple } : null;
+}
+
+function drawCurves(project: Project, plan: CurvePlan, options: DesignStudyOptions): TradeoffCurve[] {
+  const report = options.onProgress;
+  return tradeoffCurves(project, plan.stageCounts, plan.center, {
+    ...(plan.bits !== undefined && { bits: plan.bits }),
+    ...(report && { onProgress: (f: number) => report(0.5 + 0.5 * f, { phase: 'curves' }) }),
+  });
 }
 
 /** designStudy for a version 1.1 circuit (design/network/networkDesignStudy.ts). */

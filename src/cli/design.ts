@@ -69,7 +69,7 @@ export async function runDesign(
   if (args.write !== undefined && !args.force && fs.existsSync(args.write)) {
     return { stdout: '', stderr: `dacsmith: ${args.write} exists; use --force to overwrite it\n`, code: EXIT_BAD_INPUT };
   }
-  const [{ loadProject }, { designStudy }, { designReport }, { designProgressLine }] = await Promise.all([
+  const [{ loadProject }, { designStudyInParallel }, { designReport }, { designProgressLine }] = await Promise.all([
     import('../project/index.js'),
     import('../api/designStudy.js'),
     import('../report/design.js'),
@@ -80,7 +80,8 @@ export async function runDesign(
   const bar = tty.progress && !args.quiet ? progressBar(tty.progress, designProgressLine) : null;
   let study;
   try {
-    study = designStudy(project, {
+    // The trade-off curves of the largest stage count in a worker thread beside the search.
+    study = await designStudyInParallel(project, {
       top: args.top,
       tradeoff: args.charts,
       ...(args.maxTime !== undefined && { deadline: started + 1000 * args.maxTime }),
