@@ -101,14 +101,16 @@ export interface ParallelOptions {
 }
 
 /**
- * A worker pays only on a core nobody else uses: on a busy machine it would share a core with
- * this thread and add its start-up and cold code to the wall time (measured: 1.07x the wall time of
- * the single-thread run on two cores kept busy by other work). The one-minute load average (Linux:
- * runnable and waiting tasks) is the signal, as for `make -l`.
+ * A worker pays only on a core that would otherwise idle: on a machine whose cores are all busy it
+ * shares one with this thread and adds its start-up and cold code to the wall time (measured: 1.07x
+ * the wall time of the single-thread run, on two cores kept busy by two other jobs). The signal is
+ * the one-minute load average (Linux: runnable and waiting tasks), as for `make -l`: below the
+ * number of cores, one is free on average. Its own earlier runs count in it too, so the bound is
+ * the core count itself, not one less, lest a command run back to back switch its worker off.
  */
 function coreToSpare(): boolean {
   const cores = availableParallelism();
-  return cores > 1 && loadavg()[0] <= cores - 1;
+  return cores > 1 && loadavg()[0] < cores;
 }
 
 /** Stage counts, centre (V) and resolution of the trade-off curves. */
