@@ -68,10 +68,29 @@ function layout(header: string[], rows: string[][], columns: number, room: (n: n
     const floors = keep.map((i) => Math.min(natural[i], floor[i]));
     if (floors.reduce((a, b) => a + b, 0) > budget) return null;
     let total = widths.reduce((a, b) => a + b, 0);
-    // Lines the table takes with these widths (header and body rows): the cost of a step.
+    // Lines the table takes with these widths (header and body rows): the cost of a step. Each
+    // column's line counts at a width are wrapped once (a step changes one column's width).
     const grid = [header, ...rows];
-    const height = (w: number[]) =>
-      grid.reduce((sum, r) => sum + Math.max(1, ...keep.map((i, j) => (visibleWidth(r[i] ?? '') <= w[j] ? 1 : wrapText(r[i] ?? '', w[j]).length))), 0);
+    const wrapped = new Map<number, number[]>();
+    const linesAt = (i: number, width: number): number[] => {
+      const key = i * 65536 + width;
+      let counts = wrapped.get(key);
+      if (counts === undefined) {
+        counts = grid.map((r) => (visibleWidth(r[i] ?? '') <= width ? 1 : wrapText(r[i] ?? '', width).length));
+        wrapped.set(key, counts);
+      }
+      return counts;
+    };
+    const height = (w: number[]) => {
+      const columnsAt = keep.map((i, j) => linesAt(i, w[j]));
+      let sum = 0;
+      for (let r = 0; r < grid.length; r++) {
+        let most = 1;
+        for (const counts of columnsAt) if (counts[r] > most) most = counts[r];
+        sum += most;
+      }
+      return sum;
+    };
     let now = height(widths);
     const costs = new Map<number, number>();
     const cost = (j: number) => {
