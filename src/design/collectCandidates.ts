@@ -213,10 +213,11 @@ export function collectCandidates(
   let lastR: number[] = [];
   let lastC: number[] = [];
   let model: ModalLadder | null = null;
+  // (fresh arrays per candidate: young objects pointing at young objects are the cheapest to collect)
   let slots = 0;
-  const steadyDuty: number[] = [];
-  const steadyOf: Array<PeriodicState | null> = [];
-  const swingOf: Array<SteadySwing | null> = [];
+  let steadyDuty: number[] = [];
+  let steadyOf: Array<PeriodicState | null> = [];
+  let swingOf: Array<SteadySwing | null> = [];
   const sameAs = (x: number[], y: number[]) => {
     if (x.length !== y.length) return false;
     for (let k = 0; k < x.length; k++) if (x[k] !== y[k]) return false;
@@ -229,6 +230,9 @@ export function collectCandidates(
       // one and two stages: written over the last candidate's model (its states go with it)
       model = modalLadderOf(problem.circuit, rs, cs, model ?? undefined);
       slots = 0;
+      steadyDuty = [];
+      steadyOf = [];
+      swingOf = [];
     }
     return model;
   };

@@ -31,7 +31,8 @@ import type { ModalLadder, PhaseModes } from './modalTypes.js';
  * Example: modalLadderOf(circuit, [4700, 47e3], [1e-6, 10e-9]).hi.rate  // two rates, 1/s, fastest first
  */
 export function modalLadderOf(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>, into?: ModalLadder): ModalLadder {
-  return r.length === 1 || r.length === 2 ? smallLadder(circuit, r, c, into) : modalLadderOfAnyOrder(circuit, r, c);
+  const n = load(r, c);
+  return n === 1 || n === 2 ? smallLadder(circuit, n, into) : anyOrder(circuit, n);
 }
 
 /**
@@ -42,9 +43,13 @@ export function modalLadderOf(circuit: LadderCircuit, r: ArrayLike<number>, c: A
  * Example: modalLadderOfAnyOrder(circuit, [4700, 47e3], [1e-6, 10e-9])  // equal to modalLadderOf(circuit, ...)
  */
 export function modalLadderOfAnyOrder(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>): ModalLadder {
-  const n = r.length;
-  checkStages(r, c);
-  if (CS.length < n) grow(n);
+  return anyOrder(circuit, load(r, c));
+}
+
+/** The general construction from the stages in R_S, C_S. */
+function anyOrder(circuit: LadderCircuit, n: number): ModalLadder {
+  const r = R_S;
+  const c = C_S;
   const { loadResistance, loadCapacitance, driverHigh, driverLow } = circuit;
   for (let k = 0; k < n; k++) CS[k] = Math.sqrt(c[k] + (k === n - 1 ? loadCapacitance : 0));
   // Conductance into node k from the node before (node 0: from the pin through driver + R1).
@@ -91,10 +96,19 @@ export function modalLadderOfAnyOrder(circuit: LadderCircuit, r: ArrayLike<numbe
   };
 }
 
-function checkStages(r: ArrayLike<number>, c: ArrayLike<number>): void {
-  for (let k = 0; k < r.length; k++) {
+/**
+ * Check the stages and copy them into R_S, C_S (whatever kind of array the caller has, the
+ * construction reads one); returns their number.
+ */
+function load(r: ArrayLike<number>, c: ArrayLike<number>): number {
+  const n = r.length;
+  if (CS.length < n) grow(n);
+  for (let k = 0; k < n; k++) {
     if (!(r[k] > 0) || !(c[k] > 0)) throw new RangeError('invalid ladder: every stage needs r > 0 and c > 0');
+    R_S[k] = r[k];
+    C_S[k] = c[k];
   }
+  return n;
 }
 
 /**
@@ -102,9 +116,9 @@ function checkStages(r: ArrayLike<number>, c: ArrayLike<number>): void {
  * construction, in its order (sums started from 0 as there), without its loops and scratch arrays;
  * written into `into` when it fits (same stage count, phases shared exactly when the drivers are equal).
  */
-function smallLadder(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>, into?: ModalLadder): ModalLadder {
-  const n = r.length;
-  checkStages(r, c);
+function smallLadder(circuit: LadderCircuit, n: number, into?: ModalLadder): ModalLadder {
+  const r = R_S;
+  const c = C_S;
   const { loadResistance, loadCapacitance, driverHigh, driverLow, high: vHigh, low: vLow } = circuit;
   const equal = driverHigh === driverLow;
   const gLoad = loadResistance !== null ? 1 / loadResistance : 0;
@@ -151,51 +165,68 @@ function smallLadder(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<
   const H = EIG_H.vectors;
   const L = equal ? H : EIG_L.vectors;
   const d0 = equal ? G_HIGH[0] * span : G_HIGH[0] * vHigh - gLow[0] * vLow;
-  const m = into !== undefined && into.n === n && (into.hi === into.lo) === equal ? (into as MutableModal) : fresh(n, equal);
+  const outLow = gLow[last] * vLow;
+  const outHigh = G_HIGH[last] * vHigh;
+  let mix0: number;
+  let mix1 = 0;
+  let mix2 = 0;
+  let mix3 = 0;
+  let delta0: number;
+  let delta1 = 0;
+  if (n === 1) {
+    mix0 = 0 + L[0] * H[0];
+    delta0 = 0 + H[0] * cs0 * d0;
+  } else {
+    mix0 = 0 + L[0] * H[0] + L[2] * H[2];
+    mix1 = 0 + L[0] * H[1] + L[2] * H[3];
+    mix2 = 0 + L[1] * H[0] + L[3] * H[2];
+    mix3 = 0 + L[1] * H[1] + L[3] * H[3];
+    delta0 = 0 + H[0] * cs0 * d0 + H[2] * cs1 * d1;
+    delta1 = 0 + H[1] * cs0 * d0 + H[3] * cs1 * d1;
+  }
+  const reuse = into !== undefined && into.n === n && into.symmetric && (into.hi === into.lo) === equal;
+  if (!reuse) {
+    // a new object, every field at its final value (no field changes its kind afterwards)
+    const two = n === 2;
+    const hi: PhaseModes = { rate: two ? [EIG_H.values[0], EIG_H.values[1]] : [EIG_H.values[0]], out: two ? [outH0, outH1] : [outH0] };
+    const lo: PhaseModes = equal ? hi : { rate: two ? [EIG_L.values[0], EIG_L.values[1]] : [EIG_L.values[0]], out: two ? [outL0, outL1] : [outL0] };
+    const mix = two ? [mix0, mix1, mix2, mix3] : [mix0];
+    const delta = two ? [delta0, delta1] : [delta0];
+    return { n, period: circuit.period, high: vHigh, low: vLow, symmetric: true, hi, lo, mix, delta, outLow, outHigh, condition: 1 };
+  }
+  const m = into as MutableModal;
   const hi = m.hi as MutablePhase;
   const lo = m.lo as MutablePhase;
   hi.rate[0] = EIG_H.values[0];
   hi.out[0] = outH0;
+  m.mix[0] = mix0;
+  m.delta[0] = delta0;
   if (!equal) {
     lo.rate[0] = EIG_L.values[0];
     lo.out[0] = outL0;
   }
-  if (n === 1) {
-    m.mix[0] = 0 + L[0] * H[0];
-    m.delta[0] = 0 + H[0] * cs0 * d0;
-  } else {
+  if (n === 2) {
     hi.rate[1] = EIG_H.values[1];
     hi.out[1] = outH1;
     if (!equal) {
       lo.rate[1] = EIG_L.values[1];
       lo.out[1] = outL1;
     }
-    m.mix[0] = 0 + L[0] * H[0] + L[2] * H[2];
-    m.mix[1] = 0 + L[0] * H[1] + L[2] * H[3];
-    m.mix[2] = 0 + L[1] * H[0] + L[3] * H[2];
-    m.mix[3] = 0 + L[1] * H[1] + L[3] * H[3];
-    m.delta[0] = 0 + H[0] * cs0 * d0 + H[2] * cs1 * d1;
-    m.delta[1] = 0 + H[1] * cs0 * d0 + H[3] * cs1 * d1;
+    m.mix[1] = mix1;
+    m.mix[2] = mix2;
+    m.mix[3] = mix3;
+    m.delta[1] = delta1;
   }
   m.period = circuit.period;
-  m.symmetric = true;
-  m.condition = 1;
   m.high = vHigh;
   m.low = vLow;
-  m.outLow = gLow[last] * vLow;
-  m.outHigh = G_HIGH[last] * vHigh;
+  m.outLow = outLow;
+  m.outHigh = outHigh;
   return m;
 }
 
 type MutablePhase = { rate: number[]; out: number[] };
 type MutableModal = { -readonly [K in keyof ModalLadder]: ModalLadder[K] } & { mix: number[]; delta: number[] };
-
-/** A modal form of n (1 or 2) stages to fill; both phases one object when the drivers are equal. */
-function fresh(n: number, equal: boolean): MutableModal {
-  const hi: PhaseModes = { rate: zeros(n), out: zeros(n) };
-  const lo: PhaseModes = equal ? hi : { rate: zeros(n), out: zeros(n) };
-  return { n, period: 0, high: 0, low: 0, symmetric: true, hi, lo, mix: zeros(n * n), delta: zeros(n), outLow: 0, outHigh: 0, condition: 1 };
-}
 
 /** Scratch of the order-2 eigenproblems (order 1 uses the first entries). */
 const EIG_H = { values: [0.5, 0.5], vectors: [0.5, 0.5, 0.5, 0.5] };
@@ -219,10 +250,12 @@ function phase(n: number, first: number): { modes: PhaseModes; basis: number[] }
   return { modes: { rate: values, out }, basis: vectors };
 }
 
-// Scratch of one call (single-threaded; each worker has its own module): sqrt C, conductances into
+// Scratch of one call (single-threaded; each worker has its own module): the stages, sqrt C, conductances into
 // each node, the symmetric matrix S, DC gains per volt and Delta in node coordinates. Plain arrays
 // of doubles, as everywhere else symmetricEigen and dividerGain are called, so that their element
 // accesses stay monomorphic.
+let R_S = doubles(4);
+let C_S = doubles(4);
 let CS = doubles(4);
 let G_IN = doubles(5);
 let S = doubles(16);
@@ -237,6 +270,8 @@ function doubles(n: number): number[] {
 }
 
 function grow(n: number): void {
+  R_S = doubles(n);
+  C_S = doubles(n);
   CS = doubles(n);
   G_IN = doubles(n + 1);
   S = doubles(n * n);

@@ -47,7 +47,7 @@ export function settlingLowerBound(
   const err = stepError(m, target, source, ss);
   if (err === null) return 0;
   const { n } = m;
-  const { zeta, logMu, lead, power } = err;
+  const { zeta, logMu, lead } = err;
   const margin = band - Math.max(ss.above, -ss.below, 0);
 
   const coef = zeros(n);
@@ -57,7 +57,7 @@ export function settlingLowerBound(
       err.setFirstPeriod();
       return;
     }
-    for (let j = 0; j < n; j++) coef[j] = zeta[j] * power(j, k);
+    for (let j = 0; j < n; j++) coef[j] = zeta[j] * err.power(j, k);
     err.setModes(coef);
   };
   const leaves = (k: number): boolean => {

@@ -80,10 +80,8 @@ export interface StepError {
  */
 export function stepError(m: ModalLadder, target: PeriodicState, source: PeriodicState, ss: SteadyError): StepError | null {
   if (!m.symmetric) throw new RangeError('stepError: the period map needs a follower-free ladder (orthogonal mix)');
-  const { n, period, hi, lo, mix } = m;
+  const { n, hi, lo, mix } = m;
   const { t1, t2 } = target;
-  const ssHigh = ss.high;
-  const ssLow = ss.low;
   const e0 = zeros(n);
   let moved = false;
   for (let i = 0; i < n; i++) {
@@ -112,26 +110,11 @@ export function stepError(m: ModalLadder, target: PeriodicState, source: Periodi
     }
   }
   const { values: nu, vectors: Z } = symmetricEigen(N, n, { vectors: true });
-  const logMu = zeros(n);
-  for (let j = 0; j < n; j++) logMu[j] = nu[j] > -1 ? Math.log1p(nu[j]) : -Infinity;
 
-  // Output weights (per rate i) of a state w given in high-phase modal coordinates, in each phase.
-  const highWeights = (w: number[], out: number[]) => {
-    for (let i = 0; i < n; i++) out[i] = hi.out[i] * w[i];
-  };
-  const lowWeights = (w: number[], out: number[]) => {
-    for (let i = 0; i < n; i++) {
-      let s = 0; // low-phase coordinates of the state at the end of the high phase
-      for (let k = 0; k < n; k++) s += mix[i * n + k] * half[k] * half[k] * w[k];
-      out[i] = lo.out[i] * s;
-    }
-  };
-  // etaHigh[j * n + i], etaLow[j * n + i]: output weight i of r_j in each phase.
-  const zeta = zeros(n);
-  const etaHigh = zeros(n * n);
-  const etaLow = zeros(n * n);
-  const bound = zeros(n);
-  const lead = zeros(n);
+  // etaHigh[j * n + i], etaLow[j * n + i]: output weight i (per rate) of r_j in each phase.
+  const err = new PeriodError(m, t1, t2, ss, e0, half);
+  const { zeta, logMu, etaHigh, etaLow, bound, lead } = err;
+  for (let j = 0; j < n; j++) logMu[j] = nu[j] > -1 ? Math.log1p(nu[j]) : -Infinity;
   const r = zeros(n);
   const xr = zeros(n);
   const wh = zeros(n);
@@ -151,8 +134,8 @@ export function stepError(m: ModalLadder, target: PeriodicState, source: Periodi
       for (let k = 0; k < n; k++) s += mix[k * n + i] * xr[k];
       r[i] = s;
     }
-    highWeights(r, wh);
-    lowWeights(r, wl);
+    err.highWeights(r, wh);
+    err.lowWeights(r, wl);
     let sumHigh = 0;
     let sumLow = 0;
     let sum = 0;
@@ -166,70 +149,118 @@ export function stepError(m: ModalLadder, target: PeriodicState, source: Periodi
     bound[j] = Math.max(sumHigh, sumLow);
     lead[j] = sum;
   }
+  return err;
+}
 
-  // Error curves of one period from the output weights bh, bl of its starting state; the two
-  // curve objects are refilled for each period examined.
-  const errHigh: PhaseCurve = { offset: 0, gain: zeros(n), rate: hi.rate, length: t1 };
-  const errLow: PhaseCurve = { offset: 0, gain: zeros(n), rate: lo.rate, length: t2 };
-  const bh = zeros(n);
-  const bl = zeros(n);
-  const fillHigh = () => {
-    let o = ssHigh.offset;
+/**
+ * The StepError of stepError: the period map's modes and output weights, and the two error curves
+ * of the period last set, refilled for each period examined.
+ */
+class PeriodError implements StepError {
+  readonly n: number;
+  readonly zeta: number[];
+  readonly logMu: number[];
+  readonly bound: number[];
+  readonly lead: number[];
+  readonly etaHigh: number[];
+  readonly etaLow: number[];
+  private readonly m: ModalLadder;
+  private readonly t1: number;
+  private readonly ss: SteadyError;
+  private readonly e0: number[];
+  private readonly half: number[];
+  private readonly errHigh: PhaseCurve;
+  private readonly errLow: PhaseCurve;
+  /** Output weights of the starting state of the period set, per rate, in each phase. */
+  private readonly bh: number[];
+  private readonly bl: number[];
+
+  constructor(m: ModalLadder, t1: number, t2: number, ss: SteadyError, e0: number[], half: number[]) {
+    const n = m.n;
+    this.n = n;
+    this.m = m;
+    this.t1 = t1;
+    this.ss = ss;
+    this.e0 = e0;
+    this.half = half;
+    this.zeta = zeros(n);
+    this.logMu = zeros(n);
+    this.bound = zeros(n);
+    this.lead = zeros(n);
+    this.etaHigh = zeros(n * n);
+    this.etaLow = zeros(n * n);
+    this.errHigh = { offset: ss.high.offset, gain: ss.high.gain.slice(), rate: m.hi.rate, length: t1 };
+    this.errLow = { offset: ss.low.offset, gain: ss.low.gain.slice(), rate: m.lo.rate, length: t2 };
+    this.bh = zeros(n);
+    this.bl = zeros(n);
+  }
+
+  power(j: number, k: number): number {
+    return k === 1 ? 1 : Math.exp((k - 1) * this.logMu[j]);
+  }
+
+  /** Output weights (per rate i) of a state w given in high-phase modal coordinates: high phase. */
+  highWeights(w: number[], out: number[]): void {
+    const { n, hi } = this.m;
+    for (let i = 0; i < n; i++) out[i] = hi.out[i] * w[i];
+  }
+
+  /** The same in the low phase (from the state at the end of the high phase). */
+  lowWeights(w: number[], out: number[]): void {
+    const { n, lo, mix } = this.m;
+    const half = this.half;
     for (let i = 0; i < n; i++) {
-      errHigh.gain[i] = ssHigh.gain[i] + bh[i];
-      o += bh[i];
+      let s = 0; // low-phase coordinates of the state at the end of the high phase
+      for (let k = 0; k < n; k++) s += mix[i * n + k] * half[k] * half[k] * w[k];
+      out[i] = lo.out[i] * s;
     }
-    errHigh.offset = o;
-  };
-  const fillLow = () => {
-    let o = ssLow.offset;
+  }
+
+  setFirstPeriod(): void {
+    this.highWeights(this.e0, this.bh);
+    this.lowWeights(this.e0, this.bl);
+  }
+
+  setModes(c: readonly number[]): void {
+    const { n, etaHigh, etaLow, bh, bl } = this;
     for (let i = 0; i < n; i++) {
-      errLow.gain[i] = ssLow.gain[i] + bl[i];
-      o += bl[i];
-    }
-    errLow.offset = o;
-  };
-  return {
-    n,
-    zeta,
-    logMu,
-    bound,
-    lead,
-    power: (j, k) => (k === 1 ? 1 : Math.exp((k - 1) * logMu[j])),
-    setFirstPeriod: () => {
-      highWeights(e0, bh);
-      lowWeights(e0, bl);
-    },
-    setModes: (c) => {
-      for (let i = 0; i < n; i++) {
-        let h = 0;
-        let l = 0;
-        for (let j = 0; j < n; j++) {
-          h += c[j] * etaHigh[j * n + i];
-          l += c[j] * etaLow[j * n + i];
-        }
-        bh[i] = h;
-        bl[i] = l;
+      let h = 0;
+      let l = 0;
+      for (let j = 0; j < n; j++) {
+        h += c[j] * etaHigh[j * n + i];
+        l += c[j] * etaLow[j * n + i];
       }
-    },
-    // the low phase first: in a violating period it is usually the one that leaves
-    leaves: (band, slack) => {
-      fillLow();
-      const xl = curveExtrema(errLow);
-      if (xl.max + slack > band || xl.min - slack < -band) return true;
-      fillHigh();
-      const xh = curveExtrema(errHigh);
-      return xh.max + slack > band || xh.min - slack < -band;
-    },
-    lastExit: (k, band) => {
-      fillLow();
-      const inLow = curveLastExit(errLow, band, period);
-      if (inLow >= 0) return k * period + t1 + inLow;
-      fillHigh();
-      const inHigh = curveLastExit(errHigh, band, period);
-      return k * period + Math.max(inHigh, 0);
-    },
-  };
+      bh[i] = h;
+      bl[i] = l;
+    }
+  }
+
+  // the low phase first: in a violating period it is usually the one that leaves
+  leaves(band: number, slack: number): boolean {
+    const xl = curveExtrema(this.fill(this.errLow, this.ss.low, this.bl));
+    if (xl.max + slack > band || xl.min - slack < -band) return true;
+    const xh = curveExtrema(this.fill(this.errHigh, this.ss.high, this.bh));
+    return xh.max + slack > band || xh.min - slack < -band;
+  }
+
+  lastExit(k: number, band: number): number {
+    const period = this.m.period;
+    const inLow = curveLastExit(this.fill(this.errLow, this.ss.low, this.bl), band, period);
+    if (inLow >= 0) return k * period + this.t1 + inLow;
+    const inHigh = curveLastExit(this.fill(this.errHigh, this.ss.high, this.bh), band, period);
+    return k * period + Math.max(inHigh, 0);
+  }
+
+  /** The error curve of one phase: the steady one plus the output weights b. */
+  private fill(err: PhaseCurve, steady: PhaseCurve, b: number[]): PhaseCurve {
+    let o = steady.offset;
+    for (let i = 0; i < this.n; i++) {
+      err.gain[i] = steady.gain[i] + b[i];
+      o += b[i];
+    }
+    err.offset = o;
+    return err;
+  }
 }
 
 /** The time in [0, length] after which |curve| stays within band, or -1 if it never leaves it. */
