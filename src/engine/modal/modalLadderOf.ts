@@ -31,8 +31,8 @@ import type { ModalLadder, PhaseModes } from './modalTypes.js';
  * Example: modalLadderOf(circuit, [4700, 47e3], [1e-6, 10e-9]).hi.rate  // two rates, 1/s, fastest first
  */
 export function modalLadderOf(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>, into?: ModalLadder): ModalLadder {
-  const n = load(r, c);
-  return n === 1 || n === 2 ? smallLadder(circuit, n, into) : anyOrder(circuit, n);
+  const n = load(circuit, r, c);
+  return n === 1 || n === 2 ? smallLadder(n, into) : anyOrder(n);
 }
 
 /**
@@ -43,14 +43,17 @@ export function modalLadderOf(circuit: LadderCircuit, r: ArrayLike<number>, c: A
  * Example: modalLadderOfAnyOrder(circuit, [4700, 47e3], [1e-6, 10e-9])  // equal to modalLadderOf(circuit, ...)
  */
 export function modalLadderOfAnyOrder(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>): ModalLadder {
-  return anyOrder(circuit, load(r, c));
+  return anyOrder(load(circuit, r, c));
 }
 
-/** The general construction from the stages in R_S, C_S. */
-function anyOrder(circuit: LadderCircuit, n: number): ModalLadder {
+/** The general construction from the circuit and stages load() put in scratch. */
+function anyOrder(n: number): ModalLadder {
   const r = R_S;
   const c = C_S;
-  const { loadResistance, loadCapacitance, driverHigh, driverLow } = circuit;
+  const loadResistance = K_LOAD_R;
+  const loadCapacitance = K_LOAD_C;
+  const driverHigh = K_DRIVER_HIGH;
+  const driverLow = K_DRIVER_LOW;
   for (let k = 0; k < n; k++) CS[k] = Math.sqrt(c[k] + (k === n - 1 ? loadCapacitance : 0));
   // Conductance into node k from the node before (node 0: from the pin through driver + R1).
   for (let k = 1; k < n; k++) G_IN[k] = 1 / r[k];
@@ -66,12 +69,12 @@ function anyOrder(circuit: LadderCircuit, n: number): ModalLadder {
     for (let k = 0; k < n; k++) G_LOW[k] = 1;
     if (loadResistance !== null) dividerGain(r, 0, n - 1, loadResistance, driverLow, 1, G_LOW);
   }
-  const span = circuit.high - circuit.low;
-  for (let j = 0; j < n; j++) DC_DELTA[j] = equal ? G_HIGH[j] * span : G_HIGH[j] * circuit.high - gLow[j] * circuit.low;
+  const span = K_HIGH - K_LOW;
+  for (let j = 0; j < n; j++) DC_DELTA[j] = equal ? G_HIGH[j] * span : G_HIGH[j] * K_HIGH - gLow[j] * K_LOW;
   const hb = high.basis;
   const lb = low.basis;
-  const mix = zeros(n * n);
-  const delta = zeros(n);
+  const mix = doubles(n * n);
+  const delta = doubles(n);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       let s = 0;
@@ -82,25 +85,33 @@ function anyOrder(circuit: LadderCircuit, n: number): ModalLadder {
   }
   return {
     n,
-    period: circuit.period,
-    high: circuit.high,
-    low: circuit.low,
+    period: K_PERIOD,
+    high: K_HIGH,
+    low: K_LOW,
     symmetric: true,
     hi: high.modes,
     lo: low.modes,
     mix,
     delta,
-    outLow: gLow[n - 1] * circuit.low,
-    outHigh: G_HIGH[n - 1] * circuit.high,
+    outLow: gLow[n - 1] * K_LOW,
+    outHigh: G_HIGH[n - 1] * K_HIGH,
     condition: 1,
   };
 }
 
 /**
- * Check the stages and copy them into R_S, C_S (whatever kind of array the caller has, the
- * construction reads one); returns their number.
+ * Check the stages and copy them into R_S, C_S, and the circuit into the K_ scalars: circuits and
+ * arrays come in several shapes (a search's side problems), and only this small function sees
+ * them. Returns the number of stages.
  */
-function load(r: ArrayLike<number>, c: ArrayLike<number>): number {
+function load(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>): number {
+  K_PERIOD = circuit.period;
+  K_HIGH = circuit.high;
+  K_LOW = circuit.low;
+  K_DRIVER_HIGH = circuit.driverHigh;
+  K_DRIVER_LOW = circuit.driverLow;
+  K_LOAD_R = circuit.loadResistance;
+  K_LOAD_C = circuit.loadCapacitance;
   const n = r.length;
   if (CS.length < n) grow(n);
   for (let k = 0; k < n; k++) {
@@ -116,10 +127,15 @@ function load(r: ArrayLike<number>, c: ArrayLike<number>): number {
  * construction, in its order (sums started from 0 as there), without its loops and scratch arrays;
  * written into `into` when it fits (same stage count, phases shared exactly when the drivers are equal).
  */
-function smallLadder(circuit: LadderCircuit, n: number, into?: ModalLadder): ModalLadder {
+function smallLadder(n: number, into?: ModalLadder): ModalLadder {
   const r = R_S;
   const c = C_S;
-  const { loadResistance, loadCapacitance, driverHigh, driverLow, high: vHigh, low: vLow } = circuit;
+  const loadResistance = K_LOAD_R;
+  const loadCapacitance = K_LOAD_C;
+  const driverHigh = K_DRIVER_HIGH;
+  const driverLow = K_DRIVER_LOW;
+  const vHigh = K_HIGH;
+  const vLow = K_LOW;
   const equal = driverHigh === driverLow;
   const gLoad = loadResistance !== null ? 1 / loadResistance : 0;
   // DC gains per volt of the pin (circuit/dcGain.ts), into G_HIGH and G_LOW
@@ -188,11 +204,11 @@ function smallLadder(circuit: LadderCircuit, n: number, into?: ModalLadder): Mod
   if (!reuse) {
     // a new object, every field at its final value (no field changes its kind afterwards)
     const two = n === 2;
-    const hi: PhaseModes = { rate: two ? [EIG_H.values[0], EIG_H.values[1]] : [EIG_H.values[0]], out: two ? [outH0, outH1] : [outH0] };
-    const lo: PhaseModes = equal ? hi : { rate: two ? [EIG_L.values[0], EIG_L.values[1]] : [EIG_L.values[0]], out: two ? [outL0, outL1] : [outL0] };
-    const mix = two ? [mix0, mix1, mix2, mix3] : [mix0];
-    const delta = two ? [delta0, delta1] : [delta0];
-    return { n, period: circuit.period, high: vHigh, low: vLow, symmetric: true, hi, lo, mix, delta, outLow, outHigh, condition: 1 };
+    const hi: PhaseModes = { rate: two ? pair(EIG_H.values[0], EIG_H.values[1]) : one(EIG_H.values[0]), out: two ? pair(outH0, outH1) : one(outH0) };
+    const lo: PhaseModes = equal ? hi : { rate: two ? pair(EIG_L.values[0], EIG_L.values[1]) : one(EIG_L.values[0]), out: two ? pair(outL0, outL1) : one(outL0) };
+    const mix = two ? four(mix0, mix1, mix2, mix3) : one(mix0);
+    const delta = two ? pair(delta0, delta1) : one(delta0);
+    return { n, period: K_PERIOD, high: vHigh, low: vLow, symmetric: true, hi, lo, mix, delta, outLow, outHigh, condition: 1 };
   }
   const m = into as MutableModal;
   const hi = m.hi as MutablePhase;
@@ -217,12 +233,34 @@ function smallLadder(circuit: LadderCircuit, n: number, into?: ModalLadder): Mod
     m.mix[3] = mix3;
     m.delta[1] = delta1;
   }
-  m.period = circuit.period;
+  m.period = K_PERIOD;
   m.high = vHigh;
   m.low = vLow;
   m.outLow = outLow;
   m.outHigh = outHigh;
   return m;
+}
+
+// Arrays of the modal form hold unboxed doubles whatever their values (a mix of exactly [1] stays
+// a double array): every consumer then sees one kind of array.
+function one(a: number): number[] {
+  const v = [0.5];
+  v[0] = a;
+  return v;
+}
+function pair(a: number, b: number): number[] {
+  const v = [0.5, 0.5];
+  v[0] = a;
+  v[1] = b;
+  return v;
+}
+function four(a: number, b: number, c: number, d: number): number[] {
+  const v = [0.5, 0.5, 0.5, 0.5];
+  v[0] = a;
+  v[1] = b;
+  v[2] = c;
+  v[3] = d;
+  return v;
 }
 
 type MutablePhase = { rate: number[]; out: number[] };
@@ -245,7 +283,7 @@ function phase(n: number, first: number): { modes: PhaseModes; basis: number[] }
     }
   }
   const { values, vectors } = symmetricEigen(S, n, { vectors: true });
-  const out = zeros(n);
+  const out = doubles(n);
   for (let i = 0; i < n; i++) out[i] = vectors[(n - 1) * n + i] / CS[n - 1];
   return { modes: { rate: values, out }, basis: vectors };
 }
@@ -254,6 +292,13 @@ function phase(n: number, first: number): { modes: PhaseModes; basis: number[] }
 // each node, the symmetric matrix S, DC gains per volt and Delta in node coordinates. Plain arrays
 // of doubles, as everywhere else symmetricEigen and dividerGain are called, so that their element
 // accesses stay monomorphic.
+let K_PERIOD = 0;
+let K_HIGH = 0;
+let K_LOW = 0;
+let K_DRIVER_HIGH = 0;
+let K_DRIVER_LOW = 0;
+let K_LOAD_R: number | null = null;
+let K_LOAD_C = 0;
 let R_S = doubles(4);
 let C_S = doubles(4);
 let CS = doubles(4);
@@ -263,9 +308,11 @@ let G_HIGH = doubles(4);
 let G_LOW = doubles(4);
 let DC_DELTA = doubles(4);
 
+/** n zeros in an array of unboxed doubles (zeros() gives small integers until a double is written). */
 function doubles(n: number): number[] {
   const v = zeros(n);
-  for (let i = 0; i < n; i++) v[i] = 0.5; // a double: the array is stored unboxed from the start
+  for (let i = 0; i < n; i++) v[i] = 0.5; // a double turns the array into one of doubles, for good
+  for (let i = 0; i < n; i++) v[i] = 0;
   return v;
 }
 
