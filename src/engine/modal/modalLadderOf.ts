@@ -1,4 +1,5 @@
-import { zeros } from '../../numeric/dense.js';
+import './doubleFields.js';
+import { doubles } from '../../numeric/dense.js';
 import type { LadderCircuit } from '../../circuit/ladder.js';
 import { dividerGain } from '../../circuit/dcGain.js';
 import { symmetricEigen, symmetricEigen2 } from '../../numeric/symmetricEigen.js';
@@ -308,13 +309,6 @@ let G_HIGH = doubles(4);
 let G_LOW = doubles(4);
 let DC_DELTA = doubles(4);
 
-/** n zeros in an array of unboxed doubles (zeros() gives small integers until a double is written). */
-function doubles(n: number): number[] {
-  const v = zeros(n);
-  for (let i = 0; i < n; i++) v[i] = 0.5; // a double turns the array into one of doubles, for good
-  for (let i = 0; i < n; i++) v[i] = 0;
-  return v;
-}
 
 function grow(n: number): void {
   R_S = doubles(n);

@@ -1,4 +1,5 @@
-import { zeros } from '../../numeric/dense.js';
+import './doubleFields.js';
+import { doubles, zeros } from '../../numeric/dense.js';
 import { solveLinear } from '../../numeric/lu.js';
 import { phi2 } from '../../numeric/phi.js';
 import type { ModalLadder } from './modalLadder.js';
@@ -126,8 +127,15 @@ export function periodicState(m: ModalLadder, duty: number): PeriodicState {
     yStart,
     meanOffset,
     average: yStart + meanOffset,
-    high: { offset: 0, gain: aHigh.map((a) => -a), rate: hi.rate, length: t1 },
-    low: { offset: yEnd, gain: aLow.map((a) => -a), rate: lo.rate, length: t2 },
+    high: { offset: 0, gain: negated(aHigh), rate: hi.rate, length: t1 },
+    low: { offset: yEnd, gain: negated(aLow), rate: lo.rate, length: t2 },
   };
 }
 
+
+/** -a in a new array of doubles (whatever the values: every phase curve's gains are one kind of array). */
+function negated(a: number[]): number[] {
+  const out = doubles(a.length);
+  for (let i = 0; i < a.length; i++) out[i] = -a[i];
+  return out;
+}

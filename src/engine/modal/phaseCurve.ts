@@ -1,3 +1,4 @@
+import './doubleFields.js';
 import { zeros } from '../../numeric/dense.js';
 import { expSumRoots } from '../../numeric/expSumRoots.js';
 

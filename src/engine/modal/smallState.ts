@@ -1,3 +1,4 @@
+import './doubleFields.js';
 import { solveTwoByTwo } from '../../numeric/lu.js';
 import { phi2 } from '../../numeric/phi.js';
 import type { ModalLadder } from './modalLadder.js';

@@ -1,3 +1,4 @@
+import './doubleFields.js';
 import type { ModalLadder } from './modalLadder.js';
 import { periodicState, type PeriodicState } from './periodicState.js';
 import { curveExtrema } from './phaseCurve.js';

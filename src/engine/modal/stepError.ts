@@ -1,3 +1,4 @@
+import './doubleFields.js';
 import { zeros } from '../../numeric/dense.js';
 import { brentRoot } from '../../numeric/brentRoot.js';
 import { symmetricEigen } from '../../numeric/symmetricEigen.js';
