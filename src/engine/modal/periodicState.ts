@@ -42,11 +42,15 @@ export interface PeriodicState {
  * taken from the DC state that needs the smaller correction (x_l + u below duty 1/2, x_h - v above),
  * as in dutyPlan.ts.
  *
- * Syntax: periodicState(modal, duty)
+ * With `into`, a state from an earlier call on a ladder of as many stages, one and two stages are
+ * written into it (arrays and curves included) and it is returned: a search that keeps a few
+ * states per candidate allocates nothing per candidate. Other orders ignore it.
+ *
+ * Syntax: periodicState(modal, duty[, into])
  * Example: periodicState(modalLadder(ladder)!, 0.5).average  // V
  */
-export function periodicState(m: ModalLadder, duty: number): PeriodicState {
-  return m.n <= 2 ? smallPeriodicState(m, duty) : periodicStateAnyOrder(m, duty);
+export function periodicState(m: ModalLadder, duty: number, into?: PeriodicState): PeriodicState {
+  return m.n <= 2 ? smallPeriodicState(m, duty, into !== undefined && into.start.length === m.n ? into : undefined) : periodicStateAnyOrder(m, duty);
 }
 
 /**
@@ -149,7 +153,7 @@ export function periodicStateAnyOrder(m: ModalLadder, duty: number): PeriodicSta
  * partial pivoting, operation for operation), without its work arrays: only the result is
  * allocated. The design search asks for two states per candidate it bounds the settling of.
  */
-function smallPeriodicState(m: ModalLadder, duty: number): PeriodicState {
+function smallPeriodicState(m: ModalLadder, duty: number, into?: PeriodicState): PeriodicState {
   const { period, hi, lo, mix, delta } = m;
   const two = m.n === 2;
   const t1 = duty * period;
@@ -242,6 +246,31 @@ function smallPeriodicState(m: ModalLadder, duty: number): PeriodicState {
   }
   const meanOffset = integral / period;
   const yStart = duty > 0.5 ? m.outHigh - fromHigh : m.outLow + fromLow;
+  if (into !== undefined) {
+    const high = into.high as Curve;
+    const low = into.low as Curve;
+    into.duty = duty;
+    into.t1 = t1;
+    into.t2 = t2;
+    into.start[0] = u0;
+    high.gain[0] = -aHigh0;
+    low.gain[0] = -aLow0;
+    if (two) {
+      into.start[1] = u1;
+      high.gain[1] = -aHigh1;
+      low.gain[1] = -aLow1;
+    }
+    into.yStart = yStart;
+    into.meanOffset = meanOffset;
+    into.average = yStart + meanOffset;
+    high.offset = 0;
+    high.rate = hi.rate;
+    high.length = t1;
+    low.offset = yEnd;
+    low.rate = lo.rate;
+    low.length = t2;
+    return into;
+  }
   const start = two ? [0.5, 0.5] : [0.5];
   const gainHigh = two ? [0.5, 0.5] : [0.5];
   const gainLow = two ? [0.5, 0.5] : [0.5];
@@ -265,6 +294,9 @@ function smallPeriodicState(m: ModalLadder, duty: number): PeriodicState {
     low: { offset: yEnd, gain: gainLow, rate: lo.rate, length: t2 },
   };
 }
+
+/** A phase curve whose every field may be set. */
+type Curve = { offset: number; gain: number[]; rate: readonly number[]; length: number };
 
 /** -a in a new array of doubles (whatever the values: every phase curve's gains are one kind of array). */
 function negated(a: number[]): number[] {
