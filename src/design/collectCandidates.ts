@@ -211,28 +211,32 @@ export function collectCandidates(
   // the candidate's steady states by duty (its checks below, the INL grid, the droop grid and the
   // settling steps share duties): the figures of the cheap checks, and the full state for settling.
   let lastR: number[] = [];
-  let lastC: number[] = [];
+  const lastC: number[] = [];
   let model: ModalLadder | null = null;
-  // (fresh arrays per candidate: young objects pointing at young objects are the cheapest to collect)
+  // Valid for slots 0..slots-1; the objects of earlier candidates are kept by slot (pools) and the
+  // engine writes the next candidate's figures into them: no allocation per candidate.
   let slots = 0;
-  let steadyDuty: number[] = [];
-  let steadyOf: Array<PeriodicState | null> = [];
-  let swingOf: Array<SteadySwing | null> = [];
+  const steadyDuty: number[] = [];
+  const steadyOf: Array<PeriodicState | null> = [];
+  const swingOf: Array<SteadySwing | null> = [];
+  const steadyPool: Array<PeriodicState | undefined> = [];
+  const swingPool: Array<SteadySwing | undefined> = [];
   const sameAs = (x: number[], y: number[]) => {
     if (x.length !== y.length) return false;
     for (let k = 0; k < x.length; k++) if (x[k] !== y[k]) return false;
     return true;
   };
+  const copyInto = (to: number[], from: number[]) => {
+    to.length = from.length;
+    for (let k = 0; k < from.length; k++) to[k] = from[k];
+  };
   const use = (rs: number[], cs: number[]): ModalLadder => {
     if (model === null || !sameAs(rs, lastR) || !sameAs(cs, lastC)) {
       lastR = rs;
-      lastC = cs.slice();
+      copyInto(lastC, cs);
       // one and two stages: written over the last candidate's model (its states go with it)
       model = modalLadderOf(problem.circuit, rs, cs, model ?? undefined);
       slots = 0;
-      steadyDuty = [];
-      steadyOf = [];
-      swingOf = [];
     }
     return model;
   };
@@ -247,21 +251,21 @@ export function collectCandidates(
   /** Periodic state of the model last used at a duty (computed once). */
   const steady = (d: number): PeriodicState => {
     const k = slot(d);
-    return (steadyOf[k] ??= periodicState(model!, d));
+    return (steadyOf[k] ??= steadyPool[k] = periodicState(model!, d, steadyPool[k]));
   };
   /** Steady-state figures of the model last used at a duty (computed once): scalar code for one and two stages. */
   const swing = (d: number): SteadySwing => {
     const k = slot(d);
-    return (swingOf[k] ??= stages <= 2 ? steadySwing(model!, d) : steadySwing(model!, d, steady(d)));
+    return (swingOf[k] ??= swingPool[k] = stages <= 2 ? steadySwing(model!, d, undefined, swingPool[k]) : steadySwing(model!, d, steady(d), swingPool[k]));
   };
 
   // Count each candidate the fast model looks at once (consecutive looks are at the same candidate).
   let seenR: number[] = [];
-  let seenC: number[] = [];
+  const seenC: number[] = [];
   const touch = (rs: number[], cs: number[]) => {
     if (sameAs(rs, seenR) && sameAs(cs, seenC)) return;
     seenR = rs;
-    seenC = cs.slice();
+    copyInto(seenC, cs);
     state.evaluated++;
   };
 
