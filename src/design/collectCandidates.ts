@@ -227,7 +227,7 @@ export function collectCandidates(
     return true;
   };
   const copyInto = (to: number[], from: number[]) => {
-    to.length = from.length;
+    if (to.length !== from.length) to.length = from.length;
     for (let k = 0; k < from.length; k++) to[k] = from[k];
   };
   const use = (rs: number[], cs: number[]): ModalLadder => {

@@ -51,10 +51,10 @@ export function modalLadderOfAnyOrder(circuit: LadderCircuit, r: ArrayLike<numbe
 function anyOrder(n: number): ModalLadder {
   const r = R_S;
   const c = C_S;
-  const loadResistance = K_LOAD_R;
-  const loadCapacitance = K_LOAD_C;
-  const driverHigh = K_DRIVER_HIGH;
-  const driverLow = K_DRIVER_LOW;
+  const loadResistance = K_OPEN ? null : K[LOAD_R];
+  const loadCapacitance = K[LOAD_C];
+  const driverHigh = K[DRIVER_HIGH];
+  const driverLow = K[DRIVER_LOW];
   for (let k = 0; k < n; k++) CS[k] = Math.sqrt(c[k] + (k === n - 1 ? loadCapacitance : 0));
   // Conductance into node k from the node before (node 0: from the pin through driver + R1).
   for (let k = 1; k < n; k++) G_IN[k] = 1 / r[k];
@@ -70,8 +70,8 @@ function anyOrder(n: number): ModalLadder {
     for (let k = 0; k < n; k++) G_LOW[k] = 1;
     if (loadResistance !== null) dividerGain(r, 0, n - 1, loadResistance, driverLow, 1, G_LOW);
   }
-  const span = K_HIGH - K_LOW;
-  for (let j = 0; j < n; j++) DC_DELTA[j] = equal ? G_HIGH[j] * span : G_HIGH[j] * K_HIGH - gLow[j] * K_LOW;
+  const span = K[HIGH] - K[LOW];
+  for (let j = 0; j < n; j++) DC_DELTA[j] = equal ? G_HIGH[j] * span : G_HIGH[j] * K[HIGH] - gLow[j] * K[LOW];
   const hb = high.basis;
   const lb = low.basis;
   const mix = doubles(n * n);
@@ -86,33 +86,34 @@ function anyOrder(n: number): ModalLadder {
   }
   return {
     n,
-    period: K_PERIOD,
-    high: K_HIGH,
-    low: K_LOW,
+    period: K[PERIOD],
+    high: K[HIGH],
+    low: K[LOW],
     symmetric: true,
     hi: high.modes,
     lo: low.modes,
     mix,
     delta,
-    outLow: gLow[n - 1] * K_LOW,
-    outHigh: G_HIGH[n - 1] * K_HIGH,
+    outLow: gLow[n - 1] * K[LOW],
+    outHigh: G_HIGH[n - 1] * K[HIGH],
     condition: 1,
   };
 }
 
 /**
- * Check the stages and copy them into R_S, C_S, and the circuit into the K_ scalars: circuits and
+ * Check the stages and copy them into R_S, C_S, and the circuit into K: circuits and
  * arrays come in several shapes (a search's side problems), and only this small function sees
  * them. Returns the number of stages.
  */
 function load(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>): number {
-  K_PERIOD = circuit.period;
-  K_HIGH = circuit.high;
-  K_LOW = circuit.low;
-  K_DRIVER_HIGH = circuit.driverHigh;
-  K_DRIVER_LOW = circuit.driverLow;
-  K_LOAD_R = circuit.loadResistance;
-  K_LOAD_C = circuit.loadCapacitance;
+  K[PERIOD] = circuit.period;
+  K[HIGH] = circuit.high;
+  K[LOW] = circuit.low;
+  K[DRIVER_HIGH] = circuit.driverHigh;
+  K[DRIVER_LOW] = circuit.driverLow;
+  K_OPEN = circuit.loadResistance === null;
+  K[LOAD_R] = circuit.loadResistance ?? 0;
+  K[LOAD_C] = circuit.loadCapacitance;
   const n = r.length;
   if (CS.length < n) grow(n);
   for (let k = 0; k < n; k++) {
@@ -131,12 +132,12 @@ function load(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>
 function smallLadder(n: number, into?: ModalLadder): ModalLadder {
   const r = R_S;
   const c = C_S;
-  const loadResistance = K_LOAD_R;
-  const loadCapacitance = K_LOAD_C;
-  const driverHigh = K_DRIVER_HIGH;
-  const driverLow = K_DRIVER_LOW;
-  const vHigh = K_HIGH;
-  const vLow = K_LOW;
+  const loadResistance = K_OPEN ? null : K[LOAD_R];
+  const loadCapacitance = K[LOAD_C];
+  const driverHigh = K[DRIVER_HIGH];
+  const driverLow = K[DRIVER_LOW];
+  const vHigh = K[HIGH];
+  const vLow = K[LOW];
   const equal = driverHigh === driverLow;
   const gLoad = loadResistance !== null ? 1 / loadResistance : 0;
   // DC gains per volt of the pin (circuit/dcGain.ts), into G_HIGH and G_LOW
@@ -209,7 +210,7 @@ function smallLadder(n: number, into?: ModalLadder): ModalLadder {
     const lo: PhaseModes = equal ? hi : { rate: two ? pair(EIG_L.values[0], EIG_L.values[1]) : one(EIG_L.values[0]), out: two ? pair(outL0, outL1) : one(outL0) };
     const mix = two ? four(mix0, mix1, mix2, mix3) : one(mix0);
     const delta = two ? pair(delta0, delta1) : one(delta0);
-    return { n, period: K_PERIOD, high: vHigh, low: vLow, symmetric: true, hi, lo, mix, delta, outLow, outHigh, condition: 1 };
+    return { n, period: K[PERIOD], high: vHigh, low: vLow, symmetric: true, hi, lo, mix, delta, outLow, outHigh, condition: 1 };
   }
   const m = into as MutableModal;
   const hi = m.hi as MutablePhase;
@@ -234,7 +235,7 @@ function smallLadder(n: number, into?: ModalLadder): ModalLadder {
     m.mix[3] = mix3;
     m.delta[1] = delta1;
   }
-  m.period = K_PERIOD;
+  m.period = K[PERIOD];
   m.high = vHigh;
   m.low = vLow;
   m.outLow = outLow;
@@ -293,13 +294,17 @@ function phase(n: number, first: number): { modes: PhaseModes; basis: number[] }
 // each node, the symmetric matrix S, DC gains per volt and Delta in node coordinates. Plain arrays
 // of doubles, as everywhere else symmetricEigen and dividerGain are called, so that their element
 // accesses stay monomorphic.
-let K_PERIOD = 0;
-let K_HIGH = 0;
-let K_LOW = 0;
-let K_DRIVER_HIGH = 0;
-let K_DRIVER_LOW = 0;
-let K_LOAD_R: number | null = null;
-let K_LOAD_C = 0;
+// The circuit's numbers in a typed array (a module-level number variable would box each double
+// stored into it: an allocation per field per call), and whether the output is open.
+const PERIOD = 0;
+const HIGH = 1;
+const LOW = 2;
+const DRIVER_HIGH = 3;
+const DRIVER_LOW = 4;
+const LOAD_R = 5;
+const LOAD_C = 6;
+const K = new Float64Array(7);
+let K_OPEN = true;
 let R_S = doubles(4);
 let C_S = doubles(4);
 let CS = doubles(4);

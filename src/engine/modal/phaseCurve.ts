@@ -104,6 +104,18 @@ export function curveExtremaInto(c: PhaseCurve, out: CurveExtrema): CurveExtrema
 }
 
 /**
+ * The one turning point a curve of at most two terms can have inside (0, length), or -1 (none, or
+ * one term): curveTurningPoints without an array, for callers that examine many curves.
+ *
+ * Syntax: smallTurningPoint(curve)
+ * Example: smallTurningPoint({ offset: 0, gain: [1, -3], rate: [-1, -2], length: 5 })  // ln(6) s
+ */
+export function smallTurningPoint(c: PhaseCurve): number {
+  if (c.gain.length !== 2 || !(c.length > 0)) return -1;
+  return twoTermTurningPoint(c);
+}
+
+/**
  * The turning point of a two-term curve inside (0, length), or -1: the root of
  * g0 r0 e^(r0 t) + g1 r1 e^(r1 t), t = ln(-g1 r1 / (g0 r0)) / (r0 - r1) (closed form; rates distinct).
  */

@@ -4,7 +4,7 @@ import { brentRoot } from '../../numeric/brentRoot.js';
 import { symmetricEigen, symmetricEigen2, type SymmetricEigen } from '../../numeric/symmetricEigen.js';
 import type { ModalLadder } from './modalLadder.js';
 import type { PeriodicState } from './periodicState.js';
-import { curveExtremaInto, curveTurningPoints, curveValue, type CurveExtrema, type PhaseCurve } from './phaseCurve.js';
+import { curveExtremaInto, curveTurningPoints, curveValue, smallTurningPoint, type CurveExtrema, type PhaseCurve } from './phaseCurve.js';
 
 /** The periodic steady state at the target duty as an error about its own mean, over one period. */
 export interface SteadyError {
@@ -356,6 +356,7 @@ class PeriodError implements StepError {
 /** The time in [0, length] after which |curve| stays within band, or -1 if it never leaves it. */
 function curveLastExit(c: PhaseCurve, band: number, period: number): number {
   if (!(c.length > 0)) return -1;
+  if (c.gain.length <= 2) return smallLastExit(c, band, period);
   const ends = [0, ...curveTurningPoints(c), c.length];
   const values = ends.map((t) => curveValue(c, t));
   for (let k = ends.length - 1; k > 0; k--) {
@@ -368,4 +369,29 @@ function curveLastExit(c: PhaseCurve, band: number, period: number): number {
     }
   }
   return -1;
+}
+
+/**
+ * curveLastExit for one or two terms without arrays: the same points (0, the turning point if
+ * any, the end), examined in the same order.
+ */
+function smallLastExit(c: PhaseCurve, band: number, period: number): number {
+  const turn = smallTurningPoint(c);
+  const t1 = turn > 0 ? turn : c.length;
+  const v0 = curveValue(c, 0);
+  const v1 = curveValue(c, t1);
+  if (turn > 0) {
+    // the last piece, from the turning point to the end
+    const v2 = curveValue(c, c.length);
+    if (Math.abs(v2) > band) return c.length;
+    if (Math.abs(v1) > band) return crossing(c, v1 > 0 ? band : -band, t1, c.length, period);
+  }
+  if (Math.abs(v1) > band) return t1;
+  if (Math.abs(v0) > band) return crossing(c, v0 > 0 ? band : -band, 0, t1, period);
+  return -1;
+}
+
+/** Where the curve crosses `level` between a and b (brentRoot, as curveLastExit). */
+function crossing(c: PhaseCurve, level: number, a: number, b: number, period: number): number {
+  return brentRoot((t) => curveValue(c, t) - level, a, b, 1e-12 * period);
 }
