@@ -492,6 +492,7 @@ export function collectCandidates(
    * The staircase walk over capacitors a = cs[p], b = cs[p + 1] with cs[0..p-1] fixed: evaluates
    * the lowest ripple-feasible point of each column and returns the columns for their inner points.
    */
+  const lookAt: number[] = [];
   const walkLastTwo = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean, columns: Column[], tb: TupleBounds): void => {
     const at = (a: number, b: number) => {
       const v = cs.slice();
@@ -499,22 +500,30 @@ export function collectCandidates(
       v[p + 1] = C[b];
       return v;
     };
-    if (!within(at(0, 0))) return;
+    // The point for a look that keeps nothing (the threshold and ripple tests copy what they keep).
+    const look = (a: number, b: number) => {
+      copyInto(lookAt, cs);
+      lookAt[p] = C[a];
+      lookAt[p + 1] = C[b];
+      return lookAt;
+    };
+    if (!within(look(0, 0))) return;
     // Largest first capacitor whose column can still be within theta, and largest staircase step:
     // a step s with at(0, s) beyond theta ends the walk below, so no step above bMax is sought
     // (theta only falls meanwhile, and the bound grows with every capacitor).
-    const top = firstTrue(nC, (i) => !within(at(i, 0))) - 1;
-    const bMax = firstTrue(nC, (b) => !within(at(0, b))) - 1;
+    const top = firstTrue(nC, (i) => !within(look(i, 0))) - 1;
+    const bMax = firstTrue(nC, (b) => !within(look(0, b))) - 1;
     let s = -1;
     for (let a = top; a >= 0; a--) {
       // One look at the top of the range first: a slice with no ripple-feasible step there has none.
-      if (s < 0) s = rippleOk(rs, at(a, bMax)) ? firstTrue(bMax + 1, (b) => rippleOk(rs, at(a, b))) : nC;
-      else while (s <= bMax && !rippleOk(rs, at(a, s))) s++;
+      if (s < 0) s = rippleOk(rs, look(a, bMax)) ? firstTrue(bMax + 1, (b) => rippleOk(rs, look(a, b))) : nC;
+      else while (s <= bMax && !rippleOk(rs, look(a, s))) s++;
       if (s > bMax) break; // smaller first capacitors only raise the ripple
-      if (!within(at(0, s))) break; // every remaining column starts at or above s
-      if (within(at(a, s))) {
-        evaluate(rs, at(a, s), tb);
-        columns.push({ rs, cs: at(a, s), p: p + 1, from: s + 1, within, tb });
+      if (!within(look(0, s))) break; // every remaining column starts at or above s
+      if (within(look(a, s))) {
+        const point = at(a, s);
+        evaluate(rs, point, tb);
+        columns.push({ rs, cs: point, p: p + 1, from: s + 1, within, tb });
       }
     }
   };
