@@ -1,4 +1,4 @@
-import { modalLadderOf, periodicState, settlingLowerBound, steadySwing, type ModalLadder, type PeriodicState, type SteadySwing } from '../engine/index.js';
+import { modalLadderOf, periodicState, rippleAt, settlingLowerBound, steadySwing, type ModalLadder, type PeriodicState, type SteadySwing } from '../engine/index.js';
 import type { DesignProblem } from './designProblem.js';
 import { dcTransferMiss } from './dcTransferMiss.js';
 import { gainFloor } from './gainFloor.js';
@@ -219,6 +219,9 @@ export function collectCandidates(
   const steadyDuty: number[] = [];
   const steadyOf: Array<PeriodicState | null> = [];
   const swingOf: Array<SteadySwing | null> = [];
+  /** Ripple alone by slot (rippleAt), where no swing is known: valid where rippleKnown is. */
+  const rippleAtSlot: number[] = [];
+  const rippleKnown: boolean[] = [];
   const steadyPool: Array<PeriodicState | undefined> = [];
   const swingPool: Array<SteadySwing | undefined> = [];
   const sameAs = (x: number[], y: number[]) => {
@@ -246,6 +249,7 @@ export function collectCandidates(
     steadyDuty[slots] = d;
     steadyOf[slots] = null;
     swingOf[slots] = null;
+    rippleKnown[slots] = false;
     return slots++;
   };
   /** Periodic state of the model last used at a duty (computed once). */
@@ -276,6 +280,21 @@ export function collectCandidates(
     return swing(d);
   };
 
+  /** lite(rs, cs, d).ripple, without the time average when no swing is known (one and two stages: rippleAt). */
+  const rippleOf = (rs: number[], cs: number[], d: number): number => {
+    touch(rs, cs);
+    use(rs, cs);
+    if (stages > 2) return swing(d).ripple;
+    const k = slot(d);
+    const known = swingOf[k];
+    if (known !== null) return known.ripple;
+    if (!rippleKnown[k]) {
+      rippleAtSlot[k] = rippleAt(model!, d);
+      rippleKnown[k] = true;
+    }
+    return rippleAtSlot[k];
+  };
+
   // The ripple limit of the staircase: the problem's, or in Pareto mode each limit's in turn.
   let rippleLimit = limits.ripple;
   // Pareto mode: the staircases of one tuple ask about the same points; remember each point's
@@ -288,7 +307,7 @@ export function collectCandidates(
       const code = indexCode(rs, cs);
       let near = nearMemo.get(code);
       if (near === undefined) {
-        near = lite(rs, cs, dNear).ripple;
+        near = rippleOf(rs, cs, dNear);
         nearMemo.set(code, near);
       }
       if (Number.isNaN(near) || exceeds(near, rippleLimit)) return false;
@@ -296,7 +315,7 @@ export function collectCandidates(
       if (checkTo && !toChecked.has(code)) {
         toChecked.add(code);
         for (const d of toDuties) {
-          if (exceeds(lite(rs, cs, d).ripple, 2 * problem.band)) {
+          if (exceeds(rippleOf(rs, cs, d), 2 * problem.band)) {
             nearMemo.set(code, Number.NaN);
             return false;
           }
@@ -304,8 +323,8 @@ export function collectCandidates(
       }
       return true;
     }
-    if (rippleLimit !== undefined && exceeds(lite(rs, cs, dNear).ripple, rippleLimit)) return false;
-    if (checkTo) for (const d of toDuties) if (exceeds(lite(rs, cs, d).ripple, 2 * problem.band)) return false;
+    if (rippleLimit !== undefined && exceeds(rippleOf(rs, cs, dNear), rippleLimit)) return false;
+    if (checkTo) for (const d of toDuties) if (exceeds(rippleOf(rs, cs, d), 2 * problem.band)) return false;
     return true;
   };
 
@@ -333,7 +352,7 @@ export function collectCandidates(
       if (paretoSeen.has(code)) return;
       paretoSeen.add(code);
       // This point's own threshold: the best of the limits its ripple can meet.
-      theta = Math.min(theta, paretoThreshold(state.pareto, lite(rs, cs, dNear).ripple));
+      theta = Math.min(theta, paretoThreshold(state.pareto, rippleOf(rs, cs, dNear)));
       // Dominated already by the capacitors' settling floor (before any costlier bound).
       if (slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) * tb.factor - tb.slack > theta) return;
     }
@@ -389,8 +408,8 @@ export function collectCandidates(
     const pareto = state.pareto;
     if (pareto) {
       // The ripple near 50 % is a lower bound on the worst: a first, cheap dominance test.
-      if (lb > paretoThreshold(pareto, lite(rs, cs, dNear).ripple)) return;
-      entry.worst = maximizeOverDuty((d) => lite(rs, cs, d).ripple, problem.dutyMin, problem.dutyMax);
+      if (lb > paretoThreshold(pareto, rippleOf(rs, cs, dNear))) return;
+      entry.worst = maximizeOverDuty((d) => rippleOf(rs, cs, d), problem.dutyMin, problem.dutyMax);
       const droop = checkDroop ? maximizeOverDuty(droopError, problem.dutyMin, problem.dutyMax) : 0;
       if (exceeds(droop, limits.droop) || lb > paretoThreshold(pareto, entry.worst)) return;
       state.entries.push(entry);
@@ -406,7 +425,7 @@ export function collectCandidates(
     state.entries.push(entry);
     if (state.dynamic && (state.best.length < state.top || lb < state.best[state.top - 1])) {
       // Before this candidate may lower theta: its worst ripple and (unequal drivers) worst droop.
-      entry.worst = maximizeOverDuty((d) => lite(rs, cs, d).ripple, problem.dutyMin, problem.dutyMax);
+      entry.worst = maximizeOverDuty((d) => rippleOf(rs, cs, d), problem.dutyMin, problem.dutyMax);
       const droop = checkDroop ? maximizeOverDuty(droopError, problem.dutyMin, problem.dutyMax) : 0;
       if (exceeds(entry.worst, limits.ripple) || exceeds(droop, limits.droop)) {
         entry.ruledOut = true;

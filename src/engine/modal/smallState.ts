@@ -36,10 +36,13 @@ export interface SmallState {
  * that reads each state at once allocates nothing (an object's number fields are boxed, so a new
  * state costs fifteen allocations).
  *
- * Syntax: smallState(modal, duty[, into])
+ * With `withMean` false the time average is not integrated (meanOffset and average are NaN): for
+ * a caller that needs the ripple only, which smallExtrema takes from the other figures.
+ *
+ * Syntax: smallState(modal, duty[, into[, withMean]])
  * Example: smallState(modalLadder(oneStage)!, 0.5).average  // V
  */
-export function smallState(m: ModalLadder, duty: number, into?: SmallState): SmallState {
+export function smallState(m: ModalLadder, duty: number, into?: SmallState, withMean = true): SmallState {
   const { period, hi, lo, mix, delta } = m;
   const two = m.n === 2;
   const t1 = duty * period;
@@ -97,8 +100,11 @@ export function smallState(m: ModalLadder, duty: number, into?: SmallState): Sma
   const yEnd = aHigh0 * kh0 + aHigh1 * kh1;
   const aLow0 = lo.out[0] * -(x00 * (u0 + w0) + x01 * (u1 + w1));
   const aLow1 = two ? lo.out[1] * -(x10 * (u0 + w0) + x11 * (u1 + w1)) : 0;
-  let integral = t2 * yEnd - aHigh0 * rh0 * t1 * t1 * phi2(rh0 * t1) - aLow0 * rl0 * t2 * t2 * phi2(rl0 * t2);
-  if (two) integral -= aHigh1 * rh1 * t1 * t1 * phi2(rh1 * t1) + aLow1 * rl1 * t2 * t2 * phi2(rl1 * t2);
+  let integral = NaN;
+  if (withMean) {
+    integral = t2 * yEnd - aHigh0 * rh0 * t1 * t1 * phi2(rh0 * t1) - aLow0 * rl0 * t2 * t2 * phi2(rl0 * t2);
+    if (two) integral -= aHigh1 * rh1 * t1 * t1 * phi2(rh1 * t1) + aLow1 * rl1 * t2 * t2 * phi2(rl1 * t2);
+  }
   // the output at the rising edge from the DC state needing the smaller correction
   const yStart =
     duty > 0.5
