@@ -353,8 +353,18 @@ class PeriodError implements StepError {
   }
 }
 
-/** The time in [0, length] after which |curve| stays within band, or -1 if it never leaves it. */
-function curveLastExit(c: PhaseCurve, band: number, period: number): number {
+/**
+ * The time in [0, length] after which |curve| stays within band, or -1 if it never leaves it.
+ *
+ * Method: between the phase ends and the turning points the curve is monotone, so the last piece
+ * that leaves the band holds the answer: its end if that lies outside, else the crossing inside it,
+ * found by Brent's method (brentRoot) to 1e-12 of the period. One and two terms take the same
+ * points without arrays (smallLastExit).
+ *
+ * Syntax: curveLastExit(curve, band, period)
+ * Example: curveLastExit({ offset: 1, gain: [1], rate: [-1], length: 5 }, 0.5, 5)  // ln 2, s
+ */
+export function curveLastExit(c: PhaseCurve, band: number, period: number): number {
   if (!(c.length > 0)) return -1;
   if (c.gain.length <= 2) return smallLastExit(c, band, period);
   const ends = [0, ...curveTurningPoints(c), c.length];
