@@ -1,4 +1,4 @@
-import { modalLadderOf, periodicState, rippleAt, settlingLowerBound, steadySwing, type ModalLadder, type PeriodicState, type SteadySwing } from '../engine/index.js';
+import { modalAverageOutput, modalLadderOf, periodicState, rippleAt, settlingLowerBound, steadySwing, type ModalLadder, type PeriodicState, type SteadySwing } from '../engine/index.js';
 import type { DesignProblem } from './designProblem.js';
 import { dcTransferMiss } from './dcTransferMiss.js';
 import { gainFloor } from './gainFloor.js';
@@ -222,6 +222,9 @@ export function collectCandidates(
   /** Ripple alone by slot (rippleAt), where no swing is known: valid where rippleKnown is. */
   const rippleAtSlot: number[] = [];
   const rippleKnown: boolean[] = [];
+  /** Time average alone by slot (averageOutput), where no swing is known: valid where averageKnown is. */
+  const averageAtSlot: number[] = [];
+  const averageKnown: boolean[] = [];
   const steadyPool: Array<PeriodicState | undefined> = [];
   const swingPool: Array<SteadySwing | undefined> = [];
   const sameAs = (x: number[], y: number[]) => {
@@ -250,6 +253,7 @@ export function collectCandidates(
     steadyOf[slots] = null;
     swingOf[slots] = null;
     rippleKnown[slots] = false;
+    averageKnown[slots] = false;
     return slots++;
   };
   /** Periodic state of the model last used at a duty (computed once). */
@@ -293,6 +297,21 @@ export function collectCandidates(
       rippleKnown[k] = true;
     }
     return rippleAtSlot[k];
+  };
+
+  /** lite(rs, cs, d).average, without the extremes when no swing is known (one and two stages: averageOutput). */
+  const averageOf = (rs: number[], cs: number[], d: number): number => {
+    touch(rs, cs);
+    use(rs, cs);
+    if (stages > 2) return swing(d).average;
+    const k = slot(d);
+    const known = swingOf[k];
+    if (known !== null) return known.average;
+    if (!averageKnown[k]) {
+      averageAtSlot[k] = modalAverageOutput(model!, d);
+      averageKnown[k] = true;
+    }
+    return averageAtSlot[k];
   };
 
   // The ripple limit of the staircase: the problem's, or in Pareto mode each limit's in turn.
@@ -362,7 +381,7 @@ export function collectCandidates(
     // INL and gain error (endpoint fit) from fast averages: only the engine checked them, so a
     // space where they bind was verified candidate by candidate (dcTransferMiss.ts). Steady
     // states are kept per duty meanwhile: the droop grid and the INL grid share duties.
-    const droopError = (d: number) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - lite(rs, cs, d).average);
+    const droopError = (d: number) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - averageOf(rs, cs, d));
     const checkDroop = !lti && limits.droop !== undefined;
     // Every check below only rules out, so their order changes the cost, never the answer: the one
     // more likely to decide first goes first. With an INL limit (unequal drivers) the INL check,
@@ -370,9 +389,9 @@ export function collectCandidates(
     // the walk miss alike); the rest of the droop grid (eight more steady states) only after the
     // settling bounds, which rule out most of the points that pass that one duty.
     const gridDuty = (i: number) => problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8;
-    let miss = inlApplies && dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null;
+    let miss = inlApplies && dcTransferMiss(problem, (d) => averageOf(rs, cs, d)) !== null;
     if (checkDroop && !miss) miss = exceeds(droopError(gridDuty(droopMissAt)), limits.droop);
-    if (!inlApplies && !miss) miss = dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null;
+    if (!inlApplies && !miss) miss = dcTransferMiss(problem, (d) => averageOf(rs, cs, d)) !== null;
     if (miss) return;
     // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
     const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);
