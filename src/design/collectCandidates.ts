@@ -359,8 +359,18 @@ export function collectCandidates(
   let droopMissAt = 8;
   // Index into problem.steps of the step whose settling bound was largest for the last candidate.
   let slowStep = 0;
+  // The candidate evaluate is looking at, for the duty functions below (made once, not per call).
+  let evalR: number[] = [];
+  let evalC: number[] = [];
+  const averageNow = (d: number) => averageOf(evalR, evalC, d);
+  const rippleNow = (d: number) => rippleOf(evalR, evalC, d);
+  const droopError = (d: number) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - averageOf(evalR, evalC, d));
+  const gridDuty = (i: number) => problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8;
+  const checkDroop = !lti && limits.droop !== undefined;
   const evaluate = (rs: number[], cs: number[], tb: TupleBounds): void => {
     if (overBudget()) return;
+    evalR = rs;
+    evalC = cs;
     let theta = state.theta;
     const key = state.dynamic ? '' : keyOf(rs, cs);
     if (!state.dynamic && state.seen.has(key)) return;
@@ -381,23 +391,21 @@ export function collectCandidates(
     // INL and gain error (endpoint fit) from fast averages: only the engine checked them, so a
     // space where they bind was verified candidate by candidate (dcTransferMiss.ts). Steady
     // states are kept per duty meanwhile: the droop grid and the INL grid share duties.
-    const droopError = (d: number) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - averageOf(rs, cs, d));
-    const checkDroop = !lti && limits.droop !== undefined;
     // Every check below only rules out, so their order changes the cost, never the answer: the one
     // more likely to decide first goes first. With an INL limit (unequal drivers) the INL check,
     // middle duty first; then the droop grid's duty where the last candidate missed (neighbours in
     // the walk miss alike); the rest of the droop grid (eight more steady states) only after the
     // settling bounds, which rule out most of the points that pass that one duty.
-    const gridDuty = (i: number) => problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8;
-    let miss = inlApplies && dcTransferMiss(problem, (d) => averageOf(rs, cs, d)) !== null;
+    let miss = inlApplies && dcTransferMiss(problem, averageNow) !== null;
     if (checkDroop && !miss) miss = exceeds(droopError(gridDuty(droopMissAt)), limits.droop);
-    if (!inlApplies && !miss) miss = dcTransferMiss(problem, (d) => averageOf(rs, cs, d)) !== null;
+    if (!inlApplies && !miss) miss = dcTransferMiss(problem, averageNow) !== null;
     if (miss) return;
     // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
     const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);
-    for (const [from, to] of problem.steps) {
-      const a = lite(rs, cs, from);
-      const b = lite(rs, cs, to);
+    for (let j = 0; j < problem.steps.length; j++) {
+      const step = problem.steps[j];
+      const a = lite(rs, cs, step[0]);
+      const b = lite(rs, cs, step[1]);
       const z0 = Math.abs(b.yStart - a.yStart);
       const excursion = b.yStart > a.yStart ? b.above : b.below;
       if (z0 > problem.band + excursion && tau * Math.log(z0 / (problem.band + excursion)) - tb.slack > theta) return;
@@ -406,7 +414,9 @@ export function collectCandidates(
     let lb = 0;
     // The step that was slower for the last candidate first: its bound alone often rules the point out.
     for (let j = 0; j < problem.steps.length; j++) {
-      const [from, to] = problem.steps[j === 0 ? slowStep : j <= slowStep ? j - 1 : j];
+      const step = problem.steps[j === 0 ? slowStep : j <= slowStep ? j - 1 : j];
+      const from = step[0];
+      const to = step[1];
       // Only whether the bound passes theta matters for a point that cannot enter (early stop).
       const t = settlingLowerBound(model, from, to, problem.band, steady(from), steady(to), theta);
       if (t > lb) {
@@ -428,7 +438,7 @@ export function collectCandidates(
     if (pareto) {
       // The ripple near 50 % is a lower bound on the worst: a first, cheap dominance test.
       if (lb > paretoThreshold(pareto, rippleOf(rs, cs, dNear))) return;
-      entry.worst = maximizeOverDuty((d) => rippleOf(rs, cs, d), problem.dutyMin, problem.dutyMax);
+      entry.worst = maximizeOverDuty(rippleNow, problem.dutyMin, problem.dutyMax);
       const droop = checkDroop ? maximizeOverDuty(droopError, problem.dutyMin, problem.dutyMax) : 0;
       if (exceeds(droop, limits.droop) || lb > paretoThreshold(pareto, entry.worst)) return;
       state.entries.push(entry);
@@ -444,7 +454,7 @@ export function collectCandidates(
     state.entries.push(entry);
     if (state.dynamic && (state.best.length < state.top || lb < state.best[state.top - 1])) {
       // Before this candidate may lower theta: its worst ripple and (unequal drivers) worst droop.
-      entry.worst = maximizeOverDuty((d) => rippleOf(rs, cs, d), problem.dutyMin, problem.dutyMax);
+      entry.worst = maximizeOverDuty(rippleNow, problem.dutyMin, problem.dutyMax);
       const droop = checkDroop ? maximizeOverDuty(droopError, problem.dutyMin, problem.dutyMax) : 0;
       if (exceeds(entry.worst, limits.ripple) || exceeds(droop, limits.droop)) {
         entry.ruledOut = true;
