@@ -1,4 +1,4 @@
-import { modalLadderOf, periodicState, settlingLowerBound, steadySwing, type ModalLadder, type PeriodicState, type SteadySwing } from '../engine/index.js';
+import { modalAverageOutput, modalLadderOf, periodicState, rippleAt, settlingLowerBound, steadySwing, type ModalLadder, type PeriodicState, type SteadySwing } from '../engine/index.js';
 import type { Admit } from './cornerScreen.js';
 import type { DesignProblem } from './designProblem.js';
 import { dcTransferMiss } from './dcTransferMiss.js';
@@ -226,21 +226,35 @@ export function collectCandidates(
   // the candidate's steady states by duty (its checks below, the INL grid, the droop grid and the
   // settling steps share duties): the figures of the cheap checks, and the full state for settling.
   let lastR: number[] = [];
-  let lastC: number[] = [];
+  const lastC: number[] = [];
   let model: ModalLadder | null = null;
+  // Valid for slots 0..slots-1; the objects of earlier candidates are kept by slot (pools) and the
+  // engine writes the next candidate's figures into them: no allocation per candidate.
   let slots = 0;
   const steadyDuty: number[] = [];
   const steadyOf: Array<PeriodicState | null> = [];
   const swingOf: Array<SteadySwing | null> = [];
+  /** Ripple alone by slot (rippleAt), where no swing is known: valid where rippleKnown is. */
+  const rippleAtSlot: number[] = [];
+  const rippleKnown: boolean[] = [];
+  /** Time average alone by slot (averageOutput), where no swing is known: valid where averageKnown is. */
+  const averageAtSlot: number[] = [];
+  const averageKnown: boolean[] = [];
+  const steadyPool: Array<PeriodicState | undefined> = [];
+  const swingPool: Array<SteadySwing | undefined> = [];
   const sameAs = (x: number[], y: number[]) => {
     if (x.length !== y.length) return false;
     for (let k = 0; k < x.length; k++) if (x[k] !== y[k]) return false;
     return true;
   };
+  const copyInto = (to: number[], from: number[]) => {
+    if (to.length !== from.length) to.length = from.length;
+    for (let k = 0; k < from.length; k++) to[k] = from[k];
+  };
   const use = (rs: number[], cs: number[]): ModalLadder => {
     if (model === null || !sameAs(rs, lastR) || !sameAs(cs, lastC)) {
       lastR = rs;
-      lastC = cs.slice();
+      copyInto(lastC, cs);
       // one and two stages: written over the last candidate's model (its states go with it)
       model = modalLadderOf(problem.circuit, rs, cs, model ?? undefined);
       slots = 0;
@@ -253,26 +267,28 @@ export function collectCandidates(
     steadyDuty[slots] = d;
     steadyOf[slots] = null;
     swingOf[slots] = null;
+    rippleKnown[slots] = false;
+    averageKnown[slots] = false;
     return slots++;
   };
   /** Periodic state of the model last used at a duty (computed once). */
   const steady = (d: number): PeriodicState => {
     const k = slot(d);
-    return (steadyOf[k] ??= periodicState(model!, d));
+    return (steadyOf[k] ??= steadyPool[k] = periodicState(model!, d, steadyPool[k]));
   };
   /** Steady-state figures of the model last used at a duty (computed once): scalar code for one and two stages. */
   const swing = (d: number): SteadySwing => {
     const k = slot(d);
-    return (swingOf[k] ??= stages <= 2 ? steadySwing(model!, d) : steadySwing(model!, d, steady(d)));
+    return (swingOf[k] ??= swingPool[k] = stages <= 2 ? steadySwing(model!, d, undefined, swingPool[k]) : steadySwing(model!, d, steady(d), swingPool[k]));
   };
 
   // Count each candidate the fast model looks at once (consecutive looks are at the same candidate).
   let seenR: number[] = [];
-  let seenC: number[] = [];
+  const seenC: number[] = [];
   const touch = (rs: number[], cs: number[]) => {
     if (sameAs(rs, seenR) && sameAs(cs, seenC)) return;
     seenR = rs;
-    seenC = cs.slice();
+    copyInto(seenC, cs);
     state.evaluated++;
   };
 
@@ -281,6 +297,36 @@ export function collectCandidates(
     touch(rs, cs);
     use(rs, cs);
     return swing(d);
+  };
+
+  /** lite(rs, cs, d).ripple, without the time average when no swing is known (one and two stages: rippleAt). */
+  const rippleOf = (rs: number[], cs: number[], d: number): number => {
+    touch(rs, cs);
+    use(rs, cs);
+    if (stages > 2) return swing(d).ripple;
+    const k = slot(d);
+    const known = swingOf[k];
+    if (known !== null) return known.ripple;
+    if (!rippleKnown[k]) {
+      rippleAtSlot[k] = rippleAt(model!, d);
+      rippleKnown[k] = true;
+    }
+    return rippleAtSlot[k];
+  };
+
+  /** lite(rs, cs, d).average, without the extremes when no swing is known (one and two stages: averageOutput). */
+  const averageOf = (rs: number[], cs: number[], d: number): number => {
+    touch(rs, cs);
+    use(rs, cs);
+    if (stages > 2) return swing(d).average;
+    const k = slot(d);
+    const known = swingOf[k];
+    if (known !== null) return known.average;
+    if (!averageKnown[k]) {
+      averageAtSlot[k] = modalAverageOutput(model!, d);
+      averageKnown[k] = true;
+    }
+    return averageAtSlot[k];
   };
 
   // The ripple limit of the staircase: the problem's, or in Pareto mode each limit's in turn.
@@ -295,7 +341,7 @@ export function collectCandidates(
       const code = indexCode(rs, cs);
       let near = nearMemo.get(code);
       if (near === undefined) {
-        near = lite(rs, cs, dNear).ripple;
+        near = rippleOf(rs, cs, dNear);
         nearMemo.set(code, near);
       }
       if (Number.isNaN(near) || exceeds(near, rippleLimit)) return false;
@@ -303,7 +349,7 @@ export function collectCandidates(
       if (checkTo && !toChecked.has(code)) {
         toChecked.add(code);
         for (const d of toDuties) {
-          if (exceeds(lite(rs, cs, d).ripple, 2 * problem.band)) {
+          if (exceeds(rippleOf(rs, cs, d), 2 * problem.band)) {
             nearMemo.set(code, Number.NaN);
             return false;
           }
@@ -311,8 +357,8 @@ export function collectCandidates(
       }
       return true;
     }
-    if (rippleLimit !== undefined && exceeds(lite(rs, cs, dNear).ripple, rippleLimit)) return false;
-    if (checkTo) for (const d of toDuties) if (exceeds(lite(rs, cs, d).ripple, 2 * problem.band)) return false;
+    if (rippleLimit !== undefined && exceeds(rippleOf(rs, cs, dNear), rippleLimit)) return false;
+    if (checkTo) for (const d of toDuties) if (exceeds(rippleOf(rs, cs, d), 2 * problem.band)) return false;
     return true;
   };
 
@@ -328,8 +374,18 @@ export function collectCandidates(
   let droopMissAt = 8;
   // Index into problem.steps of the step whose settling bound was largest for the last candidate.
   let slowStep = 0;
+  // The candidate evaluate is looking at, for the duty functions below (made once, not per call).
+  let evalR: number[] = [];
+  let evalC: number[] = [];
+  const averageNow = (d: number) => averageOf(evalR, evalC, d);
+  const rippleNow = (d: number) => rippleOf(evalR, evalC, d);
+  const droopError = (d: number) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - averageOf(evalR, evalC, d));
+  const gridDuty = (i: number) => problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8;
+  const checkDroop = !lti && limits.droop !== undefined;
   const evaluate = (rs: number[], cs: number[], tb: TupleBounds): void => {
     if (overBudget()) return;
+    evalR = rs;
+    evalC = cs;
     let theta = state.theta;
     const key = state.dynamic ? '' : keyOf(rs, cs);
     if (!state.dynamic && state.seen.has(key)) return;
@@ -340,7 +396,7 @@ export function collectCandidates(
       if (paretoSeen.has(code)) return;
       paretoSeen.add(code);
       // This point's own threshold: the best of the limits its ripple can meet.
-      theta = Math.min(theta, paretoThreshold(state.pareto, lite(rs, cs, dNear).ripple));
+      theta = Math.min(theta, paretoThreshold(state.pareto, rippleOf(rs, cs, dNear)));
       // Dominated already by the capacitors' settling floor (before any costlier bound).
       if (slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) * tb.factor - tb.slack > theta) return;
     }
@@ -350,26 +406,24 @@ export function collectCandidates(
     // INL and gain error (endpoint fit) from fast averages: only the engine checked them, so a
     // space where they bind was verified candidate by candidate (dcTransferMiss.ts). Steady
     // states are kept per duty meanwhile: the droop grid and the INL grid share duties.
-    const droopError = (d: number) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - lite(rs, cs, d).average);
-    const checkDroop = !lti && limits.droop !== undefined;
     // Every check below only rules out, so their order changes the cost, never the answer: the one
     // more likely to decide first goes first. With an INL limit (unequal drivers) the INL check,
     // middle duty first; then the droop grid's duty where the last candidate missed (neighbours in
     // the walk miss alike); the rest of the droop grid (eight more steady states) only after the
     // settling bounds, which rule out most of the points that pass that one duty.
-    const gridDuty = (i: number) => problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8;
-    let miss = inlApplies && dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null;
+    let miss = inlApplies && dcTransferMiss(problem, averageNow) !== null;
     if (checkDroop && !miss) miss = exceeds(droopError(gridDuty(droopMissAt)), limits.droop);
-    if (!inlApplies && !miss) miss = dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null;
+    if (!inlApplies && !miss) miss = dcTransferMiss(problem, averageNow) !== null;
     if (miss) return;
     // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
     // A steady state at the target that itself leaves the band never settles (settlingLowerBound
     // says Infinity): its excursions about the average, from the same steady state (rounding
     // apart, hence NEVER_SETTLES), decide that without the settling bound's period map.
     const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);
-    for (const [from, to] of problem.steps) {
-      const a = lite(rs, cs, from);
-      const b = lite(rs, cs, to);
+    for (let j = 0; j < problem.steps.length; j++) {
+      const step = problem.steps[j];
+      const a = lite(rs, cs, step[0]);
+      const b = lite(rs, cs, step[1]);
       if (Math.max(b.above, b.below) > problem.band * NEVER_SETTLES) return;
       const z0 = Math.abs(b.yStart - a.yStart);
       const excursion = b.yStart > a.yStart ? b.above : b.below;
@@ -379,7 +433,9 @@ export function collectCandidates(
     let lb = 0;
     // The step that was slower for the last candidate first: its bound alone often rules the point out.
     for (let j = 0; j < problem.steps.length; j++) {
-      const [from, to] = problem.steps[j === 0 ? slowStep : j <= slowStep ? j - 1 : j];
+      const step = problem.steps[j === 0 ? slowStep : j <= slowStep ? j - 1 : j];
+      const from = step[0];
+      const to = step[1];
       // Only whether the bound passes theta matters for a point that cannot enter (early stop).
       const t = settlingLowerBound(model, from, to, problem.band, steady(from), steady(to), theta);
       if (t > lb) {
@@ -400,8 +456,8 @@ export function collectCandidates(
     const pareto = state.pareto;
     if (pareto) {
       // The ripple near 50 % is a lower bound on the worst: a first, cheap dominance test.
-      if (lb > paretoThreshold(pareto, lite(rs, cs, dNear).ripple)) return;
-      entry.worst = maximizeOverDuty((d) => lite(rs, cs, d).ripple, problem.dutyMin, problem.dutyMax);
+      if (lb > paretoThreshold(pareto, rippleOf(rs, cs, dNear))) return;
+      entry.worst = maximizeOverDuty(rippleNow, problem.dutyMin, problem.dutyMax);
       const droop = checkDroop ? maximizeOverDuty(droopError, problem.dutyMin, problem.dutyMax) : 0;
       if (exceeds(droop, limits.droop) || lb > paretoThreshold(pareto, entry.worst)) return;
       state.entries.push(entry);
@@ -417,7 +473,7 @@ export function collectCandidates(
     state.entries.push(entry);
     if (state.dynamic && (state.best.length < state.top || lb < state.best[state.top - 1])) {
       // Before this candidate may lower theta: its worst ripple and (unequal drivers) worst droop.
-      entry.worst = maximizeOverDuty((d) => lite(rs, cs, d).ripple, problem.dutyMin, problem.dutyMax);
+      entry.worst = maximizeOverDuty(rippleNow, problem.dutyMin, problem.dutyMax);
       const droop = checkDroop ? maximizeOverDuty(droopError, problem.dutyMin, problem.dutyMax) : 0;
       if (exceeds(entry.worst, limits.ripple) || exceeds(droop, limits.droop)) {
         entry.ruledOut = true;
@@ -516,6 +572,7 @@ export function collectCandidates(
    * The staircase walk over capacitors a = cs[p], b = cs[p + 1] with cs[0..p-1] fixed: evaluates
    * the lowest ripple-feasible point of each column and returns the columns for their inner points.
    */
+  const lookAt: number[] = [];
   const walkLastTwo = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean, columns: Column[], tb: TupleBounds): void => {
     const at = (a: number, b: number) => {
       const v = cs.slice();
@@ -523,22 +580,30 @@ export function collectCandidates(
       v[p + 1] = C[b];
       return v;
     };
-    if (!within(at(0, 0))) return;
+    // The point for a look that keeps nothing (the threshold and ripple tests copy what they keep).
+    const look = (a: number, b: number) => {
+      copyInto(lookAt, cs);
+      lookAt[p] = C[a];
+      lookAt[p + 1] = C[b];
+      return lookAt;
+    };
+    if (!within(look(0, 0))) return;
     // Largest first capacitor whose column can still be within theta, and largest staircase step:
     // a step s with at(0, s) beyond theta ends the walk below, so no step above bMax is sought
     // (theta only falls meanwhile, and the bound grows with every capacitor).
-    const top = firstTrue(nC, (i) => !within(at(i, 0))) - 1;
-    const bMax = firstTrue(nC, (b) => !within(at(0, b))) - 1;
+    const top = firstTrue(nC, (i) => !within(look(i, 0))) - 1;
+    const bMax = firstTrue(nC, (b) => !within(look(0, b))) - 1;
     let s = -1;
     for (let a = top; a >= 0; a--) {
       // One look at the top of the range first: a slice with no ripple-feasible step there has none.
-      if (s < 0) s = rippleOk(rs, at(a, bMax)) ? firstTrue(bMax + 1, (b) => rippleOk(rs, at(a, b))) : nC;
-      else while (s <= bMax && !rippleOk(rs, at(a, s))) s++;
+      if (s < 0) s = rippleOk(rs, look(a, bMax)) ? firstTrue(bMax + 1, (b) => rippleOk(rs, look(a, b))) : nC;
+      else while (s <= bMax && !rippleOk(rs, look(a, s))) s++;
       if (s > bMax) break; // smaller first capacitors only raise the ripple
-      if (!within(at(0, s))) break; // every remaining column starts at or above s
-      if (within(at(a, s))) {
-        evaluate(rs, at(a, s), tb);
-        columns.push({ rs, cs: at(a, s), p: p + 1, from: s + 1, within, tb });
+      if (!within(look(0, s))) break; // every remaining column starts at or above s
+      if (within(look(a, s))) {
+        const point = at(a, s);
+        evaluate(rs, point, tb);
+        columns.push({ rs, cs: point, p: p + 1, from: s + 1, within, tb });
       }
     }
   };

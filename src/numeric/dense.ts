@@ -27,6 +27,20 @@ export function zeros(n: number): number[] {
 }
 
 /**
+ * A vector of n zeros stored as doubles from the start: zeros() keeps small integers until a
+ * fraction is written, and code that reads both kinds of array runs slower.
+ *
+ * Syntax: doubles(n)
+ * Example: doubles(2)  // [0, 0]
+ */
+export function doubles(n: number): number[] {
+  const v: number[] = [];
+  for (let i = 0; i < n; i++) v.push(0.5); // a fraction: the array holds doubles for good
+  for (let i = 0; i < n; i++) v[i] = 0;
+  return v;
+}
+
+/**
  * The identity of order n.
  *
  * Syntax: identity(n)

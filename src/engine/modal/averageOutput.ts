@@ -1,6 +1,6 @@
 import type { ModalLadder } from './modalLadder.js';
 import { periodicState } from './periodicState.js';
-import { smallState } from './smallState.js';
+import { smallState, type SmallState } from './smallState.js';
 
 /**
  * Time-average output (V) of the periodic steady state at one duty: periodicState(m, duty).average,
@@ -11,5 +11,8 @@ import { smallState } from './smallState.js';
  * Example: averageOutput(modalLadder(ladder)!, 0.5)  // V
  */
 export function averageOutput(m: ModalLadder, duty: number): number {
-  return m.n <= 2 ? smallState(m, duty).average : periodicState(m, duty).average;
+  return m.n <= 2 ? smallState(m, duty, SMALL).average : periodicState(m, duty).average;
 }
+
+/** Scratch for smallState (read at once). */
+const SMALL: SmallState = { t1: 0.5, t2: 0.5, yStart: 0.5, meanOffset: 0.5, average: 0.5, yEnd: 0.5, aHigh0: 0.5, aHigh1: 0.5, aLow0: 0.5, aLow1: 0.5, rh0: 0.5, rh1: 0.5, rl0: 0.5, rl1: 0.5 };

@@ -1,4 +1,5 @@
-import { zeros } from '../../numeric/dense.js';
+import './doubleFields.js';
+import { doubles } from '../../numeric/dense.js';
 import type { LadderCircuit } from '../../circuit/ladder.js';
 import { dividerGain } from '../../circuit/dcGain.js';
 import { symmetricEigen, symmetricEigen2 } from '../../numeric/symmetricEigen.js';
@@ -31,7 +32,8 @@ import type { ModalLadder, PhaseModes } from './modalTypes.js';
  * Example: modalLadderOf(circuit, [4700, 47e3], [1e-6, 10e-9]).hi.rate  // two rates, 1/s, fastest first
  */
 export function modalLadderOf(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>, into?: ModalLadder): ModalLadder {
-  return r.length === 1 || r.length === 2 ? smallLadder(circuit, r, c, into) : modalLadderOfAnyOrder(circuit, r, c);
+  const n = load(circuit, r, c);
+  return n === 1 || n === 2 ? smallLadder(n, into) : anyOrder(n);
 }
 
 /**
@@ -42,10 +44,17 @@ export function modalLadderOf(circuit: LadderCircuit, r: ArrayLike<number>, c: A
  * Example: modalLadderOfAnyOrder(circuit, [4700, 47e3], [1e-6, 10e-9])  // equal to modalLadderOf(circuit, ...)
  */
 export function modalLadderOfAnyOrder(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>): ModalLadder {
-  const n = r.length;
-  checkStages(r, c);
-  if (CS.length < n) grow(n);
-  const { loadResistance, loadCapacitance, driverHigh, driverLow } = circuit;
+  return anyOrder(load(circuit, r, c));
+}
+
+/** The general construction from the circuit and stages load() put in scratch. */
+function anyOrder(n: number): ModalLadder {
+  const r = R_S;
+  const c = C_S;
+  const loadResistance = K_OPEN ? null : K[LOAD_R];
+  const loadCapacitance = K[LOAD_C];
+  const driverHigh = K[DRIVER_HIGH];
+  const driverLow = K[DRIVER_LOW];
   for (let k = 0; k < n; k++) CS[k] = Math.sqrt(c[k] + (k === n - 1 ? loadCapacitance : 0));
   // Conductance into node k from the node before (node 0: from the pin through driver + R1).
   for (let k = 1; k < n; k++) G_IN[k] = 1 / r[k];
@@ -61,12 +70,12 @@ export function modalLadderOfAnyOrder(circuit: LadderCircuit, r: ArrayLike<numbe
     for (let k = 0; k < n; k++) G_LOW[k] = 1;
     if (loadResistance !== null) dividerGain(r, 0, n - 1, loadResistance, driverLow, 1, G_LOW);
   }
-  const span = circuit.high - circuit.low;
-  for (let j = 0; j < n; j++) DC_DELTA[j] = equal ? G_HIGH[j] * span : G_HIGH[j] * circuit.high - gLow[j] * circuit.low;
+  const span = K[HIGH] - K[LOW];
+  for (let j = 0; j < n; j++) DC_DELTA[j] = equal ? G_HIGH[j] * span : G_HIGH[j] * K[HIGH] - gLow[j] * K[LOW];
   const hb = high.basis;
   const lb = low.basis;
-  const mix = zeros(n * n);
-  const delta = zeros(n);
+  const mix = doubles(n * n);
+  const delta = doubles(n);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       let s = 0;
@@ -77,24 +86,42 @@ export function modalLadderOfAnyOrder(circuit: LadderCircuit, r: ArrayLike<numbe
   }
   return {
     n,
-    period: circuit.period,
-    high: circuit.high,
-    low: circuit.low,
+    period: K[PERIOD],
+    high: K[HIGH],
+    low: K[LOW],
     symmetric: true,
     hi: high.modes,
     lo: low.modes,
     mix,
     delta,
-    outLow: gLow[n - 1] * circuit.low,
-    outHigh: G_HIGH[n - 1] * circuit.high,
+    outLow: gLow[n - 1] * K[LOW],
+    outHigh: G_HIGH[n - 1] * K[HIGH],
     condition: 1,
   };
 }
 
-function checkStages(r: ArrayLike<number>, c: ArrayLike<number>): void {
-  for (let k = 0; k < r.length; k++) {
+/**
+ * Check the stages and copy them into R_S, C_S, and the circuit into K: circuits and
+ * arrays come in several shapes (a search's side problems), and only this small function sees
+ * them. Returns the number of stages.
+ */
+function load(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>): number {
+  K[PERIOD] = circuit.period;
+  K[HIGH] = circuit.high;
+  K[LOW] = circuit.low;
+  K[DRIVER_HIGH] = circuit.driverHigh;
+  K[DRIVER_LOW] = circuit.driverLow;
+  K_OPEN = circuit.loadResistance === null;
+  K[LOAD_R] = circuit.loadResistance ?? 0;
+  K[LOAD_C] = circuit.loadCapacitance;
+  const n = r.length;
+  if (CS.length < n) grow(n);
+  for (let k = 0; k < n; k++) {
     if (!(r[k] > 0) || !(c[k] > 0)) throw new RangeError('invalid ladder: every stage needs r > 0 and c > 0');
+    R_S[k] = r[k];
+    C_S[k] = c[k];
   }
+  return n;
 }
 
 /**
@@ -102,10 +129,15 @@ function checkStages(r: ArrayLike<number>, c: ArrayLike<number>): void {
  * construction, in its order (sums started from 0 as there), without its loops and scratch arrays;
  * written into `into` when it fits (same stage count, phases shared exactly when the drivers are equal).
  */
-function smallLadder(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>, into?: ModalLadder): ModalLadder {
-  const n = r.length;
-  checkStages(r, c);
-  const { loadResistance, loadCapacitance, driverHigh, driverLow, high: vHigh, low: vLow } = circuit;
+function smallLadder(n: number, into?: ModalLadder): ModalLadder {
+  const r = R_S;
+  const c = C_S;
+  const loadResistance = K_OPEN ? null : K[LOAD_R];
+  const loadCapacitance = K[LOAD_C];
+  const driverHigh = K[DRIVER_HIGH];
+  const driverLow = K[DRIVER_LOW];
+  const vHigh = K[HIGH];
+  const vLow = K[LOW];
   const equal = driverHigh === driverLow;
   const gLoad = loadResistance !== null ? 1 / loadResistance : 0;
   // DC gains per volt of the pin (circuit/dcGain.ts), into G_HIGH and G_LOW
@@ -151,51 +183,90 @@ function smallLadder(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<
   const H = EIG_H.vectors;
   const L = equal ? H : EIG_L.vectors;
   const d0 = equal ? G_HIGH[0] * span : G_HIGH[0] * vHigh - gLow[0] * vLow;
-  const m = into !== undefined && into.n === n && (into.hi === into.lo) === equal ? (into as MutableModal) : fresh(n, equal);
+  const outLow = gLow[last] * vLow;
+  const outHigh = G_HIGH[last] * vHigh;
+  let mix0: number;
+  let mix1 = 0;
+  let mix2 = 0;
+  let mix3 = 0;
+  let delta0: number;
+  let delta1 = 0;
+  if (n === 1) {
+    mix0 = 0 + L[0] * H[0];
+    delta0 = 0 + H[0] * cs0 * d0;
+  } else {
+    mix0 = 0 + L[0] * H[0] + L[2] * H[2];
+    mix1 = 0 + L[0] * H[1] + L[2] * H[3];
+    mix2 = 0 + L[1] * H[0] + L[3] * H[2];
+    mix3 = 0 + L[1] * H[1] + L[3] * H[3];
+    delta0 = 0 + H[0] * cs0 * d0 + H[2] * cs1 * d1;
+    delta1 = 0 + H[1] * cs0 * d0 + H[3] * cs1 * d1;
+  }
+  const reuse = into !== undefined && into.n === n && into.symmetric && (into.hi === into.lo) === equal;
+  if (!reuse) {
+    // a new object, every field at its final value (no field changes its kind afterwards)
+    const two = n === 2;
+    const hi: PhaseModes = { rate: two ? pair(EIG_H.values[0], EIG_H.values[1]) : one(EIG_H.values[0]), out: two ? pair(outH0, outH1) : one(outH0) };
+    const lo: PhaseModes = equal ? hi : { rate: two ? pair(EIG_L.values[0], EIG_L.values[1]) : one(EIG_L.values[0]), out: two ? pair(outL0, outL1) : one(outL0) };
+    const mix = two ? four(mix0, mix1, mix2, mix3) : one(mix0);
+    const delta = two ? pair(delta0, delta1) : one(delta0);
+    return { n, period: K[PERIOD], high: vHigh, low: vLow, symmetric: true, hi, lo, mix, delta, outLow, outHigh, condition: 1 };
+  }
+  const m = into as MutableModal;
   const hi = m.hi as MutablePhase;
   const lo = m.lo as MutablePhase;
   hi.rate[0] = EIG_H.values[0];
   hi.out[0] = outH0;
+  m.mix[0] = mix0;
+  m.delta[0] = delta0;
   if (!equal) {
     lo.rate[0] = EIG_L.values[0];
     lo.out[0] = outL0;
   }
-  if (n === 1) {
-    m.mix[0] = 0 + L[0] * H[0];
-    m.delta[0] = 0 + H[0] * cs0 * d0;
-  } else {
+  if (n === 2) {
     hi.rate[1] = EIG_H.values[1];
     hi.out[1] = outH1;
     if (!equal) {
       lo.rate[1] = EIG_L.values[1];
       lo.out[1] = outL1;
     }
-    m.mix[0] = 0 + L[0] * H[0] + L[2] * H[2];
-    m.mix[1] = 0 + L[0] * H[1] + L[2] * H[3];
-    m.mix[2] = 0 + L[1] * H[0] + L[3] * H[2];
-    m.mix[3] = 0 + L[1] * H[1] + L[3] * H[3];
-    m.delta[0] = 0 + H[0] * cs0 * d0 + H[2] * cs1 * d1;
-    m.delta[1] = 0 + H[1] * cs0 * d0 + H[3] * cs1 * d1;
+    m.mix[1] = mix1;
+    m.mix[2] = mix2;
+    m.mix[3] = mix3;
+    m.delta[1] = delta1;
   }
-  m.period = circuit.period;
-  m.symmetric = true;
-  m.condition = 1;
+  m.period = K[PERIOD];
   m.high = vHigh;
   m.low = vLow;
-  m.outLow = gLow[last] * vLow;
-  m.outHigh = G_HIGH[last] * vHigh;
+  m.outLow = outLow;
+  m.outHigh = outHigh;
   return m;
+}
+
+// Arrays of the modal form hold unboxed doubles whatever their values (a mix of exactly [1] stays
+// a double array): every consumer then sees one kind of array.
+function one(a: number): number[] {
+  const v = [0.5];
+  v[0] = a;
+  return v;
+}
+function pair(a: number, b: number): number[] {
+  const v = [0.5, 0.5];
+  v[0] = a;
+  v[1] = b;
+  return v;
+}
+function four(a: number, b: number, c: number, d: number): number[] {
+  const v = [0.5, 0.5, 0.5, 0.5];
+  v[0] = a;
+  v[1] = b;
+  v[2] = c;
+  v[3] = d;
+  return v;
 }
 
 type MutablePhase = { rate: number[]; out: number[] };
 type MutableModal = { -readonly [K in keyof ModalLadder]: ModalLadder[K] } & { mix: number[]; delta: number[] };
-
-/** A modal form of n (1 or 2) stages to fill; both phases one object when the drivers are equal. */
-function fresh(n: number, equal: boolean): MutableModal {
-  const hi: PhaseModes = { rate: zeros(n), out: zeros(n) };
-  const lo: PhaseModes = equal ? hi : { rate: zeros(n), out: zeros(n) };
-  return { n, period: 0, high: 0, low: 0, symmetric: true, hi, lo, mix: zeros(n * n), delta: zeros(n), outLow: 0, outHigh: 0, condition: 1 };
-}
 
 /** Scratch of the order-2 eigenproblems (order 1 uses the first entries). */
 const EIG_H = { values: [0.5, 0.5], vectors: [0.5, 0.5, 0.5, 0.5] };
@@ -214,15 +285,28 @@ function phase(n: number, first: number): { modes: PhaseModes; basis: number[] }
     }
   }
   const { values, vectors } = symmetricEigen(S, n, { vectors: true });
-  const out = zeros(n);
+  const out = doubles(n);
   for (let i = 0; i < n; i++) out[i] = vectors[(n - 1) * n + i] / CS[n - 1];
   return { modes: { rate: values, out }, basis: vectors };
 }
 
-// Scratch of one call (single-threaded; each worker has its own module): sqrt C, conductances into
+// Scratch of one call (single-threaded; each worker has its own module): the stages, sqrt C, conductances into
 // each node, the symmetric matrix S, DC gains per volt and Delta in node coordinates. Plain arrays
 // of doubles, as everywhere else symmetricEigen and dividerGain are called, so that their element
 // accesses stay monomorphic.
+// The circuit's numbers in a typed array (a module-level number variable would box each double
+// stored into it: an allocation per field per call), and whether the output is open.
+const PERIOD = 0;
+const HIGH = 1;
+const LOW = 2;
+const DRIVER_HIGH = 3;
+const DRIVER_LOW = 4;
+const LOAD_R = 5;
+const LOAD_C = 6;
+const K = new Float64Array(7);
+let K_OPEN = true;
+let R_S = doubles(4);
+let C_S = doubles(4);
 let CS = doubles(4);
 let G_IN = doubles(5);
 let S = doubles(16);
@@ -230,13 +314,10 @@ let G_HIGH = doubles(4);
 let G_LOW = doubles(4);
 let DC_DELTA = doubles(4);
 
-function doubles(n: number): number[] {
-  const v = zeros(n);
-  for (let i = 0; i < n; i++) v[i] = 0.5; // a double: the array is stored unboxed from the start
-  return v;
-}
 
 function grow(n: number): void {
+  R_S = doubles(n);
+  C_S = doubles(n);
   CS = doubles(n);
   G_IN = doubles(n + 1);
   S = doubles(n * n);

@@ -1,4 +1,5 @@
-import { zeros } from '../../numeric/dense.js';
+import './doubleFields.js';
+import { doubles, zeros } from '../../numeric/dense.js';
 import { solveLinear } from '../../numeric/lu.js';
 import { phi2 } from '../../numeric/phi.js';
 import type { ModalLadder } from './modalLadder.js';
@@ -41,10 +42,25 @@ export interface PeriodicState {
  * taken from the DC state that needs the smaller correction (x_l + u below duty 1/2, x_h - v above),
  * as in dutyPlan.ts.
  *
- * Syntax: periodicState(modal, duty)
+ * With `into`, a state from an earlier call on a ladder of as many stages, one and two stages are
+ * written into it (arrays and curves included) and it is returned: a search that keeps a few
+ * states per candidate allocates nothing per candidate. Other orders ignore it.
+ *
+ * Syntax: periodicState(modal, duty[, into])
  * Example: periodicState(modalLadder(ladder)!, 0.5).average  // V
  */
-export function periodicState(m: ModalLadder, duty: number): PeriodicState {
+export function periodicState(m: ModalLadder, duty: number, into?: PeriodicState): PeriodicState {
+  return m.n <= 2 ? smallPeriodicState(m, duty, into !== undefined && into.start.length === m.n ? into : undefined) : periodicStateAnyOrder(m, duty);
+}
+
+/**
+ * periodicState by the general-order code for any number of stages; periodicState uses it from
+ * three stages on. Callable by name so that tests hold the scalar one- and two-stage path to it.
+ *
+ * Syntax: periodicStateAnyOrder(modal, duty)
+ * Example: periodicStateAnyOrder(modalLadder(ladder)!, 0.5).average  // equal to periodicState(...)
+ */
+export function periodicStateAnyOrder(m: ModalLadder, duty: number): PeriodicState {
   const { n, period, hi, lo, mix, delta } = m;
   const t1 = duty * period;
   const t2 = (1 - duty) * period;
@@ -126,8 +142,165 @@ export function periodicState(m: ModalLadder, duty: number): PeriodicState {
     yStart,
     meanOffset,
     average: yStart + meanOffset,
-    high: { offset: 0, gain: aHigh.map((a) => -a), rate: hi.rate, length: t1 },
-    low: { offset: yEnd, gain: aLow.map((a) => -a), rate: lo.rate, length: t2 },
+    high: { offset: 0, gain: negated(aHigh), rate: hi.rate, length: t1 },
+    low: { offset: yEnd, gain: negated(aLow), rate: lo.rate, length: t2 },
   };
 }
 
+/**
+ * periodicStateAnyOrder for one or two stages on scalars: every operation of the general code in
+ * its order (sums started from 0 as there; the 2 x 2 solve is solveLinear's elimination with
+ * partial pivoting, operation for operation), without its work arrays: only the result is
+ * allocated. The design search asks for two states per candidate it bounds the settling of.
+ */
+function smallPeriodicState(m: ModalLadder, duty: number, into?: PeriodicState): PeriodicState {
+  const { period, hi, lo, mix, delta } = m;
+  const two = m.n === 2;
+  const t1 = duty * period;
+  const t2 = (1 - duty) * period;
+  const rh0 = hi.rate[0];
+  const rl0 = lo.rate[0];
+  const rh1 = two ? hi.rate[1] : 0;
+  const rl1 = two ? lo.rate[1] : 0;
+  const kh0 = -Math.expm1(rh0 * t1);
+  const kl0 = -Math.expm1(rl0 * t2);
+  const el0 = Math.exp(rl0 * t2);
+  const kh1 = two ? -Math.expm1(rh1 * t1) : 0;
+  const kl1 = two ? -Math.expm1(rl1 * t2) : 0;
+  const el1 = two ? Math.exp(rl1 * t2) : 0;
+  const x00 = mix[0];
+  const x01 = two ? mix[1] : 0;
+  const x10 = two ? mix[2] : 0;
+  const x11 = two ? mix[3] : 0;
+  const d0 = delta[0];
+  const d1 = two ? delta[1] : 0;
+  // start (u) and drive (v), as in the general code
+  let u0: number;
+  let u1 = 0;
+  let v0: number;
+  let v1 = 0;
+  if (t2 === 0) {
+    u0 = d0;
+    u1 = d1;
+    v0 = 0;
+  } else if (!two) {
+    const den = kl0 + el0 * kh0;
+    u0 = (el0 * kh0 * d0) / den;
+    v0 = (kl0 * d0) / den;
+  } else {
+    // Y = [a b; c d] and the right-hand sides [e g; f h], as the general loop forms them
+    let a = x00 * (kl0 + el0 * kh0);
+    let b = x01 * (kl0 + el0 * kh1);
+    let c = x10 * (kl1 + el1 * kh0);
+    let d = x11 * (kl1 + el1 * kh1);
+    let e = el0 * (0 + x00 * kh0 * d0 + x01 * kh1 * d1);
+    let g = kl0 * (0 + x00 * d0 + x01 * d1);
+    let f = el1 * (0 + x10 * kh0 * d0 + x11 * kh1 * d1);
+    let h = kl1 * (0 + x10 * d0 + x11 * d1);
+    // numeric/lu.ts factor (strict) and luSolve for order 2, two columns
+    if (Math.abs(c) > Math.abs(a)) {
+      let t = a;
+      a = c;
+      c = t;
+      t = b;
+      b = d;
+      d = t;
+      t = e;
+      e = f;
+      f = t;
+      t = g;
+      g = h;
+      h = t;
+    }
+    const big0 = Math.abs(a);
+    if (big0 === 0 || !Number.isFinite(big0)) throw new RangeError('periodicState: singular period map (not a physical ladder)');
+    const l = c / a;
+    if (l !== 0) d -= l * b;
+    const big1 = Math.abs(d);
+    if (big1 === 0 || !Number.isFinite(big1)) throw new RangeError('periodicState: singular period map (not a physical ladder)');
+    u1 = (f - l * e) / d;
+    u0 = (e - b * u1) / a;
+    v1 = (h - l * g) / d;
+    v0 = (g - b * v1) / a;
+  }
+  const aHigh0 = hi.out[0] * v0;
+  const aHigh1 = two ? hi.out[1] * v1 : 0;
+  const w0 = kh0 * v0;
+  const w1 = kh1 * v1;
+  let yEnd = 0 + aHigh0 * kh0;
+  let fromLow = 0 + hi.out[0] * u0;
+  let fromHigh = 0 + hi.out[0] * v0;
+  if (two) {
+    yEnd += aHigh1 * kh1;
+    fromLow += hi.out[1] * u1;
+    fromHigh += hi.out[1] * v1;
+  }
+  const aLow0 = lo.out[0] * (0 - x00 * (u0 + w0) - x01 * (u1 + w1));
+  const aLow1 = two ? lo.out[1] * (0 - x10 * (u0 + w0) - x11 * (u1 + w1)) : 0;
+  let integral = t2 * yEnd;
+  integral += aHigh0 * -rh0 * t1 * t1 * phi2(rh0 * t1);
+  integral += aLow0 * -rl0 * t2 * t2 * phi2(rl0 * t2);
+  if (two) {
+    integral += aHigh1 * -rh1 * t1 * t1 * phi2(rh1 * t1);
+    integral += aLow1 * -rl1 * t2 * t2 * phi2(rl1 * t2);
+  }
+  const meanOffset = integral / period;
+  const yStart = duty > 0.5 ? m.outHigh - fromHigh : m.outLow + fromLow;
+  if (into !== undefined) {
+    const high = into.high as Curve;
+    const low = into.low as Curve;
+    into.duty = duty;
+    into.t1 = t1;
+    into.t2 = t2;
+    into.start[0] = u0;
+    high.gain[0] = -aHigh0;
+    low.gain[0] = -aLow0;
+    if (two) {
+      into.start[1] = u1;
+      high.gain[1] = -aHigh1;
+      low.gain[1] = -aLow1;
+    }
+    into.yStart = yStart;
+    into.meanOffset = meanOffset;
+    into.average = yStart + meanOffset;
+    high.offset = 0;
+    high.rate = hi.rate;
+    high.length = t1;
+    low.offset = yEnd;
+    low.rate = lo.rate;
+    low.length = t2;
+    return into;
+  }
+  const start = two ? [0.5, 0.5] : [0.5];
+  const gainHigh = two ? [0.5, 0.5] : [0.5];
+  const gainLow = two ? [0.5, 0.5] : [0.5];
+  start[0] = u0;
+  gainHigh[0] = -aHigh0;
+  gainLow[0] = -aLow0;
+  if (two) {
+    start[1] = u1;
+    gainHigh[1] = -aHigh1;
+    gainLow[1] = -aLow1;
+  }
+  return {
+    duty,
+    t1,
+    t2,
+    start,
+    yStart,
+    meanOffset,
+    average: yStart + meanOffset,
+    high: { offset: 0, gain: gainHigh, rate: hi.rate, length: t1 },
+    low: { offset: yEnd, gain: gainLow, rate: lo.rate, length: t2 },
+  };
+}
+
+/** A phase curve whose every field may be set. */
+type Curve = { offset: number; gain: number[]; rate: readonly number[]; length: number };
+
+/** -a in a new array of doubles (whatever the values: every phase curve's gains are one kind of array). */
+function negated(a: number[]): number[] {
+  const out = doubles(a.length);
+  for (let i = 0; i < a.length; i++) out[i] = -a[i];
+  return out;
+}

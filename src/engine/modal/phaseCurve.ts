@@ -1,3 +1,4 @@
+import './doubleFields.js';
 import { zeros } from '../../numeric/dense.js';
 import { expSumRoots } from '../../numeric/expSumRoots.js';
 
@@ -61,7 +62,7 @@ export function curveTurningPoints(c: PhaseCurve): number[] {
  * Example: curveExtrema(curve).max - curveExtrema(curve).min  // the swing within the phase
  */
 export function curveExtrema(c: PhaseCurve): CurveExtrema {
-  if (c.gain.length <= 2) return smallCurveExtrema(c);
+  if (c.gain.length <= 2) return smallCurveExtrema(c, { max: 0.5, tMax: 0.5, min: 0.5, tMin: 0.5 });
   let max = c.offset;
   let min = c.offset;
   let tMax = 0;
@@ -86,6 +87,35 @@ export function curveExtrema(c: PhaseCurve): CurveExtrema {
 }
 
 /**
+ * curveExtrema written into `out` (returned), for callers that examine many curves in a row: no
+ * allocation for one or two terms (the settling bound's period-by-period search).
+ *
+ * Syntax: curveExtremaInto(curve, out)
+ * Example: curveExtremaInto(curve, scratch).max  // as curveExtrema(curve).max
+ */
+export function curveExtremaInto(c: PhaseCurve, out: CurveExtrema): CurveExtrema {
+  if (c.gain.length <= 2) return smallCurveExtrema(c, out);
+  const x = curveExtrema(c);
+  out.max = x.max;
+  out.tMax = x.tMax;
+  out.min = x.min;
+  out.tMin = x.tMin;
+  return out;
+}
+
+/**
+ * The one turning point a curve of at most two terms can have inside (0, length), or -1 (none, or
+ * one term): curveTurningPoints without an array, for callers that examine many curves.
+ *
+ * Syntax: smallTurningPoint(curve)
+ * Example: smallTurningPoint({ offset: 0, gain: [1, -3], rate: [-1, -2], length: 5 })  // ln(6) s
+ */
+export function smallTurningPoint(c: PhaseCurve): number {
+  if (c.gain.length !== 2 || !(c.length > 0)) return -1;
+  return twoTermTurningPoint(c);
+}
+
+/**
  * The turning point of a two-term curve inside (0, length), or -1: the root of
  * g0 r0 e^(r0 t) + g1 r1 e^(r1 t), t = ln(-g1 r1 / (g0 r0)) / (r0 - r1) (closed form; rates distinct).
  */
@@ -99,24 +129,40 @@ function twoTermTurningPoint(c: PhaseCurve): number {
   return t > 0 && t < c.length ? t : -1;
 }
 
-/** curveExtrema for one or two terms without allocating: ends and the closed-form turning point. */
-function smallCurveExtrema(c: PhaseCurve): CurveExtrema {
+/** curveExtrema for one or two terms into `out`: ends and the closed-form turning point. */
+function smallCurveExtrema(c: PhaseCurve, out: CurveExtrema): CurveExtrema {
   let max = c.offset;
   let min = c.offset;
   let tMax = 0;
   let tMin = 0;
   if (c.length > 0) {
     const end = curveValue(c, c.length);
-    if (end > max) [max, tMax] = [end, c.length];
-    if (end < min) [min, tMin] = [end, c.length];
+    if (end > max) {
+      max = end;
+      tMax = c.length;
+    }
+    if (end < min) {
+      min = end;
+      tMin = c.length;
+    }
     if (c.gain.length === 2) {
       const t = twoTermTurningPoint(c);
       if (t > 0) {
         const v = curveValue(c, t);
-        if (v > max) [max, tMax] = [v, t];
-        if (v < min) [min, tMin] = [v, t];
+        if (v > max) {
+          max = v;
+          tMax = t;
+        }
+        if (v < min) {
+          min = v;
+          tMin = t;
+        }
       }
     }
   }
-  return { max, tMax, min, tMin };
+  out.max = max;
+  out.tMax = tMax;
+  out.min = min;
+  out.tMin = tMin;
+  return out;
 }

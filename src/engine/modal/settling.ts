@@ -58,12 +58,12 @@ export function modalSettling(
   const err = stepError(m, target, source, ss);
   if (err === null) return 0;
   const { n } = m;
-  const { zeta, bound, power } = err;
+  const { zeta, bound } = err;
 
   const margin = Math.min(band - ss.above, band + ss.below);
   const envelope = (k: number) => {
     let s = 0;
-    for (let j = 0; j < n; j++) s += Math.abs(zeta[j]) * bound[j] * power(j, k);
+    for (let j = 0; j < n; j++) s += Math.abs(zeta[j]) * bound[j] * err.power(j, k);
     return s;
   };
   let last = -1;
@@ -89,8 +89,8 @@ export function modalSettling(
       evaluations++;
       let slack = 0;
       for (let j = 0; j < n; j++) {
-        const pa = power(j, a);
-        const pb = power(j, b);
+        const pa = err.power(j, a);
+        const pb = err.power(j, b);
         coef[j] = zeta[j] * 0.5 * (pa + pb);
         slack += Math.abs(zeta[j]) * bound[j] * 0.5 * (pa - pb);
       }
@@ -125,7 +125,7 @@ export function modalSettling(
     last = 0;
   } else {
     const coef = zeros(n);
-    for (let j = 0; j < n; j++) coef[j] = zeta[j] * power(j, last);
+    for (let j = 0; j < n; j++) coef[j] = zeta[j] * err.power(j, last);
     err.setModes(coef);
   }
   return err.lastExit(last, band);

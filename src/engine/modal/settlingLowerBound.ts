@@ -1,7 +1,6 @@
-import { zeros } from '../../numeric/dense.js';
 import type { ModalLadder } from './modalLadder.js';
 import { periodicState, type PeriodicState } from './periodicState.js';
-import { steadyError, stepError } from './stepError.js';
+import { reusedStepError, steadyError, type SteadyError } from './stepError.js';
 
 /** Largest period index looked at (2^52: beyond it a period count is no longer exact). */
 const MAX_PERIODS = 2 ** 52;
@@ -42,26 +41,18 @@ export function settlingLowerBound(
   ceiling = Infinity,
 ): number {
   if (!m.symmetric) throw new RangeError('settlingLowerBound: follower-free ladders only');
-  const ss = steadyError(target);
+  // The steady error and the step's modes in objects kept from the last call (nothing allocated).
+  const ss = steadyError(target, SS);
   if (ss.above > band || ss.below < -band) return Infinity;
-  const err = stepError(m, target, source, ss);
+  const err = reusedStepError(m, target, source, ss);
   if (err === null) return 0;
   const { n } = m;
-  const { zeta, logMu, lead, power } = err;
+  const { zeta, logMu, lead } = err;
   const margin = band - Math.max(ss.above, -ss.below, 0);
 
-  const coef = zeros(n);
-  /** Set the error curves to period k. */
-  const setPeriod = (k: number): void => {
-    if (k === 0) {
-      err.setFirstPeriod();
-      return;
-    }
-    for (let j = 0; j < n; j++) coef[j] = zeta[j] * power(j, k);
-    err.setModes(coef);
-  };
+  /** The error curves of period k leave the band. */
   const leaves = (k: number): boolean => {
-    setPeriod(k);
+    err.setPeriod(k);
     return err.leaves(band, 0);
   };
 
@@ -109,6 +100,19 @@ export function settlingLowerBound(
     if (leaves(mid)) kv = mid;
     else kn = mid;
   }
-  setPeriod(kv);
+  err.setPeriod(kv);
   return err.lastExit(kv, band);
 }
+
+/** The steady error of the last call, refilled by each. */
+const SS: SteadyError = steadyError({
+  duty: 0.5,
+  t1: 0.5,
+  t2: 0.5,
+  start: [0.5],
+  yStart: 0.5,
+  meanOffset: 0.5,
+  average: 0.5,
+  high: { offset: 0.5, gain: [0.5], rate: [0.5], length: 0.5 },
+  low: { offset: 0.5, gain: [0.5], rate: [0.5], length: 0.5 },
+});

@@ -1,3 +1,4 @@
+import './doubleFields.js';
 import { solveTwoByTwo } from '../../numeric/lu.js';
 import { phi2 } from '../../numeric/phi.js';
 import type { ModalLadder } from './modalLadder.js';
@@ -31,10 +32,17 @@ export interface SmallState {
  * stages, which are most tolerance samples and most design candidates: no arrays are allocated,
  * so millions of calls stay cheap.
  *
- * Syntax: smallState(modal, duty)
+ * With `into` (an earlier result) the figures are written there and it is returned: a search
+ * that reads each state at once allocates nothing (an object's number fields are boxed, so a new
+ * state costs fifteen allocations).
+ *
+ * With `withMean` false the time average is not integrated (meanOffset and average are NaN): for
+ * a caller that needs the ripple only, which smallExtrema takes from the other figures.
+ *
+ * Syntax: smallState(modal, duty[, into[, withMean]])
  * Example: smallState(modalLadder(oneStage)!, 0.5).average  // V
  */
-export function smallState(m: ModalLadder, duty: number): SmallState {
+export function smallState(m: ModalLadder, duty: number, into?: SmallState, withMean = true): SmallState {
   const { period, hi, lo, mix, delta } = m;
   const two = m.n === 2;
   const t1 = duty * period;
@@ -92,30 +100,50 @@ export function smallState(m: ModalLadder, duty: number): SmallState {
   const yEnd = aHigh0 * kh0 + aHigh1 * kh1;
   const aLow0 = lo.out[0] * -(x00 * (u0 + w0) + x01 * (u1 + w1));
   const aLow1 = two ? lo.out[1] * -(x10 * (u0 + w0) + x11 * (u1 + w1)) : 0;
-  let integral = t2 * yEnd - aHigh0 * rh0 * t1 * t1 * phi2(rh0 * t1) - aLow0 * rl0 * t2 * t2 * phi2(rl0 * t2);
-  if (two) integral -= aHigh1 * rh1 * t1 * t1 * phi2(rh1 * t1) + aLow1 * rl1 * t2 * t2 * phi2(rl1 * t2);
+  let integral = NaN;
+  if (withMean) {
+    integral = t2 * yEnd - aHigh0 * rh0 * t1 * t1 * phi2(rh0 * t1) - aLow0 * rl0 * t2 * t2 * phi2(rl0 * t2);
+    if (two) integral -= aHigh1 * rh1 * t1 * t1 * phi2(rh1 * t1) + aLow1 * rl1 * t2 * t2 * phi2(rl1 * t2);
+  }
   // the output at the rising edge from the DC state needing the smaller correction
   const yStart =
     duty > 0.5
       ? m.outHigh - (hi.out[0] * v0 + (two ? hi.out[1] * v1 : 0))
       : m.outLow + hi.out[0] * u0 + (two ? hi.out[1] * u1 : 0);
   const meanOffset = integral / period;
-  return {
-    t1,
-    t2,
-    yStart,
-    meanOffset,
-    average: yStart + meanOffset,
-    yEnd,
-    aHigh0,
-    aHigh1,
-    aLow0,
-    aLow1,
-    rh0,
-    rh1,
-    rl0,
-    rl1,
-  };
+  if (into === undefined) {
+    return {
+      t1,
+      t2,
+      yStart,
+      meanOffset,
+      average: yStart + meanOffset,
+      yEnd,
+      aHigh0,
+      aHigh1,
+      aLow0,
+      aLow1,
+      rh0,
+      rh1,
+      rl0,
+      rl1,
+    };
+  }
+  into.t1 = t1;
+  into.t2 = t2;
+  into.yStart = yStart;
+  into.meanOffset = meanOffset;
+  into.average = yStart + meanOffset;
+  into.yEnd = yEnd;
+  into.aHigh0 = aHigh0;
+  into.aHigh1 = aHigh1;
+  into.aLow0 = aLow0;
+  into.aLow1 = aLow1;
+  into.rh0 = rh0;
+  into.rh1 = rh1;
+  into.rl0 = rl0;
+  into.rl1 = rl1;
+  return into;
 }
 
 /**

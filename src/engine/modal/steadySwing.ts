@@ -1,7 +1,8 @@
+import './doubleFields.js';
 import type { ModalLadder } from './modalLadder.js';
 import { periodicState, type PeriodicState } from './periodicState.js';
 import { curveExtrema } from './phaseCurve.js';
-import { smallExtrema, smallState } from './smallState.js';
+import { smallExtrema, smallState, type SmallState } from './smallState.js';
 
 /** The figures of one periodic steady state a search asks for, deviations kept apart from the level. */
 export interface SteadySwing {
@@ -16,8 +17,9 @@ export interface SteadySwing {
   below: number;
 }
 
-/** Scratch for smallExtrema (read at once). */
-const EXT = { max: 0, min: 0 };
+/** Scratch for smallExtrema and smallState (read at once). */
+const EXT = { max: 0.5, min: 0.5 };
+const SMALL: SmallState = { t1: 0.5, t2: 0.5, yStart: 0.5, meanOffset: 0.5, average: 0.5, yEnd: 0.5, aHigh0: 0.5, aHigh1: 0.5, aLow0: 0.5, aLow1: 0.5, rh0: 0.5, rh1: 0.5, rl0: 0.5, rl1: 0.5 };
 
 /**
  * Ripple, average, output at the rising edge and the excursions about the average of the
@@ -30,14 +32,17 @@ const EXT = { max: 0, min: 0 };
  * above = max - meanOffset, below = meanOffset - min, all differences of deviations, so each keeps
  * its digits however small the ripple is next to the level.
  *
- * Syntax: steadySwing(modal, duty[, state])
+ * With `into` (an earlier result) the figures are written there and it is returned; one and two
+ * stages then allocate nothing.
+ *
+ * Syntax: steadySwing(modal, duty[, state[, into]])
  * Example: steadySwing(modalLadderOf(circuit, [1e3, 10e3], [1e-6, 100e-9]), 0.5).ripple  // V
  */
-export function steadySwing(m: ModalLadder, duty: number, state?: PeriodicState): SteadySwing {
+export function steadySwing(m: ModalLadder, duty: number, state?: PeriodicState, into?: SteadySwing): SteadySwing {
   if (m.n <= 2 && state === undefined) {
-    const s = smallState(m, duty);
+    const s = smallState(m, duty, SMALL);
     smallExtrema(s, EXT);
-    return { ripple: EXT.max - EXT.min, average: s.average, yStart: s.yStart, above: EXT.max - s.meanOffset, below: s.meanOffset - EXT.min };
+    return swingOf(EXT.max - EXT.min, s.average, s.yStart, EXT.max - s.meanOffset, s.meanOffset - EXT.min, into);
   }
   const s = state ?? periodicState(m, duty);
   const h = curveExtrema(s.high);
@@ -48,5 +53,15 @@ export function steadySwing(m: ModalLadder, duty: number, state?: PeriodicState)
   if (h.min < min) min = h.min;
   if (l.max > max) max = l.max;
   if (l.min < min) min = l.min;
-  return { ripple: max - min, average: s.average, yStart: s.yStart, above: max - s.meanOffset, below: s.meanOffset - min };
+  return swingOf(max - min, s.average, s.yStart, max - s.meanOffset, s.meanOffset - min, into);
+}
+
+function swingOf(ripple: number, average: number, yStart: number, above: number, below: number, into?: SteadySwing): SteadySwing {
+  if (into === undefined) return { ripple, average, yStart, above, below };
+  into.ripple = ripple;
+  into.average = average;
+  into.yStart = yStart;
+  into.above = above;
+  into.below = below;
+  return into;
 }
