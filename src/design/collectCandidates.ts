@@ -1,6 +1,7 @@
-import { modalLadderOf, periodicState, settlingLowerBound, steadySwing, type ModalLadder, type PeriodicState, type SteadySwing } from '../engine/index.js';
+import { curveValue, modalLadderOf, periodicState, settlingLowerBound, steadySwing, type ModalLadder, type PeriodicState, type SteadySwing } from '../engine/index.js';
 import type { DesignProblem } from './designProblem.js';
 import { dcTransferMiss } from './dcTransferMiss.js';
+import { droopFloor, droopFloorPlan, type DroopFloorPlan } from './droopFloor.js';
 import { gainFloor } from './gainFloor.js';
 import { inlFloor, inlFloorPlan, type InlFloorPlan } from './inlFloor.js';
 import { maximizeOverDuty } from './maximizeOverDuty.js';
@@ -93,7 +94,8 @@ function paretoThreshold(pareto: ParetoState, ripple: number): number {
  * rule out and whose settling lower bound is at most state.theta (which may fall as candidates
  * come in). Ruled out, each by a lower bound on the engine's figure: pin peak current over the
  * limit (R1 only); droop over the limit (resistors only, below; with unequal drivers also the
- * fast droop maximised over the duty); gain error over the limit (resistors only, gainFloor.ts:
+ * fast droop maximised over the duty, and first the droop floor from the resistors and the first
+ * two capacitors, droopFloor.ts); gain error over the limit (resistors only, gainFloor.ts:
  * R_s / (R_L + R_s) of full scale for equal drivers, the DC divider of the series resistance and
  * the load; with unequal drivers also the fast model's exact endpoint averages); the ripple at the duty nearest 50 % over the limit; never
  * settling; settling lower bound over the time limit.
@@ -116,7 +118,11 @@ function paretoThreshold(pareto: ParetoState, ripple: number): number {
  * capacitor from the previous column's step upward, columns from the largest first capacitor
  * down); the settling lower bound tau_slow * factor - slack grows with every capacitor (Rayleigh
  * quotient, slowestTimeConstant.ts), which cuts each column and ends the walk. Staircase points
- * are evaluated first, so theta falls before the inner points are visited. A point then gets the
+ * are evaluated first, so theta falls before the inner points are visited. From three stages on,
+ * the capacitors before the last two are looped over, and a slice of the innermost of them whose
+ * staircase box (boxOf) has its far corner ripple-infeasible holds nothing; one ripple check at a
+ * larger value of that capacitor with this slice's corner rules out every slice in between
+ * (deadThrough), so runs of such slices cost a bisection, not a check each. A point then gets the
  * cheaper bound tau_slow ln(z0 / (band + excursion)) from its own steady states, and only then the
  * exact settling lower bound (the engine's settlingLowerBound). The fast model is the engine's
  * modal form of each candidate (modalLadderOf): steady states from steadySwing (scalar code for one
@@ -153,6 +159,11 @@ export function collectCandidates(
   // (dcTransferMiss.ts, same duties, same allowance) rules out too, without a steady state.
   const inlPlans = new WeakMap<number[], InlFloorPlan | null>();
   const inlApplies = limits.inl !== undefined && !lti;
+  // A walk with a budget (the explanations' side searches) is cut after so many fast evaluations,
+  // and its answer is whatever it found by then: the prunings that skip points without evaluating
+  // them (the droop floor, whole slices by deadThrough) would move that cut and change the answer,
+  // so such a walk goes without them (it is short anyway).
+  const budgeted = state.budget !== undefined;
   const inlOver = (rs: number[], cs: number[]): boolean => {
     if (!inlApplies) return false;
     let plan = inlPlans.get(rs);
@@ -162,6 +173,25 @@ export function collectCandidates(
     }
     return plan !== null && inlFloor(plan, cs) > problem.limits.inl! * (1 + REL) + 1e-15;
   };
+  // Unequal drivers with a droop limit: likewise a floor on the droop (droopFloor.ts), per resistor
+  // tuple; it rules out only points the fast droop check (same grid duties, same allowance) rules
+  // out, without a model. Where the droop binds (a load, unequal drivers) it decides most points.
+  const droopPlans = new WeakMap<number[], DroopFloorPlan | null>();
+  const droopApplies = !lti && limits.droop !== undefined && !budgeted;
+  const droopOver = (rs: number[], cs: number[]): boolean => {
+    if (!droopApplies) return false;
+    let plan = droopPlans.get(rs);
+    if (plan === undefined) {
+      plan = droopFloorPlan(problem, rs);
+      droopPlans.set(rs, plan);
+    }
+    return plan !== null && exceeds(droopFloor(plan, cs), limits.droop);
+  };
+  /**
+   * A floor of the DC transfer (INL or droop) rules the point out. Both floors never fall when any
+   * capacitor grows, so every point with capacitors at least these is ruled out too.
+   */
+  const dcOver = (rs: number[], cs: number[]): boolean => inlOver(rs, cs) || droopOver(rs, cs);
 
   // Resistor tuples that pass the pin current and (time-invariant) droop limits, with bounds.
   const tuples: number[][] = [];
@@ -186,6 +216,11 @@ export function collectCandidates(
       if (exceeds((idealTop * series) / (loadR! + series), limits.droop)) continue;
     }
     if (gainFloorApplies && exceeds(gainFloor(circuit, rs, problem.dutyMin, problem.dutyMax), limits.gain)) continue;
+    // Unequal drivers: the droop floor at the smallest capacitors holds for every capacitor choice.
+    if (droopApplies) {
+      const plan = droopFloorPlan(problem, rs);
+      if (plan !== null && exceeds(droopFloor(plan, minC), limits.droop)) continue;
+    }
     const tb = tupleBounds(problem, rs);
     const tauFloor = Math.max(tb.tauMin, slowestTimeConstant(rs, minC, tb.driver, loadR, loadC));
     const key = tauFloor * tb.factor - tb.slack;
@@ -261,6 +296,34 @@ export function collectCandidates(
     state.evaluated++;
   };
 
+  /**
+   * The ripple at duty d is over `limit`. From three stages on, where the exact extremes cost a
+   * root search per phase, the output at four instants of the steady period first (both edges, the
+   * middle of each phase): their spread is at most the ripple (max - min over the period), so a
+   * spread over the limit (with twice the allowance) rules the point out as the exact check would.
+   */
+  const rippleOver = (rs: number[], cs: number[], d: number, limit: number | undefined): boolean => {
+    if (limit === undefined) return false;
+    touch(rs, cs);
+    use(rs, cs);
+    if (stages >= 3 && swingOf[slot(d)] === null) {
+      const s = steady(d);
+      const mid1 = curveValue(s.high, 0.5 * s.t1);
+      const mid2 = curveValue(s.low, 0.5 * s.t2);
+      const hi = Math.max(0, s.low.offset, mid1, mid2);
+      const lo = Math.min(0, s.low.offset, mid1, mid2);
+      if (hi - lo > limit * (1 + 2 * REL) + 1e-300) return true;
+    }
+    return exceeds(swing(d).ripple, limit);
+  };
+  /** The average output at duty d (three stages on: without the extremes the average does not need). */
+  const average = (rs: number[], cs: number[], d: number): number => {
+    if (stages < 3) return lite(rs, cs, d).average;
+    touch(rs, cs);
+    use(rs, cs);
+    return steady(d).average;
+  };
+
   /** Steady-state figures for the cheap checks. */
   const lite = (rs: number[], cs: number[], d: number): SteadySwing => {
     touch(rs, cs);
@@ -296,8 +359,8 @@ export function collectCandidates(
       }
       return true;
     }
-    if (rippleLimit !== undefined && exceeds(lite(rs, cs, dNear).ripple, rippleLimit)) return false;
-    if (checkTo) for (const d of toDuties) if (exceeds(lite(rs, cs, d).ripple, 2 * problem.band)) return false;
+    if (rippleOver(rs, cs, dNear, rippleLimit)) return false;
+    if (checkTo) for (const d of toDuties) if (rippleOver(rs, cs, d, 2 * problem.band)) return false;
     return true;
   };
 
@@ -318,7 +381,7 @@ export function collectCandidates(
     let theta = state.theta;
     const key = state.dynamic ? '' : keyOf(rs, cs);
     if (!state.dynamic && state.seen.has(key)) return;
-    if (inlOver(rs, cs)) return;
+    if (dcOver(rs, cs)) return;
     if (state.pareto) {
       // Several staircases (one per limit) share points: evaluate each once.
       const code = indexCode(rs, cs);
@@ -335,7 +398,7 @@ export function collectCandidates(
     // INL and gain error (endpoint fit) from fast averages: only the engine checked them, so a
     // space where they bind was verified candidate by candidate (dcTransferMiss.ts). Steady
     // states are kept per duty meanwhile: the droop grid and the INL grid share duties.
-    const droopError = (d: number) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - lite(rs, cs, d).average);
+    const droopError = (d: number) => Math.abs(pwm.low + d * (pwm.high - pwm.low) - average(rs, cs, d));
     const checkDroop = !lti && limits.droop !== undefined;
     // Every check below only rules out, so their order changes the cost, never the answer: the one
     // more likely to decide first goes first. With an INL limit (unequal drivers) the INL check,
@@ -343,9 +406,9 @@ export function collectCandidates(
     // the walk miss alike); the rest of the droop grid (eight more steady states) only after the
     // settling bounds, which rule out most of the points that pass that one duty.
     const gridDuty = (i: number) => problem.dutyMin + ((problem.dutyMax - problem.dutyMin) * i) / 8;
-    let miss = inlApplies && dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null;
+    let miss = inlApplies && dcTransferMiss(problem, (d) => average(rs, cs, d)) !== null;
     if (checkDroop && !miss) miss = exceeds(droopError(gridDuty(droopMissAt)), limits.droop);
-    if (!inlApplies && !miss) miss = dcTransferMiss(problem, (d) => lite(rs, cs, d).average) !== null;
+    if (!inlApplies && !miss) miss = dcTransferMiss(problem, (d) => average(rs, cs, d)) !== null;
     if (miss) return;
     // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
     const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);
@@ -427,8 +490,8 @@ export function collectCandidates(
       const v = col.cs.slice();
       v[col.p] = C[b];
       if (!col.within(v)) break;
-      // The INL floor only grows along a column (larger capacitor): nothing further passes.
-      if (inlOver(col.rs, v)) break;
+      // The DC floors only grow along a column (larger capacitor): nothing further passes.
+      if (dcOver(col.rs, v)) break;
       evaluate(col.rs, v, col.tb);
     }
   };
@@ -466,10 +529,19 @@ export function collectCandidates(
     const outer = stages - 2;
     const recurse = (depth: number): void => {
       if (depth < outer) {
+        // Innermost outer capacitor: slices up to `dead` hold no ripple-feasible point (deadThrough).
+        let dead = -1;
         for (let i = 0; i < nC; i++) {
           cs[depth] = C[i];
           for (let k = depth + 1; k < stages; k++) cs[k] = C[0];
           if (!within(cs)) break;
+          // The DC floors grow with every capacitor: a larger outer capacitor only raises them.
+          if (dcOver(rs, cs)) break;
+          if (depth === outer - 1 && !budgeted) {
+            if (i <= dead) continue;
+            dead = deadThrough(rs, cs, depth, within);
+            if (i <= dead) continue;
+          }
           recurse(depth + 1);
         }
         return;
@@ -478,6 +550,59 @@ export function collectCandidates(
     };
     recurse(0);
     return columns;
+  };
+
+  /**
+   * The box of the staircase over capacitors p, p + 1 (cs[0..p-1] fixed, cs[p..] at their smallest):
+   * the largest index of capacitor p whose column can still be within theta and pass the DC floors
+   * (-1: none), and the largest index of capacitor p + 1 within theta (both bounds grow with every
+   * capacitor). Every point the staircase may evaluate lies in it.
+   */
+  const boxOf = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean): [number, number] => {
+    const at = (a: number, b: number) => {
+      const v = cs.slice();
+      v[p] = C[a];
+      v[p + 1] = C[b];
+      return v;
+    };
+    const top = Math.min(firstTrue(nC, (i) => !within(at(i, 0))), firstTrue(nC, (i) => dcOver(rs, at(i, 0)))) - 1;
+    const bMax = firstTrue(nC, (b) => !within(at(0, b))) - 1;
+    return [top, bMax];
+  };
+
+  /**
+   * The slice of outer capacitor q = cs[q] (the one just before the staircase, the later ones at
+   * their smallest) and the slices of larger values of it after it: the last index of that
+   * capacitor up to which every slice is proven to hold no ripple-feasible point of the staircase
+   * box (index - 1 when this slice is not).
+   *
+   * Method: the staircase of a slice evaluates nothing when the ripple check fails at the far
+   * corner of its box (the lowest ripple there is at the corner: the ripple falls when any
+   * capacitor grows). Boxes only shrink as the outer capacitor grows (the bounds grow with every
+   * capacitor, and theta only falls), so a later slice j's corner is at most this slice's corner
+   * (top, bMax), and its ripple is at least that of the point (C_j; top, bMax). Hence the ripple check
+   * failing at (C_j; top, bMax) rules out every slice from this one to j; the largest such j is found
+   * by bisection (that point's ripple falls as C_j grows), starting with the last slice of the loop.
+   */
+  const deadThrough = (rs: number[], cs: number[], q: number, within: (cs: number[]) => boolean): number => {
+    const i = C.indexOf(cs[q]);
+    const [top, bMax] = boxOf(rs, cs, q + 1, within);
+    if (top < 0) return i - 1;
+    const slice = (j: number) => {
+      const v = cs.slice();
+      v[q] = C[j];
+      return v;
+    };
+    // The last slice the loop visits (within theta and the DC floors at the smallest later capacitors).
+    const last = i - 1 + firstTrue(nC - i, (k) => !within(slice(i + k)) || dcOver(rs, slice(i + k)));
+    const corner = (j: number) => {
+      const v = slice(j);
+      v[q + 1] = C[top];
+      v[q + 2] = C[bMax];
+      return v;
+    };
+    if (!rippleOk(rs, corner(last))) return last;
+    return i - 1 + firstTrue(last - i, (k) => rippleOk(rs, corner(i + k)));
   };
 
   /**
@@ -494,9 +619,9 @@ export function collectCandidates(
     if (!within(at(0, 0))) return;
     // Largest first capacitor whose column can still be within theta, and largest staircase step:
     // a step s with at(0, s) beyond theta ends the walk below, so no step above bMax is sought
-    // (theta only falls meanwhile, and the bound grows with every capacitor).
-    const top = firstTrue(nC, (i) => !within(at(i, 0))) - 1;
-    const bMax = firstTrue(nC, (b) => !within(at(0, b))) - 1;
+    // (theta only falls meanwhile, and the bound grows with every capacitor). Columns whose lowest
+    // point a DC floor rules out hold nothing (the floors grow with every capacitor).
+    const [top, bMax] = boxOf(rs, cs, p, within);
     let s = -1;
     for (let a = top; a >= 0; a--) {
       // One look at the top of the range first: a slice with no ripple-feasible step there has none.
