@@ -161,8 +161,8 @@ export function collectCandidates(
   const inlApplies = limits.inl !== undefined && !lti;
   // A walk with a budget (the explanations' side searches) is cut after so many fast evaluations,
   // and its answer is whatever it found by then: the prunings that skip points without evaluating
-  // them (the droop floor, whole slices by deadThrough) would move that cut and change the answer,
-  // so such a walk goes without them (it is short anyway).
+  // them (the droop floor, whole slices by deadThrough, the DC floors on whole columns and slices)
+  // would move that cut and change the answer, so such a walk goes without them (it is short anyway).
   const budgeted = state.budget !== undefined;
   const inlOver = (rs: number[], cs: number[]): boolean => {
     if (!inlApplies) return false;
@@ -536,7 +536,7 @@ export function collectCandidates(
           for (let k = depth + 1; k < stages; k++) cs[k] = C[0];
           if (!within(cs)) break;
           // The DC floors grow with every capacitor: a larger outer capacitor only raises them.
-          if (dcOver(rs, cs)) break;
+          if (!budgeted && dcOver(rs, cs)) break;
           if (depth === outer - 1 && !budgeted) {
             if (i <= dead) continue;
             dead = deadThrough(rs, cs, depth, within);
@@ -565,7 +565,7 @@ export function collectCandidates(
       v[p + 1] = C[b];
       return v;
     };
-    const top = Math.min(firstTrue(nC, (i) => !within(at(i, 0))), firstTrue(nC, (i) => dcOver(rs, at(i, 0)))) - 1;
+    const top = Math.min(firstTrue(nC, (i) => !within(at(i, 0))), budgeted ? nC : firstTrue(nC, (i) => dcOver(rs, at(i, 0)))) - 1;
     const bMax = firstTrue(nC, (b) => !within(at(0, b))) - 1;
     return [top, bMax];
   };
@@ -593,16 +593,31 @@ export function collectCandidates(
       v[q] = C[j];
       return v;
     };
-    // The last slice the loop visits (within theta and the DC floors at the smallest later capacitors).
-    const last = i - 1 + firstTrue(nC - i, (k) => !within(slice(i + k)) || dcOver(rs, slice(i + k)));
     const corner = (j: number) => {
       const v = slice(j);
       v[q + 1] = C[top];
       v[q + 2] = C[bMax];
       return v;
     };
-    if (!rippleOk(rs, corner(last))) return last;
-    return i - 1 + firstTrue(last - i, (k) => rippleOk(rs, corner(i + k)));
+    // This slice's own corner first: when it passes, the staircase starts with the same check (the model is kept).
+    if (rippleOk(rs, corner(i))) return i - 1;
+    // The last slice the loop visits (within theta and the DC floors at the smallest later capacitors).
+    const last = i - 1 + firstTrue(nC - i, (k) => !within(slice(i + k)) || dcOver(rs, slice(i + k)));
+    // One check at the last slice with this corner: when it fails, every slice from here on is dead.
+    if (last > i && !rippleOk(rs, corner(last))) return last;
+    // The slices whose box is this one's (no check needed to find them: the bounds alone).
+    const end = i - 1 + firstTrue(last - i + 1, (k) => {
+      const v = slice(i + k);
+      v[q + 1] = C[top];
+      if (!within(v) || dcOver(rs, v)) return true;
+      v[q + 1] = C[0];
+      v[q + 2] = C[bMax];
+      return !within(v);
+    });
+    if (end <= i) return i;
+    if (!rippleOk(rs, corner(end))) return end;
+    // corner(i) fails and corner(end) passes: the first slice in between whose corner passes.
+    return i + firstTrue(end - i - 1, (k) => rippleOk(rs, corner(i + 1 + k)));
   };
 
   /**
@@ -626,7 +641,13 @@ export function collectCandidates(
     for (let a = top; a >= 0; a--) {
       // One look at the top of the range first: a slice with no ripple-feasible step there has none.
       if (s < 0) s = rippleOk(rs, at(a, bMax)) ? firstTrue(bMax + 1, (b) => rippleOk(rs, at(a, b))) : nC;
-      else while (s <= bMax && !rippleOk(rs, at(a, s))) s++;
+      else {
+        if (!within(at(0, s))) break; // every remaining column starts at or above s
+        // A column whose point at the step so far is beyond theta has nothing within it (the bound
+        // grows with b, and its own step is at or above s): no search; s stays a valid start below.
+        if (!within(at(a, s))) continue;
+        while (s <= bMax && !rippleOk(rs, at(a, s))) s++;
+      }
       if (s > bMax) break; // smaller first capacitors only raise the ripple
       if (!within(at(0, s))) break; // every remaining column starts at or above s
       if (within(at(a, s))) {
