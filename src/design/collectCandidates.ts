@@ -552,6 +552,9 @@ export function collectCandidates(
     return columns;
   };
 
+  /** The steps of the last staircase walked, by column, with what they were walked with (walkLastTwo). */
+  let lastSteps: { rs: number[]; limit: number | undefined; before: number[]; at: number; steps: Int32Array } = { rs: [], limit: undefined, before: [], at: 0, steps: new Int32Array(0) };
+
   /**
    * The box of the staircase over capacitors p, p + 1 (cs[0..p-1] fixed, cs[p..] at their smallest):
    * the largest index of capacitor p whose column can still be within theta and pass the DC floors
@@ -599,12 +602,14 @@ export function collectCandidates(
       v[q + 2] = C[bMax];
       return v;
     };
-    // This slice's own corner first: when it passes, the staircase starts with the same check (the model is kept).
-    if (rippleOk(rs, corner(i))) return i - 1;
     // The last slice the loop visits (within theta and the DC floors at the smallest later capacitors).
     const last = i - 1 + firstTrue(nC - i, (k) => !within(slice(i + k)) || dcOver(rs, slice(i + k)));
     // One check at the last slice with this corner: when it fails, every slice from here on is dead.
-    if (last > i && !rippleOk(rs, corner(last))) return last;
+    // For the first slice that is the whole tuple's box at once, which rules out most tuples: first.
+    if (i === 0 && last > i && !rippleOk(rs, corner(last))) return last;
+    // This slice's own corner: when it passes, the staircase starts with the same check (the model is kept).
+    if (rippleOk(rs, corner(i))) return i - 1;
+    if (i > 0 && last > i && !rippleOk(rs, corner(last))) return last;
     // The slices whose box is this one's (no check needed to find them: the bounds alone).
     const end = i - 1 + firstTrue(last - i + 1, (k) => {
       const v = slice(i + k);
@@ -637,17 +642,29 @@ export function collectCandidates(
     // (theta only falls meanwhile, and the bound grows with every capacitor). Columns whose lowest
     // point a DC floor rules out hold nothing (the floors grow with every capacitor).
     const [top, bMax] = boxOf(rs, cs, p, within);
+    // Steps of the last staircase walked with the same capacitors before p - 1 and a smaller one at
+    // p - 1: each is at least this staircase's step in its column (the ripple falls when capacitor
+    // p - 1 grows), so a search stops there without a check, and needs none when the step so far
+    // already reached it.
+    const prior = p >= 1 && lastSteps.rs === rs && lastSteps.limit === rippleLimit && sameAs(lastSteps.before, cs.slice(0, p - 1)) && lastSteps.at < cs[p - 1] ? lastSteps.steps : null;
+    const steps = new Int32Array(nC).fill(-1);
+    if (p >= 1) lastSteps = { rs, limit: rippleLimit, before: cs.slice(0, p - 1), at: cs[p - 1], steps };
     let s = -1;
     for (let a = top; a >= 0; a--) {
+      const u = prior !== null && prior[a] >= 0 && prior[a] <= bMax ? prior[a] : -1;
       // One look at the top of the range first: a slice with no ripple-feasible step there has none.
-      if (s < 0) s = rippleOk(rs, at(a, bMax)) ? firstTrue(bMax + 1, (b) => rippleOk(rs, at(a, b))) : nC;
-      else {
+      if (s < 0) {
+        if (u >= 0) s = firstTrue(u, (b) => rippleOk(rs, at(a, b)));
+        else s = rippleOk(rs, at(a, bMax)) ? firstTrue(bMax + 1, (b) => rippleOk(rs, at(a, b))) : nC;
+      } else {
         if (!within(at(0, s))) break; // every remaining column starts at or above s
         // A column whose point at the step so far is beyond theta has nothing within it (the bound
         // grows with b, and its own step is at or above s): no search; s stays a valid start below.
         if (!within(at(a, s))) continue;
-        while (s <= bMax && !rippleOk(rs, at(a, s))) s++;
+        if (u >= s) while (s < u && !rippleOk(rs, at(a, s))) s++;
+        else while (s <= bMax && !rippleOk(rs, at(a, s))) s++;
       }
+      if (s <= bMax) steps[a] = s;
       if (s > bMax) break; // smaller first capacitors only raise the ripple
       if (!within(at(0, s))) break; // every remaining column starts at or above s
       if (within(at(a, s))) {
