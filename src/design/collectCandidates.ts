@@ -122,7 +122,10 @@ function paretoThreshold(pareto: ParetoState, ripple: number): number {
  * the capacitors before the last two are looped over, and a slice of the innermost of them whose
  * staircase box (boxOf) has its far corner ripple-infeasible holds nothing; one ripple check at a
  * larger value of that capacitor with this slice's corner rules out every slice in between
- * (deadThrough), so runs of such slices cost a bisection, not a check each. A point then gets the
+ * (deadThrough), so runs of such slices cost a bisection, not a check each; and the steps of the
+ * last staircase walked at a smaller value of it bound this staircase's steps from above. Every
+ * ripple check from three stages on first bounds the ripple from below by the output at four
+ * instants of the period, and DC checks read the periodic state's average alone. A point then gets the
  * cheaper bound tau_slow ln(z0 / (band + excursion)) from its own steady states, and only then the
  * exact settling lower bound (the engine's settlingLowerBound). The fast model is the engine's
  * modal form of each candidate (modalLadderOf): steady states from steadySwing (scalar code for one
@@ -654,7 +657,8 @@ export function collectCandidates(
       const u = prior !== null && prior[a] >= 0 && prior[a] <= bMax ? prior[a] : -1;
       // One look at the top of the range first: a slice with no ripple-feasible step there has none.
       if (s < 0) {
-        if (u >= 0) s = firstTrue(u, (b) => rippleOk(rs, at(a, b)));
+        // From the prior step down, doubling the stride: the step moves little from one slice to the next.
+        if (u >= 0) s = lastTrueDown(u, (b) => rippleOk(rs, at(a, b)));
         else s = rippleOk(rs, at(a, bMax)) ? firstTrue(bMax + 1, (b) => rippleOk(rs, at(a, b))) : nC;
       } else {
         if (!within(at(0, s))) break; // every remaining column starts at or above s
@@ -695,6 +699,22 @@ export function keyOf(r: ArrayLike<number>, c: ArrayLike<number>): string {
   let key = '';
   for (let k = 0; k < r.length; k++) key += `${r[k]}/${c[k]};`;
   return key;
+}
+
+/**
+ * Smallest i in [0, hi] with pred(i) true for a predicate false...false true...true that holds at
+ * hi (not asked there): strides down from hi doubling until pred fails, then bisection between.
+ */
+function lastTrueDown(hi: number, pred: (i: number) => boolean): number {
+  let lo = -1;
+  for (let stride = 1; hi - stride >= 0; stride *= 2) {
+    if (!pred(hi - stride)) {
+      lo = hi - stride;
+      break;
+    }
+    hi -= stride;
+  }
+  return lo + 1 + firstTrue(hi - lo - 1, (k) => pred(lo + 1 + k));
 }
 
 /** Smallest i in [0, n) with pred(i) true for a predicate false...false true...true; n if none. */
