@@ -164,8 +164,9 @@ export function collectCandidates(
   const inlApplies = limits.inl !== undefined && !lti;
   // A walk with a budget (the explanations' side searches) is cut after so many fast evaluations,
   // and its answer is whatever it found by then: the prunings that skip points without evaluating
-  // them (the droop floor, whole slices by deadThrough, the DC floors on whole columns and slices)
-  // would move that cut and change the answer, so such a walk goes without them (it is short anyway).
+  // them (the droop floor, whole slices by deadThrough, the DC floors on whole columns and slices,
+  // the staircase's skipped columns and prior steps) would move that cut and change the answer, so
+  // such a walk goes without them (it is short anyway).
   const budgeted = state.budget !== undefined;
   const inlOver = (rs: number[], cs: number[]): boolean => {
     if (!inlApplies) return false;
@@ -649,7 +650,7 @@ export function collectCandidates(
     // p - 1: each is at least this staircase's step in its column (the ripple falls when capacitor
     // p - 1 grows), so a search stops there without a check, and needs none when the step so far
     // already reached it.
-    const prior = p >= 1 && lastSteps.rs === rs && lastSteps.limit === rippleLimit && sameAs(lastSteps.before, cs.slice(0, p - 1)) && lastSteps.at < cs[p - 1] ? lastSteps.steps : null;
+    const prior = !budgeted && p >= 1 && lastSteps.rs === rs && lastSteps.limit === rippleLimit && sameAs(lastSteps.before, cs.slice(0, p - 1)) && lastSteps.at < cs[p - 1] ? lastSteps.steps : null;
     const steps = new Int32Array(nC).fill(-1);
     if (p >= 1) lastSteps = { rs, limit: rippleLimit, before: cs.slice(0, p - 1), at: cs[p - 1], steps };
     let s = -1;
@@ -661,10 +662,10 @@ export function collectCandidates(
         if (u >= 0) s = lastTrueDown(u, (b) => rippleOk(rs, at(a, b)));
         else s = rippleOk(rs, at(a, bMax)) ? firstTrue(bMax + 1, (b) => rippleOk(rs, at(a, b))) : nC;
       } else {
-        if (!within(at(0, s))) break; // every remaining column starts at or above s
+        if (!budgeted && !within(at(0, s))) break; // every remaining column starts at or above s
         // A column whose point at the step so far is beyond theta has nothing within it (the bound
         // grows with b, and its own step is at or above s): no search; s stays a valid start below.
-        if (!within(at(a, s))) continue;
+        if (!budgeted && !within(at(a, s))) continue;
         if (u >= s) while (s < u && !rippleOk(rs, at(a, s))) s++;
         else while (s <= bMax && !rippleOk(rs, at(a, s))) s++;
       }
