@@ -1,7 +1,8 @@
-import { modalAverageOutput, modalLadderOf, periodicState, rippleAt, settlingLowerBound, steadySwing, type ModalLadder, type PeriodicState, type SteadySwing } from '../engine/index.js';
+import { curveValue, modalAverageOutput, modalLadderOf, periodicState, rippleAt, settlingLowerBound, steadySwing, type ModalLadder, type PeriodicState, type SteadySwing } from '../engine/index.js';
 import type { Admit } from './cornerScreen.js';
 import type { DesignProblem } from './designProblem.js';
 import { dcTransferMiss } from './dcTransferMiss.js';
+import { droopFloor, droopFloorPlan, type DroopFloorPlan } from './droopFloor.js';
 import { gainFloor } from './gainFloor.js';
 import { inlFloor, inlFloorPlan, type InlFloorPlan } from './inlFloor.js';
 import { maximizeOverDuty } from './maximizeOverDuty.js';
@@ -106,7 +107,8 @@ function paretoThreshold(pareto: ParetoState, ripple: number): number {
  * rule out and whose settling lower bound is at most state.theta (which may fall as candidates
  * come in). Ruled out, each by a lower bound on the engine's figure: pin peak current over the
  * limit (R1 only); droop over the limit (resistors only, below; with unequal drivers also the
- * fast droop maximised over the duty); gain error over the limit (resistors only, gainFloor.ts:
+ * fast droop maximised over the duty, and first the droop floor from the resistors and the first
+ * two capacitors, droopFloor.ts); gain error over the limit (resistors only, gainFloor.ts:
  * R_s / (R_L + R_s) of full scale for equal drivers, the DC divider of the series resistance and
  * the load; with unequal drivers also the fast model's exact endpoint averages); the ripple at the duty nearest 50 % over the limit; never
  * settling; settling lower bound over the time limit.
@@ -129,7 +131,14 @@ function paretoThreshold(pareto: ParetoState, ripple: number): number {
  * capacitor from the previous column's step upward, columns from the largest first capacitor
  * down); the settling lower bound tau_slow * factor - slack grows with every capacitor (Rayleigh
  * quotient, slowestTimeConstant.ts), which cuts each column and ends the walk. Staircase points
- * are evaluated first, so theta falls before the inner points are visited. A point then gets the
+ * are evaluated first, so theta falls before the inner points are visited. From three stages on,
+ * the capacitors before the last two are looped over, and a slice of the innermost of them whose
+ * staircase box (boxOf) has its far corner ripple-infeasible holds nothing; one ripple check at a
+ * larger value of that capacitor with this slice's corner rules out every slice in between
+ * (deadThrough), so runs of such slices cost a bisection, not a check each; and the steps of the
+ * last staircase walked at a smaller value of it bound this staircase's steps from above. Every
+ * ripple check from three stages on first bounds the ripple from below by the output at four
+ * instants of the period, and DC checks read the periodic state's average alone. A point then gets the
  * cheaper bound tau_slow ln(z0 / (band + excursion)) from its own steady states, and only then the
  * exact settling lower bound (the engine's settlingLowerBound). The fast model is the engine's
  * modal form of each candidate (modalLadderOf): steady states from steadySwing (scalar code for one
@@ -166,6 +175,12 @@ export function collectCandidates(
   // (dcTransferMiss.ts, same duties, same allowance) rules out too, without a steady state.
   const inlPlans = new WeakMap<number[], InlFloorPlan | null>();
   const inlApplies = limits.inl !== undefined && !lti;
+  // A walk with a budget (the explanations' side searches) is cut after so many fast evaluations,
+  // and its answer is whatever it found by then: the prunings that skip points without evaluating
+  // them (the droop floor, whole slices by deadThrough, the DC floors on whole columns and slices,
+  // the staircase's skipped columns and prior steps) would move that cut and change the answer, so
+  // such a walk goes without them (it is short anyway).
+  const budgeted = state.budget !== undefined;
   const inlOver = (rs: number[], cs: number[]): boolean => {
     if (!inlApplies) return false;
     let plan = inlPlans.get(rs);
@@ -175,6 +190,25 @@ export function collectCandidates(
     }
     return plan !== null && inlFloor(plan, cs) > problem.limits.inl! * (1 + REL) + 1e-15;
   };
+  // Unequal drivers with a droop limit: likewise a floor on the droop (droopFloor.ts), per resistor
+  // tuple; it rules out only points the fast droop check (same grid duties, same allowance) rules
+  // out, without a model. Where the droop binds (a load, unequal drivers) it decides most points.
+  const droopPlans = new WeakMap<number[], DroopFloorPlan | null>();
+  const droopApplies = !lti && limits.droop !== undefined && !budgeted;
+  const droopOver = (rs: number[], cs: number[]): boolean => {
+    if (!droopApplies) return false;
+    let plan = droopPlans.get(rs);
+    if (plan === undefined) {
+      plan = droopFloorPlan(problem, rs);
+      droopPlans.set(rs, plan);
+    }
+    return plan !== null && exceeds(droopFloor(plan, cs), limits.droop);
+  };
+  /**
+   * A floor of the DC transfer (INL or droop) rules the point out. Both floors never fall when any
+   * capacitor grows, so every point with capacitors at least these is ruled out too.
+   */
+  const dcOver = (rs: number[], cs: number[]): boolean => inlOver(rs, cs) || droopOver(rs, cs);
 
   // Resistor tuples that pass the pin current and (time-invariant) droop limits, with bounds.
   const tuples: number[][] = [];
@@ -199,6 +233,11 @@ export function collectCandidates(
       if (exceeds((idealTop * series) / (loadR! + series), limits.droop)) continue;
     }
     if (gainFloorApplies && exceeds(gainFloor(circuit, rs, problem.dutyMin, problem.dutyMax), limits.gain)) continue;
+    // Unequal drivers: the droop floor at the smallest capacitors holds for every capacitor choice.
+    if (droopApplies) {
+      const plan = droopFloorPlan(problem, rs);
+      if (plan !== null && exceeds(droopFloor(plan, minC), limits.droop)) continue;
+    }
     const tb = tupleBounds(problem, rs);
     const tauFloor = Math.max(tb.tauMin, slowestTimeConstant(rs, minC, tb.driver, loadR, loadC));
     const key = tauFloor * tb.factor - tb.slack;
@@ -292,6 +331,27 @@ export function collectCandidates(
     state.evaluated++;
   };
 
+  /**
+   * The ripple at duty d is over `limit`. From three stages on, where the exact extremes cost a
+   * root search per phase, the output at four instants of the steady period first (both edges, the
+   * middle of each phase): their spread is at most the ripple (max - min over the period), so a
+   * spread over the limit (with twice the allowance) rules the point out as the exact check would.
+   */
+  const rippleOver = (rs: number[], cs: number[], d: number, limit: number | undefined): boolean => {
+    if (limit === undefined) return false;
+    touch(rs, cs);
+    use(rs, cs);
+    if (stages >= 3 && swingOf[slot(d)] === null) {
+      const s = steady(d);
+      const mid1 = curveValue(s.high, 0.5 * s.t1);
+      const mid2 = curveValue(s.low, 0.5 * s.t2);
+      const hi = Math.max(0, s.low.offset, mid1, mid2);
+      const lo = Math.min(0, s.low.offset, mid1, mid2);
+      if (hi - lo > limit * (1 + 2 * REL) + 1e-300) return true;
+    }
+    return exceeds(rippleOf(rs, cs, d), limit);
+  };
+
   /** Steady-state figures for the cheap checks. */
   const lite = (rs: number[], cs: number[], d: number): SteadySwing => {
     touch(rs, cs);
@@ -318,7 +378,8 @@ export function collectCandidates(
   const averageOf = (rs: number[], cs: number[], d: number): number => {
     touch(rs, cs);
     use(rs, cs);
-    if (stages > 2) return swing(d).average;
+    // three stages on: the periodic state's average, without the extremes it does not need
+    if (stages > 2) return steady(d).average;
     const k = slot(d);
     const known = swingOf[k];
     if (known !== null) return known.average;
@@ -357,8 +418,8 @@ export function collectCandidates(
       }
       return true;
     }
-    if (rippleLimit !== undefined && exceeds(rippleOf(rs, cs, dNear), rippleLimit)) return false;
-    if (checkTo) for (const d of toDuties) if (exceeds(rippleOf(rs, cs, d), 2 * problem.band)) return false;
+    if (rippleOver(rs, cs, dNear, rippleLimit)) return false;
+    if (checkTo) for (const d of toDuties) if (rippleOver(rs, cs, d, 2 * problem.band)) return false;
     return true;
   };
 
@@ -389,7 +450,7 @@ export function collectCandidates(
     let theta = state.theta;
     const key = state.dynamic ? '' : keyOf(rs, cs);
     if (!state.dynamic && state.seen.has(key)) return;
-    if (inlOver(rs, cs)) return;
+    if (dcOver(rs, cs)) return;
     if (state.pareto) {
       // Several staircases (one per limit) share points: evaluate each once.
       const code = indexCode(rs, cs);
@@ -509,8 +570,8 @@ export function collectCandidates(
       const v = col.cs.slice();
       v[col.p] = C[b];
       if (!col.within(v)) break;
-      // The INL floor only grows along a column (larger capacitor): nothing further passes.
-      if (inlOver(col.rs, v)) break;
+      // The DC floors only grow along a column (larger capacitor): nothing further passes.
+      if (dcOver(col.rs, v)) break;
       evaluate(col.rs, v, col.tb);
     }
   };
@@ -554,10 +615,19 @@ export function collectCandidates(
     const outer = stages - 2;
     const recurse = (depth: number): void => {
       if (depth < outer) {
+        // Innermost outer capacitor: slices up to `dead` hold no ripple-feasible point (deadThrough).
+        let dead = -1;
         for (let i = 0; i < nC; i++) {
           cs[depth] = C[i];
           for (let k = depth + 1; k < stages; k++) cs[k] = C[0];
           if (!within(cs)) break;
+          // The DC floors grow with every capacitor: a larger outer capacitor only raises them.
+          if (!budgeted && dcOver(rs, cs)) break;
+          if (depth === outer - 1 && !budgeted) {
+            if (i <= dead) continue;
+            dead = deadThrough(rs, cs, depth, within);
+            if (i <= dead) continue;
+          }
           recurse(depth + 1);
         }
         return;
@@ -566,6 +636,79 @@ export function collectCandidates(
     };
     recurse(0);
     return columns;
+  };
+
+  /** The steps of the last staircase walked, by column, with what they were walked with (walkLastTwo). */
+  let lastSteps: { rs: number[]; limit: number | undefined; before: number[]; at: number; steps: Int32Array } = { rs: [], limit: undefined, before: [], at: 0, steps: new Int32Array(0) };
+
+  /**
+   * The box of the staircase over capacitors p, p + 1 (cs[0..p-1] fixed, cs[p..] at their smallest):
+   * the largest index of capacitor p whose column can still be within theta and pass the DC floors
+   * (-1: none), and the largest index of capacitor p + 1 within theta (both bounds grow with every
+   * capacitor). Every point the staircase may evaluate lies in it.
+   */
+  const boxOf = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean): [number, number] => {
+    const at = (a: number, b: number) => {
+      const v = cs.slice();
+      v[p] = C[a];
+      v[p + 1] = C[b];
+      return v;
+    };
+    const top = Math.min(firstTrue(nC, (i) => !within(at(i, 0))), budgeted ? nC : firstTrue(nC, (i) => dcOver(rs, at(i, 0)))) - 1;
+    const bMax = firstTrue(nC, (b) => !within(at(0, b))) - 1;
+    return [top, bMax];
+  };
+
+  /**
+   * The slice of outer capacitor q = cs[q] (the one just before the staircase, the later ones at
+   * their smallest) and the slices of larger values of it after it: the last index of that
+   * capacitor up to which every slice is proven to hold no ripple-feasible point of the staircase
+   * box (index - 1 when this slice is not).
+   *
+   * Method: the staircase of a slice evaluates nothing when the ripple check fails at the far
+   * corner of its box (the lowest ripple there is at the corner: the ripple falls when any
+   * capacitor grows). Boxes only shrink as the outer capacitor grows (the bounds grow with every
+   * capacitor, and theta only falls), so a later slice j's corner is at most this slice's corner
+   * (top, bMax), and its ripple is at least that of the point (C_j; top, bMax). Hence the ripple check
+   * failing at (C_j; top, bMax) rules out every slice from this one to j; the largest such j is found
+   * by bisection (that point's ripple falls as C_j grows), starting with the last slice of the loop.
+   */
+  const deadThrough = (rs: number[], cs: number[], q: number, within: (cs: number[]) => boolean): number => {
+    const i = C.indexOf(cs[q]);
+    const [top, bMax] = boxOf(rs, cs, q + 1, within);
+    if (top < 0) return i - 1;
+    const slice = (j: number) => {
+      const v = cs.slice();
+      v[q] = C[j];
+      return v;
+    };
+    const corner = (j: number) => {
+      const v = slice(j);
+      v[q + 1] = C[top];
+      v[q + 2] = C[bMax];
+      return v;
+    };
+    // The last slice the loop visits (within theta and the DC floors at the smallest later capacitors).
+    const last = i - 1 + firstTrue(nC - i, (k) => !within(slice(i + k)) || dcOver(rs, slice(i + k)));
+    // One check at the last slice with this corner: when it fails, every slice from here on is dead.
+    // For the first slice that is the whole tuple's box at once, which rules out most tuples: first.
+    if (i === 0 && last > i && !rippleOk(rs, corner(last))) return last;
+    // This slice's own corner: when it passes, the staircase starts with the same check (the model is kept).
+    if (rippleOk(rs, corner(i))) return i - 1;
+    if (i > 0 && last > i && !rippleOk(rs, corner(last))) return last;
+    // The slices whose box is this one's (no check needed to find them: the bounds alone).
+    const end = i - 1 + firstTrue(last - i + 1, (k) => {
+      const v = slice(i + k);
+      v[q + 1] = C[top];
+      if (!within(v) || dcOver(rs, v)) return true;
+      v[q + 1] = C[0];
+      v[q + 2] = C[bMax];
+      return !within(v);
+    });
+    if (end <= i) return i;
+    if (!rippleOk(rs, corner(end))) return end;
+    // corner(i) fails and corner(end) passes: the first slice in between whose corner passes.
+    return i + firstTrue(end - i - 1, (k) => rippleOk(rs, corner(i + 1 + k)));
   };
 
   /**
@@ -590,14 +733,33 @@ export function collectCandidates(
     if (!within(look(0, 0))) return;
     // Largest first capacitor whose column can still be within theta, and largest staircase step:
     // a step s with at(0, s) beyond theta ends the walk below, so no step above bMax is sought
-    // (theta only falls meanwhile, and the bound grows with every capacitor).
-    const top = firstTrue(nC, (i) => !within(look(i, 0))) - 1;
-    const bMax = firstTrue(nC, (b) => !within(look(0, b))) - 1;
+    // (theta only falls meanwhile, and the bound grows with every capacitor). Columns whose lowest
+    // point a DC floor rules out hold nothing (the floors grow with every capacitor).
+    const [top, bMax] = boxOf(rs, cs, p, within);
+    // Steps of the last staircase walked with the same capacitors before p - 1 and a smaller one at
+    // p - 1: each is at least this staircase's step in its column (the ripple falls when capacitor
+    // p - 1 grows), so a search stops there without a check, and needs none when the step so far
+    // already reached it.
+    const prior = !budgeted && p >= 1 && lastSteps.rs === rs && lastSteps.limit === rippleLimit && sameAs(lastSteps.before, cs.slice(0, p - 1)) && lastSteps.at < cs[p - 1] ? lastSteps.steps : null;
+    const steps = new Int32Array(nC).fill(-1);
+    if (p >= 1) lastSteps = { rs, limit: rippleLimit, before: cs.slice(0, p - 1), at: cs[p - 1], steps };
     let s = -1;
     for (let a = top; a >= 0; a--) {
+      const u = prior !== null && prior[a] >= 0 && prior[a] <= bMax ? prior[a] : -1;
       // One look at the top of the range first: a slice with no ripple-feasible step there has none.
-      if (s < 0) s = rippleOk(rs, look(a, bMax)) ? firstTrue(bMax + 1, (b) => rippleOk(rs, look(a, b))) : nC;
-      else while (s <= bMax && !rippleOk(rs, look(a, s))) s++;
+      if (s < 0) {
+        // From the prior step down, doubling the stride: the step moves little from one slice to the next.
+        if (u >= 0) s = lastTrueDown(u, (b) => rippleOk(rs, look(a, b)));
+        else s = rippleOk(rs, look(a, bMax)) ? firstTrue(bMax + 1, (b) => rippleOk(rs, look(a, b))) : nC;
+      } else {
+        if (!budgeted && !within(look(0, s))) break; // every remaining column starts at or above s
+        // A column whose point at the step so far is beyond theta has nothing within it (the bound
+        // grows with b, and its own step is at or above s): no search; s stays a valid start below.
+        if (!budgeted && !within(look(a, s))) continue;
+        if (u >= s) while (s < u && !rippleOk(rs, look(a, s))) s++;
+        else while (s <= bMax && !rippleOk(rs, look(a, s))) s++;
+      }
+      if (s <= bMax) steps[a] = s;
       if (s > bMax) break; // smaller first capacitors only raise the ripple
       if (!within(look(0, s))) break; // every remaining column starts at or above s
       if (within(look(a, s))) {
@@ -629,6 +791,22 @@ export function keyOf(r: ArrayLike<number>, c: ArrayLike<number>): string {
   let key = '';
   for (let k = 0; k < r.length; k++) key += `${r[k]}/${c[k]};`;
   return key;
+}
+
+/**
+ * Smallest i in [0, hi] with pred(i) true for a predicate false...false true...true that holds at
+ * hi (not asked there): strides down from hi doubling until pred fails, then bisection between.
+ */
+function lastTrueDown(hi: number, pred: (i: number) => boolean): number {
+  let lo = -1;
+  for (let stride = 1; hi - stride >= 0; stride *= 2) {
+    if (!pred(hi - stride)) {
+      lo = hi - stride;
+      break;
+    }
+    hi -= stride;
+  }
+  return lo + 1 + firstTrue(hi - lo - 1, (k) => pred(lo + 1 + k));
 }
 
 /** Smallest i in [0, n) with pred(i) true for a predicate false...false true...true; n if none. */

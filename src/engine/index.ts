@@ -37,6 +37,7 @@ export { averageOutput as modalAverageOutput } from './modal/averageOutput.js';
 export { rippleAt } from './modal/rippleAt.js';
 export { steadySwing, type SteadySwing } from './modal/steadySwing.js';
 export { periodicState, type PeriodicState } from './modal/periodicState.js';
+export { curveValue } from './modal/phaseCurve.js';
 export { modalSettling } from './modal/settling.js';
 export { settlingLowerBound } from './modal/settlingLowerBound.js';
 export { MAX_MODAL_CONDITION } from './modalRoute.js';

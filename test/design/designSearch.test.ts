@@ -102,6 +102,26 @@ describe('three stages', () => {
     expect(found.candidates.map(designKey)).toEqual(brute.ranked.map(designKey));
     expect(found.candidates[0].stages).toHaveLength(3);
   });
+
+  // Slices of the first capacitor ruled out together by one ripple check at a larger first
+  // capacitor (deadThrough in collectCandidates.ts) and, with unequal drivers and a droop limit, the
+  // droop floor (droopFloor.ts): each case below exercises them (checked once by counting while
+  // writing the test); the designs stay those of exhaustive search.
+  const sliced: Array<[string, Record<string, string>]> = [
+    ['unequal drivers, a droop limit, a loaded output, two and three stages', { stages: '[2, 3]', ripple: '0.2 LSB', rmin: '220', rmax: '1k', cmin: '22n', cmax: '470n', driver: '{ high: 100 ohm, low: 20 ohm }', load: '{ resistance: 100k, capacitance: 1n }', droop: '30 LSB', gain: 'none' }],
+    ['equal drivers, open output', { stages: '[3]', ripple: '0.2 LSB', rmin: '220', rmax: '1k', cmin: '47n', cmax: '1u', driver: '30 ohm' }],
+    ['equal drivers, a load', { stages: '[3]', ripple: '0.2 LSB', rmin: '100', rmax: '470', cmin: '47n', cmax: '1u', driver: '30 ohm', load: '{ resistance: 47k }', gain: 'none' }],
+  ];
+  for (const [name, o] of sliced) {
+    it(`whole slices and the droop floor keep the exhaustive optimum: ${name}`, () => {
+      const p = project(o);
+      const found = designSearch(p, { top: 5, compare: false, diagnose: false });
+      const brute = bruteForce(p, 5);
+      expect(brute.ranked.length).toBe(5);
+      expect(found.candidates.map(designKey)).toEqual(brute.ranked.map(designKey));
+      expect(found.candidates.some((c) => c.stages.length === 3)).toBe(true);
+    });
+  }
 });
 
 describe('what the search reports', () => {
