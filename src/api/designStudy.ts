@@ -92,7 +92,7 @@ export async function designStudyInParallel(project: Project, options: DesignStu
 }
 
 export interface ParallelOptions {
-  /** Use the worker whatever the machine's load (tests); default: only with a core to spare. */
+  /** True: use the worker whatever the machine's load; false: never (`design --workers 1`); default: only with a core to spare. */
   force?: boolean;
   /** The worker script (tests: the TypeScript source); default dist/design-worker.js beside the bundle. */
   workerUrl?: URL;

@@ -17,6 +17,8 @@ export interface DesignArgs {
   quiet?: boolean;
   /** Keep only designs that meet the spec under part tolerances. */
   robust?: 'worst-case' | 'yield';
+  /** Threads, this one included: 1 keeps everything in this thread; default: a worker for the curves when a core is free. */
+  workers?: number;
   width?: number;
 }
 
@@ -61,6 +63,10 @@ export async function runDesign(
   if (args.maxTime !== undefined && !(Number.isInteger(args.maxTime) && args.maxTime >= 1)) {
     throw new UsageError(`--max-time ${args.maxTime}: give whole seconds, at least 1`);
   }
+  if (args.workers !== undefined && !(Number.isInteger(args.workers) && args.workers >= 1)) {
+    // yargs turns a word given to a number option into NaN: say so rather than echo 'NaN'
+    throw new UsageError(`--workers must be a whole number >= 1, got ${Number.isNaN(args.workers) ? 'something that is not a number' : String(args.workers)}`);
+  }
   if (args.maxTime !== undefined && args.robust !== undefined) {
     throw new UsageError('--max-time bounds the nominal search; it cannot be combined with --robust yet');
   }
@@ -87,7 +93,7 @@ export async function runDesign(
       ...(args.maxTime !== undefined && { deadline: started + 1000 * args.maxTime }),
       ...(args.robust && { robust: args.robust }),
       ...(bar && { onProgress: (f: number, d?: DesignProgress) => bar.update(f, d) }),
-    });
+    }, args.workers === undefined ? {} : { force: args.workers > 1 });
   } finally {
     bar?.done();
   }
@@ -164,6 +170,11 @@ export function designCommand(
           requiresArg: true,
         })
         .option('charts', { describe: 'Compute and draw the settling/ripple trade-off (--no-charts: faster)', type: 'boolean', default: true })
+        .option('workers', {
+          describe: 'Threads, this one included: 1 keeps the trade-off curves in this thread, 2 draws the largest stage count\'s beside the search (default: 2 when the load average leaves a core free)',
+          type: 'number',
+          requiresArg: true,
+        })
         .example('$0 design sample-configs/design-tight-ripple.yaml', 'Ranked designs, trade-off chart, comparison')
         .example('$0 design board.yaml --top 3 --no-charts', 'Three best designs, no trade-off curves')
         .example('$0 design board.yaml --write board-designed.yaml', 'Save design #1 as a new project file')
