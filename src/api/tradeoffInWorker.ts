@@ -4,12 +4,14 @@ import { Worker } from 'node:worker_threads';
 import type { TradeoffCurve } from '../design/tradeoffCurves.js';
 import type { Project } from '../project/index.js';
 
-/** What the worker draws: tradeoffCurves(project, stageCounts, center, { bits }). */
+/** What the worker draws: tradeoffCurves(project, stageCounts, center, { bits, ripples }). */
 export interface TradeoffJob {
   project: Project;
   stageCounts: number[];
   center: number;
   bits?: number;
+  /** The ripple limits to draw (part of tradeoffRipples(center) when the caller draws the rest). */
+  ripples?: number[];
 }
 
 export type TradeoffMessage = { kind: 'progress'; fraction: number } | { kind: 'done'; curves: TradeoffCurve[] };

@@ -11,6 +11,7 @@ const job = workerData as TradeoffJob;
 const post = (m: TradeoffMessage) => parentPort!.postMessage(m);
 const curves = tradeoffCurves(job.project, job.stageCounts, job.center, {
   ...(job.bits !== undefined && { bits: job.bits }),
+  ...(job.ripples && { ripples: job.ripples }),
   onProgress: (fraction) => post({ kind: 'progress', fraction }),
 });
 post({ kind: 'done', curves });
