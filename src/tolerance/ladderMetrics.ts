@@ -3,6 +3,7 @@ import { dcTransfer, settlingTime, worstRipple, modalLadder, type ModalLadder, M
 import type { MetricPlan } from './metricPlan.js';
 import type { CircuitMetrics } from './metrics.js';
 import { maximizeFromHints } from './dutySearch.js';
+import type { Maximum } from '../numeric/maximizeOnInterval.js';
 import { passesLimits } from './passesLimits.js';
 
 /** The figures of one ladder (metrics.ts; the name predates networks). */
@@ -84,12 +85,7 @@ export function ladderPasses(ladder: Ladder, plan: MetricPlan): boolean {
   if (limits.ripple !== undefined && !(modalWorstRipple(m, plan).ripple <= limits.ripple)) return false;
   const inl = limits.inl !== undefined && plan.inl;
   const gain = limits.gain !== undefined && plan.gain;
-  if (limits.droop !== undefined || inl || gain) {
-    const dc = modalDc(m, ladder, plan);
-    if (limits.droop !== undefined && !(Math.abs(dc.droop.error) <= limits.droop)) return false;
-    if (inl && !(Math.abs(dc.inl?.error ?? 0) <= limits.inl!)) return false;
-    if (gain && !(Math.abs(dc.gain ?? 0) <= limits.gain!)) return false;
-  }
+  if ((limits.droop !== undefined || inl || gain) && !modalDcPasses(m, ladder, plan)) return false;
   if (limits.settling !== undefined) {
     const states = new Map<number, PeriodicState>();
     for (const { from, to } of plan.steps) {
@@ -133,6 +129,56 @@ function modalDc(
   ladder: Ladder,
   plan: MetricPlan,
 ): { droop: { duty: number; error: number }; inl: { duty: number; error: number } | null; gain: number | null } {
+  const dc = dcSearch(m, ladder, plan, true, plan.inl);
+  const gain = plan.gain ? dc.gain : null;
+  if (dc.affine) {
+    const { errA, errB } = dc;
+    const droop = Math.abs(errB) > Math.abs(errA) ? { duty: plan.dutyMax, error: errB } : { duty: plan.dutyMin, error: errA };
+    return { droop, inl: plan.inl ? { duty: plan.dutyMin, error: 0 } : null, gain };
+  }
+  const droopAt = dc.droop!.x;
+  const droop = { duty: droopAt, error: dc.error(droopAt) };
+  if (!plan.inl) return { droop, inl: null, gain };
+  const inlAt = dc.inl!.x;
+  return { droop, inl: { duty: inlAt, error: dc.deviation(inlAt) }, gain };
+}
+
+/**
+ * The DC limits of the plan (droop, INL, gain; those the plan computes) met by a ladder with a
+ * modal form: the verdict of modalDc's figures, by the same searches. The largest |DC error| and
+ * |INL| a search finds is its value at the duty modalDc reports (the same function, so the same
+ * number), which saves evaluating the error there once more.
+ */
+function modalDcPasses(m: ModalLadder, ladder: Ladder, plan: MetricPlan): boolean {
+  const { limits } = plan;
+  const inl = limits.inl !== undefined && plan.inl;
+  const dc = dcSearch(m, ladder, plan, limits.droop !== undefined, inl);
+  if (limits.gain !== undefined && plan.gain && !(Math.abs(dc.gain) <= limits.gain)) return false;
+  if (dc.affine) {
+    const { errA, errB } = dc;
+    const droop = Math.abs(errB) > Math.abs(errA) ? errB : errA;
+    if (limits.droop !== undefined && !(Math.abs(droop) <= limits.droop)) return false;
+    return !(inl && !(0 <= limits.inl!));
+  }
+  if (limits.droop !== undefined && !(dc.droop!.value <= limits.droop)) return false;
+  return !(inl && !(dc.inl!.value <= limits.inl!));
+}
+
+interface DcSearch {
+  errA: number;
+  errB: number;
+  /** Endpoint-fit gain error, a fraction of full scale (0 when the range is one duty). */
+  gain: number;
+  /** Equal drivers (or a one-duty range): the extremes are at the range ends, no search. */
+  affine: boolean;
+  /** Largest |DC error| and |INL| (searched when asked for and not affine). */
+  droop: Maximum | null;
+  inl: Maximum | null;
+  error: (d: number) => number;
+  deviation: (d: number) => number;
+}
+
+function dcSearch(m: ModalLadder, ladder: Ladder, plan: MetricPlan, droop: boolean, inl: boolean): DcSearch {
   const { dutyMin: a, dutyMax: b } = plan;
   const span = ladder.high - ladder.low;
   const average = (d: number) => averageOutput(m, d);
@@ -142,17 +188,19 @@ function modalDc(
   const errA = ladder.low + a * span - yA;
   const errB = ladder.low + b * span - yB;
   // endpoint fit as in dcTransfer.ts: the ideal slope when the range is one duty
-  const gain = plan.gain ? (b > a ? (span - (yB - yA) / (b - a)) / span : 0) : null;
-  if (ladder.driverHigh === ladder.driverLow || !(b > a)) {
-    const droop = Math.abs(errB) > Math.abs(errA) ? { duty: b, error: errB } : { duty: a, error: errA };
-    return { droop, inl: plan.inl ? { duty: a, error: 0 } : null, gain };
-  }
-  const droopAt = maximizeFromHints((d) => Math.abs(error(d)), a, b, plan.droopHints).x;
-  const droop = { duty: droopAt, error: error(droopAt) };
-  if (!plan.inl) return { droop, inl: null, gain };
+  const gain = b > a ? (span - (yB - yA) / (b - a)) / span : 0;
   const slope = (yB - yA) / (b - a);
   // fit - average, the sign of dcTransfer.ts (README "Sign convention")
   const deviation = (d: number) => yA + slope * (d - a) - average(d);
-  const inlAt = maximizeFromHints((d) => Math.abs(deviation(d)), a, b, plan.inlHints).x;
-  return { droop, inl: { duty: inlAt, error: deviation(inlAt) }, gain };
+  const affine = ladder.driverHigh === ladder.driverLow || !(b > a);
+  if (affine) return { errA, errB, gain, affine, droop: null, inl: null, error, deviation };
+  // |error| and |deviation| at the ends from the averages already at hand (the same expressions)
+  const droopMax = droop ? maximizeFromHints((d) => Math.abs(error(d)), a, b, plan.droopHints, 1e-9, { fa: Math.abs(errA), fb: Math.abs(errB) }) : null;
+  const inlMax = inl
+    ? maximizeFromHints((d) => Math.abs(deviation(d)), a, b, plan.inlHints, 1e-9, {
+        fa: Math.abs(yA + slope * (a - a) - yA),
+        fb: Math.abs(yA + slope * (b - a) - yB),
+      })
+    : null;
+  return { errA, errB, gain, affine, droop: droopMax, inl: inlMax, error, deviation };
 }

@@ -1,7 +1,7 @@
 import { zeros } from '../../numeric/dense.js';
 import type { ModalLadder } from './modalLadder.js';
 import { periodicState, type PeriodicState } from './periodicState.js';
-import { steadyError, stepError } from './stepError.js';
+import { reusedStepError, steadyError, type SteadyError } from './stepError.js';
 
 /**
  * A safety net on the branch and bound: beyond this many period evaluations (never seen in
@@ -61,11 +61,13 @@ export function modalSettling(
   };
   const target = stateAt(to);
   const source = stateAt(from);
-  const ss = steadyError(target);
+  // The steady error and the step's modes in objects kept from the last call: both are read only
+  // inside this call, so nothing of them is allocated per call (values as stepError's).
+  const ss = (SS = steadyError(target, SS));
   if (ss.above > band || ss.below < -band) return null;
   // The period-map symmetrization needs an orthogonal `mix` (a follower-free ladder).
   if (!m.symmetric) return undefined;
-  const err = stepError(m, target, source, ss);
+  const err = reusedStepError(m, target, source, ss);
   if (err === null) return 0;
   const { n } = m;
   const { zeta, bound } = err;
@@ -146,3 +148,6 @@ export function modalSettling(
   }
   return err.lastExit(last, band);
 }
+
+/** The steady error of the last call, refilled by each (created by the first). */
+let SS: SteadyError | undefined;
