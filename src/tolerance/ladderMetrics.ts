@@ -91,7 +91,8 @@ export function ladderPasses(ladder: Ladder, plan: MetricPlan): boolean {
     for (const { from, to } of plan.steps) {
       let t = modalSettling(m, from, to, plan.band, states, limits.settling);
       if (t === undefined) t = settlingTime(ladder, from, to, plan.band).time;
-      if (t === null || !(t <= limits.settling)) return false;
+      // never settling counts as Infinity, as in the sample table
+      if (!((t ?? Infinity) <= limits.settling)) return false;
     }
   }
   return true;
