@@ -1,5 +1,5 @@
 import type { Ladder } from '../circuit/ladder.js';
-import { dcTransfer, settlingTime, worstRipple, modalLadder, type ModalLadder, MAX_MODAL_CONDITION, rippleAt, modalAverageOutput as averageOutput, type PeriodicState, modalSettling } from '../engine/index.js';
+import { dcTransfer, settlingTime, worstRipple, modalLadder, type ModalLadder, MAX_MODAL_CONDITION, rippleAt, modalAverageOutput as averageOutput, type PeriodicState, modalSettling, periodicState } from '../engine/index.js';
 import type { MetricPlan } from './metricPlan.js';
 import type { CircuitMetrics } from './metrics.js';
 import { maximizeFromHints } from './dutySearch.js';
@@ -78,7 +78,10 @@ export function ladderMetrics(ladder: Ladder, plan: MetricPlan, options: LadderM
  * Example: ladderPasses(ladder, metricPlan(p, ladder))  // true
  */
 export function ladderPasses(ladder: Ladder, plan: MetricPlan): boolean {
-  const modal = modalLadder(ladder);
+  // The modal form and the periodic states are written into those of the previous call: each is
+  // done with before the next ladder comes (nothing keeps them), so samples allocate none.
+  const modal = modalLadder(ladder, SCRATCH.modal ?? undefined);
+  if (modal !== null && modal.symmetric) SCRATCH.modal = modal;
   const m = modal !== null && modal.condition <= MAX_MODAL_CONDITION ? modal : null;
   if (m === null) return passesLimits(engineMetrics(ladder, plan), plan);
   const { limits } = plan;
@@ -87,7 +90,18 @@ export function ladderPasses(ladder: Ladder, plan: MetricPlan): boolean {
   const gain = limits.gain !== undefined && plan.gain;
   if ((limits.droop !== undefined || inl || gain) && !modalDcPasses(m, ladder, plan)) return false;
   if (limits.settling !== undefined) {
-    const states = new Map<number, PeriodicState>();
+    const states = SCRATCH.states;
+    states.clear();
+    let pooled = 0;
+    for (const { from, to } of plan.steps) {
+      for (let k = 0; k < 2; k++) {
+        const d = k === 0 ? to : from;
+        if (states.has(d)) continue;
+        const st = periodicState(m, d, SCRATCH.pool[pooled]);
+        SCRATCH.pool[pooled++] = st;
+        states.set(d, st);
+      }
+    }
     for (const { from, to } of plan.steps) {
       let t = modalSettling(m, from, to, plan.band, states, limits.settling);
       if (t === undefined) t = settlingTime(ladder, from, to, plan.band).time;
@@ -97,6 +111,13 @@ export function ladderPasses(ladder: Ladder, plan: MetricPlan): boolean {
   }
   return true;
 }
+
+/** ladderPasses' modal form and periodic states from its last call (module scratch). */
+const SCRATCH: { modal: ModalLadder | null; states: Map<number, PeriodicState>; pool: PeriodicState[] } = {
+  modal: null,
+  states: new Map(),
+  pool: [],
+};
 
 function engineMetrics(ladder: Ladder, plan: MetricPlan): LadderMetrics {
   // matrix exponentials throughout: this is the independent check of the modal path (engineOnly)
