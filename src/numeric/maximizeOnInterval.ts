@@ -67,11 +67,12 @@ export interface Maximum {
  */
 export function brentMaximize(f: (x: number) => number, a: number, b: number, xtol = 1e-10): Maximum {
   const golden = 0.5 * (3 - Math.sqrt(5));
-  const g = (x: number) => -f(x);
+  // Brent's minimizer on g = -f, the negation written at each call (no wrapper: a call boundary
+  // boxes its double argument and result, thousands of times per tolerance study)
   let x = a + golden * (b - a);
   let w = x;
   let v = x;
-  let fx = g(x);
+  let fx = -f(x);
   let fw = fx;
   let fv = fx;
   let d = 0;
@@ -103,7 +104,7 @@ export function brentMaximize(f: (x: number) => number, a: number, b: number, xt
       d = golden * e;
     }
     const u = x + (Math.abs(d) >= tol1 ? d : d >= 0 ? tol1 : -tol1);
-    const fu = g(u);
+    const fu = -f(u);
     if (fu <= fx) {
       if (u >= x) a = x;
       else b = x;

@@ -1,9 +1,8 @@
 import type { Ladder } from '../circuit/ladder.js';
 import { wilsonInterval } from '../numeric/statistics.js';
 import type { Project } from '../project/types.js';
-import { evaluateSamples } from './evaluateSamples.js';
+import { countPassing } from './countPassing.js';
 import { monteCarloSetup } from './monteCarlo.js';
-import { summarizeSamples } from './summarizeSamples.js';
 
 export interface SequentialYield {
   /** Passing share of the samples drawn, 0..1. */
@@ -37,7 +36,7 @@ export const SEQUENTIAL_Z = 3;
  * statistical inference", JASA 22(158), 1927; numeric/statistics.ts) at z = 3 after each batch
  * (250 samples, or cap / 8 when larger), with a Bonferroni bound over the looks (SEQUENTIAL_Z). A group-sequential test with a
  * constant boundary, conservative against repeated looks; samples from monteCarloSetup (the
- * project's seed and distribution) and evaluateSamples, as monteCarlo.ts.
+ * project's seed and distribution), counted as monteCarlo.ts would count them (countPassing).
  *
  * Syntax: sequentialYield(project, ladder, target, cap)
  * Example: sequentialYield(p, ladder, 0.99, 2000)   // { yield: 1, samples: 1000, pass: true, early: true, ... }
@@ -49,7 +48,8 @@ export function sequentialYield(project: Project, ladder: Ladder, target: number
   const batch = Math.max(SEQUENTIAL_BATCH, Math.ceil(cap / LOOKS));
   while (n < cap) {
     const last = Math.min(cap, n + batch);
-    passed += summarizeSamples(evaluateSamples(setup.circuit, setup.parameters, setup.plan, setup.deviates, n, last), setup.plan).passed;
+    // the count alone: summarizeSamples(evaluateSamples(...)).passed, with less work (countPassing.ts)
+    passed += countPassing(setup.circuit, setup.parameters, setup.plan, setup.deviates, n, last);
     n = last;
     const interval = wilsonInterval(passed, n, SEQUENTIAL_Z);
     const early = n < cap && (interval[0] >= target || interval[1] < target);

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { gridPeaks } from '../../src/tolerance/dutySearch.js';
+import fc from 'fast-check';
+import { gridPeaks, maximizeFromHints } from '../../src/tolerance/dutySearch.js';
 
 describe('gridPeaks', () => {
   it('finds both interior peaks of sin 3x + sin(7x)/2 on [0, 3] that its grid sees (mpmath findroot on f\')', () => {
@@ -21,5 +22,27 @@ describe('gridPeaks', () => {
     const peaks = gridPeaks((d) => d * (1 - d), 0, 1);
     expect(peaks).toHaveLength(1);
     expect(peaks[0]).toBeCloseTo(0.5, 8);
+  });
+});
+
+describe('maximizeFromHints with the end values given', () => {
+  it('is the same search as without them: the same maximum, bit for bit (random sums of sines, random hints)', () => {
+    // The reference is the same function evaluating f(a) and f(b) itself (common practice: a cache
+    // of values must not change a deterministic search).
+    fc.assert(
+      fc.property(
+        fc.array(fc.tuple(fc.double({ min: -1, max: 1, noNaN: true }), fc.double({ min: 0.5, max: 12, noNaN: true })), { minLength: 1, maxLength: 3 }),
+        fc.array(fc.double({ min: 0, max: 1, noNaN: true }), { maxLength: 3 }),
+        fc.boolean(),
+        (terms, hints, none) => {
+          const f = (x: number) => terms.reduce((s, [amp, k]) => s + amp * Math.sin(k * x), 0);
+          const a = 0.05;
+          const b = 0.95;
+          const h = none ? null : hints;
+          expect(maximizeFromHints(f, a, b, h, 1e-9, { fa: f(a), fb: f(b) })).toEqual(maximizeFromHints(f, a, b, h));
+        },
+      ),
+      { numRuns: 300, seed: 5 },
+    );
   });
 });

@@ -13,10 +13,14 @@ export type { ModalLadder, PhaseModes } from './modalTypes.js';
  * block, for the engine's matrix-exponential path). The engine decides with modalRoute.ts whether
  * it uses the form; the tolerance module uses it directly.
  *
- * Syntax: modalLadder(ladder)
+ * With `into`, the modal form of an earlier call, a follower-free ladder of one or two stages is
+ * written into it (modalLadderOf's `into`: the same numbers) and it is returned: a caller that is
+ * done with each form before asking for the next allocates nothing for it.
+ *
+ * Syntax: modalLadder(ladder[, into])
  * Example: modalLadder(oneStage).hi.rate  // [-1 / ((R + Rd) C)]
  */
-export function modalLadder(ladder: Ladder): ModalLadder | null {
+export function modalLadder(ladder: Ladder, into?: ModalLadder): ModalLadder | null {
   const { stages } = ladder;
   const n = stages.length;
   for (let k = 0; k < n - 1; k++) if (stages[k].buffered) return cascadeLadder(ladder);
@@ -25,5 +29,6 @@ export function modalLadder(ladder: Ladder): ModalLadder | null {
     circuit,
     stages.map((s) => s.r),
     stages.map((s) => s.c),
+    into,
   );
 }

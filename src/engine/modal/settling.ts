@@ -1,7 +1,7 @@
 import { zeros } from '../../numeric/dense.js';
 import type { ModalLadder } from './modalLadder.js';
 import { periodicState, type PeriodicState } from './periodicState.js';
-import { steadyError, stepError } from './stepError.js';
+import { reusedStepError, steadyError, type SteadyError } from './stepError.js';
 
 /**
  * A safety net on the branch and bound: beyond this many period evaluations (never seen in
@@ -31,7 +31,16 @@ const MAX_PERIOD_EVALUATIONS = 4000;
  *
  * Pass a map to share periodic states between calls on the same ladder (keyed by duty).
  *
- * Syntax: modalSettling(modal, from, to, band[, states])
+ * With a finite `ceiling` (s), for callers that only compare the settling time with it (a yield
+ * verdict): when the envelope already shows that no period from `safe` on leaves the band, and
+ * safe * T (1 + 1e-9) <= ceiling, that figure is returned instead of the exact time. It is an
+ * upper bound by the code alone: without the ceiling the result would be the last exit inside a
+ * period before `safe` (k T + t1 + tau <= safe T up to rounding, covered by the 1e-9), and the
+ * branch and bound could not give up (it makes at most 2 safe + 64 period evaluations; the
+ * shortcut is taken only below MAX_PERIOD_EVALUATIONS). So `result <= ceiling` is the exact time's
+ * verdict, and a result above the ceiling is the exact time itself.
+ *
+ * Syntax: modalSettling(modal, from, to, band[, states, ceiling])
  * Example: modalSettling(modalLadder(ladder)!, 0.1, 0.9, 1.6e-3)  // s, or null
  */
 export function modalSettling(
@@ -40,6 +49,7 @@ export function modalSettling(
   to: number,
   band: number,
   states?: Map<number, PeriodicState>,
+  ceiling = Infinity,
 ): number | null | undefined {
   const stateAt = (d: number) => {
     let st = states?.get(d);
@@ -51,11 +61,13 @@ export function modalSettling(
   };
   const target = stateAt(to);
   const source = stateAt(from);
-  const ss = steadyError(target);
+  // The steady error and the step's modes in objects kept from the last call: both are read only
+  // inside this call, so nothing of them is allocated per call (values as stepError's).
+  const ss = (SS = steadyError(target, SS));
   if (ss.above > band || ss.below < -band) return null;
   // The period-map symmetrization needs an orthogonal `mix` (a follower-free ladder).
   if (!m.symmetric) return undefined;
-  const err = stepError(m, target, source, ss);
+  const err = reusedStepError(m, target, source, ss);
   if (err === null) return 0;
   const { n } = m;
   const { zeta, bound } = err;
@@ -82,6 +94,12 @@ export function modalSettling(
       else high = mid;
     }
     const safe = high; // no period from here on can leave the band
+    // Blocks over [1, safe - 1] (at most 2 + log2(safe) of them, one evaluation each) and the
+    // branch and bound inside them (at most 2 (width - 1) evaluations each): under 2 safe + 64.
+    if (ceiling < Infinity && 2 * safe + 64 <= MAX_PERIOD_EVALUATIONS) {
+      const upper = safe * m.period * (1 + 1e-9);
+      if (upper <= ceiling) return upper;
+    }
 
     let evaluations = 0;
     const coef = zeros(n);
@@ -130,3 +148,6 @@ export function modalSettling(
   }
   return err.lastExit(last, band);
 }
+
+/** The steady error of the last call, refilled by each (created by the first). */
+let SS: SteadyError | undefined;

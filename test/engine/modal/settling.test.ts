@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
 import { modalLadder } from '../../../src/engine/modal/modalLadder.js';
 import { modalSettling } from '../../../src/engine/modal/settling.js';
 import { integratePeriod, ladder, oneStageRipple, oneStageSettling, stage } from '../../tolerance/reference.js';
@@ -88,4 +89,50 @@ describe('modalSettling against a step response integrated by ODEX (npm odex)', 
       expect(Math.abs(got - lastOut)).toBeLessThan(T / 500);
     });
   }
+});
+
+describe('modalSettling with a ceiling (a yield verdict asks only settling <= limit)', () => {
+  // Reference: the same function without a ceiling (held to ODEX and the closed form above). Ceilings
+  // at the exact time, one double either side of it, and at several multiples of it.
+  const nextDouble = (x: number, step: bigint) => {
+    const v = new DataView(new ArrayBuffer(8));
+    v.setFloat64(0, x);
+    v.setBigUint64(0, v.getBigUint64(0) + step);
+    return v.getFloat64(0);
+  };
+  it('gives the exact verdict for every ceiling, the exact time when above it, and never less than the exact time', () => {
+    const arbStage = fc.record({
+      r: fc.double({ min: Math.log(220), max: Math.log(100e3), noNaN: true }).map(Math.exp),
+      c: fc.double({ min: Math.log(1e-9), max: Math.log(2e-6), noNaN: true }).map(Math.exp),
+    });
+    let shortcuts = 0;
+    fc.assert(
+      fc.property(
+        fc.array(arbStage, { minLength: 1, maxLength: 3 }),
+        fc.tuple(fc.double({ min: 0, max: 80, noNaN: true }), fc.double({ min: 0, max: 80, noNaN: true })),
+        fc.tuple(fc.double({ min: 0.02, max: 0.98, noNaN: true }), fc.double({ min: 0.02, max: 0.98, noNaN: true })),
+        fc.double({ min: Math.log(1e-4), max: Math.log(3e-2), noNaN: true }).map(Math.exp),
+        (stages, [dh, dl], [from, to], band) => {
+          const m = modalLadder(ladder(stages.map((s) => stage(s.r, s.c)), { driverHigh: dh, driverLow: dl, loadResistance: 1e6 }));
+          fc.pre(m !== null);
+          const exact = modalSettling(m!, from, to, band);
+          const ceilings = typeof exact === 'number' && exact > 0 ? [exact, nextDouble(exact, -1n), nextDouble(exact, 1n), 1.01 * exact, 1.5 * exact, 3 * exact, 100 * exact] : [T, 1];
+          for (const ceiling of ceilings) {
+            const got = modalSettling(m!, from, to, band, undefined, ceiling);
+            if (typeof exact !== 'number') {
+              expect(got).toBe(exact);
+              continue;
+            }
+            expect(typeof got).toBe('number');
+            expect(got! <= ceiling).toBe(exact <= ceiling);
+            expect(got!).toBeGreaterThanOrEqual(exact);
+            if (got! > ceiling) expect(got).toBe(exact);
+            if (got !== exact) shortcuts++;
+          }
+        },
+      ),
+      { numRuns: 200, seed: 4242 },
+    );
+    expect(shortcuts).toBeGreaterThan(50);
+  });
 });
