@@ -1,5 +1,4 @@
-// Bundle the command line into dist/cli.cjs (and the worker-thread entries into dist/tolerance-worker.js
-// and dist/design-worker.js),
+// Bundle the command line into dist/cli.cjs (and the tolerance worker into dist/tolerance-worker.js),
 // with external source maps, using esbuild, and save V8's code cache for the bundle.
 // Output is written next to the target and renamed into place, so a concurrent reader never sees
 // half a file. Usage: node scripts/build.mjs
@@ -211,9 +210,9 @@ const common = (outdir, minify) => ({
 });
 
 /**
- * Bundle the command line: src/cli/main.ts into cli.cjs and the worker-thread entries beside it,
- * where their callers look for them: src/tolerance/worker.ts into tolerance-worker.js
- * (monteCarloParallel) and src/api/tradeoffWorker.ts into design-worker.js (tradeoffInWorker); then, unless `codeCache: false`, run the bundle once on the
+ * Bundle the command line: src/cli/main.ts into cli.cjs and, when the tolerance module has its
+ * worker (src/tolerance/worker.ts), that into tolerance-worker.js beside it, where
+ * monteCarloParallel looks for it; then, unless `codeCache: false`, run the bundle once on the
  * greenhouse sample to save V8's code cache beside it (cli.cjs.cache, see bin/dacsmith.cjs).
  * `minify: false` keeps names readable for profiling (node --cpu-prof); `outdir` builds elsewhere
  * (default dist/).
@@ -245,16 +244,11 @@ export async function buildCli({ outdir: out = dist, minify = true, codeCache = 
     format: 'cjs',
   });
   const outputs = [...cli.outputFiles, ...mathjs.outputFiles];
-  // Worker-thread entries: Monte Carlo blocks (tolerance) and trade-off curves (design).
-  const workers = {
-    'tolerance-worker': join(root, 'src', 'tolerance', 'worker.ts'),
-    'design-worker': join(root, 'src', 'api', 'tradeoffWorker.ts'),
-  };
-  for (const [name, worker] of Object.entries(workers)) {
-    if (!existsSync(worker)) continue;
+  const worker = join(root, 'src', 'tolerance', 'worker.ts');
+  if (existsSync(worker)) {
     const bundled = await build({
       ...common(outdir, minify),
-      entryPoints: { [name]: worker },
+      entryPoints: { 'tolerance-worker': worker },
       format: 'esm',
       // Some dependencies are CommonJS and call require() for Node built-ins: give the ESM bundle one.
       banner: {

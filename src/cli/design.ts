@@ -17,8 +17,6 @@ export interface DesignArgs {
   quiet?: boolean;
   /** Keep only designs that meet the spec under part tolerances. */
   robust?: 'worst-case' | 'yield';
-  /** Threads, this one included: 1 keeps everything in this thread; default: a worker for the curves when a core is free. */
-  workers?: number;
   width?: number;
 }
 
@@ -63,10 +61,6 @@ export async function runDesign(
   if (args.maxTime !== undefined && !(Number.isInteger(args.maxTime) && args.maxTime >= 1)) {
     throw new UsageError(`--max-time ${args.maxTime}: give whole seconds, at least 1`);
   }
-  if (args.workers !== undefined && !(Number.isInteger(args.workers) && args.workers >= 1)) {
-    // yargs turns a word given to a number option into NaN: say so rather than echo 'NaN'
-    throw new UsageError(`--workers must be a whole number >= 1, got ${Number.isNaN(args.workers) ? 'something that is not a number' : String(args.workers)}`);
-  }
   if (args.maxTime !== undefined && args.robust !== undefined) {
     throw new UsageError('--max-time bounds the nominal search; it cannot be combined with --robust yet');
   }
@@ -75,7 +69,7 @@ export async function runDesign(
   if (args.write !== undefined && !args.force && fs.existsSync(args.write)) {
     return { stdout: '', stderr: `dacsmith: ${args.write} exists; use --force to overwrite it\n`, code: EXIT_BAD_INPUT };
   }
-  const [{ loadProject }, { designStudyInParallel }, { designReport }, { designProgressLine }] = await Promise.all([
+  const [{ loadProject }, { designStudy }, { designReport }, { designProgressLine }] = await Promise.all([
     import('../project/index.js'),
     import('../api/designStudy.js'),
     import('../report/design.js'),
@@ -86,14 +80,13 @@ export async function runDesign(
   const bar = tty.progress && !args.quiet ? progressBar(tty.progress, designProgressLine) : null;
   let study;
   try {
-    // The trade-off curves of the largest stage count in a worker thread beside the search.
-    study = await designStudyInParallel(project, {
+    study = designStudy(project, {
       top: args.top,
       tradeoff: args.charts,
       ...(args.maxTime !== undefined && { deadline: started + 1000 * args.maxTime }),
       ...(args.robust && { robust: args.robust }),
       ...(bar && { onProgress: (f: number, d?: DesignProgress) => bar.update(f, d) }),
-    }, args.workers === undefined ? {} : { force: args.workers > 1 });
+    });
   } finally {
     bar?.done();
   }
@@ -170,11 +163,6 @@ export function designCommand(
           requiresArg: true,
         })
         .option('charts', { describe: 'Compute and draw the settling/ripple trade-off (--no-charts: faster)', type: 'boolean', default: true })
-        .option('workers', {
-          describe: 'Threads, this one included: 1 keeps the trade-off curves in this thread, 2 draws the largest stage count\'s beside the search (default: 2 when the load average leaves a core free)',
-          type: 'number',
-          requiresArg: true,
-        })
         .example('$0 design sample-configs/design-tight-ripple.yaml', 'Ranked designs, trade-off chart, comparison')
         .example('$0 design board.yaml --top 3 --no-charts', 'Three best designs, no trade-off curves')
         .example('$0 design board.yaml --write board-designed.yaml', 'Save design #1 as a new project file')

@@ -4,7 +4,7 @@ export { designProblem, type DesignProblem } from './designProblem.js';
 export { projectAtResolution } from './projectAtResolution.js';
 export { exactCandidate } from './exactCandidate.js';
 export { rankCandidates, SETTLING_TIE } from './rankCandidates.js';
-export { tradeoffCurves, tradeoffRipples, type TradeoffCurve, type TradeoffPoint } from './tradeoffCurves.js';
+export { tradeoffCurves, type TradeoffCurve, type TradeoffPoint } from './tradeoffCurves.js';
 export { explainInfeasible } from './explainInfeasible.js';
 export { DesignInputError } from './designInputError.js';
 export type * from './types.js';

@@ -42,7 +42,9 @@ export interface TradeoffOptions {
  * Example: tradeoffCurves(p, [1, 2], p.spec.ripple)[1].points[4].settlingTime   // s at the spec's ripple
  */
 export function tradeoffCurves(project: Project, stageCounts: number[], center: number, options: TradeoffOptions = {}): TradeoffCurve[] {
-  const ripples = options.ripples ?? tradeoffRipples(center, options.points);
+  const count = options.points ?? 9;
+  const ripples =
+    options.ripples ?? Array.from({ length: count }, (_, i) => center * 8 ** ((2 * i) / Math.max(1, count - 1) - 1));
   // A limit in V here: drop the LSB record of the ripple so a resolution change keeps the value.
   const free = relaxProject(project, ['settling'], Infinity);
   const inLsb = free.specInLsb ? { ...free.specInLsb } : undefined;
@@ -57,16 +59,4 @@ export function tradeoffCurves(project: Project, stageCounts: number[], center: 
     options.onProgress?.(++done / stageCounts.length);
     return { stages: n, points: ripples.map((ripple, i) => ({ ripple, settlingTime: best[i]?.settlingTime ?? null, best: best[i] })) };
   });
-}
-
-/**
- * The ripple limits of a trade-off curve by default: `count` values log-spaced over center / 8 ..
- * center * 8 (V), the middle one the centre itself when count is odd. A caller that splits one
- * curve's limits between threads takes them from here, so each part gets the very same numbers.
- *
- * Syntax: tradeoffRipples(center[, count])
- * Example: tradeoffRipples(1.6e-3)[4]   // 1.6e-3
- */
-export function tradeoffRipples(center: number, count = 9): number[] {
-  return Array.from({ length: count }, (_, i) => center * 8 ** ((2 * i) / Math.max(1, count - 1) - 1));
 }

@@ -6,7 +6,6 @@ import { runDesign, type DesignArgs } from '../../src/cli/design.js';
 import { UsageError } from '../../src/cli/errors.js';
 import { InputError } from '../../src/units/index.js';
 import { parseProject } from '../../src/project/index.js';
-import { runBuilt } from './runBuilt.js';
 
 const yaml = `# invented scenario
 pwm: { frequency: 20 kHz, bits: 10, high: 3.3 V, low: 0 V, driver: 30 ohm, duty: { min: 5 %, max: 95 % } }
@@ -71,27 +70,5 @@ describe('dacsmith design (runDesign)', () => {
     // an input error (exit 2) that names the file and the key; the shell adds the line
     await expect(runDesign(args({ file: bare }), { color: false })).rejects.toMatchObject({ key: 'search', file: bare });
     await expect(runDesign(args({ file: bare }), { color: false })).rejects.toBeInstanceOf(InputError);
-  });
-});
-
-describe('dacsmith design --workers (built command)', () => {
-  const sample = 'sample-configs/greenhouse-heater.yaml';
-  const timeless = (json: string) => json.replace(/"elapsed": *[0-9.e+-]+/g, '"elapsed": 0');
-
-  it('draws the same report in one thread and with the curves worker (dist/design-worker.js)', () => {
-    const one = runBuilt(['design', sample, '--format', 'json', '--workers', '1']);
-    const two = runBuilt(['design', sample, '--format', 'json', '--workers', '2']);
-    expect(one.code).toBe(0);
-    expect(two.code).toBe(0);
-    expect(JSON.parse(two.stdout).tradeoff.length).toBe(2);
-    expect(timeless(two.stdout)).toBe(timeless(one.stdout));
-  }, 60_000);
-
-  it('refuses a thread count below 1 or not a number (exit 2)', () => {
-    for (const bad of ['0', '1.5', 'two']) {
-      const r = runBuilt(['design', sample, '--workers', bad]);
-      expect(r.code).toBe(2);
-      expect(r.stderr).toMatch(/--workers/);
-    }
   });
 });
