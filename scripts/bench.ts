@@ -70,7 +70,7 @@ export async function runBench(): Promise<BenchReport> {
   if (infeasible) sections.push(infeasible.section);
   data.infeasibleDesign = infeasible?.data ?? null;
 
-  step('design answers, whole process (the three-stage search takes tens of seconds a run)');
+  step('design answers, whole process (the three-stage search takes a few seconds a run)');
   const designRows = buildError ? null : designAnswersCost(root);
   if (designRows) sections.push(designRows.section);
   data.designAnswers = designRows?.data ?? null;
