@@ -273,12 +273,9 @@ export function collectCandidates(
   const steadyDuty: number[] = [];
   const steadyOf: Array<PeriodicState | null> = [];
   const swingOf: Array<SteadySwing | null> = [];
-  /** Ripple alone by slot (rippleAt), where no swing is known: valid where rippleKnown is. */
+  /** Ripple alone (rippleAt) and time average alone (averageOutput) by slot, where no swing is known; NaN: not yet. */
   const rippleAtSlot: number[] = [];
-  const rippleKnown: boolean[] = [];
-  /** Time average alone by slot (averageOutput), where no swing is known: valid where averageKnown is. */
   const averageAtSlot: number[] = [];
-  const averageKnown: boolean[] = [];
   const steadyPool: Array<PeriodicState | undefined> = [];
   const swingPool: Array<SteadySwing | undefined> = [];
   const sameAs = (x: number[], y: number[]) => {
@@ -306,8 +303,8 @@ export function collectCandidates(
     steadyDuty[slots] = d;
     steadyOf[slots] = null;
     swingOf[slots] = null;
-    rippleKnown[slots] = false;
-    averageKnown[slots] = false;
+    rippleAtSlot[slots] = Number.NaN;
+    averageAtSlot[slots] = Number.NaN;
     return slots++;
   };
   /** Periodic state of the model last used at a duty (computed once). */
@@ -367,10 +364,7 @@ export function collectCandidates(
     const k = slot(d);
     const known = swingOf[k];
     if (known !== null) return known.ripple;
-    if (!rippleKnown[k]) {
-      rippleAtSlot[k] = rippleAt(model!, d);
-      rippleKnown[k] = true;
-    }
+    if (Number.isNaN(rippleAtSlot[k])) rippleAtSlot[k] = rippleAt(model!, d);
     return rippleAtSlot[k];
   };
 
@@ -383,10 +377,7 @@ export function collectCandidates(
     const k = slot(d);
     const known = swingOf[k];
     if (known !== null) return known.average;
-    if (!averageKnown[k]) {
-      averageAtSlot[k] = modalAverageOutput(model!, d);
-      averageKnown[k] = true;
-    }
+    if (Number.isNaN(averageAtSlot[k])) averageAtSlot[k] = modalAverageOutput(model!, d);
     return averageAtSlot[k];
   };
 

@@ -1,5 +1,5 @@
 import type { DesignProblem } from './designProblem.js';
-import { firstNodeCurvature, heldFirstNode } from './heldFirstNode.js';
+import { gridFloor, heldFirstNode } from './heldFirstNode.js';
 
 /** Steps of the duty grid (GRID + 1 duties, both ends included): the droop grid of collectCandidates.ts. */
 const GRID = 8;
@@ -56,8 +56,5 @@ export function droopFloorPlan(problem: DesignProblem, r: ArrayLike<number>): Dr
  * Example: droopFloor(droopFloorPlan(problem, [470, 3300, 12e3])!, [390e-9, 39e-9, 10e-9])   // V
  */
 export function droopFloor(plan: DroopFloorPlan, c: ArrayLike<number>): number {
-  const curvature = firstNodeCurvature(plan, c);
-  let best = 0;
-  for (let i = 0; i < plan.gap.length; i++) best = Math.max(best, plan.gap[i] - curvature * plan.weight[i]);
-  return best;
+  return gridFloor(plan, c, plan.gap, plan.weight);
 }

@@ -77,3 +77,23 @@ export function firstNodeCurvature(held: Pick<HeldFirstNode, 'first' | 'second' 
   const c2 = held.stages >= 2 ? c[1] + (held.stages === 2 ? held.loadC : 0) : Infinity;
   return (held.first / c1 + (held.second > 0 ? held.second / c2 : 0)) / c1;
 }
+
+/**
+ * The floor both DC floors take on their duty grids: max over the grid of (the held ladder's
+ * deviation there - curvature x its weight), at least 0, with the curvature of capacitors `c`
+ * (firstNodeCurvature); it never falls when any capacitor grows, since the curvature only shrinks.
+ *
+ * Syntax: gridFloor(held, c, deviation, weight)
+ * Example: gridFloor(plan, [390e-9, 39e-9], plan.gap, plan.weight)   // V
+ */
+export function gridFloor(
+  held: Pick<HeldFirstNode, 'first' | 'second' | 'loadC' | 'stages'>,
+  c: ArrayLike<number>,
+  deviation: readonly number[],
+  weight: readonly number[],
+): number {
+  const curvature = firstNodeCurvature(held, c);
+  let best = 0;
+  for (let i = 0; i < deviation.length; i++) best = Math.max(best, deviation[i] - curvature * weight[i]);
+  return best;
+}

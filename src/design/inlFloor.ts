@@ -1,5 +1,5 @@
 import type { DesignProblem } from './designProblem.js';
-import { firstNodeCurvature, heldFirstNode } from './heldFirstNode.js';
+import { gridFloor, heldFirstNode } from './heldFirstNode.js';
 
 /** Interior duties of the bound: the grid of dcTransferMiss.ts (the endpoints define the fit). */
 const GRID = 8;
@@ -61,8 +61,5 @@ export function inlFloorPlan(problem: DesignProblem, r: ArrayLike<number>): InlF
  * Example: inlFloor(inlFloorPlan(problem, [100, 820])!, [510e-9, 82e-9])   // V
  */
 export function inlFloor(plan: InlFloorPlan, c: ArrayLike<number>): number {
-  const curvature = firstNodeCurvature(plan, c);
-  let best = 0;
-  for (let i = 0; i < plan.bent.length; i++) best = Math.max(best, plan.bent[i] - curvature * plan.weight[i]);
-  return best;
+  return gridFloor(plan, c, plan.bent, plan.weight);
 }

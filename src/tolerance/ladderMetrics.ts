@@ -4,7 +4,7 @@ import type { MetricPlan } from './metricPlan.js';
 import type { CircuitMetrics } from './metrics.js';
 import { maximizeFromHints } from './dutySearch.js';
 import type { Maximum } from '../numeric/maximizeOnInterval.js';
-import { passesLimits } from './passesLimits.js';
+import { meetsLimit, passesLimits } from './passesLimits.js';
 
 /** The figures of one ladder (metrics.ts; the name predates networks). */
 export type LadderMetrics = CircuitMetrics;
@@ -85,7 +85,7 @@ export function ladderPasses(ladder: Ladder, plan: MetricPlan): boolean {
   const m = modal !== null && modal.condition <= MAX_MODAL_CONDITION ? modal : null;
   if (m === null) return passesLimits(engineMetrics(ladder, plan), plan);
   const { limits } = plan;
-  if (limits.ripple !== undefined && !(modalWorstRipple(m, plan).ripple <= limits.ripple)) return false;
+  if (limits.ripple !== undefined && !meetsLimit('ripple', modalWorstRipple(m, plan).ripple, limits.ripple)) return false;
   const inl = limits.inl !== undefined && plan.inl;
   const gain = limits.gain !== undefined && plan.gain;
   if ((limits.droop !== undefined || inl || gain) && !modalDcPasses(m, ladder, plan)) return false;
@@ -106,7 +106,7 @@ export function ladderPasses(ladder: Ladder, plan: MetricPlan): boolean {
       let t = modalSettling(m, from, to, plan.band, states, limits.settling);
       if (t === undefined) t = settlingTime(ladder, from, to, plan.band).time;
       // never settling counts as Infinity, as in the sample table
-      if (!((t ?? Infinity) <= limits.settling)) return false;
+      if (!meetsLimit('settling', t ?? Infinity, limits.settling)) return false;
     }
   }
   return true;
@@ -175,15 +175,16 @@ function modalDcPasses(m: ModalLadder, ladder: Ladder, plan: MetricPlan): boolea
   const { limits } = plan;
   const inl = limits.inl !== undefined && plan.inl;
   const dc = dcSearch(m, ladder, plan, limits.droop !== undefined, inl);
-  if (limits.gain !== undefined && plan.gain && !(Math.abs(dc.gain) <= limits.gain)) return false;
+  if (limits.gain !== undefined && plan.gain && !meetsLimit('gain', dc.gain, limits.gain)) return false;
   if (dc.affine) {
     const { errA, errB } = dc;
     const droop = Math.abs(errB) > Math.abs(errA) ? errB : errA;
-    if (limits.droop !== undefined && !(Math.abs(droop) <= limits.droop)) return false;
-    return !(inl && !(0 <= limits.inl!));
+    if (limits.droop !== undefined && !meetsLimit('droop', droop, limits.droop)) return false;
+    return !(inl && !meetsLimit('inl', 0, limits.inl!));
   }
-  if (limits.droop !== undefined && !(dc.droop!.value <= limits.droop)) return false;
-  return !(inl && !(dc.inl!.value <= limits.inl!));
+  // the searched maxima of |DC error| and |INL|
+  if (limits.droop !== undefined && !meetsLimit('droop', dc.droop!.value, limits.droop)) return false;
+  return !(inl && !meetsLimit('inl', dc.inl!.value, limits.inl!));
 }
 
 interface DcSearch {

@@ -1,9 +1,9 @@
 import type { MetricPlan } from './metricPlan.js';
 import type { SampleTable } from './evaluateSamples.js';
 import { percentiles, wilsonInterval, type Percentiles } from '../numeric/statistics.js';
+import { meetsLimit, type SpecName } from './passesLimits.js';
 
-/** A spec the yield is counted against. */
-export type SpecName = 'ripple' | 'droop' | 'inl' | 'gain' | 'settling';
+export type { SpecName };
 
 /** Yield and distribution figures of a Monte Carlo run. */
 export interface SampleSummary {
@@ -32,8 +32,8 @@ export interface SampleSummary {
 /**
  * Yield overall and per spec, its confidence interval, and percentiles of each figure.
  *
- * Method: a sample passes a limit when its figure is at most the limit (|droop|, |INL|; a step
- * that never settles fails), as analyze's checks do; the yield is the passing fraction, with a
+ * Method: a sample passes a limit by meetsLimit (passesLimits.ts: at most the limit, |droop|,
+ * |INL|, |gain error|; a step that never settles fails), as analyze's checks do; the yield is the passing fraction, with a
  * Wilson score interval (statistics.ts); percentiles by Hyndman-Fan definition 7.
  *
  * Syntax: summarizeSamples(table, plan)
@@ -42,18 +42,18 @@ export interface SampleSummary {
 export function summarizeSamples(table: SampleTable, plan: MetricPlan): SampleSummary {
   const n = table.worstRipple.length;
   const { limits } = plan;
+  // One column per spec (INL and gain error only when computed); meetsLimit is the one rule.
+  const columns: Array<[SpecName, number | undefined, Float64Array | null]> = [
+    ['ripple', limits.ripple, table.worstRipple],
+    ['droop', limits.droop, table.droop],
+    ['inl', limits.inl, table.inl],
+    ['gain', limits.gain, table.gain],
+    ['settling', limits.settling, table.settlingTime],
+  ];
   const tests: Array<[SpecName, (i: number) => boolean]> = [];
-  if (limits.ripple !== undefined) tests.push(['ripple', (i) => table.worstRipple[i] <= limits.ripple!]);
-  if (limits.droop !== undefined) tests.push(['droop', (i) => Math.abs(table.droop[i]) <= limits.droop!]);
-  if (limits.inl !== undefined && table.inl) {
-    const inl = table.inl;
-    tests.push(['inl', (i) => Math.abs(inl[i]) <= limits.inl!]);
+  for (const [name, limit, column] of columns) {
+    if (limit !== undefined && column) tests.push([name, (i) => meetsLimit(name, column[i], limit)]);
   }
-  if (limits.gain !== undefined && table.gain) {
-    const gain = table.gain;
-    tests.push(['gain', (i) => Math.abs(gain[i]) <= limits.gain!]);
-  }
-  if (limits.settling !== undefined) tests.push(['settling', (i) => table.settlingTime[i] <= limits.settling!]);
   const perSpec = new Array<number>(tests.length).fill(0);
   let passed = 0;
   let never = 0;

@@ -1,9 +1,12 @@
 import './doubleFields.js';
 import { doubles, zeros } from '../../numeric/dense.js';
-import { solveLinear } from '../../numeric/lu.js';
+import { solveLinear, solveTwoByTwo } from '../../numeric/lu.js';
 import { phi2 } from '../../numeric/phi.js';
 import type { ModalLadder } from './modalLadder.js';
 import type { PhaseCurve } from './phaseCurve.js';
+
+/** Scratch for solveTwoByTwo (read at once). */
+const SOLVED = [0.5, 0.5];
 
 /** Periodic steady state at one duty, in modal form. */
 export interface PeriodicState {
@@ -189,39 +192,24 @@ function smallPeriodicState(m: ModalLadder, duty: number, into?: PeriodicState):
     v0 = (kl0 * d0) / den;
   } else {
     // Y = [a b; c d] and the right-hand sides [e g; f h], as the general loop forms them
-    let a = x00 * (kl0 + el0 * kh0);
-    let b = x01 * (kl0 + el0 * kh1);
-    let c = x10 * (kl1 + el1 * kh0);
-    let d = x11 * (kl1 + el1 * kh1);
-    let e = el0 * (0 + x00 * kh0 * d0 + x01 * kh1 * d1);
-    let g = kl0 * (0 + x00 * d0 + x01 * d1);
-    let f = el1 * (0 + x10 * kh0 * d0 + x11 * kh1 * d1);
-    let h = kl1 * (0 + x10 * d0 + x11 * d1);
-    // numeric/lu.ts factor (strict) and luSolve for order 2, two columns
-    if (Math.abs(c) > Math.abs(a)) {
-      let t = a;
-      a = c;
-      c = t;
-      t = b;
-      b = d;
-      d = t;
-      t = e;
-      e = f;
-      f = t;
-      t = g;
-      g = h;
-      h = t;
+    const a = x00 * (kl0 + el0 * kh0);
+    const b = x01 * (kl0 + el0 * kh1);
+    const c = x10 * (kl1 + el1 * kh0);
+    const d = x11 * (kl1 + el1 * kh1);
+    const e = el0 * (0 + x00 * kh0 * d0 + x01 * kh1 * d1);
+    const g = kl0 * (0 + x00 * d0 + x01 * d1);
+    const f = el1 * (0 + x10 * kh0 * d0 + x11 * kh1 * d1);
+    const h = kl1 * (0 + x10 * d0 + x11 * d1);
+    // solveTwoByTwo is solveLinear's elimination with partial pivoting for order 2, operation for
+    // operation; the strict factor refuses a zero or non-finite pivot
+    if (!(Number.isFinite(a) && Number.isFinite(b) && Number.isFinite(c) && Number.isFinite(d)) || !solveTwoByTwo(a, b, c, d, e, f, SOLVED)) {
+      throw new RangeError('periodicState: singular period map (not a physical ladder)');
     }
-    const big0 = Math.abs(a);
-    if (big0 === 0 || !Number.isFinite(big0)) throw new RangeError('periodicState: singular period map (not a physical ladder)');
-    const l = c / a;
-    if (l !== 0) d -= l * b;
-    const big1 = Math.abs(d);
-    if (big1 === 0 || !Number.isFinite(big1)) throw new RangeError('periodicState: singular period map (not a physical ladder)');
-    u1 = (f - l * e) / d;
-    u0 = (e - b * u1) / a;
-    v1 = (h - l * g) / d;
-    v0 = (g - b * v1) / a;
+    u0 = SOLVED[0];
+    u1 = SOLVED[1];
+    solveTwoByTwo(a, b, c, d, g, h, SOLVED);
+    v0 = SOLVED[0];
+    v1 = SOLVED[1];
   }
   const aHigh0 = hi.out[0] * v0;
   const aHigh1 = two ? hi.out[1] * v1 : 0;
@@ -246,53 +234,41 @@ function smallPeriodicState(m: ModalLadder, duty: number, into?: PeriodicState):
   }
   const meanOffset = integral / period;
   const yStart = duty > 0.5 ? m.outHigh - fromHigh : m.outLow + fromLow;
-  if (into !== undefined) {
-    const high = into.high as Curve;
-    const low = into.low as Curve;
-    into.duty = duty;
-    into.t1 = t1;
-    into.t2 = t2;
-    into.start[0] = u0;
-    high.gain[0] = -aHigh0;
-    low.gain[0] = -aLow0;
-    if (two) {
-      into.start[1] = u1;
-      high.gain[1] = -aHigh1;
-      low.gain[1] = -aLow1;
-    }
-    into.yStart = yStart;
-    into.meanOffset = meanOffset;
-    into.average = yStart + meanOffset;
-    high.offset = 0;
-    high.rate = hi.rate;
-    high.length = t1;
-    low.offset = yEnd;
-    low.rate = lo.rate;
-    low.length = t2;
-    return into;
-  }
-  const start = two ? [0.5, 0.5] : [0.5];
-  const gainHigh = two ? [0.5, 0.5] : [0.5];
-  const gainLow = two ? [0.5, 0.5] : [0.5];
-  start[0] = u0;
-  gainHigh[0] = -aHigh0;
-  gainLow[0] = -aLow0;
-  if (two) {
-    start[1] = u1;
-    gainHigh[1] = -aHigh1;
-    gainLow[1] = -aLow1;
-  }
-  return {
-    duty,
-    t1,
-    t2,
-    start,
-    yStart,
-    meanOffset,
-    average: yStart + meanOffset,
-    high: { offset: 0, gain: gainHigh, rate: hi.rate, length: t1 },
-    low: { offset: yEnd, gain: gainLow, rate: lo.rate, length: t2 },
+  // A fresh state is made in the shape of a written-into one (doubles throughout), then filled alike.
+  const out: PeriodicState = into ?? {
+    duty: 0.5,
+    t1: 0.5,
+    t2: 0.5,
+    start: two ? [0.5, 0.5] : [0.5],
+    yStart: 0.5,
+    meanOffset: 0.5,
+    average: 0.5,
+    high: { offset: 0.5, gain: two ? [0.5, 0.5] : [0.5], rate: hi.rate, length: 0.5 },
+    low: { offset: 0.5, gain: two ? [0.5, 0.5] : [0.5], rate: lo.rate, length: 0.5 },
   };
+  const high = out.high as Curve;
+  const low = out.low as Curve;
+  out.duty = duty;
+  out.t1 = t1;
+  out.t2 = t2;
+  out.start[0] = u0;
+  high.gain[0] = -aHigh0;
+  low.gain[0] = -aLow0;
+  if (two) {
+    out.start[1] = u1;
+    high.gain[1] = -aHigh1;
+    low.gain[1] = -aLow1;
+  }
+  out.yStart = yStart;
+  out.meanOffset = meanOffset;
+  out.average = yStart + meanOffset;
+  high.offset = 0;
+  high.rate = hi.rate;
+  high.length = t1;
+  low.offset = yEnd;
+  low.rate = lo.rate;
+  low.length = t2;
+  return out;
 }
 
 /** A phase curve whose every field may be set. */
