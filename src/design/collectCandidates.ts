@@ -7,7 +7,8 @@ import { gainFloor } from './gainFloor.js';
 import { inlFloor, inlFloorPlan, type InlFloorPlan } from './inlFloor.js';
 import { maximizeOverDuty } from './maximizeOverDuty.js';
 import { tupleBounds, type TupleBounds } from './settlingBounds.js';
-import { slowestTimeConstant } from './slowestTimeConstant.js';
+import { settlingFloor } from './settlingFloor.js';
+import { slowestTimeConstant, twoSlowestTimeConstants } from './slowestTimeConstant.js';
 
 /** Relative allowance between the fast model and the engine (both exact; rounding differs). */
 export const REL = 1e-6;
@@ -210,6 +211,29 @@ export function collectCandidates(
    */
   const dcOver = (rs: number[], cs: number[]): boolean => inlOver(rs, cs) || droopOver(rs, cs);
 
+  /**
+   * Lower bound on the settling time of the point from its capacitors (never falls when one grows):
+   * the proven floor of settlingFloor.ts from the fast ladder's two slowest time constants; exact to
+   * 1e-9 without a ceiling, and with one only sure to lie on the right side of it. Budgeted walks
+   * keep the older tau_slow * factor - slack (settlingBounds.ts), so their cut stays where it was.
+   */
+  const taus = [0, 0];
+  const settlingBoundOf = (rs: number[], cs: number[], tb: TupleBounds, ceiling: number): number => {
+    if (budgeted) return slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) * tb.factor - tb.slack;
+    twoSlowestTimeConstants(rs, cs, tb.driver, loadR, loadC, taus);
+    return settlingFloor(tb.floor, taus[0], taus[1], ceiling);
+  };
+  /**
+   * Lower bound on the settling time of every capacitor choice of a resistor tuple that meets
+   * tb's ripple limit: the bound above with the slowest time constant at least tb.tauMin (the
+   * ripple's) and both at least their values at the smallest capacitors.
+   */
+  const tupleKey = (rs: number[], tb: TupleBounds): number => {
+    if (budgeted) return Math.max(tb.tauMin, slowestTimeConstant(rs, minC, tb.driver, loadR, loadC)) * tb.factor - tb.slack;
+    twoSlowestTimeConstants(rs, minC, tb.driver, loadR, loadC, taus);
+    return settlingFloor(tb.floor, Math.max(tb.tauMin, taus[0]), taus[1]);
+  };
+
   // Resistor tuples that pass the pin current and (time-invariant) droop limits, with bounds.
   const tuples: number[][] = [];
   const bounds: TupleBounds[] = [];
@@ -239,8 +263,7 @@ export function collectCandidates(
       if (plan !== null && exceeds(droopFloor(plan, minC), limits.droop)) continue;
     }
     const tb = tupleBounds(problem, rs);
-    const tauFloor = Math.max(tb.tauMin, slowestTimeConstant(rs, minC, tb.driver, loadR, loadC));
-    const key = tauFloor * tb.factor - tb.slack;
+    const key = tupleKey(rs, tb);
     // Beyond the threshold already: the walk below would stop before it (theta only falls in a round).
     if (key > state.theta) continue;
     tuples.push(rs.slice());
@@ -450,7 +473,7 @@ export function collectCandidates(
       // This point's own threshold: the best of the limits its ripple can meet.
       theta = Math.min(theta, paretoThreshold(state.pareto, rippleOf(rs, cs, dNear)));
       // Dominated already by the capacitors' settling floor (before any costlier bound).
-      if (slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) * tb.factor - tb.slack > theta) return;
+      if (settlingBoundOf(rs, cs, tb, theta) > theta) return;
     }
     // Unequal drivers: droop depends on the capacitors and may peak inside the range. Its largest
     // value on a 9-point duty grid (a lower bound: values at some duties) rules a candidate out
@@ -568,9 +591,8 @@ export function collectCandidates(
   };
 
   const walk = (rs: number[], tb: TupleBounds): Column[] => {
-    const bound = (cs: number[]) => slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) * tb.factor - tb.slack;
     const pareto = state.pareto;
-    if (!pareto) return walkUnder(rs, tb, (cs) => bound(cs) <= state.theta);
+    if (!pareto) return walkUnder(rs, tb, (cs) => settlingBoundOf(rs, cs, tb, state.theta) <= state.theta);
     // Pareto mode: the union of each limit's region (its staircase, its own threshold), so a
     // loose limit's long columns stop at its own best, not at the tightest limit's. A limit whose
     // own tuple bound (its ripple limit's tauMin and log factor; the tuple order used the loosest
@@ -578,13 +600,17 @@ export function collectCandidates(
     const columns: Column[] = [];
     nearMemo.clear();
     toChecked.clear();
-    const tauAtMinC = slowestTimeConstant(rs, minC, tb.driver, loadR, loadC);
     pareto.limits.forEach((limit, i) => {
       const cap = () => Math.min(state.theta, pareto.best[i] * (1 + REL) + ABS_T);
       const own = tupleBounds(problem, rs, paretoLimits[i]);
-      if (Math.max(own.tauMin, tauAtMinC) * own.factor - own.slack > cap()) return;
+      if (tupleKey(rs, own) > cap()) return;
       rippleLimit = limit;
-      columns.push(...walkUnder(rs, tb, (cs) => slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) * own.factor - own.slack <= cap()));
+      columns.push(
+        ...walkUnder(rs, tb, (cs) => {
+          const ceiling = cap();
+          return settlingBoundOf(rs, cs, own, ceiling) <= ceiling;
+        }),
+      );
     });
     rippleLimit = limits.ripple;
     return columns;

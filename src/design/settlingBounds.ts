@@ -1,4 +1,5 @@
 import type { DesignProblem } from './designProblem.js';
+import { settlingFloorPlan, type SettlingFloorPlan } from './settlingFloor.js';
 import { threeStageSpread, threeStageTauMin } from './threeStageSpread.js';
 
 /**
@@ -14,6 +15,8 @@ export interface TupleBounds {
   slack: number;
   /** Lower bound on the slowest time constant of any feasible capacitor choice, s. */
   tauMin: number;
+  /** The resistor-only part of the proven settling floor (settlingFloor.ts), for the same limits. */
+  floor: SettlingFloorPlan;
 }
 
 /**
@@ -134,5 +137,5 @@ export function tupleBounds(problem: DesignProblem, r: ArrayLike<number>, limits
     if (n === 3 && lti) tauMin = Math.max(tauMin, threeStageTauMin(gamma, threeStageSpread(r, driver, load.resistance ?? null), omega));
   }
   if (!lti) tauMin *= 0.8;
-  return { driver, factor, slack: lti ? 0 : 2 * period, tauMin };
+  return { driver, factor, slack: lti ? 0 : 2 * period, tauMin, floor: settlingFloorPlan(problem, r, limits) };
 }

@@ -39,6 +39,12 @@ export function slowestTimeConstant(
     return lambdaMax / det;
   }
   if (n === 3) return slowestOfThree(g1, 1 / r[1], 1 / r[2], gL, c[0], c[1], c[2] + loadCapacitance);
+  return 1 / symmetricEigen(scaledConductance(r, c, g1, gL, loadCapacitance), n).values[0];
+}
+
+/** S = C^(-1/2) G C^(-1/2) of the ladder (row-major), whose eigenvalues are 1 / the time constants. */
+function scaledConductance(r: ArrayLike<number>, c: ArrayLike<number>, g1: number, gL: number, loadCapacitance: number): Float64Array {
+  const n = r.length;
   const g = new Float64Array(n);
   const cap = new Float64Array(n);
   for (let k = 0; k < n; k++) {
@@ -54,7 +60,72 @@ export function slowestTimeConstant(
       s[(k + 1) * n + k] = v;
     }
   }
-  return 1 / symmetricEigen(s, n).values[0];
+  return s;
+}
+
+/**
+ * The two slowest time constants (s) of the ladder of slowestTimeConstant, written into
+ * `out` as [tau_a, tau_b] with tau_a >= tau_b (tau_b = 0 for one stage); returns `out`. Both never
+ * fall when any C or any R grows (Courant-Fischer min-max for the pencil (G, C), Golub & Van Loan,
+ * Theorem 8.1.2; common practice).
+ *
+ * Method: as slowestTimeConstant; two stages in closed form (tau_b = 1 / lambda_max), three from
+ * the cubic (tau_b the larger root of the quadratic left after dividing out tau_a), Jacobi beyond.
+ *
+ * Syntax: twoSlowestTimeConstants(r, c, driver, loadResistance, loadCapacitance, out)
+ * Example: twoSlowestTimeConstants([1e3, 1e3], [1e-6, 1e-6], 0, null, 0, [0, 0])   // [2.618e-3, 3.82e-4]
+ */
+export function twoSlowestTimeConstants(
+  r: ArrayLike<number>,
+  c: ArrayLike<number>,
+  driver: number,
+  loadResistance: number | null,
+  loadCapacitance: number,
+  out: number[],
+): number[] {
+  const n = r.length;
+  const gL = loadResistance === null ? 0 : 1 / loadResistance;
+  const g1 = 1 / (r[0] + driver);
+  if (n === 1) {
+    out[0] = (c[0] + loadCapacitance) / (g1 + gL);
+    out[1] = 0;
+    return out;
+  }
+  if (n === 2) {
+    const g2 = 1 / r[1];
+    const c1 = c[0];
+    const c2 = c[1] + loadCapacitance;
+    const a = (g1 + g2) / c1;
+    const d = (g2 + gL) / c2;
+    const b2 = (g2 * g2) / (c1 * c2);
+    const det = (g1 * g2 + g1 * gL + g2 * gL) / (c1 * c2);
+    const half = 0.5 * (a - d);
+    const lambdaMax = 0.5 * (a + d) + Math.sqrt(half * half + b2);
+    out[0] = lambdaMax / det;
+    out[1] = 1 / lambdaMax;
+    return out;
+  }
+  if (n === 3) {
+    const g2 = 1 / r[1];
+    const g3 = 1 / r[2];
+    const c1 = c[0];
+    const c2 = c[1];
+    const c3 = c[2] + loadCapacitance;
+    const tauA = slowestOfThree(g1, g2, g3, gL, c1, c2, c3);
+    // The other two roots: tau^2 - (b1 - tau_a) tau + b3 / tau_a = 0 (sum and product of the roots).
+    const k = cubicOfThree(g1, g2, g3, gL, c1, c2, c3);
+    const b1 = k[0];
+    const b3 = k[2];
+    const sum = Math.max(0, b1 - tauA);
+    const disc = Math.max(0, sum * sum - (4 * b3) / tauA);
+    out[0] = tauA;
+    out[1] = Math.min(tauA, 0.5 * (sum + Math.sqrt(disc)));
+    return out;
+  }
+  const { values } = symmetricEigen(scaledConductance(r, c, g1, gL, loadCapacitance), n);
+  out[0] = 1 / values[0];
+  out[1] = 1 / values[1];
+  return out;
 }
 
 /**
@@ -70,15 +141,10 @@ export function slowestTimeConstant(
  * Acton, Numerical Methods That Work, chapter 7, from memory; common practice).
  */
 function slowestOfThree(g1: number, g2: number, g3: number, gL: number, c1: number, c2: number, c3: number): number {
-  const a1 = (g1 + g2) / c1;
-  const a2 = (g2 + g3) / c2;
-  const a3 = (g3 + gL) / c3;
-  const e1 = a1 + a2 + a3;
-  const e2 = (g1 * g2 + g1 * g3 + g2 * g3) / (c1 * c2) + ((g1 + g2) * (g3 + gL)) / (c1 * c3) + (g2 * g3 + g2 * gL + g3 * gL) / (c2 * c3);
-  const e3 = (g1 * g2 * g3 + gL * (g1 * g2 + g1 * g3 + g2 * g3)) / (c1 * c2 * c3);
-  const b1 = e2 / e3;
-  const b2 = e1 / e3;
-  const b3 = 1 / e3;
+  const k = cubicOfThree(g1, g2, g3, gL, c1, c2, c3);
+  const b1 = k[0];
+  const b2 = k[1];
+  const b3 = k[2];
   let t = b1;
   for (let i = 0; i < 200; i++) {
     const q = ((t - b1) * t + b2) * t - b3;
@@ -89,4 +155,21 @@ function slowestOfThree(g1: number, g2: number, g3: number, gL: number, c1: numb
     if (step <= 1e-15 * t) break;
   }
   return t;
+}
+
+/** Scratch for cubicOfThree (read at once by its callers). */
+const cubic = new Float64Array(3);
+
+/** [b1, b2, b3] of the time constants' cubic tau^3 - b1 tau^2 + b2 tau - b3 (slowestOfThree). */
+function cubicOfThree(g1: number, g2: number, g3: number, gL: number, c1: number, c2: number, c3: number): Float64Array {
+  const a1 = (g1 + g2) / c1;
+  const a2 = (g2 + g3) / c2;
+  const a3 = (g3 + gL) / c3;
+  const e1 = a1 + a2 + a3;
+  const e2 = (g1 * g2 + g1 * g3 + g2 * g3) / (c1 * c2) + ((g1 + g2) * (g3 + gL)) / (c1 * c3) + (g2 * g3 + g2 * gL + g3 * gL) / (c2 * c3);
+  const e3 = (g1 * g2 * g3 + gL * (g1 * g2 + g1 * g3 + g2 * g3)) / (c1 * c2 * c3);
+  cubic[0] = e2 / e3;
+  cubic[1] = e1 / e3;
+  cubic[2] = 1 / e3;
+  return cubic;
 }

@@ -42,3 +42,17 @@ export function oneMinusPhi1(x: number): number {
   if (x < 1e-2) return x * (1 / 2 - x * (1 / 6 - x * (1 / 24 - x * (1 / 120 - x / 720))));
   return (x + Math.expm1(-x)) / x;
 }
+
+/**
+ * phi_1(z) = (e^z - 1) / z for a real z, to full relative precision (phi_1(0) = 1).
+ *
+ * Method: for |z| < 1e-5 the Taylor series 1 + z/2 + z^2/6 (truncation below z^3/24, 4e-17
+ * relative); otherwise expm1(z) / z, which has no cancellation (expm1 is accurate near 0).
+ *
+ * Syntax: phi1(z)
+ * Example: phi1(-1)  // 0.6321205588285577 (= 1 - 1/e)
+ */
+export function phi1(z: number): number {
+  if (Math.abs(z) < 1e-5) return 1 + z * (1 / 2 + z / 6);
+  return Math.expm1(z) / z;
+}

@@ -44,6 +44,7 @@ out['hilbert6_x'] = list(mp.lu_solve(H, mp.matrix([1] * 6)))
 zs = [-50, -3, -1, -0.5, -1e-3, -1e-9, 1e-9, 1e-3, 0.5, 0.999, 1, 3, 20]
 out['phi2'] = [[z, (mp.exp(mp.mpf(z)) - 1 - mp.mpf(z)) / mp.mpf(z)**2] for z in zs]
 xs = [1e-12, 1e-6, 1e-3, 0.0099, 0.01, 0.5, 1, 30, 1e4]
+out['phi1'] = [[z, (mp.expm1(mp.mpf(z)) / mp.mpf(z)) if z != 0 else mp.mpf(1)] for z in [-50, -3, -1, -0.5, -1e-3, -1e-6, -1e-9, 0, 1e-9, 1e-6, 1e-3, 0.5, 1, 3, 20]]
 out['oneMinusPhi1'] = [[x, 1 - (1 - mp.exp(-mp.mpf(x))) / mp.mpf(x)] for x in xs]
 
 # Exponential sum with four terms: roots of 0.3 - 1.2 e^-t + 1.5 e^-2.5t - 0.55 e^-4t on (0, 6).

@@ -8,7 +8,7 @@ import { expm } from '../../src/numeric/expm.js';
 import { symmetricEigen } from '../../src/numeric/symmetricEigen.js';
 import { luFactor, luSolve, solveLinear, solveTwoByTwo } from '../../src/numeric/lu.js';
 import { brentMaximize, maximizeOnInterval } from '../../src/numeric/maximizeOnInterval.js';
-import { oneMinusPhi1, phi2 } from '../../src/numeric/phi.js';
+import { oneMinusPhi1, phi1, phi2 } from '../../src/numeric/phi.js';
 
 // Reference values: mpmath 1.3.0 at 50 digits, printed by kernels.references.py beside this file
 // (findroot, lu_solve, exp, hilbert), rounded to the nearest double.
@@ -171,6 +171,29 @@ describe('phi functions (Hochbruck & Ostermann 2010, section 2)', () => {
   it.each(oneMinusRefs)('oneMinusPhi1(%d) = 1 - (1 - e^-x)/x (mpmath)', (x, want) => {
     // the series branch is documented to 4e-14 relative at x = 0.01; the closed form to a few ulps above
     expect(relErr(oneMinusPhi1(x), want)).toBeLessThan(x < 0.01 ? 5e-14 : 1e-14);
+  });
+});
+
+describe('phi1 against mpmath (expm1(z) / z at 40 digits, kernels.references.py)', () => {
+  const phi1Refs: [number, number][] = [
+    [-50, 0.02],
+    [-3, 0.3167376438773787],
+    [-1, 0.6321205588285577],
+    [-0.5, 0.7869386805747332],
+    [-0.001, 0.9995001666250083],
+    [-1e-6, 0.9999995000001667],
+    [-1e-9, 0.9999999995],
+    [0, 1],
+    [1e-9, 1.0000000005],
+    [1e-6, 1.0000005000001666],
+    [0.001, 1.0005001667083417],
+    [0.5, 1.2974425414002564],
+    [1, 1.7182818284590453],
+    [3, 6.361845641062556],
+    [20, 24258259.720489513],
+  ];
+  it.each(phi1Refs)('phi1(%d) to a few ulps', (z, want) => {
+    expect(relErr(phi1(z), want)).toBeLessThan(1e-15);
   });
 });
 

@@ -1,0 +1,211 @@
+import { phi1 } from '../numeric/phi.js';
+import type { DesignProblem } from './designProblem.js';
+
+/** One settling step of a floor plan (settlingFloorPlan): what the floor needs of it, V. */
+export interface FloorStep {
+  /** S': the step's size at the output of the comparison ladder (see settlingFloorPlan), V. */
+  scaled: number;
+  /** Lower bound on the output error at the step from the two steady states (equal drivers), V; -Infinity when none. */
+  head: number;
+  /** band + the largest steady excursion the target may keep and still settle, V. */
+  threshold: number;
+  /** ln(scaled / threshold) and ln(head / threshold) (-Infinity when head <= threshold), for the quick bounds. */
+  logScaled: number;
+  logHead: number;
+}
+
+/** The resistor-only part of the settling floor of one resistor choice (settlingFloorPlan). */
+export interface SettlingFloorPlan {
+  /** PWM period, s. */
+  period: number;
+  steps: readonly FloorStep[];
+}
+
+/**
+ * The resistor-only part of a lower bound on the settling time of every ladder with series
+ * resistors `r` (pin side first) in the problem's circuit, any capacitors, for equal or unequal
+ * driver resistances; settlingFloor finishes it from the capacitors' two slowest time constants.
+ * `limits` (default problem.searchLimits) bound the steady excursions a design may keep (its
+ * ripple limit).
+ *
+ * Method (derived here; the comparison of cooperative systems is Kamke's theorem, W. A. Coppel,
+ * "Stability and Asymptotic Behavior of Differential Equations", 1965, from memory). Let the duty
+ * step from `from` to `to` (rising; falling by symmetry) at a period start, from the periodic
+ * steady state at `from`. The error e(t) = x_to(t) - x(t) of the node voltages against the
+ * steady orbit at `to` obeys e' = A(t) e after the step (both see the same phases), where A(t) is
+ * the ladder's matrix -C^-1 G with the pin conductance of the phase, g_H = 1 / (R_dH + r1) or
+ * g_L = 1 / (R_dL + r1). Every A(t) is Metzler and at least (entrywise) A_F, the matrix of the
+ * fast ladder whose pin conductance is g_F = max(g_H, g_L). Before the step, the difference of
+ * the two steady orbits obeys the same equation plus a node-1 forcing during the parts of each
+ * period where `to` is high and `from` is low: (g_H (high - v1) + g_L (v1 - low)) / c1, at least
+ * F / c1 with F its least value over the range every node keeps (between the levels and ground,
+ * a passive network). So, by comparison, e(t) is at least the error of the fast ladder, an
+ * ordinary time-invariant RC ladder, driven before the step by a pulse train of height F / g_F
+ * and mean |to - from| F / g_F, whose output mean is S' = |to - from| (F / g_F) G_F (G_F the fast
+ * ladder's DC gain). For equal drivers this is the plain step S = G |to - from| (high - low).
+ *
+ * That ladder's transfer function is all-pole with real poles, a cascade of first-order sections.
+ * With tau_a >= tau_b its two slowest time constants, let y be the output of all sections but
+ * the slowest, z the output. A first-order section of time constant tau fed a non-negative
+ * periodic input of mean W never falls below W q(T / tau), q(x) = x / (e^x - 1) (the kernel is at
+ * least e^(-(k + 1) T / tau) / tau over the k-th period back): so z(0) >= S' q_a and y(0) >=
+ * S' q_b. After the step the input difference is 0, so y(t) >= y(0) e^(-t / tau_b) and
+ *   z(t) >= z(0) e^(-t / tau_a) + y(0) tau_b / (tau_a - tau_b) (e^(-t / tau_a) - e^(-t / tau_b))
+ * (variation of constants through the slowest section); for equal drivers z(0) is also at least
+ * the head S - pTo - pFrom from the steady excursions. Settled at t needs z(t) <= band + pTo
+ * (model.md: |v - average_to| <= band, and the steady orbit lies within its excursion pTo of its
+ * average; a target whose excursion passes the band never settles), so the settling time is at
+ * least the last t at which that lower bound of z(t) still exceeds band + pTo.
+ *
+ * Syntax: settlingFloorPlan(problem, r[, limits])
+ * Example: settlingFloor(settlingFloorPlan(problem, [470, 16e3]), 2.9e-4, 2.0e-4)   // s
+ */
+export function settlingFloorPlan(problem: DesignProblem, r: ArrayLike<number>, limits: DesignProblem['limits'] = problem.searchLimits): SettlingFloorPlan {
+  const { circuit: k, steps, band, dutyMin, dutyMax, defaultStep, period } = problem;
+  const gH = 1 / (k.driverHigh + r[0]);
+  const gL = 1 / (k.driverLow + r[0]);
+  const gF = Math.max(gH, gL);
+  // Node voltages stay between the levels and ground (the load's return).
+  const lo = Math.min(k.low, k.high, 0);
+  const hi = Math.max(k.low, k.high, 0);
+  const forcing = (v: number) => gH * (k.high - v) + gL * (v - k.low);
+  const fLo = forcing(lo);
+  const fHi = forcing(hi);
+  const f = fLo * fHi > 0 ? Math.min(Math.abs(fLo), Math.abs(fHi)) : 0;
+  let rest = 0;
+  for (let i = 1; i < r.length; i++) rest += r[i];
+  const rL = k.loadResistance;
+  const gainF = rL === null ? 1 : rL / (rL + 1 / gF + rest);
+  const lti = k.driverHigh === k.driverLow;
+  const span = Math.abs(k.high - k.low);
+  const inRange = (d: number) => d >= dutyMin && d <= dutyMax;
+  const rippleCap = (d: number) => (limits.ripple !== undefined && inRange(d) ? limits.ripple : Infinity);
+  const out: FloorStep[] = [];
+  for (const [from, to] of steps) {
+    const dutyStep = Math.abs(to - from);
+    const pTo = Math.min(band, rippleCap(to));
+    const pFrom = Math.min(defaultStep ? band : Infinity, rippleCap(from));
+    const scaled = (dutyStep * f * gainF) / gF;
+    const head = lti ? gainF * dutyStep * span - pTo - pFrom : -Infinity;
+    const threshold = band + pTo;
+    // Steps with the same figures give the same floor (the default step: rising and falling).
+    if (out.some((s) => s.scaled === scaled && s.head === head && s.threshold === threshold)) continue;
+    out.push(floorStep(scaled, head, threshold));
+  }
+  return { period, steps: out };
+}
+
+/**
+ * One step of a floor plan from its three figures (V), with the logarithms the quick bounds use.
+ *
+ * Syntax: floorStep(scaled, head, threshold)
+ * Example: floorStep(2.5, -Infinity, 3e-3).logScaled   // ln(2.5 / 3e-3)
+ */
+export function floorStep(scaled: number, head: number, threshold: number): FloorStep {
+  return { scaled, head, threshold, logScaled: Math.log(scaled / threshold), logHead: head > threshold ? Math.log(head / threshold) : -Infinity };
+}
+
+/**
+ * A lower bound (s) on the settling time of the ladder of `plan` (settlingFloorPlan) whose fast
+ * ladder (the smaller driver resistance) has slowest time constant tauA and next tauB (0 for one
+ * stage); it never falls when tauA or tauB grows (every term of the bound of z(t) grows), and both
+ * grow with every capacitor (Courant-Fischer for C^-1 G), so a search may cut a column at the
+ * first capacitor it rules out. With `ceiling`, it may stop refining once it knows which side of
+ * `ceiling` the exact floor lies on (the value is a lower bound either way).
+ *
+ * Method: the bound of z(t) (settlingFloorPlan) is e^(-u) (z0 + y0 w(t)), u = t / tauA,
+ * w(t) = u phi1(-t (1/tauB - 1/tauA)) (numeric/phi.ts) = (1 - e^(-t (1/tauB - 1/tauA))) tauB /
+ * (tauA - tauB), falling in t; h(t) = ln(that / threshold) is concave (ln of a concave increasing
+ * function, less a linear one). The root of h lies between t0 = tauA ln(z0 / threshold) (where the
+ * single-exponential part alone meets the threshold: h(t0) >= 0) and a Newton step from any point
+ * left of it (concavity: the tangent lies above h); the chord between such points lies below h, so
+ * its root t_s has h(t_s) >= 0 and is a certified lower bound. A few rounds of Newton then chord
+ * give a lower bound within 1e-9 of the root.
+ *
+ * Syntax: settlingFloor(plan, tauA, tauB[, ceiling])
+ * Example: settlingFloor(settlingFloorPlan(problem, [470, 16e3]), 2.9e-4, 2.0e-4)   // s
+ */
+export function settlingFloor(plan: SettlingFloorPlan, tauA: number, tauB: number, ceiling = Infinity): number {
+  const { period, steps } = plan;
+  if (ceiling < Infinity) {
+    // Quick bounds without exponentials: ln q(x) >= -x/2 - x^2/24 (x / (2 sinh(x/2)) >= e^(-x^2/24)),
+    // so the single-exponential root t0 >= tauA ln(S' / threshold) - T/2 - T^2 / (24 tauA); and the
+    // floor is at most tauA ln((S' + S' tauB / (tauA - tauB)) / threshold) <= tauA ln(S' / threshold)
+    // + tauA tauB / (tauA - tauB) (ln(1 + u) <= u; z0 <= S', head <= S').
+    let low = 0;
+    let settled = true;
+    for (let j = 0; j < steps.length; j++) {
+      const s = steps[j];
+      const lb = Math.max(tauA * s.logHead, tauA * s.logScaled - 0.5 * period - (period * period) / (24 * tauA));
+      if (lb > ceiling) return lb;
+      if (lb > low) low = lb;
+      if (settled && !(tauA * s.logScaled + (tauB > 0 ? (tauA * tauB) / (tauA - tauB) : 0) <= ceiling)) settled = false;
+    }
+    if (settled) return low;
+  }
+  const qa = q(period / tauA);
+  const qb = tauB > 0 ? q(period / tauB) : 0;
+  let best = 0;
+  for (let j = 0; j < steps.length; j++) {
+    const s = steps[j];
+    const z0 = Math.max(s.head, s.scaled * qa);
+    if (!(z0 > s.threshold)) continue;
+    const t = crossing(z0, s.scaled * qb, s.threshold, tauA, tauB, ceiling);
+    if (t > best) {
+      best = t;
+      if (best > ceiling) return best;
+    }
+  }
+  return best;
+}
+
+/** q(x) = x / (e^x - 1), the least a first-order section's periodic output keeps of its input mean (T / tau = x). */
+function q(x: number): number {
+  return 1 / phi1(x);
+}
+
+/**
+ * A certified lower bound on the last t with e^(-t / tauA) (z0 + y0 w(t)) > threshold (see
+ * settlingFloor), z0 > threshold, 0 <= y0 <= z0.
+ */
+function crossing(z0: number, y0: number, threshold: number, tauA: number, tauB: number, ceiling: number): number {
+  const t0 = tauA * Math.log(z0 / threshold);
+  if (!(y0 > 0) || !(tauB > 0) || t0 > ceiling) return t0;
+  const rate = Math.max(0, 1 / tauB - 1 / tauA);
+  const level = Math.log(threshold);
+  // w(t) = (t / tauA) phi1(-rate t), w'(t) = e^(-rate t) / tauA.
+  const h = (t: number) => -t / tauA + Math.log(z0 + (y0 * t * phi1(-rate * t)) / tauA) - level;
+  const slope = (t: number) => -1 / tauA + (y0 * Math.exp(-rate * t)) / tauA / (z0 + (y0 * t * phi1(-rate * t)) / tauA);
+  // Above the root: the e^(-t / tauA) part with w at its supremum tauB / (tauA - tauB).
+  if (rate > 0) {
+    const top = tauA * Math.log((z0 + y0 / (tauA * rate)) / threshold);
+    if (top <= ceiling && ceiling < Infinity) return t0;
+  }
+  let lo = t0;
+  let hLo = h(lo);
+  if (!(hLo >= 0)) return t0;
+  for (let round = 0; round < 6; round++) {
+    const d = slope(lo);
+    if (!(d < 0)) break;
+    const hi = lo - hLo / d;
+    const hHi = h(hi);
+    if (hHi >= 0) {
+      // rounding left the Newton point at or before the root: it is a lower bound itself
+      lo = hi;
+      hLo = hHi;
+      continue;
+    }
+    const ts = lo + (hLo * (hi - lo)) / (hLo - hHi);
+    const hTs = h(ts);
+    if (hTs >= 0 && ts > lo) {
+      lo = ts;
+      hLo = hTs;
+    } else if (hTs > -1e-12 && ts > lo) {
+      // At the root to rounding (h is a difference of logs near 0): a hair below it, and done.
+      // (h falls at least as steeply as at lo, concave: the backoff covers the rounding)
+      return Math.max(lo, ts + (2 * hTs) / -d - 1e-12 * ts);
+    }
+    if (lo > ceiling || (hi <= ceiling && ceiling < Infinity) || hi - lo <= 1e-9 * hi) break;
+  }
+  return lo;
+}

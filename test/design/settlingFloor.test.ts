@@ -1,0 +1,167 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { designProblem } from '../../src/design/designProblem.js';
+import { floorStep, settlingFloor, settlingFloorPlan, type SettlingFloorPlan } from '../../src/design/settlingFloor.js';
+import { twoSlowestTimeConstants } from '../../src/design/slowestTimeConstant.js';
+import { settlingTime, timeConstants, worstRipple } from '../../src/engine/index.js';
+import type { Project } from '../../src/project/types.js';
+
+interface Scenario {
+  f: number;
+  alignment: 'edge' | 'center';
+  low: number;
+  high: number;
+  driverHigh: number;
+  driverLow: number;
+  load: number | null;
+  loadC: number;
+  rippleLsb: number;
+  bandLsb: number;
+  step: [number, number] | null;
+}
+
+/** An invented design problem (10 bits). */
+function problemOf(x: Scenario) {
+  const lsb = Math.abs(x.high - x.low) / 1024;
+  const project: Project = {
+    file: 'invented.yaml',
+    pwm: { frequency: x.f, prescaler: 1, alignment: x.alignment, high: x.high, low: x.low, driver: { high: x.driverHigh, low: x.driverLow }, duty: { min: 0.05, max: 0.95 } },
+    load: { ...(x.load !== null && { resistance: x.load }), capacitance: x.loadC },
+    filter: { stages: [] },
+    spec: { ripple: x.rippleLsb * lsb, settling: { band: x.bandLsb * lsb, ...(x.step && { from: x.step[0], to: x.step[1] }) } },
+    search: { stages: [1, 2, 3], series: { resistor: 'E12', capacitor: 'E12' }, margin: 0, buffered: [false], resistance: { min: 100, max: 1e6 }, capacitance: { min: 1e-10, max: 1e-4 } },
+  };
+  return designProblem(project);
+}
+
+/**
+ * Last t with S (tau_a e^(-t/tau_a) - tau_b e^(-t/tau_b)) / (tau_a - tau_b) > threshold, by
+ * bisection: the step response error of two real poles (overdamped second-order system; K. Ogata,
+ * "Modern Control Engineering", 5th ed., section 5-3, from memory).
+ */
+function twoPoleCrossing(s: number, threshold: number, tauA: number, tauB: number): number {
+  const error = (t: number) => (s * (tauA * Math.exp(-t / tauA) - tauB * Math.exp(-t / tauB))) / (tauA - tauB);
+  let lo = 0;
+  let hi = 100 * tauA;
+  for (let i = 0; i < 200; i++) {
+    const mid = 0.5 * (lo + hi);
+    if (error(mid) > threshold) lo = mid;
+    else hi = mid;
+  }
+  return lo;
+}
+
+describe('settlingFloor', () => {
+  it('is the two-pole step response crossing when the period is negligible (textbook overdamped response)', () => {
+    const cases: Array<[number, number, number, number]> = [
+      [1, 1e-3, 1e-3, 0.5e-3],
+      [2.64, 3.2e-3, 2.9e-4, 2.0e-4],
+      [1, 1e-4, 1e-3, 1e-6],
+      [1, 0.3, 1e-3, 0.9e-3],
+      [1, 1e-6, 5e-3, 4.999e-3],
+    ];
+    for (const [s, threshold, tauA, tauB] of cases) {
+      const plan: SettlingFloorPlan = { period: 1e-15, steps: [floorStep(s, -Infinity, threshold)] };
+      const want = twoPoleCrossing(s, threshold, tauA, tauB);
+      const got = settlingFloor(plan, tauA, tauB);
+      expect(got).toBeLessThanOrEqual(want * (1 + 1e-12));
+      expect(got).toBeGreaterThan(want * (1 - 1e-8));
+    }
+  });
+
+  it('with one time constant is tau ln(z0 / threshold) (first-order step response)', () => {
+    const plan: SettlingFloorPlan = { period: 1e-15, steps: [floorStep(2, -Infinity, 1e-3)] };
+    expect(settlingFloor(plan, 1e-3, 0)).toBeCloseTo(1e-3 * Math.log(2000), 12);
+  });
+
+  it('never falls when either time constant grows, and respects its ceiling (fast-check)', () => {
+    const arb = fc.record({
+      logTa: fc.double({ min: -6, max: -1, noNaN: true }),
+      ratio: fc.double({ min: 0, max: 1, noNaN: true }),
+      growA: fc.double({ min: 1, max: 3, noNaN: true }),
+      growB: fc.double({ min: 1, max: 3, noNaN: true }),
+      logT: fc.double({ min: -7, max: -3, noNaN: true }),
+      logThreshold: fc.double({ min: -5, max: -1, noNaN: true }),
+      head: fc.double({ min: -1, max: 1, noNaN: true }),
+    });
+    fc.assert(
+      fc.property(arb, (x) => {
+        const tauA = 10 ** x.logTa;
+        const tauB = tauA * x.ratio;
+        const plan: SettlingFloorPlan = { period: 10 ** x.logT, steps: [floorStep(1, x.head, 10 ** x.logThreshold)] };
+        const base = settlingFloor(plan, tauA, tauB);
+        const tauA2 = tauA * x.growA;
+        const tauB2 = Math.min(tauA2, tauB * x.growB);
+        const grown = settlingFloor(plan, tauA2, tauB2);
+        const ceiling = base * 0.9;
+        // with a ceiling below the floor the answer still lies above it
+        return grown >= base * (1 - 1e-9) && (base === 0 || settlingFloor(plan, tauA, tauB, ceiling) > ceiling);
+      }),
+      { numRuns: 300 },
+    );
+  });
+
+  it('never exceeds the engine settling time of a design that meets the ripple limit, equal or unequal drivers (fast-check)', () => {
+    const arb = fc.record({
+      n: fc.integer({ min: 1, max: 4 }),
+      logR: fc.array(fc.double({ min: 2, max: 5, noNaN: true }), { minLength: 4, maxLength: 4 }),
+      logC: fc.array(fc.double({ min: -9, max: -5.5, noNaN: true }), { minLength: 4, maxLength: 4 }),
+      driverLow: fc.double({ min: 0, max: 80, noNaN: true }),
+      extra: fc.double({ min: -60, max: 80, noNaN: true }),
+      load: fc.option(fc.double({ min: 3, max: 7, noNaN: true })),
+      loadC: fc.constantFrom(0, 1e-10, 1e-9),
+      logF: fc.double({ min: 3, max: 5, noNaN: true }),
+      bandLsb: fc.double({ min: 0.25, max: 4, noNaN: true }),
+      rippleLsb: fc.double({ min: 0.1, max: 8, noNaN: true }),
+      alignment: fc.constantFrom<'edge' | 'center'>('edge', 'center'),
+      levels: fc.constantFrom<[number, number]>([0, 3.3], [0, 5], [0.2, 3.3], [-1, 2]),
+      step: fc.option(fc.tuple(fc.double({ min: 0.05, max: 0.95, noNaN: true }), fc.double({ min: 0.05, max: 0.95, noNaN: true }))),
+    });
+    let checked = 0;
+    let tight = 0;
+    fc.assert(
+      fc.property(arb, (x) => {
+        if (x.step && Math.abs(x.step[0] - x.step[1]) < 0.05) return true;
+        const driverHigh = Math.max(0, x.driverLow + x.extra);
+        const p = problemOf({
+          f: 10 ** x.logF, alignment: x.alignment, low: x.levels[0], high: x.levels[1], driverHigh, driverLow: x.driverLow,
+          load: x.load === null ? null : 10 ** x.load, loadC: x.loadC, rippleLsb: x.rippleLsb, bandLsb: x.bandLsb, step: x.step,
+        });
+        const r = x.logR.slice(0, x.n).map((v) => 10 ** v);
+        const c = x.logC.slice(0, x.n).map((v) => 10 ** v);
+        const l = p.ladderOf(r, c);
+        const ripple = worstRipple(l, p.dutyMin, p.dutyMax).ripple;
+        if (ripple > p.searchLimits.ripple!) return true; // the floor speaks of designs that meet the ripple limit
+        let settle = 0;
+        for (const [from, to] of p.steps) settle = Math.max(settle, settlingTime(l, from, to, p.band).time ?? Infinity);
+        if (!Number.isFinite(settle)) return true;
+        const taus = twoSlowestTimeConstants(r, c, Math.min(driverHigh, x.driverLow), p.circuit.loadResistance, p.circuit.loadCapacitance, [0, 0]);
+        const floor = settlingFloor(settlingFloorPlan(p, r), taus[0], taus[1]);
+        checked++;
+        if (floor > 0.5 * settle) tight++;
+        return floor <= settle * (1 + 1e-9);
+      }),
+      { numRuns: 400 },
+    );
+    expect(checked).toBeGreaterThan(100);
+    // not a vacuous bound: on most such designs it is more than half the settling time
+    expect(tight).toBeGreaterThan(checked / 2);
+  });
+});
+
+describe('twoSlowestTimeConstants', () => {
+  it('equals the two slowest time constants of the engine (fast-check)', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 5 }), fc.array(fc.double({ min: 2, max: 6, noNaN: true }), { minLength: 10, maxLength: 10 }), (n, e) => {
+        const r = e.slice(0, n).map((v) => 10 ** v);
+        const c = e.slice(5, 5 + n).map((v) => 10 ** (v - 12));
+        const l = { period: 1e-4, high: 3.3, low: 0, driverHigh: 30, driverLow: 30, stages: r.map((rr, k) => ({ r: rr, c: c[k], buffered: false })), loadResistance: 1e5, loadCapacitance: 1e-11 };
+        const want = timeConstants(l);
+        const got = twoSlowestTimeConstants(r, c, 30, 1e5, 1e-11, [0, 0]);
+        const second = n === 1 ? 0 : want[1];
+        return Math.abs(got[0] / want[0] - 1) < 1e-9 && (n === 1 ? got[1] === 0 : Math.abs(got[1] / second - 1) < 1e-7);
+      }),
+      { numRuns: 300 },
+    );
+  });
+});
