@@ -226,12 +226,13 @@ export function collectCandidates(
   /**
    * Lower bound on the settling time of every capacitor choice of a resistor tuple that meets
    * tb's ripple limit: the bound above with the slowest time constant at least tb.tauMin (the
-   * ripple's) and both at least their values at the smallest capacitors.
+   * ripple's) and both at least their values at the smallest capacitors; with a ceiling, only sure
+   * to lie on the right side of it (settlingFloor).
    */
-  const tupleKey = (rs: number[], tb: TupleBounds): number => {
+  const tupleKey = (rs: number[], tb: TupleBounds, ceiling = Infinity): number => {
     if (budgeted) return Math.max(tb.tauMin, slowestTimeConstant(rs, minC, tb.driver, loadR, loadC)) * tb.factor - tb.slack;
     twoSlowestTimeConstants(rs, minC, tb.driver, loadR, loadC, taus);
-    return settlingFloor(tb.floor, Math.max(tb.tauMin, taus[0]), taus[1]);
+    return settlingFloor(tb.floor, Math.max(tb.tauMin, taus[0]), taus[1], ceiling);
   };
 
   // Resistor tuples that pass the pin current and (time-invariant) droop limits, with bounds.
@@ -258,15 +259,19 @@ export function collectCandidates(
     }
     if (gainFloorApplies && exceeds(gainFloor(circuit, rs, problem.dutyMin, problem.dutyMax), limits.gain)) continue;
     // Unequal drivers: the droop floor at the smallest capacitors holds for every capacitor choice.
+    let droopPlan: DroopFloorPlan | null | undefined;
     if (droopApplies) {
-      const plan = droopFloorPlan(problem, rs);
-      if (plan !== null && exceeds(droopFloor(plan, minC), limits.droop)) continue;
+      droopPlan = droopFloorPlan(problem, rs);
+      if (droopPlan !== null && exceeds(droopFloor(droopPlan, minC), limits.droop)) continue;
     }
     const tb = tupleBounds(problem, rs);
     const key = tupleKey(rs, tb);
     // Beyond the threshold already: the walk below would stop before it (theta only falls in a round).
     if (key > state.theta) continue;
-    tuples.push(rs.slice());
+    const kept = rs.slice();
+    // (the walk's droop check reads the same plan: made once per tuple)
+    if (droopPlan !== undefined) droopPlans.set(kept, droopPlan);
+    tuples.push(kept);
     bounds.push(tb);
     keys.push(key);
   }
@@ -603,7 +608,8 @@ export function collectCandidates(
     pareto.limits.forEach((limit, i) => {
       const cap = () => Math.min(state.theta, pareto.best[i] * (1 + REL) + ABS_T);
       const own = tupleBounds(problem, rs, paretoLimits[i]);
-      if (tupleKey(rs, own) > cap()) return;
+      const limitCap = cap();
+      if (tupleKey(rs, own, limitCap) > limitCap) return;
       rippleLimit = limit;
       columns.push(
         ...walkUnder(rs, tb, (cs) => {
@@ -664,12 +670,14 @@ export function collectCandidates(
    * (-1: none), and the largest index of capacitor p + 1 within theta (both bounds grow with every
    * capacitor). Every point the staircase may evaluate lies in it.
    */
+  const boxAt: number[] = [];
   const boxOf = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean): [number, number] => {
+    // (one scratch point: the threshold test and the DC floors keep nothing of it)
     const at = (a: number, b: number) => {
-      const v = cs.slice();
-      v[p] = C[a];
-      v[p + 1] = C[b];
-      return v;
+      copyInto(boxAt, cs);
+      boxAt[p] = C[a];
+      boxAt[p + 1] = C[b];
+      return boxAt;
     };
     const top = Math.min(firstTrue(nC, (i) => !within(at(i, 0))), budgeted ? nC : firstTrue(nC, (i) => dcOver(rs, at(i, 0)))) - 1;
     const bMax = firstTrue(nC, (b) => !within(at(0, b))) - 1;
@@ -690,14 +698,16 @@ export function collectCandidates(
    * failing at (C_j; top, bMax) rules out every slice from this one to j; the largest such j is found
    * by bisection (that point's ripple falls as C_j grows), starting with the last slice of the loop.
    */
+  const sliceAt: number[] = [];
   const deadThrough = (rs: number[], cs: number[], q: number, within: (cs: number[]) => boolean): number => {
     const i = C.indexOf(cs[q]);
     const [top, bMax] = boxOf(rs, cs, q + 1, within);
     if (top < 0) return i - 1;
+    // (one scratch point: the threshold, ripple and DC tests keep nothing of it)
     const slice = (j: number) => {
-      const v = cs.slice();
-      v[q] = C[j];
-      return v;
+      copyInto(sliceAt, cs);
+      sliceAt[q] = C[j];
+      return sliceAt;
     };
     const corner = (j: number) => {
       const v = slice(j);

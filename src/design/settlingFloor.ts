@@ -68,9 +68,8 @@ export function settlingFloorPlan(problem: DesignProblem, r: ArrayLike<number>, 
   // Node voltages stay between the levels and ground (the load's return).
   const lo = Math.min(k.low, k.high, 0);
   const hi = Math.max(k.low, k.high, 0);
-  const forcing = (v: number) => gH * (k.high - v) + gL * (v - k.low);
-  const fLo = forcing(lo);
-  const fHi = forcing(hi);
+  const fLo = gH * (k.high - lo) + gL * (lo - k.low);
+  const fHi = gH * (k.high - hi) + gL * (hi - k.low);
   const f = fLo * fHi > 0 ? Math.min(Math.abs(fLo), Math.abs(fHi)) : 0;
   let rest = 0;
   for (let i = 1; i < r.length; i++) rest += r[i];
@@ -78,19 +77,22 @@ export function settlingFloorPlan(problem: DesignProblem, r: ArrayLike<number>, 
   const gainF = rL === null ? 1 : rL / (rL + 1 / gF + rest);
   const lti = k.driverHigh === k.driverLow;
   const span = Math.abs(k.high - k.low);
-  const inRange = (d: number) => d >= dutyMin && d <= dutyMax;
-  const rippleCap = (d: number) => (limits.ripple !== undefined && inRange(d) ? limits.ripple : Infinity);
+  const ripple = limits.ripple ?? Infinity;
   const out: FloorStep[] = [];
-  for (const [from, to] of steps) {
+  // (plain loops, no closures: this runs for every resistor tuple of a search)
+  for (let j = 0; j < steps.length; j++) {
+    const from = steps[j][0];
+    const to = steps[j][1];
     const dutyStep = Math.abs(to - from);
-    const pTo = Math.min(band, rippleCap(to));
-    const pFrom = Math.min(defaultStep ? band : Infinity, rippleCap(from));
+    const pTo = Math.min(band, to >= dutyMin && to <= dutyMax ? ripple : Infinity);
+    const pFrom = Math.min(defaultStep ? band : Infinity, from >= dutyMin && from <= dutyMax ? ripple : Infinity);
     const scaled = (dutyStep * f * gainF) / gF;
     const head = lti ? gainF * dutyStep * span - pTo - pFrom : -Infinity;
     const threshold = band + pTo;
     // Steps with the same figures give the same floor (the default step: rising and falling).
-    if (out.some((s) => s.scaled === scaled && s.head === head && s.threshold === threshold)) continue;
-    out.push(floorStep(scaled, head, threshold));
+    let same = false;
+    for (let i = 0; i < out.length && !same; i++) same = out[i].scaled === scaled && out[i].head === head && out[i].threshold === threshold;
+    if (!same) out.push(floorStep(scaled, head, threshold));
   }
   return { period, steps: out };
 }
@@ -173,33 +175,37 @@ function crossing(z0: number, y0: number, threshold: number, tauA: number, tauB:
   if (!(y0 > 0) || !(tauB > 0) || t0 > ceiling) return t0;
   const rate = Math.max(0, 1 / tauB - 1 / tauA);
   const level = Math.log(threshold);
-  // w(t) = (t / tauA) phi1(-rate t), w'(t) = e^(-rate t) / tauA.
-  const h = (t: number) => -t / tauA + Math.log(z0 + (y0 * t * phi1(-rate * t)) / tauA) - level;
-  const slope = (t: number) => -1 / tauA + (y0 * Math.exp(-rate * t)) / tauA / (z0 + (y0 * t * phi1(-rate * t)) / tauA);
+  // h(t) = -t / tauA + ln(z0 + y0 w(t)) - ln(threshold), w(t) = (t / tauA) phi1(-rate t),
+  // w'(t) = e^(-rate t) / tauA (written out below: no closures in this hot path).
   // Above the root: the e^(-t / tauA) part with w at its supremum tauB / (tauA - tauB).
   if (rate > 0) {
     const top = tauA * Math.log((z0 + y0 / (tauA * rate)) / threshold);
     if (top <= ceiling && ceiling < Infinity) return t0;
   }
   let lo = t0;
-  let hLo = h(lo);
+  let mix = z0 + (y0 * lo * phi1(-rate * lo)) / tauA;
+  let hLo = -lo / tauA + Math.log(mix) - level;
   if (!(hLo >= 0)) return t0;
   for (let round = 0; round < 6; round++) {
-    const d = slope(lo);
+    const d = -1 / tauA + (y0 * Math.exp(-rate * lo)) / tauA / mix;
     if (!(d < 0)) break;
     const hi = lo - hLo / d;
-    const hHi = h(hi);
+    const mixHi = z0 + (y0 * hi * phi1(-rate * hi)) / tauA;
+    const hHi = -hi / tauA + Math.log(mixHi) - level;
     if (hHi >= 0) {
       // rounding left the Newton point at or before the root: it is a lower bound itself
       lo = hi;
       hLo = hHi;
+      mix = mixHi;
       continue;
     }
     const ts = lo + (hLo * (hi - lo)) / (hLo - hHi);
-    const hTs = h(ts);
+    const mixTs = z0 + (y0 * ts * phi1(-rate * ts)) / tauA;
+    const hTs = -ts / tauA + Math.log(mixTs) - level;
     if (hTs >= 0 && ts > lo) {
       lo = ts;
       hLo = hTs;
+      mix = mixTs;
     } else if (hTs > -1e-12 && ts > lo) {
       // At the root to rounding (h is a difference of logs near 0): a hair below it, and done.
       // (h falls at least as steeply as at lo, concave: the backoff covers the rounding)
