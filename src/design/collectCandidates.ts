@@ -671,7 +671,26 @@ export function collectCandidates(
    * capacitor). Every point the staircase may evaluate lies in it.
    */
   const boxAt: number[] = [];
+  // The last box: a slice's deadThrough and its staircase (walkLastTwo) ask for the same one, with
+  // no candidate kept in between. Thresholds only move when a candidate is kept (state.entries
+  // grows), so the box stands while rs, the test, p, cs[0..p-1] and that count are the same.
+  const lastBox = { rs: null as number[] | null, within: null as ((cs: number[]) => boolean) | null, p: -1, kept: -1, before: [] as number[], box: [0, 0] as [number, number] };
   const boxOf = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean): [number, number] => {
+    if (lastBox.rs === rs && lastBox.within === within && lastBox.p === p && lastBox.kept === state.entries.length) {
+      let same = true;
+      for (let k = 0; k < p && same; k++) same = lastBox.before[k] === cs[k];
+      if (same) return lastBox.box;
+    }
+    const box = boxOfNew(rs, cs, p, within);
+    lastBox.rs = rs;
+    lastBox.within = within;
+    lastBox.p = p;
+    lastBox.kept = state.entries.length;
+    lastBox.before = cs.slice(0, p);
+    lastBox.box = box;
+    return box;
+  };
+  const boxOfNew = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean): [number, number] => {
     // (one scratch point: the threshold test and the DC floors keep nothing of it)
     const at = (a: number, b: number) => {
       copyInto(boxAt, cs);
