@@ -281,11 +281,21 @@ export function collectCandidates(
   const paretoLimits = state.pareto ? state.pareto.limits.map((ripple) => ({ ...limits, ripple })) : [];
   // Pareto mode: points already evaluated, by a number made of their value indices (no strings).
   const paretoSeen = new Set<number>();
-  const rIndex = new Map(R.map((v, i) => [v, i]));
-  const cIndex = new Map(C.map((v, i) => [v, i]));
+  // The index of a value of R or C (both ascending, seriesValues): bisection, cheaper than a Map
+  // keyed by doubles (measured: indexCode was 3 % of a default design run with Maps).
+  const indexIn = (values: number[], v: number): number => {
+    let lo = 0;
+    let hi = values.length - 1;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (values[mid] < v) lo = mid + 1;
+      else hi = mid;
+    }
+    return lo;
+  };
   const indexCode = (rs: number[], cs: number[]): number => {
     let code = 0;
-    for (let k = 0; k < rs.length; k++) code = (code * nR + rIndex.get(rs[k])!) * nC + cIndex.get(cs[k])!;
+    for (let k = 0; k < rs.length; k++) code = (code * nR + indexIn(R, rs[k])) * nC + indexIn(C, cs[k]);
     return code;
   };
 

@@ -38,7 +38,10 @@ export function slowestTimeConstant(
     const lambdaMax = 0.5 * (a + d) + Math.sqrt(half * half + b2);
     return lambdaMax / det;
   }
-  if (n === 3) return slowestOfThree(g1, 1 / r[1], 1 / r[2], gL, c[0], c[1], c[2] + loadCapacitance);
+  if (n === 3) {
+    const k = cubicOfThree(g1, 1 / r[1], 1 / r[2], gL, c[0], c[1], c[2] + loadCapacitance);
+    return slowestOfThree(k[0], k[1], k[2]);
+  }
   return 1 / symmetricEigen(scaledConductance(r, c, g1, gL, loadCapacitance), n).values[0];
 }
 
@@ -111,11 +114,11 @@ export function twoSlowestTimeConstants(
     const c1 = c[0];
     const c2 = c[1];
     const c3 = c[2] + loadCapacitance;
-    const tauA = slowestOfThree(g1, g2, g3, gL, c1, c2, c3);
-    // The other two roots: tau^2 - (b1 - tau_a) tau + b3 / tau_a = 0 (sum and product of the roots).
     const k = cubicOfThree(g1, g2, g3, gL, c1, c2, c3);
     const b1 = k[0];
     const b3 = k[2];
+    const tauA = slowestOfThree(b1, k[1], b3);
+    // The other two roots: tau^2 - (b1 - tau_a) tau + b3 / tau_a = 0 (sum and product of the roots).
     const sum = Math.max(0, b1 - tauA);
     const disc = Math.max(0, sum * sum - (4 * b3) / tauA);
     out[0] = tauA;
@@ -129,8 +132,9 @@ export function twoSlowestTimeConstants(
 }
 
 /**
- * Slowest time constant of a three-node ladder: conductances g1 (pin to node 1, driver included),
- * g2 (1-2), g3 (2-3), gL (node 3 to ground), node capacitances c1..c3.
+ * Slowest time constant of a three-node ladder from its cubic's coefficients (cubicOfThree: from
+ * conductances g1 (pin to node 1, driver included), g2 (1-2), g3 (2-3), gL (node 3 to ground) and
+ * node capacitances c1..c3).
  *
  * Method: the time constants are the roots of tau^3 - b1 tau^2 + b2 tau - b3 with b1 = E2 / E3,
  * b2 = E1 / E3, b3 = 1 / E3, where E1, E2, E3 are the sums of the 1x1, 2x2 and 3x3 principal
@@ -140,11 +144,7 @@ export function twoSlowestTimeConstants(
  * right of its largest root, so Newton's method from b1 falls to it monotonically (a few steps;
  * Acton, Numerical Methods That Work, chapter 7, from memory; common practice).
  */
-function slowestOfThree(g1: number, g2: number, g3: number, gL: number, c1: number, c2: number, c3: number): number {
-  const k = cubicOfThree(g1, g2, g3, gL, c1, c2, c3);
-  const b1 = k[0];
-  const b2 = k[1];
-  const b3 = k[2];
+function slowestOfThree(b1: number, b2: number, b3: number): number {
   let t = b1;
   for (let i = 0; i < 200; i++) {
     const q = ((t - b1) * t + b2) * t - b3;
