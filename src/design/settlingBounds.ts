@@ -1,5 +1,5 @@
 import type { DesignProblem } from './designProblem.js';
-import { settlingFloorPlan, type SettlingFloorPlan } from './settlingFloor.js';
+import { NO_FLOOR, settlingFloorPlan, type ScratchFloorPlan, type SettlingFloorPlan } from './settlingFloor.js';
 import { threeStageSpread, threeStageTauMin } from './threeStageSpread.js';
 
 /**
@@ -15,7 +15,11 @@ export interface TupleBounds {
   slack: number;
   /** Lower bound on the slowest time constant of any feasible capacitor choice, s. */
   tauMin: number;
-  /** The resistor-only part of the proven settling floor (settlingFloor.ts), for the same limits. */
+  /**
+   * The resistor-only part of the proven settling floor (settlingFloor.ts), for the same limits;
+   * with tupleBounds' `floorInto`, that scratch plan (the caller replaces it to keep the bounds),
+   * and NO_FLOOR (floor 0) when `floorInto` is null.
+   */
   floor: SettlingFloorPlan;
 }
 
@@ -102,7 +106,12 @@ export function settlingLogFactor(problem: DesignProblem, limits: DesignProblem[
  * Syntax: tupleBounds(problem, r[, limits])
  * Example: tupleBounds(problem, [4700, 47e3]).tauMin   // s
  */
-export function tupleBounds(problem: DesignProblem, r: ArrayLike<number>, limits: DesignProblem['limits'] = problem.searchLimits): TupleBounds {
+export function tupleBounds(
+  problem: DesignProblem,
+  r: ArrayLike<number>,
+  limits: DesignProblem['limits'] = problem.searchLimits,
+  floorInto?: ScratchFloorPlan | null,
+): TupleBounds {
   const { project, period, circuit } = problem;
   const { pwm } = project;
   // The load as the ladder sees it (none behind a follower after the last stage).
@@ -137,5 +146,5 @@ export function tupleBounds(problem: DesignProblem, r: ArrayLike<number>, limits
     if (n === 3 && lti) tauMin = Math.max(tauMin, threeStageTauMin(gamma, threeStageSpread(r, driver, load.resistance ?? null), omega));
   }
   if (!lti) tauMin *= 0.8;
-  return { driver, factor, slack: lti ? 0 : 2 * period, tauMin, floor: settlingFloorPlan(problem, r, limits) };
+  return { driver, factor, slack: lti ? 0 : 2 * period, tauMin, floor: floorInto === null ? NO_FLOOR : settlingFloorPlan(problem, r, limits, floorInto) };
 }

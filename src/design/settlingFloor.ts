@@ -60,7 +60,12 @@ export interface SettlingFloorPlan {
  * Syntax: settlingFloorPlan(problem, r[, limits])
  * Example: settlingFloor(settlingFloorPlan(problem, [470, 16e3]), 2.9e-4, 2.0e-4)   // s
  */
-export function settlingFloorPlan(problem: DesignProblem, r: ArrayLike<number>, limits: DesignProblem['limits'] = problem.searchLimits): SettlingFloorPlan {
+export function settlingFloorPlan(
+  problem: DesignProblem,
+  r: ArrayLike<number>,
+  limits: DesignProblem['limits'] = problem.searchLimits,
+  into?: ScratchFloorPlan,
+): SettlingFloorPlan {
   const { circuit: k, steps, band, dutyMin, dutyMax, defaultStep, period } = problem;
   const gH = 1 / (k.driverHigh + r[0]);
   const gL = 1 / (k.driverLow + r[0]);
@@ -78,8 +83,9 @@ export function settlingFloorPlan(problem: DesignProblem, r: ArrayLike<number>, 
   const lti = k.driverHigh === k.driverLow;
   const span = Math.abs(k.high - k.low);
   const ripple = limits.ripple ?? Infinity;
-  const out: FloorStep[] = [];
-  // (plain loops, no closures: this runs for every resistor tuple of a search)
+  // (plain loops, no closures, and with `into` no allocation: this runs for every resistor tuple)
+  const out: FloorStep[] = into ? into.steps : [];
+  let count = 0;
   for (let j = 0; j < steps.length; j++) {
     const from = steps[j][0];
     const to = steps[j][1];
@@ -91,10 +97,33 @@ export function settlingFloorPlan(problem: DesignProblem, r: ArrayLike<number>, 
     const threshold = band + pTo;
     // Steps with the same figures give the same floor (the default step: rising and falling).
     let same = false;
-    for (let i = 0; i < out.length && !same; i++) same = out[i].scaled === scaled && out[i].head === head && out[i].threshold === threshold;
-    if (!same) out.push(floorStep(scaled, head, threshold));
+    for (let i = 0; i < count && !same; i++) same = out[i].scaled === scaled && out[i].head === head && out[i].threshold === threshold;
+    if (same) continue;
+    if (count < out.length) setFloorStep(out[count], scaled, head, threshold);
+    else out.push(floorStep(scaled, head, threshold));
+    count++;
   }
-  return { period, steps: out };
+  out.length = count;
+  if (!into) return { period, steps: out };
+  into.period = period;
+  return into;
+}
+
+/** A plan settlingFloorPlan may overwrite (a search's scratch for plans it keeps only briefly). */
+export interface ScratchFloorPlan {
+  period: number;
+  steps: FloorStep[];
+}
+
+/**
+ * A plan with no steps: settlingFloor gives 0 with it, the trivial floor. Stands for a plan not
+ * made (yet): a search makes a tuple's plan only when it walks that tuple.
+ */
+export const NO_FLOOR: SettlingFloorPlan = Object.freeze({ period: 0, steps: Object.freeze([]) as readonly FloorStep[] });
+
+/** An empty scratch plan for settlingFloorPlan's `into`. */
+export function scratchFloorPlan(): ScratchFloorPlan {
+  return { period: 0, steps: [] };
 }
 
 /**
@@ -104,7 +133,17 @@ export function settlingFloorPlan(problem: DesignProblem, r: ArrayLike<number>, 
  * Example: floorStep(2.5, -Infinity, 3e-3).logScaled   // ln(2.5 / 3e-3)
  */
 export function floorStep(scaled: number, head: number, threshold: number): FloorStep {
-  return { scaled, head, threshold, logScaled: Math.log(scaled / threshold), logHead: head > threshold ? Math.log(head / threshold) : -Infinity };
+  return setFloorStep({ scaled: 0, head: 0, threshold: 0, logScaled: 0, logHead: 0 }, scaled, head, threshold);
+}
+
+/** floorStep written into an existing step. */
+function setFloorStep(step: FloorStep, scaled: number, head: number, threshold: number): FloorStep {
+  step.scaled = scaled;
+  step.head = head;
+  step.threshold = threshold;
+  step.logScaled = Math.log(scaled / threshold);
+  step.logHead = head > threshold ? Math.log(head / threshold) : -Infinity;
+  return step;
 }
 
 /**

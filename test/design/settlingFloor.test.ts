@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { designProblem } from '../../src/design/designProblem.js';
-import { floorStep, settlingFloor, settlingFloorPlan, type SettlingFloorPlan } from '../../src/design/settlingFloor.js';
+import { floorStep, NO_FLOOR, scratchFloorPlan, settlingFloor, settlingFloorPlan, type SettlingFloorPlan } from '../../src/design/settlingFloor.js';
 import { twoSlowestTimeConstants } from '../../src/design/slowestTimeConstant.js';
 import { settlingTime, timeConstants, worstRipple } from '../../src/engine/index.js';
 import type { Project } from '../../src/project/types.js';
@@ -146,6 +146,29 @@ describe('settlingFloor', () => {
     expect(checked).toBeGreaterThan(100);
     // not a vacuous bound: on most such designs it is more than half the settling time
     expect(tight).toBeGreaterThan(checked / 2);
+  });
+});
+
+describe('settlingFloorPlan', () => {
+  it('written into one reused scratch plan, equals a fresh plan tuple after tuple (the search reuses it)', () => {
+    // Invented scenarios: one with the default rising and falling steps (deduplicated to one), one
+    // with a stated step, one with unequal drivers; each tuple's plan goes into the same scratch.
+    const base: Scenario = { f: 20e3, alignment: 'edge', low: 0, high: 3.3, driverHigh: 30, driverLow: 30, load: 1e5, loadC: 1e-10, rippleLsb: 0.5, bandLsb: 1, step: null };
+    const scenarios: Scenario[] = [base, { ...base, step: [0.1, 0.9] }, { ...base, driverHigh: 45, driverLow: 20, load: null }];
+    const scratch = scratchFloorPlan();
+    for (const x of scenarios) {
+      const p = problemOf(x);
+      for (const r of [[1e3], [4.7e3, 10e3], [220, 33e3, 1e5], [1e5, 470]]) {
+        const into = settlingFloorPlan(p, r, p.searchLimits, scratch);
+        expect(into).toBe(scratch);
+        expect(into).toEqual(settlingFloorPlan(p, r));
+      }
+    }
+  });
+
+  it('NO_FLOOR is the trivial floor 0 (a plan not made yet)', () => {
+    expect(settlingFloor(NO_FLOOR, 1e-3, 1e-4)).toBe(0);
+    expect(settlingFloor(NO_FLOOR, 1e-3, 1e-4, 1e-6)).toBe(0);
   });
 });
 
