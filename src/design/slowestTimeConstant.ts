@@ -27,16 +27,8 @@ export function slowestTimeConstant(
   const g1 = 1 / (r[0] + driver);
   if (n === 1) return (c[0] + loadCapacitance) / (g1 + gL);
   if (n === 2) {
-    const g2 = 1 / r[1];
-    const c1 = c[0];
-    const c2 = c[1] + loadCapacitance;
-    const a = (g1 + g2) / c1;
-    const d = (g2 + gL) / c2;
-    const b2 = (g2 * g2) / (c1 * c2);
-    const det = (g1 * g2 + g1 * gL + g2 * gL) / (c1 * c2);
-    const half = 0.5 * (a - d);
-    const lambdaMax = 0.5 * (a + d) + Math.sqrt(half * half + b2);
-    return lambdaMax / det;
+    const m = twoNode(g1, 1 / r[1], gL, c[0], c[1] + loadCapacitance);
+    return m[0] / m[1];
   }
   if (n === 3) {
     const k = cubicOfThree(g1, 1 / r[1], 1 / r[2], gL, c[0], c[1], c[2] + loadCapacitance);
@@ -95,17 +87,9 @@ export function twoSlowestTimeConstants(
     return out;
   }
   if (n === 2) {
-    const g2 = 1 / r[1];
-    const c1 = c[0];
-    const c2 = c[1] + loadCapacitance;
-    const a = (g1 + g2) / c1;
-    const d = (g2 + gL) / c2;
-    const b2 = (g2 * g2) / (c1 * c2);
-    const det = (g1 * g2 + g1 * gL + g2 * gL) / (c1 * c2);
-    const half = 0.5 * (a - d);
-    const lambdaMax = 0.5 * (a + d) + Math.sqrt(half * half + b2);
-    out[0] = lambdaMax / det;
-    out[1] = 1 / lambdaMax;
+    const m = twoNode(g1, 1 / r[1], gL, c[0], c[1] + loadCapacitance);
+    out[0] = m[0] / m[1];
+    out[1] = 1 / m[0];
     return out;
   }
   if (n === 3) {
@@ -155,6 +139,24 @@ function slowestOfThree(b1: number, b2: number, b3: number): number {
     if (step <= 1e-15 * t) break;
   }
   return t;
+}
+
+/** Scratch for twoNode (read at once by its callers). */
+const eigenPair = new Float64Array(2);
+
+/**
+ * [lambda_max, det] of C^-1 G of a two-node ladder (conductances g1 pin to node 1, g2 1-2, gL node
+ * 2 to ground; node capacitances c1, c2): lambda_max in closed form, the determinant written
+ * without cancellation, so lambda_min = det / lambda_max keeps its digits.
+ */
+function twoNode(g1: number, g2: number, gL: number, c1: number, c2: number): Float64Array {
+  const a = (g1 + g2) / c1;
+  const d = (g2 + gL) / c2;
+  const b2 = (g2 * g2) / (c1 * c2);
+  const half = 0.5 * (a - d);
+  eigenPair[0] = 0.5 * (a + d) + Math.sqrt(half * half + b2);
+  eigenPair[1] = (g1 * g2 + g1 * gL + g2 * gL) / (c1 * c2);
+  return eigenPair;
 }
 
 /** Scratch for cubicOfThree (read at once by its callers). */
