@@ -268,7 +268,7 @@ export function collectCandidates(
     // The floor plan in scratch for the key, and a tuple's own only when it is walked (walk):
     // most tuples of a wide space are never walked, and a plan for each kept one doubled the
     // collector's time in a three-stage E24 search (measured). Budgeted walks use no plan.
-    const tb = tupleBounds(problem, rs, limits, budgeted ? null : keyPlan);
+    const tb = tupleBounds(problem, rs, limits, budgeted ? NO_FLOOR : settlingFloorPlan(problem, rs, limits, keyPlan));
     const key = tupleKey(rs, tb);
     // Beyond the threshold already: the walk below would stop before it (theta only falls in a round).
     if (key > state.theta) continue;
@@ -286,18 +286,9 @@ export function collectCandidates(
   const paretoLimits = state.pareto ? state.pareto.limits.map((ripple) => ({ ...limits, ripple })) : [];
   // Pareto mode: points already evaluated, by a number made of their value indices (no strings).
   const paretoSeen = new Set<number>();
-  // The index of a value of R or C (both ascending, seriesValues): bisection, cheaper than a Map
-  // keyed by doubles (measured: indexCode was 3 % of a default design run with Maps).
-  const indexIn = (values: number[], v: number): number => {
-    let lo = 0;
-    let hi = values.length - 1;
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (values[mid] < v) lo = mid + 1;
-      else hi = mid;
-    }
-    return lo;
-  };
+  // The index of a value of R or C (both ascending, seriesValues) by bisection, cheaper than a Map
+  // keyed by doubles (indexCode was 3 % of a default design run with Maps, profiled).
+  const indexIn = (values: number[], v: number): number => firstTrue(values.length, (i) => values[i] >= v);
   const indexCode = (rs: number[], cs: number[]): number => {
     let code = 0;
     for (let k = 0; k < rs.length; k++) code = (code * nR + indexIn(R, rs[k])) * nC + indexIn(C, cs[k]);

@@ -24,12 +24,13 @@ export interface ParetoStats {
  * point evaluated once) in the loosest limit's tuple order, keeping the best fast settling bound
  * per limit; a candidate is dropped only when its settling lower bound exceeds the best already
  * found under every limit its worst ripple meets (dominated in (worst ripple, settling time)), and
- * the walk's threshold is the largest of those bests. Each limit then takes the collected candidates that meet it, engine-verifies them in
- * ascending order of the bound until the bound passes the best exact settling time, and is proven
- * when that time lies within the threshold the walk used for it, as in solveProblem.ts. A limit
- * that is not proven so (the engine rejected what the fast model kept, e.g. by INL) is searched
- * alone by bestDesigns. Stage counts proven out of reach (infeasibilityBounds.ts) give null. With
- * follower options (search.buffered) one walk per option, merged by rankCandidates.
+ * the walk's threshold is the largest of those bests. Each limit then takes the collected
+ * candidates that meet it, engine-verifies them in ascending order of the bound until the bound
+ * passes the best exact settling time, and is proven when that time lies within the threshold the
+ * walk used for it, as in solveProblem.ts. A limit that is not proven so (the engine rejected what
+ * the fast model kept, e.g. by INL) is searched alone by bestDesigns. Stage counts proven out of
+ * reach (infeasibilityBounds.ts) give null. With follower options (search.buffered) one walk per
+ * option, merged by rankCandidates.
  *
  * Syntax: paretoSearch(problems, stages[, stats])
  * Example: paretoSearch(limits.map((r) => designProblem(withRipple(p, r))), 2).map((c) => c?.settlingTime)
@@ -51,21 +52,19 @@ export function paretoSearch(problems: DesignProblem[], stages: number, stats: P
   // with the tightest limit's best, searched alone first, cost more than it pruned: measured on the
   // wide E24 bench project, 92 881 evaluations in all without it against 90 075 with, but 15 to
   // 20 ms less whole-process, as the separate search's set-up and verification go.)
-  const rest = order;
-
   for (const buffered of options) {
     const variant = (p: DesignProblem) => (buffered === p.buffered ? p : designProblem(p.project, undefined, buffered));
     const walkProblem = variant(loosest);
     // Proven out of reach for this variant at the loosest limit: out of reach at every tighter one.
     if (infeasibilityBounds(walkProblem, stages).misses.length > 0) continue;
     const state = newCollectState(walkProblem, 1);
-    const limits = rest.map((i) => rippleOf(problems[i]));
+    const limits = order.map((i) => rippleOf(problems[i]));
     state.pareto = { limits, best: limits.map(() => Infinity) };
     collectCandidates(walkProblem, stages, state);
     stats.evaluated += state.evaluated;
     const entries = [...state.entries].sort((a, b) => a.lb - b.lb || a.totalC - b.totalC);
     const verified = new Map<FastEntry, Candidate>();
-    rest.forEach((i, k) => {
+    order.forEach((i, k) => {
       const problem = variant(problems[i]);
       if (infeasibilityBounds(problem, stages).misses.length > 0) return;
       const theta = state.pareto!.best[k] * (1 + REL) + 1e-12;
@@ -88,7 +87,7 @@ export function paretoSearch(problems: DesignProblem[], stages: number, stats: P
       else found[i].push(...ranked);
     });
   }
-  for (const i of rest) {
+  for (const i of order) {
     if (fallback.has(i)) {
       stats.fallbacks++;
       const alone = bestDesigns(problems[i], 1, [stages]);

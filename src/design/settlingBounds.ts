@@ -1,5 +1,5 @@
 import type { DesignProblem } from './designProblem.js';
-import { NO_FLOOR, settlingFloorPlan, type ScratchFloorPlan, type SettlingFloorPlan } from './settlingFloor.js';
+import { settlingFloorPlan, type SettlingFloorPlan } from './settlingFloor.js';
 import { threeStageSpread, threeStageTauMin } from './threeStageSpread.js';
 
 /**
@@ -16,9 +16,8 @@ export interface TupleBounds {
   /** Lower bound on the slowest time constant of any feasible capacitor choice, s. */
   tauMin: number;
   /**
-   * The resistor-only part of the proven settling floor (settlingFloor.ts), for the same limits;
-   * with tupleBounds' `floorInto`, that scratch plan (the caller replaces it to keep the bounds),
-   * and NO_FLOOR (floor 0) when `floorInto` is null.
+   * The resistor-only part of the proven settling floor (settlingFloor.ts), for the same limits,
+   * or the plan the caller passed to tupleBounds (a scratch plan, or NO_FLOOR: floor 0).
    */
   floor: SettlingFloorPlan;
 }
@@ -103,14 +102,14 @@ export function settlingLogFactor(problem: DesignProblem, limits: DesignProblem[
  * `limits` (default problem.searchLimits) are the limits the capacitor choices must meet: the
  * trade-off walk (paretoSearch.ts) asks with each of its ripple limits in turn.
  *
- * Syntax: tupleBounds(problem, r[, limits])
+ * Syntax: tupleBounds(problem, r[, limits[, floor]])   (floor: the plan to carry; default made here)
  * Example: tupleBounds(problem, [4700, 47e3]).tauMin   // s
  */
 export function tupleBounds(
   problem: DesignProblem,
   r: ArrayLike<number>,
   limits: DesignProblem['limits'] = problem.searchLimits,
-  floorInto?: ScratchFloorPlan | null,
+  floor?: SettlingFloorPlan,
 ): TupleBounds {
   const { project, period, circuit } = problem;
   const { pwm } = project;
@@ -146,5 +145,5 @@ export function tupleBounds(
     if (n === 3 && lti) tauMin = Math.max(tauMin, threeStageTauMin(gamma, threeStageSpread(r, driver, load.resistance ?? null), omega));
   }
   if (!lti) tauMin *= 0.8;
-  return { driver, factor, slack: lti ? 0 : 2 * period, tauMin, floor: floorInto === null ? NO_FLOOR : settlingFloorPlan(problem, r, limits, floorInto) };
+  return { driver, factor, slack: lti ? 0 : 2 * period, tauMin, floor: floor ?? settlingFloorPlan(problem, r, limits) };
 }

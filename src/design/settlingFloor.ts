@@ -57,7 +57,9 @@ export interface SettlingFloorPlan {
  * average; a target whose excursion passes the band never settles), so the settling time is at
  * least the last t at which that lower bound of z(t) still exceeds band + pTo.
  *
- * Syntax: settlingFloorPlan(problem, r[, limits])
+ * With `into` (scratchFloorPlan) the plan is written into it and it is returned: no allocation.
+ *
+ * Syntax: settlingFloorPlan(problem, r[, limits[, into]])
  * Example: settlingFloor(settlingFloorPlan(problem, [470, 16e3]), 2.9e-4, 2.0e-4)   // s
  */
 export function settlingFloorPlan(
