@@ -1,4 +1,4 @@
-import { brentMaximize, maximizeOnInterval, type Maximum } from '../numeric/maximizeOnInterval.js';
+import { brentMaximize, brentMaximizeBracketed, maximizeOnInterval, type Maximum } from '../numeric/maximizeOnInterval.js';
 
 /** Grid cells of the duty searches, as in the engine (maximizeOnInterval). */
 export const DUTY_CELLS = 16;
@@ -7,7 +7,7 @@ export const DUTY_CELLS = 16;
  * The duties of the local maxima of f over [a, b] that lie inside the range.
  *
  * Method: f on the engine's 16-cell grid; each interior grid local maximum refined by Brent's
- * method (brentMaximize, Brent 1973 ch. 5) between its neighbours.
+ * method from the three grid values around it (brentMaximizeBracketed, Brent 1973 ch. 5).
  *
  * Syntax: gridPeaks(f, a, b)
  * Example: gridPeaks((d) => d * (1 - d), 0, 1)  // [0.5]
@@ -20,7 +20,7 @@ export function gridPeaks(f: (d: number) => number, a: number, b: number): numbe
   const fs = xs.map(f);
   const peaks: number[] = [];
   for (let i = 1; i < DUTY_CELLS; i++) {
-    if (fs[i] >= fs[i - 1] && fs[i] >= fs[i + 1]) peaks.push(brentMaximize(f, xs[i - 1], xs[i + 1], 1e-9).x);
+    if (fs[i] >= fs[i - 1] && fs[i] >= fs[i + 1]) peaks.push(brentMaximizeBracketed(f, xs[i - 1], xs[i], xs[i + 1], fs[i - 1], fs[i], fs[i + 1], 1e-9).x);
   }
   return peaks;
 }
@@ -31,12 +31,12 @@ export function gridPeaks(f: (d: number) => number, a: number, b: number): numbe
  * Method: both ends, then from each hint a bracket walk (three points one grid cell apart,
  * stepped uphill until the middle one is highest or a range end is reached: the bracketing phase
  * of Brent-type minimizers, Press et al., "Numerical Recipes", 3rd ed., 2007, section 10.1) and
- * Brent's maximization (brentMaximize) inside the bracket, or inside the last cell when the walk
- * ran into a range end. A walk longer than the whole range gives
- * up and the engine's full search decides (16-cell grid plus Brent refinement of the two best grid
- * peaks, maximizeOnInterval). With no hints (the similar f peaked only at the ends) f is also
- * checked at the three inner points of a 4-cell grid, and the full search runs if one of them beats
- * both ends; hints = null always runs the full search. When an end wins but f rises just inside it,
+ * Brent's maximization inside the bracket, from its three values (brentMaximizeBracketed), or
+ * inside the last cell when the walk ran into a range end (brentMaximize). A walk longer than the
+ * whole range gives up and the engine's full search decides (16-cell grid plus Brent refinement
+ * of the two best grid peaks, maximizeOnInterval). With no hints (the similar f peaked only at the
+ * ends) f is also checked at the three inner points of a 4-cell grid, and the full search runs if
+ * one of them beats both ends; hints = null always runs the full search. When an end wins but f rises just inside it,
  * that end's grid cell is searched by Brent too (a peak just inside the range). `xtol` is Brent's
  * absolute tolerance (default 1e-9); near a smooth maximum the value's error is of order f'' xtol^2.
  * A caller that already holds f(a) and f(b) (exactly the values f gives) passes them as `ends`:
@@ -108,7 +108,7 @@ export function maximizeFromHints(
         f3 = f(x3);
       }
     }
-    const top = Number.isNaN(lo) ? brentMaximize(f, x1, x3, xtol) : brentMaximize(f, lo, hi, xtol);
+    const top = Number.isNaN(lo) ? brentMaximizeBracketed(f, x1, x2, x3, f1, f2, f3, xtol) : brentMaximize(f, lo, hi, xtol);
     // the best of Brent's point and the bracket's ends, in that order (ties keep the earlier)
     let bx = top.x;
     let bv = top.value;

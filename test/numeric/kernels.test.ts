@@ -7,7 +7,7 @@ import { expSumRoots } from '../../src/numeric/expSumRoots.js';
 import { expm } from '../../src/numeric/expm.js';
 import { symmetricEigen } from '../../src/numeric/symmetricEigen.js';
 import { luFactor, luSolve, solveLinear, solveTwoByTwo } from '../../src/numeric/lu.js';
-import { brentMaximize, maximizeOnInterval } from '../../src/numeric/maximizeOnInterval.js';
+import { brentMaximize, brentMaximizeBracketed, maximizeOnInterval } from '../../src/numeric/maximizeOnInterval.js';
 import { oneMinusPhi1, phi1, phi2 } from '../../src/numeric/phi.js';
 
 // Reference values: mpmath 1.3.0 at 50 digits, printed by kernels.references.py beside this file
@@ -57,6 +57,44 @@ describe('brentMaximize and maximizeOnInterval (Brent 1973, ch. 5)', () => {
     expect(relErr(m.value, 1.2151019249431465)).toBeLessThan(1e-14);
     // brentMaximize alone, bracketed around a lesser peak, stays on it (a local search)
     expect(brentMaximize(f, 2.0, 2.4).x).toBeCloseTo(2.161958042660804, 7);
+  });
+  it('from a bracket: the same peaks (x^2 e^-x, 4/e^2; sin(pi x) at 1/2; the lesser peak of sin 3x + sin(7x)/2)', () => {
+    let evals = 0;
+    const counted = (f: (x: number) => number) => (x: number) => {
+      evals++;
+      return f(x);
+    };
+    const g = counted((x) => x * x * Math.exp(-x));
+    const m = brentMaximizeBracketed(g, 1, 2.5, 4, g(1), g(2.5), g(4), 1e-9);
+    expect(m.x).toBeCloseTo(2, 7);
+    expect(relErr(m.value, 0.5413411329464508)).toBeLessThan(1e-14);
+    // Evaluations counted (not timed): the three known values replace the first golden-section
+    // steps, so a near-parabolic peak (a ripple against duty) takes fewer: 5 against 8 here.
+    const s = counted((x) => Math.sin(Math.PI * x));
+    evals = 0;
+    const p = brentMaximizeBracketed(s, 0.4, 0.47, 0.54, s(0.4), s(0.47), s(0.54), 1e-9);
+    const bracketed = evals - 3;
+    evals = 0;
+    brentMaximize(s, 0.4, 0.54, 1e-9);
+    expect(p.x).toBeCloseTo(0.5, 8);
+    expect(bracketed).toBeLessThan(evals);
+    const f = (x: number) => Math.sin(3 * x) + 0.5 * Math.sin(7 * x);
+    expect(brentMaximizeBracketed(f, 2.0, 2.2, 2.4, f(2.0), f(2.2), f(2.4)).x).toBeCloseTo(2.161958042660804, 7);
+  });
+  it('from a bracket: value = f(x) with x inside, and never below the bracket\'s middle (fast-check)', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 0.5, max: 20, noNaN: true }), fc.double({ min: 0, max: 6, noNaN: true }), (k, phase) => {
+        const f = (x: number) => Math.sin(k * x + phase) - 0.1 * x;
+        // a bracket from a fine grid: its best inner point and the neighbours
+        const xs = Array.from({ length: 41 }, (_, i) => (2 * i) / 40);
+        let i = 1;
+        for (let j = 2; j < 40; j++) if (f(xs[j]) > f(xs[i])) i = j;
+        if (!(f(xs[i]) >= f(xs[i - 1]) && f(xs[i]) >= f(xs[i + 1]))) return true;
+        const m = brentMaximizeBracketed(f, xs[i - 1], xs[i], xs[i + 1], f(xs[i - 1]), f(xs[i]), f(xs[i + 1]), 1e-10);
+        return m.x > xs[i - 1] && m.x < xs[i + 1] && m.value === f(m.x) && m.value >= f(xs[i]);
+      }),
+      { numRuns: 200, seed: 12 },
+    );
   });
   it('returns an end when f rises toward it, and f(a) on an empty interval', () => {
     expect(maximizeOnInterval((x) => x, 0, 1)).toEqual({ x: 1, value: 1 });
