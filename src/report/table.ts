@@ -1,4 +1,4 @@
-import { longestChunk, textWidth, wrapParagraph, wrapText } from './wrapText.js';
+import { longestChunk, textWidth, wrapChunks, wrappedLineCount, wrapParagraph, wrapText } from './wrapText.js';
 
 export type Align = 'left' | 'right';
 
@@ -57,6 +57,18 @@ function layout(header: string[], rows: string[][], columns: number, room: (n: n
   // Headers may wrap freely; body cells down to 20 columns.
   const body = all.map((i) => Math.max(0, ...rows.map((r) => visibleWidth(r[i] ?? ''))));
   const comfort = all.map((i) => Math.max(chunk[i], Math.min(body[i], COMFORT)));
+  // Each cell's width and chunk widths, measured once (row 0 is the header).
+  const measures = new Map<number, { whole: number; chunks: number[] }>();
+  const measured = (row: number, column: number) => {
+    const key = row * columns + column;
+    let m = measures.get(key);
+    if (m === undefined) {
+      const text = (row === 0 ? header : rows[row - 1])[column] ?? '';
+      m = { whole: visibleWidth(text), chunks: wrapChunks(text).map(textWidth) };
+      measures.set(key, m);
+    }
+    return m;
+  };
 
   /**
    * Narrow the columns one step at a time until the sum fits, none below its floor, each step
@@ -69,14 +81,18 @@ function layout(header: string[], rows: string[][], columns: number, room: (n: n
     if (floors.reduce((a, b) => a + b, 0) > budget) return null;
     let total = widths.reduce((a, b) => a + b, 0);
     // Lines the table takes with these widths (header and body rows): the cost of a step. Each
-    // column's line counts at a width are wrapped once (a step changes one column's width).
+    // column's line counts at a width are counted once (a step changes one column's width), from
+    // each cell's chunk widths (wrappedLineCount: wrapText's count without wrapping strings).
     const grid = [header, ...rows];
     const wrapped = new Map<number, number[]>();
     const linesAt = (i: number, width: number): number[] => {
       const key = i * 65536 + width;
       let counts = wrapped.get(key);
       if (counts === undefined) {
-        counts = grid.map((r) => (visibleWidth(r[i] ?? '') <= width ? 1 : wrapText(r[i] ?? '', width).length));
+        counts = grid.map((r, k) => {
+          const m = measured(k, i);
+          return wrappedLineCount(m.chunks, m.whole, width);
+        });
         wrapped.set(key, counts);
       }
       return counts;

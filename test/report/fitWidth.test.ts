@@ -1,7 +1,8 @@
+import fc from 'fast-check';
 import stringWidth from 'string-width';
 import { describe, expect, it } from 'vitest';
 import { table } from '../../src/report/table.js';
-import { wrapChunks, wrapText } from '../../src/report/wrapText.js';
+import { textWidth, wrapChunks, wrappedLineCount, wrapText } from '../../src/report/wrapText.js';
 
 // Terminal widths are measured with string-width (an outside library), not with our own counter.
 const widest = (text: string) => Math.max(...text.split('\n').map((l) => stringWidth(l)));
@@ -16,6 +17,21 @@ describe('wrapText', () => {
     expect(wrapText('settling 7.35 ms, ripple 0.25 LSB', 16)).toEqual(['settling', '7.35 ms, ripple', '0.25 LSB']);
     expect(wrapText('sample-configs/greenhouse.yaml', 10)).toEqual(['sample-con', 'figs/green', 'house.yaml']);
     expect(wrapText('fits as is', 10)).toEqual(['fits as is']);
+  });
+
+  it('wrappedLineCount gives wrapText\'s line count from the chunk widths (fast-check over texts and widths)', () => {
+    const count = (text: string, width: number) => wrappedLineCount(wrapChunks(text).map(textWidth), textWidth(text), width);
+    expect(count('settling 7.35 ms, ripple 0.25 LSB', 16)).toBe(3);
+    expect(count('sample-configs/greenhouse.yaml', 10)).toBe(3);
+    expect(count('', 5)).toBe(1);
+    const word = fc.constantFrom('ripple', '0.46', 'LSB', '@', '6', 'bit', '/', '+', 'kΩ', 'sample-configs/greenhouse.yaml', '\x1b[1mPASS\x1b[0m', 'µF', 'to', 'x');
+    fc.assert(
+      fc.property(fc.array(word, { maxLength: 14 }), fc.integer({ min: 0, max: 40 }), (words, width) => {
+        const text = words.join(' ');
+        return count(text, width) === wrapText(text, width).length;
+      }),
+      { numRuns: 500, seed: 23 },
+    );
   });
 });
 
