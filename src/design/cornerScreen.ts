@@ -1,7 +1,7 @@
 import type { Ladder } from '../circuit/ladder.js';
 import type { Project } from '../project/types.js';
 import type { DesignProblem } from './designProblem.js';
-import { modalLadder, periodicState, settlingLowerBound, steadySwing } from '../engine/index.js';
+import { modalAverageOutput, modalLadder, periodicState, rippleAt, settlingLowerBound } from '../engine/index.js';
 import { maximizeOverDuty } from './maximizeOverDuty.js';
 
 /** Whether the search may recommend a candidate (resistors and capacitors, pin side first). */
@@ -20,7 +20,7 @@ const REL = 1e-6;
  *
  * Method: the engine's modal form at each corner (engine/modal) gives lower bounds of that
  * corner's figures: the ripple and droop maximised over a duty grid (maximizeOverDuty.ts, from
- * steadySwing) and the settling lower bound (settlingLowerBound, Infinity when the output never
+ * rippleAt and modalAverageOutput) and the settling lower bound (settlingLowerBound, Infinity when the output never
  * settles); a bound beyond its limit by more than ten search-versus-check rounding allowances
  * proves the miss. Designs with a follower are admitted unscreened (the bound takes follower-free
  * ladders).
@@ -39,10 +39,10 @@ export function cornerScreen(corners: (project: Project, ladder: Ladder) => Ladd
         limit !== undefined && value - 10 * Math.max(REL * Math.abs(value), floor) > limit;
       const model = modalLadder(corner);
       if (model === null) continue;
-      const steady = (d: number) => steadySwing(model, d);
-      if (limits.ripple !== undefined && beyond(maximizeOverDuty((d) => steady(d).ripple, dutyMin, dutyMax), limits.ripple, 1e-12 * fullScale)) return false;
+      // steadySwing's ripple and average, each alone (rippleAt, modalAverageOutput: same numbers, less work)
+      if (limits.ripple !== undefined && beyond(maximizeOverDuty((d) => rippleAt(model, d), dutyMin, dutyMax), limits.ripple, 1e-12 * fullScale)) return false;
       if (limits.droop !== undefined) {
-        const droop = maximizeOverDuty((d) => Math.abs(corner.low + d * (corner.high - corner.low) - steady(d).average), dutyMin, dutyMax);
+        const droop = maximizeOverDuty((d) => Math.abs(corner.low + d * (corner.high - corner.low) - modalAverageOutput(model, d)), dutyMin, dutyMax);
         if (beyond(droop, limits.droop, 1e-12 * fullScale)) return false;
       }
       if (limits.settlingTime !== undefined) {
