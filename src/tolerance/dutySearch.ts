@@ -4,6 +4,15 @@ import { brentMaximize, brentMaximizeBracketed, maximizeOnInterval, type Maximum
 export const DUTY_CELLS = 16;
 
 /**
+ * Brent's tolerance on the duty for a sample's searches (ripple, droop, INL; ladders and
+ * networks): near a smooth maximum the value is then within about f'' (1e-6)^2 / 2, 1e-11 of it
+ * for ripple and DC errors (both vary on the scale of the whole duty range). Measured against a
+ * 1e-9 search over 2 000 samples of four projects: worst ripple within 7e-12 relative, droop within
+ * 2e-13, settling identical; a yield check's Brent searches take 4.2 evaluations instead of 8.9.
+ */
+export const DUTY_XTOL = 1e-6;
+
+/**
  * The duties of the local maxima of f over [a, b] that lie inside the range.
  *
  * Method: f on the engine's 16-cell grid; each interior grid local maximum refined by Brent's

@@ -2,7 +2,7 @@ import type { Ladder } from '../circuit/ladder.js';
 import { dcTransfer, settlingTime, worstRipple, modalLadder, type ModalLadder, MAX_MODAL_CONDITION, rippleAt, modalAverageOutput as averageOutput, type PeriodicState, modalSettling, periodicState } from '../engine/index.js';
 import type { MetricPlan } from './metricPlan.js';
 import type { CircuitMetrics } from './metrics.js';
-import { maximizeFromHints } from './dutySearch.js';
+import { DUTY_XTOL, maximizeFromHints } from './dutySearch.js';
 import type { Maximum } from '../numeric/maximizeOnInterval.js';
 import { meetsLimit, passesLimits } from './passesLimits.js';
 
@@ -22,7 +22,8 @@ export interface LadderMetricsOptions {
  * conditioned as the engine requires (MAX_MODAL_CONDITION), the engine otherwise (sections sharing
  * or nearly sharing a mode); settling of a cascade, or a step the modal search declines, also comes from the
  * engine. Worst ripple: Brent's maximization from the nominal ripple peaks in the plan
- * (maximizeFromHints), falling back to the engine's full grid search when a peak has moved too far.
+ * (maximizeFromHints, to DUTY_XTOL in duty), falling back to the engine's full grid search when a
+ * peak has moved too far.
  * Droop and INL: with equal driver resistances average(D) is affine in D (the circuit is then
  * linear time-invariant, and its mean output is the DC gain times the mean pin voltage), so both
  * extremes are at the range ends; otherwise the same hinted search on the exact averages.
@@ -142,7 +143,7 @@ function engineMetrics(ladder: Ladder, plan: MetricPlan): LadderMetrics {
 }
 
 function modalWorstRipple(m: ModalLadder, plan: MetricPlan): { duty: number; ripple: number } {
-  const best = maximizeFromHints((d) => rippleAt(m, d), plan.dutyMin, plan.dutyMax, plan.rippleHints);
+  const best = maximizeFromHints((d) => rippleAt(m, d), plan.dutyMin, plan.dutyMax, plan.rippleHints, DUTY_XTOL);
   return { duty: best.x, ripple: best.value };
 }
 
@@ -218,9 +219,9 @@ function dcSearch(m: ModalLadder, ladder: Ladder, plan: MetricPlan, droop: boole
   const affine = ladder.driverHigh === ladder.driverLow || !(b > a);
   if (affine) return { errA, errB, gain, affine, droop: null, inl: null, error, deviation };
   // |error| and |deviation| at the ends from the averages already at hand (the same expressions)
-  const droopMax = droop ? maximizeFromHints((d) => Math.abs(error(d)), a, b, plan.droopHints, 1e-9, { fa: Math.abs(errA), fb: Math.abs(errB) }) : null;
+  const droopMax = droop ? maximizeFromHints((d) => Math.abs(error(d)), a, b, plan.droopHints, DUTY_XTOL, { fa: Math.abs(errA), fb: Math.abs(errB) }) : null;
   const inlMax = inl
-    ? maximizeFromHints((d) => Math.abs(deviation(d)), a, b, plan.inlHints, 1e-9, {
+    ? maximizeFromHints((d) => Math.abs(deviation(d)), a, b, plan.inlHints, DUTY_XTOL, {
         fa: Math.abs(yA + slope * (a - a) - yA),
         fb: Math.abs(yA + slope * (b - a) - yB),
       })

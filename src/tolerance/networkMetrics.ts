@@ -1,16 +1,9 @@
 import type { Network } from '../circuit/network.js';
 import { codeParts, networkDcTransfer, networkRipple, networkSettling, networkWorstRipple, type ExtremumSearch } from '../engine/index.js';
 import { maximizeOverCodes } from './codeSearch.js';
-import { maximizeFromHints } from './dutySearch.js';
+import { DUTY_XTOL, maximizeFromHints } from './dutySearch.js';
 import type { MetricPlan } from './metricPlan.js';
 import type { CircuitMetrics } from './metrics.js';
-
-/**
- * Brent's tolerance on the duty for a network's searches: near a smooth maximum the value is then
- * within about f'' (1e-6)^2 / 2, 1e-11 of it for ripple and DC errors (both vary on the scale of the
- * whole duty range), while each evaluation is a periodic orbit of the general engine.
- */
-const DUTY_XTOL = 1e-6;
 
 export interface NetworkMetricsOptions {
   /** The engine's own full searches for every figure (a reference; slow for a fine output). */
