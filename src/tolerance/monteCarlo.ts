@@ -78,12 +78,18 @@ export function monteCarlo(project: Project, circuit?: ToleranceCircuit, options
 }
 
 /**
- * The shared set-up of a run: parameters, plan and deviates.
+ * The shared set-up of a run: parameters, plan and deviates (from `draw`, drawDeviates unless a
+ * caller that sets up many runs alike passes one that reuses its table: sequentialYield.ts).
  *
- * Syntax: monteCarloSetup(project[, circuit, options])
+ * Syntax: monteCarloSetup(project[, circuit, options, draw])
  * Example: monteCarloSetup(p).deviates.length  // samples * parameters
  */
-export function monteCarloSetup(project: Project, circuit?: ToleranceCircuit, options: MonteCarloOptions = {}): MonteCarloSetup {
+export function monteCarloSetup(
+  project: Project,
+  circuit?: ToleranceCircuit,
+  options: MonteCarloOptions = {},
+  draw: typeof drawDeviates = drawDeviates,
+): MonteCarloSetup {
   const settings = requireTolerance(project);
   const nominal = circuit ?? toleranceCircuitOf(project);
   const samples = options.samples ?? settings.samples;
@@ -98,7 +104,7 @@ export function monteCarloSetup(project: Project, circuit?: ToleranceCircuit, op
     circuit: nominal,
     parameters,
     plan: metricPlan(project, nominal, { gain: options.gain }),
-    deviates: drawDeviates(samples, parameters.length, seed, distribution),
+    deviates: draw(samples, parameters.length, seed, distribution),
     samples,
     seed,
     distribution,

@@ -2,6 +2,7 @@ import type { Ladder } from '../circuit/ladder.js';
 import { wilsonInterval } from '../numeric/statistics.js';
 import type { Project } from '../project/types.js';
 import { countPassing } from './countPassing.js';
+import { drawDeviates, type Distribution } from './deviates.js';
 import { monteCarloSetup } from './monteCarlo.js';
 
 export interface SequentialYield {
@@ -42,7 +43,7 @@ export const SEQUENTIAL_Z = 3;
  * Example: sequentialYield(p, ladder, 0.99, 2000)   // { yield: 1, samples: 1000, pass: true, early: true, ... }
  */
 export function sequentialYield(project: Project, ladder: Ladder, target: number, cap: number): SequentialYield {
-  const setup = monteCarloSetup(project, ladder, { samples: cap });
+  const setup = monteCarloSetup(project, ladder, { samples: cap }, sharedDraw);
   let passed = 0;
   let n = 0;
   const batch = Math.max(SEQUENTIAL_BATCH, Math.ceil(cap / LOOKS));
@@ -60,3 +61,28 @@ export function sequentialYield(project: Project, ladder: Ladder, target: number
   }
   throw new Error('sequentialYield: cap must be a whole number >= 1');
 }
+
+/**
+ * drawDeviates with the last table kept: the robust search checks design after design with the
+ * same cap, parameter count, seed and distribution, so each gets the same table (read only; the
+ * samples never write it) without drawing it again.
+ */
+function sharedDraw(count: number, width: number, seed: number, distribution: Distribution): Float64Array {
+  const k = LAST_DRAW;
+  if (k.table === null || k.count !== count || k.width !== width || k.seed !== seed || k.distribution !== distribution) {
+    k.table = drawDeviates(count, width, seed, distribution);
+    k.count = count;
+    k.width = width;
+    k.seed = seed;
+    k.distribution = distribution;
+  }
+  return k.table;
+}
+
+const LAST_DRAW: { table: Float64Array | null; count: number; width: number; seed: number; distribution: Distribution } = {
+  table: null,
+  count: 0,
+  width: 0,
+  seed: 0,
+  distribution: 'normal',
+};
