@@ -32,6 +32,15 @@ describe('slowestTimeConstant', () => {
       { numRuns: 200 },
     );
   });
+  it('three stages of one time constant (each RC 100 us, impedance x100 per stage): near-equal roots, to 1e-9 of the engine', () => {
+    // the case where the cubic's roots crowd together (Newton's start at the Laguerre-Samuelson bound)
+    for (const k of [10, 100, 1000]) {
+      const r = [1e3, 1e3 * k, 1e3 * k * k];
+      const c = [1e-7, 1e-7 / k, 1e-7 / (k * k)];
+      const l = { period: 1e-4, high: 3.3, low: 0, driverHigh: 0, driverLow: 0, stages: r.map((rr, i) => ({ r: rr, c: c[i], buffered: false })), loadResistance: null, loadCapacitance: 0 };
+      expect(Math.abs(slowestTimeConstant(r, c, 0, null, 0) / timeConstants(l)[0] - 1)).toBeLessThan(1e-9);
+    }
+  });
 });
 
 describe('tupleBounds: lower bounds the search prunes with (equal drivers: proven, see settlingBounds.ts)', () => {
