@@ -1,5 +1,5 @@
 import './doubleFields.js';
-import { doubles, zeros } from '../../numeric/dense.js';
+import { doubles } from '../../numeric/dense.js';
 import { solveLinear, solveTwoByTwo } from '../../numeric/lu.js';
 import { phi2 } from '../../numeric/phi.js';
 import type { ModalLadder } from './modalLadder.js';
@@ -45,50 +45,50 @@ export interface PeriodicState {
  * taken from the DC state that needs the smaller correction (x_l + u below duty 1/2, x_h - v above),
  * as in dutyPlan.ts.
  *
- * With `into`, a state from an earlier call on a ladder of as many stages, one and two stages are
- * written into it (arrays and curves included) and it is returned: a search that keeps a few
- * states per candidate allocates nothing per candidate. Other orders ignore it.
+ * With `into`, a state from an earlier call on a ladder of as many stages, the new state is written
+ * into it (arrays and curves included) and it is returned: a search that keeps a few states per
+ * candidate allocates nothing per candidate (from three stages on, only the n x n solve's arrays).
  *
  * Syntax: periodicState(modal, duty[, into])
  * Example: periodicState(modalLadder(ladder)!, 0.5).average  // V
  */
 export function periodicState(m: ModalLadder, duty: number, into?: PeriodicState): PeriodicState {
-  return m.n <= 2 ? smallPeriodicState(m, duty, into !== undefined && into.start.length === m.n ? into : undefined) : periodicStateAnyOrder(m, duty);
+  const fits = into !== undefined && into.start.length === m.n ? into : undefined;
+  return m.n <= 2 ? smallPeriodicState(m, duty, fits) : periodicStateAnyOrder(m, duty, fits);
 }
 
 /**
  * periodicState by the general-order code for any number of stages; periodicState uses it from
  * three stages on. Callable by name so that tests hold the scalar one- and two-stage path to it.
+ * Its work arrays are module scratch (grown to the largest order seen); with `into` (a state of
+ * as many stages) the result is written into it.
  *
- * Syntax: periodicStateAnyOrder(modal, duty)
+ * Syntax: periodicStateAnyOrder(modal, duty[, into])
  * Example: periodicStateAnyOrder(modalLadder(ladder)!, 0.5).average  // equal to periodicState(...)
  */
-export function periodicStateAnyOrder(m: ModalLadder, duty: number): PeriodicState {
+export function periodicStateAnyOrder(m: ModalLadder, duty: number, into?: PeriodicState): PeriodicState {
   const { n, period, hi, lo, mix, delta } = m;
   const t1 = duty * period;
   const t2 = (1 - duty) * period;
-  const kh = zeros(n);
-  const kl = zeros(n);
-  const el = zeros(n);
+  if (WORK.kh.length < n) growWork(n);
+  const { kh, kl, el, Y, rhs, start, drive, aHigh, wEnd, aLow } = WORK;
   for (let i = 0; i < n; i++) {
     kh[i] = -Math.expm1(hi.rate[i] * t1);
     kl[i] = -Math.expm1(lo.rate[i] * t2);
     el[i] = Math.exp(lo.rate[i] * t2);
   }
-  let start: number[];
-  let drive: number[];
   // Duty 1: no low phase, the state sits at the high phase's DC state: u = Delta and v = 0 exactly.
   if (t2 === 0) {
-    start = delta.slice();
-    drive = zeros(n);
+    for (let i = 0; i < n; i++) {
+      start[i] = delta[i];
+      drive[i] = 0;
+    }
   } else if (n === 1) {
     const den = kl[0] + el[0] * kh[0];
-    start = [(el[0] * kh[0] * delta[0]) / den];
-    drive = [(kl[0] * delta[0]) / den];
+    start[0] = (el[0] * kh[0] * delta[0]) / den;
+    drive[0] = (kl[0] * delta[0]) / den;
   } else {
     // Y and the two right-hand sides [r r'] (row-major n x 2)
-    const Y = zeros(n * n);
-    const rhs = zeros(2 * n);
     for (let i = 0; i < n; i++) {
       let sHigh = 0;
       let sAll = 0;
@@ -101,17 +101,14 @@ export function periodicStateAnyOrder(m: ModalLadder, duty: number): PeriodicSta
       rhs[2 * i] = el[i] * sHigh;
       rhs[2 * i + 1] = kl[i] * sAll;
     }
+    // (the scratch may be longer than n x n: the solve reads the first n^2 entries, row-major)
     const solved = solveLinear(Y, n, rhs, 2);
     if (!solved) throw new RangeError('periodicState: singular period map (not a physical ladder)');
-    start = zeros(n);
-    drive = zeros(n);
     for (let i = 0; i < n; i++) {
       start[i] = solved[2 * i];
       drive[i] = solved[2 * i + 1];
     }
   }
-  const aHigh = zeros(n);
-  const wEnd = zeros(n);
   let yEnd = 0;
   let fromLow = 0;
   let fromHigh = 0;
@@ -122,7 +119,6 @@ export function periodicStateAnyOrder(m: ModalLadder, duty: number): PeriodicSta
     fromLow += hi.out[i] * start[i];
     fromHigh += hi.out[i] * drive[i];
   }
-  const aLow = zeros(n);
   for (let i = 0; i < n; i++) {
     let s = 0;
     for (let j = 0; j < n; j++) s -= mix[i * n + j] * (start[j] + wEnd[j]);
@@ -137,17 +133,46 @@ export function periodicStateAnyOrder(m: ModalLadder, duty: number): PeriodicSta
   }
   const meanOffset = integral / period;
   const yStart = duty > 0.5 ? m.outHigh - fromHigh : m.outLow + fromLow;
-  return {
-    duty,
-    t1,
-    t2,
-    start,
-    yStart,
-    meanOffset,
-    average: yStart + meanOffset,
-    high: { offset: 0, gain: negated(aHigh), rate: hi.rate, length: t1 },
-    low: { offset: yEnd, gain: negated(aLow), rate: lo.rate, length: t2 },
+  const out: PeriodicState = into ?? {
+    duty: 0.5,
+    t1: 0.5,
+    t2: 0.5,
+    start: doubles(n),
+    yStart: 0.5,
+    meanOffset: 0.5,
+    average: 0.5,
+    high: { offset: 0.5, gain: doubles(n), rate: hi.rate, length: 0.5 },
+    low: { offset: 0.5, gain: doubles(n), rate: lo.rate, length: 0.5 },
   };
+  const high = out.high as Curve;
+  const low = out.low as Curve;
+  out.duty = duty;
+  out.t1 = t1;
+  out.t2 = t2;
+  for (let i = 0; i < n; i++) {
+    out.start[i] = start[i];
+    high.gain[i] = -aHigh[i];
+    low.gain[i] = -aLow[i];
+  }
+  out.yStart = yStart;
+  out.meanOffset = meanOffset;
+  out.average = yStart + meanOffset;
+  high.offset = 0;
+  high.rate = hi.rate;
+  high.length = t1;
+  low.offset = yEnd;
+  low.rate = lo.rate;
+  low.length = t2;
+  return out;
+}
+
+/** Work arrays of periodicStateAnyOrder (module scratch: read before the next call). */
+const WORK = { kh: doubles(0), kl: doubles(0), el: doubles(0), Y: doubles(0), rhs: doubles(0), start: doubles(0), drive: doubles(0), aHigh: doubles(0), wEnd: doubles(0), aLow: doubles(0) };
+
+function growWork(n: number): void {
+  for (const key of ['kh', 'kl', 'el', 'start', 'drive', 'aHigh', 'wEnd', 'aLow'] as const) WORK[key] = doubles(n);
+  WORK.Y = doubles(n * n);
+  WORK.rhs = doubles(2 * n);
 }
 
 /**
@@ -274,9 +299,3 @@ function smallPeriodicState(m: ModalLadder, duty: number, into?: PeriodicState):
 /** A phase curve whose every field may be set. */
 type Curve = { offset: number; gain: number[]; rate: readonly number[]; length: number };
 
-/** -a in a new array of doubles (whatever the values: every phase curve's gains are one kind of array). */
-function negated(a: number[]): number[] {
-  const out = doubles(a.length);
-  for (let i = 0; i < a.length; i++) out[i] = -a[i];
-  return out;
-}
