@@ -20,9 +20,9 @@ const REL = 1e-6;
  *
  * Method: the engine's modal form at each corner (engine/modal) gives lower bounds of that
  * corner's figures: the ripple and droop maximised over a duty grid (maximizeOverDuty.ts, from
- * rippleAt and modalAverageOutput) and the settling lower bound (settlingLowerBound, Infinity when the output never
- * settles); a bound beyond its limit by more than ten search-versus-check rounding allowances
- * proves the miss. Designs with a follower are admitted unscreened (the bound takes follower-free
+ * rippleAt and modalAverageOutput) and the settling lower bound (settlingLowerBound, Infinity
+ * when the output never settles); a bound beyond its limit by more than ten search-versus-check
+ * rounding allowances proves the miss. Designs with a follower are admitted unscreened (the bound takes follower-free
  * ladders).
  *
  * Syntax: cornerScreen(corners)(problem, r, c)

@@ -78,8 +78,8 @@ export const ROBUST_SAMPLES_CAP = 2000;
  * nominal search (designSearch) for a list 4 times longer (4N, 16N, ... up to `cap`; 2N, 8N, ...
  * behind the corner screen below, which leaves few designs the check fails: the first ten listed
  * all passed on each of six projects tried, and each design the search verifies costs an exact
- * evaluation and a screen) until N robust designs are found or the list is exhausted; the first N robust ones of the ranked list
- * are then exactly the robust optimum within the scanned prefix. Checks are memoized across
+ * evaluation and a screen) until N robust designs are found or the list is exhausted; the first
+ * N robust ones of the ranked list are then exactly the robust optimum within the scanned prefix. Checks are memoized across
  * rounds. In worst-case mode the nominal search first screens out designs that a corner of the box
  * already takes beyond a limit (cornerScreen.ts, with the checks' `corners`): the check would fail
  * them, so the robust answer is the same, from a far shorter list (`nominalRank` then counts the

@@ -84,10 +84,11 @@ export function brentMaximize(f: (x: number) => number, a: number, b: number, xt
  * runs two such searches per sample).
  *
  * Method: Brent's localmin (brentMaximize) with its state set from the bracket: x the best point,
- * w and v the ends, and the last two steps taken as the bracket's width and half of it, so that
- * the first two steps may be parabolic (Brent 1973, ch. 5: any state with a <= x <= b and
- * f(x) <= f(w) <= f(v) for the minimised function keeps the method's guarantees). The bracketing
- * triple is the input of Press et al.'s `brent` ("Numerical Recipes", 3rd ed., 2007, section 10.3).
+ * w the better end and v the other, and the last two steps taken as the bracket's width and half
+ * of it, so that the first two steps may be parabolic. The state keeps localmin's invariants
+ * (Brent 1973, ch. 5: a <= x, w, v <= b, and g(x) <= g(w) <= g(v) for the minimised g = -f), and
+ * the loop, its steps and its stopping rule are brentMaximize's. A bracketing triple is also the
+ * input of Press et al.'s `brent` ("Numerical Recipes", 3rd ed., 2007, section 10.3).
  *
  * Syntax: brentMaximizeBracketed(f, a, x, b, fa, fx, fb[, xtol])
  * Example: brentMaximizeBracketed((x) => -(x - 1) ** 2, 0, 1.5, 3, -1, -0.25, -4).x  // 1
