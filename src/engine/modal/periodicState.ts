@@ -133,37 +133,13 @@ export function periodicStateAnyOrder(m: ModalLadder, duty: number, into?: Perio
   }
   const meanOffset = integral / period;
   const yStart = duty > 0.5 ? m.outHigh - fromHigh : m.outLow + fromLow;
-  const out: PeriodicState = into ?? {
-    duty: 0.5,
-    t1: 0.5,
-    t2: 0.5,
-    start: doubles(n),
-    yStart: 0.5,
-    meanOffset: 0.5,
-    average: 0.5,
-    high: { offset: 0.5, gain: doubles(n), rate: hi.rate, length: 0.5 },
-    low: { offset: 0.5, gain: doubles(n), rate: lo.rate, length: 0.5 },
-  };
-  const high = out.high as Curve;
-  const low = out.low as Curve;
-  out.duty = duty;
-  out.t1 = t1;
-  out.t2 = t2;
+  const out = into ?? blankState(n, m);
   for (let i = 0; i < n; i++) {
     out.start[i] = start[i];
-    high.gain[i] = -aHigh[i];
-    low.gain[i] = -aLow[i];
+    out.high.gain[i] = -aHigh[i];
+    out.low.gain[i] = -aLow[i];
   }
-  out.yStart = yStart;
-  out.meanOffset = meanOffset;
-  out.average = yStart + meanOffset;
-  high.offset = 0;
-  high.rate = hi.rate;
-  high.length = t1;
-  low.offset = yEnd;
-  low.rate = lo.rate;
-  low.length = t2;
-  return out;
+  return finishState(out, m, duty, t1, t2, yStart, meanOffset, yEnd);
 }
 
 /** Work arrays of periodicStateAnyOrder (module scratch: read before the next call). */
@@ -259,39 +235,48 @@ function smallPeriodicState(m: ModalLadder, duty: number, into?: PeriodicState):
   }
   const meanOffset = integral / period;
   const yStart = duty > 0.5 ? m.outHigh - fromHigh : m.outLow + fromLow;
-  // A fresh state is made in the shape of a written-into one (doubles throughout), then filled alike.
-  const out: PeriodicState = into ?? {
+  const out = into ?? blankState(two ? 2 : 1, m);
+  out.start[0] = u0;
+  out.high.gain[0] = -aHigh0;
+  out.low.gain[0] = -aLow0;
+  if (two) {
+    out.start[1] = u1;
+    out.high.gain[1] = -aHigh1;
+    out.low.gain[1] = -aLow1;
+  }
+  return finishState(out, m, duty, t1, t2, yStart, meanOffset, yEnd);
+}
+
+/** A fresh state of n stages in the shape of a written-into one (doubles throughout), to be filled alike. */
+function blankState(n: number, m: ModalLadder): PeriodicState {
+  return {
     duty: 0.5,
     t1: 0.5,
     t2: 0.5,
-    start: two ? [0.5, 0.5] : [0.5],
+    start: doubles(n),
     yStart: 0.5,
     meanOffset: 0.5,
     average: 0.5,
-    high: { offset: 0.5, gain: two ? [0.5, 0.5] : [0.5], rate: hi.rate, length: 0.5 },
-    low: { offset: 0.5, gain: two ? [0.5, 0.5] : [0.5], rate: lo.rate, length: 0.5 },
+    high: { offset: 0.5, gain: doubles(n), rate: m.hi.rate, length: 0.5 },
+    low: { offset: 0.5, gain: doubles(n), rate: m.lo.rate, length: 0.5 },
   };
+}
+
+/** The scalar fields and the phase curves' rates, offsets and lengths of a state (the arrays are the caller's). */
+function finishState(out: PeriodicState, m: ModalLadder, duty: number, t1: number, t2: number, yStart: number, meanOffset: number, yEnd: number): PeriodicState {
   const high = out.high as Curve;
   const low = out.low as Curve;
   out.duty = duty;
   out.t1 = t1;
   out.t2 = t2;
-  out.start[0] = u0;
-  high.gain[0] = -aHigh0;
-  low.gain[0] = -aLow0;
-  if (two) {
-    out.start[1] = u1;
-    high.gain[1] = -aHigh1;
-    low.gain[1] = -aLow1;
-  }
   out.yStart = yStart;
   out.meanOffset = meanOffset;
   out.average = yStart + meanOffset;
   high.offset = 0;
-  high.rate = hi.rate;
+  high.rate = m.hi.rate;
   high.length = t1;
   low.offset = yEnd;
-  low.rate = lo.rate;
+  low.rate = m.lo.rate;
   low.length = t2;
   return out;
 }
