@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { eigs } from 'mathjs';
-import { symmetricEigen } from '../../src/numeric/symmetricEigen.js';
+import { symmetricEigen, symmetricEigenJacobi } from '../../src/numeric/symmetricEigen.js';
 
 /** A random symmetric matrix of order n from n (n + 1) / 2 free entries. */
 const symmetric = (n: number) =>
@@ -91,5 +91,25 @@ describe('symmetricEigen (cyclic Jacobi, Golub & Van Loan 8.5)', () => {
       expect(Math.abs((small * large) / det - 1)).toBeLessThan(1e-13);
       if (n === 3) expect(values[1]).toBeCloseTo(5, 12);
     }
+  });
+  it('order 3 on scalars gives the general loops\' digits exactly (fast-check, with and without vectors; ladder-like spreads too)', () => {
+    // the scalar path is the general code written out: every number must agree bit for bit
+    const ladderLike = fc.tuple(fc.double({ min: 0, max: 8, noNaN: true }), fc.double({ min: 0, max: 8, noNaN: true }), fc.double({ min: 0, max: 8, noNaN: true }), fc.double({ min: 0, max: 0.95, noNaN: true }), fc.double({ min: 0, max: 0.95, noNaN: true })).map(([x, y, z, u, w]) => {
+      const a = -(10 ** x);
+      const b = -(10 ** y);
+      const c = -(10 ** z);
+      const o1 = Math.sqrt(a * b) * u;
+      const o2 = Math.sqrt(b * c) * w;
+      return [a, o1, 0, o1, b, o2, 0, o2, c];
+    });
+    fc.assert(
+      fc.property(fc.oneof(symmetric(3), ladderLike), (a) => {
+        const got = symmetricEigen(a, 3, { vectors: true });
+        const want = symmetricEigenJacobi(a, 3, true);
+        const plain = symmetricEigen(a, 3).values;
+        return got.values.every((v, i) => Object.is(v, want.values[i]) && Object.is(plain[i], v)) && got.vectors.every((v, i) => Object.is(v, want.vectors![i]));
+      }),
+      { numRuns: 2000, seed: 31 },
+    );
   });
 });
