@@ -167,16 +167,16 @@ function twoNode(g1: number, g2: number, gL: number, c1: number, c2: number): Fl
 /** Scratch for cubicOfThree (read at once by its callers). */
 const cubic = new Float64Array(3);
 
-/** [b1, b2, b3] of the time constants' cubic tau^3 - b1 tau^2 + b2 tau - b3 (slowestOfThree). */
+/**
+ * [b1, b2, b3] of the time constants' cubic tau^3 - b1 tau^2 + b2 tau - b3 (slowestOfThree): E2 / E3,
+ * E1 / E3 and 1 / E3 with numerator and denominator multiplied by c1 c2 c3, so one division
+ * (every term stays a sum of positive products: no cancellation).
+ */
 function cubicOfThree(g1: number, g2: number, g3: number, gL: number, c1: number, c2: number, c3: number): Float64Array {
-  const a1 = (g1 + g2) / c1;
-  const a2 = (g2 + g3) / c2;
-  const a3 = (g3 + gL) / c3;
-  const e1 = a1 + a2 + a3;
-  const e2 = (g1 * g2 + g1 * g3 + g2 * g3) / (c1 * c2) + ((g1 + g2) * (g3 + gL)) / (c1 * c3) + (g2 * g3 + g2 * gL + g3 * gL) / (c2 * c3);
-  const e3 = (g1 * g2 * g3 + gL * (g1 * g2 + g1 * g3 + g2 * g3)) / (c1 * c2 * c3);
-  cubic[0] = e2 / e3;
-  cubic[1] = e1 / e3;
-  cubic[2] = 1 / e3;
+  const pairs = g1 * g2 + g1 * g3 + g2 * g3;
+  const q = 1 / (g1 * g2 * g3 + gL * pairs);
+  cubic[0] = (pairs * c3 + (g1 + g2) * (g3 + gL) * c2 + (g2 * g3 + g2 * gL + g3 * gL) * c1) * q;
+  cubic[1] = ((g1 + g2) * c2 * c3 + (g2 + g3) * c1 * c3 + (g3 + gL) * c1 * c2) * q;
+  cubic[2] = c1 * c2 * c3 * q;
   return cubic;
 }
