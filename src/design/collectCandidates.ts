@@ -12,6 +12,8 @@ import { slowestTimeConstant, twoSlowestTimeConstants } from './slowestTimeConst
 
 /** Relative allowance between the fast model and the engine (both exact; rounding differs). */
 export const REL = 1e-6;
+/** Share of a walk's progress (onTuple) that listing the resistor tuples stands for. */
+const LIST_SHARE = 0.1;
 /** Absolute allowance on times, s. */
 const ABS_T = 1e-12;
 /**
@@ -145,6 +147,10 @@ function paretoThreshold(pareto: ParetoState, ripple: number): number {
  * modal form of each candidate (modalLadderOf): steady states from steadySwing (scalar code for one
  * and two stages), periodicState for settling.
  *
+ * `onTuple(done, total)` reports progress as the share done / total: building the list of
+ * resistor tuples counts for its first tenth (a three-stage E96 space has 17 million tuples and
+ * takes seconds to list), each tuple walked for its part of the rest.
+ *
  * Syntax: collectCandidates(problem, stages, state[, onTuple])
  * Example: collectCandidates(problem, 2, newCollectState(problem, 10)); state.entries.length
  */
@@ -245,6 +251,14 @@ export function collectCandidates(
   const keyPlan = scratchFloorPlan();
   const total = nR ** stages;
   for (let count = 0; count < total; count++) {
+    if ((count & 0xffff) === 0xffff) {
+      onTuple?.((LIST_SHARE * (count + 1)) / total, 1);
+      // Out of time (--max-time) while still listing: the walk below then stops at once (cut).
+      if (state.deadline !== undefined && performance.now() > state.deadline) {
+        state.cut = true;
+        break;
+      }
+    }
     let rest = count;
     for (let k = stages - 1; k >= 0; k--) {
       idx[k] = rest % nR;
@@ -280,7 +294,8 @@ export function collectCandidates(
     bounds.push(tb);
     keys.push(key);
   }
-  const order = keys.map((_, i) => i).sort((a, b) => keys[a] - keys[b]);
+  // (nothing to walk when the listing ran out of time)
+  const order = state.cut ? [] : keys.map((_, i) => i).sort((a, b) => keys[a] - keys[b]);
 
   // Pareto mode: each ripple limit with the problem's other limits (per-limit tuple bounds).
   const paretoLimits = state.pareto ? state.pareto.limits.map((ripple) => ({ ...limits, ripple })) : [];
@@ -833,10 +848,10 @@ export function collectCandidates(
       while (deferred.length > 0) finishColumn(deferred.pop()!);
       for (const col of columns) finishColumn(col);
     }
-    onTuple?.(k + 1, order.length);
+    onTuple?.(LIST_SHARE + ((1 - LIST_SHARE) * (k + 1)) / order.length, 1);
   }
   while (deferred.length > 0) finishColumn(deferred.pop()!);
-  onTuple?.(order.length, order.length);
+  onTuple?.(1, 1);
 }
 
 /** Identity of a candidate across collection rounds. */
