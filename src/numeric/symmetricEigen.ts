@@ -118,7 +118,8 @@ const V3 = new Float64Array(9);
  * (0, 2), (1, 2) per sweep), the same skip and drop tests and the same arithmetic, so the same
  * digits (test/numeric/symmetricEigen.test.ts holds it to the general loops), without their index
  * arithmetic and work arrays. Three-stage ladders build their modal form with it, twice per
- * candidate of a three-stage search.
+ * candidate of a three-stage search. The three rotation blocks below share their shape on purpose:
+ * each is one pair written out (a shared helper for them measured slower).
  */
 function symmetricEigen3(a: ArrayLike<number>, withVectors: boolean): { values: number[]; vectors?: number[] } {
   // the matrix (d: diagonal, o: the upper off-diagonal entries) and the rotations (v, row-major)
