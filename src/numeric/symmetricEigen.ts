@@ -119,7 +119,7 @@ const V3 = new Float64Array(9);
  * digits (test/numeric/symmetricEigen.test.ts holds it to the general loops), without their index
  * arithmetic and work arrays. Three-stage ladders build their modal form with it, twice per
  * candidate of a three-stage search. The three rotation blocks below share their shape on purpose:
- * each is one pair written out (a shared helper for them measured slower).
+ * each is one pair written out, its indices fixed (that is what the scalar form buys).
  */
 function symmetricEigen3(a: ArrayLike<number>, withVectors: boolean): { values: number[]; vectors?: number[] } {
   // the matrix (d: diagonal, o: the upper off-diagonal entries) and the rotations (v, row-major)
