@@ -12,7 +12,7 @@ import { slowestTimeConstant, twoSlowestTimeConstants } from './slowestTimeConst
 
 /** Relative allowance between the fast model and the engine (both exact; rounding differs). */
 export const REL = 1e-6;
-/** Share of a walk's progress (onTuple) that listing the resistor tuples stands for. */
+/** Share of a walk's progress (onProgress) that listing the resistor tuples stands for. */
 const LIST_SHARE = 0.1;
 /** Absolute allowance on times, s. */
 const ABS_T = 1e-12;
@@ -147,18 +147,18 @@ function paretoThreshold(pareto: ParetoState, ripple: number): number {
  * modal form of each candidate (modalLadderOf): steady states from steadySwing (scalar code for one
  * and two stages), periodicState for settling.
  *
- * `onTuple(done, total)` reports progress as the share done / total: building the list of
- * resistor tuples counts for its first tenth (a three-stage E96 space has 17 million tuples and
- * takes seconds to list), each tuple walked for its part of the rest.
+ * `onProgress(fraction)` reports the share done: listing the resistor tuples counts for its first
+ * tenth (a three-stage E96 space has 17 million tuples and takes seconds to list), each tuple
+ * walked for its part of the rest.
  *
- * Syntax: collectCandidates(problem, stages, state[, onTuple])
+ * Syntax: collectCandidates(problem, stages, state[, onProgress])
  * Example: collectCandidates(problem, 2, newCollectState(problem, 10)); state.entries.length
  */
 export function collectCandidates(
   problem: DesignProblem,
   stages: number,
   state: CollectState,
-  onTuple?: (done: number, total: number) => void,
+  onProgress?: (fraction: number) => void,
 ): void {
   const { rValues: R, cValues: C, searchLimits: limits, project, circuit } = problem;
   const { pwm } = project;
@@ -249,12 +249,14 @@ export function collectCandidates(
   const idx = new Array<number>(stages).fill(0);
   const scratch = new Array<number>(stages).fill(0);
   const keyPlan = scratchFloorPlan();
+  // --max-time: past the deadline (the listing and the walk both ask)
+  const outOfTime = () => state.deadline !== undefined && performance.now() > state.deadline;
   const total = nR ** stages;
   for (let count = 0; count < total; count++) {
     if ((count & 0xffff) === 0xffff) {
-      onTuple?.((LIST_SHARE * (count + 1)) / total, 1);
-      // Out of time (--max-time) while still listing: the walk below then stops at once (cut).
-      if (state.deadline !== undefined && performance.now() > state.deadline) {
+      onProgress?.((LIST_SHARE * (count + 1)) / total);
+      // Out of time while still listing: the walk below then stops at once (cut).
+      if (outOfTime()) {
         state.cut = true;
         break;
       }
@@ -466,7 +468,7 @@ export function collectCandidates(
   const overBudget = () => {
     if (state.cut) return true;
     // The clock is read every 256 evaluations: a few microseconds late at most.
-    const late = state.deadline !== undefined && (state.evaluated & 255) === 0 && performance.now() > state.deadline;
+    const late = (state.evaluated & 255) === 0 && outOfTime();
     if (!late && (state.budget === undefined || state.evaluated <= state.budget)) return false;
     state.cut = true;
     return true;
@@ -848,10 +850,10 @@ export function collectCandidates(
       while (deferred.length > 0) finishColumn(deferred.pop()!);
       for (const col of columns) finishColumn(col);
     }
-    onTuple?.(LIST_SHARE + ((1 - LIST_SHARE) * (k + 1)) / order.length, 1);
+    onProgress?.(LIST_SHARE + ((1 - LIST_SHARE) * (k + 1)) / order.length);
   }
   while (deferred.length > 0) finishColumn(deferred.pop()!);
-  onTuple?.(1, 1);
+  onProgress?.(1);
 }
 
 /** Identity of a candidate across collection rounds. */

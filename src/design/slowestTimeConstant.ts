@@ -5,9 +5,10 @@ import { symmetricEigen } from '../numeric/symmetricEigen.js';
  * optional load resistance and a load capacitance at the last node (averaged model, one driver).
  *
  * Method: tau_max = 1 / lambda_min of S = C^(-1/2) G C^(-1/2) (nodal conductance matrix G,
- * capacitances C); closed form for one and two stages (lambda_min = det / lambda_max, the
- * determinant written without cancellation), the largest root of the time constants' cubic for
- * three (slowestOfThree below), cyclic Jacobi beyond (numeric/symmetricEigen.ts).
+ * capacitances C), the first of twoSlowestTimeConstants below: closed form for one and two stages
+ * (lambda_min = det / lambda_max, the determinant written without cancellation), the largest root
+ * of the time constants' cubic for three (slowestOfThree), cyclic Jacobi beyond
+ * (numeric/symmetricEigen.ts).
  * By the Rayleigh quotient tau_max = max_v (v^T C v) / (v^T G v), it never falls when any C or
  * any R grows (common practice; Courant-Fischer, Golub & Van Loan, Theorem 8.1.2), which the search
  * relies on for its windows.
@@ -22,20 +23,12 @@ export function slowestTimeConstant(
   loadResistance: number | null,
   loadCapacitance: number,
 ): number {
-  const n = r.length;
-  const gL = loadResistance === null ? 0 : 1 / loadResistance;
-  const g1 = 1 / (r[0] + driver);
-  if (n === 1) return (c[0] + loadCapacitance) / (g1 + gL);
-  if (n === 2) {
-    const m = twoNode(g1, 1 / r[1], gL, c[0], c[1] + loadCapacitance);
-    return m[0] / m[1];
-  }
-  if (n === 3) {
-    const k = cubicOfThree(g1, 1 / r[1], 1 / r[2], gL, c[0], c[1], c[2] + loadCapacitance);
-    return slowestOfThree(k[0], k[1], k[2]);
-  }
-  return 1 / symmetricEigen(scaledConductance(r, c, g1, gL, loadCapacitance), n).values[0];
+  // the first of the two (the same expressions: one division or root more for the second)
+  return twoSlowestTimeConstants(r, c, driver, loadResistance, loadCapacitance, SLOWEST)[0];
 }
+
+/** Scratch for slowestTimeConstant (read at once). */
+const SLOWEST = [0, 0];
 
 /** S = C^(-1/2) G C^(-1/2) of the ladder (row-major), whose eigenvalues are 1 / the time constants. */
 function scaledConductance(r: ArrayLike<number>, c: ArrayLike<number>, g1: number, gL: number, loadCapacitance: number): Float64Array {
@@ -64,8 +57,10 @@ function scaledConductance(r: ArrayLike<number>, c: ArrayLike<number>, g1: numbe
  * fall when any C or any R grows (Courant-Fischer min-max for the pencil (G, C), Golub & Van Loan,
  * Theorem 8.1.2; common practice).
  *
- * Method: as slowestTimeConstant; two stages in closed form (tau_b = 1 / lambda_max), three from
- * the cubic (tau_b the larger root of the quadratic left after dividing out tau_a), Jacobi beyond.
+ * Method: one stage tau = (C1 + C_load) / (g1 + g_load); two stages in closed form (tau_a = lambda_max
+ * / det, tau_b = 1 / lambda_max: twoNode); three from the cubic (tau_a its largest root by
+ * slowestOfThree, tau_b the larger root of the quadratic left after dividing out tau_a); Jacobi
+ * beyond.
  *
  * Syntax: twoSlowestTimeConstants(r, c, driver, loadResistance, loadCapacitance, out)
  * Example: twoSlowestTimeConstants([1e3, 1e3], [1e-6, 1e-6], 0, null, 0, [0, 0])   // [2.618e-3, 3.82e-4]

@@ -76,9 +76,7 @@ export function solveProblem(
   const cap = state.theta; // the settling-time limit (or Infinity) before any lowering
   const collectAll = () => {
     stageCounts.forEach((n, i) =>
-      collectCandidates(problem, n, state, (done, total) =>
-        onProgress?.((i + done / Math.max(1, total)) / stageCounts.length, { stages: n, best: state.best[0] ?? null }),
-      ),
+      collectCandidates(problem, n, state, (f) => onProgress?.((i + f) / stageCounts.length, { stages: n, best: state.best[0] ?? null })),
     );
   };
   collectAll();

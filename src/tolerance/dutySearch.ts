@@ -47,7 +47,7 @@ export function gridPeaks(f: (d: number) => number, a: number, b: number): numbe
  * ends) f is also checked at the three inner points of a 4-cell grid, and the full search runs if
  * one of them beats both ends; hints = null always runs the full search. When an end wins but f rises just inside it,
  * that end's grid cell is searched by Brent too (a peak just inside the range). `xtol` is Brent's
- * absolute tolerance (default 1e-9); near a smooth maximum the value's error is of order f'' xtol^2.
+ * absolute tolerance (default DUTY_XTOL); near a smooth maximum the value's error is of order f'' xtol^2.
  * A caller that already holds f(a) and f(b) (exactly the values f gives) passes them as `ends`:
  * the same search, two evaluations fewer.
  *
@@ -59,7 +59,7 @@ export function maximizeFromHints(
   a: number,
   b: number,
   hints: readonly number[] | null,
-  xtol = 1e-9,
+  xtol = DUTY_XTOL,
   ends?: { readonly fa: number; readonly fb: number },
 ): Maximum {
   if (!(b > a)) return { x: a, value: f(a) };

@@ -143,7 +143,7 @@ function engineMetrics(ladder: Ladder, plan: MetricPlan): LadderMetrics {
 }
 
 function modalWorstRipple(m: ModalLadder, plan: MetricPlan): { duty: number; ripple: number } {
-  const best = maximizeFromHints((d) => rippleAt(m, d), plan.dutyMin, plan.dutyMax, plan.rippleHints, DUTY_XTOL);
+  const best = maximizeFromHints((d) => rippleAt(m, d), plan.dutyMin, plan.dutyMax, plan.rippleHints);
   return { duty: best.x, ripple: best.value };
 }
 

@@ -1,7 +1,7 @@
 import type { Network } from '../circuit/network.js';
 import { codeParts, networkDcTransfer, networkRipple, networkSettling, networkWorstRipple, type ExtremumSearch } from '../engine/index.js';
 import { maximizeOverCodes } from './codeSearch.js';
-import { DUTY_XTOL, maximizeFromHints } from './dutySearch.js';
+import { maximizeFromHints } from './dutySearch.js';
 import type { MetricPlan } from './metricPlan.js';
 import type { CircuitMetrics } from './metrics.js';
 
@@ -52,11 +52,11 @@ export function networkMetrics(network: Network, plan: MetricPlan, options: Netw
       return maximizeOverCodes((code) => g(code / fine.total), lo, hi, fine.bits, hints, probes).x / fine.total;
     };
   } else {
-    const best = maximizeFromHints((d) => networkRipple(network, d), a, b, plan.rippleHints, DUTY_XTOL);
+    const best = maximizeFromHints((d) => networkRipple(network, d), a, b, plan.rippleHints);
     worstRipple = { duty: best.x, ripple: best.value };
     search = (g, min, max, figure) => {
       if (figure === 'inl' && !plan.inl) return min;
-      return maximizeFromHints(g, min, max, figure === 'droop' ? plan.droopHints : plan.inlHints, DUTY_XTOL).x;
+      return maximizeFromHints(g, min, max, figure === 'droop' ? plan.droopHints : plan.inlHints).x;
     };
   }
   const dc = networkDcTransfer(network, a, b, search);

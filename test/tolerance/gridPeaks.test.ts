@@ -39,7 +39,7 @@ describe('maximizeFromHints with the end values given', () => {
           const a = 0.05;
           const b = 0.95;
           const h = none ? null : hints;
-          expect(maximizeFromHints(f, a, b, h, 1e-9, { fa: f(a), fb: f(b) })).toEqual(maximizeFromHints(f, a, b, h));
+          expect(maximizeFromHints(f, a, b, h, 1e-9, { fa: f(a), fb: f(b) })).toEqual(maximizeFromHints(f, a, b, h, 1e-9));
         },
       ),
       { numRuns: 300, seed: 5 },
