@@ -163,7 +163,6 @@ export function collectCandidates(
   const { rValues: R, cValues: C, searchLimits: limits, project, circuit } = problem;
   const { pwm } = project;
   const lti = pwm.driver.high === pwm.driver.low;
-  const span = Math.abs(pwm.high - pwm.low);
   const nR = R.length;
   const nC = C.length;
   // The load as the ladder sees it: none behind a follower (designProblem.ts, circuit).
@@ -172,11 +171,6 @@ export function collectCandidates(
   const dNear = Math.min(problem.dutyMax, Math.max(problem.dutyMin, 0.5));
   const toDuties = [...new Set(problem.steps.map((s) => s[1]))];
   const checkTo = limits.ripple === undefined || problem.band * 2 < limits.ripple;
-  // Droop floor from the resistors alone (see above).
-  const droopFloorApplies = pwm.driver.high >= pwm.driver.low && pwm.low >= 0 && loadR !== null && limits.droop !== undefined;
-  // Gain floor from the resistors alone (gainFloor.ts): exact for equal drivers, a proven bound otherwise.
-  const gainFloorApplies = loadR !== null && limits.gain !== undefined;
-  const idealTop = Math.max(pwm.low + problem.dutyMin * (pwm.high - pwm.low), pwm.low + problem.dutyMax * (pwm.high - pwm.low));
   // Unequal drivers with an INL limit: a floor on the INL from the resistors and the first two
   // capacitors (inlFloor.ts), per resistor tuple; a point it rules out is one the fast INL check
   // (dcTransferMiss.ts, same duties, same allowance) rules out too, without a steady state.
@@ -235,67 +229,13 @@ export function collectCandidates(
    * ripple's) and both at least their values at the smallest capacitors; with a ceiling, only sure
    * to lie on the right side of it (settlingFloor).
    */
-  const tupleKey = (rs: number[], tb: TupleBounds, ceiling = Infinity): number => {
-    if (budgeted) return Math.max(tb.tauMin, slowestTimeConstant(rs, minC, tb.driver, loadR, loadC)) * tb.factor - tb.slack;
-    twoSlowestTimeConstants(rs, minC, tb.driver, loadR, loadC, taus);
-    return settlingFloor(tb.floor, Math.max(tb.tauMin, taus[0]), taus[1], ceiling);
-  };
-
-  // Resistor tuples that pass the pin current and (time-invariant) droop limits, with bounds.
-  const tuples: number[][] = [];
-  const bounds: TupleBounds[] = [];
-  const keys: number[] = [];
   const minC = new Array<number>(stages).fill(C[0]);
-  const idx = new Array<number>(stages).fill(0);
-  const scratch = new Array<number>(stages).fill(0);
-  const keyPlan = scratchFloorPlan();
-  // --max-time: past the deadline (the listing and the walk both ask)
-  const outOfTime = () => state.deadline !== undefined && performance.now() > state.deadline;
-  const total = nR ** stages;
-  for (let count = 0; count < total; count++) {
-    if ((count & 0xffff) === 0xffff) {
-      onProgress?.((LIST_SHARE * (count + 1)) / total);
-      // Out of time while still listing: the walk below then stops at once (cut).
-      if (outOfTime()) {
-        state.cut = true;
-        break;
-      }
-    }
-    let rest = count;
-    for (let k = stages - 1; k >= 0; k--) {
-      idx[k] = rest % nR;
-      rest = Math.floor(rest / nR);
-    }
-    for (let k = 0; k < stages; k++) scratch[k] = R[idx[k]];
-    const rs = scratch;
-    if (limits.pinCurrent !== undefined && exceeds(span / (Math.min(pwm.driver.high, pwm.driver.low) + rs[0]), limits.pinCurrent)) continue;
-    if (droopFloorApplies) {
-      let series = pwm.driver.low;
-      for (const r of rs) series += r;
-      if (exceeds((idealTop * series) / (loadR! + series), limits.droop)) continue;
-    }
-    if (gainFloorApplies && exceeds(gainFloor(circuit, rs, problem.dutyMin, problem.dutyMax), limits.gain)) continue;
-    // Unequal drivers: the droop floor at the smallest capacitors holds for every capacitor choice.
-    let droopPlan: DroopFloorPlan | null | undefined;
-    if (droopApplies) {
-      droopPlan = droopFloorPlan(problem, rs);
-      if (droopPlan !== null && exceeds(droopFloor(droopPlan, minC), limits.droop)) continue;
-    }
-    // The floor plan in scratch for the key, and a tuple's own only when it is walked (walk):
-    // most tuples of a wide space are never walked, and a plan for each kept one doubled the
-    // collector's time in a three-stage E24 search (measured). Budgeted walks use no plan.
-    const tb = tupleBounds(problem, rs, limits, budgeted ? NO_FLOOR : settlingFloorPlan(problem, rs, limits, keyPlan));
-    const key = tupleKey(rs, tb);
-    // Beyond the threshold already: the walk below would stop before it (theta only falls in a round).
-    if (key > state.theta) continue;
-    const kept = rs.slice();
-    tb.floor = NO_FLOOR;
-    // (the walk's droop check reads the same plan: made once per tuple)
-    if (droopPlan !== undefined) droopPlans.set(kept, droopPlan);
-    tuples.push(kept);
-    bounds.push(tb);
-    keys.push(key);
-  }
+  const tupleKey = (rs: number[], tb: TupleBounds, ceiling: number): number => tupleFloor(problem, rs, minC, tb, budgeted, ceiling);
+
+  // Resistor tuples that pass the resistor-only checks, with bounds (listTuples); --max-time:
+  // past the deadline (the listing and the walk both ask).
+  const outOfTime = () => timeIsUp(state);
+  const { tuples, bounds, keys } = listTuples(problem, stages, state, budgeted, droopApplies ? droopPlans : null, onProgress);
   // (nothing to walk when the listing ran out of time)
   const order = state.cut ? [] : keys.map((_, i) => i).sort((a, b) => keys[a] - keys[b]);
 
@@ -854,6 +794,122 @@ export function collectCandidates(
   }
   while (deferred.length > 0) finishColumn(deferred.pop()!);
   onProgress?.(1);
+}
+
+/** The walk's deadline (--max-time) has passed. */
+function timeIsUp(state: CollectState): boolean {
+  return state.deadline !== undefined && performance.now() > state.deadline;
+}
+
+/** Time constants in scratch (tupleFloor). */
+const TAUS = [0, 0];
+
+/**
+ * Lower bound on the settling time of every capacitor choice of resistor tuple `rs` (minC: the
+ * smallest capacitor of the series at every stage) that meets
+ * tb's ripple limit: the proven floor of settlingFloor.ts with the slowest time constant at least
+ * tb.tauMin (the ripple's) and both at least their values at the smallest capacitors; with a
+ * ceiling, only sure to lie on the right side of it. Budgeted walks keep the older tau_slow *
+ * factor - slack (settlingBounds.ts).
+ *
+ * Syntax: tupleFloor(problem, rs, minC, tb, budgeted[, ceiling])
+ * Example: tupleFloor(problem, [470, 16e3], [1e-10, 1e-10], tupleBounds(problem, [470, 16e3]), false)   // s
+ */
+function tupleFloor(problem: DesignProblem, rs: number[], minC: number[], tb: TupleBounds, budgeted: boolean, ceiling = Infinity): number {
+  const { circuit } = problem;
+  if (budgeted) return Math.max(tb.tauMin, slowestTimeConstant(rs, minC, tb.driver, circuit.loadResistance, circuit.loadCapacitance)) * tb.factor - tb.slack;
+  twoSlowestTimeConstants(rs, minC, tb.driver, circuit.loadResistance, circuit.loadCapacitance, TAUS);
+  return settlingFloor(tb.floor, Math.max(tb.tauMin, TAUS[0]), TAUS[1], ceiling);
+}
+
+/** Resistor tuples to walk, with their bounds and keys (tupleFloor), in listing order. */
+interface TupleList {
+  tuples: number[][];
+  bounds: TupleBounds[];
+  keys: number[];
+}
+
+/**
+ * Every `stages`-resistor tuple of the problem's series that passes the resistor-only checks of
+ * collectCandidates (pin current, droop and gain floors from the resistors, with unequal drivers
+ * the droop floor at the smallest capacitors) and whose key (tupleFloor) is at most state.theta.
+ * `droopPlans` (unequal drivers with a droop limit) receives each kept tuple's droop floor plan.
+ * A function of its own, not a loop inside collectCandidates: V8 then compiles this loop alone
+ * when it turns hot, not the whole walk with it (measured: the walk's function was compiled three
+ * times in a default design run, 55 to 81 ms each on the compiler thread).
+ *
+ * Syntax: listTuples(problem, stages, state, budgeted, droopPlans[, onProgress])
+ * Example: listTuples(problem, 2, newCollectState(problem, 10), false, null).tuples.length
+ */
+function listTuples(
+  problem: DesignProblem,
+  stages: number,
+  state: CollectState,
+  budgeted: boolean,
+  droopPlans: WeakMap<number[], DroopFloorPlan | null> | null,
+  onProgress?: (fraction: number) => void,
+): TupleList {
+  const { rValues: R, searchLimits: limits, project, circuit } = problem;
+  const { pwm } = project;
+  const span = Math.abs(pwm.high - pwm.low);
+  const nR = R.length;
+  const loadR = circuit.loadResistance;
+  const droopFloorApplies = pwm.driver.high >= pwm.driver.low && pwm.low >= 0 && loadR !== null && limits.droop !== undefined;
+  const gainFloorApplies = loadR !== null && limits.gain !== undefined;
+  const idealTop = Math.max(pwm.low + problem.dutyMin * (pwm.high - pwm.low), pwm.low + problem.dutyMax * (pwm.high - pwm.low));
+  const minC = new Array<number>(stages).fill(problem.cValues[0]);
+  const tuples: number[][] = [];
+  const bounds: TupleBounds[] = [];
+  const keys: number[] = [];
+  const idx = new Array<number>(stages).fill(0);
+  const scratch = new Array<number>(stages).fill(0);
+  const keyPlan = scratchFloorPlan();
+  const total = nR ** stages;
+  for (let count = 0; count < total; count++) {
+    if ((count & 0xffff) === 0xffff) {
+      onProgress?.((LIST_SHARE * (count + 1)) / total);
+      // Out of time while still listing: the walk then stops at once (cut).
+      if (timeIsUp(state)) {
+        state.cut = true;
+        break;
+      }
+    }
+    let rest = count;
+    for (let k = stages - 1; k >= 0; k--) {
+      idx[k] = rest % nR;
+      rest = Math.floor(rest / nR);
+    }
+    for (let k = 0; k < stages; k++) scratch[k] = R[idx[k]];
+    const rs = scratch;
+    if (limits.pinCurrent !== undefined && exceeds(span / (Math.min(pwm.driver.high, pwm.driver.low) + rs[0]), limits.pinCurrent)) continue;
+    if (droopFloorApplies) {
+      let series = pwm.driver.low;
+      for (let k = 0; k < stages; k++) series += rs[k];
+      if (exceeds((idealTop * series) / (loadR! + series), limits.droop)) continue;
+    }
+    if (gainFloorApplies && exceeds(gainFloor(circuit, rs, problem.dutyMin, problem.dutyMax), limits.gain)) continue;
+    // Unequal drivers: the droop floor at the smallest capacitors holds for every capacitor choice.
+    let droopPlan: DroopFloorPlan | null | undefined;
+    if (droopPlans !== null) {
+      droopPlan = droopFloorPlan(problem, rs);
+      if (droopPlan !== null && exceeds(droopFloor(droopPlan, minC), limits.droop)) continue;
+    }
+    // The floor plan in scratch for the key, and a tuple's own only when it is walked (walk):
+    // most tuples of a wide space are never walked, and a plan for each kept one doubled the
+    // collector's time in a three-stage E24 search (measured). Budgeted walks use no plan.
+    const tb = tupleBounds(problem, rs, limits, budgeted ? NO_FLOOR : settlingFloorPlan(problem, rs, limits, keyPlan));
+    const key = tupleFloor(problem, rs, minC, tb, budgeted);
+    // Beyond the threshold already: the walk would stop before it (theta only falls in a round).
+    if (key > state.theta) continue;
+    const kept = rs.slice();
+    tb.floor = NO_FLOOR;
+    // (the walk's droop check reads the same plan: made once per tuple)
+    if (droopPlans !== null && droopPlan !== undefined) droopPlans.set(kept, droopPlan);
+    tuples.push(kept);
+    bounds.push(tb);
+    keys.push(key);
+  }
+  return { tuples, bounds, keys };
 }
 
 /** Identity of a candidate across collection rounds. */
