@@ -1,6 +1,7 @@
 import { curveValue, modalAverageOutput, modalLadderOf, periodicState, rippleAt, settlingLowerBound, steadySwing, type ModalLadder, type PeriodicState, type SteadySwing } from '../engine/index.js';
 import type { Admit } from './cornerScreen.js';
 import type { DesignProblem } from './designProblem.js';
+import { designLimits } from './types.js';
 import { dcTransferMiss } from './dcTransferMiss.js';
 import { droopFloor, droopFloorPlan, type DroopFloorPlan } from './droopFloor.js';
 import { gainFloor } from './gainFloor.js';
@@ -240,7 +241,7 @@ export function collectCandidates(
   const order = state.cut ? [] : keys.map((_, i) => i).sort((a, b) => keys[a] - keys[b]);
 
   // Pareto mode: each ripple limit with the problem's other limits (per-limit tuple bounds).
-  const paretoLimits = state.pareto ? state.pareto.limits.map((ripple) => ({ ...limits, ripple })) : [];
+  const paretoLimits = state.pareto ? state.pareto.limits.map((ripple) => designLimits({ ...limits, ripple })) : [];
   // Pareto mode: points already evaluated, by a number made of their value indices (no strings).
   const paretoSeen = new Set<number>();
   // The index of a value of R or C (both ascending, seriesValues) by bisection, cheaper than a Map

@@ -4,7 +4,7 @@ import type { Project } from '../project/types.js';
 import { seriesValues } from '../units/index.js';
 import { DesignInputError } from './designInputError.js';
 import { projectAtResolution } from './projectAtResolution.js';
-import type { DesignLimits } from './types.js';
+import { designLimits, type DesignLimits } from './types.js';
 
 /** One design problem: the project at one resolution, reduced to the numbers the search needs. */
 export interface DesignProblem {
@@ -82,17 +82,24 @@ export function designProblem(project: Project, bits?: number, buffered = false)
   const settling = spec.settling;
   const plan = settlingSteps(at);
   const steps = plan.steps.map(([from, to]): [number, number] => [from, to]);
-  const limits: DesignLimits = {
-    ...(spec.ripple !== undefined && { ripple: spec.ripple }),
-    ...(spec.droop !== undefined && { droop: spec.droop }),
-    ...(spec.inl !== undefined && { inl: spec.inl }),
-    ...(spec.gain !== undefined && { gain: spec.gain }),
-    ...(settling?.time !== undefined && { settlingTime: settling.time }),
-    ...(search.pinCurrent !== undefined && { pinCurrent: search.pinCurrent }),
-  };
+  const limits = designLimits({
+    ripple: spec.ripple,
+    droop: spec.droop,
+    inl: spec.inl,
+    gain: spec.gain,
+    settlingTime: settling?.time,
+    pinCurrent: search.pinCurrent,
+  });
   const margin = search.margin;
-  const searchLimits: DesignLimits = {};
-  for (const key of Object.keys(limits) as Array<keyof DesignLimits>) searchLimits[key] = limits[key]! * (1 - margin);
+  const less = (v: number | undefined) => (v === undefined ? undefined : v * (1 - margin));
+  const searchLimits = designLimits({
+    ripple: less(limits.ripple),
+    droop: less(limits.droop),
+    inl: less(limits.inl),
+    gain: less(limits.gain),
+    settlingTime: less(limits.settlingTime),
+    pinCurrent: less(limits.pinCurrent),
+  });
   const base = {
     period: 1 / pwm.frequency,
     high: pwm.high,
