@@ -612,9 +612,13 @@ export function collectCandidates(
           // The DC floors grow with every capacitor: a larger outer capacitor only raises them.
           if (!budgeted && dcOver(rs, cs)) break;
           if (depth === outer - 1 && !budgeted) {
-            if (i <= dead) continue;
             dead = deadThrough(rs, cs, depth, within);
-            if (i <= dead) continue;
+            // On past the dead slices at once: they hold nothing, and the bounds above, which grow
+            // with the outer capacitor, are asked again at the first slice after them.
+            if (i <= dead) {
+              i = dead;
+              continue;
+            }
           }
           recurse(depth + 1);
         }
@@ -638,15 +642,23 @@ export function collectCandidates(
   const boxAt: number[] = [];
   // The last box: a slice's deadThrough and its staircase (walkLastTwo) ask for the same one, with
   // no candidate kept in between. Thresholds only move when a candidate is kept (state.entries
-  // grows), so the box stands while rs, the test, p, cs[0..p-1] and that count are the same.
+  // grows), so the box stands while rs, the test, p, cs[0..p-1] and that count are the same. And
+  // a box only shrinks as cs[p - 1] grows (the bounds grow with every capacitor, theta only falls):
+  // the last box of the same rs, test, p and cs[0..p-2] at a smaller cs[p - 1] caps the searches
+  // of the next one (the slices of one tuple come in ascending order).
   const lastBox = { rs: null as number[] | null, within: null as ((cs: number[]) => boolean) | null, p: -1, kept: -1, before: [] as number[], box: [0, 0] as [number, number] };
   const boxOf = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean): [number, number] => {
-    if (lastBox.rs === rs && lastBox.within === within && lastBox.p === p && lastBox.kept === state.entries.length) {
+    let caps: [number, number] | null = null;
+    if (lastBox.rs === rs && lastBox.within === within && lastBox.p === p) {
       let same = true;
-      for (let k = 0; k < p && same; k++) same = lastBox.before[k] === cs[k];
-      if (same) return lastBox.box;
+      for (let k = 0; k < p - 1 && same; k++) same = lastBox.before[k] === cs[k];
+      if (same && p > 0 && lastBox.before[p - 1] === cs[p - 1]) {
+        if (lastBox.kept === state.entries.length) return lastBox.box;
+        caps = lastBox.box;
+      } else if (same && p > 0 && lastBox.before[p - 1] < cs[p - 1]) caps = lastBox.box;
+      else if (same && p === 0 && lastBox.kept === state.entries.length) return lastBox.box;
     }
-    const box = boxOfNew(rs, cs, p, within);
+    const box = boxOfNew(rs, cs, p, within, caps === null ? nC : caps[0] + 1, caps === null ? nC : caps[1] + 1);
     lastBox.rs = rs;
     lastBox.within = within;
     lastBox.p = p;
@@ -655,7 +667,8 @@ export function collectCandidates(
     lastBox.box = box;
     return box;
   };
-  const boxOfNew = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean): [number, number] => {
+  /** The box, its first index searched up to topCap and its second up to bCap (those indices known to fail; nC: none known). */
+  const boxOfNew = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean, topCap: number, bCap: number): [number, number] => {
     // (one scratch point: the threshold test and the DC floors keep nothing of it)
     const at = (a: number, b: number) => {
       copyInto(boxAt, cs);
@@ -663,8 +676,12 @@ export function collectCandidates(
       boxAt[p + 1] = C[b];
       return boxAt;
     };
-    const top = Math.min(firstTrue(nC, (i) => !within(at(i, 0))), budgeted ? nC : firstTrue(nC, (i) => dcOver(rs, at(i, 0)))) - 1;
-    const bMax = firstTrue(nC, (b) => !within(at(0, b))) - 1;
+    // Each test only turns true as its index grows (the bounds grow with every capacitor).
+    const beyond = (i: number) => !within(at(i, 0)) || (!budgeted && dcOver(rs, at(i, 0)));
+    const beyondB = (b: number) => !within(at(0, b));
+    // Below a cap (known to fail there) the box moved little since the last one: down from the cap.
+    const top = (topCap < nC ? lastTrueDown(topCap, beyond) : firstTrue(nC, beyond)) - 1;
+    const bMax = (bCap < nC ? lastTrueDown(bCap, beyondB) : firstTrue(nC, beyondB)) - 1;
     return [top, bMax];
   };
 
@@ -683,6 +700,7 @@ export function collectCandidates(
    * by bisection (that point's ripple falls as C_j grows), starting with the last slice of the loop.
    */
   const sliceAt: number[] = [];
+  const lastEnd = { rs: null as number[] | null, within: null as ((cs: number[]) => boolean) | null, q: -1, kept: -1, before: [] as number[], failAt: 0 };
   const deadThrough = (rs: number[], cs: number[], q: number, within: (cs: number[]) => boolean): number => {
     const i = C.indexOf(cs[q]);
     const [top, bMax] = boxOf(rs, cs, q + 1, within);
@@ -699,8 +717,22 @@ export function collectCandidates(
       v[q + 2] = C[bMax];
       return v;
     };
-    // The last slice the loop visits (within theta and the DC floors at the smallest later capacitors).
-    const last = i - 1 + firstTrue(nC - i, (k) => !within(slice(i + k)) || dcOver(rs, slice(i + k)));
+    // The last slice the loop visits (within theta and the DC floors at the smallest later
+    // capacitors). That test only turns false as the slice grows and theta falls: the first slice
+    // that failed it for this tuple, test and cs[0..q-1] before caps the search (the slices come in
+    // ascending order), and stands as it is while no candidate was kept since.
+    let failAt = nC;
+    if (lastEnd.rs === rs && lastEnd.within === within && lastEnd.q === q && sameAs(lastEnd.before, cs.slice(0, q))) {
+      failAt = lastEnd.failAt;
+    }
+    const first = lastEnd.rs === rs && lastEnd.kept === state.entries.length && failAt < nC ? Math.max(i, failAt) : i + firstTrue(Math.max(0, failAt - i), (k) => !within(slice(i + k)) || dcOver(rs, slice(i + k)));
+    lastEnd.rs = rs;
+    lastEnd.within = within;
+    lastEnd.q = q;
+    lastEnd.kept = state.entries.length;
+    lastEnd.before = cs.slice(0, q);
+    lastEnd.failAt = first;
+    const last = first - 1;
     // One check at the last slice with this corner: when it fails, every slice from here on is dead.
     // For the first slice that is the whole tuple's box at once, which rules out most tuples: first.
     if (i === 0 && last > i && !rippleOk(rs, corner(last))) return last;
