@@ -559,7 +559,7 @@ export function collectCandidates(
     }
   };
 
-  const walk = (rs: number[], tb: TupleBounds): Column[] => {
+  const walk = (rs: number[], tb: TupleBounds, key: number): Column[] => {
     if (!budgeted && tb.floor === NO_FLOOR) tb.floor = settlingFloorPlan(problem, rs, limits);
     const pareto = state.pareto;
     if (!pareto) return walkUnder(rs, tb, (cs) => settlingBoundOf(rs, cs, tb, state.theta) <= state.theta);
@@ -572,8 +572,11 @@ export function collectCandidates(
     toChecked.clear();
     pareto.limits.forEach((limit, i) => {
       const cap = () => Math.min(state.theta, pareto.best[i] * (1 + REL) + ABS_T);
-      const own = tupleBounds(problem, rs, paretoLimits[i]);
       const limitCap = cap();
+      // The walk's key (the loosest limit's) is at most this limit's own: a tighter ripple limit
+      // only raises the tuple's tauMin, its log factor and its floor (settlingBounds.ts).
+      if (key > limitCap) return;
+      const own = tupleBounds(problem, rs, paretoLimits[i]);
       if (tupleKey(rs, own, limitCap) > limitCap) return;
       rippleLimit = limit;
       columns.push(
@@ -817,7 +820,7 @@ export function collectCandidates(
   for (let k = 0; k < order.length; k++) {
     const i = order[k];
     if (keys[i] > state.theta || overBudget()) break;
-    const columns = walk(tuples[i], bounds[i]);
+    const columns = walk(tuples[i], bounds[i], keys[i]);
     if (state.theta === Infinity) deferred.push(...columns);
     else {
       while (deferred.length > 0) finishColumn(deferred.pop()!);
