@@ -7,6 +7,7 @@ import { droopFloor, droopFloorPlan, type DroopFloorPlan } from './droopFloor.js
 import { gainFloor } from './gainFloor.js';
 import { inlFloor, inlFloorPlan, type InlFloorPlan } from './inlFloor.js';
 import { maximizeOverDuty } from './maximizeOverDuty.js';
+import { rippleFloor, rippleFloorPlan, type RippleFloorPlan } from './rippleFloor.js';
 import { tupleBounds, type TupleBounds } from './settlingBounds.js';
 import { NO_FLOOR, scratchFloorPlan, settlingFloor, settlingFloorPlan } from './settlingFloor.js';
 import { slowestTimeConstant, twoSlowestTimeConstants } from './slowestTimeConstant.js';
@@ -328,6 +329,7 @@ export function collectCandidates(
    */
   const rippleOver = (rs: number[], cs: number[], d: number, limit: number | undefined): boolean => {
     if (limit === undefined) return false;
+    if (floorOver(rs, cs, d, limit)) return true;
     touch(rs, cs);
     use(rs, cs);
     if (stages >= 3 && swingOf[slot(d)] === null) {
@@ -339,6 +341,24 @@ export function collectCandidates(
       if (hi - lo > limit * (1 + 2 * REL) + 1e-300) return true;
     }
     return exceeds(rippleOf(rs, cs, d), limit);
+  };
+
+  /**
+   * The ripple floor (rippleFloor.ts: from the pin's fundamental, a few operations, no model) at
+   * duty d is over `limit`: the exact ripple is then over it too. Most of the points a staircase
+   * search asks about lie well below the staircase, and this decides a good share of them (a
+   * third of the ripple checks of the wide E24 bench search). Budgeted walks go without it (their
+   * cut counts fast evaluations; see above).
+   */
+  let floorR: number[] = [];
+  let floorPlan: RippleFloorPlan | null = null;
+  const floorOver = (rs: number[], cs: number[], d: number, limit: number): boolean => {
+    if (budgeted) return false;
+    if (floorPlan === null || !sameAs(rs, floorR)) {
+      floorPlan = rippleFloorPlan(problem, rs);
+      floorR = rs.slice();
+    }
+    return exceeds(rippleFloor(floorPlan, cs, d), limit);
   };
 
   /** Steady-state figures for the cheap checks. */
@@ -385,6 +405,8 @@ export function collectCandidates(
       const code = indexCode(rs, cs);
       let near = nearMemo.get(code);
       if (near === undefined) {
+        // (no memo then: a looser limit asks again)
+        if (rippleLimit !== undefined && floorOver(rs, cs, dNear, rippleLimit)) return false;
         near = rippleOf(rs, cs, dNear);
         nearMemo.set(code, near);
       }
@@ -393,7 +415,7 @@ export function collectCandidates(
       if (checkTo && !toChecked.has(code)) {
         toChecked.add(code);
         for (const d of toDuties) {
-          if (exceeds(rippleOf(rs, cs, d), 2 * problem.band)) {
+          if (floorOver(rs, cs, d, 2 * problem.band) || exceeds(rippleOf(rs, cs, d), 2 * problem.band)) {
             nearMemo.set(code, Number.NaN);
             return false;
           }
