@@ -1,4 +1,5 @@
 import type { DesignProblem } from './designProblem.js';
+import { pinDriveStep } from './pinDriveStep.js';
 
 /** The resistor-only part of the ripple floor of one resistor choice (rippleFloorPlan). */
 export interface RippleFloorPlan {
@@ -13,7 +14,7 @@ export interface RippleFloorPlan {
   readonly omega: number;
   /** Product of the couplings 1 / r2 ... 1 / rn (1 for one stage). */
   readonly couplings: number;
-  /** Least |pin drive step| over node-1 averages in the nodes' range, A: f of settlingFloorPlan. */
+  /** Least size of the pin's drive step over node-1 averages in the nodes' range, A (pinDriveStep.ts). */
   readonly drive: number;
   /** pi |g_H - g_L| (hi - lo), A: the most the driver mismatch can take off the drive's fundamental, per unit duty. */
   readonly mismatch: number;
@@ -34,8 +35,8 @@ export interface RippleFloorPlan {
  * is a linear time-invariant function of v1. With g0 = g_F the larger pin conductance, taking
  * first coefficients: (j w c1 + Y + g0) V1 = c1[g (u - mean v1)] - c1[(g - g0)(v1 - mean v1)].
  * The first term is a two-level pulse train, |c1| = |g_H (high - m) - g_L (low - m)| sin(pi D) / pi
- * >= f sin(pi D) / pi over the node range m in [lo, hi] (every node stays between the levels and
- * ground: passive network); the second is at most |g_H - g_L| D' (hi - lo), D' the duty of the
+ * >= f sin(pi D) / pi, m = mean v1 in the node range [lo, hi] and f its least drive step
+ * (pinDriveStep.ts); the second is at most |g_H - g_L| D' (hi - lo), D' the duty of the
  * phase whose conductance is not g0. The output is V1 through the rest of the ladder, so
  * |c1(out)| = |H_F(j w)| / g0 |(j w c1 + Y + g0) V1|, H_F the transfer of the fast ladder (pin
  * conductance g0), g0 g2 ... gn / det(G + j w C) for a ladder (tridiagonal: continuant). Hence
@@ -52,10 +53,8 @@ export function rippleFloorPlan(problem: DesignProblem, r: ArrayLike<number>): R
   const gH = 1 / (k.driverHigh + r[0]);
   const gL = 1 / (k.driverLow + r[0]);
   const gF = Math.max(gH, gL);
-  const lo = Math.min(k.low, k.high, 0);
-  const hi = Math.max(k.low, k.high, 0);
-  const fLo = gH * (k.high - lo) + gL * (lo - k.low);
-  const fHi = gH * (k.high - hi) + gL * (hi - k.low);
+  // Node voltages stay between the levels and ground (pinDriveStep.ts).
+  const nodeSpan = Math.max(k.low, k.high, 0) - Math.min(k.low, k.high, 0);
   const g = [gF];
   let couplings = 1;
   for (let i = 1; i < n; i++) {
@@ -68,8 +67,8 @@ export function rippleFloorPlan(problem: DesignProblem, r: ArrayLike<number>): R
     loadC: k.loadCapacitance,
     omega: (2 * Math.PI) / problem.period,
     couplings,
-    drive: fLo * fHi > 0 ? Math.min(Math.abs(fLo), Math.abs(fHi)) : 0,
-    mismatch: Math.PI * Math.abs(gH - gL) * (hi - lo),
+    drive: pinDriveStep(k, r[0]),
+    mismatch: Math.PI * Math.abs(gH - gL) * nodeSpan,
     highDiffers: gH < gF,
   };
 }

@@ -1,5 +1,6 @@
 import { phi1 } from '../numeric/phi.js';
 import type { DesignProblem } from './designProblem.js';
+import { pinDriveStep } from './pinDriveStep.js';
 
 /** One settling step of a floor plan (settlingFloorPlan): what the floor needs of it, V. */
 export interface FloorStep {
@@ -72,12 +73,7 @@ export function settlingFloorPlan(
   const gH = 1 / (k.driverHigh + r[0]);
   const gL = 1 / (k.driverLow + r[0]);
   const gF = Math.max(gH, gL);
-  // Node voltages stay between the levels and ground (the load's return).
-  const lo = Math.min(k.low, k.high, 0);
-  const hi = Math.max(k.low, k.high, 0);
-  const fLo = gH * (k.high - lo) + gL * (lo - k.low);
-  const fHi = gH * (k.high - hi) + gL * (hi - k.low);
-  const f = fLo * fHi > 0 ? Math.min(Math.abs(fLo), Math.abs(fHi)) : 0;
+  const f = pinDriveStep(k, r[0]);
   let rest = 0;
   for (let i = 1; i < r.length; i++) rest += r[i];
   const rL = k.loadResistance;
