@@ -17,16 +17,19 @@ export interface SymmetricEigen {
  * matrices to high relative accuracy (J. Demmel & K. Veselic, SIAM J. Matrix Anal. Appl. 13(4),
  * 1992), which matters because the time constants of a ladder may span many decades.
  *
- * Syntax: symmetricEigen(a, n[, { vectors: true }])
+ * With `into` (order 3, with vectors) the result is written into its arrays (three and nine
+ * doubles) and `into` is returned: a search that decomposes millions of matrices allocates none.
+ *
+ * Syntax: symmetricEigen(a, n[, { vectors: true[, into] }])
  * Example: symmetricEigen([2, 1, 1, 2], 2).values                    // [1, 3]
  *          symmetricEigen([2, 1, 1, 2], 2, { vectors: true }).vectors // columns: unit eigenvectors
  */
 export function symmetricEigen(a: ArrayLike<number>, n: number): { values: number[] };
-export function symmetricEigen(a: ArrayLike<number>, n: number, options: { vectors: true }): SymmetricEigen;
-export function symmetricEigen(a: ArrayLike<number>, n: number, options?: { vectors?: boolean }): { values: number[]; vectors?: number[] } {
+export function symmetricEigen(a: ArrayLike<number>, n: number, options: { vectors: true; into?: SymmetricEigen }): SymmetricEigen;
+export function symmetricEigen(a: ArrayLike<number>, n: number, options?: { vectors?: boolean; into?: SymmetricEigen }): { values: number[]; vectors?: number[] } {
   if (n === 1) return { values: [a[0]], vectors: [1] };
   if (n === 2) return symmetricEigen2(a[0], a[1], a[3]);
-  if (n === 3) return symmetricEigen3(a, options?.vectors === true);
+  if (n === 3) return symmetricEigen3(a, options?.vectors === true, options?.into);
   return symmetricEigenJacobi(a, n, options?.vectors === true);
 }
 
@@ -121,7 +124,7 @@ const V3 = new Float64Array(9);
  * candidate of a three-stage search. The three rotation blocks below share their shape on purpose:
  * each is one pair written out, its indices fixed (that is what the scalar form buys).
  */
-function symmetricEigen3(a: ArrayLike<number>, withVectors: boolean): { values: number[]; vectors?: number[] } {
+function symmetricEigen3(a: ArrayLike<number>, withVectors: boolean, into?: SymmetricEigen): { values: number[]; vectors?: number[] } {
   // the matrix (d: diagonal, o: the upper off-diagonal entries) and the rotations (v, row-major)
   let d0 = a[0];
   let d1 = a[4];
@@ -261,7 +264,7 @@ function symmetricEigen3(a: ArrayLike<number>, withVectors: boolean): { values: 
     }
   }
   // arrays of doubles whatever the values (as the general code's)
-  const values = [0.5, 0.5, 0.5];
+  const values = withVectors && into ? into.values : [0.5, 0.5, 0.5];
   values[0] = d[i0];
   values[1] = d[i1];
   values[2] = d[i2];
@@ -276,13 +279,13 @@ function symmetricEigen3(a: ArrayLike<number>, withVectors: boolean): { values: 
   w[6] = v20;
   w[7] = v21;
   w[8] = v22;
-  const vectors = [0.5, 0.5, 0.5, 0.5, 0.5, 0.5, 0.5, 0.5, 0.5];
+  const vectors = into ? into.vectors : [0.5, 0.5, 0.5, 0.5, 0.5, 0.5, 0.5, 0.5, 0.5];
   for (let k = 0; k < 3; k++) {
     vectors[3 * k] = w[3 * k + i0];
     vectors[3 * k + 1] = w[3 * k + i1];
     vectors[3 * k + 2] = w[3 * k + i2];
   }
-  return { values, vectors };
+  return into ?? { values, vectors };
 }
 
 /**

@@ -24,8 +24,8 @@ import type { ModalLadder, PhaseModes } from './modalTypes.js';
  * in the same order, so the same digits: test/engine/modal/modalLadderOf.test.ts), and the
  * intermediate arrays of the general order are module scratch.
  *
- * With `into`, a modal form of as many stages from an earlier call for the same circuit, one and
- * two stages are written into it and it is returned instead of a new object (the design search
+ * With `into`, a modal form of as many stages from an earlier call for the same circuit, one to
+ * three stages are written into it and it is returned instead of a new object (the design search
  * keeps one per walk and allocates nothing per candidate); whatever holds it sees the new ladder.
  *
  * Syntax: modalLadderOf(circuit, r, c[, into])
@@ -33,7 +33,7 @@ import type { ModalLadder, PhaseModes } from './modalTypes.js';
  */
 export function modalLadderOf(circuit: LadderCircuit, r: ArrayLike<number>, c: ArrayLike<number>, into?: ModalLadder): ModalLadder {
   const n = load(circuit, r, c);
-  return n === 1 || n === 2 ? smallLadder(n, into) : anyOrder(n);
+  return n === 1 || n === 2 ? smallLadder(n, into) : anyOrder(n, into);
 }
 
 /**
@@ -47,8 +47,11 @@ export function modalLadderOfAnyOrder(circuit: LadderCircuit, r: ArrayLike<numbe
   return anyOrder(load(circuit, r, c));
 }
 
-/** The general construction from the circuit and stages load() put in scratch. */
-function anyOrder(n: number): ModalLadder {
+/**
+ * The general construction from the circuit and stages load() put in scratch; for three stages
+ * written into `into` when it is one of the same shape (its arrays, same operations).
+ */
+function anyOrder(n: number, into?: ModalLadder): ModalLadder {
   const r = R_S;
   const c = C_S;
   const loadResistance = K_OPEN ? null : K[LOAD_R];
@@ -60,8 +63,10 @@ function anyOrder(n: number): ModalLadder {
   for (let k = 1; k < n; k++) G_IN[k] = 1 / r[k];
   G_IN[n] = loadResistance !== null ? 1 / loadResistance : 0;
   const equal = driverHigh === driverLow;
-  const high = phase(n, r[0] + driverHigh);
-  const low = equal ? high : phase(n, r[0] + driverLow);
+  // (a three-stage form from anyOrder: symmetric, one phase object shared exactly when the drivers are equal)
+  const reuse = n === 3 && into !== undefined && into.n === 3 && into.symmetric && (into.hi === into.lo) === equal && into.mix.length === 9;
+  const high = phase(n, r[0] + driverHigh, reuse ? into.hi : undefined, BASIS_HIGH);
+  const low = equal ? high : phase(n, r[0] + driverLow, reuse ? into.lo : undefined, BASIS_LOW);
   // DC gains per volt of the pin (an open output: every node at the pin's level).
   for (let k = 0; k < n; k++) G_HIGH[k] = 1;
   if (loadResistance !== null) dividerGain(r, 0, n - 1, loadResistance, driverHigh, 1, G_HIGH);
@@ -74,8 +79,9 @@ function anyOrder(n: number): ModalLadder {
   for (let j = 0; j < n; j++) DC_DELTA[j] = equal ? G_HIGH[j] * span : G_HIGH[j] * K[HIGH] - gLow[j] * K[LOW];
   const hb = high.basis;
   const lb = low.basis;
-  const mix = doubles(n * n);
-  const delta = doubles(n);
+  const mix = reuse ? (into.mix as number[]) : doubles(n * n);
+  const delta = reuse ? (into.delta as number[]) : doubles(n);
+  if (reuse) delta.fill(0, 0, n);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       let s = 0;
@@ -83,6 +89,15 @@ function anyOrder(n: number): ModalLadder {
       mix[i * n + j] = s;
       delta[i] += hb[j * n + i] * CS[j] * DC_DELTA[j];
     }
+  }
+  if (reuse) {
+    const m = into as { -readonly [K in keyof ModalLadder]: ModalLadder[K] };
+    m.period = K[PERIOD];
+    m.high = K[HIGH];
+    m.low = K[LOW];
+    m.outLow = gLow[n - 1] * K[LOW];
+    m.outHigh = G_HIGH[n - 1] * K[HIGH];
+    return m;
   }
   return {
     n,
@@ -273,7 +288,7 @@ const EIG_H = { values: [0.5, 0.5], vectors: [0.5, 0.5, 0.5, 0.5] };
 const EIG_L = { values: [0.5, 0.5], vectors: [0.5, 0.5, 0.5, 0.5] };
 
 /** The modes of one pin state whose first node is fed through `first` ohm (driver + R1), from the scratch. */
-function phase(n: number, first: number): { modes: PhaseModes; basis: number[] } {
+function phase(n: number, first: number, into: PhaseModes | undefined, basis: number[]): { modes: PhaseModes; basis: number[] } {
   G_IN[0] = 1 / first;
   S.fill(0, 0, n * n);
   for (let k = 0; k < n; k++) {
@@ -284,11 +299,16 @@ function phase(n: number, first: number): { modes: PhaseModes; basis: number[] }
       S[(k + 1) * n + k] = off;
     }
   }
-  const { values, vectors } = symmetricEigen(S, n, { vectors: true });
-  const out = doubles(n);
+  // With `into` (three stages): the rates into its array, the basis into `basis` (scratch, read at once).
+  const { values, vectors } = symmetricEigen(S, n, { vectors: true, ...(into && { into: { values: into.rate as number[], vectors: basis } }) });
+  const out = into ? (into.out as number[]) : doubles(n);
   for (let i = 0; i < n; i++) out[i] = vectors[(n - 1) * n + i] / CS[n - 1];
-  return { modes: { rate: values, out }, basis: vectors };
+  return into ? { modes: into, basis: vectors } : { modes: { rate: values, out }, basis: vectors };
 }
+
+/** Eigenvector scratch of the two phases (anyOrder with `into`: three stages). */
+const BASIS_HIGH = doubles(9);
+const BASIS_LOW = doubles(9);
 
 // Scratch of one call (single-threaded; each worker has its own module): the stages, sqrt C, conductances into
 // each node, the symmetric matrix S, DC gains per volt and Delta in node coordinates. Plain arrays
