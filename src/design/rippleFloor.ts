@@ -30,15 +30,16 @@ export interface RippleFloorPlan {
  *
  * Method (derived here). Peak-to-peak >= pi |c1| for any periodic signal, c1 its first complex
  * Fourier coefficient: with w the signal less its mid-range, |c1| <= (1/T) int |w| |cos(wt - a)|
- * <= (ptp / 2)(2 / pi). Node 1 obeys c1 v1' = g(t)(u(t) - v1) - i_rest, where the pin conductance
+ * <= (ptp / 2)(2 / pi). Node 1 obeys C_1 v1' = g(t)(u(t) - v1) - i_rest, where the pin conductance
  * g(t) and level u(t) switch with the phase and i_rest, the current into the rest of the ladder,
  * is a linear time-invariant function of v1. With g0 = g_F the larger pin conductance, taking
- * first coefficients: (j w c1 + Y + g0) V1 = c1[g (u - mean v1)] - c1[(g - g0)(v1 - mean v1)].
+ * first coefficients (c1[.], V1 that of v1, Y the rest's admittance at w): (j w C_1 + Y + g0) V1 =
+ * c1[g (u - mean v1)] - c1[(g - g0)(v1 - mean v1)].
  * The first term is a two-level pulse train, |c1| = |g_H (high - m) - g_L (low - m)| sin(pi D) / pi
  * >= f sin(pi D) / pi, m = mean v1 in the node range [lo, hi] and f its least drive step
  * (pinDriveStep.ts); the second is at most |g_H - g_L| D' (hi - lo), D' the duty of the
  * phase whose conductance is not g0. The output is V1 through the rest of the ladder, so
- * |c1(out)| = |H_F(j w)| / g0 |(j w c1 + Y + g0) V1|, H_F the transfer of the fast ladder (pin
+ * |c1(out)| = |H_F(j w)| / g0 |(j w C_1 + Y + g0) V1|, H_F the transfer of the fast ladder (pin
  * conductance g0), g0 g2 ... gn / det(G + j w C) for a ladder (tridiagonal: continuant). Hence
  * ripple(D) >= (g2 ... gn / |det(G + j w C)|) (f sin(pi D) - pi |g_H - g_L| D' (hi - lo)). For equal
  * drivers this is (high - low) sin(pi D) |H(j w)|, the fundamental bound the tuple bounds use
