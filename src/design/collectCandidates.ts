@@ -4,18 +4,15 @@ import type { DesignProblem } from './designProblem.js';
 import { designLimits } from './types.js';
 import { dcTransferMiss } from './dcTransferMiss.js';
 import { droopFloor, droopFloorPlan, type DroopFloorPlan } from './droopFloor.js';
-import { gainFloor } from './gainFloor.js';
 import { inlFloor, inlFloorPlan, type InlFloorPlan } from './inlFloor.js';
 import { maximizeOverDuty } from './maximizeOverDuty.js';
 import { rippleFloor, rippleFloorPlan, type RippleFloorPlan } from './rippleFloor.js';
 import { tupleBounds, type TupleBounds } from './settlingBounds.js';
-import { NO_FLOOR, scratchFloorPlan, settlingFloor, settlingFloorPlan } from './settlingFloor.js';
+import { NO_FLOOR, settlingFloor, settlingFloorPlan } from './settlingFloor.js';
 import { slowestTimeConstant, twoSlowestTimeConstants } from './slowestTimeConstant.js';
+import { LIST_SHARE, listTuples, timeIsUp, tupleFloor } from './listTuples.js';
+import { exceeds, REL } from './searchAllowance.js';
 
-/** Relative allowance between the fast model and the engine (both exact; rounding differs). */
-export const REL = 1e-6;
-/** Share of a walk's progress (onProgress) that listing the resistor tuples stands for. */
-const LIST_SHARE = 0.1;
 /** Absolute allowance on times, s. */
 const ABS_T = 1e-12;
 /**
@@ -94,8 +91,6 @@ export function newCollectState(problem: DesignProblem, top: number): CollectSta
     evaluated: 0,
   };
 }
-
-const exceeds = (value: number, limit: number | undefined) => limit !== undefined && value > limit * (1 + REL) + 1e-300;
 
 /** Pareto mode: the settling threshold of a candidate whose worst ripple is at least `ripple`. */
 function paretoThreshold(pareto: ParetoState, ripple: number): number {
@@ -853,121 +848,6 @@ export function collectCandidates(
   }
   while (deferred.length > 0) finishColumn(deferred.pop()!);
   onProgress?.(1);
-}
-
-/** The walk's deadline (--max-time) has passed. */
-function timeIsUp(state: CollectState): boolean {
-  return state.deadline !== undefined && performance.now() > state.deadline;
-}
-
-/** Time constants in scratch (tupleFloor). */
-const TAUS = [0, 0];
-
-/**
- * Lower bound on the settling time of every capacitor choice of resistor tuple `rs` (minC: the
- * smallest capacitor of the series at every stage) that meets tb's ripple limit: the proven floor
- * of settlingFloor.ts with the slowest time constant at least tb.tauMin (the ripple's) and both at
- * least their values at the smallest capacitors; with a ceiling, only sure to lie on the right
- * side of it. Budgeted walks keep the older tau_slow * factor - slack (settlingBounds.ts).
- *
- * Syntax: tupleFloor(problem, rs, minC, tb, budgeted[, ceiling])
- * Example: tupleFloor(problem, [470, 16e3], [1e-10, 1e-10], tupleBounds(problem, [470, 16e3]), false)   // s
- */
-function tupleFloor(problem: DesignProblem, rs: number[], minC: number[], tb: TupleBounds, budgeted: boolean, ceiling = Infinity): number {
-  const { circuit } = problem;
-  if (budgeted) return Math.max(tb.tauMin, slowestTimeConstant(rs, minC, tb.driver, circuit.loadResistance, circuit.loadCapacitance)) * tb.factor - tb.slack;
-  twoSlowestTimeConstants(rs, minC, tb.driver, circuit.loadResistance, circuit.loadCapacitance, TAUS);
-  return settlingFloor(tb.floor, Math.max(tb.tauMin, TAUS[0]), TAUS[1], ceiling);
-}
-
-/** Resistor tuples to walk, with their bounds and keys (tupleFloor), in listing order. */
-interface TupleList {
-  tuples: number[][];
-  bounds: TupleBounds[];
-  keys: number[];
-}
-
-/**
- * Every `stages`-resistor tuple of the problem's series that passes the resistor-only checks of
- * collectCandidates (pin current, droop and gain floors from the resistors, with unequal drivers
- * the droop floor at the smallest capacitors) and whose key (tupleFloor) is at most state.theta.
- * `droopPlans` (unequal drivers with a droop limit) receives each kept tuple's droop floor plan.
- * A function of its own, not a loop inside collectCandidates: V8 then compiles this loop alone
- * when it turns hot, not the whole walk with it (measured: the walk's function was compiled three
- * times in a default design run, 55 to 81 ms each on the compiler thread).
- *
- * Syntax: listTuples(problem, stages, state, budgeted, droopPlans[, onProgress])
- * Example: listTuples(problem, 2, newCollectState(problem, 10), false, null).tuples.length
- */
-function listTuples(
-  problem: DesignProblem,
-  stages: number,
-  state: CollectState,
-  budgeted: boolean,
-  droopPlans: WeakMap<number[], DroopFloorPlan | null> | null,
-  onProgress?: (fraction: number) => void,
-): TupleList {
-  const { rValues: R, searchLimits: limits, project, circuit } = problem;
-  const { pwm } = project;
-  const span = Math.abs(pwm.high - pwm.low);
-  const nR = R.length;
-  const loadR = circuit.loadResistance;
-  const droopFloorApplies = pwm.driver.high >= pwm.driver.low && pwm.low >= 0 && loadR !== null && limits.droop !== undefined;
-  const gainFloorApplies = loadR !== null && limits.gain !== undefined;
-  const idealTop = Math.max(pwm.low + problem.dutyMin * (pwm.high - pwm.low), pwm.low + problem.dutyMax * (pwm.high - pwm.low));
-  const minC = new Array<number>(stages).fill(problem.cValues[0]);
-  const tuples: number[][] = [];
-  const bounds: TupleBounds[] = [];
-  const keys: number[] = [];
-  const idx = new Array<number>(stages).fill(0);
-  const scratch = new Array<number>(stages).fill(0);
-  const keyPlan = scratchFloorPlan();
-  const total = nR ** stages;
-  for (let count = 0; count < total; count++) {
-    if ((count & 0xffff) === 0xffff) {
-      onProgress?.((LIST_SHARE * (count + 1)) / total);
-      // Out of time while still listing: the walk then stops at once (cut).
-      if (timeIsUp(state)) {
-        state.cut = true;
-        break;
-      }
-    }
-    let rest = count;
-    for (let k = stages - 1; k >= 0; k--) {
-      idx[k] = rest % nR;
-      rest = Math.floor(rest / nR);
-    }
-    for (let k = 0; k < stages; k++) scratch[k] = R[idx[k]];
-    const rs = scratch;
-    if (limits.pinCurrent !== undefined && exceeds(span / (Math.min(pwm.driver.high, pwm.driver.low) + rs[0]), limits.pinCurrent)) continue;
-    if (droopFloorApplies) {
-      let series = pwm.driver.low;
-      for (let k = 0; k < stages; k++) series += rs[k];
-      if (exceeds((idealTop * series) / (loadR! + series), limits.droop)) continue;
-    }
-    if (gainFloorApplies && exceeds(gainFloor(circuit, rs, problem.dutyMin, problem.dutyMax), limits.gain)) continue;
-    // Unequal drivers: the droop floor at the smallest capacitors holds for every capacitor choice.
-    let droopPlan: DroopFloorPlan | null | undefined;
-    if (droopPlans !== null) {
-      droopPlan = droopFloorPlan(problem, rs);
-      if (droopPlan !== null && exceeds(droopFloor(droopPlan, minC), limits.droop)) continue;
-    }
-    // The floor plan in scratch for the key, and a tuple's own only when it is walked (walk):
-    // most tuples of a wide space are never walked, and a plan for each kept one doubled the
-    // collector's time in a three-stage E24 search (measured). Budgeted walks use no plan.
-    const tb = tupleBounds(problem, rs, limits, budgeted ? NO_FLOOR : settlingFloorPlan(problem, rs, limits, keyPlan));
-    const key = tupleFloor(problem, rs, minC, tb, budgeted);
-    // Beyond the threshold already: the walk would stop before it (theta only falls in a round).
-    if (key > state.theta) continue;
-    const kept = rs.slice();
-    tb.floor = NO_FLOOR;
-    // (the walk's droop check reads the same plan: made once per tuple)
-    if (droopPlans !== null && droopPlan !== undefined) droopPlans.set(kept, droopPlan);
-    tuples.push(kept);
-    bounds.push(tb);
-    keys.push(key);
-  }
-  return { tuples, bounds, keys };
 }
 
 /** Identity of a candidate across collection rounds. */

@@ -1,5 +1,6 @@
 import { bestDesigns } from './bestDesigns.js';
-import { collectCandidates, newCollectState, REL, type FastEntry } from './collectCandidates.js';
+import { collectCandidates, newCollectState, type FastEntry } from './collectCandidates.js';
+import { REL } from './searchAllowance.js';
 import { designProblem, type DesignProblem } from './designProblem.js';
 import { exactCandidate } from './exactCandidate.js';
 import { infeasibilityBounds } from './infeasibilityBounds.js';

@@ -1,4 +1,5 @@
-import { collectCandidates, keyOf, newCollectState, REL, type FastEntry } from './collectCandidates.js';
+import { collectCandidates, keyOf, newCollectState, type FastEntry } from './collectCandidates.js';
+import { REL } from './searchAllowance.js';
 import type { Admit } from './cornerScreen.js';
 import type { DesignProblem } from './designProblem.js';
 import { exactCandidate } from './exactCandidate.js';

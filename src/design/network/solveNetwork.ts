@@ -1,6 +1,6 @@
 import type { NetworkStage } from '../../circuit/network.js';
 import { networkPinPeakCurrent, OutsideDomainError } from '../../engine/index.js';
-import { REL } from '../collectCandidates.js';
+import { REL } from '../searchAllowance.js';
 import { rankCandidates } from '../rankCandidates.js';
 import { recheck } from '../recheck.js';
 import type { AnyCandidateStage, Candidate, DesignLimits } from '../types.js';
