@@ -6,6 +6,7 @@ import { exactCandidate } from '../../src/design/exactCandidate.js';
 import { dcTransfer } from '../../src/engine/index.js';
 import { parseProject } from '../../src/project/index.js';
 import { everyTuple } from './bruteForce.js';
+import { ladderFields, ladderParts, ladderYaml } from './randomLadders.js';
 
 /** Invented: a pin that sources more weakly than it sinks, into a load; `o` overrides pieces of the YAML. */
 const project = (o: { droop?: string; stages?: string; low?: string; driver?: string; load?: string; f?: string; rmin?: string; rmax?: string; cmin?: string; cmax?: string }) =>
@@ -30,15 +31,7 @@ search:
 describe("droopFloor: a lower bound on the engine's droop from the resistors and the first capacitors", () => {
   it('never exceeds the droop of engine/dcTransfer.ts, and never falls when a capacitor grows (fast-check)', () => {
     const arb = fc.record({
-      n: fc.integer({ min: 1, max: 3 }),
-      logR: fc.array(fc.double({ min: 1.5, max: 4, noNaN: true }), { minLength: 3, maxLength: 3 }),
-      logC: fc.array(fc.double({ min: -10, max: -5, noNaN: true }), { minLength: 3, maxLength: 3 }),
-      high: fc.double({ min: 5, max: 150, noNaN: true }),
-      low: fc.double({ min: 0, max: 100, noNaN: true }),
-      negative: fc.boolean(),
-      logF: fc.double({ min: 3, max: 5.5, noNaN: true }),
-      load: fc.option(fc.double({ min: 2.5, max: 6, noNaN: true })),
-      logCL: fc.option(fc.double({ min: -11, max: -8, noNaN: true })),
+      ...ladderFields({ logR: [1.5, 4], logC: [-10, -5], lowMax: 100 }),
       grow: fc.double({ min: 1, max: 10, noNaN: true }),
       at: fc.integer({ min: 0, max: 2 }),
     });
@@ -46,15 +39,9 @@ describe("droopFloor: a lower bound on the engine's droop from the resistors and
     fc.assert(
       fc.property(arb, (x) => {
         const p = designProblem(
-          project({
-            f: `${10 ** x.logF} Hz`,
-            driver: `{ high: ${x.high} ohm, low: ${x.low} ohm }`,
-            low: x.negative ? '-3.3 V' : '0 V',
-            load: x.load === null ? `{ capacitance: ${x.logCL === null ? 0 : 10 ** x.logCL} F }` : `{ resistance: ${10 ** x.load} ohm, capacitance: ${x.logCL === null ? 0 : 10 ** x.logCL} F }`,
-          }),
+          project(ladderYaml(x)),
         );
-        const r = x.logR.slice(0, x.n).map((v) => 10 ** v);
-        const c = x.logC.slice(0, x.n).map((v) => 10 ** v);
+        const { r, c } = ladderParts(x);
         const plan = droopFloorPlan(p, r);
         if (plan === null) return x.high === x.low;
         const floor = droopFloor(plan, c);

@@ -7,6 +7,7 @@ import { inlFloor, inlFloorPlan } from '../../src/design/inlFloor.js';
 import { dcTransfer } from '../../src/engine/index.js';
 import { parseProject } from '../../src/project/index.js';
 import { bruteForce, designKey, everyTuple } from './bruteForce.js';
+import { ladderFields, ladderParts, ladderYaml } from './randomLadders.js';
 
 /** Invented: unequal drivers into a load bend the DC transfer; `o` overrides pieces of the YAML. */
 const project = (o: { inl?: string; stages?: string; low?: string; driver?: string; load?: string; f?: string; settling?: string; series?: string; rmax?: string; cmin?: string; cmax?: string }) =>
@@ -32,30 +33,16 @@ search:
 describe("inlFloor: a lower bound on the engine's INL from the resistors and the first capacitors", () => {
   it('never exceeds the INL of engine/dcTransfer.ts, and never falls when a capacitor grows (fast-check)', () => {
     const arb = fc.record({
-      n: fc.integer({ min: 1, max: 3 }),
-      logR: fc.array(fc.double({ min: 1.5, max: 4, noNaN: true }), { minLength: 3, maxLength: 3 }),
-      logC: fc.array(fc.double({ min: -9, max: -5, noNaN: true }), { minLength: 3, maxLength: 3 }),
-      high: fc.double({ min: 5, max: 150, noNaN: true }),
-      low: fc.double({ min: 0, max: 100, noNaN: true }),
-      negative: fc.boolean(),
-      logF: fc.double({ min: 3, max: 5.5, noNaN: true }),
-      load: fc.option(fc.double({ min: 2.5, max: 6, noNaN: true })),
-      logCL: fc.option(fc.double({ min: -11, max: -8, noNaN: true })),
+      ...ladderFields({ logR: [1.5, 4], logC: [-9, -5], lowMax: 100 }),
       grow: fc.double({ min: 1, max: 10, noNaN: true }),
     });
     let informative = 0;
     fc.assert(
       fc.property(arb, (x) => {
         const p = designProblem(
-          project({
-            f: `${10 ** x.logF} Hz`,
-            driver: `{ high: ${x.high} ohm, low: ${x.low} ohm }`,
-            low: x.negative ? '-3.3 V' : '0 V',
-            load: x.load === null ? `{ capacitance: ${x.logCL === null ? 0 : 10 ** x.logCL} F }` : `{ resistance: ${10 ** x.load} ohm, capacitance: ${x.logCL === null ? 0 : 10 ** x.logCL} F }`,
-          }),
+          project(ladderYaml(x)),
         );
-        const r = x.logR.slice(0, x.n).map((v) => 10 ** v);
-        const c = x.logC.slice(0, x.n).map((v) => 10 ** v);
+        const { r, c } = ladderParts(x);
         const plan = inlFloorPlan(p, r);
         if (plan === null) return x.high === x.low;
         const floor = inlFloor(plan, c);

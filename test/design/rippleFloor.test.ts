@@ -5,6 +5,7 @@ import { designProblem } from '../../src/design/designProblem.js';
 import { rippleFloor, rippleFloorPlan } from '../../src/design/rippleFloor.js';
 import { steadyState } from '../../src/engine/index.js';
 import { parseProject } from '../../src/project/index.js';
+import { ladderFields, ladderParts, ladderYaml } from './randomLadders.js';
 
 /** Invented: a PWM pin into a load; `o` overrides pieces of the YAML. */
 const project = (o: { driver?: string; low?: string; load?: string; f?: string }) =>
@@ -26,31 +27,17 @@ search:
 describe("rippleFloor: a lower bound on the engine's ripple from the pin's fundamental", () => {
   it('never exceeds the ripple of engine/steadyState.ts, equal or unequal drivers, 1 to 3 stages (fast-check)', () => {
     const arb = fc.record({
-      n: fc.integer({ min: 1, max: 3 }),
-      logR: fc.array(fc.double({ min: 1.5, max: 5, noNaN: true }), { minLength: 3, maxLength: 3 }),
-      logC: fc.array(fc.double({ min: -10, max: -5, noNaN: true }), { minLength: 3, maxLength: 3 }),
-      high: fc.double({ min: 5, max: 150, noNaN: true }),
-      low: fc.double({ min: 0, max: 150, noNaN: true }),
+      ...ladderFields({ logR: [1.5, 5], logC: [-10, -5], lowMax: 150 }),
       equal: fc.boolean(),
-      negative: fc.boolean(),
-      logF: fc.double({ min: 3, max: 5.5, noNaN: true }),
-      load: fc.option(fc.double({ min: 2.5, max: 6, noNaN: true })),
-      logCL: fc.option(fc.double({ min: -11, max: -8, noNaN: true })),
       duty: fc.double({ min: 0.02, max: 0.98, noNaN: true }),
     });
     let informative = 0;
     fc.assert(
       fc.property(arb, (x) => {
         const p = designProblem(
-          project({
-            f: `${10 ** x.logF} Hz`,
-            driver: `{ high: ${x.high} ohm, low: ${x.equal ? x.high : x.low} ohm }`,
-            low: x.negative ? '-3.3 V' : '0 V',
-            load: x.load === null ? `{ capacitance: ${x.logCL === null ? 0 : 10 ** x.logCL} F }` : `{ resistance: ${10 ** x.load} ohm, capacitance: ${x.logCL === null ? 0 : 10 ** x.logCL} F }`,
-          }),
+          project(ladderYaml(x)),
         );
-        const r = x.logR.slice(0, x.n).map((v) => 10 ** v);
-        const c = x.logC.slice(0, x.n).map((v) => 10 ** v);
+        const { r, c } = ladderParts(x);
         const floor = rippleFloor(rippleFloorPlan(p, r), c, x.duty);
         const ripple = steadyState(p.ladderOf(r, c), x.duty).ripple;
         if (floor > 0.5 * ripple) informative++;
