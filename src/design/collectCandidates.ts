@@ -1,7 +1,7 @@
 import { curveValue, modalAverageOutput, modalLadderOf, periodicState, rippleAt, settlingLowerBound, steadySwing, type ModalLadder, type PeriodicState, type SteadySwing } from '../engine/index.js';
 import type { Admit } from './cornerScreen.js';
 import type { DesignProblem } from './designProblem.js';
-import { designLimits } from './types.js';
+import { designLimits } from './designLimits.js';
 import { dcTransferMiss } from './dcTransferMiss.js';
 import { droopFloor, droopFloorPlan, type DroopFloorPlan } from './droopFloor.js';
 import { inlFloor, inlFloorPlan, type InlFloorPlan } from './inlFloor.js';
@@ -229,9 +229,7 @@ export function collectCandidates(
   const minC = new Array<number>(stages).fill(C[0]);
   const tupleKey = (rs: number[], tb: TupleBounds, ceiling: number): number => tupleFloor(problem, rs, minC, tb, budgeted, ceiling);
 
-  // Resistor tuples that pass the resistor-only checks, with bounds (listTuples); --max-time:
-  // past the deadline (the listing and the walk both ask).
-  const outOfTime = () => timeIsUp(state);
+  // Resistor tuples that pass the resistor-only checks, with bounds (listTuples).
   const { tuples, bounds, keys } = listTuples(problem, stages, state, budgeted, droopApplies ? droopPlans : null, onProgress);
   // (nothing to walk when the listing ran out of time)
   const order = state.cut ? [] : keys.map((_, i) => i).sort((a, b) => keys[a] - keys[b]);
@@ -427,7 +425,7 @@ export function collectCandidates(
   const overBudget = () => {
     if (state.cut) return true;
     // The clock is read every 256 evaluations: a few microseconds late at most.
-    const late = (state.evaluated & 255) === 0 && outOfTime();
+    const late = (state.evaluated & 255) === 0 && timeIsUp(state);
     if (!late && (state.budget === undefined || state.evaluated <= state.budget)) return false;
     state.cut = true;
     return true;
@@ -661,30 +659,44 @@ export function collectCandidates(
    * capacitor). Every point the staircase may evaluate lies in it.
    */
   const boxAt: number[] = [];
-  // The last box: a slice's deadThrough and its staircase (walkLastTwo) ask for the same one, with
-  // no candidate kept in between. Thresholds only move when a candidate is kept (state.entries
-  // grows), so the box stands while rs, the test, p, cs[0..p-1] and that count are the same. And
-  // a box only shrinks as cs[p - 1] grows (the bounds grow with every capacitor, theta only falls):
-  // the last box of the same rs, test, p and cs[0..p-2] at a smaller cs[p - 1] caps the searches
-  // of the next one (the slices of one tuple come in ascending order).
-  const lastBox = { rs: null as number[] | null, within: null as ((cs: number[]) => boolean) | null, p: -1, kept: -1, before: [] as number[], box: [0, 0] as [number, number] };
+  /**
+   * What a walk learnt at one slice (resistors, threshold test, capacitors cs[0..depth]) and the
+   * count of kept candidates then. Thresholds only move when a candidate is kept, and the bounds
+   * grow with every capacitor while theta only falls, so what held at a slice still holds, only
+   * tighter, at a later one: the same tuple, test and cs[0..depth-1] with cs[depth] at least as
+   * large (the slices of one tuple come in ascending order). sliceRelation tells which: 'same'
+   * (nothing moved since), 'later' (what was learnt caps the search), or null.
+   */
+  interface SliceMemo {
+    rs: number[] | null;
+    within: ((cs: number[]) => boolean) | null;
+    depth: number;
+    kept: number;
+    before: number[];
+  }
+  const sliceMemo = (): SliceMemo => ({ rs: null, within: null, depth: -2, kept: -1, before: [] });
+  const sliceRelation = (m: SliceMemo, rs: number[], within: (cs: number[]) => boolean, depth: number, cs: number[]): 'same' | 'later' | null => {
+    if (m.rs !== rs || m.within !== within || m.depth !== depth) return null;
+    for (let k = 0; k < depth; k++) if (m.before[k] !== cs[k]) return null;
+    if (depth < 0 || m.before[depth] === cs[depth]) return m.kept === state.entries.length ? 'same' : 'later';
+    return m.before[depth] < cs[depth] ? 'later' : null;
+  };
+  const remember = (m: SliceMemo, rs: number[], within: (cs: number[]) => boolean, depth: number, cs: number[]): void => {
+    m.rs = rs;
+    m.within = within;
+    m.depth = depth;
+    m.kept = state.entries.length;
+    m.before = cs.slice(0, depth + 1);
+  };
+  // The last staircase box over capacitors p, p + 1 (a slice of capacitor p - 1): a slice's
+  // deadThrough and its staircase (walkLastTwo) ask for the same one.
+  const lastBox = { memo: sliceMemo(), box: [0, 0] as [number, number] };
   const boxOf = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean): [number, number] => {
-    let caps: [number, number] | null = null;
-    if (lastBox.rs === rs && lastBox.within === within && lastBox.p === p) {
-      let same = true;
-      for (let k = 0; k < p - 1 && same; k++) same = lastBox.before[k] === cs[k];
-      if (same && p > 0 && lastBox.before[p - 1] === cs[p - 1]) {
-        if (lastBox.kept === state.entries.length) return lastBox.box;
-        caps = lastBox.box;
-      } else if (same && p > 0 && lastBox.before[p - 1] < cs[p - 1]) caps = lastBox.box;
-      else if (same && p === 0 && lastBox.kept === state.entries.length) return lastBox.box;
-    }
+    const relation = sliceRelation(lastBox.memo, rs, within, p - 1, cs);
+    if (relation === 'same') return lastBox.box;
+    const caps = relation === 'later' ? lastBox.box : null;
     const box = boxOfNew(rs, cs, p, within, caps === null ? nC : caps[0] + 1, caps === null ? nC : caps[1] + 1);
-    lastBox.rs = rs;
-    lastBox.within = within;
-    lastBox.p = p;
-    lastBox.kept = state.entries.length;
-    lastBox.before = cs.slice(0, p);
+    remember(lastBox.memo, rs, within, p - 1, cs);
     lastBox.box = box;
     return box;
   };
@@ -721,7 +733,8 @@ export function collectCandidates(
    * by bisection (that point's ripple falls as C_j grows), starting with the last slice of the loop.
    */
   const sliceAt: number[] = [];
-  const lastEnd = { rs: null as number[] | null, within: null as ((cs: number[]) => boolean) | null, q: -1, kept: -1, before: [] as number[], failAt: 0 };
+  // The first slice that failed the loop's test (deadThrough, below), at the slice it was found.
+  const lastEnd = { memo: sliceMemo(), failAt: 0 };
   const deadThrough = (rs: number[], cs: number[], q: number, within: (cs: number[]) => boolean): number => {
     const i = C.indexOf(cs[q]);
     const [top, bMax] = boxOf(rs, cs, q + 1, within);
@@ -740,18 +753,13 @@ export function collectCandidates(
     };
     // The last slice the loop visits (within theta and the DC floors at the smallest later
     // capacitors). That test only turns false as the slice grows and theta falls: the first slice
-    // that failed it for this tuple, test and cs[0..q-1] before caps the search (the slices come in
-    // ascending order), and stands as it is while no candidate was kept since.
-    let failAt = nC;
-    if (lastEnd.rs === rs && lastEnd.within === within && lastEnd.q === q && sameAs(lastEnd.before, cs.slice(0, q))) {
-      failAt = lastEnd.failAt;
-    }
-    const first = lastEnd.rs === rs && lastEnd.kept === state.entries.length && failAt < nC ? Math.max(i, failAt) : i + firstTrue(Math.max(0, failAt - i), (k) => !within(slice(i + k)) || dcOver(rs, slice(i + k)));
-    lastEnd.rs = rs;
-    lastEnd.within = within;
-    lastEnd.q = q;
-    lastEnd.kept = state.entries.length;
-    lastEnd.before = cs.slice(0, q);
+    // that failed it at an earlier slice caps the search, and is the answer itself while no
+    // candidate was kept since (the test is then the same, and this slice lies before it).
+    const relation = sliceRelation(lastEnd.memo, rs, within, q, cs);
+    const failAt = relation === null ? nC : lastEnd.failAt;
+    const unmoved = relation !== null && lastEnd.memo.kept === state.entries.length;
+    const first = unmoved ? Math.max(i, failAt) : i + firstTrue(Math.max(0, failAt - i), (k) => !within(slice(i + k)) || dcOver(rs, slice(i + k)));
+    remember(lastEnd.memo, rs, within, q, cs);
     lastEnd.failAt = first;
     const last = first - 1;
     // One check at the last slice with this corner: when it fails, every slice from here on is dead.

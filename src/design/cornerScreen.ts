@@ -20,7 +20,7 @@ const REL = 1e-6;
  *
  * Method: the engine's modal form at each corner (engine/modal) gives lower bounds of that
  * corner's figures: the ripple and droop maximised over a duty grid (maximizeOverDuty.ts, from
- * rippleAt and modalAverageOutput; the ripple near 50 % alone first) and the settling lower bound (settlingLowerBound, Infinity
+ * rippleAt and modalAverageOutput) and the settling lower bound (settlingLowerBound, Infinity
  * when the output never settles); a bound beyond its limit by more than ten search-versus-check
  * rounding allowances proves the miss. Designs with a follower are admitted unscreened (the bound takes follower-free
  * ladders).
@@ -33,20 +33,14 @@ export function cornerScreen(corners: (project: Project, ladder: Ladder) => Ladd
     const ladder = problem.ladderOf(r, c);
     if (ladder.stages.some((s) => s.buffered)) return true;
     const { limits, dutyMin, dutyMax } = problem;
-    const dNear = Math.min(dutyMax, Math.max(dutyMin, 0.5));
     for (const corner of corners(problem.project, ladder)) {
       const fullScale = Math.abs(corner.high - corner.low);
       const beyond = (value: number, limit: number | undefined, floor: number) =>
         limit !== undefined && value - 10 * Math.max(REL * Math.abs(value), floor) > limit;
       const model = modalLadder(corner);
       if (model === null) continue;
-      // steadySwing's ripple and average, each alone (rippleAt, modalAverageOutput: same numbers, less
-      // work). The ripple at the duty nearest 50 % first: one value, a lower bound on the worst,
-      // that decided every ripple miss of the wide E24 bench's screen (343 of 774 designs, counted).
-      if (limits.ripple !== undefined) {
-        if (beyond(rippleAt(model, dNear), limits.ripple, 1e-12 * fullScale)) return false;
-        if (beyond(maximizeOverDuty((d) => rippleAt(model, d), dutyMin, dutyMax), limits.ripple, 1e-12 * fullScale)) return false;
-      }
+      // steadySwing's ripple and average, each alone (rippleAt, modalAverageOutput: same numbers, less work)
+      if (limits.ripple !== undefined && beyond(maximizeOverDuty((d) => rippleAt(model, d), dutyMin, dutyMax), limits.ripple, 1e-12 * fullScale)) return false;
       if (limits.droop !== undefined) {
         const droop = maximizeOverDuty((d) => Math.abs(corner.low + d * (corner.high - corner.low) - modalAverageOutput(model, d)), dutyMin, dutyMax);
         if (beyond(droop, limits.droop, 1e-12 * fullScale)) return false;

@@ -4,7 +4,8 @@ import type { Project } from '../project/types.js';
 import { seriesValues } from '../units/index.js';
 import { DesignInputError } from './designInputError.js';
 import { projectAtResolution } from './projectAtResolution.js';
-import { designLimits, type DesignLimits } from './types.js';
+import { designLimits } from './designLimits.js';
+import type { DesignLimits } from './types.js';
 
 /** One design problem: the project at one resolution, reduced to the numbers the search needs. */
 export interface DesignProblem {

@@ -90,29 +90,17 @@ function anyOrder(n: number, into?: ModalLadder): ModalLadder {
       delta[i] += hb[j * n + i] * CS[j] * DC_DELTA[j];
     }
   }
-  if (reuse) {
-    const m = into as { -readonly [K in keyof ModalLadder]: ModalLadder[K] };
-    m.period = K[PERIOD];
-    m.high = K[HIGH];
-    m.low = K[LOW];
-    m.outLow = gLow[n - 1] * K[LOW];
-    m.outHigh = G_HIGH[n - 1] * K[HIGH];
-    return m;
-  }
-  return {
-    n,
-    period: K[PERIOD],
-    high: K[HIGH],
-    low: K[LOW],
-    symmetric: true,
-    hi: high.modes,
-    lo: low.modes,
-    mix,
-    delta,
-    outLow: gLow[n - 1] * K[LOW],
-    outHigh: G_HIGH[n - 1] * K[HIGH],
-    condition: 1,
+  // One write path: a new form (its keys in smallLadder's order, so one hidden class; numbers
+  // first written as doubles), or `into` overwritten field by field.
+  const m = (reuse ? into : { n, period: 0.5, high: 0.5, low: 0.5, symmetric: true, hi: high.modes, lo: low.modes, mix, delta, outLow: 0.5, outHigh: 0.5, condition: 1 }) as {
+    -readonly [K in keyof ModalLadder]: ModalLadder[K];
   };
+  m.period = K[PERIOD];
+  m.high = K[HIGH];
+  m.low = K[LOW];
+  m.outLow = gLow[n - 1] * K[LOW];
+  m.outHigh = G_HIGH[n - 1] * K[HIGH];
+  return m;
 }
 
 /**
