@@ -813,8 +813,9 @@ export function collectCandidates(
     // p - 1 grows), so a search stops there without a check, and needs none when the step so far
     // already reached it.
     const prior = !budgeted && p >= 1 && lastSteps.rs === rs && lastSteps.limit === rippleLimit && sameAs(lastSteps.before, cs.slice(0, p - 1)) && lastSteps.at < cs[p - 1] ? lastSteps.steps : null;
-    const steps = new Int32Array(nC).fill(-1);
-    if (p >= 1) lastSteps = { rs, limit: rippleLimit, before: cs.slice(0, p - 1), at: cs[p - 1], steps };
+    // (kept for the next slice's staircase; two stages have no slices: none)
+    const steps = p >= 1 ? new Int32Array(nC).fill(-1) : null;
+    if (steps !== null) lastSteps = { rs, limit: rippleLimit, before: cs.slice(0, p - 1), at: cs[p - 1], steps };
     let s = -1;
     for (let a = top; a >= 0; a--) {
       const u = prior !== null && prior[a] >= 0 && prior[a] <= bMax ? prior[a] : -1;
@@ -831,7 +832,7 @@ export function collectCandidates(
         if (u >= s) while (s < u && !rippleOk(rs, look(a, s))) s++;
         else while (s <= bMax && !rippleOk(rs, look(a, s))) s++;
       }
-      if (s <= bMax) steps[a] = s;
+      if (s <= bMax && steps !== null) steps[a] = s;
       if (s > bMax) break; // smaller first capacitors only raise the ripple
       if (!within(look(0, s))) break; // every remaining column starts at or above s
       if (within(look(a, s))) {

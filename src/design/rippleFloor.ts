@@ -1,4 +1,5 @@
 import type { DesignProblem } from './designProblem.js';
+import { modulus } from '../numeric/modulus.js';
 import { pinDriveStep } from './pinDriveStep.js';
 
 /** The resistor-only part of the ripple floor of one resistor choice (rippleFloorPlan). */
@@ -108,5 +109,5 @@ export function rippleFloor(plan: RippleFloorPlan, c: ArrayLike<number>, duty: n
     re1 = re;
     im1 = im;
   }
-  return (plan.couplings * drive) / Math.hypot(re1, im1);
+  return (plan.couplings * drive) / modulus(re1, im1);
 }

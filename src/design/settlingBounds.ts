@@ -1,4 +1,5 @@
 import type { DesignProblem } from './designProblem.js';
+import { requiredAttenuation } from './requiredAttenuation.js';
 import { settlingFloorPlan, type SettlingFloorPlan } from './settlingFloor.js';
 import { threeStageSpread, threeStageTauMin } from './threeStageSpread.js';
 
@@ -13,8 +14,10 @@ export interface TupleBounds {
   factor: number;
   /** s subtracted from tau * factor (0 when the circuit is time-invariant). */
   slack: number;
-  /** Lower bound on the slowest time constant of any feasible capacitor choice, s. */
+  /** Lower bound on the slowest time constant of the fast ladder of any feasible capacitor choice, s. */
   tauMin: number;
+  /** tauMin as budgeted walks take it (the older, for unequal drivers unproven bound; see tupleBounds), s. */
+  budgetTauMin: number;
   /**
    * The resistor-only part of the proven settling floor (settlingFloor.ts), for the same limits,
    * or the plan the caller passed to tupleBounds (a scratch plan, or NO_FLOOR: floor 0).
@@ -84,20 +87,23 @@ export function settlingLogFactor(problem: DesignProblem, limits: DesignProblem[
  * steady state above its average) <= band + P, and z(0) >= S - 2P with S = g |to - from| (high -
  * low) and P = min(band, ripple limit): hence t_s >= tau_slow ln((S - 2P) / (band + P)).
  * (Falling steps by symmetry.) With unequal drivers the circuit switches between two linear
- * systems and no proof is offered: both bounds are applied with the smaller driver resistance
- * (shorter time constants), the settling bound with a slack of two periods and tauMin scaled by
- * 0.8 (in 1281 random feasible designs the unscaled bounds still had >= 20 % and >= 10 % of room);
- * the tests compare the search with exhaustive search on such circuits.
+ * systems: the settling bound `factor` is applied with the smaller driver resistance (shorter time
+ * constants) and a slack of two periods, without proof (in 1281 random feasible designs it still
+ * had >= 10 % of room); only budgeted walks use it, the others the proven settlingFloor.ts.
  *
- * Method (ripple). Peak-to-peak >= (pi/2) |fundamental| for any periodic signal; the PWM input's
- * fundamental is (2/pi) (high - low) sin(pi D), so ripple >= (high - low) sin(pi D) |H(j w)|.
- * A ripple limit (and settling at all: ripple <= 2 band at the target duty) caps |H(j w)| at h*,
- * so prod(1 + w^2 tau_i^2) >= (g / h*)^2 = Gamma. One stage: tau >= sqrt(Gamma - 1) / w. Two
- * stages: with tau_a >= tau_b, tau_a + tau_b = trace(G^-1 C) >= 2 sqrt(kappa tau_a tau_b),
+ * Method (ripple). A ripple limit (and settling at all: ripple <= 2 band at the target duty)
+ * needs prod(1 + w^2 tau_i^2) >= Gamma over the time constants of the fast ladder (the smaller
+ * driver resistance; for equal drivers the ladder itself), Gamma from the ripple floor
+ * (requiredAttenuation.ts, proven for equal and unequal drivers; for equal drivers the
+ * fundamental bound ripple >= (high - low) sin(pi D) |H(j w)|, so Gamma = (g / h*)^2 with h* of
+ * transferCap). One stage: tau >= sqrt(Gamma - 1) / w. Two stages: with tau_a >= tau_b, tau_a + tau_b = trace(G^-1 C) >= 2 sqrt(kappa tau_a tau_b),
  * kappa = (G^-1)_11 (G^-1)_22 / det(G^-1), so tau_b <= tau_a / phi^2 with phi = sqrt(kappa) +
  * sqrt(kappa - 1), and (1 + u)(1 + u / phi^4) >= Gamma with u = w^2 tau_a^2. Three stages:
- * (1 + u)^3 >= Gamma, and for equal drivers the sharper (1 + u)^2 (1 + u p*^2) >= Gamma, p* from
- * the ladder's pole spread (threeStageSpread.ts).
+ * (1 + u)^3 >= Gamma, and the sharper (1 + u)^2 (1 + u p*^2) >= Gamma, p* from the fast ladder's
+ * pole spread (threeStageSpread.ts). budgetTauMin, for budgeted walks only, is the older form of
+ * the same: Gamma from the slower driver's DC gain, the spread for equal drivers only, and for
+ * unequal drivers 0.8 times that, without proof (in 1281 random feasible designs it kept >= 20 %
+ * of room); replacing it would move the explanations' budget cut.
  *
  * `limits` (default problem.searchLimits) are the limits the capacitor choices must meet: the
  * trade-off walk (paretoSearch.ts) asks with each of its ripple limits in turn.
@@ -123,27 +129,39 @@ export function tupleBounds(
   const gain = load.resistance === undefined ? 1 : load.resistance / (load.resistance + series);
 
   const factor = settlingLogFactor(problem, limits, gain);
-  // |H(j w)| cap from the ripple limit and from settling at all.
-  const hStar = transferCap(problem, limits);
-  let tauMin = 0;
-  const gamma = (gain / hStar) ** 2;
-  if (gamma > 1) {
-    const omega = (2 * Math.PI) / period;
-    let u: number;
-    if (n === 1) u = gamma - 1;
-    else if (n === 2) {
-      const g1 = 1 / (r[0] + driver);
-      const g2 = 1 / r[1];
-      const gL = load.resistance === undefined ? 0 : 1 / load.resistance;
-      const kappa = ((g1 + g2) * (g2 + gL)) / (g1 * g2 + g1 * gL + g2 * gL);
-      const phi = Math.sqrt(kappa) + Math.sqrt(Math.max(0, kappa - 1));
-      const q = phi ** -4;
-      u = (2 * (gamma - 1)) / (1 + q + Math.sqrt((1 + q) ** 2 + 4 * q * (gamma - 1)));
-    } else u = Math.cbrt(gamma) - 1;
-    tauMin = Math.sqrt(u) / omega;
-    // Three stages, time-invariant: the ladder keeps its poles apart (threeStageSpread.ts).
-    if (n === 3 && lti) tauMin = Math.max(tauMin, threeStageTauMin(gamma, threeStageSpread(r, driver, load.resistance ?? null), omega));
-  }
-  if (!lti) tauMin *= 0.8;
-  return { driver, factor, slack: lti ? 0 : 2 * period, tauMin, floor: floor ?? settlingFloorPlan(problem, r, limits) };
+  const omega = (2 * Math.PI) / period;
+  const loadR = load.resistance ?? null;
+  // The fast ladder's least attenuation at the PWM frequency from the ripple limit and from
+  // settling at all (requiredAttenuation.ts, proven for unequal drivers too).
+  const tauMin = slowestFromAttenuation(requiredAttenuation(problem, r, limits), r, driver, loadR, omega, true);
+  // Budgeted walks (the explanations' side searches) keep the bound they were tuned with, so their
+  // cut stays where it was: the fundamental bound with the slower driver's gain, the pole spread
+  // for equal drivers only, and for unequal drivers scaled by 0.8 without proof.
+  const legacy = slowestFromAttenuation((gain / transferCap(problem, limits)) ** 2, r, driver, loadR, omega, lti);
+  const budgetTauMin = lti ? legacy : 0.8 * legacy;
+  return { driver, factor, slack: lti ? 0 : 2 * period, tauMin, budgetTauMin, floor: floor ?? settlingFloorPlan(problem, r, limits) };
+}
+
+/**
+ * The least slowest time constant of a ladder with resistors `r` (pin side first, driven through
+ * `driver`, load `loadR`) whose time constants satisfy prod(1 + w^2 tau_i^2) >= gamma: the
+ * ripple part of tupleBounds (see its Method), with the three-stage pole spread when `spread`.
+ */
+function slowestFromAttenuation(gamma: number, r: ArrayLike<number>, driver: number, loadR: number | null, omega: number, spread: boolean): number {
+  if (!(gamma > 1)) return 0;
+  const n = r.length;
+  let u: number;
+  if (n === 1) u = gamma - 1;
+  else if (n === 2) {
+    const g1 = 1 / (r[0] + driver);
+    const g2 = 1 / r[1];
+    const gL = loadR === null ? 0 : 1 / loadR;
+    const kappa = ((g1 + g2) * (g2 + gL)) / (g1 * g2 + g1 * gL + g2 * gL);
+    const phi = Math.sqrt(kappa) + Math.sqrt(Math.max(0, kappa - 1));
+    const q = phi ** -4;
+    u = (2 * (gamma - 1)) / (1 + q + Math.sqrt((1 + q) ** 2 + 4 * q * (gamma - 1)));
+  } else u = Math.cbrt(gamma) - 1;
+  const tau = Math.sqrt(u) / omega;
+  // Three stages: the ladder keeps its poles apart (threeStageSpread.ts).
+  return n === 3 && spread ? Math.max(tau, threeStageTauMin(gamma, threeStageSpread(r, driver, loadR), omega)) : tau;
 }

@@ -77,6 +77,40 @@ describe('tupleBounds: lower bounds the search prunes with (equal drivers: prove
     expect(checked).toBeGreaterThan(20);
   });
 
+  it('tauMin never exceeds the fast ladder\'s slowest time constant of a design at its own ripple limit, unequal drivers, 1 to 3 stages (fast-check)', () => {
+    // Proven through the ripple floor (requiredAttenuation.ts): any design that meets the ripple
+    // limit and settles at all has a fast ladder (the smaller driver resistance) this slow. Each
+    // drawn design is given its own worst ripple as the limit (and as the band, so that it
+    // settles): it lies on the bound's boundary, where an overestimate would show.
+    const arb = fc.record({
+      n: fc.integer({ min: 1, max: 3 }),
+      logR: fc.array(fc.double({ min: 2.5, max: 5, noNaN: true }), { minLength: 3, maxLength: 3 }),
+      logC: fc.array(fc.double({ min: -9, max: -5.5, noNaN: true }), { minLength: 3, maxLength: 3 }),
+      high: fc.double({ min: 5, max: 120, noNaN: true }),
+      low: fc.double({ min: 5, max: 120, noNaN: true }),
+      load: fc.option(fc.double({ min: 4, max: 7, noNaN: true })),
+      logF: fc.double({ min: 3.5, max: 5, noNaN: true }),
+    });
+    let closest = Infinity;
+    fc.assert(
+      fc.property(arb, (x) => {
+        const first = problemOf({ f: 10 ** x.logF, driverHigh: x.high, driverLow: x.low, load: x.load === null ? null : 10 ** x.load, ripple: 1, band: 1 });
+        const r = x.logR.slice(0, x.n).map((v) => 10 ** v);
+        const c = x.logC.slice(0, x.n).map((v) => 10 ** v);
+        const ripple = worstRipple(first.ladderOf(r, c), first.dutyMin, first.dutyMax).ripple;
+        if (!(ripple > 0)) return true;
+        const p = problemOf({ f: 10 ** x.logF, driverHigh: x.high, driverLow: x.low, load: x.load === null ? null : 10 ** x.load, ripple, band: ripple });
+        const tb = tupleBounds(p, r);
+        const tau = slowestTimeConstant(r, c, tb.driver, p.circuit.loadResistance, p.circuit.loadCapacitance);
+        if (tb.tauMin > 0) closest = Math.min(closest, tau / tb.tauMin);
+        return tb.driver === Math.min(x.high, x.low) && tb.tauMin <= tau * (1 + 1e-9);
+      }),
+      { numRuns: 300 },
+    );
+    // and it is close: within 25 % for some design (ptp >= pi |c1| gives up 4 / pi on a sine)
+    expect(closest).toBeLessThan(1.25);
+  });
+
   it('the droop floor ideal * Rs / (RL + Rs) holds with the high-side driver the weaker (fast-check)', () => {
     // Derived in collectCandidates.ts from DC current balance; checked here against the engine.
     const arb = fc.record({

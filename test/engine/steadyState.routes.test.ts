@@ -31,6 +31,9 @@ const EPS = 2 ** -52;
 // uniform over 0..1, plus the ends and duties next to them
 const duty = fc.oneof(unitInterval, unitInterval, unitInterval, fc.constantFrom(0, 1, 1e-9, 1 - 1e-9));
 
+/** Units of unit() the two routes may differ by (see unit). */
+const ALLOWED_UNITS = 32;
+
 /**
  * Rounding allowed between the two routes at the given duties, V. The matrix exponentials solve
  * (K_l + E_l K_h) u = E_l K_h Delta (dutyPlan.ts), whose forward error is bounded by about
@@ -40,7 +43,10 @@ const duty = fc.oneof(unitInterval, unitInterval, unitInterval, fc.constantFrom(
  * 26(4), 2005, section 3). The modal route diagonalises instead and showed no such loss: on every
  * disagreement fast-check found while this was set, 80-digit mpmath references put the modal
  * route within 2e-15 of the level and the exponentials up to 1.7 kappa(S) eps of it. Unit: eps times
- * the level times kappa(S) + 1 + T / tau_min; the tests allow 16 of them.
+ * the level times kappa(S) + 1 + T / tau_min; the tests allow ALLOWED_UNITS of them (16 until
+ * fast-check found a three-stage ladder, T / tau_min about 100, where the exponentials missed by 19
+ * units while the modal route stayed within 5e-15 V of the 80-digit reference: that ladder is now a
+ * case of steadyState.highPrecision.test.ts).
  */
 function unit(l: Ladder, duties: number[]): number {
   const p = prepare(l);
@@ -59,7 +65,7 @@ function unit(l: Ladder, duties: number[]): number {
 }
 
 describe('the modal route against the matrix exponentials (fast-check, random ladders)', () => {
-  it('steadyState: average, min, max within 16 units; ripple within 1e-9 relative plus 16 units', () => {
+  it('steadyState: average, min, max within ALLOWED_UNITS units; ripple within 1e-9 relative plus ALLOWED_UNITS units', () => {
     // 1e-9 relative: the ripple of n stages is about (T/tau)^n of the level while each modal term
     // is about T/tau of it, so both methods lose about (tau/T)^(n-1) to cancellation when the ripple
     // is tiny; the absolute term covers that.
@@ -68,7 +74,7 @@ describe('the modal route against the matrix exponentials (fast-check, random la
         fc.pre(hasModalForm(l));
         const a = steadyState(l, d);
         const b = steadyStateByExpm(l, d);
-        const u = 16 * unit(l, [d]);
+        const u = ALLOWED_UNITS * unit(l, [d]);
         expect(Math.abs(a.average - b.average)).toBeLessThanOrEqual(u);
         expect(Math.abs(a.min - b.min)).toBeLessThanOrEqual(u);
         expect(Math.abs(a.max - b.max)).toBeLessThanOrEqual(u);
@@ -105,12 +111,12 @@ describe('the modal route against the matrix exponentials (fast-check, random la
     );
   });
 
-  it('averageOutput within 16 units of averageOutputByExpm', () => {
+  it('averageOutput within ALLOWED_UNITS units of averageOutputByExpm', () => {
     fc.assert(
       fc.property(filterLadderArb, duty, (l, d) => {
         fc.pre(hasModalForm(l));
         const p = prepare(l);
-        expect(Math.abs(averageOutput(l, p, d) - averageOutputByExpm(p, d))).toBeLessThanOrEqual(16 * unit(l, [d]));
+        expect(Math.abs(averageOutput(l, p, d) - averageOutputByExpm(p, d))).toBeLessThanOrEqual(ALLOWED_UNITS * unit(l, [d]));
       }),
       { numRuns: 300 },
     );
@@ -129,9 +135,9 @@ describe('the modal route against the matrix exponentials (fast-check, random la
         const dc = dcTransfer(l, a, b);
         const dcRef = dcTransfer(l, a, b, 'expm');
         const u = unit(l, [a, b, w.duty, wRef.duty, dc.droop.duty, dcRef.droop.duty, dc.inl.duty, dcRef.inl.duty]);
-        expect(Math.abs(w.ripple - wRef.ripple), 'worst ripple').toBeLessThanOrEqual(1e-9 * wRef.ripple + 16 * u);
-        const fit = 32 * u * (1 + 1 / Math.max(b - a, Number.MIN_VALUE));
-        expect(Math.abs(dc.droop.error - dcRef.droop.error), 'droop').toBeLessThanOrEqual(32 * u);
+        expect(Math.abs(w.ripple - wRef.ripple), 'worst ripple').toBeLessThanOrEqual(1e-9 * wRef.ripple + ALLOWED_UNITS * u);
+        const fit = 2 * ALLOWED_UNITS * u * (1 + 1 / Math.max(b - a, Number.MIN_VALUE));
+        expect(Math.abs(dc.droop.error - dcRef.droop.error), 'droop').toBeLessThanOrEqual(2 * ALLOWED_UNITS * u);
         expect(Math.abs(dc.inl.error - dcRef.inl.error), 'inl').toBeLessThanOrEqual(fit);
         expect(Math.abs(dc.gainError - dcRef.gainError), 'gain').toBeLessThanOrEqual(fit);
         expect(Math.abs(dc.offsetError - dcRef.offsetError), 'offset').toBeLessThanOrEqual(fit);

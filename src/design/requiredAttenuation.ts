@@ -1,0 +1,50 @@
+import type { DesignProblem } from './designProblem.js';
+import { rippleFloorPlan, type RippleFloorPlan } from './rippleFloor.js';
+import { REL } from './searchAllowance.js';
+
+/**
+ * The least squared attenuation at the PWM frequency, prod(1 + w^2 tau_i^2) over the time
+ * constants tau_i of the fast ladder (eigenvalues of G^-1 C, G with the larger pin conductance of
+ * rippleFloorPlan, C with the load's), that any capacitor choice of resistors `r` needs to meet the
+ * ripple limit at the duty nearest 50 % in range and to settle at all (ripple at most 2 band at
+ * every step's target duty); 0 when nothing binds. Equal and unequal drivers alike.
+ *
+ * Method (derived here): G is symmetric positive definite, so G^-1 C has real positive eigenvalues
+ * tau_i and det(G + j w C) = det(G) prod(1 + j w tau_i). The ripple floor (rippleFloor.ts) gives
+ * ripple(D) >= couplings drive(D) / |det(G + j w C)|, drive(D) = f sin(pi D) - the mismatch's
+ * share, so ripple(D) <= L needs prod(1 + w^2 tau_i^2) >= (couplings drive(D) / (det(G) L))^2.
+ * det(G) is the continuant of the tridiagonal G (any linear algebra text). For equal drivers
+ * couplings f / det(G) is the ladder's DC gain times (high - low), and this is the fundamental
+ * bound of settlingBounds.ts. Limits are taken with the search's allowance (searchAllowance.ts).
+ *
+ * Syntax: requiredAttenuation(problem, r[, limits[, plan]])
+ * Example: requiredAttenuation(problem, [470, 16e3])   // prod(1 + w^2 tau_i^2) >= this
+ *
+ * See also: rippleFloor, tupleBounds
+ */
+export function requiredAttenuation(
+  problem: DesignProblem,
+  r: ArrayLike<number>,
+  limits: DesignProblem['limits'] = problem.searchLimits,
+  plan: RippleFloorPlan = rippleFloorPlan(problem, r),
+): number {
+  const { g } = plan;
+  const n = g.length - 1;
+  // det(G): D_k = (g_k + g_(k+1)) D_(k-1) - g_k^2 D_(k-2), D_(-1) = 0, D_0 = 1
+  let before = 0;
+  let det = 1;
+  for (let i = 0; i < n; i++) {
+    const next = (g[i] + g[i + 1]) * det - (i === 0 ? 0 : g[i] * g[i]) * before;
+    before = det;
+    det = next;
+  }
+  const perDrive = plan.couplings / det;
+  let gamma = 0;
+  const need = (duty: number, limit: number) => {
+    const drive = plan.drive * Math.sin(Math.PI * duty) - plan.mismatch * (plan.highDiffers ? duty : 1 - duty);
+    if (drive > 0) gamma = Math.max(gamma, ((perDrive * drive) / (limit * (1 + REL))) ** 2);
+  };
+  if (limits.ripple !== undefined) need(Math.min(problem.dutyMax, Math.max(problem.dutyMin, 0.5)), limits.ripple);
+  for (const [, to] of problem.steps) need(to, 2 * problem.band);
+  return gamma;
+}
