@@ -475,11 +475,12 @@ export function collectCandidates(
     if (checkDroop && !miss) miss = exceeds(droopError(gridDuty(droopMissAt)), limits.droop);
     if (!inlApplies && !miss) miss = dcTransferMiss(problem, averageNow) !== null;
     if (miss) return;
-    // Cheap bound first (settlingBounds.ts, method; exact for equal drivers): tau_slow ln(z0 / (band + excursion)).
-    // A steady state at the target that itself leaves the band never settles (settlingLowerBound
+    // Cheap bound first, for equal drivers (settlingBounds.ts, method: proven there for a
+    // time-invariant ladder): tau_slow ln(z0 / (band + excursion)); unequal drivers go on to the
+    // model's bound below, which holds for both. A steady state at the target that itself leaves the band never settles (settlingLowerBound
     // says Infinity): its excursions about the average, from the same steady state (rounding
     // apart, hence NEVER_SETTLES), decide that without the settling bound's period map.
-    const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);
+    const tau = lti ? slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) : 0;
     for (let j = 0; j < problem.steps.length; j++) {
       const step = problem.steps[j];
       const a = lite(rs, cs, step[0]);
@@ -487,7 +488,7 @@ export function collectCandidates(
       if (Math.max(b.above, b.below) > problem.band * NEVER_SETTLES) return;
       const z0 = Math.abs(b.yStart - a.yStart);
       const excursion = b.yStart > a.yStart ? b.above : b.below;
-      if (z0 > problem.band + excursion && tau * Math.log(z0 / (problem.band + excursion)) - tb.slack > theta) return;
+      if (lti && z0 > problem.band + excursion && tau * Math.log(z0 / (problem.band + excursion)) > theta) return;
     }
     const model = use(rs, cs);
     let lb = 0;
