@@ -6,6 +6,7 @@ import { dcTransferMiss } from './dcTransferMiss.js';
 import { droopFloor, droopFloorPlan, type DroopFloorPlan } from './droopFloor.js';
 import { inlFloor, inlFloorPlan, type InlFloorPlan } from './inlFloor.js';
 import { maximizeOverDuty } from './maximizeOverDuty.js';
+import { rippleCeiling, rippleCeilingPlan, type RippleCeilingPlan } from './rippleCeiling.js';
 import { rippleFloor, rippleFloorPlan, type RippleFloorPlan } from './rippleFloor.js';
 import { tupleBounds, type TupleBounds } from './settlingBounds.js';
 import { NO_FLOOR, settlingFloor, settlingFloorPlan } from './settlingFloor.js';
@@ -323,6 +324,7 @@ export function collectCandidates(
   const rippleOver = (rs: number[], cs: number[], d: number, limit: number | undefined): boolean => {
     if (limit === undefined) return false;
     if (floorOver(rs, cs, d, limit)) return true;
+    if (ceilingUnder(rs, cs, d, limit)) return false;
     touch(rs, cs);
     use(rs, cs);
     if (stages >= 3 && swingOf[slot(d)] === null) {
@@ -353,6 +355,24 @@ export function collectCandidates(
       floorR = rs.slice();
     }
     return exceeds(rippleFloor(floorPlan, cs, d), limit);
+  };
+
+  /**
+   * From three stages on, the ripple ceiling (rippleCeiling.ts: the output's harmonics, a few
+   * continuants, no model) at duty d is within `limit`: the exact ripple is then within it too.
+   * Most ripple checks of a three-stage walk pass (the staircases' steps and the corners of
+   * deadThrough), and a passing check needs no model unless the point is then evaluated; the
+   * ceiling decides most of them. Budgeted walks go without it (their cut counts fast evaluations).
+   */
+  let ceilingR: number[] = [];
+  let ceilingPlan: RippleCeilingPlan | null = null;
+  const ceilingUnder = (rs: number[], cs: number[], d: number, limit: number): boolean => {
+    if (budgeted || stages < 3) return false;
+    if (ceilingPlan === null || !sameAs(rs, ceilingR)) {
+      ceilingPlan = rippleCeilingPlan(problem, rs);
+      ceilingR = rs.slice();
+    }
+    return ceilingPlan !== null && rippleCeiling(ceilingPlan, cs, d) <= limit;
   };
 
   /** Steady-state figures for the cheap checks. */

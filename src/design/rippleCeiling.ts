@@ -1,0 +1,115 @@
+import type { DesignProblem } from './designProblem.js';
+import { modulus } from '../numeric/modulus.js';
+
+/** The resistor-only part of the ripple ceiling of one resistor choice (rippleCeilingPlan). */
+export interface RippleCeilingPlan {
+  /** Conductances of the fast ladder, S: [pin side (the larger of the two phases'), 1 / r2, ..., 1 / rn, load (0 without one)]. */
+  readonly g: readonly number[];
+  /** Load capacitance at the last node, F. */
+  readonly loadC: number;
+  /** PWM angular frequency, rad/s. */
+  readonly omega: number;
+  /** Product of the couplings 1 / r2 ... 1 / rn. */
+  readonly couplings: number;
+  /** Largest size of the pin's drive step over node-1 averages in the nodes' range, A. */
+  readonly driveMax: number;
+  /** |g_H - g_L| (hi - lo), A: the most the driver mismatch adds to any coefficient, per unit duty. */
+  readonly mismatch: number;
+  /** The high phase's conductance is the smaller one (the mismatch acts during the high phase). */
+  readonly highDiffers: boolean;
+}
+
+/** Harmonics summed one by one; the rest are bounded through det(C) (see rippleCeiling). */
+const HARMONICS = 6;
+
+/**
+ * The resistor-only part of an upper bound on the ripple of every ladder of two or more stages
+ * with series resistors `r` (pin side first) in the problem's circuit, equal or unequal drivers;
+ * rippleCeiling finishes it for given capacitors and a duty. Null for one stage (the bound's tail
+ * needs two poles).
+ *
+ * Syntax: rippleCeilingPlan(problem, r)
+ * Example: rippleCeiling(rippleCeilingPlan(problem, [470, 3300, 12e3])!, [390e-9, 39e-9, 10e-9], 0.5)   // V, at least the ripple at 50 %
+ */
+export function rippleCeilingPlan(problem: DesignProblem, r: ArrayLike<number>): RippleCeilingPlan | null {
+  const n = r.length;
+  if (n < 2) return null;
+  const k = problem.circuit;
+  const gH = 1 / (k.driverHigh + r[0]);
+  const gL = 1 / (k.driverLow + r[0]);
+  // Node voltages stay between the levels and ground (pinDriveStep.ts).
+  const lo = Math.min(k.low, k.high, 0);
+  const hi = Math.max(k.low, k.high, 0);
+  const step = (m: number) => Math.abs(gH * (k.high - m) - gL * (k.low - m));
+  const g = [Math.max(gH, gL)];
+  let couplings = 1;
+  for (let i = 1; i < n; i++) {
+    g.push(1 / r[i]);
+    couplings /= r[i];
+  }
+  g.push(k.loadResistance === null ? 0 : 1 / k.loadResistance);
+  return {
+    g,
+    loadC: k.loadCapacitance,
+    omega: (2 * Math.PI) / problem.period,
+    couplings,
+    // linear in m: its largest size is at an end of the range
+    driveMax: Math.max(step(lo), step(hi)),
+    mismatch: Math.abs(gH - gL) * (hi - lo),
+    highDiffers: gH < Math.max(gH, gL),
+  };
+}
+
+/**
+ * An upper bound on the ripple (V, peak-to-peak output in periodic steady state) at duty `duty` of
+ * the ladder of `plan` (rippleCeilingPlan) with capacitors `c`: a ripple check it passes is one the
+ * exact check passes too, so a search may skip the model there. Close to the ripple where the
+ * ladder passes little but the fundamental (a few per cent above it for three stages).
+ *
+ * Method (derived here, the companion of rippleFloor.ts). With c_k the output's complex Fourier
+ * coefficients, |x(t) - mean| <= sum_(k != 0) |c_k|, so peak-to-peak <= 4 sum_(k >= 1) |c_k|
+ * (equality for a sine). As in rippleFloor.ts, c_k = (g2 ... gn / det(G + j k w C)) (c_k[g (u -
+ * m)] - c_k[(g - g0)(v1 - m)]) with the fast ladder's G: the first term is a two-level pulse train,
+ * |c_k| = |g_H (high - m) - g_L (low - m)| |sin(pi k D)| / (pi k) <= driveMax |sin(pi k D)| /
+ * (pi k); the second is at most |g_H - g_L| D' (hi - lo) ((1/T) int |.|, v1 and m in [lo, hi]),
+ * D' the duty of the phase whose conductance is not g0. The first HARMONICS terms are summed with
+ * det(G + j k w C) by the continuant recurrence; beyond them |det(G + j s C)| = det(C) prod |j s +
+ * 1 / tau_i| >= det(C) s^n (real poles), so the rest is at most couplings / (det(C) w^n) times
+ * driveMax / pi sum k^-(n+1) + mismatch D' sum k^-n over k > HARMONICS, each sum at most its
+ * integral from HARMONICS (n >= 2).
+ *
+ * Syntax: rippleCeiling(plan, c, duty)
+ * Example: rippleCeiling(rippleCeilingPlan(problem, [470, 3300, 12e3])!, [390e-9, 39e-9, 10e-9], 0.5)   // V
+ */
+export function rippleCeiling(plan: RippleCeilingPlan, c: ArrayLike<number>, duty: number): number {
+  const { g, omega } = plan;
+  const n = g.length - 1;
+  const lost = plan.mismatch * (plan.highDiffers ? duty : 1 - duty);
+  let sum = 0;
+  for (let k = 1; k <= HARMONICS; k++) {
+    const w = k * omega;
+    // D_(k-2), D_(k-1) as (re, im): D_(-1) = 0, D_0 = 1
+    let re2 = 0;
+    let im2 = 0;
+    let re1 = 1;
+    let im1 = 0;
+    for (let i = 0; i < n; i++) {
+      const a = g[i] + g[i + 1];
+      const b = w * (i === n - 1 ? c[i] + plan.loadC : c[i]);
+      const couple = i === 0 ? 0 : g[i] * g[i];
+      const re = a * re1 - b * im1 - couple * re2;
+      const im = a * im1 + b * re1 - couple * im2;
+      re2 = re1;
+      im2 = im1;
+      re1 = re;
+      im1 = im;
+    }
+    sum += ((plan.driveMax * Math.abs(Math.sin(Math.PI * k * duty))) / (Math.PI * k) + lost) / modulus(re1, im1);
+  }
+  let detC = 1;
+  for (let i = 0; i < n; i++) detC *= i === n - 1 ? c[i] + plan.loadC : c[i];
+  // sum over k > K of k^-p <= K^(1 - p) / (p - 1)
+  const tail = (p: number) => HARMONICS ** (1 - p) / (p - 1);
+  sum += ((plan.driveMax / Math.PI) * tail(n + 1) + lost * tail(n)) / (detC * omega ** n);
+  return 4 * plan.couplings * sum;
+}
