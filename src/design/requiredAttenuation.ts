@@ -1,6 +1,7 @@
 import type { DesignProblem } from './designProblem.js';
 import { rippleFloorPlan, type RippleFloorPlan } from './rippleFloor.js';
 import { REL } from './searchAllowance.js';
+import { ladderDeterminant } from './ladderDeterminant.js';
 
 /**
  * The least squared attenuation at the PWM frequency, prod(1 + w^2 tau_i^2) over the time
@@ -13,7 +14,7 @@ import { REL } from './searchAllowance.js';
  * tau_i and det(G + j w C) = det(G) prod(1 + j w tau_i). The ripple floor (rippleFloor.ts) gives
  * ripple(D) >= couplings drive(D) / |det(G + j w C)|, drive(D) = f sin(pi D) - the mismatch's
  * share, so ripple(D) <= L needs prod(1 + w^2 tau_i^2) >= (couplings drive(D) / (det(G) L))^2.
- * det(G) is the continuant of the tridiagonal G (any linear algebra text). For equal drivers
+ * det(G) by ladderDeterminant.ts (w = 0). For equal drivers
  * couplings f / det(G) is the ladder's DC gain times (high - low), and this is the fundamental
  * bound of settlingBounds.ts. Limits are taken with the search's allowance (searchAllowance.ts).
  *
@@ -28,17 +29,7 @@ export function requiredAttenuation(
   limits: DesignProblem['limits'] = problem.searchLimits,
   plan: RippleFloorPlan = rippleFloorPlan(problem, r),
 ): number {
-  const { g } = plan;
-  const n = g.length - 1;
-  // det(G): D_k = (g_k + g_(k+1)) D_(k-1) - g_k^2 D_(k-2), D_(-1) = 0, D_0 = 1
-  let before = 0;
-  let det = 1;
-  for (let i = 0; i < n; i++) {
-    const next = (g[i] + g[i + 1]) * det - (i === 0 ? 0 : g[i] * g[i]) * before;
-    before = det;
-    det = next;
-  }
-  const perDrive = plan.couplings / det;
+  const perDrive = plan.couplings / ladderDeterminant(plan.g, [], 0, 0);
   let gamma = 0;
   const need = (duty: number, limit: number) => {
     const drive = plan.drive * Math.sin(Math.PI * duty) - plan.mismatch * (plan.highDiffers ? duty : 1 - duty);

@@ -1,5 +1,5 @@
 import type { DesignProblem } from './designProblem.js';
-import { modulus } from '../numeric/modulus.js';
+import { ladderDeterminant } from './ladderDeterminant.js';
 
 /** The resistor-only part of the ripple ceiling of one resistor choice (rippleCeilingPlan). */
 export interface RippleCeilingPlan {
@@ -73,7 +73,7 @@ export function rippleCeilingPlan(problem: DesignProblem, r: ArrayLike<number>):
  * |c_k| = |g_H (high - m) - g_L (low - m)| |sin(pi k D)| / (pi k) <= driveMax |sin(pi k D)| /
  * (pi k); the second is at most |g_H - g_L| D' (hi - lo) ((1/T) int |.|, v1 and m in [lo, hi]),
  * D' the duty of the phase whose conductance is not g0. The first HARMONICS terms are summed with
- * det(G + j k w C) by the continuant recurrence; beyond them |det(G + j s C)| = det(C) prod |j s +
+ * |det(G + j k w C)| (ladderDeterminant.ts); beyond them |det(G + j s C)| = det(C) prod |j s +
  * 1 / tau_i| >= det(C) s^n (real poles), so the rest is at most couplings / (det(C) w^n) times
  * driveMax / pi sum k^-(n+1) + mismatch D' sum k^-n over k > HARMONICS, each sum at most its
  * integral from HARMONICS (n >= 2).
@@ -87,24 +87,7 @@ export function rippleCeiling(plan: RippleCeilingPlan, c: ArrayLike<number>, dut
   const lost = plan.mismatch * (plan.highDiffers ? duty : 1 - duty);
   let sum = 0;
   for (let k = 1; k <= HARMONICS; k++) {
-    const w = k * omega;
-    // D_(k-2), D_(k-1) as (re, im): D_(-1) = 0, D_0 = 1
-    let re2 = 0;
-    let im2 = 0;
-    let re1 = 1;
-    let im1 = 0;
-    for (let i = 0; i < n; i++) {
-      const a = g[i] + g[i + 1];
-      const b = w * (i === n - 1 ? c[i] + plan.loadC : c[i]);
-      const couple = i === 0 ? 0 : g[i] * g[i];
-      const re = a * re1 - b * im1 - couple * re2;
-      const im = a * im1 + b * re1 - couple * im2;
-      re2 = re1;
-      im2 = im1;
-      re1 = re;
-      im1 = im;
-    }
-    sum += ((plan.driveMax * Math.abs(Math.sin(Math.PI * k * duty))) / (Math.PI * k) + lost) / modulus(re1, im1);
+    sum += ((plan.driveMax * Math.abs(Math.sin(Math.PI * k * duty))) / (Math.PI * k) + lost) / ladderDeterminant(g, c, plan.loadC, k * omega);
   }
   let detC = 1;
   for (let i = 0; i < n; i++) detC *= i === n - 1 ? c[i] + plan.loadC : c[i];

@@ -1,5 +1,5 @@
 import type { DesignProblem } from './designProblem.js';
-import { modulus } from '../numeric/modulus.js';
+import { ladderDeterminant } from './ladderDeterminant.js';
 import { pinDriveStep } from './pinDriveStep.js';
 
 /** The resistor-only part of the ripple floor of one resistor choice (rippleFloorPlan). */
@@ -81,33 +81,14 @@ export function rippleFloorPlan(problem: DesignProblem, r: ArrayLike<number>): R
  * the exact check fails too. Not monotone in the capacitors as a search walks them (it falls as
  * they grow, like the ripple).
  *
- * Method: rippleFloorPlan; det(G + j w C) by the continuant recurrence of a tridiagonal matrix,
- * D_k = (a_k + j w c_k) D_(k-1) - g_k^2 D_(k-2) (any linear algebra text), in complex arithmetic.
+ * Method: rippleFloorPlan; |det(G + j w C)| by ladderDeterminant.ts.
  *
  * Syntax: rippleFloor(plan, c, duty)
  * Example: rippleFloor(rippleFloorPlan(problem, [1e3]), [1e-6], 0.5)   // V
  */
 export function rippleFloor(plan: RippleFloorPlan, c: ArrayLike<number>, duty: number): number {
-  const { g, omega } = plan;
-  const n = g.length - 1;
   const lost = plan.mismatch * (plan.highDiffers ? duty : 1 - duty);
   const drive = plan.drive * Math.sin(Math.PI * duty) - lost;
   if (!(drive > 0)) return 0;
-  // D_(k-2), D_(k-1) as (re, im): D_(-1) = 0, D_0 = 1
-  let re2 = 0;
-  let im2 = 0;
-  let re1 = 1;
-  let im1 = 0;
-  for (let i = 0; i < n; i++) {
-    const a = g[i] + g[i + 1];
-    const b = omega * (i === n - 1 ? c[i] + plan.loadC : c[i]);
-    const couple = i === 0 ? 0 : g[i] * g[i];
-    const re = a * re1 - b * im1 - couple * re2;
-    const im = a * im1 + b * re1 - couple * im2;
-    re2 = re1;
-    im2 = im1;
-    re1 = re;
-    im1 = im;
-  }
-  return (plan.couplings * drive) / modulus(re1, im1);
+  return (plan.couplings * drive) / ladderDeterminant(plan.g, c, plan.loadC, plan.omega);
 }

@@ -1,4 +1,6 @@
 import fc from 'fast-check';
+import { parseProject } from '../../src/project/index.js';
+import type { Project } from '../../src/project/types.js';
 
 /** Ranges of a random ladder (log10 of ohms and farads; driver resistances in ohms). */
 export interface LadderRanges {
@@ -56,4 +58,26 @@ export function ladderYaml(x: DrawnLadder): { f: string; driver: string; low: st
 /** The drawn ladder's resistors and capacitors, ohm and F, pin side first. */
 export function ladderParts(x: DrawnLadder): { r: number[]; c: number[] } {
   return { r: x.logR.slice(0, x.n).map((v) => 10 ** v), c: x.logC.slice(0, x.n).map((v) => 10 ** v) };
+}
+
+/**
+ * The invented project the floor tests draw their ladders into: a PWM pin (20 kHz unless told,
+ * 10 bits, 3.3 V) into a load, a 2 LSB ripple limit, E12 search space of 1 to 3 stages; `o`
+ * overrides pieces of the YAML (ladderYaml gives a drawn ladder's), `settling` adds a settling spec.
+ */
+export function floorProject(o: { driver?: string; low?: string; load?: string; f?: string; settling?: string }): Project {
+  return parseProject(
+    `
+pwm: { frequency: ${o.f ?? '20 kHz'}, bits: 10, high: 3.3 V, low: ${o.low ?? '0 V'}, driver: ${o.driver ?? '{ high: 120 ohm, low: 20 ohm }'}, duty: { min: 5 %, max: 95 % } }
+load: ${o.load ?? '{ resistance: 100k }'}
+spec:
+  ripple: 2 LSB${o.settling ? `\n  settling: ${o.settling}` : ''}
+search:
+  stages: [1, 2, 3]
+  series: E12
+  resistance: { min: 100, max: 100k }
+  capacitance: { min: 1n, max: 10u }
+`,
+    'invented.yaml',
+  );
 }

@@ -6,26 +6,11 @@ import { requiredAttenuation } from '../../src/design/requiredAttenuation.js';
 import { rippleFloor, rippleFloorPlan } from '../../src/design/rippleFloor.js';
 import { REL } from '../../src/design/searchAllowance.js';
 import { steadyState } from '../../src/engine/index.js';
-import { parseProject } from '../../src/project/index.js';
-import { ladderFields, ladderParts, ladderYaml } from './randomLadders.js';
+import { floorProject, ladderFields, ladderParts, ladderYaml } from './randomLadders.js';
 
-/** Invented: a PWM pin into a load; `o` overrides pieces of the YAML. */
+/** Invented: a PWM pin into a load (randomLadders.ts) with a settling spec. */
 const project = (o: { driver?: string; low?: string; load?: string; f?: string }) =>
-  parseProject(
-    `
-pwm: { frequency: ${o.f ?? '20 kHz'}, bits: 10, high: 3.3 V, low: ${o.low ?? '0 V'}, driver: ${o.driver ?? '{ high: 120 ohm, low: 20 ohm }'}, duty: { min: 5 %, max: 95 % } }
-load: ${o.load ?? '{ resistance: 100k }'}
-spec:
-  ripple: 2 LSB
-  settling: { band: 0.5 LSB, time: 20 ms, from: 10 %, to: 90 % }
-search:
-  stages: [1, 2, 3]
-  series: E12
-  resistance: { min: 100, max: 100k }
-  capacitance: { min: 1n, max: 10u }
-`,
-    'invented.yaml',
-  );
+  floorProject({ ...o, settling: '{ band: 0.5 LSB, time: 20 ms, from: 10 %, to: 90 % }' });
 
 /**
  * prod(1 + w^2 tau_i^2) of the fast ladder (pin conductance 1 / (smaller driver + r1), the load's

@@ -3,25 +3,10 @@ import { describe, expect, it } from 'vitest';
 import { designProblem } from '../../src/design/designProblem.js';
 import { rippleCeiling, rippleCeilingPlan } from '../../src/design/rippleCeiling.js';
 import { steadyState } from '../../src/engine/index.js';
-import { parseProject } from '../../src/project/index.js';
-import { ladderFields, ladderParts, ladderYaml } from './randomLadders.js';
+import { floorProject, ladderFields, ladderParts, ladderYaml } from './randomLadders.js';
 
-/** Invented: a PWM pin into a load; `o` overrides pieces of the YAML. */
-const project = (o: { driver?: string; low?: string; load?: string; f?: string }) =>
-  parseProject(
-    `
-pwm: { frequency: ${o.f ?? '20 kHz'}, bits: 10, high: 3.3 V, low: ${o.low ?? '0 V'}, driver: ${o.driver ?? '{ high: 120 ohm, low: 20 ohm }'}, duty: { min: 5 %, max: 95 % } }
-load: ${o.load ?? '{ resistance: 100k }'}
-spec:
-  ripple: 2 LSB
-search:
-  stages: [1, 2, 3]
-  series: E12
-  resistance: { min: 100, max: 100k }
-  capacitance: { min: 1n, max: 10u }
-`,
-    'invented.yaml',
-  );
+/** Invented: a PWM pin into a load (randomLadders.ts). */
+const project = floorProject;
 
 describe("rippleCeiling: an upper bound on the engine's ripple from the output's harmonics", () => {
   it('never falls below the ripple of engine/steadyState.ts, equal or unequal drivers, 2 and 3 stages (fast-check)', () => {
