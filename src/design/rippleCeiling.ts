@@ -1,5 +1,6 @@
 import type { DesignProblem } from './designProblem.js';
 import { ladderDeterminant } from './ladderDeterminant.js';
+import { rippleFloorPlan } from './rippleFloor.js';
 
 /** The resistor-only part of the ripple ceiling of one resistor choice (rippleCeilingPlan). */
 export interface RippleCeilingPlan {
@@ -34,6 +35,8 @@ const HARMONICS = 6;
 export function rippleCeilingPlan(problem: DesignProblem, r: ArrayLike<number>): RippleCeilingPlan | null {
   const n = r.length;
   if (n < 2) return null;
+  // The fast ladder as the ripple floor takes it (its mismatch carries a factor pi).
+  const floor = rippleFloorPlan(problem, r);
   const k = problem.circuit;
   const gH = 1 / (k.driverHigh + r[0]);
   const gL = 1 / (k.driverLow + r[0]);
@@ -41,22 +44,15 @@ export function rippleCeilingPlan(problem: DesignProblem, r: ArrayLike<number>):
   const lo = Math.min(k.low, k.high, 0);
   const hi = Math.max(k.low, k.high, 0);
   const step = (m: number) => Math.abs(gH * (k.high - m) - gL * (k.low - m));
-  const g = [Math.max(gH, gL)];
-  let couplings = 1;
-  for (let i = 1; i < n; i++) {
-    g.push(1 / r[i]);
-    couplings /= r[i];
-  }
-  g.push(k.loadResistance === null ? 0 : 1 / k.loadResistance);
   return {
-    g,
-    loadC: k.loadCapacitance,
-    omega: (2 * Math.PI) / problem.period,
-    couplings,
+    g: floor.g,
+    loadC: floor.loadC,
+    omega: floor.omega,
+    couplings: floor.couplings,
     // linear in m: its largest size is at an end of the range
     driveMax: Math.max(step(lo), step(hi)),
-    mismatch: Math.abs(gH - gL) * (hi - lo),
-    highDiffers: gH < Math.max(gH, gL),
+    mismatch: floor.mismatch / Math.PI,
+    highDiffers: floor.highDiffers,
   };
 }
 
