@@ -366,14 +366,16 @@ export function collectCandidates(
    */
   let ceilingR: number[] = [];
   let ceilingPlan: RippleCeilingPlan | null = null;
-  const ceilingUnder = (rs: number[], cs: number[], d: number, limit: number): boolean => {
-    if (budgeted || stages < 3) return false;
+  /** The ripple ceiling at duty d, or NaN where it is not used (budgeted walks, one and two stages). */
+  const ceilingOf = (rs: number[], cs: number[], d: number): number => {
+    if (budgeted || stages < 3) return Number.NaN;
     if (ceilingPlan === null || !sameAs(rs, ceilingR)) {
       ceilingPlan = rippleCeilingPlan(problem, rs);
       ceilingR = rs.slice();
     }
-    return ceilingPlan !== null && rippleCeiling(ceilingPlan, cs, d) <= limit;
+    return ceilingPlan === null ? Number.NaN : rippleCeiling(ceilingPlan, cs, d);
   };
+  const ceilingUnder = (rs: number[], cs: number[], d: number, limit: number): boolean => ceilingOf(rs, cs, d) <= limit;
 
   /** Steady-state figures for the cheap checks. */
   const lite = (rs: number[], cs: number[], d: number): SteadySwing => {
@@ -421,7 +423,10 @@ export function collectCandidates(
       if (near === undefined) {
         // (no memo then: a looser limit asks again)
         if (rippleLimit !== undefined && floorOver(rs, cs, dNear, rippleLimit)) return false;
-        near = rippleOf(rs, cs, dNear);
+        // A ceiling within this limit stands for the value: the limits come tightest first, so
+        // every later one in this tuple passes on it too.
+        const top = rippleLimit !== undefined ? ceilingOf(rs, cs, dNear) : Number.NaN;
+        near = top <= rippleLimit! ? top : rippleOf(rs, cs, dNear);
         nearMemo.set(code, near);
       }
       if (Number.isNaN(near) || exceeds(near, rippleLimit)) return false;
@@ -429,6 +434,7 @@ export function collectCandidates(
       if (checkTo && !toChecked.has(code)) {
         toChecked.add(code);
         for (const d of toDuties) {
+          if (ceilingOf(rs, cs, d) <= 2 * problem.band) continue;
           if (floorOver(rs, cs, d, 2 * problem.band) || exceeds(rippleOf(rs, cs, d), 2 * problem.band)) {
             nearMemo.set(code, Number.NaN);
             return false;
