@@ -13,6 +13,11 @@ export interface FloorStep {
   /** ln(scaled / threshold) and ln(head / threshold) (-Infinity when head <= threshold), for the quick bounds. */
   logScaled: number;
   logHead: number;
+  /** The band alone, V: what the error may reach where the target's steady orbit is at its far side (see settlingFloorPlan). */
+  band: number;
+  /** ln(scaled / band) and ln(head / band) (-Infinity when head <= band). */
+  logScaledBand: number;
+  logHeadBand: number;
 }
 
 /** The resistor-only part of the settling floor of one resistor choice (settlingFloorPlan). */
@@ -56,7 +61,12 @@ export interface SettlingFloorPlan {
  * the head S - pTo - pFrom from the steady excursions. Settled at t needs z(t) <= band + pTo
  * (model.md: |v - average_to| <= band, and the steady orbit lies within its excursion pTo of its
  * average; a target whose excursion passes the band never settles), so the settling time is at
- * least the last t at which that lower bound of z(t) still exceeds band + pTo.
+ * least the last t at which that lower bound of z(t) still exceeds band + pTo. Besides, once in
+ * every period the steady orbit at `to` passes its far side (its minimum after a rising step, at
+ * or below its average), where settled needs z <= band: the bound of z falls, so if it still
+ * exceeds the band at the end of period k, the output leaves the band in period k, after kT;
+ * hence the settling time is also at least the last t at which the bound exceeds the band alone,
+ * less two periods (the whole period that t lies in and the one before it).
  *
  * With `into` (scratchFloorPlan) the plan is written into it and it is returned: no allocation.
  *
@@ -97,8 +107,8 @@ export function settlingFloorPlan(
     let same = false;
     for (let i = 0; i < count && !same; i++) same = out[i].scaled === scaled && out[i].head === head && out[i].threshold === threshold;
     if (same) continue;
-    if (count < out.length) setFloorStep(out[count], scaled, head, threshold);
-    else out.push(floorStep(scaled, head, threshold));
+    if (count < out.length) setFloorStep(out[count], scaled, head, threshold, band);
+    else out.push(floorStep(scaled, head, threshold, band));
     count++;
   }
   out.length = count;
@@ -127,20 +137,23 @@ export function scratchFloorPlan(): ScratchFloorPlan {
 /**
  * One step of a floor plan from its three figures (V), with the logarithms the quick bounds use.
  *
- * Syntax: floorStep(scaled, head, threshold)
- * Example: floorStep(2.5, -Infinity, 3e-3).logScaled   // ln(2.5 / 3e-3)
+ * Syntax: floorStep(scaled, head, threshold, band)
+ * Example: floorStep(2.5, -Infinity, 3e-3, 1.6e-3).logScaled   // ln(2.5 / 3e-3)
  */
-export function floorStep(scaled: number, head: number, threshold: number): FloorStep {
-  return setFloorStep({ scaled: 0, head: 0, threshold: 0, logScaled: 0, logHead: 0 }, scaled, head, threshold);
+export function floorStep(scaled: number, head: number, threshold: number, band: number): FloorStep {
+  return setFloorStep({ scaled: 0, head: 0, threshold: 0, logScaled: 0, logHead: 0, band: 0, logScaledBand: 0, logHeadBand: 0 }, scaled, head, threshold, band);
 }
 
 /** floorStep written into an existing step. */
-function setFloorStep(step: FloorStep, scaled: number, head: number, threshold: number): FloorStep {
+function setFloorStep(step: FloorStep, scaled: number, head: number, threshold: number, band: number): FloorStep {
   step.scaled = scaled;
   step.head = head;
   step.threshold = threshold;
   step.logScaled = Math.log(scaled / threshold);
   step.logHead = head > threshold ? Math.log(head / threshold) : -Infinity;
+  step.band = band;
+  step.logScaledBand = Math.log(scaled / band);
+  step.logHeadBand = head > band ? Math.log(head / band) : -Infinity;
   return step;
 }
 
@@ -175,10 +188,12 @@ export function settlingFloor(plan: SettlingFloorPlan, tauA: number, tauB: numbe
     let settled = true;
     for (let j = 0; j < steps.length; j++) {
       const s = steps[j];
-      const lb = Math.max(tauA * s.logHead, tauA * s.logScaled - 0.5 * period - (period * period) / (24 * tauA));
+      const q = 0.5 * period + (period * period) / (24 * tauA);
+      const lb = Math.max(tauA * s.logHead, tauA * s.logScaled - q, tauA * s.logHeadBand - 2 * period, tauA * s.logScaledBand - q - 2 * period);
       if (lb > ceiling) return lb;
       if (lb > low) low = lb;
-      if (settled && !(tauA * s.logScaled + (tauB > 0 ? (tauA * tauB) / (tauA - tauB) : 0) <= ceiling)) settled = false;
+      const tail = tauB > 0 ? (tauA * tauB) / (tauA - tauB) : 0;
+      if (settled && !(tauA * s.logScaled + tail <= ceiling && tauA * s.logScaledBand + tail - 2 * period <= ceiling)) settled = false;
     }
     if (settled) return low;
   }
@@ -188,8 +203,10 @@ export function settlingFloor(plan: SettlingFloorPlan, tauA: number, tauB: numbe
   for (let j = 0; j < steps.length; j++) {
     const s = steps[j];
     const z0 = Math.max(s.head, s.scaled * qa);
-    if (!(z0 > s.threshold)) continue;
-    const t = crossing(z0, s.scaled * qb, s.threshold, tauA, tauB, ceiling);
+    // (the band alone is at most the threshold: nothing crosses it when nothing crosses the band)
+    if (!(z0 > s.band)) continue;
+    let t = z0 > s.threshold ? crossing(z0, s.scaled * qb, s.threshold, tauA, tauB, ceiling) : 0;
+    if (!(t > ceiling)) t = Math.max(t, crossing(z0, s.scaled * qb, s.band, tauA, tauB, ceiling + 2 * period) - 2 * period);
     if (t > best) {
       best = t;
       if (best > ceiling) return best;

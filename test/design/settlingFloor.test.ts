@@ -61,7 +61,7 @@ describe('settlingFloor', () => {
       [1, 1e-6, 5e-3, 4.999e-3],
     ];
     for (const [s, threshold, tauA, tauB] of cases) {
-      const plan: SettlingFloorPlan = { period: 1e-15, steps: [floorStep(s, -Infinity, threshold)] };
+      const plan: SettlingFloorPlan = { period: 1e-15, steps: [floorStep(s, -Infinity, threshold, threshold)] };
       const want = twoPoleCrossing(s, threshold, tauA, tauB);
       const got = settlingFloor(plan, tauA, tauB);
       expect(got).toBeLessThanOrEqual(want * (1 + 1e-12));
@@ -70,8 +70,25 @@ describe('settlingFloor', () => {
   });
 
   it('with one time constant is tau ln(z0 / threshold) (first-order step response)', () => {
-    const plan: SettlingFloorPlan = { period: 1e-15, steps: [floorStep(2, -Infinity, 1e-3)] };
+    const plan: SettlingFloorPlan = { period: 1e-15, steps: [floorStep(2, -Infinity, 1e-3, 1e-3)] };
     expect(settlingFloor(plan, 1e-3, 0)).toBeCloseTo(1e-3 * Math.log(2000), 12);
+  });
+
+  it('with the band alone below the threshold is tau ln(z0 / band) less two periods, when that is larger (first-order step response)', () => {
+    // One time constant tau = 1 ms, period T = 10 us, step 2 V, threshold band + pTo = 2 mV, band 1 mV:
+    // z0 = 2 q(T / tau) with q(x) = x / (e^x - 1) (the least a first-order section keeps of a
+    // pulse train's mean); the error at the orbit's far side must reach the band alone, a period's
+    // position apart: tau ln(z0 / 1e-3) - 2T, above tau ln(z0 / 2e-3) since tau ln 2 > 2T.
+    const T = 1e-5;
+    const tau = 1e-3;
+    const x = T / tau;
+    const z0 = (2 * x) / Math.expm1(x);
+    const plan: SettlingFloorPlan = { period: T, steps: [floorStep(2, -Infinity, 2e-3, 1e-3)] };
+    expect(settlingFloor(plan, tau, 0) / (tau * Math.log(z0 / 1e-3) - 2 * T)).toBeCloseTo(1, 12);
+    // and where 2T outweighs the halved threshold (tau ln 2 < 2T) the threshold's crossing stands
+    const short: SettlingFloorPlan = { period: 1e-3, steps: [floorStep(2, -Infinity, 2e-3, 1e-3)] };
+    const zs = (2 * 1) / Math.expm1(1);
+    expect(settlingFloor(short, tau, 0) / (tau * Math.log(zs / 2e-3))).toBeCloseTo(1, 12);
   });
 
   it('never falls when either time constant grows, and respects its ceiling (fast-check)', () => {
@@ -88,7 +105,7 @@ describe('settlingFloor', () => {
       fc.property(arb, (x) => {
         const tauA = 10 ** x.logTa;
         const tauB = tauA * x.ratio;
-        const plan: SettlingFloorPlan = { period: 10 ** x.logT, steps: [floorStep(1, x.head, 10 ** x.logThreshold)] };
+        const plan: SettlingFloorPlan = { period: 10 ** x.logT, steps: [floorStep(1, x.head, 10 ** x.logThreshold, 10 ** x.logThreshold)] };
         const base = settlingFloor(plan, tauA, tauB);
         const tauA2 = tauA * x.growA;
         const tauB2 = Math.min(tauA2, tauB * x.growB);
