@@ -503,9 +503,10 @@ export function collectCandidates(
     if (miss) return;
     // Cheap bound first, for equal drivers (settlingBounds.ts, method: proven there for a
     // time-invariant ladder): tau_slow ln(z0 / (band + excursion)); unequal drivers go on to the
-    // model's bound below, which holds for both. A steady state at the target that itself leaves the band never settles (settlingLowerBound
-    // says Infinity): its excursions about the average, from the same steady state (rounding
-    // apart, hence NEVER_SETTLES), decide that without the settling bound's period map.
+    // model's bound below, which holds for both. A steady state at the target that itself leaves
+    // the band never settles (settlingLowerBound says Infinity): its excursions about the average,
+    // from the same steady state (rounding apart, hence NEVER_SETTLES), decide that without the
+    // settling bound's period map.
     const tau = lti ? slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) : 0;
     for (let j = 0; j < problem.steps.length; j++) {
       const step = problem.steps[j];
