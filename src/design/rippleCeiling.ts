@@ -1,23 +1,15 @@
 import type { DesignProblem } from './designProblem.js';
 import { ladderDeterminant } from './ladderDeterminant.js';
-import { rippleFloorPlan } from './rippleFloor.js';
+import { largestPinDriveStep } from './pinDriveStep.js';
+import { rippleFloorPlan, type RippleFloorPlan } from './rippleFloor.js';
 
-/** The resistor-only part of the ripple ceiling of one resistor choice (rippleCeilingPlan). */
-export interface RippleCeilingPlan {
-  /** Conductances of the fast ladder, S: [pin side (the larger of the two phases'), 1 / r2, ..., 1 / rn, load (0 without one)]. */
-  readonly g: readonly number[];
-  /** Load capacitance at the last node, F. */
-  readonly loadC: number;
-  /** PWM angular frequency, rad/s. */
-  readonly omega: number;
-  /** Product of the couplings 1 / r2 ... 1 / rn. */
-  readonly couplings: number;
-  /** Largest size of the pin's drive step over node-1 averages in the nodes' range, A. */
+/**
+ * The resistor-only part of the ripple ceiling of one resistor choice (rippleCeilingPlan): the
+ * ripple floor's (the fast ladder, the mismatch) and the largest drive step.
+ */
+export interface RippleCeilingPlan extends RippleFloorPlan {
+  /** Largest size of the pin's drive step over node-1 averages in the nodes' range, A (largestPinDriveStep). */
   readonly driveMax: number;
-  /** |g_H - g_L| (hi - lo), A: the most the driver mismatch adds to any coefficient, per unit duty. */
-  readonly mismatch: number;
-  /** The high phase's conductance is the smaller one (the mismatch acts during the high phase). */
-  readonly highDiffers: boolean;
 }
 
 /** Harmonics summed one by one; the rest are bounded through det(C) (see rippleCeiling). */
@@ -35,25 +27,7 @@ const HARMONICS = 6;
 export function rippleCeilingPlan(problem: DesignProblem, r: ArrayLike<number>): RippleCeilingPlan | null {
   const n = r.length;
   if (n < 2) return null;
-  // The fast ladder as the ripple floor takes it (its mismatch carries a factor pi).
-  const floor = rippleFloorPlan(problem, r);
-  const k = problem.circuit;
-  const gH = 1 / (k.driverHigh + r[0]);
-  const gL = 1 / (k.driverLow + r[0]);
-  // Node voltages stay between the levels and ground (pinDriveStep.ts).
-  const lo = Math.min(k.low, k.high, 0);
-  const hi = Math.max(k.low, k.high, 0);
-  const step = (m: number) => Math.abs(gH * (k.high - m) - gL * (k.low - m));
-  return {
-    g: floor.g,
-    loadC: floor.loadC,
-    omega: floor.omega,
-    couplings: floor.couplings,
-    // linear in m: its largest size is at an end of the range
-    driveMax: Math.max(step(lo), step(hi)),
-    mismatch: floor.mismatch / Math.PI,
-    highDiffers: floor.highDiffers,
-  };
+  return { ...rippleFloorPlan(problem, r), driveMax: largestPinDriveStep(problem.circuit, r[0]) };
 }
 
 /**

@@ -17,7 +17,7 @@ export interface RippleFloorPlan {
   readonly couplings: number;
   /** Least size of the pin's drive step over node-1 averages in the nodes' range, A (pinDriveStep.ts). */
   readonly drive: number;
-  /** pi |g_H - g_L| (hi - lo), A: the most the driver mismatch can take off the drive's fundamental, per unit duty. */
+  /** |g_H - g_L| (hi - lo), A: the most the driver mismatch adds to (or, times pi, takes off the drive of) any coefficient, per unit duty. */
   readonly mismatch: number;
   /** The high phase's conductance is the smaller one (the mismatch acts during the high phase). */
   readonly highDiffers: boolean;
@@ -70,7 +70,7 @@ export function rippleFloorPlan(problem: DesignProblem, r: ArrayLike<number>): R
     omega: (2 * Math.PI) / problem.period,
     couplings,
     drive: pinDriveStep(k, r[0]),
-    mismatch: Math.PI * Math.abs(gH - gL) * nodeSpan,
+    mismatch: Math.abs(gH - gL) * nodeSpan,
     highDiffers: gH < gF,
   };
 }
@@ -87,7 +87,7 @@ export function rippleFloorPlan(problem: DesignProblem, r: ArrayLike<number>): R
  * Example: rippleFloor(rippleFloorPlan(problem, [1e3]), [1e-6], 0.5)   // V
  */
 export function rippleFloor(plan: RippleFloorPlan, c: ArrayLike<number>, duty: number): number {
-  const lost = plan.mismatch * (plan.highDiffers ? duty : 1 - duty);
+  const lost = Math.PI * plan.mismatch * (plan.highDiffers ? duty : 1 - duty);
   const drive = plan.drive * Math.sin(Math.PI * duty) - lost;
   if (!(drive > 0)) return 0;
   return (plan.couplings * drive) / ladderDeterminant(plan.g, c, plan.loadC, plan.omega);

@@ -96,9 +96,10 @@ export function settlingLogFactor(problem: DesignProblem, limits: DesignProblem[
  * driver resistance; for equal drivers the ladder itself), Gamma from the ripple floor
  * (requiredAttenuation.ts, proven for equal and unequal drivers; for equal drivers the
  * fundamental bound ripple >= (high - low) sin(pi D) |H(j w)|, so Gamma = (g / h*)^2 with h* of
- * transferCap). One stage: tau >= sqrt(Gamma - 1) / w. Two stages: with tau_a >= tau_b, tau_a + tau_b = trace(G^-1 C) >= 2 sqrt(kappa tau_a tau_b),
- * kappa = (G^-1)_11 (G^-1)_22 / det(G^-1), so tau_b <= tau_a / phi^2 with phi = sqrt(kappa) +
- * sqrt(kappa - 1), and (1 + u)(1 + u / phi^4) >= Gamma with u = w^2 tau_a^2. Three stages:
+ * transferCap). One stage: tau >= sqrt(Gamma - 1) / w. Two stages: with tau_a >= tau_b, tau_a +
+ * tau_b = trace(G^-1 C) >= 2 sqrt(kappa tau_a tau_b), kappa = (G^-1)_11 (G^-1)_22 / det(G^-1), so
+ * tau_b <= tau_a / phi^2 with phi = sqrt(kappa) + sqrt(kappa - 1), and (1 + u)(1 + u / phi^4) >=
+ * Gamma with u = w^2 tau_a^2. Three stages:
  * (1 + u)^3 >= Gamma, and the sharper (1 + u)^2 (1 + u p*^2) >= Gamma, p* from the fast ladder's
  * pole spread (threeStageSpread.ts). budgetTauMin, for budgeted walks only, is the older form of
  * the same: Gamma from the slower driver's DC gain, the spread for equal drivers only, and for

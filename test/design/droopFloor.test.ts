@@ -6,7 +6,7 @@ import { exactCandidate } from '../../src/design/exactCandidate.js';
 import { dcTransfer } from '../../src/engine/index.js';
 import { parseProject } from '../../src/project/index.js';
 import { everyTuple } from './bruteForce.js';
-import { ladderFields, ladderParts, ladderYaml } from './randomLadders.js';
+import { drawnProblem, ladderFields } from './randomLadders.js';
 
 /** Invented: a pin that sources more weakly than it sinks, into a load; `o` overrides pieces of the YAML. */
 const project = (o: { droop?: string; stages?: string; low?: string; driver?: string; load?: string; f?: string; rmin?: string; rmax?: string; cmin?: string; cmax?: string }) =>
@@ -38,10 +38,7 @@ describe("droopFloor: a lower bound on the engine's droop from the resistors and
     let informative = 0;
     fc.assert(
       fc.property(arb, (x) => {
-        const p = designProblem(
-          project(ladderYaml(x)),
-        );
-        const { r, c } = ladderParts(x);
+        const { p, r, c } = drawnProblem(x, project);
         const plan = droopFloorPlan(p, r);
         if (plan === null) return x.high === x.low;
         const floor = droopFloor(plan, c);

@@ -7,7 +7,7 @@ import { inlFloor, inlFloorPlan } from '../../src/design/inlFloor.js';
 import { dcTransfer } from '../../src/engine/index.js';
 import { parseProject } from '../../src/project/index.js';
 import { bruteForce, designKey, everyTuple } from './bruteForce.js';
-import { ladderFields, ladderParts, ladderYaml } from './randomLadders.js';
+import { drawnProblem, ladderFields } from './randomLadders.js';
 
 /** Invented: unequal drivers into a load bend the DC transfer; `o` overrides pieces of the YAML. */
 const project = (o: { inl?: string; stages?: string; low?: string; driver?: string; load?: string; f?: string; settling?: string; series?: string; rmax?: string; cmin?: string; cmax?: string }) =>
@@ -39,10 +39,7 @@ describe("inlFloor: a lower bound on the engine's INL from the resistors and the
     let informative = 0;
     fc.assert(
       fc.property(arb, (x) => {
-        const p = designProblem(
-          project(ladderYaml(x)),
-        );
-        const { r, c } = ladderParts(x);
+        const { p, r, c } = drawnProblem(x, project);
         const plan = inlFloorPlan(p, r);
         if (plan === null) return x.high === x.low;
         const floor = inlFloor(plan, c);

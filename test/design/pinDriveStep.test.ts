@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { pinDriveStep } from '../../src/design/pinDriveStep.js';
+import { largestPinDriveStep, pinDriveStep } from '../../src/design/pinDriveStep.js';
 
 // Hand-worked cases (derived here: a linear function of the node average m, least size at an end of
 // [min(low, high, 0), max(low, high, 0)] unless it changes sign inside).
@@ -24,5 +24,18 @@ describe('pinDriveStep: the least size of the pin drive step over node averages'
     expect(m).toBeGreaterThan(0);
     expect(m).toBeLessThan(5);
     expect(pinDriveStep({ driverHigh: 200, driverLow: 20, high: 5, low: 1 }, 0)).toBe(0);
+  });
+});
+
+describe('largestPinDriveStep: the largest size of the pin drive step over node averages', () => {
+  it('is g (high - low) for equal drivers, and the stronger phase at the better end for unequal ones', () => {
+    // hand-worked as above: m = 0 gives g_H 3.3, m = 3.3 gives g_L 3.3
+    expect(largestPinDriveStep({ driverHigh: 25, driverLow: 25, high: 3.3, low: 0 }, 475)).toBeCloseTo(3.3 / 500, 15);
+    expect(largestPinDriveStep({ driverHigh: 40, driverLow: 25, high: 3.3, low: 0 }, 460)).toBeCloseTo(3.3 / 485, 15);
+  });
+
+  it('takes the larger end where the step changes sign inside (high 5, low 1, range [0, 5])', () => {
+    // m = 0: 5 g_H - g_L = 0.025 - 0.05 = -0.025; m = 5: g_L 4 = 0.2
+    expect(largestPinDriveStep({ driverHigh: 200, driverLow: 20, high: 5, low: 1 }, 0)).toBeCloseTo(0.2, 15);
   });
 });

@@ -1,4 +1,5 @@
 import fc from 'fast-check';
+import { designProblem, type DesignProblem } from '../../src/design/designProblem.js';
 import { parseProject } from '../../src/project/index.js';
 import type { Project } from '../../src/project/types.js';
 
@@ -80,4 +81,15 @@ search:
 `,
     'invented.yaml',
   );
+}
+
+/**
+ * A drawn ladder in a test's project template (default floorProject): its design problem and its
+ * resistors and capacitors (ladderYaml, ladderParts).
+ */
+export function drawnProblem(
+  x: DrawnLadder,
+  template: (o: ReturnType<typeof ladderYaml>) => Project = floorProject,
+): { p: DesignProblem; r: number[]; c: number[] } {
+  return { p: designProblem(template(ladderYaml(x))), ...ladderParts(x) };
 }

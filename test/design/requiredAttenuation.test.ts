@@ -6,7 +6,7 @@ import { requiredAttenuation } from '../../src/design/requiredAttenuation.js';
 import { rippleFloor, rippleFloorPlan } from '../../src/design/rippleFloor.js';
 import { REL } from '../../src/design/searchAllowance.js';
 import { steadyState } from '../../src/engine/index.js';
-import { floorProject, ladderFields, ladderParts, ladderYaml } from './randomLadders.js';
+import { drawnProblem, floorProject, ladderFields } from './randomLadders.js';
 
 /** Invented: a PWM pin into a load (randomLadders.ts) with a settling spec. */
 const project = (o: { driver?: string; low?: string; load?: string; f?: string }) =>
@@ -39,8 +39,7 @@ describe('requiredAttenuation: the least prod(1 + w^2 tau^2) a ripple limit asks
     let closest = Infinity;
     fc.assert(
       fc.property(arb, (x) => {
-        const p = designProblem(project(ladderYaml(x)));
-        const { r, c } = ladderParts(x);
+        const { p, r, c } = drawnProblem(x, project);
         const ladder = p.ladderOf(r, c);
         // the limit this ladder meets exactly at 50 %; the settling steps' targets as they are
         const ripple = steadyState(ladder, 0.5).ripple;

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { designProblem } from '../../src/design/designProblem.js';
 import { rippleCeiling, rippleCeilingPlan } from '../../src/design/rippleCeiling.js';
 import { steadyState } from '../../src/engine/index.js';
-import { floorProject, ladderFields, ladderParts, ladderYaml } from './randomLadders.js';
+import { drawnProblem, floorProject, ladderFields } from './randomLadders.js';
 
 /** Invented: a PWM pin into a load (randomLadders.ts). */
 const project = floorProject;
@@ -19,8 +19,7 @@ describe("rippleCeiling: an upper bound on the engine's ripple from the output's
     fc.assert(
       fc.property(arb, (x) => {
         const drawn = { ...x, n: Math.max(2, x.n) };
-        const p = designProblem(project(ladderYaml(drawn)));
-        const { r, c } = ladderParts(drawn);
+        const { p, r, c } = drawnProblem(drawn, project);
         const ceiling = rippleCeiling(rippleCeilingPlan(p, r)!, c, x.duty);
         const ripple = steadyState(p.ladderOf(r, c), x.duty).ripple;
         if (ceiling < 1.5 * ripple) close++;

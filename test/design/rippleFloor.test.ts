@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { designProblem } from '../../src/design/designProblem.js';
 import { rippleFloor, rippleFloorPlan } from '../../src/design/rippleFloor.js';
 import { steadyState } from '../../src/engine/index.js';
-import { floorProject, ladderFields, ladderParts, ladderYaml } from './randomLadders.js';
+import { drawnProblem, floorProject, ladderFields } from './randomLadders.js';
 
 /** Invented: a PWM pin into a load (randomLadders.ts). */
 const project = floorProject;
@@ -19,10 +19,7 @@ describe("rippleFloor: a lower bound on the engine's ripple from the pin's funda
     let informative = 0;
     fc.assert(
       fc.property(arb, (x) => {
-        const p = designProblem(
-          project(ladderYaml(x)),
-        );
-        const { r, c } = ladderParts(x);
+        const { p, r, c } = drawnProblem(x, project);
         const floor = rippleFloor(rippleFloorPlan(p, r), c, x.duty);
         const ripple = steadyState(p.ladderOf(r, c), x.duty).ripple;
         if (floor > 0.5 * ripple) informative++;
