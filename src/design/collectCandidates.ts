@@ -13,6 +13,7 @@ import { NO_FLOOR, settlingFloor, settlingFloorPlan } from './settlingFloor.js';
 import { slowestTimeConstant, twoSlowestTimeConstants } from './slowestTimeConstant.js';
 import { LIST_SHARE, listTuples, timeIsUp, tupleFloor } from './listTuples.js';
 import { exceeds, REL } from './searchAllowance.js';
+import { doubles } from '../numeric/dense.js';
 
 /** Absolute allowance on times, s. */
 const ABS_T = 1e-12;
@@ -227,7 +228,7 @@ export function collectCandidates(
    * ripple's) and both at least their values at the smallest capacitors; with a ceiling, only sure
    * to lie on the right side of it (settlingFloor).
    */
-  const minC = new Array<number>(stages).fill(C[0]);
+  const minC = doubles(stages).fill(C[0]);
   const tupleKey = (rs: number[], tb: TupleBounds, ceiling: number): number => tupleFloor(problem, rs, minC, tb, budgeted, ceiling);
 
   // Resistor tuples that pass the resistor-only checks, with bounds (listTuples).
@@ -251,18 +252,19 @@ export function collectCandidates(
   // One-entry model cache: the staircase check is usually followed by the full evaluation. With it
   // the candidate's steady states by duty (its checks below, the INL grid, the droop grid and the
   // settling steps share duties): the figures of the cheap checks, and the full state for settling.
-  let lastR: number[] = [];
-  const lastC: number[] = [];
+  let lastR = doubles(stages);
+  const lastC = doubles(stages);
   let model: ModalLadder | null = null;
   // Valid for slots 0..slots-1; the objects of earlier candidates are kept by slot (pools) and the
   // engine writes the next candidate's figures into them: no allocation per candidate.
   let slots = 0;
-  const steadyDuty: number[] = [];
+  // (double arrays from the start, emptied: slots append, and the kind of array never changes)
+  const steadyDuty = emptyDoubles();
   const steadyOf: Array<PeriodicState | null> = [];
   const swingOf: Array<SteadySwing | null> = [];
   /** Ripple alone (rippleAt) and time average alone (averageOutput) by slot, where no swing is known; NaN: not yet. */
-  const rippleAtSlot: number[] = [];
-  const averageAtSlot: number[] = [];
+  const rippleAtSlot = emptyDoubles();
+  const averageAtSlot = emptyDoubles();
   const steadyPool: Array<PeriodicState | undefined> = [];
   const swingPool: Array<SteadySwing | undefined> = [];
   const sameAs = (x: number[], y: number[]) => {
@@ -306,8 +308,8 @@ export function collectCandidates(
   };
 
   // Count each candidate the fast model looks at once (consecutive looks are at the same candidate).
-  let seenR: number[] = [];
-  const seenC: number[] = [];
+  let seenR = doubles(stages);
+  const seenC = doubles(stages);
   const touch = (rs: number[], cs: number[]) => {
     if (sameAs(rs, seenR) && sameAs(cs, seenC)) return;
     seenR = rs;
@@ -540,7 +542,7 @@ export function collectCandidates(
     }
     let totalC = 0;
     for (const c of cs) totalC += c;
-    const entry: FastEntry = { r: [...rs], c: [...cs], lb, totalC };
+    const entry: FastEntry = { r: rs.slice(), c: cs.slice(), lb, totalC };
     const pareto = state.pareto;
     if (pareto) {
       // The ripple near 50 % is a lower bound on the worst: a first, cheap dominance test.
@@ -646,7 +648,7 @@ export function collectCandidates(
       return columns;
     }
     // Outer capacitors (three stages: the first) by plain loop, inner two by staircase walk.
-    const cs = new Array<number>(stages).fill(C[0]);
+    const cs = doubles(stages).fill(C[0]);
     const outer = stages - 2;
     const recurse = (depth: number): void => {
       if (depth < outer) {
@@ -686,7 +688,7 @@ export function collectCandidates(
    * (-1: none), and the largest index of capacitor p + 1 within theta (both bounds grow with every
    * capacitor). Every point the staircase may evaluate lies in it.
    */
-  const boxAt: number[] = [];
+  const boxAt = doubles(stages);
   /**
    * What a walk learnt at one slice (resistors, threshold test, capacitors cs[0..depth]) and the
    * count of kept candidates then. Thresholds only move when a candidate is kept, and the bounds
@@ -760,7 +762,7 @@ export function collectCandidates(
    * failing at (C_j; top, bMax) rules out every slice from this one to j; the largest such j is found
    * by bisection (that point's ripple falls as C_j grows), starting with the last slice of the loop.
    */
-  const sliceAt: number[] = [];
+  const sliceAt = doubles(stages);
   // The first slice that failed the loop's test (deadThrough, below), at the slice it was found.
   const lastEnd = { memo: sliceMemo(), failAt: 0 };
   const deadThrough = (rs: number[], cs: number[], q: number, within: (cs: number[]) => boolean): number => {
@@ -815,7 +817,7 @@ export function collectCandidates(
    * The staircase walk over capacitors a = cs[p], b = cs[p + 1] with cs[0..p-1] fixed: evaluates
    * the lowest ripple-feasible point of each column and returns the columns for their inner points.
    */
-  const lookAt: number[] = [];
+  const lookAt = doubles(stages);
   const walkLastTwo = (rs: number[], cs: number[], p: number, within: (cs: number[]) => boolean, columns: Column[], tb: TupleBounds): void => {
     const at = (a: number, b: number) => {
       const v = cs.slice();
@@ -885,6 +887,13 @@ export function collectCandidates(
   }
   while (deferred.length > 0) finishColumn(deferred.pop()!);
   onProgress?.(1);
+}
+
+/** An empty array that holds doubles (doubles.ts): appending numbers never changes its kind. */
+function emptyDoubles(): number[] {
+  const v = doubles(1);
+  v.length = 0;
+  return v;
 }
 
 /** Identity of a candidate across collection rounds. */

@@ -1,6 +1,7 @@
 import type { Ladder } from '../circuit/ladder.js';
 import { settlingSteps } from '../engine/index.js';
 import type { Project } from '../project/types.js';
+import { doublesOf } from '../numeric/dense.js';
 import { seriesValues } from '../units/index.js';
 import { DesignInputError } from './designInputError.js';
 import { projectAtResolution } from './projectAtResolution.js';
@@ -72,8 +73,9 @@ export function designProblem(project: Project, bits?: number, buffered = false)
   if (!search) throw new DesignInputError(`missing; add a search section (stages, series, resistance, capacitance) to design a filter`, 'search', project.file);
   const at = bits === undefined ? project : projectAtResolution(project, bits);
   const { pwm, spec } = at;
-  const rValues = seriesValues(search.series.resistor, search.resistance.min, search.resistance.max);
-  const cValues = seriesValues(search.series.capacitor, search.capacitance.min, search.capacitance.max);
+  // (stored as doubles: every tuple of the search is built from them; see doublesOf)
+  const rValues = doublesOf(seriesValues(search.series.resistor, search.resistance.min, search.resistance.max));
+  const cValues = doublesOf(seriesValues(search.series.capacitor, search.capacitance.min, search.capacitance.max));
   if (rValues.length === 0) throw new DesignInputError(`no ${search.series.resistor} value lies in the range`, 'search.resistance', project.file);
   if (cValues.length === 0) throw new DesignInputError(`no ${search.series.capacitor} value lies in the range`, 'search.capacitance', project.file);
   for (const n of search.stages) {

@@ -2,6 +2,7 @@ import type { DesignProblem } from './designProblem.js';
 import { droopFloor, droopFloorPlan, type DroopFloorPlan } from './droopFloor.js';
 import { gainFloor } from './gainFloor.js';
 import { exceeds } from './searchAllowance.js';
+import { doubles } from '../numeric/dense.js';
 import { tupleBounds, type TupleBounds } from './settlingBounds.js';
 import { NO_FLOOR, scratchFloorPlan, settlingFloor, settlingFloorPlan } from './settlingFloor.js';
 import { slowestTimeConstant, twoSlowestTimeConstants } from './slowestTimeConstant.js';
@@ -79,12 +80,12 @@ export function listTuples(
   const droopFloorApplies = pwm.driver.high >= pwm.driver.low && pwm.low >= 0 && loadR !== null && limits.droop !== undefined;
   const gainFloorApplies = loadR !== null && limits.gain !== undefined;
   const idealTop = Math.max(pwm.low + problem.dutyMin * (pwm.high - pwm.low), pwm.low + problem.dutyMax * (pwm.high - pwm.low));
-  const minC = new Array<number>(stages).fill(problem.cValues[0]);
+  const minC = doubles(stages).fill(problem.cValues[0]);
   const tuples: number[][] = [];
   const bounds: TupleBounds[] = [];
   const keys: number[] = [];
   const idx = new Array<number>(stages).fill(0);
-  const scratch = new Array<number>(stages).fill(0);
+  const scratch = doubles(stages);
   const keyPlan = scratchFloorPlan();
   const total = nR ** stages;
   for (let count = 0; count < total; count++) {

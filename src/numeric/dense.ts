@@ -41,6 +41,20 @@ export function doubles(n: number): number[] {
 }
 
 /**
+ * A copy of `values` stored as doubles (see doubles): search tuples built from series values such
+ * as 470 would otherwise hold small integers, and the search's code would then read two kinds of
+ * array (measured: polymorphic loads and deoptimizations in a default design run).
+ *
+ * Syntax: doublesOf(values)
+ * Example: doublesOf([470, 16000])  // [470, 16000], stored as doubles
+ */
+export function doublesOf(values: ArrayLike<number>): number[] {
+  const v = doubles(values.length);
+  for (let i = 0; i < values.length; i++) v[i] = values[i];
+  return v;
+}
+
+/**
  * The identity of order n.
  *
  * Syntax: identity(n)
