@@ -84,38 +84,54 @@ export function listTuples(
   const tuples: number[][] = [];
   const bounds: TupleBounds[] = [];
   const keys: number[] = [];
-  const idx = new Array<number>(stages).fill(0);
   const scratch = doubles(stages);
   const keyPlan = scratchFloorPlan();
   const total = nR ** stages;
-  for (let count = 0; count < total; count++) {
-    if ((count & 0xffff) === 0xffff) {
-      onProgress?.((LIST_SHARE * (count + 1)) / total);
-      // Out of time while still listing: the walk then stops at once (cut).
-      if (timeIsUp(state)) {
-        state.cut = true;
-        break;
+  // Subtree sizes: tuples that share their first k + 1 resistors.
+  const below: number[] = [];
+  for (let k = 0; k < stages; k++) below.push(nR ** (stages - 1 - k));
+  let nextReport = 0xffff;
+  const minSeries = (depth: number): number => {
+    // the series resistance with the later resistors at their smallest, summed as for a whole tuple
+    let series = pwm.driver.low;
+    for (let k = 0; k < stages; k++) series += k <= depth ? scratch[k] : R[0];
+    return series;
+  };
+  const droopOver = (series: number) => exceeds((idealTop * series) / (loadR! + series), limits.droop);
+  // Depth-first in the order of the tuples' index (the first resistor most significant), so the
+  // list comes out in the same order as a plain count through every tuple. A subtree whose checks
+  // fail for every tuple in it is skipped whole: the pin current depends on the first resistor
+  // alone, and the droop floor of the series resistance only grows with each resistor (a larger
+  // value, or a later resistor above the smallest).
+  const visit = (depth: number, first: number): void => {
+    for (let i = 0; i < nR; i++) {
+      const count = first + i * below[depth];
+      if (count >= nextReport) {
+        nextReport = (Math.floor(count / 0x10000) + 1) * 0x10000 - 1;
+        onProgress?.((LIST_SHARE * (count + 1)) / total);
+        // Out of time while still listing: the walk then stops at once (cut).
+        if (timeIsUp(state)) {
+          state.cut = true;
+          return;
+        }
       }
+      scratch[depth] = R[i];
+      if (depth === 0 && limits.pinCurrent !== undefined && exceeds(span / (Math.min(pwm.driver.high, pwm.driver.low) + scratch[0]), limits.pinCurrent)) continue;
+      // (every later value of this resistor only raises the series resistance)
+      if (droopFloorApplies && droopOver(minSeries(depth))) return;
+      if (depth < stages - 1) {
+        visit(depth + 1, count);
+        if (state.cut) return;
+      } else consider(scratch);
     }
-    let rest = count;
-    for (let k = stages - 1; k >= 0; k--) {
-      idx[k] = rest % nR;
-      rest = Math.floor(rest / nR);
-    }
-    for (let k = 0; k < stages; k++) scratch[k] = R[idx[k]];
-    const rs = scratch;
-    if (limits.pinCurrent !== undefined && exceeds(span / (Math.min(pwm.driver.high, pwm.driver.low) + rs[0]), limits.pinCurrent)) continue;
-    if (droopFloorApplies) {
-      let series = pwm.driver.low;
-      for (let k = 0; k < stages; k++) series += rs[k];
-      if (exceeds((idealTop * series) / (loadR! + series), limits.droop)) continue;
-    }
-    if (gainFloorApplies && exceeds(gainFloor(circuit, rs, problem.dutyMin, problem.dutyMax), limits.gain)) continue;
+  };
+  const consider = (rs: number[]): void => {
+    if (gainFloorApplies && exceeds(gainFloor(circuit, rs, problem.dutyMin, problem.dutyMax), limits.gain)) return;
     // Unequal drivers: the droop floor at the smallest capacitors holds for every capacitor choice.
     let droopPlan: DroopFloorPlan | null | undefined;
     if (droopPlans !== null) {
       droopPlan = droopFloorPlan(problem, rs);
-      if (droopPlan !== null && exceeds(droopFloor(droopPlan, minC), limits.droop)) continue;
+      if (droopPlan !== null && exceeds(droopFloor(droopPlan, minC), limits.droop)) return;
     }
     // The floor plan in scratch for the key, and a tuple's own only when it is walked (walk):
     // most tuples of a wide space are never walked, and a plan for each kept one doubled the
@@ -123,7 +139,7 @@ export function listTuples(
     const tb = tupleBounds(problem, rs, limits, budgeted ? NO_FLOOR : settlingFloorPlan(problem, rs, limits, keyPlan));
     const key = tupleFloor(problem, rs, minC, tb, budgeted);
     // Beyond the threshold already: the walk would stop before it (theta only falls in a round).
-    if (key > state.theta) continue;
+    if (key > state.theta) return;
     const kept = rs.slice();
     tb.floor = NO_FLOOR;
     // (the walk's droop check reads the same plan: made once per tuple)
@@ -131,6 +147,7 @@ export function listTuples(
     tuples.push(kept);
     bounds.push(tb);
     keys.push(key);
-  }
+  };
+  visit(0, 0);
   return { tuples, bounds, keys };
 }

@@ -1,0 +1,73 @@
+import { describe, expect, it } from 'vitest';
+import { designProblem, type DesignProblem } from '../../src/design/designProblem.js';
+import { droopFloor, droopFloorPlan, type DroopFloorPlan } from '../../src/design/droopFloor.js';
+import { gainFloor } from '../../src/design/gainFloor.js';
+import { listTuples, tupleFloor } from '../../src/design/listTuples.js';
+import { exceeds } from '../../src/design/searchAllowance.js';
+import { tupleBounds } from '../../src/design/settlingBounds.js';
+import { loadProject } from '../../src/project/index.js';
+
+/**
+ * The listing as its documentation states it, one tuple at a time: every tuple of the series in
+ * the order of its index (first resistor most significant), kept when the pin current, the droop
+ * floor of the series resistance, the gain floor and (unequal drivers) the droop floor at the
+ * smallest capacitors pass, and its key is at most theta. listTuples skips whole subtrees
+ * instead; the lists must agree tuple for tuple, in order.
+ */
+function listedOneByOne(problem: DesignProblem, stages: number, theta: number): { tuples: number[][]; keys: number[] } {
+  const { rValues: R, searchLimits: limits, project, circuit } = problem;
+  const { pwm } = project;
+  const span = Math.abs(pwm.high - pwm.low);
+  const loadR = circuit.loadResistance;
+  const idealTop = Math.max(pwm.low + problem.dutyMin * (pwm.high - pwm.low), pwm.low + problem.dutyMax * (pwm.high - pwm.low));
+  const minC = new Array<number>(stages).fill(problem.cValues[0]);
+  const tuples: number[][] = [];
+  const keys: number[] = [];
+  for (let count = 0; count < R.length ** stages; count++) {
+    const rs: number[] = [];
+    for (let k = 0, rest = count; k < stages; k++, rest = Math.floor(rest / R.length)) rs.unshift(R[rest % R.length]);
+    if (limits.pinCurrent !== undefined && exceeds(span / (Math.min(pwm.driver.high, pwm.driver.low) + rs[0]), limits.pinCurrent)) continue;
+    if (pwm.driver.high >= pwm.driver.low && pwm.low >= 0 && loadR !== null && limits.droop !== undefined) {
+      const series = rs.reduce((s, r) => s + r, pwm.driver.low);
+      if (exceeds((idealTop * series) / (loadR + series), limits.droop)) continue;
+    }
+    if (loadR !== null && limits.gain !== undefined && exceeds(gainFloor(circuit, rs, problem.dutyMin, problem.dutyMax), limits.gain)) continue;
+    if (pwm.driver.high !== pwm.driver.low && limits.droop !== undefined) {
+      const plan: DroopFloorPlan | null = droopFloorPlan(problem, rs);
+      if (plan !== null && exceeds(droopFloor(plan, minC), limits.droop)) continue;
+    }
+    const key = tupleFloor(problem, rs, minC, tupleBounds(problem, rs, limits), false);
+    if (key > theta) continue;
+    tuples.push(rs);
+    keys.push(key);
+  }
+  return { tuples, keys };
+}
+
+describe('listTuples', () => {
+  // Invented bench scenarios (scripts/bench-projects): a droop limit with a 1 Mohm load and a pin
+  // current limit prune most tuples, unequal drivers add the droop floor per tuple.
+  const cases: Array<[string, number]> = [
+    ['scripts/bench-projects/wide-e24.yaml', 1],
+    ['scripts/bench-projects/wide-e24.yaml', 2],
+    ['scripts/bench-projects/wide-e12-three.yaml', 3],
+    ['sample-configs/design-tight-ripple.yaml', 2],
+    ['sample-configs/greenhouse-heater.yaml', 2],
+  ];
+  for (const [file, stages] of cases) {
+    it(`${file}, ${stages} stage(s): the same tuples and keys, in the same order, as checking every tuple`, () => {
+      const problem = designProblem(loadProject(file));
+      const droopPlans = () => (problem.project.pwm.driver.high !== problem.project.pwm.driver.low && problem.searchLimits.droop !== undefined ? new WeakMap() : null);
+      const all = listedOneByOne(problem, stages, Infinity);
+      expect(all.tuples.length).toBeGreaterThan(1);
+      // every tuple, then about half of them by key
+      const median = [...all.keys].sort((a, b) => a - b)[all.keys.length >> 1];
+      for (const theta of [Infinity, median]) {
+        const listed = listTuples(problem, stages, { theta }, false, droopPlans());
+        const reference = theta === Infinity ? all : listedOneByOne(problem, stages, theta);
+        expect(listed.tuples).toEqual(reference.tuples);
+        expect(listed.keys).toEqual(reference.keys);
+      }
+    });
+  }
+});
