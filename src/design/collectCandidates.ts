@@ -6,7 +6,7 @@ import { dcTransferMiss } from './dcTransferMiss.js';
 import { droopFloor, droopFloorPlan, type DroopFloorPlan } from './droopFloor.js';
 import { inlFloor, inlFloorPlan, type InlFloorPlan } from './inlFloor.js';
 import { maximizeOverDuty } from './maximizeOverDuty.js';
-import { rippleCeiling, rippleCeilingPlan, type RippleCeilingPlan } from './rippleCeiling.js';
+import { rippleCeiling, rippleCeilingPlan, rippleFloorSharp, type RippleCeilingPlan } from './rippleCeiling.js';
 import { rippleFloor, rippleFloorPlan, type RippleFloorPlan } from './rippleFloor.js';
 import { tupleBounds, type TupleBounds } from './settlingBounds.js';
 import { NO_FLOOR, settlingFloor, settlingFloorPlan } from './settlingFloor.js';
@@ -352,6 +352,9 @@ export function collectCandidates(
   let floorPlan: RippleFloorPlan | null = null;
   const floorOver = (rs: number[], cs: number[], d: number, limit: number): boolean => {
     if (budgeted) return false;
+    // From three stages on, the sharper floor on the ceiling's plan (the near-sine outputs there)
+    const sharp = stages >= 3 ? ceilingPlanOf(rs) : null;
+    if (sharp !== null) return exceeds(rippleFloorSharp(sharp, cs, d, limit * (1 + REL) + 1e-300), limit);
     if (floorPlan === null || !sameAs(rs, floorR)) {
       floorPlan = rippleFloorPlan(problem, rs);
       floorR = rs.slice();
@@ -368,14 +371,19 @@ export function collectCandidates(
    */
   let ceilingR: number[] = [];
   let ceilingPlan: RippleCeilingPlan | null = null;
-  /** The ripple ceiling at duty d, or NaN where it is not used (budgeted walks, one and two stages). */
-  const ceilingOf = (rs: number[], cs: number[], d: number): number => {
-    if (budgeted || stages < 3) return Number.NaN;
+  /** The ceiling's plan of a tuple (null for one stage), made once per tuple. */
+  const ceilingPlanOf = (rs: number[]): RippleCeilingPlan | null => {
     if (ceilingPlan === null || !sameAs(rs, ceilingR)) {
       ceilingPlan = rippleCeilingPlan(problem, rs);
       ceilingR = rs.slice();
     }
-    return ceilingPlan === null ? Number.NaN : rippleCeiling(ceilingPlan, cs, d);
+    return ceilingPlan;
+  };
+  /** The ripple ceiling at duty d, or NaN where it is not used (budgeted walks, one and two stages). */
+  const ceilingOf = (rs: number[], cs: number[], d: number): number => {
+    if (budgeted || stages < 3) return Number.NaN;
+    const plan = ceilingPlanOf(rs);
+    return plan === null ? Number.NaN : rippleCeiling(plan, cs, d);
   };
   const ceilingUnder = (rs: number[], cs: number[], d: number, limit: number): boolean => ceilingOf(rs, cs, d) <= limit;
 

@@ -10,6 +10,9 @@ import { rippleFloorPlan, type RippleFloorPlan } from './rippleFloor.js';
 export interface RippleCeilingPlan extends RippleFloorPlan {
   /** Largest size of the pin's drive step over node-1 averages in the nodes' range, A (largestPinDriveStep). */
   readonly driveMax: number;
+  /** The harmonics beyond HARMONICS through det(C) (see rippleCeiling): driveMax / pi sum k^-(n+1) / w^n, and sum k^-n / w^n (the mismatch's factor). */
+  readonly tailDrive: number;
+  readonly tailLost: number;
 }
 
 /** Harmonics summed one by one; the rest are bounded through det(C) (see rippleCeiling). */
@@ -27,7 +30,12 @@ const HARMONICS = 6;
 export function rippleCeilingPlan(problem: DesignProblem, r: ArrayLike<number>): RippleCeilingPlan | null {
   const n = r.length;
   if (n < 2) return null;
-  return { ...rippleFloorPlan(problem, r), driveMax: largestPinDriveStep(problem.circuit, r[0]) };
+  const floor = rippleFloorPlan(problem, r);
+  const driveMax = largestPinDriveStep(problem.circuit, r[0]);
+  // sum over k > K of k^-p <= K^(1 - p) / (p - 1)
+  const tail = (p: number) => HARMONICS ** (1 - p) / (p - 1);
+  const wn = floor.omega ** n;
+  return { ...floor, driveMax, tailDrive: ((driveMax / Math.PI) * tail(n + 1)) / wn, tailLost: tail(n) / wn };
 }
 
 /**
@@ -56,13 +64,63 @@ export function rippleCeiling(plan: RippleCeilingPlan, c: ArrayLike<number>, dut
   const n = g.length - 1;
   const lost = plan.mismatch * (plan.highDiffers ? duty : 1 - duty);
   let sum = 0;
+  // sin(k x) by the recurrence sin((k + 1) x) = 2 cos(x) sin(k x) - sin((k - 1) x): one sine and
+  // one cosine per call, not one sine per harmonic
+  const twoCos = 2 * Math.cos(Math.PI * duty);
+  let before = 0;
+  let sinK = Math.sin(Math.PI * duty);
   for (let k = 1; k <= HARMONICS; k++) {
-    sum += ((plan.driveMax * Math.abs(Math.sin(Math.PI * k * duty))) / (Math.PI * k) + lost) / ladderDeterminant(g, c, plan.loadC, k * omega);
+    sum += ((plan.driveMax * Math.abs(sinK)) / (Math.PI * k) + lost) / ladderDeterminant(g, c, plan.loadC, k * omega);
+    const next = twoCos * sinK - before;
+    before = sinK;
+    sinK = next;
   }
   let detC = 1;
   for (let i = 0; i < n; i++) detC *= i === n - 1 ? c[i] + plan.loadC : c[i];
-  // sum over k > K of k^-p <= K^(1 - p) / (p - 1)
-  const tail = (p: number) => HARMONICS ** (1 - p) / (p - 1);
-  sum += ((plan.driveMax / Math.PI) * tail(n + 1) + lost * tail(n)) / (detC * omega ** n);
+  sum += (plan.tailDrive + lost * plan.tailLost) / detC;
   return 4 * plan.couplings * sum;
+}
+
+/**
+ * A lower bound on the ripple (V) at duty `duty` of the ladder of `plan` (rippleCeilingPlan) with
+ * capacitors `c`, at least the ripple floor (rippleFloor.ts) and close to the ripple where the
+ * ladder passes little but the fundamental: there the floor's pi |c1| is pi/4 of a sine's
+ * peak-to-peak (4 |c1|), and a search's ripple checks near a limit need a model (measured: 28 882
+ * of the 30 841 models of the three-stage E12 bench search were for ripple checks).
+ *
+ * Method (derived here). With c_k the output's complex Fourier coefficients, let t1 be where the
+ * fundamental's term 2 Re(c1 e^(j w t)) peaks (2 |c1|) and t2 = t1 + T/2 (-2 |c1|). Each even
+ * harmonic's term is the same at t1 and t2, each odd one's changes sign, so peak-to-peak >= x(t1)
+ * - x(t2) >= 4 (|c1| - sum over odd k >= 3 of |c_k|). |c1| >= couplings (f sin(pi D) / pi -
+ * mismatch D') / |det(G + j w C)| as in rippleFloor.ts; each |c_k| is at most its term of
+ * rippleCeiling, k = 3 and 5 with their determinants and k >= 7 through the ceiling's det(C) tail
+ * (over every k > 6, odd or not: larger). The better of this and the floor's pi |c1| is returned;
+ * with `enough`, the floor's pi |c1| alone as soon as it passes `enough` (a lower bound either way,
+ * and over `enough` whenever the sharper one is: the harmonics are then not needed).
+ *
+ * Syntax: rippleFloorSharp(plan, c, duty[, enough])
+ * Example: rippleFloorSharp(rippleCeilingPlan(problem, [470, 3300, 12e3])!, [390e-9, 39e-9, 10e-9], 0.5)   // V, at most the ripple
+ *
+ * See also: rippleFloor, rippleCeiling
+ */
+export function rippleFloorSharp(plan: RippleCeilingPlan, c: ArrayLike<number>, duty: number, enough = Infinity): number {
+  const { g, omega } = plan;
+  const n = g.length - 1;
+  const lost = plan.mismatch * (plan.highDiffers ? duty : 1 - duty);
+  const s = Math.sin(Math.PI * duty);
+  const first = (plan.drive * s) / Math.PI - lost;
+  if (!(first > 0)) return 0;
+  const c1 = first / ladderDeterminant(g, c, plan.loadC, omega);
+  const floor = plan.couplings * Math.PI * c1;
+  if (floor > enough) return floor;
+  // |sin(3x)| and |sin(5x)| from s = sin(x) (multiple-angle formulas)
+  const s2 = s * s;
+  const sin3 = Math.abs(s * (3 - 4 * s2));
+  const sin5 = Math.abs(s * (5 - 20 * s2 + 16 * s2 * s2));
+  let odd = ((plan.driveMax * sin3) / (3 * Math.PI) + lost) / ladderDeterminant(g, c, plan.loadC, 3 * omega);
+  odd += ((plan.driveMax * sin5) / (5 * Math.PI) + lost) / ladderDeterminant(g, c, plan.loadC, 5 * omega);
+  let detC = 1;
+  for (let i = 0; i < n; i++) detC *= i === n - 1 ? c[i] + plan.loadC : c[i];
+  odd += (plan.tailDrive + lost * plan.tailLost) / detC;
+  return Math.max(floor, 4 * plan.couplings * (c1 - odd));
 }

@@ -1,7 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { designProblem } from '../../src/design/designProblem.js';
-import { rippleCeiling, rippleCeilingPlan } from '../../src/design/rippleCeiling.js';
+import { rippleCeiling, rippleCeilingPlan, rippleFloorSharp } from '../../src/design/rippleCeiling.js';
+import { rippleFloor, rippleFloorPlan } from '../../src/design/rippleFloor.js';
 import { steadyState } from '../../src/engine/index.js';
 import { drawnProblem, floorProject, ladderFields } from './randomLadders.js';
 
@@ -74,5 +75,66 @@ describe("rippleCeiling: an upper bound on the engine's ripple from the output's
 
   it('is null for one stage (the tail bound needs two poles)', () => {
     expect(rippleCeilingPlan(designProblem(project({})), [1000])).toBeNull();
+  });
+});
+
+describe("rippleFloorSharp: a lower bound on the engine's ripple from the fundamental less the odd harmonics", () => {
+  it('never exceeds the ripple of engine/steadyState.ts and is at least rippleFloor, equal or unequal drivers, 2 and 3 stages (fast-check)', () => {
+    const arb = fc.record({
+      ...ladderFields({ logR: [1.5, 5], logC: [-10, -5], lowMax: 150 }),
+      equal: fc.boolean(),
+      duty: fc.double({ min: 0.02, max: 0.98, noNaN: true }),
+    });
+    let sharper = 0;
+    fc.assert(
+      fc.property(arb, (x) => {
+        const drawn = { ...x, n: Math.max(2, x.n) };
+        const { p, r, c } = drawnProblem(drawn, project);
+        const sharp = rippleFloorSharp(rippleCeilingPlan(p, r)!, c, x.duty);
+        const floor = rippleFloor(rippleFloorPlan(p, r), c, x.duty);
+        const ripple = steadyState(p.ladderOf(r, c), x.duty).ripple;
+        if (sharp > 1.1 * floor) sharper++;
+        return sharp <= ripple * (1 + 1e-9) && sharp >= floor * (1 - 1e-12);
+      }),
+      { numRuns: 400 },
+    );
+    // It improves on the floor on many random ladders (the near-sine ones), not only in theory.
+    expect(sharper).toBeGreaterThan(30);
+  });
+
+  it('holds where the drivers differ by far: one phase all but floating (fast-check)', () => {
+    const arb = fc.record({
+      strong: fc.double({ min: 1, max: 20, noNaN: true }),
+      weak: fc.double({ min: 500, max: 5000, noNaN: true }),
+      highStrong: fc.boolean(),
+      logR: fc.array(fc.double({ min: 1, max: 4, noNaN: true }), { minLength: 3, maxLength: 3 }),
+      logC: fc.array(fc.double({ min: -9, max: -6, noNaN: true }), { minLength: 3, maxLength: 3 }),
+      n: fc.integer({ min: 2, max: 3 }),
+      duty: fc.double({ min: 0.05, max: 0.95, noNaN: true }),
+    });
+    fc.assert(
+      fc.property(arb, (x) => {
+        const [high, low] = x.highStrong ? [x.strong, x.weak] : [x.weak, x.strong];
+        const p = designProblem(project({ driver: `{ high: ${high} ohm, low: ${low} ohm }` }));
+        const r = x.logR.slice(0, x.n).map((v) => 10 ** v);
+        const c = x.logC.slice(0, x.n).map((v) => 10 ** v);
+        const ripple = steadyState(p.ladderOf(r, c), x.duty).ripple;
+        return rippleFloorSharp(rippleCeilingPlan(p, r)!, c, x.duty) <= ripple * (1 + 1e-9);
+      }),
+      { numRuns: 300 },
+    );
+  });
+
+  it('lies within 3 % below the ripple at 50 % of a three-stage ladder that passes little but the fundamental, where the floor is near pi/4 of it', () => {
+    // The invented filter of the ceiling's test above: nearly a sine, whose peak-to-peak is 4 |c1|
+    // against the floor's pi |c1| (common practice: a sine's peak-to-peak is twice its amplitude).
+    const p = designProblem(project({ driver: '{ high: 25 ohm, low: 25 ohm }' }));
+    const r = [1000, 10e3, 100e3];
+    const c = [470e-9, 47e-9, 4.7e-9];
+    const ripple = steadyState(p.ladderOf(r, c), 0.5).ripple;
+    const sharp = rippleFloorSharp(rippleCeilingPlan(p, r)!, c, 0.5) / ripple;
+    expect(sharp).toBeLessThanOrEqual(1);
+    expect(sharp).toBeGreaterThan(0.97);
+    expect(rippleFloor(rippleFloorPlan(p, r), c, 0.5) / ripple).toBeLessThan(0.8);
   });
 });
