@@ -30,7 +30,7 @@ export interface ParetoStats {
  * passes the best exact settling time, and is proven when that time lies within the threshold the
  * walk used for it, as in solveProblem.ts. A limit that is not proven so (the engine rejected what
  * the fast model kept, e.g. by INL) is searched alone by bestDesigns. Stage counts proven out of
- * reach (infeasibilityBounds.ts) give null. With follower options (search.buffered) one walk per
+ * reach (infeasibilityBounds.ts) under every follower option give null. With follower options (search.buffered) one walk per
  * option, merged by rankCandidates.
  *
  * Syntax: paretoSearch(problems, stages[, stats])
@@ -41,11 +41,14 @@ export function paretoSearch(problems: DesignProblem[], stages: number, stats: P
   const base = problems[0];
   if (!base) return out;
   const rippleOf = (p: DesignProblem) => p.searchLimits.ripple ?? Infinity;
-  const open = problems.map((p, i) => i).filter((i) => infeasibilityBounds(problems[i], stages).misses.length === 0);
+  const options = [...new Set(base.project.search?.buffered ?? [base.buffered])].sort((a, b) => Number(a) - Number(b));
+  const variantOf = (p: DesignProblem, buffered: boolean) => (buffered === p.buffered ? p : designProblem(p.project, undefined, buffered));
+  // Open: some follower option is not proven out of reach (a follower removes the load the bounds
+  // use, so a limit out of reach without one may be reached with one).
+  const open = problems.map((p, i) => i).filter((i) => options.some((b) => infeasibilityBounds(variantOf(problems[i], b), stages).misses.length === 0));
   if (open.length === 0) return out;
   const order = [...open].sort((a, b) => rippleOf(problems[a]) - rippleOf(problems[b]));
   const loosest = problems[order[order.length - 1]];
-  const options = [...new Set(base.project.search?.buffered ?? [base.buffered])].sort((a, b) => Number(a) - Number(b));
   const fallback = new Set<number>();
   const found: Candidate[][] = problems.map(() => []);
 
@@ -54,7 +57,7 @@ export function paretoSearch(problems: DesignProblem[], stages: number, stats: P
   // wide E24 bench project, 92 881 evaluations in all without it against 90 075 with, but 15 to
   // 20 ms less whole-process, as the separate search's set-up and verification go.)
   for (const buffered of options) {
-    const variant = (p: DesignProblem) => (buffered === p.buffered ? p : designProblem(p.project, undefined, buffered));
+    const variant = (p: DesignProblem) => variantOf(p, buffered);
     const walkProblem = variant(loosest);
     // Proven out of reach for this variant at the loosest limit: out of reach at every tighter one.
     if (infeasibilityBounds(walkProblem, stages).misses.length > 0) continue;

@@ -4,7 +4,7 @@ import { tradeoffCurves } from '../../src/design/tradeoffCurves.js';
 import { bestDesigns } from '../../src/design/bestDesigns.js';
 import { designProblem } from '../../src/design/designProblem.js';
 import { paretoSearch } from '../../src/design/paretoSearch.js';
-import { parseProject } from '../../src/project/index.js';
+import { loadProject, parseProject } from '../../src/project/index.js';
 import type { Project } from '../../src/project/types.js';
 import { bruteForce, designKey } from './bruteForce.js';
 
@@ -133,5 +133,30 @@ search:
       });
     }
     expect(found).toBeGreaterThan(10);
+  });
+
+  it('a load that only a follower can drive: the points are the follower designs one search per limit finds', () => {
+    // The invented follower sample: a 10 kohm load and a 1 LSB INL limit that no ladder without a
+    // follower meets (proven by infeasibilityBounds.ts). The walk once took that proof for the
+    // whole limit and drew empty curves while the search listed follower designs.
+    const p = loadProject('sample-configs/design-follower-10k.yaml');
+    const free = relaxProject(p, ['settling'], Infinity);
+    const inLsb = free.specInLsb ? { ...free.specInLsb } : undefined;
+    if (inLsb) delete inLsb.ripple;
+    const ripples = [1e-3, 3.2e-3, 1e-2];
+    const problems = ripples.map((ripple) => designProblem({ ...free, spec: { ...free.spec, ripple }, ...(inLsb && { specInLsb: inLsb }) }));
+    let found = 0;
+    for (const n of [1, 2]) {
+      const front = paretoSearch(problems, n);
+      problems.forEach((problem, i) => {
+        const alone = bestDesigns(problem, 1, [n]).feasible[0] ?? null;
+        expect(front[i], `${n} stages at ${ripples[i]} V`).toStrictEqual(alone);
+        if (alone) {
+          found++;
+          expect(alone.stages[alone.stages.length - 1].buffered).toBe(true);
+        }
+      });
+    }
+    expect(found).toBe(6);
   });
 });
