@@ -30,7 +30,8 @@ export interface BoundedResult {
  * Designs it returns meet every limit of that project (exact engine); when it was cut they are
  * feasible but perhaps not the best, and finding none proves nothing.
  *
- * Method: infeasibilityBounds per resolution and stage count, then solveProblem (top, budget).
+ * Method: infeasibilityBounds per resolution, follower option (search.buffered) and stage count,
+ * then solveProblem (top, budget) per resolution and option.
  *
  * Syntax: boundedSearch(project, stageCounts, bitsList, top, budget)
  * Example: boundedSearch(p, [2, 3], [7], 1, { left: 1e6, perProblem: 3e5 }).designs[0]?.settlingTime
@@ -45,21 +46,26 @@ export function boundedSearch(
   const found: Candidate[] = [];
   let complete = true;
   const problems: DesignProblem[] = [];
+  const options = [...new Set(project.search?.buffered ?? [false])].sort((a, b) => Number(a) - Number(b));
   for (const bits of bitsList) {
     const problem = designProblem(project, bits);
     problems.push(problem);
-    const open = stageCounts.filter((n) => infeasibilityBounds(problem, n).misses.length === 0);
-    if (open.length === 0) continue;
-    if (budget.left <= 0) {
-      complete = false;
-      continue;
+    // Each follower option its own walk, as in bestDesigns.ts (a follower removes the load).
+    for (const buffered of options) {
+      const variant = buffered === problem.buffered ? problem : designProblem(project, bits, buffered);
+      const open = stageCounts.filter((n) => infeasibilityBounds(variant, n).misses.length === 0);
+      if (open.length === 0) continue;
+      if (budget.left <= 0) {
+        complete = false;
+        continue;
+      }
+      // A three-stage evaluation costs several two-stage ones (measured: about 4x): it counts so.
+      const weight = open.includes(3) ? 4 : 1;
+      const outcome = solveProblem(variant, top, open, undefined, { budget: Math.min(budget.left, budget.perProblem) / weight });
+      budget.left -= outcome.evaluated * weight;
+      complete &&= outcome.complete;
+      found.push(...outcome.feasible);
     }
-    // A three-stage evaluation costs several two-stage ones (measured: about 4x): it counts so.
-    const weight = open.includes(3) ? 4 : 1;
-    const outcome = solveProblem(problem, top, open, undefined, { budget: Math.min(budget.left, budget.perProblem) / weight });
-    budget.left -= outcome.evaluated * weight;
-    complete &&= outcome.complete;
-    found.push(...outcome.feasible);
   }
   return { designs: rankCandidates(found).slice(0, top), complete, problems };
 }

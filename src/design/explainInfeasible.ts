@@ -2,7 +2,7 @@ import type { Project } from '../project/types.js';
 import { formatEng } from '../units/index.js';
 import { boundedSearch, type SearchBudget } from './boundedSearch.js';
 import { designLabel } from './designLabel.js';
-import type { DesignProblem } from './designProblem.js';
+import { designProblem, type DesignProblem } from './designProblem.js';
 import { infeasibilityBounds, type ProvenMiss } from './infeasibilityBounds.js';
 import { nearestFixes, type NearestFix } from './nearestFix.js';
 import { oneStageRipple } from './oneStageRipple.js';
@@ -84,22 +84,35 @@ export function explainInfeasible(
   const volts = (v: number, p: DesignProblem = base) =>
     // With several resolutions in play, an LSB count names the resolution it is counted at.
     p.lsb !== null ? `${formatEng(v, 'V')} (${(v / p.lsb).toPrecision(3)} LSB${searchBits && p.bits !== null ? ` @ ${p.bits} bit` : ''})` : formatEng(v, 'V');
-  const problemOf = (c: Candidate) => problems.find((p) => p.bits === c.bits) ?? base;
+  // The search's follower options (search.buffered), and a problem with or without the follower.
+  const followers = [...new Set(project.search?.buffered ?? [false])].sort((a, b) => Number(a) - Number(b));
+  const variantOf = (p: DesignProblem, buffered: boolean) => (buffered === p.buffered ? p : designProblem(p.project, undefined, buffered));
+  // A design's own problem: its resolution, and its follower (a follower design is evaluated with one).
+  const problemOf = (c: Candidate) => {
+    const p = problems.find((q) => q.bits === c.bits) ?? base;
+    return variantOf(p, c.stages[c.stages.length - 1]?.buffered === true);
+  };
 
-  // (1) Proven before any search.
+  // (1) Proven before any search: at every resolution and with every follower option searched
+  // (a follower removes the load, so each option has its own proof).
   const proven: ProvenMiss[] = [];
   for (const n of stageCounts) {
-    const per = problems.map((p) => ({ p, misses: infeasibilityBounds(p, n).misses }));
-    if (per.some((x) => x.misses.length === 0)) continue;
+    const per = problems.map((p) => ({ p, misses: followers.map((b) => infeasibilityBounds(variantOf(p, b), n).misses) }));
+    if (per.some((x) => x.misses.some((m) => m.length === 0))) continue;
     // Report it at the highest PWM frequency searched (fewest bits), where filtering is easiest.
     const best = per.reduce((a, x) => (x.p.frequency > a.p.frequency ? x : a));
-    const miss = best.misses.reduce((a, m) => (m.reach / m.limitValue > a.reach / a.limitValue ? m : a));
-    proven.push(miss);
+    const misses = best.misses.map((m) => m.reduce((a, x) => (x.reach / x.limitValue > a.reach / a.limitValue ? x : a)));
+    const miss = misses[0];
+    proven.push(...misses);
     const where = searchBits ? ` (even at ${best.p.bits} bits, ${formatEng(best.p.frequency, 'Hz')})` : '';
-    lines.push(`${n} stage${n === 1 ? '' : 's'} proven out of reach${where}: ${miss.reason}`);
+    const why =
+      followers.length === 1
+        ? `${followers[0] ? 'with the follower: ' : ''}${miss.reason}`
+        : misses.map((m, k) => `${followers[k] ? 'with a follower' : 'without a follower'}: ${m.reason}`).join('; ');
+    lines.push(`${n} stage${n === 1 ? '' : 's'} proven out of reach${where}: ${why}`);
     // One stage into an open output: the time constant the ripple needs, exactly (oneStageRipple.ts).
     const p = best.p;
-    if (n === 1 && miss.limit === 'ripple' && p.project.load.resistance === undefined && p.limits.ripple !== undefined) {
+    if (n === 1 && followers.length === 1 && !followers[0] && miss.limit === 'ripple' && p.project.load.resistance === undefined && p.limits.ripple !== undefined) {
       const { pwm } = p.project;
       const span = Math.abs(pwm.high - pwm.low);
       const d = Math.min(p.dutyMax, Math.max(p.dutyMin, 0.5));

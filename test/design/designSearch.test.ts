@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { designProblem } from '../../src/design/designProblem.js';
 import { designSearch } from '../../src/design/designSearch.js';
+import { exactCandidate } from '../../src/design/exactCandidate.js';
+import { infeasibilityBounds } from '../../src/design/infeasibilityBounds.js';
 import { modalLadderOf } from '../../src/engine/modal/modalLadderOf.js';
 import { steadySwing } from '../../src/engine/modal/steadySwing.js';
 import { slowestTimeConstant } from '../../src/design/slowestTimeConstant.js';
@@ -412,5 +414,48 @@ describe('search.buffered: an ideal follower after the last stage', () => {
     expect(found.candidates.length).toBeGreaterThan(0);
     expect(found.candidates.every((c) => c.needsFollower)).toBe(true);
     expect(designSearch(project({ load: '{ resistance: 10k }', margin: '10 %' }), { top: 1, compare: false, diagnose: false }).feasible).toBe(false);
+  });
+
+  describe('when nothing is feasible, the explanation is about the designs searched', () => {
+    // Invented: a 10 kohm load (gain limit 2 % by default) and a ripple limit so tight with a
+    // 1 ms settling limit that no follower design meets both either. The explanation once took
+    // every design as unbuffered: it proved the stage counts out of reach by the load (which the
+    // follower removes) and re-evaluated the closest designs without their follower.
+    const tight = (buffered: string) => project({ load: '{ resistance: 10k }', buffered, ripple: '0.05 LSB', settling: '{ band: 1 LSB, time: 1 ms }', rmin: '1k', rmax: '100k', series: 'E6' });
+
+    it('a follower-only search: the proofs are the follower designs\' own, the closest designs have the follower and its figures', () => {
+      const p = tight('[true]');
+      const result = designSearch(p, { top: 3, compare: false });
+      expect(result.feasible).toBe(false);
+      const follower = designProblem(p, undefined, true);
+      const proofs = (result.proven ?? []).map((m) => m.reason);
+      expect(proofs.length).toBeGreaterThan(0);
+      for (const n of [1, 2]) {
+        const own = infeasibilityBounds(follower, n).misses;
+        if (own.length > 0) expect(proofs.some((r) => own.some((m) => m.reason === r))).toBe(true);
+      }
+      // nothing about the load's gain loss: the follower isolates the load
+      expect(result.diagnosis.some((l) => l.includes('proven out of reach') && l.includes('gain'))).toBe(false);
+      expect(result.candidates.length).toBeGreaterThan(0);
+      for (const c of result.candidates) {
+        expect(c.stages[c.stages.length - 1].buffered).toBe(true);
+        // the figures are the engine's with the follower
+        const again = exactCandidate(follower, follower.ladderOf(c.stages.map((x) => x.r), c.stages.map((x) => x.c)));
+        expect(c.droop).toBe(again.droop);
+        expect(c.settlingTime).toBe(again.settlingTime);
+      }
+    });
+
+    it('with and without a follower: each stage count proven out of reach gives both proofs', () => {
+      const p = tight('[false, true]');
+      const result = designSearch(p, { top: 3, compare: false });
+      expect(result.feasible).toBe(false);
+      const lines = result.diagnosis.filter((l) => l.includes('proven out of reach'));
+      expect(lines.length).toBeGreaterThan(0);
+      for (const l of lines) {
+        expect(l).toContain('without a follower');
+        expect(l).toContain('with a follower');
+      }
+    });
   });
 });
