@@ -9,13 +9,37 @@ import { drawnProblem, floorProject, ladderFields } from './randomLadders.js';
 /** Invented: a PWM pin into a load (randomLadders.ts). */
 const project = floorProject;
 
+/** Random ladders of 2 and 3 stages (randomLadders.ts), equal or unequal drivers, at a random duty. */
+const RANDOM_LADDER = fc.record({
+  ...ladderFields({ logR: [1.5, 5], logC: [-10, -5], lowMax: 150 }),
+  equal: fc.boolean(),
+  duty: fc.double({ min: 0.02, max: 0.98, noNaN: true }),
+});
+
+/**
+ * A strong and a weak driver (1..20 ohm against 0.5..5 kohm, either way round) into a small first
+ * resistor: the mismatch terms of the bounds carry much of the ripple here.
+ */
+const FLOATING_PHASE = fc.record({
+  strong: fc.double({ min: 1, max: 20, noNaN: true }),
+  weak: fc.double({ min: 500, max: 5000, noNaN: true }),
+  highStrong: fc.boolean(),
+  logR: fc.array(fc.double({ min: 1, max: 4, noNaN: true }), { minLength: 3, maxLength: 3 }),
+  logC: fc.array(fc.double({ min: -9, max: -6, noNaN: true }), { minLength: 3, maxLength: 3 }),
+  n: fc.integer({ min: 2, max: 3 }),
+  duty: fc.double({ min: 0.05, max: 0.95, noNaN: true }),
+});
+
+/** The problem and parts of a FLOATING_PHASE draw. */
+function floatingPhase(x: { strong: number; weak: number; highStrong: boolean; logR: number[]; logC: number[]; n: number }) {
+  const [high, low] = x.highStrong ? [x.strong, x.weak] : [x.weak, x.strong];
+  const p = designProblem(project({ driver: `{ high: ${high} ohm, low: ${low} ohm }` }));
+  return { p, r: x.logR.slice(0, x.n).map((v) => 10 ** v), c: x.logC.slice(0, x.n).map((v) => 10 ** v) };
+}
+
 describe("rippleCeiling: an upper bound on the engine's ripple from the output's harmonics", () => {
   it('never falls below the ripple of engine/steadyState.ts, equal or unequal drivers, 2 and 3 stages (fast-check)', () => {
-    const arb = fc.record({
-      ...ladderFields({ logR: [1.5, 5], logC: [-10, -5], lowMax: 150 }),
-      equal: fc.boolean(),
-      duty: fc.double({ min: 0.02, max: 0.98, noNaN: true }),
-    });
+    const arb = RANDOM_LADDER;
     let close = 0;
     fc.assert(
       fc.property(arb, (x) => {
@@ -33,23 +57,10 @@ describe("rippleCeiling: an upper bound on the engine's ripple from the output's
   });
 
   it('holds where the drivers differ by far: one phase all but floating (fast-check)', () => {
-    // A strong and a weak driver (1..20 ohm against 0.5..5 kohm, either way round) into a small
-    // first resistor: the mismatch term of the bound carries much of the ripple here.
-    const arb = fc.record({
-      strong: fc.double({ min: 1, max: 20, noNaN: true }),
-      weak: fc.double({ min: 500, max: 5000, noNaN: true }),
-      highStrong: fc.boolean(),
-      logR: fc.array(fc.double({ min: 1, max: 4, noNaN: true }), { minLength: 3, maxLength: 3 }),
-      logC: fc.array(fc.double({ min: -9, max: -6, noNaN: true }), { minLength: 3, maxLength: 3 }),
-      n: fc.integer({ min: 2, max: 3 }),
-      duty: fc.double({ min: 0.05, max: 0.95, noNaN: true }),
-    });
+    const arb = FLOATING_PHASE;
     fc.assert(
       fc.property(arb, (x) => {
-        const [high, low] = x.highStrong ? [x.strong, x.weak] : [x.weak, x.strong];
-        const p = designProblem(project({ driver: `{ high: ${high} ohm, low: ${low} ohm }` }));
-        const r = x.logR.slice(0, x.n).map((v) => 10 ** v);
-        const c = x.logC.slice(0, x.n).map((v) => 10 ** v);
+        const { p, r, c } = floatingPhase(x);
         const ripple = steadyState(p.ladderOf(r, c), x.duty).ripple;
         return rippleCeiling(rippleCeilingPlan(p, r)!, c, x.duty) >= ripple * (1 - 1e-9);
       }),
@@ -80,11 +91,7 @@ describe("rippleCeiling: an upper bound on the engine's ripple from the output's
 
 describe("rippleFloorSharp: a lower bound on the engine's ripple from the fundamental less the odd harmonics", () => {
   it('never exceeds the ripple of engine/steadyState.ts and is at least rippleFloor, equal or unequal drivers, 2 and 3 stages (fast-check)', () => {
-    const arb = fc.record({
-      ...ladderFields({ logR: [1.5, 5], logC: [-10, -5], lowMax: 150 }),
-      equal: fc.boolean(),
-      duty: fc.double({ min: 0.02, max: 0.98, noNaN: true }),
-    });
+    const arb = RANDOM_LADDER;
     let sharper = 0;
     fc.assert(
       fc.property(arb, (x) => {
@@ -103,21 +110,10 @@ describe("rippleFloorSharp: a lower bound on the engine's ripple from the fundam
   });
 
   it('holds where the drivers differ by far: one phase all but floating (fast-check)', () => {
-    const arb = fc.record({
-      strong: fc.double({ min: 1, max: 20, noNaN: true }),
-      weak: fc.double({ min: 500, max: 5000, noNaN: true }),
-      highStrong: fc.boolean(),
-      logR: fc.array(fc.double({ min: 1, max: 4, noNaN: true }), { minLength: 3, maxLength: 3 }),
-      logC: fc.array(fc.double({ min: -9, max: -6, noNaN: true }), { minLength: 3, maxLength: 3 }),
-      n: fc.integer({ min: 2, max: 3 }),
-      duty: fc.double({ min: 0.05, max: 0.95, noNaN: true }),
-    });
+    const arb = FLOATING_PHASE;
     fc.assert(
       fc.property(arb, (x) => {
-        const [high, low] = x.highStrong ? [x.strong, x.weak] : [x.weak, x.strong];
-        const p = designProblem(project({ driver: `{ high: ${high} ohm, low: ${low} ohm }` }));
-        const r = x.logR.slice(0, x.n).map((v) => 10 ** v);
-        const c = x.logC.slice(0, x.n).map((v) => 10 ** v);
+        const { p, r, c } = floatingPhase(x);
         const ripple = steadyState(p.ladderOf(r, c), x.duty).ripple;
         return rippleFloorSharp(rippleCeilingPlan(p, r)!, c, x.duty) <= ripple * (1 + 1e-9);
       }),
