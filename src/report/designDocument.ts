@@ -347,7 +347,8 @@ export function designDocument(project: Project, result: DesignResult, options: 
     sections.push(robustSection(robust, lsbOf));
   } else if (result.feasible) {
     sections.push({ title: 'Recommended designs (exact figures)', blocks: [candidateTable(result, lsbOf), ...followerNote(result.candidates)] });
-  } else {
+  } else if (result.complete !== false || result.diagnosis.length > 0 || result.candidates.length > 0) {
+    // (cut by the time limit with nothing found: the section above says all there is to say)
     const blocks: Block[] = [{ kind: 'list', items: result.diagnosis }];
     if (result.candidates.length > 0) blocks.push(candidateTable(result, lsbOf), ...followerNote(result.candidates));
     sections.push({ title: onlyWithoutMargin(result) ? `No design meets every limit with the ${percent(basis.margin)} margin` : 'No design meets every limit', blocks });
@@ -403,6 +404,8 @@ export function designDocument(project: Project, result: DesignResult, options: 
     ? { pass: true, text: `PASS: ${result.candidates.length} design${result.candidates.length > 1 ? 's' : ''} meet every limit; #1 settles in ${formatEng(best.settlingTime ?? NaN, 's', 4)}` }
     : onlyWithoutMargin(result)
       ? { pass: false, text: `FAIL: no design keeps the ${percent(basis.margin)} margin to every limit; ${result.candidates.length} meet the limits without it (listed)` }
-      : { pass: false, text: 'FAIL: no design in the search space meets every limit' };
+      : result.complete === false
+        ? { pass: false, text: 'FAIL: no design found before the time limit (--max-time); the search did not finish, so whether one exists is open' }
+        : { pass: false, text: 'FAIL: no design in the search space meets every limit' };
   return { title: `dacsmith design: ${project.file}`, sections, verdict };
 }

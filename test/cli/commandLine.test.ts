@@ -169,6 +169,10 @@ describe('design --max-time stops a long search cleanly', () => {
     expect(out.diagnosis).toEqual([]);
     const text = runBuilt(['design', file, '--max-time', '1', '--no-charts', '--width', '300']).stdout;
     expect(text).toMatch(/Incomplete: stopped at the time limit \(--max-time\)/);
+    // The verdict agrees: nothing found in time is not "no design in the search space".
+    expect(text).toMatch(/FAIL: no design found before the time limit/);
+    expect(text).not.toMatch(/no design in the search space/);
+    expect(text).not.toMatch(/No design meets every limit/);
   });
 
   it('a search that ends in time is complete, and bad values are refused', () => {
