@@ -232,7 +232,7 @@ export function collectCandidates(
   const tupleKey = (rs: number[], tb: TupleBounds, ceiling: number): number => tupleFloor(problem, rs, minC, tb, budgeted, ceiling);
 
   // Resistor tuples that pass the resistor-only checks, with bounds (listTuples).
-  const { tuples, bounds, keys } = listTuples(problem, stages, state, budgeted, droopApplies ? droopPlans : null, onProgress);
+  const { tuples, keys } = listTuples(problem, stages, state, budgeted, droopApplies, onProgress);
   // (nothing to walk when the listing ran out of time)
   const order = state.cut ? [] : keys.map((_, i) => i).sort((a, b) => keys[a] - keys[b]);
 
@@ -885,7 +885,8 @@ export function collectCandidates(
   for (let k = 0; k < order.length; k++) {
     const i = order[k];
     if (keys[i] > state.theta || overBudget()) break;
-    const columns = walk(tuples[i], bounds[i], keys[i]);
+    // (the tuple's bounds made again here, as the listing made them for its key: it keeps none)
+    const columns = walk(tuples[i], tupleBounds(problem, tuples[i], limits, NO_FLOOR), keys[i]);
     if (state.theta === Infinity) deferred.push(...columns);
     else {
       while (deferred.length > 0) finishColumn(deferred.pop()!);

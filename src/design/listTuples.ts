@@ -1,5 +1,5 @@
 import type { DesignProblem } from './designProblem.js';
-import { droopFloor, droopFloorPlan, type DroopFloorPlan } from './droopFloor.js';
+import { droopFloor, droopFloorPlan } from './droopFloor.js';
 import { gainFloor } from './gainFloor.js';
 import { exceeds } from './searchAllowance.js';
 import { doubles } from '../numeric/dense.js';
@@ -45,31 +45,33 @@ export function tupleFloor(problem: DesignProblem, rs: number[], minC: number[],
   return settlingFloor(tb.floor, Math.max(tb.tauMin, TAUS[0]), TAUS[1], ceiling);
 }
 
-/** Resistor tuples to walk, with their bounds and keys (tupleFloor), in listing order. */
+/** Resistor tuples to walk and their keys (tupleFloor), in listing order. */
 export interface TupleList {
   tuples: number[][];
-  bounds: TupleBounds[];
   keys: number[];
 }
 
 /**
  * Every `stages`-resistor tuple of the problem's series that passes the resistor-only checks of
  * collectCandidates (pin current, droop and gain floors from the resistors, with unequal drivers
- * the droop floor at the smallest capacitors) and whose key (tupleFloor) is at most state.theta.
- * `droopPlans` (unequal drivers with a droop limit) receives each kept tuple's droop floor plan.
+ * the droop floor at the smallest capacitors, when `droopFloorCheck`: unequal drivers with a
+ * droop limit) and whose key (tupleFloor) is at most state.theta. Only the tuples and their keys are
+ * kept: a walk makes a tuple's bounds and plans again when it reaches the tuple (most listed tuples
+ * never are), so a listing of millions of tuples holds a few numbers each (measured on a two- and
+ * three-stage E96 space cut after 20 s: 1.6 GB with each tuple's droop plan kept, 0.6 GB without).
  * A function (and file) of its own, not a loop inside collectCandidates: V8 then compiles this loop alone
  * when it turns hot, not the whole walk with it (measured: the walk's function was compiled three
  * times in a default design run, 55 to 81 ms each on the compiler thread).
  *
- * Syntax: listTuples(problem, stages, state, budgeted, droopPlans[, onProgress])
- * Example: listTuples(problem, 2, newCollectState(problem, 10), false, null).tuples.length
+ * Syntax: listTuples(problem, stages, state, budgeted, droopFloorCheck[, onProgress])
+ * Example: listTuples(problem, 2, newCollectState(problem, 10), false, false).tuples.length
  */
 export function listTuples(
   problem: DesignProblem,
   stages: number,
   state: ListingState,
   budgeted: boolean,
-  droopPlans: WeakMap<number[], DroopFloorPlan | null> | null,
+  droopFloorCheck: boolean,
   onProgress?: (fraction: number) => void,
 ): TupleList {
   const { rValues: R, searchLimits: limits, project, circuit } = problem;
@@ -82,7 +84,6 @@ export function listTuples(
   const idealTop = Math.max(pwm.low + problem.dutyMin * (pwm.high - pwm.low), pwm.low + problem.dutyMax * (pwm.high - pwm.low));
   const minC = doubles(stages).fill(problem.cValues[0]);
   const tuples: number[][] = [];
-  const bounds: TupleBounds[] = [];
   const keys: number[] = [];
   const scratch = doubles(stages);
   const keyPlan = scratchFloorPlan();
@@ -128,9 +129,8 @@ export function listTuples(
   const consider = (rs: number[]): void => {
     if (gainFloorApplies && exceeds(gainFloor(circuit, rs, problem.dutyMin, problem.dutyMax), limits.gain)) return;
     // Unequal drivers: the droop floor at the smallest capacitors holds for every capacitor choice.
-    let droopPlan: DroopFloorPlan | null | undefined;
-    if (droopPlans !== null) {
-      droopPlan = droopFloorPlan(problem, rs);
+    if (droopFloorCheck) {
+      const droopPlan = droopFloorPlan(problem, rs);
       if (droopPlan !== null && exceeds(droopFloor(droopPlan, minC), limits.droop)) return;
     }
     // The floor plan in scratch for the key, and a tuple's own only when it is walked (walk):
@@ -140,14 +140,9 @@ export function listTuples(
     const key = tupleFloor(problem, rs, minC, tb, budgeted);
     // Beyond the threshold already: the walk would stop before it (theta only falls in a round).
     if (key > state.theta) return;
-    const kept = rs.slice();
-    tb.floor = NO_FLOOR;
-    // (the walk's droop check reads the same plan: made once per tuple)
-    if (droopPlans !== null && droopPlan !== undefined) droopPlans.set(kept, droopPlan);
-    tuples.push(kept);
-    bounds.push(tb);
+    tuples.push(rs.slice());
     keys.push(key);
   };
   visit(0, 0);
-  return { tuples, bounds, keys };
+  return { tuples, keys };
 }
