@@ -1,4 +1,4 @@
-import { designProblem, type DesignProblem } from './designProblem.js';
+import { followerOptions, withFollower, type DesignProblem } from './designProblem.js';
 import { rankCandidates } from './rankCandidates.js';
 import { infeasibilityBounds } from './infeasibilityBounds.js';
 import { solveProblem, type ProblemOutcome, type ProblemProgress, type SolveOptions } from './solveProblem.js';
@@ -23,12 +23,12 @@ export function bestDesigns(
   onProgress?: (fraction: number, detail?: ProblemProgress) => void,
   solve: SolveOptions = {},
 ): ProblemOutcome {
-  const options = [...new Set(problem.project.search?.buffered ?? [problem.buffered])].sort((a, b) => Number(a) - Number(b));
+  const options = followerOptions(problem);
   // Stage counts proven out of reach for this variant (infeasibilityBounds.ts) are not walked.
   const open = (p: DesignProblem) => stageCounts.filter((n) => infeasibilityBounds(p, n).misses.length === 0);
   if (options.length === 1 && options[0] === problem.buffered) return solveProblem(problem, top, open(problem), onProgress, solve);
   const outcomes = options.map((buffered, i) => {
-    const variant = buffered === problem.buffered ? problem : designProblem(problem.project, undefined, buffered);
+    const variant = withFollower(problem, buffered);
     return solveProblem(variant, top, open(variant), (f, d) => onProgress?.((i + f) / options.length, d), solve);
   });
   return {

@@ -1,5 +1,5 @@
 import type { Project } from '../project/types.js';
-import { designProblem, type DesignProblem } from './designProblem.js';
+import { designProblem, followerOptions, withFollower, type DesignProblem } from './designProblem.js';
 import { infeasibilityBounds } from './infeasibilityBounds.js';
 import { rankCandidates } from './rankCandidates.js';
 import { solveProblem } from './solveProblem.js';
@@ -46,13 +46,12 @@ export function boundedSearch(
   const found: Candidate[] = [];
   let complete = true;
   const problems: DesignProblem[] = [];
-  const options = [...new Set(project.search?.buffered ?? [false])].sort((a, b) => Number(a) - Number(b));
   for (const bits of bitsList) {
     const problem = designProblem(project, bits);
     problems.push(problem);
     // Each follower option its own walk, as in bestDesigns.ts (a follower removes the load).
-    for (const buffered of options) {
-      const variant = buffered === problem.buffered ? problem : designProblem(project, bits, buffered);
+    for (const buffered of followerOptions(problem)) {
+      const variant = withFollower(problem, buffered);
       const open = stageCounts.filter((n) => infeasibilityBounds(variant, n).misses.length === 0);
       if (open.length === 0) continue;
       if (budget.left <= 0) {

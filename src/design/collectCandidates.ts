@@ -231,7 +231,7 @@ export function collectCandidates(
   const minC = doubles(stages).fill(C[0]);
   const tupleKey = (rs: number[], tb: TupleBounds, ceiling: number): number => tupleFloor(problem, rs, minC, tb, budgeted, ceiling);
 
-  // Resistor tuples that pass the resistor-only checks, with bounds (listTuples).
+  // Resistor tuples that pass the resistor-only checks, and their keys (listTuples).
   const { tuples, keys } = listTuples(problem, stages, state, budgeted, droopApplies, onProgress);
   // (nothing to walk when the listing ran out of time)
   const order = state.cut ? [] : keys.map((_, i) => i).sort((a, b) => keys[a] - keys[b]);

@@ -143,3 +143,30 @@ export function designProblem(project: Project, bits?: number, buffered = false)
     },
   };
 }
+
+/**
+ * The follower options a search of the problem tries (search.buffered: without an ideal follower
+ * after the last stage, with one, or both), without first.
+ *
+ * Syntax: followerOptions(problem)
+ * Example: followerOptions(designProblem(loadProject('sample-configs/design-follower-10k.yaml')))   // [false, true]
+ *
+ * See also: withFollower
+ */
+export function followerOptions(problem: DesignProblem): boolean[] {
+  return [...new Set(problem.project.search?.buffered ?? [problem.buffered])].sort((a, b) => Number(a) - Number(b));
+}
+
+/**
+ * The problem with (`buffered` true) or without an ideal follower after the last stage: itself
+ * when it already is so, else the same project at the same resolution. Every bound and proof of
+ * the search is per variant: a follower removes the load the ladder sees.
+ *
+ * Syntax: withFollower(problem, buffered)
+ * Example: withFollower(designProblem(p), true).circuit.loadResistance   // null
+ *
+ * See also: followerOptions
+ */
+export function withFollower(problem: DesignProblem, buffered: boolean): DesignProblem {
+  return buffered === problem.buffered ? problem : designProblem(problem.project, undefined, buffered);
+}

@@ -2,7 +2,7 @@ import type { Project } from '../project/types.js';
 import { formatEng } from '../units/index.js';
 import { boundedSearch, type SearchBudget } from './boundedSearch.js';
 import { designLabel } from './designLabel.js';
-import { designProblem, type DesignProblem } from './designProblem.js';
+import { followerOptions, withFollower, type DesignProblem } from './designProblem.js';
 import { infeasibilityBounds, type ProvenMiss } from './infeasibilityBounds.js';
 import { nearestFixes, type NearestFix } from './nearestFix.js';
 import { oneStageRipple } from './oneStageRipple.js';
@@ -85,19 +85,18 @@ export function explainInfeasible(
     // With several resolutions in play, an LSB count names the resolution it is counted at.
     p.lsb !== null ? `${formatEng(v, 'V')} (${(v / p.lsb).toPrecision(3)} LSB${searchBits && p.bits !== null ? ` @ ${p.bits} bit` : ''})` : formatEng(v, 'V');
   // The search's follower options (search.buffered), and a problem with or without the follower.
-  const followers = [...new Set(project.search?.buffered ?? [false])].sort((a, b) => Number(a) - Number(b));
-  const variantOf = (p: DesignProblem, buffered: boolean) => (buffered === p.buffered ? p : designProblem(p.project, undefined, buffered));
+  const followers = followerOptions(base);
   // A design's own problem: its resolution, and its follower (a follower design is evaluated with one).
   const problemOf = (c: Candidate) => {
     const p = problems.find((q) => q.bits === c.bits) ?? base;
-    return variantOf(p, c.stages[c.stages.length - 1]?.buffered === true);
+    return withFollower(p, c.stages[c.stages.length - 1]?.buffered === true);
   };
 
   // (1) Proven before any search: at every resolution and with every follower option searched
   // (a follower removes the load, so each option has its own proof).
   const proven: ProvenMiss[] = [];
   for (const n of stageCounts) {
-    const per = problems.map((p) => ({ p, misses: followers.map((b) => infeasibilityBounds(variantOf(p, b), n).misses) }));
+    const per = problems.map((p) => ({ p, misses: followers.map((b) => infeasibilityBounds(withFollower(p, b), n).misses) }));
     if (per.some((x) => x.misses.some((m) => m.length === 0))) continue;
     // Report it at the highest PWM frequency searched (fewest bits), where filtering is easiest.
     const best = per.reduce((a, x) => (x.p.frequency > a.p.frequency ? x : a));

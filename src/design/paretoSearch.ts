@@ -1,7 +1,7 @@
 import { bestDesigns } from './bestDesigns.js';
 import { collectCandidates, newCollectState, type FastEntry } from './collectCandidates.js';
 import { REL } from './searchAllowance.js';
-import { designProblem, type DesignProblem } from './designProblem.js';
+import { followerOptions, withFollower, type DesignProblem } from './designProblem.js';
 import { exactCandidate } from './exactCandidate.js';
 import { infeasibilityBounds } from './infeasibilityBounds.js';
 import { rankCandidates, SETTLING_TIE } from './rankCandidates.js';
@@ -41,11 +41,10 @@ export function paretoSearch(problems: DesignProblem[], stages: number, stats: P
   const base = problems[0];
   if (!base) return out;
   const rippleOf = (p: DesignProblem) => p.searchLimits.ripple ?? Infinity;
-  const options = [...new Set(base.project.search?.buffered ?? [base.buffered])].sort((a, b) => Number(a) - Number(b));
-  const variantOf = (p: DesignProblem, buffered: boolean) => (buffered === p.buffered ? p : designProblem(p.project, undefined, buffered));
+  const options = followerOptions(base);
   // Open: some follower option is not proven out of reach (a follower removes the load the bounds
   // use, so a limit out of reach without one may be reached with one).
-  const open = problems.map((p, i) => i).filter((i) => options.some((b) => infeasibilityBounds(variantOf(problems[i], b), stages).misses.length === 0));
+  const open = problems.map((p, i) => i).filter((i) => options.some((b) => infeasibilityBounds(withFollower(problems[i], b), stages).misses.length === 0));
   if (open.length === 0) return out;
   const order = [...open].sort((a, b) => rippleOf(problems[a]) - rippleOf(problems[b]));
   const loosest = problems[order[order.length - 1]];
@@ -57,7 +56,7 @@ export function paretoSearch(problems: DesignProblem[], stages: number, stats: P
   // wide E24 bench project, 92 881 evaluations in all without it against 90 075 with, but 15 to
   // 20 ms less whole-process, as the separate search's set-up and verification go.)
   for (const buffered of options) {
-    const variant = (p: DesignProblem) => variantOf(p, buffered);
+    const variant = (p: DesignProblem) => withFollower(p, buffered);
     const walkProblem = variant(loosest);
     // Proven out of reach for this variant at the loosest limit: out of reach at every tighter one.
     if (infeasibilityBounds(walkProblem, stages).misses.length > 0) continue;
