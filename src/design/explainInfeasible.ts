@@ -102,7 +102,7 @@ export function explainInfeasible(
     const best = per.reduce((a, x) => (x.p.frequency > a.p.frequency ? x : a));
     const misses = best.misses.map((m) => m.reduce((a, x) => (x.reach / x.limitValue > a.reach / a.limitValue ? x : a)));
     const miss = misses[0];
-    proven.push(...misses);
+    proven.push(...misses.map((m, k) => ({ ...m, follower: followers[k] })));
     const where = searchBits ? ` (even at ${best.p.bits} bits, ${formatEng(best.p.frequency, 'Hz')})` : '';
     const why =
       followers.length === 1

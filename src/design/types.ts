@@ -226,6 +226,8 @@ export interface ProvenMiss {
   limitValue: number;
   /** One line: what was compared, in words. */
   reason: string;
+  /** In an explanation: the miss holds for designs with (true) or without (false) an ideal follower after the last stage (search.buffered). */
+  follower?: boolean;
 }
 
 /** Kinds of change an explanation may suggest. */

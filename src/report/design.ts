@@ -163,7 +163,7 @@ export function designJson(result: DesignResult, options: Pick<DesignReportOptio
     warnings: result.warnings,
     // When nothing is feasible: changes verified by a search, and limits proven out of reach.
     fixes: (result.fixes ?? []).map((f) => ({ kind: f.kind, change: f.change, design: candidateJson(f.best) })),
-    proven: (result.proven ?? []).map((m) => ({ stages: m.stages, limit: m.limit, reach: m.reach, limitValue: m.limitValue, reason: m.reason })),
+    proven: (result.proven ?? []).map((m) => ({ stages: m.stages, limit: m.limit, reach: m.reach, limitValue: m.limitValue, reason: m.reason, follower: m.follower ?? false })),
     current: result.current ? candidateJson(result.current) : null,
     resolutions: result.resolutions.map((r) => ({ ...r, best: r.best ? candidateJson(r.best) : null })),
     tradeoff: (options.tradeoff ?? []).map((c) => ({

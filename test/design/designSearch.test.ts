@@ -456,6 +456,11 @@ describe('search.buffered: an ideal follower after the last stage', () => {
         expect(l).toContain('without a follower');
         expect(l).toContain('with a follower');
       }
+      // In JSON terms: one proof per option and stage count, each saying which option it is for.
+      const proven = result.proven ?? [];
+      for (const n of new Set(proven.map((m) => m.stages))) {
+        expect(proven.filter((m) => m.stages === n).map((m) => m.follower).sort()).toEqual([false, true]);
+      }
     });
   });
 });
