@@ -13,7 +13,7 @@ import { NO_FLOOR, settlingFloor, settlingFloorPlan } from './settlingFloor.js';
 import { slowestTimeConstant, twoSlowestTimeConstants } from './slowestTimeConstant.js';
 import { LIST_SHARE, listTuples, timeIsUp, tupleFloor } from './listTuples.js';
 import { exceeds, REL } from './searchAllowance.js';
-import { doubles } from '../numeric/dense.js';
+import { doubles, emptyDoubles } from '../numeric/dense.js';
 
 /** Absolute allowance on times, s. */
 const ABS_T = 1e-12;
@@ -896,13 +896,6 @@ export function collectCandidates(
   }
   while (deferred.length > 0) finishColumn(deferred.pop()!);
   onProgress?.(1);
-}
-
-/** An empty array that holds doubles (doubles.ts): appending numbers never changes its kind. */
-function emptyDoubles(): number[] {
-  const v = doubles(1);
-  v.length = 0;
-  return v;
 }
 
 /** Identity of a candidate across collection rounds. */

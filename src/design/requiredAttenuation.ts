@@ -1,5 +1,5 @@
 import type { DesignProblem } from './designProblem.js';
-import { rippleFloorPlan, type RippleFloorPlan } from './rippleFloor.js';
+import { floorDrive, rippleFloorPlan, type RippleFloorPlan } from './rippleFloor.js';
 import { REL } from './searchAllowance.js';
 import { ladderDeterminant } from './ladderDeterminant.js';
 
@@ -32,7 +32,7 @@ export function requiredAttenuation(
   const perDrive = plan.couplings / ladderDeterminant(plan.g, [], 0, 0);
   let gamma = 0;
   const need = (duty: number, limit: number) => {
-    const drive = plan.drive * Math.sin(Math.PI * duty) - Math.PI * plan.mismatch * (plan.highDiffers ? duty : 1 - duty);
+    const drive = floorDrive(plan, duty);
     if (drive > 0) gamma = Math.max(gamma, ((perDrive * drive) / (limit * (1 + REL))) ** 2);
   };
   if (limits.ripple !== undefined) need(Math.min(problem.dutyMax, Math.max(problem.dutyMin, 0.5)), limits.ripple);

@@ -1,7 +1,7 @@
 import type { DesignProblem } from './designProblem.js';
 import { ladderDeterminant } from './ladderDeterminant.js';
 import { largestPinDriveStep } from './pinDriveStep.js';
-import { rippleFloorPlan, type RippleFloorPlan } from './rippleFloor.js';
+import { mismatchShare, rippleFloor, rippleFloorPlan, type RippleFloorPlan } from './rippleFloor.js';
 
 /**
  * The resistor-only part of the ripple ceiling of one resistor choice (rippleCeilingPlan): the
@@ -60,9 +60,7 @@ export function rippleCeilingPlan(problem: DesignProblem, r: ArrayLike<number>):
  * Example: rippleCeiling(rippleCeilingPlan(problem, [470, 3300, 12e3])!, [390e-9, 39e-9, 10e-9], 0.5)   // V
  */
 export function rippleCeiling(plan: RippleCeilingPlan, c: ArrayLike<number>, duty: number): number {
-  const { g, omega } = plan;
-  const n = g.length - 1;
-  const lost = plan.mismatch * (plan.highDiffers ? duty : 1 - duty);
+  const lost = mismatchShare(plan, duty);
   let sum = 0;
   // sin(k x) by the recurrence sin((k + 1) x) = 2 cos(x) sin(k x) - sin((k - 1) x): one sine and
   // one cosine per call, not one sine per harmonic
@@ -70,15 +68,12 @@ export function rippleCeiling(plan: RippleCeilingPlan, c: ArrayLike<number>, dut
   let before = 0;
   let sinK = Math.sin(Math.PI * duty);
   for (let k = 1; k <= HARMONICS; k++) {
-    sum += ((plan.driveMax * Math.abs(sinK)) / (Math.PI * k) + lost) / ladderDeterminant(g, c, plan.loadC, k * omega);
+    sum += harmonicCeiling(plan, c, k, sinK, lost);
     const next = twoCos * sinK - before;
     before = sinK;
     sinK = next;
   }
-  let detC = 1;
-  for (let i = 0; i < n; i++) detC *= i === n - 1 ? c[i] + plan.loadC : c[i];
-  sum += (plan.tailDrive + lost * plan.tailLost) / detC;
-  return 4 * plan.couplings * sum;
+  return 4 * plan.couplings * (sum + tailCeiling(plan, c, lost));
 }
 
 /**
@@ -91,12 +86,12 @@ export function rippleCeiling(plan: RippleCeilingPlan, c: ArrayLike<number>, dut
  * Method (derived here). With c_k the output's complex Fourier coefficients, let t1 be where the
  * fundamental's term 2 Re(c1 e^(j w t)) peaks (2 |c1|) and t2 = t1 + T/2 (-2 |c1|). Each even
  * harmonic's term is the same at t1 and t2, each odd one's changes sign, so peak-to-peak >= x(t1)
- * - x(t2) >= 4 (|c1| - sum over odd k >= 3 of |c_k|). |c1| >= couplings (f sin(pi D) / pi -
- * mismatch D') / |det(G + j w C)| as in rippleFloor.ts; each |c_k| is at most its term of
- * rippleCeiling, k = 3 and 5 with their determinants and k >= 7 through the ceiling's det(C) tail
- * (over every k > 6, odd or not: larger). The better of this and the floor's pi |c1| is returned;
- * with `enough`, the floor's pi |c1| alone as soon as it passes `enough` (a lower bound either way,
- * and over `enough` whenever the sharper one is: the harmonics are then not needed).
+ * - x(t2) >= 4 (|c1| - sum over odd k >= 3 of |c_k|). |c1| is at least the ripple floor / pi
+ * (rippleFloor.ts); each |c_k| is at most its term of rippleCeiling, k = 3 and 5 with their
+ * determinants and k >= 7 through the ceiling's det(C) tail (over every k > 6, odd or not:
+ * larger). The better of this and the floor is returned; with `enough`, the floor alone as soon as
+ * it passes `enough` (a lower bound either way, and over `enough` whenever the sharper one is: the
+ * harmonics are then not needed).
  *
  * Syntax: rippleFloorSharp(plan, c, duty[, enough])
  * Example: rippleFloorSharp(rippleCeilingPlan(problem, [470, 3300, 12e3])!, [390e-9, 39e-9, 10e-9], 0.5)   // V, at most the ripple
@@ -104,23 +99,26 @@ export function rippleCeiling(plan: RippleCeilingPlan, c: ArrayLike<number>, dut
  * See also: rippleFloor, rippleCeiling
  */
 export function rippleFloorSharp(plan: RippleCeilingPlan, c: ArrayLike<number>, duty: number, enough = Infinity): number {
-  const { g, omega } = plan;
-  const n = g.length - 1;
-  const lost = plan.mismatch * (plan.highDiffers ? duty : 1 - duty);
-  const s = Math.sin(Math.PI * duty);
-  const first = (plan.drive * s) / Math.PI - lost;
-  if (!(first > 0)) return 0;
-  const c1 = first / ladderDeterminant(g, c, plan.loadC, omega);
-  const floor = plan.couplings * Math.PI * c1;
-  if (floor > enough) return floor;
+  const floor = rippleFloor(plan, c, duty);
+  if (!(floor > 0) || floor > enough) return floor;
+  const lost = mismatchShare(plan, duty);
   // |sin(3x)| and |sin(5x)| from s = sin(x) (multiple-angle formulas)
+  const s = Math.sin(Math.PI * duty);
   const s2 = s * s;
-  const sin3 = Math.abs(s * (3 - 4 * s2));
-  const sin5 = Math.abs(s * (5 - 20 * s2 + 16 * s2 * s2));
-  let odd = ((plan.driveMax * sin3) / (3 * Math.PI) + lost) / ladderDeterminant(g, c, plan.loadC, 3 * omega);
-  odd += ((plan.driveMax * sin5) / (5 * Math.PI) + lost) / ladderDeterminant(g, c, plan.loadC, 5 * omega);
+  const odd =
+    harmonicCeiling(plan, c, 3, s * (3 - 4 * s2), lost) + harmonicCeiling(plan, c, 5, s * (5 - 20 * s2 + 16 * s2 * s2), lost) + tailCeiling(plan, c, lost);
+  return Math.max(floor, 4 * plan.couplings * (floor / (Math.PI * plan.couplings) - odd));
+}
+
+/** Upper bound on |c_k| of the output over couplings (rippleCeiling's Method), sinK = sin(pi k D), lost = mismatchShare. */
+function harmonicCeiling(plan: RippleCeilingPlan, c: ArrayLike<number>, k: number, sinK: number, lost: number): number {
+  return ((plan.driveMax * Math.abs(sinK)) / (Math.PI * k) + lost) / ladderDeterminant(plan.g, c, plan.loadC, k * plan.omega);
+}
+
+/** Upper bound on the sum of |c_k| over k > HARMONICS over couplings, through det(C) (rippleCeiling's Method). */
+function tailCeiling(plan: RippleCeilingPlan, c: ArrayLike<number>, lost: number): number {
+  const n = plan.g.length - 1;
   let detC = 1;
   for (let i = 0; i < n; i++) detC *= i === n - 1 ? c[i] + plan.loadC : c[i];
-  odd += (plan.tailDrive + lost * plan.tailLost) / detC;
-  return Math.max(floor, 4 * plan.couplings * (c1 - odd));
+  return (plan.tailDrive + lost * plan.tailLost) / detC;
 }

@@ -87,8 +87,32 @@ export function rippleFloorPlan(problem: DesignProblem, r: ArrayLike<number>): R
  * Example: rippleFloor(rippleFloorPlan(problem, [1e3]), [1e-6], 0.5)   // V
  */
 export function rippleFloor(plan: RippleFloorPlan, c: ArrayLike<number>, duty: number): number {
-  const lost = Math.PI * plan.mismatch * (plan.highDiffers ? duty : 1 - duty);
-  const drive = plan.drive * Math.sin(Math.PI * duty) - lost;
+  const drive = floorDrive(plan, duty);
   if (!(drive > 0)) return 0;
   return (plan.couplings * drive) / ladderDeterminant(plan.g, c, plan.loadC, plan.omega);
+}
+
+/**
+ * The drive the ripple floor starts from at duty `duty`, A: pi times the least first Fourier
+ * coefficient of the pin's current into node 1, f sin(pi D) - pi mismatch D' (rippleFloorPlan's
+ * Method); at most 0 where the mismatch may cancel it. Shared by rippleFloor, requiredAttenuation
+ * and rippleFloorSharp.
+ *
+ * Syntax: floorDrive(plan, duty)
+ * Example: floorDrive(rippleFloorPlan(problem, [1e3]), 0.5)   // A
+ */
+export function floorDrive(plan: RippleFloorPlan, duty: number): number {
+  return plan.drive * Math.sin(Math.PI * duty) - Math.PI * mismatchShare(plan, duty);
+}
+
+/**
+ * The most the driver mismatch adds to any Fourier coefficient of the pin's current at duty
+ * `duty`, A: |g_H - g_L| (hi - lo) D', D' the duty of the phase whose conductance is not the
+ * larger (rippleFloorPlan's Method); 0 for equal drivers.
+ *
+ * Syntax: mismatchShare(plan, duty)
+ * Example: mismatchShare(rippleFloorPlan(problem, [1e3]), 0.5)   // A
+ */
+export function mismatchShare(plan: RippleFloorPlan, duty: number): number {
+  return plan.mismatch * (plan.highDiffers ? duty : 1 - duty);
 }

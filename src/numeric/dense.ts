@@ -41,6 +41,18 @@ export function doubles(n: number): number[] {
 }
 
 /**
+ * An empty array that holds doubles (see doubles): appending numbers never changes its kind.
+ *
+ * Syntax: emptyDoubles()
+ * Example: emptyDoubles().length   // 0
+ */
+export function emptyDoubles(): number[] {
+  const v = doubles(1);
+  v.length = 0;
+  return v;
+}
+
+/**
  * A copy of `values` stored as doubles (see doubles): search tuples built from series values such
  * as 470 would otherwise hold small integers, and the search's code would then read two kinds of
  * array (measured: polymorphic loads and deoptimizations in a default design run).

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { doubles, doublesOf, zeros } from '../../src/numeric/dense.js';
+import { doubles, doublesOf, emptyDoubles, zeros } from '../../src/numeric/dense.js';
 
 // Storage helpers: the values are what matter to callers; how V8 stores them is a speed concern
 // (measured in the bench), not checked here.
@@ -8,6 +8,10 @@ describe('dense storage helpers', () => {
     expect(zeros(3)).toEqual([0, 0, 0]);
     expect(doubles(3)).toEqual([0, 0, 0]);
     expect(doubles(0)).toEqual([]);
+    const grown = emptyDoubles();
+    expect(grown).toEqual([]);
+    grown.push(470, 4.7e-7);
+    expect(grown).toEqual([470, 4.7e-7]);
   });
 
   it('doublesOf copies the values, whole numbers and fractions alike', () => {
