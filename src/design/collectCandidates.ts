@@ -854,6 +854,33 @@ export function collectCandidates(
     // (kept for the next slice's staircase; two stages have no slices: none)
     const steps = p >= 1 ? new Int32Array(nC).fill(-1) : null;
     if (steps !== null) lastSteps = { rs, limit: rippleLimit, before: cs.slice(0, p - 1), at: cs[p - 1], steps };
+    // The threshold test at (0, s) and at (a, s) as last asked: a column whose step does not move
+    // asks each twice, and the next column asks (0, s) again. The same point under the same
+    // threshold gives the same answer, and thresholds move only when a candidate is kept.
+    let at0Step = -1;
+    let at0Kept = -1;
+    let at0Within = false;
+    const within0 = (step: number): boolean => {
+      if (step !== at0Step || state.entries.length !== at0Kept) {
+        at0Step = step;
+        at0Kept = state.entries.length;
+        at0Within = within(look(0, step));
+      }
+      return at0Within;
+    };
+    let atColumn = -1;
+    let atStep = -1;
+    let atKept = -1;
+    let atWithin = false;
+    const withinAt = (column: number, step: number): boolean => {
+      if (column !== atColumn || step !== atStep || state.entries.length !== atKept) {
+        atColumn = column;
+        atStep = step;
+        atKept = state.entries.length;
+        atWithin = within(look(column, step));
+      }
+      return atWithin;
+    };
     let s = -1;
     for (let a = top; a >= 0; a--) {
       const u = prior !== null && prior[a] >= 0 && prior[a] <= bMax ? prior[a] : -1;
@@ -863,17 +890,17 @@ export function collectCandidates(
         if (u >= 0) s = lastTrueDown(u, (b) => rippleOk(rs, look(a, b)));
         else s = rippleOk(rs, look(a, bMax)) ? firstTrue(bMax + 1, (b) => rippleOk(rs, look(a, b))) : nC;
       } else {
-        if (!budgeted && !within(look(0, s))) break; // every remaining column starts at or above s
+        if (!budgeted && !within0(s)) break; // every remaining column starts at or above s
         // A column whose point at the step so far is beyond theta has nothing within it (the bound
         // grows with b, and its own step is at or above s): no search; s stays a valid start below.
-        if (!budgeted && !within(look(a, s))) continue;
+        if (!budgeted && !withinAt(a, s)) continue;
         if (u >= s) while (s < u && !rippleOk(rs, look(a, s))) s++;
         else while (s <= bMax && !rippleOk(rs, look(a, s))) s++;
       }
       if (s <= bMax && steps !== null) steps[a] = s;
       if (s > bMax) break; // smaller first capacitors only raise the ripple
-      if (!within(look(0, s))) break; // every remaining column starts at or above s
-      if (within(look(a, s))) {
+      if (!within0(s)) break; // every remaining column starts at or above s
+      if (withinAt(a, s)) {
         const point = at(a, s);
         evaluate(rs, point, tb);
         columns.push({ rs, cs: point, p: p + 1, from: s + 1, within, tb });
