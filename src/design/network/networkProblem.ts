@@ -178,10 +178,19 @@ export function networkProblem(project: Project): NetworkProblem {
     q,
     rValues,
     cValues,
+    // (fields written out, not spread: one network per candidate, and a spread cost about 2 us
+    // a copy in the walk's still unoptimized code, measured for the ripple ceiling's plan)
     networkOf: (stages, parts) => ({
-      ...shape,
+      period: shape.period,
+      alignment: shape.alignment,
+      pin: shape.pin,
       stages,
-      second: second && parts ? { ...second, r: parts.r, c: parts.c } : null,
+      second:
+        second && parts
+          ? { role: second.role, bits: second.bits, coarseBits: second.coarseBits, pin: second.pin, stage: second.stage, r: parts.r, c: parts.c }
+          : null,
+      loadResistance: shape.loadResistance,
+      loadCapacitance: shape.loadCapacitance,
     }),
     enumerate,
     space,
