@@ -30,12 +30,22 @@ export function requiredAttenuation(
   plan: RippleFloorPlan = rippleFloorPlan(problem, r),
 ): number {
   const perDrive = plan.couplings / ladderDeterminant(plan.g, [], 0, 0);
+  // (plain loops, no closure or destructuring: this runs for every resistor tuple a search lists)
   let gamma = 0;
-  const need = (duty: number, limit: number) => {
+  const { steps } = problem;
+  for (let j = -1; j < steps.length; j++) {
+    let duty: number;
+    let limit: number;
+    if (j < 0) {
+      if (limits.ripple === undefined) continue;
+      duty = Math.min(problem.dutyMax, Math.max(problem.dutyMin, 0.5));
+      limit = limits.ripple;
+    } else {
+      duty = steps[j][1];
+      limit = 2 * problem.band;
+    }
     const drive = floorDrive(plan, duty);
     if (drive > 0) gamma = Math.max(gamma, ((perDrive * drive) / (limit * (1 + REL))) ** 2);
-  };
-  if (limits.ripple !== undefined) need(Math.min(problem.dutyMax, Math.max(problem.dutyMin, 0.5)), limits.ripple);
-  for (const [, to] of problem.steps) need(to, 2 * problem.band);
+  }
   return gamma;
 }

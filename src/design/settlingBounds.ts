@@ -42,8 +42,8 @@ export function transferCap(problem: DesignProblem, limits: DesignProblem['limit
     const sine = Math.sin(Math.PI * Math.min(dutyMax, Math.max(dutyMin, 0.5)));
     if (sine > 0) hStar = limits.ripple / (span * sine);
   }
-  for (const [, to] of steps) {
-    const sine = Math.sin(Math.PI * to);
+  for (let j = 0; j < steps.length; j++) {
+    const sine = Math.sin(Math.PI * steps[j][1]);
     if (sine > 0) hStar = Math.min(hStar, (2 * band) / (span * sine));
   }
   return hStar;
@@ -61,13 +61,15 @@ export function transferCap(problem: DesignProblem, limits: DesignProblem['limit
 export function settlingLogFactor(problem: DesignProblem, limits: DesignProblem['limits'], g: number): number {
   const { dutyMin, dutyMax, steps, band, project } = problem;
   const span = Math.abs(project.pwm.high - project.pwm.low);
-  const inRange = (d: number) => d >= dutyMin && d <= dutyMax;
-  const rippleCap = (d: number) => (limits.ripple !== undefined && inRange(d) ? limits.ripple : Infinity);
+  const ripple = limits.ripple ?? Infinity;
+  // (plain loop, no closures or destructuring: this runs for every resistor tuple a search lists)
   let factor = 0;
-  for (const [from, to] of steps) {
+  for (let j = 0; j < steps.length; j++) {
+    const from = steps[j][0];
+    const to = steps[j][1];
     const step = g * Math.abs(to - from) * span;
-    const pTo = Math.min(band, rippleCap(to));
-    const pFrom = Math.min(problem.defaultStep ? band : Infinity, rippleCap(from));
+    const pTo = Math.min(band, to >= dutyMin && to <= dutyMax ? ripple : Infinity);
+    const pFrom = Math.min(problem.defaultStep ? band : Infinity, from >= dutyMin && from <= dutyMax ? ripple : Infinity);
     const ratio = (step - pTo - pFrom) / (band + pTo);
     if (ratio > 1) factor = Math.max(factor, Math.log(ratio));
   }
