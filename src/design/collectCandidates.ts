@@ -856,7 +856,9 @@ export function collectCandidates(
     if (steps !== null) lastSteps = { rs, limit: rippleLimit, before: cs.slice(0, p - 1), at: cs[p - 1], steps };
     // The threshold test at (0, s) and at (a, s) as last asked: a column whose step does not move
     // asks each twice, and the next column asks (0, s) again. The same point under the same
-    // threshold gives the same answer, and thresholds move only when a candidate is kept.
+    // threshold gives the same answer, and thresholds move only when a candidate is kept, so the
+    // kept count is part of the key (the evaluation counts stay as they were). Thresholds only
+    // fall: even a stale "beyond" would stay true, and a stale "within" would only cost a look.
     let at0Step = -1;
     let at0Kept = -1;
     let at0Within = false;
