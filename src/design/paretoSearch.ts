@@ -30,8 +30,8 @@ export interface ParetoStats {
  * passes the best exact settling time, and is proven when that time lies within the threshold the
  * walk used for it, as in solveProblem.ts. A limit that is not proven so (the engine rejected what
  * the fast model kept, e.g. by INL) is searched alone by bestDesigns. Stage counts proven out of
- * reach (infeasibilityBounds.ts) under every follower option give null. With follower options (search.buffered) one walk per
- * option, merged by rankCandidates.
+ * reach (infeasibilityBounds.ts) under every follower option give null. With follower options
+ * (search.buffered) one walk per option, merged by rankCandidates.
  *
  * Syntax: paretoSearch(problems, stages[, stats])
  * Example: paretoSearch(limits.map((r) => designProblem(withRipple(p, r))), 2).map((c) => c?.settlingTime)

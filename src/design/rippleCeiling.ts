@@ -7,7 +7,9 @@ import { mismatchShare, rippleFloor, rippleFloorPlan, type RippleFloorPlan } fro
  * The resistor-only part of the ripple ceiling of one resistor choice (rippleCeilingPlan): the
  * ripple floor's (the fast ladder, the mismatch) and the largest drive step.
  */
-export interface RippleCeilingPlan extends RippleFloorPlan {
+export interface RippleCeilingPlan {
+  /** The ripple floor's plan of the same resistors (the fast ladder, the mismatch). */
+  readonly floor: RippleFloorPlan;
   /** Largest size of the pin's drive step over node-1 averages in the nodes' range, A (largestPinDriveStep). */
   readonly driveMax: number;
   /** The harmonics beyond HARMONICS through det(C) (see rippleCeiling): driveMax / pi sum k^-(n+1) / w^n, and sum k^-n / w^n (the mismatch's factor). */
@@ -35,20 +37,9 @@ export function rippleCeilingPlan(problem: DesignProblem, r: ArrayLike<number>):
   // sum over k > K of k^-p <= K^(1 - p) / (p - 1)
   const tail = (p: number) => HARMONICS ** (1 - p) / (p - 1);
   const wn = floor.omega ** n;
-  // (every field written out: a spread of the floor's plan cost about 2 us a plan, measured, and the
-  // walk makes one per resistor tuple)
-  return {
-    g: floor.g,
-    loadC: floor.loadC,
-    omega: floor.omega,
-    couplings: floor.couplings,
-    drive: floor.drive,
-    mismatch: floor.mismatch,
-    highDiffers: floor.highDiffers,
-    driveMax,
-    tailDrive: ((driveMax / Math.PI) * tail(n + 1)) / wn,
-    tailLost: tail(n) / wn,
-  };
+  // (the floor's plan held, not spread into this one: a spread cost about 2 us a plan before V8
+  // optimized the walk, measured, and the walk makes one plan per resistor tuple)
+  return { floor, driveMax, tailDrive: ((driveMax / Math.PI) * tail(n + 1)) / wn, tailLost: tail(n) / wn };
 }
 
 /**
@@ -73,7 +64,7 @@ export function rippleCeilingPlan(problem: DesignProblem, r: ArrayLike<number>):
  * Example: rippleCeiling(rippleCeilingPlan(problem, [470, 3300, 12e3])!, [390e-9, 39e-9, 10e-9], 0.5)   // V
  */
 export function rippleCeiling(plan: RippleCeilingPlan, c: ArrayLike<number>, duty: number): number {
-  const lost = mismatchShare(plan, duty);
+  const lost = mismatchShare(plan.floor, duty);
   let sum = 0;
   // sin(k x) by the recurrence sin((k + 1) x) = 2 cos(x) sin(k x) - sin((k - 1) x): one sine and
   // one cosine per call, not one sine per harmonic
@@ -86,7 +77,7 @@ export function rippleCeiling(plan: RippleCeilingPlan, c: ArrayLike<number>, dut
     before = sinK;
     sinK = next;
   }
-  return 4 * plan.couplings * (sum + tailCeiling(plan, c, lost));
+  return 4 * plan.floor.couplings * (sum + tailCeiling(plan, c, lost));
 }
 
 /**
@@ -112,26 +103,29 @@ export function rippleCeiling(plan: RippleCeilingPlan, c: ArrayLike<number>, dut
  * See also: rippleFloor, rippleCeiling
  */
 export function rippleFloorSharp(plan: RippleCeilingPlan, c: ArrayLike<number>, duty: number, enough = Infinity): number {
-  const floor = rippleFloor(plan, c, duty);
+  const floor = rippleFloor(plan.floor, c, duty);
   if (!(floor > 0) || floor > enough) return floor;
-  const lost = mismatchShare(plan, duty);
+  const lost = mismatchShare(plan.floor, duty);
   // |sin(3x)| and |sin(5x)| from s = sin(x) (multiple-angle formulas)
   const s = Math.sin(Math.PI * duty);
   const s2 = s * s;
   const odd =
     harmonicCeiling(plan, c, 3, s * (3 - 4 * s2), lost) + harmonicCeiling(plan, c, 5, s * (5 - 20 * s2 + 16 * s2 * s2), lost) + tailCeiling(plan, c, lost);
-  return Math.max(floor, 4 * plan.couplings * (floor / (Math.PI * plan.couplings) - odd));
+  const { couplings } = plan.floor;
+  return Math.max(floor, 4 * couplings * (floor / (Math.PI * couplings) - odd));
 }
 
 /** Upper bound on |c_k| of the output over couplings (rippleCeiling's Method), sinK = sin(pi k D), lost = mismatchShare. */
 function harmonicCeiling(plan: RippleCeilingPlan, c: ArrayLike<number>, k: number, sinK: number, lost: number): number {
-  return ((plan.driveMax * Math.abs(sinK)) / (Math.PI * k) + lost) / ladderDeterminant(plan.g, c, plan.loadC, k * plan.omega);
+  const { g, loadC, omega } = plan.floor;
+  return ((plan.driveMax * Math.abs(sinK)) / (Math.PI * k) + lost) / ladderDeterminant(g, c, loadC, k * omega);
 }
 
 /** Upper bound on the sum of |c_k| over k > HARMONICS over couplings, through det(C) (rippleCeiling's Method). */
 function tailCeiling(plan: RippleCeilingPlan, c: ArrayLike<number>, lost: number): number {
-  const n = plan.g.length - 1;
+  const { g, loadC } = plan.floor;
+  const n = g.length - 1;
   let detC = 1;
-  for (let i = 0; i < n; i++) detC *= i === n - 1 ? c[i] + plan.loadC : c[i];
+  for (let i = 0; i < n; i++) detC *= i === n - 1 ? c[i] + loadC : c[i];
   return (plan.tailDrive + lost * plan.tailLost) / detC;
 }

@@ -1,6 +1,6 @@
 import type { DesignProblem } from './designProblem.js';
 import { requiredAttenuation } from './requiredAttenuation.js';
-import { settlingFloorPlan, type SettlingFloorPlan } from './settlingFloor.js';
+import { settlingFloorPlan, steadyExcursionCap, type SettlingFloorPlan } from './settlingFloor.js';
 import { threeStageSpread, threeStageTauMin } from './threeStageSpread.js';
 
 /**
@@ -59,7 +59,7 @@ export function transferCap(problem: DesignProblem, limits: DesignProblem['limit
  * Example: settlingLogFactor(problem, problem.searchLimits, 1)   // ln((S - 2P) / (band + P))
  */
 export function settlingLogFactor(problem: DesignProblem, limits: DesignProblem['limits'], g: number): number {
-  const { dutyMin, dutyMax, steps, band, project } = problem;
+  const { steps, band, project } = problem;
   const span = Math.abs(project.pwm.high - project.pwm.low);
   const ripple = limits.ripple ?? Infinity;
   // (plain loop, no closures or destructuring: this runs for every resistor tuple a search lists)
@@ -68,8 +68,8 @@ export function settlingLogFactor(problem: DesignProblem, limits: DesignProblem[
     const from = steps[j][0];
     const to = steps[j][1];
     const step = g * Math.abs(to - from) * span;
-    const pTo = Math.min(band, to >= dutyMin && to <= dutyMax ? ripple : Infinity);
-    const pFrom = Math.min(problem.defaultStep ? band : Infinity, from >= dutyMin && from <= dutyMax ? ripple : Infinity);
+    const pTo = steadyExcursionCap(problem, ripple, to, true);
+    const pFrom = steadyExcursionCap(problem, ripple, from, false);
     const ratio = (step - pTo - pFrom) / (band + pTo);
     if (ratio > 1) factor = Math.max(factor, Math.log(ratio));
   }

@@ -98,8 +98,8 @@ export function settlingFloorPlan(
     const from = steps[j][0];
     const to = steps[j][1];
     const dutyStep = Math.abs(to - from);
-    const pTo = Math.min(band, to >= dutyMin && to <= dutyMax ? ripple : Infinity);
-    const pFrom = Math.min(defaultStep ? band : Infinity, from >= dutyMin && from <= dutyMax ? ripple : Infinity);
+    const pTo = steadyExcursionCap(problem, ripple, to, true);
+    const pFrom = steadyExcursionCap(problem, ripple, from, false);
     const scaled = (dutyStep * f * gainF) / gF;
     const head = lti ? gainF * dutyStep * span - pTo - pFrom : -Infinity;
     const threshold = band + pTo;
@@ -115,6 +115,22 @@ export function settlingFloorPlan(
   if (!into) return { period, steps: out };
   into.period = period;
   return into;
+}
+
+/**
+ * The largest steady excursion about its average (V) a design may keep at one end of a settling
+ * step, as the settling bounds take it: at the target at most the band (a larger one never
+ * settles), at the start the band too for the default full-range step (rising and falling: its
+ * start is the other step's target), and at either end the ripple limit `ripple` where the duty
+ * lies in the design range.
+ * Shared by settlingFloorPlan and settlingLogFactor (settlingBounds.ts), whose proofs use the same P.
+ *
+ * Syntax: steadyExcursionCap(problem, ripple, duty, target)
+ * Example: steadyExcursionCap(problem, problem.searchLimits.ripple ?? Infinity, 0.9, true)   // V
+ */
+export function steadyExcursionCap(problem: DesignProblem, ripple: number, duty: number, target: boolean): number {
+  const limited = duty >= problem.dutyMin && duty <= problem.dutyMax ? ripple : Infinity;
+  return Math.min(target || problem.defaultStep ? problem.band : Infinity, limited);
 }
 
 /** A plan settlingFloorPlan may overwrite (a search's scratch for plans it keeps only briefly). */
