@@ -11,7 +11,7 @@ import { rippleFloor, rippleFloorPlan, type RippleFloorPlan } from './rippleFloo
 import { tupleBounds, type TupleBounds } from './settlingBounds.js';
 import { NO_FLOOR, settlingFloor, settlingFloorPlan } from './settlingFloor.js';
 import { slowestTimeConstant, twoSlowestTimeConstants } from './slowestTimeConstant.js';
-import { LIST_SHARE, listTuples, timeIsUp, tupleFloor } from './listTuples.js';
+import { LIST_SHARE, listTuples, timeIsUp, tupleFloor, tupleQueue } from './listTuples.js';
 import { exceeds, REL } from './searchAllowance.js';
 import { doubles, emptyDoubles } from '../numeric/dense.js';
 
@@ -231,10 +231,11 @@ export function collectCandidates(
   const minC = doubles(stages).fill(C[0]);
   const tupleKey = (rs: number[], tb: TupleBounds, ceiling: number): number => tupleFloor(problem, rs, minC, tb, budgeted, ceiling);
 
-  // Resistor tuples that pass the resistor-only checks, and their keys (listTuples).
-  const { tuples, keys } = listTuples(problem, stages, state, budgeted, droopApplies, onProgress);
-  // (nothing to walk when the listing ran out of time)
-  const order = state.cut ? [] : keys.map((_, i) => i).sort((a, b) => keys[a] - keys[b]);
+  // Resistor tuples that pass the resistor-only checks (listTuples), taken in ascending order of
+  // their keys (tupleQueue, which finishes a key only as the walk gets near it).
+  const list = listTuples(problem, stages, state, budgeted, droopApplies, onProgress);
+  const tuples = list.tuples;
+  const queue = tupleQueue(problem, list, droopApplies);
 
   // Pareto mode: each ripple limit with the problem's other limits (per-limit tuple bounds).
   const paretoLimits = state.pareto ? state.pareto.limits.map((ripple) => designLimits({ ...limits, ripple })) : [];
@@ -630,7 +631,7 @@ export function collectCandidates(
       // The walk's key (the loosest limit's) is at most this limit's own: a tighter ripple limit
       // only raises the tuple's tauMin, its log factor and its floor (settlingBounds.ts).
       if (key > limitCap) return;
-      const own = tupleBounds(problem, rs, paretoLimits[i]);
+      const own = tupleBounds(problem, rs, paretoLimits[i], undefined, budgeted);
       if (tupleKey(rs, own, limitCap) > limitCap) return;
       rippleLimit = limit;
       columns.push(
@@ -911,17 +912,18 @@ export function collectCandidates(
   };
 
   // Staircase points first; inner points at once when theta is finite, else once it is (or at the end).
-  for (let k = 0; k < order.length; k++) {
-    const i = order[k];
-    if (keys[i] > state.theta || overBudget()) break;
+  // (nothing to walk when the listing ran out of time)
+  for (let k = 0; !state.cut; k++) {
+    const i = queue.next(state.theta);
+    if (i < 0 || overBudget()) break;
     // (the tuple's bounds made again here, as the listing made them for its key: it keeps none)
-    const columns = walk(tuples[i], tupleBounds(problem, tuples[i], limits, NO_FLOOR), keys[i]);
+    const columns = walk(tuples[i], tupleBounds(problem, tuples[i], limits, NO_FLOOR, budgeted), queue.key(i));
     if (state.theta === Infinity) deferred.push(...columns);
     else {
       while (deferred.length > 0) finishColumn(deferred.pop()!);
       for (const col of columns) finishColumn(col);
     }
-    onProgress?.(LIST_SHARE + ((1 - LIST_SHARE) * (k + 1)) / order.length);
+    onProgress?.(LIST_SHARE + ((1 - LIST_SHARE) * (k + 1)) / tuples.length);
   }
   while (deferred.length > 0) finishColumn(deferred.pop()!);
   onProgress?.(1);

@@ -109,9 +109,11 @@ export function settlingLogFactor(problem: DesignProblem, limits: DesignProblem[
  * of room); replacing it would move the explanations' budget cut.
  *
  * `limits` (default problem.searchLimits) are the limits the capacitor choices must meet: the
- * trade-off walk (paretoSearch.ts) asks with each of its ripple limits in turn.
+ * trade-off walk (paretoSearch.ts) asks with each of its ripple limits in turn. Without `legacy`
+ * (default true) the parts only budgeted walks read (factor, slack, budgetTauMin) are 0, not
+ * computed: the other walks list and walk tuples by the proven floor alone.
  *
- * Syntax: tupleBounds(problem, r[, limits[, floor]])   (floor: the plan to carry; default made here)
+ * Syntax: tupleBounds(problem, r[, limits[, floor[, legacy]]])   (floor: the plan to carry; default made here)
  * Example: tupleBounds(problem, [4700, 47e3]).tauMin   // s
  */
 export function tupleBounds(
@@ -119,6 +121,7 @@ export function tupleBounds(
   r: ArrayLike<number>,
   limits: DesignProblem['limits'] = problem.searchLimits,
   floor?: SettlingFloorPlan,
+  legacy = true,
 ): TupleBounds {
   const { project, period, circuit } = problem;
   const { pwm } = project;
@@ -131,7 +134,7 @@ export function tupleBounds(
   for (let k = 0; k < n; k++) series += r[k];
   const gain = load.resistance === undefined ? 1 : load.resistance / (load.resistance + series);
 
-  const factor = settlingLogFactor(problem, limits, gain);
+  const factor = legacy ? settlingLogFactor(problem, limits, gain) : 0;
   const omega = (2 * Math.PI) / period;
   const loadR = load.resistance ?? null;
   // The fast ladder's least attenuation at the PWM frequency from the ripple limit and from
@@ -140,9 +143,9 @@ export function tupleBounds(
   // Budgeted walks (the explanations' side searches) keep the bound they were tuned with, so their
   // cut stays where it was: the fundamental bound with the slower driver's gain, the pole spread
   // for equal drivers only, and for unequal drivers scaled by 0.8 without proof.
-  const legacy = slowestFromAttenuation((gain / transferCap(problem, limits)) ** 2, r, driver, loadR, omega, lti);
-  const budgetTauMin = lti ? legacy : 0.8 * legacy;
-  return { driver, factor, slack: lti ? 0 : 2 * period, tauMin, budgetTauMin, floor: floor ?? settlingFloorPlan(problem, r, limits) };
+  const older = legacy ? slowestFromAttenuation((gain / transferCap(problem, limits)) ** 2, r, driver, loadR, omega, lti) : 0;
+  const budgetTauMin = lti ? older : 0.8 * older;
+  return { driver, factor, slack: lti || !legacy ? 0 : 2 * period, tauMin, budgetTauMin, floor: floor ?? settlingFloorPlan(problem, r, limits) };
 }
 
 /**

@@ -204,8 +204,7 @@ export function settlingFloor(plan: SettlingFloorPlan, tauA: number, tauB: numbe
     let settled = true;
     for (let j = 0; j < steps.length; j++) {
       const s = steps[j];
-      const q = 0.5 * period + (period * period) / (24 * tauA);
-      const lb = Math.max(tauA * s.logHead, tauA * s.logScaled - q, tauA * s.logHeadBand - 2 * period, tauA * s.logScaledBand - q - 2 * period);
+      const lb = quickStepFloor(s, tauA, period);
       if (lb > ceiling) return lb;
       if (lb > low) low = lb;
       const tail = tauB > 0 ? (tauA * tauB) / (tauA - tauB) : 0;
@@ -229,6 +228,34 @@ export function settlingFloor(plan: SettlingFloorPlan, tauA: number, tauB: numbe
     }
   }
   return best;
+}
+
+/**
+ * The quick bound of settlingFloor for one step, without exponentials (see its Method): at most
+ * the floor of that step for any tauB and any slowest time constant at least tauA, since each
+ * term grows with tauA where it is positive.
+ */
+function quickStepFloor(s: FloorStep, tauA: number, period: number): number {
+  const q = 0.5 * period + (period * period) / (24 * tauA);
+  return Math.max(tauA * s.logHead, tauA * s.logScaled - q, tauA * s.logHeadBand - 2 * period, tauA * s.logScaledBand - q - 2 * period);
+}
+
+/**
+ * A lower bound (s) on settlingFloor(plan, tauA', tauB) for every tauA' >= tauA and every tauB,
+ * without exponentials or roots: settlingFloor's quick bound, less a room of 1e-9 of its terms'
+ * size against rounding (its terms are differences of products, and the floor's own rounding
+ * differs). 0 when tauA is not positive.
+ *
+ * Syntax: settlingFloorQuick(plan, tauA)
+ * Example: settlingFloorQuick(settlingFloorPlan(problem, [470, 16e3]), 2.9e-4) <= settlingFloor(plan, 2.9e-4, 1e-4)   // true
+ */
+export function settlingFloorQuick(plan: SettlingFloorPlan, tauA: number): number {
+  if (!(tauA > 0)) return 0;
+  const { period, steps } = plan;
+  let best = 0;
+  for (let j = 0; j < steps.length; j++) best = Math.max(best, quickStepFloor(steps[j], tauA, period));
+  const low = best - 1e-9 * (best + 5 * period + (period * period) / (12 * tauA));
+  return low > 0 ? low : 0;
 }
 
 /** q(x) = x / (e^x - 1), the least a first-order section's periodic output keeps of its input mean (T / tau = x). */

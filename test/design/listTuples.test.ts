@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { designProblem, type DesignProblem } from '../../src/design/designProblem.js';
 import { droopFloor, droopFloorPlan, type DroopFloorPlan } from '../../src/design/droopFloor.js';
 import { gainFloor } from '../../src/design/gainFloor.js';
-import { listTuples, tupleFloor } from '../../src/design/listTuples.js';
+import { listTuples, tupleFloor, tupleQueue } from '../../src/design/listTuples.js';
 import { exceeds } from '../../src/design/searchAllowance.js';
 import { tupleBounds } from '../../src/design/settlingBounds.js';
 import { loadProject } from '../../src/project/index.js';
@@ -12,7 +12,8 @@ import { loadProject } from '../../src/project/index.js';
  * the order of its index (first resistor most significant), kept when the pin current, the droop
  * floor of the series resistance, the gain floor and (unequal drivers) the droop floor at the
  * smallest capacitors pass, and its key is at most theta. listTuples skips whole subtrees
- * instead; the lists must agree tuple for tuple, in order.
+ * instead, and tupleQueue finishes keys lazily; the tuples they give must agree with this list
+ * sorted by key, tuple for tuple, in order.
  */
 function listedOneByOne(problem: DesignProblem, stages: number, theta: number): { tuples: number[][]; keys: number[] } {
   const { rValues: R, searchLimits: limits, project, circuit } = problem;
@@ -55,7 +56,7 @@ describe('listTuples', () => {
     ['sample-configs/greenhouse-heater.yaml', 2],
   ];
   for (const [file, stages] of cases) {
-    it(`${file}, ${stages} stage(s): the same tuples and keys, in the same order, as checking every tuple`, () => {
+    it(`${file}, ${stages} stage(s): the same tuples and keys, in the walk's order, as checking every tuple and sorting by key`, () => {
       const problem = designProblem(loadProject(file));
       const droopFloorCheck = problem.project.pwm.driver.high !== problem.project.pwm.driver.low && problem.searchLimits.droop !== undefined;
       const all = listedOneByOne(problem, stages, Infinity);
@@ -63,11 +64,39 @@ describe('listTuples', () => {
       // every tuple, then about half of them by key
       const median = [...all.keys].sort((a, b) => a - b)[all.keys.length >> 1];
       for (const theta of [Infinity, median]) {
-        const listed = listTuples(problem, stages, { theta }, false, droopFloorCheck);
         const reference = theta === Infinity ? all : listedOneByOne(problem, stages, theta);
-        expect(listed.tuples).toEqual(reference.tuples);
-        expect(listed.keys).toEqual(reference.keys);
+        // the walk's order: ascending key, ties in listing order (a stable sort)
+        const order = reference.keys.map((_, i) => i).sort((a, b) => reference.keys[a] - reference.keys[b]);
+        const list = listTuples(problem, stages, { theta }, false, droopFloorCheck);
+        const queue = tupleQueue(problem, list, droopFloorCheck);
+        const walked: Array<{ r: number[]; key: number }> = [];
+        for (let i = queue.next(theta); i >= 0; i = queue.next(theta)) walked.push({ r: list.tuples[i], key: queue.key(i) });
+        expect(walked).toEqual(order.map((i) => ({ r: reference.tuples[i], key: reference.keys[i] })));
+        // every tuple the queue may finish is listed, under a floor at most its key
+        for (let i = 0; i < list.tuples.length; i++) {
+          const key = tupleFloor(problem, list.tuples[i], minCOf(problem, stages), tupleBounds(problem, list.tuples[i], problem.searchLimits), false);
+          expect(list.floors[i]).toBeLessThanOrEqual(key);
+        }
       }
+    });
+    it(`${file}, ${stages} stage(s): a falling threshold stops the queue where a sorted list would stop`, () => {
+      const problem = designProblem(loadProject(file));
+      const droopFloorCheck = problem.project.pwm.driver.high !== problem.project.pwm.driver.low && problem.searchLimits.droop !== undefined;
+      const all = listedOneByOne(problem, stages, Infinity);
+      const sorted = [...all.keys].sort((a, b) => a - b);
+      const queue = tupleQueue(problem, listTuples(problem, stages, { theta: Infinity }, false, droopFloorCheck), droopFloorCheck);
+      // take a quarter of the tuples, then lower theta to the median key: the rest up to it follow
+      const quarter = sorted.length >> 2;
+      const median = sorted[sorted.length >> 1];
+      const keys: number[] = [];
+      for (let k = 0; k < quarter; k++) keys.push(queue.key(queue.next(Infinity)));
+      for (let i = queue.next(median); i >= 0; i = queue.next(median)) keys.push(queue.key(i));
+      expect(keys).toEqual(sorted.filter((key, k) => k < quarter || key <= median));
     });
   }
 });
+
+/** The smallest capacitor of the series at every stage. */
+function minCOf(problem: DesignProblem, stages: number): number[] {
+  return new Array<number>(stages).fill(problem.cValues[0]);
+}

@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { designProblem } from '../../src/design/designProblem.js';
-import { floorStep, NO_FLOOR, scratchFloorPlan, settlingFloor, settlingFloorPlan, type SettlingFloorPlan } from '../../src/design/settlingFloor.js';
+import { floorStep, NO_FLOOR, scratchFloorPlan, settlingFloor, settlingFloorPlan, settlingFloorQuick, type SettlingFloorPlan } from '../../src/design/settlingFloor.js';
 import { slowestTimeConstant, twoSlowestTimeConstants } from '../../src/design/slowestTimeConstant.js';
 import { settlingTime, timeConstants, worstRipple } from '../../src/engine/index.js';
 import type { Project } from '../../src/project/types.js';
@@ -116,6 +116,36 @@ describe('settlingFloor', () => {
       }),
       { numRuns: 300 },
     );
+  });
+
+  it('settlingFloorQuick lies at or below the floor for every larger slowest time constant and any second one (fast-check)', () => {
+    // The listing orders tuples by it and finishes a key only when it may come first
+    // (listTuples.ts, tupleQueue): a quick floor above the floor would reorder the walk.
+    const arb = fc.record({
+      logTa: fc.double({ min: -7, max: -1, noNaN: true }),
+      grow: fc.double({ min: 1, max: 4, noNaN: true }),
+      ratio: fc.double({ min: 0, max: 1, noNaN: true }),
+      logT: fc.double({ min: -7, max: -3, noNaN: true }),
+      logScaled: fc.double({ min: -3, max: 1, noNaN: true }),
+      logThreshold: fc.double({ min: -5, max: -1, noNaN: true }),
+      bandShare: fc.double({ min: 0.05, max: 1, noNaN: true }),
+      head: fc.double({ min: -1, max: 1, noNaN: true }),
+    });
+    fc.assert(
+      fc.property(arb, (x) => {
+        const threshold = 10 ** x.logThreshold;
+        const plan: SettlingFloorPlan = { period: 10 ** x.logT, steps: [floorStep(10 ** x.logScaled, x.head, threshold, threshold * x.bandShare)] };
+        const tauA = 10 ** x.logTa;
+        const quick = settlingFloorQuick(plan, tauA);
+        const tauA2 = tauA * x.grow;
+        return quick >= 0 && quick <= settlingFloor(plan, tauA2, tauA2 * x.ratio) && quick <= settlingFloor(plan, tauA, 0);
+      }),
+      { numRuns: 500 },
+    );
+    // and it is not trivial: with the period negligible it is the first-order crossing (to 1e-6)
+    const plan: SettlingFloorPlan = { period: 1e-9, steps: [floorStep(1, -Infinity, 1e-3, 1e-3)] };
+    expect(settlingFloorQuick(plan, 1e-3)).toBeCloseTo(1e-3 * Math.log(1e3), 8);
+    expect(settlingFloorQuick(plan, 0)).toBe(0);
   });
 
   it('never exceeds the engine settling time of a design that meets the ripple limit, equal or unequal drivers (fast-check)', () => {
