@@ -234,7 +234,6 @@ export function collectCandidates(
   // Resistor tuples that pass the resistor-only checks (listTuples), taken in ascending order of
   // their keys (tupleQueue, which finishes a key only as the walk gets near it).
   const list = listTuples(problem, stages, state, budgeted, droopApplies, onProgress);
-  const tuples = list.tuples;
   const queue = tupleQueue(problem, list, droopApplies);
 
   // Pareto mode: each ripple limit with the problem's other limits (per-limit tuple bounds).
@@ -920,16 +919,16 @@ export function collectCandidates(
   // Staircase points first; inner points at once when theta is finite, else once it is (or at the end).
   // (nothing to walk when the listing ran out of time)
   for (let k = 0; !state.cut; k++) {
-    const i = queue.next(state.theta);
-    if (i < 0 || overBudget()) break;
+    const next = queue.take(state.theta);
+    if (next === null || overBudget()) break;
     // (the tuple's bounds made again here, as the listing made them for its key: it keeps none)
-    const columns = walk(tuples[i], tupleBounds(problem, tuples[i], limits, NO_FLOOR, budgeted), queue.key(i));
+    const columns = walk(next.rs, tupleBounds(problem, next.rs, limits, NO_FLOOR, budgeted), next.key);
     if (state.theta === Infinity) deferred.push(...columns);
     else {
       while (deferred.length > 0) finishColumn(deferred.pop()!);
       for (const col of columns) finishColumn(col);
     }
-    onProgress?.(LIST_SHARE + ((1 - LIST_SHARE) * (k + 1)) / tuples.length);
+    onProgress?.(LIST_SHARE + ((1 - LIST_SHARE) * (k + 1)) / list.count);
   }
   while (deferred.length > 0) finishColumn(deferred.pop()!);
   onProgress?.(1);

@@ -46,19 +46,34 @@ export function tupleFloor(problem: DesignProblem, rs: number[], minC: number[],
 }
 
 /**
- * Resistor tuples to walk, in listing order, with a lower bound on each one's key (tupleFloor):
- * the key itself for budgeted walks; otherwise the quick floor of settlingFloorQuick from the
- * ripple's tauMin alone (tupleQueue finishes the key, and the droop floor at the smallest
- * capacitors, only for the tuples a walk reaches).
+ * Resistor tuples to walk, in listing order, stored compactly (a three-stage E96 space lists up to
+ * 17 million): each tuple's series indices, and a lower bound on its key (tupleFloor): the key
+ * itself for budgeted walks; otherwise the quick floor of settlingFloorQuick from the ripple's
+ * tauMin alone (tupleQueue finishes the key, and the droop floor at the smallest capacitors, only
+ * for the tuples a walk reaches). tupleOf gives a tuple's resistor values.
  */
 export interface TupleList {
-  tuples: number[][];
+  /** Tuples listed. */
+  count: number;
+  stages: number;
+  /** Series index (problem.rValues) of each tuple's resistors, `stages` entries a tuple, pin side first. */
+  indices: Uint16Array;
   /** Lower bound on each tuple's key (equal to it when `exact`), s. */
-  floors: number[];
-  /** Each tuple's tauMin (tupleBounds), s: what its key is finished from. */
-  tauMins: number[];
+  floors: Float64Array;
   /** floors are the keys themselves (budgeted walks), and the droop floor was checked. */
   exact: boolean;
+}
+
+/**
+ * The resistor values (ohm, pin side first) of tuple `i` of a listing, in a fresh array.
+ *
+ * Syntax: tupleOf(problem, list, i)
+ * Example: tupleOf(problem, listTuples(problem, 2, { theta: Infinity }, false, false), 0)   // [r1, r2]
+ */
+export function tupleOf(problem: DesignProblem, list: TupleList, i: number): number[] {
+  const rs = doubles(list.stages);
+  for (let k = 0; k < list.stages; k++) rs[k] = problem.rValues[list.indices[i * list.stages + k]];
+  return rs;
 }
 
 /**
@@ -94,9 +109,12 @@ export function listTuples(
   const gainFloorApplies = loadR !== null && limits.gain !== undefined;
   const idealTop = Math.max(pwm.low + problem.dutyMin * (pwm.high - pwm.low), pwm.low + problem.dutyMax * (pwm.high - pwm.low));
   const minC = doubles(stages).fill(problem.cValues[0]);
-  const tuples: number[][] = [];
-  const floors: number[] = [];
-  const tauMins: number[] = [];
+  // (typed arrays grown by doubling: a JS array per tuple cost seconds of garbage collection on
+  // a three-stage E96 space)
+  let count = 0;
+  let indices = new Uint16Array(1024 * stages);
+  let floors = new Float64Array(1024);
+  const at = new Uint16Array(stages);
   const scratch = doubles(stages);
   const keyPlan = scratchFloorPlan();
   const total = nR ** stages;
@@ -118,10 +136,10 @@ export function listTuples(
   // value, or a later resistor above the smallest).
   const visit = (depth: number, first: number): void => {
     for (let i = 0; i < nR; i++) {
-      const count = first + i * below[depth];
-      if (count >= nextReport) {
-        nextReport = (Math.floor(count / 0x10000) + 1) * 0x10000 - 1;
-        onProgress?.((LIST_SHARE * (count + 1)) / total);
+      const position = first + i * below[depth];
+      if (position >= nextReport) {
+        nextReport = (Math.floor(position / 0x10000) + 1) * 0x10000 - 1;
+        onProgress?.((LIST_SHARE * (position + 1)) / total);
         // Out of time while still listing: the walk then stops at once (cut).
         if (timeIsUp(state)) {
           state.cut = true;
@@ -129,11 +147,12 @@ export function listTuples(
         }
       }
       scratch[depth] = R[i];
+      at[depth] = i;
       if (depth === 0 && limits.pinCurrent !== undefined && exceeds(span / (Math.min(pwm.driver.high, pwm.driver.low) + scratch[0]), limits.pinCurrent)) continue;
       // (every later value of this resistor only raises the series resistance)
       if (droopFloorApplies && droopOver(minSeries(depth))) return;
       if (depth < stages - 1) {
-        visit(depth + 1, count);
+        visit(depth + 1, position);
         if (state.cut) return;
       } else consider(scratch);
     }
@@ -155,20 +174,28 @@ export function listTuples(
     const floor = budgeted ? tupleFloor(problem, rs, minC, tb, true) : settlingFloorQuick(tb.floor, tb.tauMin);
     // Beyond the threshold already: the walk would stop before it (theta only falls in a round).
     if (floor > state.theta) return;
-    tuples.push(rs.slice());
-    floors.push(floor);
-    tauMins.push(tb.tauMin);
+    if (count === floors.length) {
+      const wider = new Float64Array(2 * count);
+      wider.set(floors);
+      floors = wider;
+      const more = new Uint16Array(2 * count * stages);
+      more.set(indices);
+      indices = more;
+    }
+    indices.set(at, count * stages);
+    floors[count++] = floor;
   };
   visit(0, 0);
-  return { tuples, floors, tauMins, exact: budgeted };
+  return { count, stages, indices, floors, exact: budgeted };
 }
 
 /** The tuples of a listing in a walk's order (tupleQueue). */
 export interface TupleQueue {
-  /** Index (into the listing) of the tuple of least key at most theta not yet taken; -1 when none is left. */
-  next: (theta: number) => number;
-  /** The key (tupleFloor) of a tuple `next` gave, s. */
-  key: (i: number) => number;
+  /**
+   * The tuple of least key at most theta not yet taken (its resistor values, a fresh array, and
+   * its key), or null when none is left.
+   */
+  take: (theta: number) => { rs: number[]; key: number } | null;
 }
 
 /**
@@ -177,83 +204,106 @@ export interface TupleQueue {
  * `droopFloorCheck`, the droop floor at the smallest capacitors) only as the walk gets near them:
  * the same tuples in the same order as sorting every key first.
  *
- * Method: lazy best-first order. The tuples sorted by their floors (lower bounds on their keys)
- * feed a binary heap of finished keys: every tuple whose floor is at most the heap's least key is
- * finished first, so no unfinished tuple can come before the heap's top (its key is at least its
- * floor, above that top). Theta only falls, so a tuple over it stays over it.
+ * Method: lazy best-first order with two binary heaps. One holds every listed tuple by its floor
+ * (a lower bound on its key; heapified at once, O(n), where a sort of a three-stage E96 listing
+ * took seconds); the tuples whose floor is at most the least finished key are finished and moved
+ * to the other, by key: no unfinished tuple can then come before that heap's top (its key is at
+ * least its floor, above that top). Ties in both heaps go by listing order. Theta only falls, so a
+ * tuple over it stays over it.
  *
  * Syntax: tupleQueue(problem, list, droopFloorCheck)
- * Example: const q = tupleQueue(problem, listTuples(problem, 2, state, false, false), false); q.next(state.theta)
+ * Example: tupleQueue(problem, listTuples(problem, 2, state, false, false), false).take(state.theta)?.key
  */
 export function tupleQueue(problem: DesignProblem, list: TupleList, droopFloorCheck: boolean): TupleQueue {
-  const { tuples, floors, tauMins, exact } = list;
+  const { count: n, floors, exact, stages } = list;
   const limits = problem.searchLimits;
-  const n = tuples.length;
-  const stages = n > 0 ? tuples[0].length : 0;
   const minC = doubles(stages).fill(problem.cValues[0]);
+  const plan = scratchFloorPlan();
+  // By floor: every listed tuple.
   const byFloor = new Int32Array(n);
   for (let i = 0; i < n; i++) byFloor[i] = i;
-  // (stable: equal floors keep the listing order)
-  byFloor.sort((a, b) => floors[a] - floors[b] || a - b);
-  const keys = exact ? floors : new Float64Array(n).fill(Number.NaN);
-  const plan = scratchFloorPlan();
-  const bounds: TupleBounds = { driver: Math.min(problem.project.pwm.driver.high, problem.project.pwm.driver.low), factor: 0, slack: 0, tauMin: 0, budgetTauMin: 0, floor: plan };
-  // Binary min-heap of finished tuples by (key, listing index).
-  const heap = new Int32Array(n);
-  let size = 0;
-  const before = (a: number, b: number) => keys[a] < keys[b] || (keys[a] === keys[b] && a < b);
-  const push = (i: number) => {
-    let at = size++;
-    while (at > 0) {
-      const up = (at - 1) >> 1;
-      if (!before(i, heap[up])) break;
-      heap[at] = heap[up];
-      at = up;
+  let floorSize = n;
+  const floorFirst = (a: number, b: number) => floors[a] < floors[b] || (floors[a] === floors[b] && a < b);
+  for (let k = (n >> 1) - 1; k >= 0; k--) siftDown(byFloor, floorSize, k, floorFirst);
+  // By key: the finished tuples, by slot (their listing index and key, appended as they finish).
+  let byKey = new Int32Array(64);
+  let keySize = 0;
+  let slotIndex = new Int32Array(64);
+  let slotKey = new Float64Array(64);
+  let slots = 0;
+  const keyFirst = (a: number, b: number) => slotKey[a] < slotKey[b] || (slotKey[a] === slotKey[b] && slotIndex[a] < slotIndex[b]);
+  const finish = (i: number, theta: number): void => {
+    let key = floors[i];
+    if (!exact) {
+      const rs = tupleOf(problem, list, i);
+      if (droopFloorCheck) {
+        const droopPlan = droopFloorPlan(problem, rs);
+        if (droopPlan !== null && exceeds(droopFloor(droopPlan, minC), limits.droop)) return;
+      }
+      key = tupleFloor(problem, rs, minC, tupleBounds(problem, rs, limits, settlingFloorPlan(problem, rs, limits, plan), false), false);
     }
-    heap[at] = i;
-  };
-  const pop = (): number => {
-    const top = heap[0];
-    const last = heap[--size];
-    if (size === 0) return top;
-    let at = 0;
-    for (;;) {
-      let child = 2 * at + 1;
-      if (child >= size) break;
-      if (child + 1 < size && before(heap[child + 1], heap[child])) child++;
-      if (!before(heap[child], last)) break;
-      heap[at] = heap[child];
-      at = child;
+    if (key > theta) return;
+    if (slots === slotKey.length) {
+      const wider = new Float64Array(2 * slots);
+      wider.set(slotKey);
+      slotKey = wider;
+      const more = new Int32Array(2 * slots);
+      more.set(slotIndex);
+      slotIndex = more;
+      const heap = new Int32Array(2 * slots);
+      heap.set(byKey);
+      byKey = heap;
     }
-    heap[at] = last;
-    return top;
+    slotIndex[slots] = i;
+    slotKey[slots] = key;
+    byKey[keySize] = slots++;
+    siftUp(byKey, keySize++, keyFirst);
   };
-  const finish = (i: number): boolean => {
-    if (exact) return true;
-    const rs = tuples[i];
-    if (droopFloorCheck) {
-      const droopPlan = droopFloorPlan(problem, rs);
-      if (droopPlan !== null && exceeds(droopFloor(droopPlan, minC), limits.droop)) return false;
-    }
-    settlingFloorPlan(problem, rs, limits, plan);
-    bounds.tauMin = tauMins[i];
-    keys[i] = tupleFloor(problem, rs, minC, bounds, false);
-    return true;
-  };
-  let fed = 0;
   return {
-    next: (theta: number): number => {
-      while (fed < n && (size === 0 || floors[byFloor[fed]] <= keys[heap[0]])) {
-        const i = byFloor[fed++];
+    take: (theta: number) => {
+      while (floorSize > 0 && (keySize === 0 || floors[byFloor[0]] <= slotKey[byKey[0]])) {
+        const i = byFloor[0];
+        // every floor left is at least this one: none of those tuples can be taken any more
         if (floors[i] > theta) {
-          fed = n;
+          floorSize = 0;
           break;
         }
-        if (finish(i) && keys[i] <= theta) push(i);
+        byFloor[0] = byFloor[--floorSize];
+        siftDown(byFloor, floorSize, 0, floorFirst);
+        finish(i, theta);
       }
-      if (size === 0 || keys[heap[0]] > theta) return -1;
-      return pop();
+      if (keySize === 0) return null;
+      const slot = byKey[0];
+      if (slotKey[slot] > theta) return null;
+      byKey[0] = byKey[--keySize];
+      siftDown(byKey, keySize, 0, keyFirst);
+      return { rs: tupleOf(problem, list, slotIndex[slot]), key: slotKey[slot] };
     },
-    key: (i: number) => keys[i],
   };
+}
+
+/** Binary heap (first(a, b): a goes before b): move the entry at `at` down to its place. */
+function siftDown(heap: Int32Array, size: number, at: number, first: (a: number, b: number) => boolean): void {
+  const item = heap[at];
+  for (;;) {
+    let child = 2 * at + 1;
+    if (child >= size) break;
+    if (child + 1 < size && first(heap[child + 1], heap[child])) child++;
+    if (!first(heap[child], item)) break;
+    heap[at] = heap[child];
+    at = child;
+  }
+  heap[at] = item;
+}
+
+/** Binary heap: move the entry at `at` up to its place. */
+function siftUp(heap: Int32Array, at: number, first: (a: number, b: number) => boolean): void {
+  const item = heap[at];
+  while (at > 0) {
+    const up = (at - 1) >> 1;
+    if (!first(item, heap[up])) break;
+    heap[at] = heap[up];
+    at = up;
+  }
+  heap[at] = item;
 }

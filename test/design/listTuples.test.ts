@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { designProblem, type DesignProblem } from '../../src/design/designProblem.js';
 import { droopFloor, droopFloorPlan, type DroopFloorPlan } from '../../src/design/droopFloor.js';
 import { gainFloor } from '../../src/design/gainFloor.js';
-import { listTuples, tupleFloor, tupleQueue } from '../../src/design/listTuples.js';
+import { listTuples, tupleFloor, tupleOf, tupleQueue } from '../../src/design/listTuples.js';
 import { exceeds } from '../../src/design/searchAllowance.js';
 import { tupleBounds } from '../../src/design/settlingBounds.js';
 import { loadProject } from '../../src/project/index.js';
@@ -69,15 +69,29 @@ describe('listTuples', () => {
         const order = reference.keys.map((_, i) => i).sort((a, b) => reference.keys[a] - reference.keys[b]);
         const list = listTuples(problem, stages, { theta }, false, droopFloorCheck);
         const queue = tupleQueue(problem, list, droopFloorCheck);
-        const walked: Array<{ r: number[]; key: number }> = [];
-        for (let i = queue.next(theta); i >= 0; i = queue.next(theta)) walked.push({ r: list.tuples[i], key: queue.key(i) });
-        expect(walked).toEqual(order.map((i) => ({ r: reference.tuples[i], key: reference.keys[i] })));
+        const walked: Array<{ rs: number[]; key: number }> = [];
+        for (let next = queue.take(theta); next !== null; next = queue.take(theta)) walked.push(next);
+        expect(walked).toEqual(order.map((i) => ({ rs: reference.tuples[i], key: reference.keys[i] })));
         // every tuple the queue may finish is listed, under a floor at most its key
-        for (let i = 0; i < list.tuples.length; i++) {
-          const key = tupleFloor(problem, list.tuples[i], minCOf(problem, stages), tupleBounds(problem, list.tuples[i], problem.searchLimits), false);
+        for (let i = 0; i < list.count; i++) {
+          const rs = tupleOf(problem, list, i);
+          const key = tupleFloor(problem, rs, minCOf(problem, stages), tupleBounds(problem, rs, problem.searchLimits), false);
           expect(list.floors[i]).toBeLessThanOrEqual(key);
         }
       }
+    });
+    it(`${file}, ${stages} stage(s): a budgeted listing's keys are exact, and its queue keeps listing order on ties`, () => {
+      const problem = designProblem(loadProject(file));
+      const droopFloorCheck = problem.project.pwm.driver.high !== problem.project.pwm.driver.low && problem.searchLimits.droop !== undefined;
+      const list = listTuples(problem, stages, { theta: Infinity }, true, droopFloorCheck);
+      const minC = minCOf(problem, stages);
+      const keys = Array.from({ length: list.count }, (_, i) => tupleFloor(problem, tupleOf(problem, list, i), minC, tupleBounds(problem, tupleOf(problem, list, i), problem.searchLimits), true));
+      expect(Array.from(list.floors.subarray(0, list.count))).toEqual(keys);
+      const order = keys.map((_, i) => i).sort((a, b) => keys[a] - keys[b]);
+      const queue = tupleQueue(problem, list, droopFloorCheck);
+      const walked: number[][] = [];
+      for (let next = queue.take(Infinity); next !== null; next = queue.take(Infinity)) walked.push(next.rs);
+      expect(walked).toEqual(order.map((i) => tupleOf(problem, list, i)));
     });
     it(`${file}, ${stages} stage(s): a falling threshold stops the queue where a sorted list would stop`, () => {
       const problem = designProblem(loadProject(file));
@@ -89,8 +103,8 @@ describe('listTuples', () => {
       const quarter = sorted.length >> 2;
       const median = sorted[sorted.length >> 1];
       const keys: number[] = [];
-      for (let k = 0; k < quarter; k++) keys.push(queue.key(queue.next(Infinity)));
-      for (let i = queue.next(median); i >= 0; i = queue.next(median)) keys.push(queue.key(i));
+      for (let k = 0; k < quarter; k++) keys.push(queue.take(Infinity)!.key);
+      for (let next = queue.take(median); next !== null; next = queue.take(median)) keys.push(next.key);
       expect(keys).toEqual(sorted.filter((key, k) => k < quarter || key <= median));
     });
   }
