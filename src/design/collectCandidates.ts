@@ -127,7 +127,8 @@ function paretoThreshold(pareto: ParetoState, ripple: number): number {
  * holds for that unloaded ladder unchanged.
  *
  * Method: resistor tuples in ascending order of a lower bound on their best settling time
- * (settlingBounds.ts); the walk stops when that bound passes theta. For each tuple, capacitor
+ * (settlingBounds.ts; listTuples.ts lists them, tupleQueue gives them in that order, finishing
+ * each bound lazily); the walk stops when that bound passes theta. For each tuple, capacitor
  * space by monotone structure: the ripple falls when any capacitor grows, so the feasible region
  * of the last two capacitors is bounded below by a staircase, walked once per tuple (last
  * capacitor from the previous column's step upward, columns from the largest first capacitor
