@@ -111,6 +111,8 @@ export function listTuples(
   const minC = doubles(stages).fill(problem.cValues[0]);
   // (typed arrays grown by doubling: a JS array per tuple cost seconds of garbage collection on
   // a three-stage E96 space)
+  // (no series over a physical range comes near 65 536 values: E192 over 1 mohm..1 Tohm is 2 880)
+  if (nR > 0x10000) throw new RangeError(`listTuples: ${nR} resistor values, more than a tuple's 16-bit indices hold`);
   let count = 0;
   let indices = new Uint16Array(1024 * stages);
   let floors = new Float64Array(1024);
