@@ -5,8 +5,9 @@
  *
  * Why: compiling the ~0.7 MB bundle, and lazily every function the run reaches, is a large part
  * of a short run (about 50 ms of ~300 ms for `analyze` on a sample, measured on the bench machine).
- * The build runs the command once and saves V8's compiled code (vm.Script#createCachedData,
- * nodejs.org/api/vm.html) to dist/cli.cjs.cache; later starts reuse it.
+ * The build runs commands on a sample and saves V8's compiled code (vm.Script#createCachedData,
+ * nodejs.org/api/vm.html) to dist/cli.cjs.cache (trained on `analyze`) and dist/cli.cjs.design.cache
+ * (trained on `design`, used by that command); later starts reuse them.
  *
  * The cache file is the hex SHA-256 of the bundle it was made from (64 bytes), then V8's data.
  * A cache whose hash does not match the bundle is not used; V8 itself refuses data from another
@@ -14,7 +15,10 @@
  * so a missing or stale cache costs time, never correctness.
  *
  * DACSMITH_CODE_CACHE_OUT=<file> (used by scripts/build.mjs only): compile without a cache and
- * write a fresh one to <file> when the process exits.
+ * write a fresh one to <file> when the process exits. With DACSMITH_CODE_CACHE_TRAIN (a JSON
+ * array of argument lists) those commands run too, in this process, each once the one before has
+ * finished ('beforeExit'), on the same compiled script: the cache then holds the code every one of
+ * them compiled (V8 keeps compiled functions per script), not only the first command's.
  *
  * On V8 11 (Node.js 20) the optimizing compiler's interrupt budget is raised 4x before the bundle
  * compiles (v8.setFlagsFromString, nodejs.org/api/v8.html): a default design run queued about
@@ -46,13 +50,20 @@ try {
 const hash = createHash('sha256').update(source).digest('hex');
 const cacheOut = process.env.DACSMITH_CODE_CACHE_OUT;
 
+// `design` has a cache of its own, trained on design runs (scripts/build.mjs, CODE_CACHES); every
+// other command, or a design run without that file, takes the one trained on `analyze`.
 let cachedData;
 if (!cacheOut) {
-  try {
-    const cache = readFileSync(`${bundle}.cache`);
-    if (cache.toString('latin1', 0, HASH_BYTES) === hash) cachedData = cache.subarray(HASH_BYTES);
-  } catch {
-    // no cache: compile as usual
+  for (const file of process.argv[2] === 'design' ? [`${bundle}.design.cache`, `${bundle}.cache`] : [`${bundle}.cache`]) {
+    try {
+      const cache = readFileSync(file);
+      if (cache.toString('latin1', 0, HASH_BYTES) === hash) {
+        cachedData = cache.subarray(HASH_BYTES);
+        break;
+      }
+    } catch {
+      // no such cache: the next, or compile as usual
+    }
   }
 }
 
@@ -70,4 +81,14 @@ if (cacheOut) {
 }
 
 const module_ = { exports: {}, filename: bundle, id: bundle, loaded: false };
-script.runInThisContext()(module_.exports, createRequire(bundle), module_, bundle, join(__dirname, '..', 'dist'));
+const start = () => script.runInThisContext()(module_.exports, createRequire(bundle), module_, bundle, join(__dirname, '..', 'dist'));
+start();
+if (cacheOut && process.env.DACSMITH_CODE_CACHE_TRAIN) {
+  const more = JSON.parse(process.env.DACSMITH_CODE_CACHE_TRAIN);
+  process.on('beforeExit', () => {
+    const next = more.shift();
+    if (next === undefined) return;
+    process.argv = [process.argv[0], process.argv[1], ...next];
+    start();
+  });
+}

@@ -90,6 +90,36 @@ describe('start-up script and code cache (bin/dacsmith.cjs)', () => {
     }
   });
 
+  it('design takes its own cache (trained on design runs) and gives the same answer without either', () => {
+    const designCache = join(work, 'dist', 'cli.cjs.design.cache');
+    const builtDesign = readFileSync(join(root, 'dist', 'cli.cjs.design.cache'));
+    // stamped like the other, and a different training (more than the analyze run compiled)
+    expect(builtDesign.subarray(0, 64).toString('latin1')).toBe(built.subarray(0, 64).toString('latin1'));
+    expect(builtDesign.equals(built)).toBe(false);
+    const args = ['design', sample, '--format', 'json', '--no-charts'];
+    // (the elapsed time is the only figure that may differ between runs)
+    const answer = (stdout: string) => stdout.replace(/"elapsed":[^,}]*/g, '');
+    try {
+      writeFileSync(designCache, builtDesign);
+      const withOwn = runWithCache(built, args, { DACSMITH_DEBUG: '1' });
+      expect(withOwn.stderr).toBe('');
+      rmSync(designCache);
+      const withAnalyzeOnly = runWithCache(built, args);
+      const withNone = runWithCache(null, args);
+      expect(withOwn.code).toBe(0);
+      expect(JSON.parse(withOwn.stdout).candidates.length).toBeGreaterThan(0);
+      expect(answer(withAnalyzeOnly.stdout)).toBe(answer(withOwn.stdout));
+      expect(answer(withNone.stdout)).toBe(answer(withOwn.stdout));
+      // a stale design cache is passed over for the analyze one (still the same answer)
+      writeFileSync(designCache, Buffer.concat([Buffer.from('0'.repeat(64), 'latin1'), builtDesign.subarray(64)]));
+      const stale = runWithCache(built, args, { DACSMITH_DEBUG: '1' });
+      expect(stale.stderr).toBe('');
+      expect(answer(stale.stdout)).toBe(answer(withOwn.stdout));
+    } finally {
+      rmSync(designCache, { force: true });
+    }
+  });
+
   it('reads a quantity only mathjs understands through its chunk, loaded on first use', () => {
     // scripts/build.mjs puts mathjs in dist/mathjs-units.cjs; '0.0008 min' is 48 ms (1 min = 60 s).
     const file = join(work, 'minutes.yaml');
