@@ -85,10 +85,14 @@ const start = () => script.runInThisContext()(module_.exports, createRequire(bun
 start();
 if (cacheOut && process.env.DACSMITH_CODE_CACHE_TRAIN) {
   const more = JSON.parse(process.env.DACSMITH_CODE_CACHE_TRAIN);
+  // (through setImmediate: a run that needs no I/O would otherwise leave the loop empty, and
+  // 'beforeExit' would not come again for the next one)
   process.on('beforeExit', () => {
     const next = more.shift();
     if (next === undefined) return;
-    process.argv = [process.argv[0], process.argv[1], ...next];
-    start();
+    setImmediate(() => {
+      process.argv = [process.argv[0], process.argv[1], ...next];
+      start();
+    });
   });
 }
