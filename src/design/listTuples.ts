@@ -78,19 +78,19 @@ export function tupleOf(problem: DesignProblem, list: TupleList, i: number): num
 
 /**
  * Every `stages`-resistor tuple of the problem's series that passes the resistor-only checks of
- * collectCandidates (pin current, droop and gain floors from the resistors, with unequal drivers
- * the droop floor at the smallest capacitors, when `droopFloorCheck`: unequal drivers with a
- * droop limit) and whose key (tupleFloor) is at most state.theta. Only the tuples and their keys are
- * kept: a walk makes a tuple's bounds and plans again when it reaches the tuple (most listed tuples
- * never are), so a listing of millions of tuples holds a few numbers each (measured on a two- and
- * three-stage E96 space cut after 20 s: 1.6 GB with each tuple's bounds and droop plan kept, 0.31 GB
- * with neither).
+ * collectCandidates (pin current, droop and gain floors from the resistors; for budgeted walks
+ * also, with `droopFloorCheck` (unequal drivers with a droop limit), the droop floor at the
+ * smallest capacitors, which tupleQueue checks for the others) and whose floor (TupleList) is at
+ * most state.theta. Only each tuple's series indices and floor are kept: a walk makes a tuple's
+ * bounds and plans again when it reaches the tuple (most listed tuples never are), so a listing
+ * of millions of tuples holds a few numbers each (measured on a two- and three-stage E96 space cut
+ * after 20 s: 1.6 GB with each tuple's bounds and droop plan kept, 0.31 GB with neither).
  * A function (and file) of its own, not a loop inside collectCandidates: V8 then compiles this loop alone
  * when it turns hot, not the whole walk with it (measured: the walk's function was compiled three
  * times in a default design run, 55 to 81 ms each on the compiler thread).
  *
  * Syntax: listTuples(problem, stages, state, budgeted, droopFloorCheck[, onProgress])
- * Example: listTuples(problem, 2, newCollectState(problem, 10), false, false).tuples.length
+ * Example: listTuples(problem, 2, newCollectState(problem, 10), false, false).count
  */
 export function listTuples(
   problem: DesignProblem,

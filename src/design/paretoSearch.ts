@@ -44,7 +44,7 @@ export function paretoSearch(problems: DesignProblem[], stages: number, stats: P
   const options = followerOptions(base);
   // Open: some follower option is not proven out of reach (a follower removes the load the bounds
   // use, so a limit out of reach without one may be reached with one).
-  const open = problems.map((p, i) => i).filter((i) => options.some((b) => infeasibilityBounds(withFollower(problems[i], b), stages).misses.length === 0));
+  const open = problems.map((_, i) => i).filter((i) => options.some((b) => infeasibilityBounds(withFollower(problems[i], b), stages).misses.length === 0));
   if (open.length === 0) return out;
   const order = [...open].sort((a, b) => rippleOf(problems[a]) - rippleOf(problems[b]));
   const loosest = problems[order[order.length - 1]];

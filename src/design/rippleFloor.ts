@@ -95,8 +95,8 @@ export function rippleFloor(plan: RippleFloorPlan, c: ArrayLike<number>, duty: n
 /**
  * The drive the ripple floor starts from at duty `duty`, A: pi times the least first Fourier
  * coefficient of the pin's current into node 1, f sin(pi D) - pi mismatch D' (rippleFloorPlan's
- * Method); at most 0 where the mismatch may cancel it. Shared by rippleFloor, requiredAttenuation
- * and rippleFloorSharp.
+ * Method); at most 0 where the mismatch may cancel it. Shared by rippleFloor (and through it
+ * rippleFloorSharp) and requiredAttenuation.
  *
  * Syntax: floorDrive(plan, duty)
  * Example: floorDrive(rippleFloorPlan(problem, [1e3]), 0.5)   // A

@@ -1,5 +1,4 @@
 import { ladderFromProject } from '../project/ladderFromProject.js';
-import type { Ladder } from '../circuit/ladder.js';
 import type { Project, ToleranceSettings } from '../project/types.js';
 import type { RobustCheck, RobustChecks, RobustVerdict } from '../engine/index.js';
 import { DesignInputError } from './designInputError.js';

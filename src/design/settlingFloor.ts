@@ -79,7 +79,7 @@ export function settlingFloorPlan(
   limits: DesignProblem['limits'] = problem.searchLimits,
   into?: ScratchFloorPlan,
 ): SettlingFloorPlan {
-  const { circuit: k, steps, band, dutyMin, dutyMax, defaultStep, period } = problem;
+  const { circuit: k, steps, band, period } = problem;
   const gH = 1 / (k.driverHigh + r[0]);
   const gL = 1 / (k.driverLow + r[0]);
   const gF = Math.max(gH, gL);

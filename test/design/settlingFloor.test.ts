@@ -142,7 +142,8 @@ describe('settlingFloor', () => {
       }),
       { numRuns: 500 },
     );
-    // and it is not trivial: with the period negligible it is the first-order crossing (to 1e-6)
+    // and it is not trivial: with the period negligible it is the first-order crossing tau ln(z0 /
+    // threshold) (first-order step response, any circuits textbook; common practice)
     const plan: SettlingFloorPlan = { period: 1e-9, steps: [floorStep(1, -Infinity, 1e-3, 1e-3)] };
     expect(settlingFloorQuick(plan, 1e-3)).toBeCloseTo(1e-3 * Math.log(1e3), 8);
     expect(settlingFloorQuick(plan, 0)).toBe(0);
