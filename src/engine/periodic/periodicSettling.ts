@@ -66,7 +66,7 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   const violates = (pts: readonly TrajectoryPoint[]) => pts.some((p) => Math.abs(offset + p.w) > band);
   // A period whose transient provably stays inside the slack needs no trajectory (phaseSeries.ts).
   const bound = transientBound(orbitTo.phases, c, scale);
-  const violatesFrom = (delta: readonly number[]) => (bound !== null && bound(delta) <= slack ? false : violates(trajectory(delta)));
+  const violatesFrom = (delta: readonly number[]) => (bound !== null && bound(delta, slack) <= slack ? false : violates(trajectory(delta)));
 
   const powers = periodPowers([...orbitTo.S], n);
   const safeFrom = firstSafePeriod(orbitTo, powers, delta0, slack, n, c);
