@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { expm as mathjsExpm, inv, matrix, multiply, subtract, identity as mIdentity } from 'mathjs';
-import { doubleFlow, flow } from '../../src/engine/flow.js';
+import { addFlows, doubleFlow, flow } from '../../src/engine/flow.js';
 import { phi2 } from '../../src/numeric/phi.js';
 
 const rows = (a: number[], n: number): number[][] =>
@@ -73,6 +73,27 @@ describe('flow: E = e^{tA}, K = I - E, J = integral of K', () => {
       expect(twice.K[i]).toBeCloseTo(direct.K[i], 13);
       expect((twice.J as number[])[i] / 4 / t).toBeCloseTo((direct.J as number[])[i] / 4 / t, 12);
     }
+  });
+
+  it('adding flows over unequal times matches mathjs expm over the sum, J included; without J it returns none', () => {
+    // Source: mathjs expm/inv (npm) over t1 + t2; J as in the first test (calculus).
+    const [t1, t2] = [3e-4, 1.1e-3];
+    const mA = matrix(rows(A, 2));
+    const eRef = mathjsExpm(multiply(mA, t1 + t2) as never);
+    const jRef = subtract(multiply(mIdentity(2), t1 + t2), multiply(inv(mA), subtract(eRef, mIdentity(2))));
+    const sum = addFlows(flow(A, 2, t1), flow(A, 2, t2), 2);
+    const e = flat(eRef);
+    const j = flat(jRef);
+    for (let i = 0; i < 4; i++) {
+      expect(sum.E[i]).toBeCloseTo(e[i], 12);
+      expect(sum.K[i]).toBeCloseTo((i % 3 === 0 ? 1 : 0) - e[i], 12);
+      expect((sum.J as number[])[i] / (t1 + t2)).toBeCloseTo(j[i] / (t1 + t2), 11);
+    }
+    expect(sum.t).toBe(t1 + t2);
+    expect(addFlows(flow(A, 2, t1), flow(A, 2, t2, false), 2).J).toBeNull();
+    // doubleFlow is addFlows of a flow with itself, digit for digit
+    const f = flow(A, 2, t2);
+    expect(doubleFlow(f, 2)).toEqual(addFlows(f, f, 2));
   });
 
   it('phi2 matches its series and its closed form', () => {

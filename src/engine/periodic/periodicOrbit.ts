@@ -50,7 +50,10 @@ export function periodicOrbit(network: Network, duties: Duties, withExtrema = tr
   const T = network.period;
   const phases = pinSchedule(network, duties).map((p) => phaseFlows(network, p.key, p.duration));
   const { start, S } = periodStart(
-    phases.map((ph) => ({ duration: ph.duration, xStar: ph.xStar, ...(withAverage ? ph.full : ph.map) })),
+    phases.map((ph) => {
+      const f = withAverage ? ph.full : ph.map;
+      return { duration: ph.duration, xStar: ph.xStar, E: f.E, K: f.K };
+    }),
     n,
     T,
   );

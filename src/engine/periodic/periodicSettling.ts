@@ -1,5 +1,5 @@
 import type { Duties, Network } from '../../circuit/network.js';
-import { identity, matmul, matvec } from '../../numeric/dense.js';
+import { identity, matmul } from '../../numeric/dense.js';
 import { luFactor, luSolve, solveLinear } from '../../numeric/lu.js';
 import { brentRoot } from '../../numeric/brentRoot.js';
 import { periodPowers, type PeriodPowers } from '../periodPowers.js';
@@ -17,6 +17,9 @@ export interface NetworkSettling {
 
 /** Most sampled periods per scan of the transient (below the proven-safe period). */
 const SCAN_SAMPLES = 1024;
+/** Scratch: a scan's sampled deltas, and the one being checked (periodicSettling does not re-enter). */
+let SAMPLE_DELTAS = new Float64Array(0);
+const PROBE: number[] = [];
 
 /**
  * Settling time after the duties change from `from` to `to` at a period start, the network having
@@ -75,26 +78,40 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   if (ringing > 0) step = Math.min(step, Math.max(1, Math.floor(0.2 / (ringing * T))));
   // Sample periods 0, step, 2 step, ... below safeFrom, keeping each delta: M^step is formed once
   // (its columns by binary powering, periodPowers.ts), then one product per sample.
+  // Sample i is period i step; the deltas one after another in one scratch array (a scan keeps up to
+  // 4 SCAN_SAMPLES + 9 of them: no array per sample).
   const stepMap = stepMatrix(powers, step, n);
-  const samples: Array<{ m: number; delta: number[] }> = [];
-  let delta = delta0.slice();
+  const most = 4 * SCAN_SAMPLES + 9;
+  if (SAMPLE_DELTAS.length < most * n) SAMPLE_DELTAS = new Float64Array(most * n);
+  const deltas = SAMPLE_DELTAS;
+  let count = 0;
+  for (let i = 0; i < n; i++) deltas[i] = delta0[i];
   for (let m = 0; m < safeFrom; m += step) {
-    samples.push({ m, delta });
-    delta = matvec(stepMap, delta, n);
-    if (samples.length > 4 * SCAN_SAMPLES + 8) break;
+    count++;
+    if (count >= most || m + step >= safeFrom) break;
+    // the next sample: stepMap times this one (matvec's order of operations)
+    const from = (count - 1) * n;
+    for (let i = 0; i < n; i++) {
+      let sum = 0;
+      for (let k = 0; k < n; k++) sum += stepMap[i * n + k] * deltas[from + k];
+      deltas[from + n + i] = sum;
+    }
   }
+  const sampleDelta = (i: number): number[] => Array.from(deltas.subarray(i * n, i * n + n));
   let last = -1;
-  for (let i = samples.length - 1; i >= 0; i--) {
-    if (violatesFrom(samples[i].delta)) {
+  PROBE.length = n;
+  for (let i = count - 1; i >= 0; i--) {
+    for (let k = 0; k < n; k++) PROBE[k] = deltas[i * n + k];
+    if (violatesFrom(PROBE)) {
       last = i;
       break;
     }
   }
   if (last < 0) return { time: 0, final: avg };
   // Refine to the last violating period in [m_last, next sample).
-  let lo = samples[last].m;
-  let loDelta = samples[last].delta;
-  let hi = last + 1 < samples.length ? samples[last + 1].m : safeFrom;
+  let lo = last * step;
+  let loDelta = sampleDelta(last);
+  let hi = last + 1 < count ? (last + 1) * step : safeFrom;
   while (hi - lo > 1) {
     const mid = Math.floor((lo + hi) / 2);
     const midDelta = powers.applyPower(mid - lo, loDelta);

@@ -2,8 +2,8 @@ import type { Network } from '../../circuit/network.js';
 import { networkEquations, type NetworkEquations, type PinStateKey } from '../../circuit/networkEquations.js';
 import { solveLinear } from '../../numeric/lu.js';
 import { normInf } from '../../numeric/dense.js';
-import { doubleFlow, flow, type Flow } from '../flow.js';
-import { addFlows, quantaTable, tableFlow, type QuantaTable } from './quantaFlows.js';
+import { addFlows, doubleFlow, flow, type Flow } from '../flow.js';
+import { quantaTable, tableFlow, type QuantaTable } from './quantaFlows.js';
 
 /** Everything the engine keeps about one phase (pin state and length) of a network. */
 export interface PhaseFlows {

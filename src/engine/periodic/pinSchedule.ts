@@ -31,10 +31,19 @@ export function pinSchedule(network: Network, duties: Duties): ScheduledPhase[] 
     return [half, high, half].filter((p) => p.duration > 0);
   }
   const d2 = duties.second ?? 0;
-  const edges = (d: number): [number, number] => (network.alignment === 'edge' ? [0, d] : [(1 - d) / 2, (1 + d) / 2]);
-  const [a1, b1] = edges(d1);
-  const [a2, b2] = edges(d2);
-  const marks = [...new Set([0, 1, a1, b1, a2, b2])].sort((x, y) => x - y);
+  const edge = network.alignment === 'edge';
+  const a1 = edge ? 0 : (1 - d1) / 2;
+  const b1 = edge ? d1 : (1 + d1) / 2;
+  const a2 = edge ? 0 : (1 - d2) / 2;
+  const b2 = edge ? d2 : (1 + d2) / 2;
+  // The distinct marks in ascending order (insertion into a sorted list of at most six).
+  const marks: number[] = [];
+  for (const v of [0, 1, a1, b1, a2, b2]) {
+    let i = marks.length;
+    while (i > 0 && marks[i - 1] > v) i--;
+    if (i > 0 && marks[i - 1] === v) continue;
+    marks.splice(i, 0, v);
+  }
   const phases: ScheduledPhase[] = [];
   for (let i = 0; i + 1 < marks.length; i++) {
     const lo = marks[i];

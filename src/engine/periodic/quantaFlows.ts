@@ -1,5 +1,4 @@
-import { matmul } from '../../numeric/dense.js';
-import { doubleFlow, type Flow } from '../flow.js';
+import { addFlows, doubleFlow, type Flow } from '../flow.js';
 
 /**
  * Flows over whole numbers of a unit time, remembered: the unit's flow doubled (2^j units) and, in
@@ -75,23 +74,4 @@ function highFlow(table: QuantaTable, h: number): Flow {
   f = rest === 0 ? power(table, m + radixBits) : addFlows(highFlow(table, rest), power(table, m + radixBits), table.n);
   table.high[h] = f;
   return f;
-}
-
-/**
- * The flow over a.t + b.t from the flows over a.t and b.t (J when both have it).
- *
- * Syntax: addFlows(a, b, n)
- * Example: addFlows(flow(A, n, t1), flow(A, n, t2), n)  // the flow over t1 + t2
- */
-export function addFlows(a: Flow, b: Flow, n: number): Flow {
-  const nn = n * n;
-  const E = matmul(a.E, b.E, n);
-  const EK = matmul(a.E, b.K, n);
-  const K = new Array<number>(nn);
-  for (let i = 0; i < nn; i++) K[i] = a.K[i] + EK[i];
-  if (!a.J || !b.J) return { t: a.t + b.t, E, K, J: null };
-  const EJ = matmul(a.E, b.J, n);
-  const J = new Array<number>(nn);
-  for (let i = 0; i < nn; i++) J[i] = a.J[i] + b.t * a.K[i] + EJ[i];
-  return { t: a.t + b.t, E, K, J };
 }
