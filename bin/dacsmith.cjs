@@ -25,9 +25,17 @@
  * 1.1 s of optimizing-compiler work on the one spare core in a 0.6 s run, much of it for functions
  * that turn warm rather than hot. Measured on the bench machine (farm-bench, paired, medians):
  * default design 0.86, robust worst-case 0.93, yield 0.91, three-stage search 0.96, analyze 0.96,
- * tolerance 0.93 to 0.98, a 5.5 s three-stage design with curves 1.03. Other V8 versions were not
- * measured and keep their defaults (an unknown flag would print an error). The flag changes when
- * code is optimized, never what it computes; the build's code cache is made under it too.
+ * tolerance 0.93 to 0.98, a 5.5 s three-stage design with curves 1.03. The optimizing compiler's
+ * cumulative inlining budget is lowered from 920 to 600 bytes of bytecode as well: the compiler
+ * thread had about 630 ms of work queued in a 0.5 s default design run (--trace-opt; the hottest
+ * search functions took 20 to 37 ms each to compile, mostly for callees inlined again into every
+ * caller), and smaller graphs reach optimized code sooner. Measured against the 4x budget alone,
+ * order-alternating pairs, each build with its own code cache: default design 0.972 (20 rounds),
+ * --robust worst-case 0.931, three stages 0.973, complement design sample 0.946, analyze 0.983,
+ * a 4 s three-stage design with curves 0.987 (a cap of 460 gained as much on the short runs but
+ * made that one 1.04). Other V8 versions were not measured and keep their defaults (an unknown flag
+ * would print an error). The flags change when code is optimized, never what it computes; the
+ * build's code cache is made under them too (V8 refuses a cache made under other flags).
  */
 const { createHash } = require('node:crypto');
 const { readFileSync, writeFileSync } = require('node:fs');
@@ -35,7 +43,7 @@ const { createRequire, wrap } = require('node:module');
 const { join } = require('node:path');
 const vm = require('node:vm');
 
-if (process.versions.v8.startsWith('11.')) require('node:v8').setFlagsFromString('--interrupt-budget=270336');
+if (process.versions.v8.startsWith('11.')) require('node:v8').setFlagsFromString('--interrupt-budget=270336 --max-inlined-bytecode-size-cumulative=600');
 
 const bundle = join(__dirname, '..', 'dist', 'cli.cjs');
 const HASH_BYTES = 64;
