@@ -107,52 +107,79 @@ export function phaseFlows(network: Network, key: PinStateKey, duration: number)
   const hit = byLength.get(duration);
   if (hit) return hit;
   const eq = cache.equations;
-  const n = eq.n;
-  const { A } = eq.phases[key];
-  const scale = eq.scale;
   const state = pinStateFlows(cache, key);
-  const { xStar, rate, outputRate } = state;
   // A whole number of quanta to rounding (a few units in the last place of the duration).
   const q = cache.quantum;
   const quanta = q === null ? NaN : Math.round(duration / q);
   const onGrid = quanta > 0 && Math.abs(duration / q! - quanta) < 1e-9;
-  const maxQuanta = q === null ? 0 : Math.round(network.period / q);
-  // With a quantum the flows come from the pin state's tables (no matrix exponential per phase).
-  const table = () => (state.quanta ??= quantaTable(flow(A, n, q!, true, scale), n, maxQuanta));
-  let full: Flow | null = onGrid ? tableFlow(table(), quanta) : null;
-  let map: Flow | null = full;
-  let steps: Flow[] | null = null;
-  // The grid's equal cells; the whole phase's E and K are the cell's flow composed `cells` times.
-  const cells = Math.min(64, Math.max(4, Math.ceil(duration * rate)));
-  let cell: Flow | null = null;
-  const cellFlow = () => {
-    if (cell) return cell;
-    if (onGrid && (QUARTERS * quanta) % cells === 0) {
-      state.quarters ??= quantaTable(flow(A, n, q! / QUARTERS, false, scale), n, QUARTERS * maxQuanta);
-      cell = tableFlow(state.quarters, (QUARTERS * quanta) / cells);
-    } else cell = flow(A, n, duration / cells, false, scale);
-    return cell;
-  };
-  const result: PhaseFlows = {
-    key,
-    duration,
-    A,
-    xStar,
-    get full() {
-      return (full ??= flow(A, n, duration, true, scale));
-    },
-    get map() {
-      return (map ??= powerFlow(cellFlow(), cells, n));
-    },
-    get steps() {
-      return (steps ??= gridSteps(A, n, cellFlow(), cells, rate, scale));
-    },
-    outputRate,
-    rate,
-  };
+  const result = new LazyPhaseFlows(key, duration, eq.phases[key].A, eq.n, eq.scale, state, q, onGrid ? quanta : 0, q === null ? 0 : Math.round(network.period / q));
   if (byLength.size >= FLOW_CACHE_SIZE) byLength.clear();
   byLength.set(duration, result);
   return result;
+}
+
+/**
+ * PhaseFlows of one phase, its flows formed on first use (one object per phase: no closures). With
+ * a quantum and a whole number of quanta (`quanta` > 0) the flows come from the pin state's tables
+ * (no matrix exponential per phase); the grid's equal cells, and the whole phase's E and K are the
+ * cell's flow composed `cells` times.
+ */
+class LazyPhaseFlows implements PhaseFlows {
+  readonly xStar: readonly number[];
+  readonly outputRate: readonly number[];
+  readonly rate: number;
+  /** Grid cells of the phase: h * rate <= 1, at least 4 and at most 64. */
+  private readonly cells: number;
+  private fullFlow: Flow | null;
+  private mapFlow: Flow | null;
+  private stepFlows: Flow[] | null = null;
+  private cell: Flow | null = null;
+
+  constructor(
+    readonly key: PinStateKey,
+    readonly duration: number,
+    readonly A: readonly number[],
+    private readonly n: number,
+    private readonly scale: readonly number[],
+    private readonly state: PinStateFlows,
+    private readonly quantum: number | null,
+    private readonly quanta: number,
+    private readonly maxQuanta: number,
+  ) {
+    this.xStar = state.xStar;
+    this.outputRate = state.outputRate;
+    this.rate = state.rate;
+    this.cells = Math.min(64, Math.max(4, Math.ceil(duration * state.rate)));
+    this.fullFlow = quanta > 0 ? tableFlow(this.table(), quanta) : null;
+    this.mapFlow = this.fullFlow;
+  }
+
+  get full(): Flow {
+    return (this.fullFlow ??= flow(this.A, this.n, this.duration, true, this.scale));
+  }
+
+  get map(): Flow {
+    return (this.mapFlow ??= powerFlow(this.cellFlow(), this.cells, this.n));
+  }
+
+  get steps(): readonly Flow[] {
+    return (this.stepFlows ??= gridSteps(this.A, this.n, this.cellFlow(), this.cells, this.rate, this.scale));
+  }
+
+  /** The pin state's table of flows over whole quanta. */
+  private table(): QuantaTable {
+    return (this.state.quanta ??= quantaTable(flow(this.A, this.n, this.quantum!, true, this.scale), this.n, this.maxQuanta));
+  }
+
+  private cellFlow(): Flow {
+    if (this.cell) return this.cell;
+    const { A, n, quanta, cells, scale, state } = this;
+    if (quanta > 0 && (QUARTERS * quanta) % cells === 0) {
+      state.quarters ??= quantaTable(flow(A, n, this.quantum! / QUARTERS, false, scale), n, QUARTERS * this.maxQuanta);
+      this.cell = tableFlow(state.quarters, (QUARTERS * quanta) / cells);
+    } else this.cell = flow(A, n, this.duration / cells, false, scale);
+    return this.cell;
+  }
 }
 
 function pinStateFlows(cache: NetworkCache, key: PinStateKey): PinStateFlows {
