@@ -24,12 +24,14 @@ export interface PeriodPhase {
 export function periodStart(phases: readonly PeriodPhase[], n: number, period: number): { start: number[]; S: number[] } {
   const r = new Array<number>(n).fill(0);
   for (const ph of phases) for (let i = 0; i < n; i++) r[i] += (ph.duration / period) * ph.xStar[i];
+  // Two buffers each for S and acc, swapped after every phase (the last S written is returned).
   let S = new Array<number>(n * n).fill(0);
   let acc = new Array<number>(n).fill(0);
+  let nextS = new Array<number>(n * n).fill(0);
+  let nextAcc = new Array<number>(n).fill(0);
   for (const ph of phases) {
     const { E, K } = ph;
-    const nextS = K.slice();
-    const nextAcc = new Array<number>(n).fill(0);
+    for (let i = 0; i < n * n; i++) nextS[i] = K[i];
     for (let i = 0; i < n; i++) {
       let a = 0;
       for (let j = 0; j < n; j++) {
@@ -40,8 +42,12 @@ export function periodStart(phases: readonly PeriodPhase[], n: number, period: n
       }
       nextAcc[i] = a;
     }
-    S = nextS;
-    acc = nextAcc;
+    const doneS = nextS;
+    nextS = S;
+    S = doneS;
+    const doneAcc = nextAcc;
+    nextAcc = acc;
+    acc = doneAcc;
   }
   const u = solveLinear(S, n, acc);
   if (!u) throw new RangeError('periodStart: the period map has no unique fixed point');

@@ -36,13 +36,14 @@ export function pinSchedule(network: Network, duties: Duties): ScheduledPhase[] 
   const b1 = edge ? d1 : (1 + d1) / 2;
   const a2 = edge ? 0 : (1 - d2) / 2;
   const b2 = edge ? d2 : (1 + d2) / 2;
-  // The distinct marks in ascending order (insertion into a sorted list of at most six).
-  const marks: number[] = [];
-  for (const v of [0, 1, a1, b1, a2, b2]) {
-    let i = marks.length;
-    while (i > 0 && marks[i - 1] > v) i--;
-    if (i > 0 && marks[i - 1] === v) continue;
-    marks.splice(i, 0, v);
+  // The marks in ascending order (insertion sort in place); equal marks make empty intervals, which
+  // the loop below skips.
+  const marks = [0, 1, a1, b1, a2, b2];
+  for (let i = 1; i < marks.length; i++) {
+    const v = marks[i];
+    let j = i;
+    for (; j > 0 && marks[j - 1] > v; j--) marks[j] = marks[j - 1];
+    marks[j] = v;
   }
   const phases: ScheduledPhase[] = [];
   for (let i = 0; i + 1 < marks.length; i++) {
