@@ -2,7 +2,7 @@ import type { Duties, Network } from '../../circuit/network.js';
 import { networkCache, phaseFlows, type PhaseFlows } from './phaseFlows.js';
 import { periodStart } from './periodStart.js';
 import { pinSchedule } from './pinSchedule.js';
-import { periodTrajectoryPoints, type TrajectoryPoint } from './trajectory.js';
+import { walkPeriod } from './trajectory.js';
 
 /** The periodic steady state of a network at one pair of duties. */
 export interface PeriodicOrbit {
@@ -20,8 +20,6 @@ export interface PeriodicOrbit {
   readonly ripple: number;
   readonly tMin: number;
   readonly tMax: number;
-  /** The period's trajectory as deviations from `start` (trajectory.ts). */
-  readonly points: readonly TrajectoryPoint[];
 }
 
 /**
@@ -58,9 +56,26 @@ export function periodicOrbit(network: Network, duties: Duties, withExtrema = tr
     T,
   );
   const c = equations.output;
-  const points = withExtrema
-    ? periodTrajectoryPoints(phases, c, start, new Array<number>(n).fill(0), equations.scale)
-    : [{ phase: 0, tau: 0, t: 0, d: new Array<number>(n).fill(0), w: 0 }];
+  // Extremes over the trajectory's points (trajectory.ts), the first of equal values; without
+  // extrema the start alone (w = 0 at t = 0).
+  let minW = 0;
+  let minT = 0;
+  let maxW = 0;
+  let maxT = 0;
+  if (withExtrema) {
+    let first = true;
+    walkPeriod(phases, c, start, new Array<number>(n).fill(0), equations.scale, false, (_p, _tau, t, _d, w) => {
+      if (first || w < minW) {
+        minW = w;
+        minT = t;
+      }
+      if (first || w > maxW) {
+        maxW = w;
+        maxT = t;
+      }
+      first = false;
+    });
+  }
   // Average: integral of d over each phase, t_p d_p + J_p (x*_p - x_s - d_p).
   let integral = withAverage ? 0 : NaN;
   let d = new Array<number>(n).fill(0);
@@ -83,12 +98,6 @@ export function periodicOrbit(network: Network, duties: Duties, withExtrema = tr
   }
   let yStart = 0;
   for (let i = 0; i < n; i++) yStart += c[i] * start[i];
-  let minP = points[0];
-  let maxP = points[0];
-  for (const p of points) {
-    if (p.w < minP.w) minP = p;
-    if (p.w > maxP.w) maxP = p;
-  }
   return {
     duties,
     phases,
@@ -96,11 +105,10 @@ export function periodicOrbit(network: Network, duties: Duties, withExtrema = tr
     S,
     yStart,
     average: yStart + integral / T,
-    min: yStart + minP.w,
-    max: yStart + maxP.w,
-    ripple: maxP.w - minP.w,
-    tMin: minP.t,
-    tMax: maxP.t,
-    points,
+    min: yStart + minW,
+    max: yStart + maxW,
+    ripple: maxW - minW,
+    tMin: minT,
+    tMax: maxT,
   };
 }

@@ -33,6 +33,7 @@ export interface TrajectoryPoint {
  *
  * Syntax: periodTrajectoryPoints(phases, output, ref, d0, scale)
  * Example: periodTrajectoryPoints(flows, c, xs, zeros(n), scale).map((p) => p.w)
+ * See also: walkPeriod
  */
 export function periodTrajectoryPoints(
   phases: readonly PhaseFlows[],
@@ -41,15 +42,42 @@ export function periodTrajectoryPoints(
   d0: readonly number[],
   scale: readonly number[],
 ): TrajectoryPoint[] {
-  const n = ref.length;
   const points: TrajectoryPoint[] = [];
+  walkPeriod(phases, output, ref, d0, scale, true, (phase, tau, t, d, w) => points.push({ phase, tau, t, d, w }));
+  return points;
+}
+
+/**
+ * The points of periodTrajectoryPoints handed to `visit` in order, without a list: `visit(phase,
+ * tau, t, d, w)`. With `fresh` every point's state d is an array of its own (the caller may keep
+ * it); without, the grid points' states alternate between two arrays that later steps overwrite
+ * (for a caller that reads d at once, or only w and t: the periodic orbit's extremes). The same
+ * operations either way, so the same numbers.
+ *
+ * Syntax: walkPeriod(phases, output, ref, d0, scale, fresh, visit)
+ * Example: walkPeriod(flows, c, xs, zeros(n), scale, false, (p, tau, t, d, w) => { peak = Math.max(peak, w); })
+ * See also: periodTrajectoryPoints
+ */
+export function walkPeriod(
+  phases: readonly PhaseFlows[],
+  output: readonly number[],
+  ref: readonly number[],
+  d0: readonly number[],
+  scale: readonly number[],
+  fresh: boolean,
+  visit: (phase: number, tau: number, t: number, d: readonly number[], w: number) => void,
+): void {
+  const n = ref.length;
   let d = [...d0];
+  let spare = fresh ? d : new Array<number>(n).fill(0);
   let t0 = 0;
-  points.push({ phase: 0, tau: 0, t: 0, d, w: dot(output, d) });
-  // g = x* - x as a deviation (target - d), reused from step to step; each point keeps its own d.
+  visit(0, 0, 0, d, dot(output, d));
+  // g = x* - x as a deviation (target - d), reused from step to step.
   const g = new Array<number>(n).fill(0);
-  phases.forEach((ph, p) => {
-    const target = ph.xStar.map((v, i) => v - ref[i]);
+  const target = new Array<number>(n).fill(0);
+  for (let p = 0; p < phases.length; p++) {
+    const ph = phases[p];
+    for (let i = 0; i < n; i++) target[i] = ph.xStar[i] - ref[i];
     const outputRate = ph.outputRate;
     let tau = 0;
     let rate = 0;
@@ -57,7 +85,7 @@ export function periodTrajectoryPoints(
     for (const step of ph.steps) {
       for (let i = 0; i < n; i++) g[i] = target[i] - d[i];
       const K = step.K;
-      const next = new Array<number>(n);
+      const next = fresh ? new Array<number>(n) : spare;
       let nextRate = 0;
       let w = 0;
       for (let i = 0; i < n; i++) {
@@ -70,17 +98,16 @@ export function periodTrajectoryPoints(
       }
       if (rate * nextRate < 0) {
         const turning = refineTurning(ph, g, d, rate, nextRate, step.t, output, scale, n);
-        points.push({ phase: p, tau: tau + turning.delta, t: t0 + tau + turning.delta, d: turning.d, w: dot(output, turning.d) });
+        visit(p, tau + turning.delta, t0 + tau + turning.delta, turning.d, dot(output, turning.d));
       }
       tau += step.t;
+      spare = d;
       d = next;
       rate = nextRate;
-      points.push({ phase: p, tau, t: t0 + tau, d, w });
+      visit(p, tau, t0 + tau, d, w);
     }
     t0 += ph.duration;
-  });
-  // The last point is the period end: report it at exactly T.
-  return points;
+  }
 }
 
 /**
