@@ -34,9 +34,18 @@ export async function toleranceStudy(
   options: ParallelOptions = {},
 ): Promise<ToleranceStudyResult> {
   const engine = engineOfCircuit(circuit, project.file);
-  // The command's study covers the gain check too (model.md 1.1), as analyze and check do.
-  const wc = worstCase(project, circuit, { confirmWithEngine: true, gain: true });
-  const mc = await monteCarloParallel(project, circuit, { ...options, gain: true });
+  // The command's study covers the gain check too (model.md 1.1), as analyze and check do. The
+  // worst case runs on this thread while the Monte Carlo workers start and take samples.
+  let wc: WorstCaseResult | undefined;
+  const mc = await monteCarloParallel(project, circuit, {
+    ...options,
+    gain: true,
+    alongside: () => {
+      options.alongside?.();
+      wc = worstCase(project, circuit, { confirmWithEngine: true, gain: true });
+    },
+  });
+  if (!wc) throw new Error('toleranceStudy: the worst case did not run');
   const warnings = [
     ...plausibilityWarnings(project, engine.warningFigures(project.pwm.duty.min, project.pwm.duty.max)),
     ...toleranceWarnings(project, circuit),

@@ -108,4 +108,34 @@ describe('monteCarlo', () => {
       expect(parallel.yield).toBe(inProcess.yield);
     }
   });
+
+  it('with work alongside: runs it once on this thread, the same result; an error there stops the run', async () => {
+    const p = project(
+      [stage(2.2e3, 470e-9), stage(10e3, 47e-9)],
+      { samples: 1500, seed: 4, driver: { high: { min: 20, max: 60 }, low: { min: 15, max: 40 } } },
+      { spec: { ripple: 1e-3, settling: { band: 1.6e-3, time: 0.02 } } },
+    );
+    const inProcess = monteCarlo(p);
+    let runs = 0;
+    let seen = 0;
+    const parallel = await monteCarloParallel(p, undefined, {
+      workers: 2,
+      minSamplesPerThread: 300,
+      alongside: () => runs++,
+      onProgress: (done) => (seen = Math.max(seen, done)),
+    });
+    expect(runs).toBe(1);
+    expect(seen).toBe(1500);
+    expect(parallel.values.worstRipple).toEqual(inProcess.values.worstRipple);
+    expect(parallel.values.settlingTime).toEqual(inProcess.values.settlingTime);
+    await expect(
+      monteCarloParallel(p, undefined, {
+        workers: 2,
+        minSamplesPerThread: 300,
+        alongside: () => {
+          throw new Error('alongside failed');
+        },
+      }),
+    ).rejects.toThrow('alongside failed');
+  });
 });
