@@ -51,5 +51,6 @@ export function periodStart(phases: readonly PeriodPhase[], n: number, period: n
   }
   const u = solveLinear(S, n, acc);
   if (!u) throw new RangeError('periodStart: the period map has no unique fixed point');
-  return { start: r.map((v, i) => v + u[i]), S };
+  for (let i = 0; i < n; i++) r[i] += u[i];
+  return { start: r, S };
 }

@@ -22,6 +22,10 @@ export interface PeriodicOrbit {
   readonly tMax: number;
 }
 
+/** Scratch of the average's loop (periodicOrbit does not re-enter). */
+let AVERAGE_D: number[] = [];
+let AVERAGE_G: number[] = [];
+
 /**
  * Exact periodic steady state of a network (two PWM outputs, RC and Sallen-Key stages) at the given
  * duties: start state, time-average output and the extremes of the output over one period.
@@ -76,25 +80,32 @@ export function periodicOrbit(network: Network, duties: Duties, withExtrema = tr
       first = false;
     });
   }
-  // Average: integral of d over each phase, t_p d_p + J_p (x*_p - x_s - d_p).
+  // Average: integral of d over each phase, t_p d_p + J_p (x*_p - x_s - d_p); d and g in scratch
+  // arrays (d_i is read before it is moved on, and g holds what the next row needs).
   let integral = withAverage ? 0 : NaN;
-  let d = new Array<number>(n).fill(0);
-  for (const ph of withAverage ? phases : []) {
-    const g = ph.xStar.map((v, i) => v - start[i] - d[i]);
-    const J = ph.full.J!;
-    const K = ph.full.K;
-    const next = d.slice();
-    for (let i = 0; i < n; i++) {
-      let jg = 0;
-      let kg = 0;
-      for (let j = 0; j < n; j++) {
-        jg += J[i * n + j] * g[j];
-        kg += K[i * n + j] * g[j];
-      }
-      integral += c[i] * (ph.duration * d[i] + jg);
-      next[i] += kg;
+  if (withAverage) {
+    if (AVERAGE_D.length < n) {
+      AVERAGE_D = new Array<number>(n).fill(0);
+      AVERAGE_G = new Array<number>(n).fill(0);
     }
-    d = next;
+    const d = AVERAGE_D;
+    const g = AVERAGE_G;
+    for (let i = 0; i < n; i++) d[i] = 0;
+    for (const ph of phases) {
+      for (let i = 0; i < n; i++) g[i] = ph.xStar[i] - start[i] - d[i];
+      const J = ph.full.J!;
+      const K = ph.full.K;
+      for (let i = 0; i < n; i++) {
+        let jg = 0;
+        let kg = 0;
+        for (let j = 0; j < n; j++) {
+          jg += J[i * n + j] * g[j];
+          kg += K[i * n + j] * g[j];
+        }
+        integral += c[i] * (ph.duration * d[i] + jg);
+        d[i] += kg;
+      }
+    }
   }
   let yStart = 0;
   for (let i = 0; i < n; i++) yStart += c[i] * start[i];

@@ -47,6 +47,10 @@ export function periodTrajectoryPoints(
   return points;
 }
 
+/** Scratch of walkPeriod. */
+let WALK_G: number[] = [];
+let WALK_TARGET: number[] = [];
+
 /**
  * The points of periodTrajectoryPoints handed to `visit` in order, without a list: `visit(phase,
  * tau, t, d, w)`. With `fresh` every point's state d is an array of its own (the caller may keep
@@ -72,9 +76,14 @@ export function walkPeriod(
   let spare = fresh ? d : new Array<number>(n).fill(0);
   let t0 = 0;
   visit(0, 0, 0, d, dot(output, d));
-  // g = x* - x as a deviation (target - d), reused from step to step.
-  const g = new Array<number>(n).fill(0);
-  const target = new Array<number>(n).fill(0);
+  // g = x* - x as a deviation (target - d), reused from step to step; both in scratch arrays
+  // (walkPeriod does not re-enter: refineTurning reads g at once).
+  if (WALK_G.length < n) {
+    WALK_G = new Array<number>(n).fill(0);
+    WALK_TARGET = new Array<number>(n).fill(0);
+  }
+  const g = WALK_G;
+  const target = WALK_TARGET;
   for (let p = 0; p < phases.length; p++) {
     const ph = phases[p];
     for (let i = 0; i < n; i++) target[i] = ph.xStar[i] - ref[i];
