@@ -134,6 +134,10 @@ export async function monteCarloParallel(
       });
     });
   });
+  // Observed from the start: a worker that fails while this thread still works (or after the run
+  // was stopped and its workers terminated) must not surface as an unhandled rejection; the
+  // Promise.all below still throws its error.
+  for (const running of inWorkers) running.catch(() => undefined);
   try {
     options.alongside?.();
     // This thread claims slices too, yielding between them so the workers' messages get through.

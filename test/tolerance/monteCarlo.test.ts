@@ -137,5 +137,18 @@ describe('monteCarlo', () => {
         },
       }),
     ).rejects.toThrow('alongside failed');
+    // A worker that fails at once, while this thread is still busy: its error comes out of the run,
+    // and no unhandled rejection escapes meanwhile (vitest fails a run that has one).
+    await expect(
+      monteCarloParallel(p, undefined, {
+        workers: 2,
+        minSamplesPerThread: 300,
+        workerUrl: new URL('data:text/javascript,throw new Error("worker failed at start")'),
+        alongside: () => {
+          const until = Date.now() + 400;
+          while (Date.now() < until);
+        },
+      }),
+    ).rejects.toThrow('worker failed at start');
   });
 });
