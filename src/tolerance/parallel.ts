@@ -92,7 +92,6 @@ export async function monteCarloParallel(
     const table = evaluateSamples(setup.circuit, parameters, setup.plan, setup.deviates, 0, samples, progress && ((d) => progress(d, samples)));
     return monteCarloResult(setup, table);
   }
-  const width = parameters.length;
   // Slices small enough to even out the threads' ends (the workers start cold, this thread warm),
   // large enough that claiming and messages cost nothing: about 48 per thread, at most 64 network
   // samples (about 1 ms each) or 4 096 ladder samples (about 10 us each).

@@ -22,7 +22,8 @@ export interface ToleranceStudyResult {
  * nominal circuit, for a ladder or a network (second PWM output, Sallen-Key stages; model.md 1.1).
  *
  * Method: the circuit's engine refuses a circuit outside the numerical domain first
- * (engineOfCircuit); worstCase and monteCarloParallel (see there); plausibilityWarnings and
+ * (engineOfCircuit); worstCase and monteCarloParallel (see there), the worst case on this thread
+ * while the Monte Carlo workers start (monteCarloParallel's `alongside`); plausibilityWarnings and
  * toleranceWarnings.
  *
  * Syntax: await toleranceStudy(project[, circuit, { samples, seed, distribution, workers, onProgress }])
