@@ -84,7 +84,7 @@ export function periodicOrbit(network: Network, duties: Duties, withExtrema = tr
   // arrays (d_i is read before it is moved on, and g holds what the next row needs).
   let integral = withAverage ? 0 : NaN;
   if (withAverage) {
-    if (AVERAGE_D.length < n) {
+    if (AVERAGE_D.length !== n) {
       AVERAGE_D = new Array<number>(n).fill(0);
       AVERAGE_G = new Array<number>(n).fill(0);
     }

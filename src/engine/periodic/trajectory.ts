@@ -47,7 +47,7 @@ export function periodTrajectoryPoints(
   return points;
 }
 
-/** Scratch of walkPeriod. */
+/** Scratch of walkPeriod, n long (g goes on to the series of phaseSeries.ts, which map over it). */
 let WALK_G: number[] = [];
 let WALK_TARGET: number[] = [];
 
@@ -78,7 +78,7 @@ export function walkPeriod(
   visit(0, 0, 0, d, dot(output, d));
   // g = x* - x as a deviation (target - d), reused from step to step; both in scratch arrays
   // (walkPeriod does not re-enter: refineTurning reads g at once).
-  if (WALK_G.length < n) {
+  if (WALK_G.length !== n) {
     WALK_G = new Array<number>(n).fill(0);
     WALK_TARGET = new Array<number>(n).fill(0);
   }
