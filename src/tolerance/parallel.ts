@@ -2,6 +2,7 @@ import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import type { Project } from '../project/types.js';
+import { claimSlice } from './claimSlice.js';
 import { evaluateSamples, type SampleTable } from './evaluateSamples.js';
 import type { MetricPlan } from './metricPlan.js';
 import { monteCarloResult, monteCarloSetup, type MonteCarloOptions, type MonteCarloResult } from './monteCarlo.js';
@@ -10,8 +11,7 @@ import { isNetwork, type ToleranceCircuit } from './toleranceCircuit.js';
 
 /**
  * What every worker evaluates: the samples in slices of `slice`, each slice taken by whichever
- * thread claims it first (`claims[0]`, the next slice index, raised with Atomics.add by every
- * thread, the calling one included).
+ * thread claims it first (claimSlice.ts; the calling thread claims too).
  */
 export interface WorkerJob {
   /** The nominal ladder or network (plain data: structured cloning copies it). */
@@ -96,16 +96,15 @@ export async function monteCarloParallel(
   // large enough that claiming and messages cost nothing: about 48 per thread, at most 64 network
   // samples (about 1 ms each) or 4 096 ladder samples (about 10 us each).
   const slice = Math.max(1, Math.min(Math.ceil(samples / (workers * 48)), isNetwork(setup.circuit) ? 64 : 4096));
-  const slices = Math.ceil(samples / slice);
   const shared = new Float64Array(new SharedArrayBuffer(setup.deviates.length * Float64Array.BYTES_PER_ELEMENT));
   shared.set(setup.deviates);
   const claims = new Int32Array(new SharedArrayBuffer(Int32Array.BYTES_PER_ELEMENT));
   const job: WorkerJob = { circuit: setup.circuit, parameters, plan: setup.plan, deviates: shared, count: samples, slice, claims };
-  const tables = new Array<SampleTable | undefined>(slices);
+  const tables: SampleTable[] = [];
   let done = 0;
   const finished = (index: number, table: SampleTable) => {
     tables[index] = table;
-    done += Math.min(samples, (index + 1) * slice) - index * slice;
+    done += table.worstRipple.length;
     progress?.(done, samples);
   };
   // Workers first, so that they load while this thread works.
@@ -140,9 +139,8 @@ export async function monteCarloParallel(
   try {
     options.alongside?.();
     // This thread claims slices too, yielding between them so the workers' messages get through.
-    for (let index = Atomics.add(claims, 0, 1); index < slices; index = Atomics.add(claims, 0, 1)) {
-      const first = index * slice;
-      finished(index, evaluateSamples(setup.circuit, parameters, setup.plan, setup.deviates, first, Math.min(samples, first + slice)));
+    for (let s = claimSlice(claims, slice, samples); s !== null; s = claimSlice(claims, slice, samples)) {
+      finished(s.index, evaluateSamples(setup.circuit, parameters, setup.plan, setup.deviates, s.first, s.last));
       await new Promise<void>((resolve) => setImmediate(resolve));
     }
     await Promise.all(inWorkers);
@@ -150,7 +148,7 @@ export async function monteCarloParallel(
     for (const worker of started) void worker.terminate();
     throw error;
   }
-  return monteCarloResult(setup, concatTables(tables as SampleTable[]));
+  return monteCarloResult(setup, concatTables(tables));
 }
 
 function concatTables(tables: SampleTable[]): SampleTable {

@@ -1,5 +1,5 @@
 import type { Duties, Network } from '../../circuit/network.js';
-import { identity, matmul } from '../../numeric/dense.js';
+import { identity, matmul, matvec } from '../../numeric/dense.js';
 import { luFactor, luSolve, solveLinear } from '../../numeric/lu.js';
 import { brentRoot } from '../../numeric/brentRoot.js';
 import { periodPowers, type PeriodPowers } from '../periodPowers.js';
@@ -17,9 +17,8 @@ export interface NetworkSettling {
 
 /** Most sampled periods per scan of the transient (below the proven-safe period). */
 const SCAN_SAMPLES = 1024;
-/** Scratch: a scan's sampled deltas, and the one being checked (periodicSettling does not re-enter). */
-let SAMPLE_DELTAS = new Float64Array(0);
-const PROBE: number[] = [];
+/** Scratch: a scan's sampled deltas, n long each (periodicSettling does not re-enter). */
+let SAMPLE_DELTAS: number[][] = [];
 
 /**
  * Settling time after the duties change from `from` to `to` at a period start, the network having
@@ -77,32 +76,23 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   let step = Math.max(1, Math.ceil(safeFrom / SCAN_SAMPLES));
   if (ringing > 0) step = Math.min(step, Math.max(1, Math.floor(0.2 / (ringing * T))));
   // Sample periods 0, step, 2 step, ... below safeFrom, keeping each delta: M^step is formed once
-  // (its columns by binary powering, periodPowers.ts), then one product per sample.
-  // Sample i is period i step; the deltas one after another in one scratch array (a scan keeps up to
-  // 4 SCAN_SAMPLES + 9 of them: no array per sample).
+  // (its columns by binary powering, periodPowers.ts), then one product per sample. Sample i is
+  // period i step, its delta in SAMPLE_DELTAS[i] (arrays kept from scan to scan: none per sample).
   const stepMap = stepMatrix(powers, step, n);
   const most = 4 * SCAN_SAMPLES + 9;
-  if (SAMPLE_DELTAS.length < most * n) SAMPLE_DELTAS = new Float64Array(most * n);
+  if (SAMPLE_DELTAS.length === 0 || SAMPLE_DELTAS[0].length !== n) SAMPLE_DELTAS = [new Array<number>(n).fill(0)];
   const deltas = SAMPLE_DELTAS;
   let count = 0;
-  for (let i = 0; i < n; i++) deltas[i] = delta0[i];
+  for (let i = 0; i < n; i++) deltas[0][i] = delta0[i];
   for (let m = 0; m < safeFrom; m += step) {
     count++;
     if (count >= most || m + step >= safeFrom) break;
-    // the next sample: stepMap times this one (matvec's order of operations)
-    const from = (count - 1) * n;
-    for (let i = 0; i < n; i++) {
-      let sum = 0;
-      for (let k = 0; k < n; k++) sum += stepMap[i * n + k] * deltas[from + k];
-      deltas[from + n + i] = sum;
-    }
+    if (deltas.length === count) deltas.push(new Array<number>(n).fill(0));
+    matvec(stepMap, deltas[count - 1], n, deltas[count]);
   }
-  const sampleDelta = (i: number): number[] => Array.from(deltas.subarray(i * n, i * n + n));
   let last = -1;
-  PROBE.length = n;
   for (let i = count - 1; i >= 0; i--) {
-    for (let k = 0; k < n; k++) PROBE[k] = deltas[i * n + k];
-    if (violatesFrom(PROBE)) {
+    if (violatesFrom(deltas[i])) {
       last = i;
       break;
     }
@@ -110,7 +100,7 @@ export function periodicSettling(network: Network, from: Duties, to: Duties, ban
   if (last < 0) return { time: 0, final: avg };
   // Refine to the last violating period in [m_last, next sample).
   let lo = last * step;
-  let loDelta = sampleDelta(last);
+  let loDelta = deltas[last].slice();
   let hi = last + 1 < count ? (last + 1) * step : safeFrom;
   while (hi - lo > 1) {
     const mid = Math.floor((lo + hi) / 2);
