@@ -115,12 +115,8 @@ function paretoThreshold(pareto: ParetoState, ripple: number): number {
  * the load; with unequal drivers also the fast model's exact endpoint averages); the ripple at the duty nearest 50 % over the limit; never
  * settling; settling lower bound over the time limit.
  *
- * Droop floor from the resistors alone (high-side driver resistance >= low-side, low >= 0, a load):
- * in periodic steady state the capacitors carry no average current, so with I_L = v_out / R_L,
- * ideal - v_out = I_L (R_dl + sum R) + (R_dh - R_dl) Q_h, Q_h >= 0 the charge per period the pin
- * delivers while high (the first node never exceeds the high level); hence droop >= ideal R_s /
- * (R_L + R_s), R_s = R_dl + sum R (exact for equal drivers). Derived here from Kirchhoff's laws;
- * test/design/settlingBounds.test.ts checks it against the engine.
+ * The droop floor from the resistors alone (the listing's, resistiveDroop.ts: DC current balance,
+ * droop >= ideal S / (R_L + S) with S the driver and series resistance) rules out whole tuples.
  *
  * Every limit is problem.searchLimits (the file's, less search.margin). With a follower after the
  * last stage (problem.buffered) the ladder is unloaded (problem.circuit) and every bound here

@@ -1,4 +1,5 @@
 import { formatEng } from '../units/index.js';
+import { resistiveDroop, resistiveDroopFloor } from './resistiveDroop.js';
 import type { DesignProblem } from './designProblem.js';
 import { settlingLogFactor, transferCap } from './settlingBounds.js';
 import { threeStageTauMin } from './threeStageSpread.js';
@@ -30,9 +31,9 @@ export interface SpaceBounds {
  * Method, each a true bound on the engine's figure:
  * - Pin current (Ohm's law): the pin peak current is (high - low) / (driver + R1) with the smaller
  *   driver resistance, so R1 >= (high - low) / I_max - driver.
- * - Droop (DC current balance, derived in collectCandidates.ts; high-side driver resistance >=
- *   low-side, low >= 0, a load R_L): droop >= ideal_top S / (R_L + S), S = R_driver,low + sum R,
- *   so S <= R_L droop / (ideal_top - droop).
+ * - Droop (DC current balance, resistiveDroop.ts; a load R_L, and the high level >= 0 with the
+ *   high-side driver resistance >= the low-side one, or the mirror image): droop >= ideal S /
+ *   (R_L + S), S = that side's driver + sum R, so S <= R_L droop / (ideal - droop).
  * - Gain (equal drivers, a load): the ladder is linear and time-invariant, the average output is
  *   g (low + D (high - low)) with g = R_L / (R_L + S), so the endpoint-fit gain error is 1 - g
  *   exactly, and S <= R_L gain / (1 - gain).
@@ -96,19 +97,25 @@ export function infeasibilityBounds(problem: DesignProblem, stages: number): { m
   // Series resistance (driver + sum R), smallest and the caps from droop and gain.
   const seriesMin = dLow + (Number.isFinite(r1Min) ? r1Min : rMax) + (stages - 1) * rMin;
   let seriesMax = Math.max(pwm.driver.high, pwm.driver.low) + stages * rMax;
-  const idealTop = Math.max(pwm.low + dutyMin * (pwm.high - pwm.low), pwm.low + dutyMax * (pwm.high - pwm.low));
-  if (limits.droop !== undefined && loadR !== null && pwm.driver.high >= pwm.driver.low && pwm.low >= 0) {
-    const floor = (idealTop * seriesMin) / (loadR + seriesMin);
-    if (over(floor, limits.droop)) {
+  const droop = limits.droop !== undefined ? resistiveDroop(problem.circuit, dutyMin, dutyMax) : null;
+  if (droop !== null) {
+    // The plan's driver may be the high-side one (resistiveDroop.ts); seriesMin counts the low side's.
+    const shift = droop.driver - dLow;
+    const series = shift === 0 ? seriesMin : seriesMin + shift;
+    const floor = resistiveDroopFloor(droop, series);
+    if (over(floor, limits.droop!)) {
       misses.push({
         stages,
         limit: 'droop',
         reach: floor,
-        limitValue: limits.droop,
-        reason: `droop: with the load the smallest ${stages}-stage ladder (${formatEng(seriesMin, 'Ω')} in series, driver included) already loses ${formatEng(floor, 'V')}`,
+        limitValue: limits.droop!,
+        reason: `droop: with the load the smallest ${stages}-stage ladder (${formatEng(series, 'Ω')} in series, driver included) already loses ${formatEng(floor, 'V')}`,
       });
     }
-    if (idealTop > limits.droop) seriesMax = Math.min(seriesMax, (loadR * limits.droop) / (idealTop - limits.droop));
+    if (droop.ideal > limits.droop!) {
+      const cap = (droop.load * limits.droop!) / (droop.ideal - limits.droop!);
+      seriesMax = Math.min(seriesMax, shift === 0 ? cap : cap - shift);
+    }
   }
   const gainLimit = project.spec.gain;
   if (gainLimit !== undefined && lti && loadR !== null) {

@@ -1,6 +1,7 @@
 import type { DesignProblem } from './designProblem.js';
 import { droopFloor, droopFloorPlan } from './droopFloor.js';
 import { gainFloor } from './gainFloor.js';
+import { resistiveDroop, resistiveDroopFloor } from './resistiveDroop.js';
 import { exceeds } from './searchAllowance.js';
 import { doubles } from '../numeric/dense.js';
 import { tupleBounds, type TupleBounds } from './settlingBounds.js';
@@ -105,9 +106,9 @@ export function listTuples(
   const span = Math.abs(pwm.high - pwm.low);
   const nR = R.length;
   const loadR = circuit.loadResistance;
-  const droopFloorApplies = pwm.driver.high >= pwm.driver.low && pwm.low >= 0 && loadR !== null && limits.droop !== undefined;
+  // The droop floor of the series resistance (resistiveDroop.ts), where it applies.
+  const seriesDroop = limits.droop !== undefined ? resistiveDroop(circuit, problem.dutyMin, problem.dutyMax) : null;
   const gainFloorApplies = loadR !== null && limits.gain !== undefined;
-  const idealTop = Math.max(pwm.low + problem.dutyMin * (pwm.high - pwm.low), pwm.low + problem.dutyMax * (pwm.high - pwm.low));
   const minC = doubles(stages).fill(problem.cValues[0]);
   // (typed arrays grown by doubling: a JS array per tuple cost seconds of garbage collection on
   // a three-stage E96 space)
@@ -126,11 +127,11 @@ export function listTuples(
   let nextReport = 0xffff;
   const minSeries = (depth: number): number => {
     // the series resistance with the later resistors at their smallest, summed as for a whole tuple
-    let series = pwm.driver.low;
+    let series = seriesDroop!.driver;
     for (let k = 0; k < stages; k++) series += k <= depth ? scratch[k] : R[0];
     return series;
   };
-  const droopOver = (series: number) => exceeds((idealTop * series) / (loadR! + series), limits.droop);
+  const droopOver = (series: number) => exceeds(resistiveDroopFloor(seriesDroop!, series), limits.droop);
   // Depth-first in the order of the tuples' index (the first resistor most significant), so the
   // list comes out in the same order as a plain count through every tuple. A subtree whose checks
   // fail for every tuple in it is skipped whole: the pin current depends on the first resistor
@@ -152,7 +153,7 @@ export function listTuples(
       at[depth] = i;
       if (depth === 0 && limits.pinCurrent !== undefined && exceeds(span / (Math.min(pwm.driver.high, pwm.driver.low) + scratch[0]), limits.pinCurrent)) continue;
       // (every later value of this resistor only raises the series resistance)
-      if (droopFloorApplies && droopOver(minSeries(depth))) return;
+      if (seriesDroop !== null && droopOver(minSeries(depth))) return;
       if (depth < stages - 1) {
         visit(depth + 1, position);
         if (state.cut) return;

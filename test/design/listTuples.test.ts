@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { designProblem, type DesignProblem } from '../../src/design/designProblem.js';
 import { droopFloor, droopFloorPlan, type DroopFloorPlan } from '../../src/design/droopFloor.js';
 import { gainFloor } from '../../src/design/gainFloor.js';
+import { resistiveDroop, resistiveDroopFloor } from '../../src/design/resistiveDroop.js';
 import { listTuples, tupleFloor, tupleOf, tupleQueue } from '../../src/design/listTuples.js';
 import { exceeds } from '../../src/design/searchAllowance.js';
 import { tupleBounds } from '../../src/design/settlingBounds.js';
@@ -20,7 +21,7 @@ function listedOneByOne(problem: DesignProblem, stages: number, theta: number): 
   const { pwm } = project;
   const span = Math.abs(pwm.high - pwm.low);
   const loadR = circuit.loadResistance;
-  const idealTop = Math.max(pwm.low + problem.dutyMin * (pwm.high - pwm.low), pwm.low + problem.dutyMax * (pwm.high - pwm.low));
+  const seriesDroop = limits.droop !== undefined ? resistiveDroop(circuit, problem.dutyMin, problem.dutyMax) : null;
   const minC = new Array<number>(stages).fill(problem.cValues[0]);
   const tuples: number[][] = [];
   const keys: number[] = [];
@@ -28,9 +29,9 @@ function listedOneByOne(problem: DesignProblem, stages: number, theta: number): 
     const rs: number[] = [];
     for (let k = 0, rest = count; k < stages; k++, rest = Math.floor(rest / R.length)) rs.unshift(R[rest % R.length]);
     if (limits.pinCurrent !== undefined && exceeds(span / (Math.min(pwm.driver.high, pwm.driver.low) + rs[0]), limits.pinCurrent)) continue;
-    if (pwm.driver.high >= pwm.driver.low && pwm.low >= 0 && loadR !== null && limits.droop !== undefined) {
-      const series = rs.reduce((s, r) => s + r, pwm.driver.low);
-      if (exceeds((idealTop * series) / (loadR + series), limits.droop)) continue;
+    if (seriesDroop !== null) {
+      const series = rs.reduce((s, r) => s + r, seriesDroop.driver);
+      if (exceeds(resistiveDroopFloor(seriesDroop, series), limits.droop)) continue;
     }
     if (loadR !== null && limits.gain !== undefined && exceeds(gainFloor(circuit, rs, problem.dutyMin, problem.dutyMax), limits.gain)) continue;
     if (pwm.driver.high !== pwm.driver.low && limits.droop !== undefined) {
