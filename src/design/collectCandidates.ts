@@ -185,7 +185,7 @@ export function collectCandidates(
       plan = inlFloorPlan(problem, rs);
       inlPlans.set(rs, plan);
     }
-    return plan !== null && inlFloor(plan, cs) > problem.limits.inl! * (1 + REL) + 1e-15;
+    return plan !== null && inlFloor(plan, cs) > limits.inl! * (1 + REL) + 1e-15;
   };
   // Unequal drivers with a droop limit: likewise a floor on the droop (droopFloor.ts), per resistor
   // tuple; it rules out only points the fast droop check (same grid duties, same allowance) rules
@@ -455,10 +455,18 @@ export function collectCandidates(
     return true;
   };
 
+  // Evaluation count at the last reading of the clock.
+  let clockRead = state.evaluated;
   const overBudget = () => {
     if (state.cut) return true;
-    // The clock is read every 256 evaluations: a few microseconds late at most.
-    const late = (state.evaluated & 255) === 0 && timeIsUp(state);
+    // The clock is read once 256 evaluations have passed since the last reading: a few
+    // milliseconds late at most. (Reading it only when the count was a multiple of 256 missed
+    // most multiples, since ripple checks count between calls: a two-stage walk never read it.)
+    let late = false;
+    if (state.evaluated - clockRead >= 256) {
+      clockRead = state.evaluated;
+      late = timeIsUp(state);
+    }
     if (!late && (state.budget === undefined || state.evaluated <= state.budget)) return false;
     state.cut = true;
     return true;

@@ -13,8 +13,9 @@ const MIDDLE_FIRST = [4, 2, 6, 1, 3, 5, 7];
  * 'inl', 'gain', or null when neither is proven missed.
  *
  * Method: the engine's figures (engine/dcTransfer.ts) are fit = the line through average(dutyMin)
- * and average(dutyMax); gain error = slope - (high - low), as a fraction of full scale for
- * spec.gain; INL = the largest |average - fit| over the range. The gain error needs only the two
+ * and average(dutyMax); gain error = slope - (high - low), as a fraction of full scale for the
+ * gain limit; INL = the largest |average - fit| over the range. Both limits are the search's
+ * (problem.searchLimits: the file's less search.margin). The gain error needs only the two
  * endpoints, so the value here is the engine's (to rounding). The INL here is the largest deviation
  * on GRID + 1 evenly spaced duties: the maximum over the range is at least the value at any duty
  * in it, so this is a true lower bound. With equal driver resistances the ladder is linear and
@@ -25,9 +26,11 @@ const MIDDLE_FIRST = [4, 2, 6, 1, 3, 5, 7];
  * Example: dcTransferMiss(problem, (d) => steadySwing(modalLadderOf(problem.circuit, r, c), d).average)   // 'inl'
  */
 export function dcTransferMiss(problem: DesignProblem, average: (duty: number) => number): 'inl' | 'gain' | null {
-  const { pwm, spec } = problem.project;
-  const inlLimit = problem.limits.inl;
-  const gainLimit = spec.gain;
+  const { pwm } = problem.project;
+  // The limits less search.margin, as every other check of the search: a design that meets the
+  // file's limit but not the margin is not recommended, so it must not lower the walk's threshold.
+  const inlLimit = problem.searchLimits.inl;
+  const gainLimit = problem.searchLimits.gain;
   const checkInl = inlLimit !== undefined && pwm.driver.high !== pwm.driver.low;
   if (!checkInl && gainLimit === undefined) return null;
   const { dutyMin: a, dutyMax: b } = problem;

@@ -40,6 +40,9 @@ export interface SolveOptions {
   admit?: Admit;
 }
 
+/** Time past the deadline for verifying what a cut walk collected, ms. */
+export const VERIFY_GRACE = 1000;
+
 /** Growth of theta per extra collection round when the walk's threshold proved too low. */
 const WIDEN = 2;
 
@@ -92,8 +95,11 @@ export function solveProblem(
     for (const e of entries) {
       if (e.lb > tN * (1 + REL) + 1e-12) break;
       if (options.deadline !== undefined && performance.now() > options.deadline) {
-        state.cut = true; // out of time: the designs verified so far stand, unproven as the best
-        break;
+        // Out of time: the designs verified so far stand, unproven as the best. A walk the deadline
+        // cut has verified none yet: its best candidates still are, until `top` pass or for
+        // VERIFY_GRACE more, so that the answer shows what the walk found.
+        state.cut = true;
+        if (ranked.length >= top || performance.now() > options.deadline + VERIFY_GRACE) break;
       }
       if (e.ruledOut || verified.has(e)) continue;
       if (problem.searchLimits.ripple !== undefined) {

@@ -158,10 +158,11 @@ describe('tolerance.stages longer than the filter', () => {
 
 describe('design --max-time stops a long search cleanly', () => {
   it('marks the result incomplete (JSON complete: false) and says so, without an explanation it had no time for', () => {
-    // Two and three stages of E96 at three resolutions: many minutes without a time limit. The
-    // time runs out while the 17 million three-stage resistor tuples are still being listed, which
-    // must stop too (the listing took about 30 s of its own before it checked the clock).
-    const file = join(root, 'test', 'fixtures', 'projects', 'valid-full.yaml');
+    // Three stages of E96 at three resolutions, with and without a follower: many minutes without
+    // a time limit. The time runs out while the 17 million three-stage resistor tuples are still
+    // being listed, which must stop too (the listing took about 30 s of its own before it checked
+    // the clock).
+    const file = join(root, 'test', 'fixtures', 'projects', 'long-search.yaml');
     const r = runBuilt(['design', file, '--max-time', '1', '--format', 'json', '--no-charts']);
     expect(r.code).toBe(1);
     const out = JSON.parse(r.stdout);
