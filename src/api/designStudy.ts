@@ -27,6 +27,8 @@ export interface DesignStudy {
   result: AnyDesignResult;
   tradeoff?: TradeoffCurve<AnyCandidateStage>[];
   robust?: RobustResult;
+  /** The curves were asked for but the deadline came first (before them, or while they ran). */
+  tradeoffOutOfTime?: boolean;
 }
 
 /**
@@ -61,9 +63,11 @@ export function designStudy(project: Project, options: DesignStudyOptions = {}):
     });
   }
   let tradeoff: TradeoffCurve[] | undefined;
+  let tradeoffOutOfTime = false;
   // Nothing feasible: the explanation carries the numbers; curves would rerun many empty searches.
   // Out of time (--max-time): no curves either; the report says the search is incomplete.
   const inTime = options.deadline === undefined || (result.complete !== false && performance.now() < options.deadline);
+  if (charts && result.feasible && !inTime) tradeoffOutOfTime = true;
   if (charts && result.feasible && inTime) {
     const best = result.candidates[0];
     const atBits = result.resolutions.length > 0 && best?.bits != null ? best.bits : undefined;
@@ -74,11 +78,17 @@ export function designStudy(project: Project, options: DesignStudyOptions = {}):
     if (center !== undefined && center > 0) {
       tradeoff = tradeoffCurves(project, result.basis.stageCounts, center, {
         ...(atBits !== undefined && { bits: atBits }),
+        ...(options.deadline !== undefined && { deadline: options.deadline }),
         ...(report && { onProgress: (f: number) => report(0.5 + 0.5 * f, { phase: 'curves' }) }),
       });
+      // Given up at the deadline (they are [] then; the stage counts are never empty here).
+      if (tradeoff.length === 0) {
+        tradeoff = undefined;
+        tradeoffOutOfTime = true;
+      }
     }
   }
-  return { result, ...(tradeoff && { tradeoff }), ...(robust && { robust }) };
+  return { result, ...(tradeoff && { tradeoff }), ...(robust && { robust }), ...(tradeoffOutOfTime && { tradeoffOutOfTime }) };
 }
 
 /** designStudy for a version 1.1 circuit (design/network/networkDesignStudy.ts). */

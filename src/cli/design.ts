@@ -90,7 +90,7 @@ export async function runDesign(
   } finally {
     bar?.done();
   }
-  const { result, tradeoff, robust } = study;
+  const { result, tradeoff, robust, tradeoffOutOfTime } = study;
 
   let written: string | undefined;
   let changes;
@@ -117,6 +117,7 @@ export async function runDesign(
     color: args.format === 'text' && tty.color,
     ...(written && { written, changes }),
     ...(robust && { robust }),
+    ...(tradeoffOutOfTime && { tradeoffOutOfTime }),
     width,
   };
   const stdout = designReport(project, result, args.format, options);

@@ -15,6 +15,8 @@ import { LIST_SHARE, listTuples, timeIsUp, tupleFloor, tupleQueue } from './list
 import { exceeds, REL } from './searchAllowance.js';
 import { doubles, emptyDoubles } from '../numeric/dense.js';
 
+/** Columns held back while no threshold is known, at most (their inner points are then walked). */
+const DEFER_CAP = 100_000;
 /** Absolute allowance on times, s. */
 const ABS_T = 1e-12;
 /**
@@ -614,7 +616,8 @@ export function collectCandidates(
   }
   const deferred: Column[] = [];
   const finishColumn = (col: Column): void => {
-    for (let b = col.from; b < nC; b++) {
+    // (out of time or budget: evaluate would look at nothing more, so neither does the column)
+    for (let b = col.from; b < nC && !state.cut; b++) {
       const v = col.cs.slice();
       v[col.p] = C[b];
       if (!col.within(v)) break;
@@ -627,7 +630,8 @@ export function collectCandidates(
   const walk = (rs: number[], tb: TupleBounds, key: number): Column[] => {
     if (!budgeted && tb.floor === NO_FLOOR) tb.floor = settlingFloorPlan(problem, rs, limits);
     const pareto = state.pareto;
-    if (!pareto) return walkUnder(rs, tb, (cs) => settlingBoundOf(rs, cs, tb, state.theta) <= state.theta);
+    // (no threshold yet, Infinity: every point is within it, and the floor need not be computed)
+    if (!pareto) return walkUnder(rs, tb, (cs) => state.theta === Infinity || settlingBoundOf(rs, cs, tb, state.theta) <= state.theta);
     // Pareto mode: the union of each limit's region (its staircase, its own threshold), so a
     // loose limit's long columns stop at its own best, not at the tightest limit's. A limit whose
     // own tuple bound (its ripple limit's tauMin and log factor; the tuple order used the loosest
@@ -647,7 +651,7 @@ export function collectCandidates(
       columns.push(
         ...walkUnder(rs, tb, (cs) => {
           const ceiling = cap();
-          return settlingBoundOf(rs, cs, own, ceiling) <= ceiling;
+          return ceiling === Infinity || settlingBoundOf(rs, cs, own, ceiling) <= ceiling;
         }),
       );
     });
@@ -928,8 +932,12 @@ export function collectCandidates(
     if (next === null || overBudget()) break;
     // (the tuple's bounds made again here, as the listing made them for its key: it keeps none)
     const columns = walk(next.rs, tupleBounds(problem, next.rs, limits, NO_FLOOR, budgeted), next.key);
-    if (state.theta === Infinity) deferred.push(...columns);
-    else {
+    if (state.theta === Infinity) {
+      for (const col of columns) deferred.push(col);
+      // No threshold yet after many columns (no settling limit, nothing feasible so far): finish
+      // them now rather than hold them all (a three-stage walk ran out of memory that way).
+      if (deferred.length > DEFER_CAP) while (deferred.length > 0) finishColumn(deferred.pop()!);
+    } else {
       while (deferred.length > 0) finishColumn(deferred.pop()!);
       for (const col of columns) finishColumn(col);
     }

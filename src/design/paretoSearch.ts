@@ -33,10 +33,15 @@ export interface ParetoStats {
  * reach (infeasibilityBounds.ts) under every follower option give null. With follower options
  * (search.buffered) one walk per option, merged by rankCandidates.
  *
- * Syntax: paretoSearch(problems, stages[, stats])
+ * With a `deadline` (performance.now() in ms) a walk still running then stops and the answer is
+ * null: no point is proven.
+ *
+ * Syntax: paretoSearch(problems, stages[, stats[, deadline]])
  * Example: paretoSearch(limits.map((r) => designProblem(withRipple(p, r))), 2).map((c) => c?.settlingTime)
  */
-export function paretoSearch(problems: DesignProblem[], stages: number, stats: ParetoStats = { evaluated: 0, fallbacks: 0 }): Array<Candidate | null> {
+export function paretoSearch(problems: DesignProblem[], stages: number, stats?: ParetoStats): Array<Candidate | null>;
+export function paretoSearch(problems: DesignProblem[], stages: number, stats: ParetoStats | undefined, deadline: number | undefined): Array<Candidate | null> | null;
+export function paretoSearch(problems: DesignProblem[], stages: number, stats: ParetoStats = { evaluated: 0, fallbacks: 0 }, deadline?: number): Array<Candidate | null> | null {
   const out: Array<Candidate | null> = problems.map(() => null);
   const base = problems[0];
   if (!base) return out;
@@ -63,8 +68,11 @@ export function paretoSearch(problems: DesignProblem[], stages: number, stats: P
     const state = newCollectState(walkProblem, 1);
     const limits = order.map((i) => rippleOf(problems[i]));
     state.pareto = { limits, best: limits.map(() => Infinity) };
+    if (deadline !== undefined) state.deadline = deadline;
     collectCandidates(walkProblem, stages, state);
     stats.evaluated += state.evaluated;
+    // Out of time: no point of this curve is proven.
+    if (state.cut) return null;
     const entries = [...state.entries].sort((a, b) => a.lb - b.lb || a.totalC - b.totalC);
     const verified = new Map<FastEntry, Candidate>();
     order.forEach((i, k) => {
@@ -93,8 +101,9 @@ export function paretoSearch(problems: DesignProblem[], stages: number, stats: P
   for (const i of order) {
     if (fallback.has(i)) {
       stats.fallbacks++;
-      const alone = bestDesigns(problems[i], 1, [stages]);
+      const alone = bestDesigns(problems[i], 1, [stages], undefined, deadline !== undefined ? { deadline } : {});
       stats.evaluated += alone.evaluated;
+      if (!alone.complete) return null;
       out[i] = alone.feasible[0] ?? null;
     } else out[i] = rankCandidates(found[i])[0] ?? null;
   }

@@ -25,6 +25,8 @@ export interface TradeoffOptions {
   /** Resolution to draw the curves at (with a search over bits), default the project's. */
   bits?: number;
   onProgress?: (fraction: number) => void;
+  /** performance.now() in ms after which the curves are given up: the answer is then [] (no point proven). */
+  deadline?: number;
 }
 
 /**
@@ -38,7 +40,9 @@ export interface TradeoffOptions {
  * when a lower bound on its settling time shows it dominated under every limit it could meet.
  * Same answers as one search per limit (tested against them and against exhaustive search).
  *
- * Syntax: tradeoffCurves(project, stageCounts, center[, { ripples, points, bits, onProgress }])
+ * With `deadline` a walk still running then stops, and the answer is [] (no curves).
+ *
+ * Syntax: tradeoffCurves(project, stageCounts, center[, { ripples, points, bits, onProgress, deadline }])
  * Example: tradeoffCurves(p, [1, 2], p.spec.ripple)[1].points[4].settlingTime   // s at the spec's ripple
  */
 export function tradeoffCurves(project: Project, stageCounts: number[], center: number, options: TradeoffOptions = {}): TradeoffCurve[] {
@@ -54,9 +58,13 @@ export function tradeoffCurves(project: Project, stageCounts: number[], center: 
     return designProblem(at, options.bits);
   });
   let done = 0;
-  return stageCounts.map((n) => {
-    const best = paretoSearch(problems, n);
+  const curves: TradeoffCurve[] = [];
+  for (const n of stageCounts) {
+    const best = paretoSearch(problems, n, undefined, options.deadline);
+    // Out of time: no curves at all rather than some (a missing curve would read as a missing stage count).
+    if (best === null) return [];
     options.onProgress?.(++done / stageCounts.length);
-    return { stages: n, points: ripples.map((ripple, i) => ({ ripple, settlingTime: best[i]?.settlingTime ?? null, best: best[i] })) };
-  });
+    curves.push({ stages: n, points: ripples.map((ripple, i) => ({ ripple, settlingTime: best[i]?.settlingTime ?? null, best: best[i] })) });
+  }
+  return curves;
 }

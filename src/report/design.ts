@@ -28,6 +28,8 @@ export interface DesignReportOptions {
   robust?: RobustResult;
   /** Text: the widest line, columns (default 80). */
   width?: number;
+  /** The curves were asked for, but the time limit came first (text, Markdown, HTML say so). */
+  tradeoffOutOfTime?: boolean;
 }
 
 // asciichart colour codes per curve (one stage, two, three), used only when colour is on.
@@ -124,6 +126,7 @@ export function designReport(project: Project, result: DesignResult, format: Des
       ...(options.tradeoff ? { tradeoff: options.tradeoff } : {}),
       ...(options.written ? { written: options.written } : {}),
       ...(options.robust ? { robust: options.robust } : {}),
+      ...(options.tradeoffOutOfTime && { tradeoffOutOfTime: true }),
     });
     // The trade-off curve replaces the ASCII chart in its section; the page embeds the JSON.
     const curves = options.tradeoff ?? [];
@@ -139,6 +142,7 @@ export function designReport(project: Project, result: DesignResult, format: Des
     ...(options.written ? { written: options.written } : {}),
     ...(options.robust ? { robust: options.robust } : {}),
     ...(options.width && { width: options.width }),
+    ...(options.tradeoffOutOfTime && { tradeoffOutOfTime: true }),
   });
   return renderDocument(doc, format, { color, ...(options.width && { width: options.width }) });
 }

@@ -25,6 +25,8 @@ export interface DesignDocumentOptions {
   robust?: RobustResult;
   /** Widest line the trade-off chart is drawn to, columns (default 80). */
   width?: number;
+  /** The trade-off curves were asked for, but the time limit (--max-time) came first. */
+  tradeoffOutOfTime?: boolean;
 }
 
 /** Check names as the project file spells the limits. */
@@ -359,6 +361,13 @@ export function designDocument(project: Project, result: DesignResult, options: 
   const curveLimit = inLsb.ripple !== undefined && curveScale.lsb !== null ? inLsb.ripple * curveScale.lsb : L.ripple;
   const chart = tradeoffSection(options.tradeoff ?? [], curveScale, curveLimit, options);
   if (chart) sections.push(chart);
+  // (an incomplete search says so above, curves included)
+  else if (options.tradeoffOutOfTime && result.complete !== false) {
+    sections.push({
+      title: 'Trade-off: not drawn',
+      blocks: [{ kind: 'text', text: 'The search ended in time, but the time limit (--max-time) came before the trade-off curves were done; allow more time for them.' }],
+    });
+  }
   const warnings = warningsSection(result.warnings);
   if (warnings) sections.push(warnings);
   if (result.resolutions.length > 0) {

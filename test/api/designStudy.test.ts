@@ -1,0 +1,45 @@
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { designStudy } from '../../src/api/designStudy.js';
+import { designSearch } from '../../src/design/designSearch.js';
+import { tradeoffCurves } from '../../src/design/tradeoffCurves.js';
+import { loadProject } from '../../src/project/index.js';
+import { designReport } from '../../src/report/design.js';
+
+// The bench's wide two-stage E24 space (invented scenario, scripts/bench-projects/wide-e24.yaml).
+const project = () => loadProject('scripts/bench-projects/wide-e24.yaml');
+
+/** performance.now() replaced by a clock that moves 1 ms at every reading: cuts fall at the same place every run. */
+function steppingClock(): () => number {
+  let now = 0;
+  vi.spyOn(performance, 'now').mockImplementation(() => (now += 1));
+  return () => now;
+}
+
+describe('the trade-off curves and the time limit', () => {
+  afterEach(() => vi.restoreAllMocks());
+
+  it('tradeoffCurves gives up at the deadline with no curves, and draws them all without one', () => {
+    const p = project();
+    expect(tradeoffCurves(p, [1, 2], p.spec.ripple!, { deadline: performance.now() - 1 })).toEqual([]);
+    const free = tradeoffCurves(p, [1, 2], p.spec.ripple!);
+    expect(free.map((c) => c.stages)).toEqual([1, 2]);
+    expect(tradeoffCurves(p, [1, 2], p.spec.ripple!, { deadline: performance.now() + 1e9 })).toStrictEqual(free);
+  });
+
+  it('a search that ends in time but leaves the curves unfinished says so (the curves used to run on past --max-time)', () => {
+    // Clock readings of the search alone, then a deadline just after it: the curves' walk is cut.
+    const clock = steppingClock();
+    designSearch(project(), { top: 10, deadline: 1e300 });
+    const searchReadings = clock();
+    vi.restoreAllMocks();
+    steppingClock();
+    const study = designStudy(project(), { top: 10, deadline: searchReadings + 1.5 });
+    expect(study.result.complete).toBe(true);
+    expect(study.tradeoff).toBeUndefined();
+    expect(study.tradeoffOutOfTime).toBe(true);
+    vi.restoreAllMocks();
+    const text = designReport(project(), study.result as Parameters<typeof designReport>[1], 'text', { tradeoffOutOfTime: true, width: 100 });
+    expect(text).toMatch(/Trade-off: not drawn/);
+    expect(text).toMatch(/the time limit \(--max-time\) came before the trade-off curves were\s+done/);
+  });
+});
