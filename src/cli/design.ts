@@ -52,6 +52,23 @@ function progressBar(
  * Syntax: runDesign(args, { color, progress })
  * Example: await runDesign({ file: 'p.yaml', format: 'json', top: 5, force: false, charts: false }, { color: false })
  */
+/** Seconds a design search may take when --max-time is not given. */
+export const DEFAULT_MAX_TIME = 60;
+
+/**
+ * When the search must stop (performance.now() in ms): --max-time seconds after `started`, or
+ * DEFAULT_MAX_TIME when it is not given, so that no input keeps the command busy for hours (a
+ * three-stage space with nothing feasible and no settling limit has no finite threshold to prune
+ * with). --robust takes no deadline yet (undefined: its nominal searches run to the end).
+ *
+ * Syntax: searchDeadline(args, started)
+ * Example: searchDeadline({ robust: undefined }, 0)   // 60000
+ */
+export function searchDeadline(args: Pick<DesignArgs, 'maxTime' | 'robust'>, started: number): number | undefined {
+  if (args.robust !== undefined) return undefined;
+  return started + 1000 * (args.maxTime ?? DEFAULT_MAX_TIME);
+}
+
 export async function runDesign(
   args: DesignArgs,
   tty: { color: boolean; progress?: NodeJS.WriteStream; columns?: number },
@@ -78,12 +95,13 @@ export async function runDesign(
   const project = loadProject(args.file);
   // Progress only on a terminal, and not when asked to be quiet.
   const bar = tty.progress && !args.quiet ? progressBar(tty.progress, designProgressLine) : null;
+  const deadline = searchDeadline(args, started);
   let study;
   try {
     study = designStudy(project, {
       top: args.top,
       tradeoff: args.charts,
-      ...(args.maxTime !== undefined && { deadline: started + 1000 * args.maxTime }),
+      ...(deadline !== undefined && { deadline }),
       ...(args.robust && { robust: args.robust }),
       ...(bar && { onProgress: (f: number, d?: DesignProgress) => bar.update(f, d) }),
     });
@@ -154,7 +172,7 @@ export function designCommand(
         .option('write', { describe: 'Write design #1 as a project file (the original with filter.stages replaced)', type: 'string', requiresArg: true })
         .option('force', { describe: 'Let --write or --html replace an existing file', type: 'boolean', default: false })
         .option('max-time', {
-          describe: 'Stop the search after this many seconds with the designs found so far, marked incomplete (no trade-off curves then)',
+          describe: `Stop the search after this many seconds (default ${DEFAULT_MAX_TIME}) with the best designs found so far, marked incomplete (no trade-off curves then)`,
           type: 'number',
           requiresArg: true,
         })

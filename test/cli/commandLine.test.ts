@@ -9,6 +9,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { bin, root, runBuilt } from './runBuilt.js';
+import { DEFAULT_MAX_TIME, searchDeadline } from '../../src/cli/design.js';
 
 const sample = join(root, 'sample-configs', 'greenhouse-heater.yaml');
 const scratch = () => mkdtempSync(join(tmpdir(), 'dacsmith-cli-'));
@@ -174,6 +175,15 @@ describe('design --max-time stops a long search cleanly', () => {
     expect(text).toMatch(/FAIL: no design found before the time limit/);
     expect(text).not.toMatch(/no design in the search space/);
     expect(text).not.toMatch(/No design meets every limit/);
+  });
+
+  it('without --max-time the search still stops, after DEFAULT_MAX_TIME seconds; --robust takes no deadline yet', () => {
+    // (a three-stage space with nothing feasible and no settling limit would otherwise run for hours)
+    expect(DEFAULT_MAX_TIME).toBe(60);
+    expect(searchDeadline({ maxTime: undefined, robust: undefined }, 1000)).toBe(1000 + 60_000);
+    expect(searchDeadline({ maxTime: 5, robust: undefined }, 1000)).toBe(6000);
+    expect(searchDeadline({ maxTime: undefined, robust: 'worst-case' }, 1000)).toBeUndefined();
+    expect(runBuilt(['design', '--help']).stdout).toMatch(/default 60/);
   });
 
   it('a search that ends in time is complete, and bad values are refused', () => {
