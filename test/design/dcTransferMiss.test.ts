@@ -6,7 +6,7 @@ import { dcTransferMiss } from '../../src/design/dcTransferMiss.js';
 import { modalLadderOf } from '../../src/engine/modal/modalLadderOf.js';
 import { steadySwing } from '../../src/engine/modal/steadySwing.js';
 import { parseProject } from '../../src/project/index.js';
-import { bruteForce, designKey } from './bruteForce.js';
+import { bruteForce, designKey, everyTuple } from './bruteForce.js';
 
 /** Invented: unequal drivers into a 10 kohm load bend the DC transfer (INL). */
 const project = (inl: string, gain: string, stages = '[1, 2]', margin = '0 %') =>
@@ -38,18 +38,15 @@ describe('dcTransferMiss rules out only what the engine fails (brute force over 
       const p = project(inl, gain);
       const problem = designProblem(p);
       let ruledOut = 0;
-      for (const r1 of problem.rValues)
-        for (const c1 of problem.cValues)
-          for (const r2 of problem.rValues)
-            for (const c2 of problem.cValues) {
-              const model = modalLadderOf(problem.circuit, [r1, r2], [c1, c2]);
-              const miss = dcTransferMiss(problem, (d) => steadySwing(model, d).average);
-              if (miss === null) continue;
-              ruledOut++;
-              // The engine (engine/dcTransfer.ts) fails that same check.
-              const exact = exactCandidate(problem, problem.ladderOf([r1, r2], [c1, c2]));
-              expect(exact.checks.find((k) => k.name === miss)?.pass).toBe(false);
-            }
+      for (const [r, c] of everyTuple(problem.rValues, problem.cValues, 2)) {
+        const model = modalLadderOf(problem.circuit, r, c);
+        const miss = dcTransferMiss(problem, (d) => steadySwing(model, d).average);
+        if (miss === null) continue;
+        ruledOut++;
+        // The engine (engine/dcTransfer.ts) fails that same check.
+        const exact = exactCandidate(problem, problem.ladderOf(r, c));
+        expect(exact.checks.find((k) => k.name === miss)?.pass).toBe(false);
+      }
       expect(ruledOut).toBeGreaterThan(0);
     });
   }
@@ -76,17 +73,14 @@ describe('dcTransferMiss rules out only what the engine fails (brute force over 
       const problem = designProblem(p);
       const name = inl === 'none' ? 'gain' : 'inl';
       let insideLimitOnly = 0;
-      for (const r1 of problem.rValues)
-        for (const c1 of problem.cValues)
-          for (const r2 of problem.rValues)
-            for (const c2 of problem.cValues) {
-              const model = modalLadderOf(problem.circuit, [r1, r2], [c1, c2]);
-              if (dcTransferMiss(problem, (d) => steadySwing(model, d).average) === null) continue;
-              // The engine: this design does not keep the margin on that figure.
-              const exact = exactCandidate(problem, problem.ladderOf([r1, r2], [c1, c2]));
-              expect(exact.margins[name]!).toBeLessThan(0.1);
-              if (exact.checks.find((k) => k.name === name)?.pass) insideLimitOnly++;
-            }
+      for (const [r, c] of everyTuple(problem.rValues, problem.cValues, 2)) {
+        const model = modalLadderOf(problem.circuit, r, c);
+        if (dcTransferMiss(problem, (d) => steadySwing(model, d).average) === null) continue;
+        // The engine: this design does not keep the margin on that figure.
+        const exact = exactCandidate(problem, problem.ladderOf(r, c));
+        expect(exact.margins[name]!).toBeLessThan(0.1);
+        if (exact.checks.find((k) => k.name === name)?.pass) insideLimitOnly++;
+      }
       // some of them meet the file's limit itself (the margin, not the limit, rules them out)
       expect(insideLimitOnly).toBeGreaterThan(0);
       const found = designSearch(p, { top: 5, compare: false, diagnose: false });
