@@ -11,6 +11,8 @@ export interface SearchBudget {
   left: number;
   /** Most evaluations one problem (one resolution) may use. */
   perProblem: number;
+  /** performance.now() in ms after which the searches stop as at the end of the budget (`design --max-time`). */
+  deadline?: number;
 }
 
 /** What a side search found. */
@@ -54,13 +56,16 @@ export function boundedSearch(
       const variant = withFollower(problem, buffered);
       const open = stageCounts.filter((n) => infeasibilityBounds(variant, n).misses.length === 0);
       if (open.length === 0) continue;
-      if (budget.left <= 0) {
+      if (budget.left <= 0 || (budget.deadline !== undefined && performance.now() > budget.deadline)) {
         complete = false;
         continue;
       }
       // A three-stage evaluation costs several two-stage ones (measured: about 4x): it counts so.
       const weight = open.includes(3) ? 4 : 1;
-      const outcome = solveProblem(variant, top, open, undefined, { budget: Math.min(budget.left, budget.perProblem) / weight });
+      const outcome = solveProblem(variant, top, open, undefined, {
+        budget: Math.min(budget.left, budget.perProblem) / weight,
+        ...(budget.deadline !== undefined && { deadline: budget.deadline }),
+      });
       budget.left -= outcome.evaluated * weight;
       complete &&= outcome.complete;
       found.push(...outcome.feasible);

@@ -75,7 +75,7 @@ export function designSearch(project: Project, options: DesignSearchOptions = {}
   let explained;
   // Out of time: no explanation either (it runs searches of its own).
   if (!feasible && complete && (options.diagnose ?? true)) {
-    const withoutMargin = base.margin > 0 ? designsWithoutMargin(project, problems, top, stageCounts) : [];
+    const withoutMargin = base.margin > 0 ? designsWithoutMargin(project, problems, top, stageCounts, options.deadline) : [];
     if (withoutMargin.length > 0) {
       diagnosis = [
         `no design keeps the ${percentText(base.margin)} margin (search.margin) to every limit; ${withoutMargin.length === top ? `at least ${top}` : withoutMargin.length} design${withoutMargin.length > 1 ? 's' : ''} meet the limits themselves (listed below with their margins): lower search.margin to accept them, or widen the search`,
@@ -83,7 +83,7 @@ export function designSearch(project: Project, options: DesignSearchOptions = {}
       shown = withoutMargin;
     } else {
       options.onProgress?.(1, { phase: 'explain' });
-      explained = explainInfeasible(project, problems, stageCounts);
+      explained = explainInfeasible(project, problems, stageCounts, undefined, options.deadline);
       diagnosis = explained.lines;
       shown = explained.closest;
     }
@@ -126,9 +126,11 @@ export interface DesignSearchOptions extends DesignOptions {
 }
 
 /** The best designs that meet every limit when the margin is 0 (checked with the real margin: keepsMargin false). */
-function designsWithoutMargin(project: Project, problems: DesignProblem[], top: number, stageCounts: number[]): Candidate[] {
+function designsWithoutMargin(project: Project, problems: DesignProblem[], top: number, stageCounts: number[], deadline?: number): Candidate[] {
   const bare: Project = { ...project, search: { ...project.search!, margin: 0 } };
-  const found = problems.flatMap((p) => bestDesigns(designProblem(bare, problems.length > 1 || project.search?.bits ? (p.bits ?? undefined) : undefined), top, stageCounts).feasible);
+  // (out of time: the designs found by then, each verified, none claimed the best)
+  const solve = deadline !== undefined ? { deadline } : {};
+  const found = problems.flatMap((p) => bestDesigns(designProblem(bare, problems.length > 1 || project.search?.bits ? (p.bits ?? undefined) : undefined), top, stageCounts, undefined, solve).feasible);
   return rankCandidates(found)
     .slice(0, top)
     .map((c) => recheck(problems.find((p) => p.bits === c.bits) ?? problems[0], c));

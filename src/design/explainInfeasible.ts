@@ -49,7 +49,10 @@ export interface Explanation {
  * those, checked against the real limits, are the closest. Side searches share a budget of fast
  * evaluations; a search cut by it claims nothing.
  *
- * Syntax: explainInfeasible(project, problems, stageCounts[, budgets])
+ * With a `deadline` (performance.now() in ms) the side searches stop there as at the end of their
+ * budget, and the explanation says so.
+ *
+ * Syntax: explainInfeasible(project, problems, stageCounts[, budgets[, deadline]])
  * Example: explainInfeasible(p, [designProblem(p)], [1, 2]).lines
  *          // ['INL binds: ${which} meeting every other limit reaches 5.28 LSB against 0.500 LSB ...', ...]
  */
@@ -58,10 +61,11 @@ export function explainInfeasible(
   problems: DesignProblem[],
   stageCounts: number[],
   budgets: typeof EXPLAIN_BUDGET = EXPLAIN_BUDGET,
+  deadline?: number,
 ): Explanation {
   const spent: SearchBudget[] = [];
   const part = (left: number): SearchBudget => {
-    const b = { left, perProblem: budgets.perProblem };
+    const b: SearchBudget = { left, perProblem: budgets.perProblem, ...(deadline !== undefined && { deadline }) };
     spent.push(b);
     return b;
   };
@@ -178,8 +182,12 @@ export function explainInfeasible(
       break;
     }
   }
-  if (closest.length === 0 && names.length > 0) lines.push(`no design found with every limit relaxed up to ${RELAX[RELAX.length - 1]}-fold: check the ranges in search:`);
-  if (spent.some((b) => b.left <= 0)) lines.push('(the side searches behind this explanation stopped at their budget; changes not listed were not proven either way)');
+  const outOfTime = deadline !== undefined && performance.now() > deadline;
+  // (out of time the relaxed searches may not have run at all: nothing to say about the ranges)
+  if (closest.length === 0 && names.length > 0 && !outOfTime) lines.push(`no design found with every limit relaxed up to ${RELAX[RELAX.length - 1]}-fold: check the ranges in search:`);
+  if (outOfTime) {
+    lines.push('(the side searches behind this explanation stopped at the time limit (--max-time); changes not listed were not proven either way)');
+  } else if (spent.some((b) => b.left <= 0)) lines.push('(the side searches behind this explanation stopped at their budget; changes not listed were not proven either way)');
   return { lines, closest, binding, fixes, proven };
 }
 

@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { designProblem } from '../../src/design/designProblem.js';
 import { designSearch } from '../../src/design/designSearch.js';
 import { exactCandidate } from '../../src/design/exactCandidate.js';
@@ -170,6 +170,27 @@ describe('when nothing is feasible', () => {
     for (const c of r.candidates) {
       expect(c.pass).toBe(false);
       expect(c.checks.some((k) => !k.pass)).toBe(true);
+    }
+  });
+
+  it('an explanation started before the deadline stops at it too, and claims nothing about the ranges', () => {
+    // The same project as above: with time, settling binds; the deadline passes while the side
+    // searches run (a stepping clock, 1 ms a reading, makes the cut fall at the same place).
+    const p = project({ ripple: '0.1 LSB', settling: '{ band: 0.5 LSB, time: 2 ms }', stages: '[1, 2]' });
+    const clock = { now: 0 };
+    const spy = vi.spyOn(performance, 'now').mockImplementation(() => (clock.now += 1));
+    try {
+      designSearch(p, { top: 5, diagnose: false, deadline: 1e300 });
+      const searchReadings = clock.now;
+      clock.now = 0;
+      const r = designSearch(p, { top: 5, deadline: searchReadings + 3.5 });
+      expect(r.complete).toBe(true); // the search itself ended in time
+      expect(r.diagnosis).toContain('(the side searches behind this explanation stopped at the time limit (--max-time); changes not listed were not proven either way)');
+      expect(r.diagnosis.some((l) => l.startsWith('no design found with every limit relaxed'))).toBe(false);
+      // readings past the deadline: the one-second grace of the verification at most, not whole side searches
+      expect(clock.now).toBeLessThan(searchReadings + 3.5 + 1000 + 50);
+    } finally {
+      spy.mockRestore();
     }
   });
 
