@@ -53,7 +53,12 @@ export function designStudy(project: Project, options: DesignStudyOptions = {}):
   let result: DesignResult;
   let robust: RobustResult | undefined;
   if (options.robust) {
-    robust = robustDesigns(project, options.robust, { checks: robustChecks, top, ...(report && { onProgress: (f: number) => report(share * f) }) });
+    robust = robustDesigns(project, options.robust, {
+      checks: robustChecks,
+      top,
+      ...(options.deadline !== undefined && { deadline: options.deadline }),
+      ...(report && { onProgress: (f: number) => report(share * f) }),
+    });
     result = { ...robust.nominal, candidates: robust.candidates.map((r) => r.candidate), feasible: robust.candidates.length > 0, diagnosis: [] };
   } else {
     result = designSearch(project, {

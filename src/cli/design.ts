@@ -59,13 +59,12 @@ export const DEFAULT_MAX_TIME = 60;
  * When the search must stop (performance.now() in ms): --max-time seconds after `started`, or
  * DEFAULT_MAX_TIME when it is not given, so that no input keeps the command busy for hours (a
  * three-stage space with nothing feasible and no settling limit has no finite threshold to prune
- * with). --robust takes no deadline yet (undefined: its nominal searches run to the end).
+ * with). --robust too: its nominal searches and checks stop there.
  *
  * Syntax: searchDeadline(args, started)
- * Example: searchDeadline({ robust: undefined }, 0)   // 60000
+ * Example: searchDeadline({}, 0)   // 60000
  */
-export function searchDeadline(args: Pick<DesignArgs, 'maxTime' | 'robust'>, started: number): number | undefined {
-  if (args.robust !== undefined) return undefined;
+export function searchDeadline(args: Pick<DesignArgs, 'maxTime'>, started: number): number {
   return started + 1000 * (args.maxTime ?? DEFAULT_MAX_TIME);
 }
 
@@ -77,9 +76,6 @@ export async function runDesign(
   if (!Number.isInteger(args.top) || args.top < 1) throw new UsageError(`--top ${args.top}: give a whole number of at least 1`);
   if (args.maxTime !== undefined && !(Number.isInteger(args.maxTime) && args.maxTime >= 1)) {
     throw new UsageError(`--max-time ${args.maxTime}: give whole seconds, at least 1`);
-  }
-  if (args.maxTime !== undefined && args.robust !== undefined) {
-    throw new UsageError('--max-time bounds the nominal search; it cannot be combined with --robust yet');
   }
   const width = reportWidth(args.width, { isTTY: tty.columns !== undefined, columns: tty.columns });
   const fs = await import('node:fs');
@@ -101,7 +97,7 @@ export async function runDesign(
     study = designStudy(project, {
       top: args.top,
       tradeoff: args.charts,
-      ...(deadline !== undefined && { deadline }),
+      deadline,
       ...(args.robust && { robust: args.robust }),
       ...(bar && { onProgress: (f: number, d?: DesignProgress) => bar.update(f, d) }),
     });

@@ -60,6 +60,12 @@ export interface RobustOptions {
   /** Passed to the nominal search. */
   stageCounts?: number[];
   onProgress?: (fraction: number) => void;
+  /**
+   * performance.now() in ms after which the nominal search stops and no further design is
+   * checked (`design --max-time`): the answer is then the robust designs found by then, and
+   * `nominal.complete` is false.
+   */
+  deadline?: number;
 }
 
 /** Largest Monte Carlo run per design by default: yield mode runs one per scanned design. */
@@ -86,7 +92,10 @@ export const ROBUST_SAMPLES_CAP = 2000;
  * box plus the pin peak current at its worst corner, or Monte Carlo yield with the project's seed
  * for every design).
  *
- * Syntax: robustDesigns(project, mode, { checks | check[, top, cap, search, samples, stageCounts] })
+ * With `deadline` the nominal search stops at it and no design is checked after it: the robust
+ * designs found by then are the answer, marked incomplete (nominal.complete false).
+ *
+ * Syntax: robustDesigns(project, mode, { checks | check[, top, cap, search, samples, stageCounts, deadline] })
  * Example: robustDesigns(p, 'worst-case', { checks: robustChecks, top: 3 }).candidates[0].verdict.worstCase.worstRipple  // V
  */
 export function robustDesigns(project: Project, mode: RobustMode, options: RobustOptions): RobustResult {
@@ -114,16 +123,25 @@ export function robustDesigns(project: Project, mode: RobustMode, options: Robus
       diagnose: false,
       ...(options.stageCounts && { stageCounts: options.stageCounts }),
       ...(admit && { admit }),
+      ...(options.deadline !== undefined && { deadline: options.deadline }),
     });
     const list = nominal.feasible ? nominal.candidates : [];
-    const exhausted = list.length < asked;
+    const outOfTime = () => options.deadline !== undefined && performance.now() > options.deadline;
+    // A list cut by the deadline may be short without being the whole space.
+    const exhausted = list.length < asked && nominal.complete !== false;
     const found: RobustCandidate[] = [];
     let scanned = 0;
+    let cut = nominal.complete === false;
     for (let i = 0; i < list.length && found.length < top; i++) {
       const c = list[i];
       const key = designKey(c);
       let verdict = verdicts.get(key);
       if (!verdict) {
+        // Out of time: no new check; the designs checked so far stand.
+        if (outOfTime()) {
+          cut = true;
+          break;
+        }
         const at = projectFor(project, nominal, c);
         verdict = check(at, ladderFromProject(at, c.stages.map((s) => ({ r: s.r, c: s.c, buffered: s.buffered ?? false }))));
         verdicts.set(key, verdict);
@@ -132,14 +150,17 @@ export function robustDesigns(project: Project, mode: RobustMode, options: Robus
       if (verdict.pass) found.push({ candidate: c, nominalRank: i + 1, verdict });
       options.onProgress?.(Math.min(1, verdicts.size / cap));
     }
-    if (found.length >= top || exhausted || asked >= cap) {
+    if (found.length >= top || exhausted || asked >= cap || cut) {
       options.onProgress?.(1);
       // An empty screened list: were there nominal designs at all (for the verdict's wording)?
       const nominalFeasible =
         list.length > 0 ||
         (admit !== undefined &&
+          !cut &&
           search(project, { top: 1, compare: false, diagnose: false, ...(options.stageCounts && { stageCounts: options.stageCounts }) }).feasible);
-      return { mode, candidates: found, scanned, screened: admit !== undefined, nominalFeasible, exhausted, asked, samples, nominal };
+      // Out of time: the answer is incomplete (designStudy reports it so, from nominal.complete).
+      const last = cut ? { ...nominal, complete: false } : nominal;
+      return { mode, candidates: found, scanned, screened: admit !== undefined, nominalFeasible, exhausted, asked, samples, nominal: last };
     }
     asked = Math.min(asked * 4, cap);
   }

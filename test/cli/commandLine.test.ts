@@ -177,13 +177,21 @@ describe('design --max-time stops a long search cleanly', () => {
     expect(text).not.toMatch(/No design meets every limit/);
   });
 
-  it('without --max-time the search still stops, after DEFAULT_MAX_TIME seconds; --robust takes no deadline yet', () => {
+  it('without --max-time the search still stops, after DEFAULT_MAX_TIME seconds', () => {
     // (a three-stage space with nothing feasible and no settling limit would otherwise run for hours)
     expect(DEFAULT_MAX_TIME).toBe(60);
-    expect(searchDeadline({ maxTime: undefined, robust: undefined }, 1000)).toBe(1000 + 60_000);
-    expect(searchDeadline({ maxTime: 5, robust: undefined }, 1000)).toBe(6000);
-    expect(searchDeadline({ maxTime: undefined, robust: 'worst-case' }, 1000)).toBeUndefined();
+    expect(searchDeadline({ maxTime: undefined }, 1000)).toBe(1000 + 60_000);
+    expect(searchDeadline({ maxTime: 5 }, 1000)).toBe(6000);
     expect(runBuilt(['design', '--help']).stdout).toMatch(/default 60/);
+  });
+
+  it('--robust takes the time limit too: a search cut by it says so', () => {
+    const file = join(root, 'test', 'fixtures', 'projects', 'long-search.yaml');
+    const withTolerance = join(mkdtempSync(join(tmpdir(), 'dacsmith-')), 'long-robust.yaml');
+    writeFileSync(withTolerance, readFileSync(file, 'utf8') + 'tolerance: { resistor: 1 %, capacitor: 10 % }\n');
+    const r = runBuilt(['design', withTolerance, '--robust', 'worst-case', '--max-time', '1', '--format', 'json', '--no-charts']);
+    expect(r.code).toBe(1);
+    expect(JSON.parse(r.stdout).complete).toBe(false);
   });
 
   it('a search that ends in time is complete, and bad values are refused', () => {

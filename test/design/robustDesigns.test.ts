@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { ladderFromProject } from '../../src/project/ladderFromProject.js';
 import { designSearch } from '../../src/design/designSearch.js';
 import { DesignInputError } from '../../src/design/designInputError.js';
@@ -114,6 +114,33 @@ describe('robustDesigns: scan of the nominal ranking', () => {
     const few = robustDesigns(p, 'worst-case', { checks, top: 50, search: (q, o) => search(q, { ...o, top: Math.min(o.top!, 130) }), check, cap: 2000 });
     expect(few.exhausted).toBe(true);
     expect(few.candidates.map((x) => x.nominalRank)).toEqual([40, 80, 120]);
+  });
+});
+
+describe('robustDesigns: the deadline', () => {
+  it('checks no design after it and reports the answer incomplete', () => {
+    // Synthetic nominal ranking (search injected, complete); every 40th design passes the check. A
+    // stepping clock (1 ms a reading) reads once per new check: 20 in the first list (4 x 5), 60 more
+    // in the second (80), and the third list (320) stops at its first new check; the two robust
+    // designs found in the checks already made are the answer.
+    const all: Candidate[] = Array.from({ length: 500 }, (_, i) => ({ stages: [{ r: 1000 + i, c: 1e-7 }] }) as Candidate);
+    const search = (_p: unknown, o: DesignOptions): DesignResult => ({ candidates: all.slice(0, o.top), feasible: true, complete: true, resolutions: [] }) as unknown as DesignResult;
+    let calls = 0;
+    const check: RobustCheck = (_p, ladder) => {
+      calls++;
+      return { pass: (ladder.stages[0].r - 1000) % 40 === 39 };
+    };
+    let now = 0;
+    const spy = vi.spyOn(performance, 'now').mockImplementation(() => (now += 1));
+    try {
+      const r = robustDesigns(project(BASE + TOL('1 %', '10 %')), 'worst-case', { checks, top: 5, search, check, deadline: 80.5 });
+      expect(calls).toBe(80);
+      expect(r.candidates.map((x) => x.nominalRank)).toEqual([40, 80]);
+      expect(r.nominal.complete).toBe(false);
+      expect(r.exhausted).toBe(false);
+    } finally {
+      spy.mockRestore();
+    }
   });
 });
 
