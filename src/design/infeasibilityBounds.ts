@@ -97,23 +97,24 @@ export function infeasibilityBounds(problem: DesignProblem, stages: number): { m
   // Series resistance (driver + sum R), smallest and the caps from droop and gain.
   const seriesMin = dLow + (Number.isFinite(r1Min) ? r1Min : rMax) + (stages - 1) * rMin;
   let seriesMax = Math.max(pwm.driver.high, pwm.driver.low) + stages * rMax;
-  const droop = limits.droop !== undefined ? resistiveDroop(problem.circuit, dutyMin, dutyMax) : null;
-  if (droop !== null) {
+  const droopLimit = limits.droop;
+  const droop = droopLimit !== undefined ? resistiveDroop(problem.circuit, dutyMin, dutyMax) : null;
+  if (droopLimit !== undefined && droop !== null) {
     // The plan's driver may be the high-side one (resistiveDroop.ts); seriesMin counts the low side's.
     const shift = droop.driver - dLow;
     const series = shift === 0 ? seriesMin : seriesMin + shift;
     const floor = resistiveDroopFloor(droop, series);
-    if (over(floor, limits.droop!)) {
+    if (over(floor, droopLimit)) {
       misses.push({
         stages,
         limit: 'droop',
         reach: floor,
-        limitValue: limits.droop!,
+        limitValue: droopLimit,
         reason: `droop: with the load the smallest ${stages}-stage ladder (${formatEng(series, 'Ω')} in series, driver included) already loses ${formatEng(floor, 'V')}`,
       });
     }
-    if (droop.ideal > limits.droop!) {
-      const cap = (droop.load * limits.droop!) / (droop.ideal - limits.droop!);
+    if (droop.ideal > droopLimit) {
+      const cap = (droop.load * droopLimit) / (droop.ideal - droopLimit);
       seriesMax = Math.min(seriesMax, shift === 0 ? cap : cap - shift);
     }
   }

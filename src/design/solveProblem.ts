@@ -41,7 +41,7 @@ export interface SolveOptions {
 }
 
 /** Time past the deadline for verifying what a cut walk collected, ms. */
-export const VERIFY_GRACE = 1000;
+const VERIFY_GRACE = 1000;
 
 /** Growth of theta per extra collection round when the walk's threshold proved too low. */
 const WIDEN = 2;

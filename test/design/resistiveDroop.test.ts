@@ -63,7 +63,9 @@ describe('resistiveDroop', () => {
   });
 
   it('is exact for equal drivers, at either end of the range (the ladder is then a DC divider)', () => {
-    // Equal drivers: average = ideal R_L / (R_L + S) at every duty (linear, time-invariant ladder).
+    // Equal drivers: the ladder is linear and time-invariant, so its average output is the average
+    // pin level through the DC voltage divider S, R_L (Ohm's law; common practice):
+    // average = ideal R_L / (R_L + S) at every duty, and the DC error is exactly ideal S / (R_L + S).
     const base: Ladder = {
       period: 50e-6, high: 3.3, low: -0.1, driverHigh: 30, driverLow: 30,
       stages: [{ r: 4.7e3, c: 1e-6, buffered: false }, { r: 47e3, c: 6.8e-9, buffered: false }],
