@@ -67,6 +67,37 @@ describe('dacsmith tolerance', () => {
     expect(out.code).toBe(0);
   });
 
+  it('a project where no sample settles: the settling histogram is one "never settles" row, in every format', async () => {
+    // Invented: 1 kHz PWM into 1 kohm / 100 nF (tau = T / 10). A first-order RC's steady ripple at
+    // 50 % duty is V tanh(T / (4 tau)) (the standard RC charge/discharge result; from memory):
+    // 3.3 V tanh(2.5) = 3.26 V, against a band of 0.5 LSB = 6.4 mV; at the step's 90 % end it is
+    // still over 1 V at the corners of a 20 % capacitor tolerance: every sample never settles.
+    const dir = mkdtempSync(join(tmpdir(), 'dacsmith-tol-'));
+    const file = join(dir, 'never.yaml');
+    writeFileSync(
+      file,
+      [
+        'pwm: { frequency: 1 kHz, bits: 8, high: 3.3 V }',
+        'filter:',
+        '  stages:',
+        '    - { r: 1k, c: 100n }',
+        'spec:',
+        '  settling: { band: 0.5 LSB, time: 50 ms, from: 10 %, to: 90 % }',
+        'tolerance: { resistor: 1 %, capacitor: 20 %, samples: 200 }',
+        '',
+      ].join('\n'),
+    );
+    const text = await runTolerance({ file, format: 'text', charts: true, workers: 1 }, { color: false });
+    expect(text.code).toBe(1);
+    expect(text.stdout).toMatch(/Settling time\n\s+-+ {2}limit 50 ms: no sample settles\n\s+never settles \|x+ 200\n/);
+    const json = JSON.parse((await runTolerance({ file, format: 'json', charts: true, workers: 1 }, { color: false })).stdout);
+    expect(json.monteCarlo.yield).toBe(0);
+    const html = await runTolerance({ file, format: 'html', charts: true, workers: 1 }, { color: false });
+    expect(html.stdout).not.toContain('NaN');
+    const md = await runTolerance({ file, format: 'markdown', charts: true, workers: 1 }, { color: false });
+    expect(md.stdout).toContain('never settles |');
+  });
+
   it('bad input is exit 2 with a message naming the file and key', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'dacsmith-tol-'));
     const file = join(dir, 'no-tolerance.yaml');
