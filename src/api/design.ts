@@ -21,5 +21,9 @@ export interface DesignApiOptions {
  */
 export function design(input: ProjectInput, options: DesignApiOptions = {}) {
   const study = designStudy(projectOf(input, 'design', { filter: false }), options);
-  return designJson(study.result, { ...(study.tradeoff && { tradeoff: study.tradeoff }), ...(study.robust && { robust: study.robust }) });
+  return designJson(study.result, {
+    ...(study.tradeoff && { tradeoff: study.tradeoff }),
+    ...(study.robust && { robust: study.robust }),
+    ...(study.tradeoffOutOfTime && { tradeoffOutOfTime: true }),
+  });
 }

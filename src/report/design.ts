@@ -151,10 +151,10 @@ export function designReport(project: Project, result: DesignResult, format: Des
  * The object `design --format json` prints (see designReport), as plain JSON data: what the
  * library API's design() returns.
  *
- * Syntax: designJson(result[, { tradeoff, written, changes, robust }])
+ * Syntax: designJson(result[, { tradeoff, written, changes, robust, tradeoffOutOfTime }])
  * Example: designJson(designSearch(p)).candidates[0].settlingTime
  */
-export function designJson(result: DesignResult, options: Pick<DesignReportOptions, 'tradeoff' | 'written' | 'changes' | 'robust'> = {}) {
+export function designJson(result: DesignResult, options: Pick<DesignReportOptions, 'tradeoff' | 'written' | 'changes' | 'robust' | 'tradeoffOutOfTime'> = {}) {
   const body = {
     pass: result.feasible,
     // false: stopped at --max-time; the designs meet the spec but are not proven the best
@@ -174,6 +174,9 @@ export function designJson(result: DesignResult, options: Pick<DesignReportOptio
       stages: c.stages,
       points: c.points.map((p) => ({ ripple: p.ripple, settlingTime: finite(p.settlingTime), best: p.best ? candidateJson(p.best) : null })),
     })),
+    // true: the curves were given up at the time limit (--max-time), so `tradeoff` is empty
+    // although they were asked for (an empty `tradeoff` otherwise: --no-charts or nothing feasible).
+    tradeoffOutOfTime: options.tradeoffOutOfTime ?? false,
     basis: result.basis,
     written: options.written ?? null,
     changes: options.written ? (options.changes ?? []) : null,

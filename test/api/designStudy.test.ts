@@ -24,6 +24,9 @@ describe('the trade-off curves and the time limit', () => {
     const free = tradeoffCurves(p, [1, 2], p.spec.ripple!);
     expect(free.map((c) => c.stages)).toEqual([1, 2]);
     expect(tradeoffCurves(p, [1, 2], p.spec.ripple!, { deadline: performance.now() + 1e9 })).toStrictEqual(free);
+    const json = JSON.parse(designReport(p, designSearch(p, { top: 3 }), 'json', { tradeoff: free }));
+    expect(json.tradeoffOutOfTime).toBe(false);
+    expect(json.tradeoff).toHaveLength(2);
   });
 
   it('a search that ends in time but leaves the curves unfinished says so (the curves used to run on past --max-time)', () => {
@@ -41,5 +44,9 @@ describe('the trade-off curves and the time limit', () => {
     const text = designReport(project(), study.result as Parameters<typeof designReport>[1], 'text', { tradeoffOutOfTime: true, width: 100 });
     expect(text).toMatch(/Trade-off: not drawn/);
     expect(text).toMatch(/the time limit \(--max-time\) came before the trade-off curves were\s+done/);
+    // JSON says it too (the curves were asked for; an empty `tradeoff` alone would read as --no-charts).
+    const json = JSON.parse(designReport(project(), study.result as Parameters<typeof designReport>[1], 'json', { tradeoffOutOfTime: true }));
+    expect(json.tradeoffOutOfTime).toBe(true);
+    expect(json.tradeoff).toEqual([]);
   });
 });
