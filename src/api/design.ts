@@ -9,6 +9,8 @@ export interface DesignApiOptions {
   robust?: 'worst-case' | 'yield';
   /** Compute the trade-off curves (default true, as the command; false as `--no-charts`). */
   tradeoff?: boolean;
+  /** Most fast-model evaluations one trade-off curve may take, as `--curve-effort` (default 500 000). */
+  curveEffort?: number;
 }
 
 /**
@@ -16,7 +18,7 @@ export interface DesignApiOptions {
  * `dacsmith design FILE --format json` prints (pass, candidates best first, diagnosis, fixes,
  * tradeoff, basis, ...), SI units.
  *
- * Syntax: design(input[, { top, robust, tradeoff }])
+ * Syntax: design(input[, { top, robust, tradeoff, curveEffort }])
  * Example: design('sample-configs/design-tight-ripple.yaml', { top: 3 }).candidates[0].settlingTime
  */
 export function design(input: ProjectInput, options: DesignApiOptions = {}) {
@@ -25,5 +27,6 @@ export function design(input: ProjectInput, options: DesignApiOptions = {}) {
     ...(study.tradeoff && { tradeoff: study.tradeoff }),
     ...(study.robust && { robust: study.robust }),
     ...(study.tradeoffOutOfTime && { tradeoffOutOfTime: true }),
+    ...(study.tradeoffNotDrawn && { tradeoffNotDrawn: study.tradeoffNotDrawn }),
   });
 }

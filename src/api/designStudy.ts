@@ -5,6 +5,7 @@ import type { AnyCandidateStage, AnyDesignResult, DesignProgress, DesignResult }
 import { networkDesignStudy } from '../design/network/networkDesignStudy.js';
 import { DesignInputError } from '../design/designInputError.js';
 import type { TradeoffCurve } from '../design/tradeoffCurves.js';
+import { TRADEOFF_EFFORT } from '../design/tradeoffEffort.js';
 import type { RobustResult } from '../design/robustDesigns.js';
 import { robustChecks } from '../tolerance/index.js';
 
@@ -21,6 +22,12 @@ export interface DesignStudyOptions {
    * (`--max-time`): the result says `complete: false`, and no curves are computed past it.
    */
   deadline?: number;
+  /**
+   * Most fast-model evaluations one stage count's trade-off curve may take (default
+   * TRADEOFF_EFFORT, tradeoffCurves.ts; Infinity: no limit). A curve that needs more is not drawn
+   * and is listed in `tradeoffNotDrawn`; the others are.
+   */
+  curveEffort?: number;
 }
 
 export interface DesignStudy {
@@ -29,6 +36,8 @@ export interface DesignStudy {
   robust?: RobustResult;
   /** The curves were asked for but the deadline came first (before them, or while they ran). */
   tradeoffOutOfTime?: boolean;
+  /** Stage counts whose curve needed more than the effort limit (curveEffort) and was not drawn. */
+  tradeoffNotDrawn?: number[];
 }
 
 /**
@@ -41,7 +50,7 @@ export interface DesignStudy {
  * (networkTradeoffCurves.ts); `robust` refuses it for now (the tolerance study does not take these
  * circuits yet).
  *
- * Syntax: designStudy(project[, { top, robust, tradeoff, onProgress, deadline }])
+ * Syntax: designStudy(project[, { top, robust, tradeoff, onProgress, deadline, curveEffort }])
  * Example: designStudy(p, { top: 3, tradeoff: false }).result.candidates[0]
  */
 export function designStudy(project: Project, options: DesignStudyOptions = {}): DesignStudy {
@@ -69,6 +78,8 @@ export function designStudy(project: Project, options: DesignStudyOptions = {}):
   }
   let tradeoff: TradeoffCurve[] | undefined;
   let tradeoffOutOfTime = false;
+  let notDrawn: number[] = [];
+  const effort = options.curveEffort ?? TRADEOFF_EFFORT;
   // Nothing feasible: the explanation carries the numbers; curves would rerun many empty searches.
   // Out of time (--max-time): no curves either; the report says the search is incomplete.
   const inTime = options.deadline === undefined || (result.complete !== false && performance.now() < options.deadline);
@@ -84,16 +95,28 @@ export function designStudy(project: Project, options: DesignStudyOptions = {}):
       tradeoff = tradeoffCurves(project, result.basis.stageCounts, center, {
         ...(atBits !== undefined && { bits: atBits }),
         ...(options.deadline !== undefined && { deadline: options.deadline }),
+        ...(effort !== Infinity && { effort }),
         ...(report && { onProgress: (f: number) => report(0.5 + 0.5 * f, { phase: 'curves' }) }),
       });
       // Given up at the deadline (they are [] then; the stage counts are never empty here).
       if (tradeoff.length === 0) {
         tradeoff = undefined;
         tradeoffOutOfTime = true;
+      } else {
+        // Beyond the effort limit: listed, not drawn (a curve without points would read as no design).
+        notDrawn = tradeoff.filter((c) => c.effortExceeded).map((c) => c.stages);
+        tradeoff = tradeoff.filter((c) => !c.effortExceeded);
+        if (tradeoff.length === 0) tradeoff = undefined;
       }
     }
   }
-  return { result, ...(tradeoff && { tradeoff }), ...(robust && { robust }), ...(tradeoffOutOfTime && { tradeoffOutOfTime }) };
+  return {
+    result,
+    ...(tradeoff && { tradeoff }),
+    ...(robust && { robust }),
+    ...(tradeoffOutOfTime && { tradeoffOutOfTime }),
+    ...(notDrawn.length > 0 && { tradeoffNotDrawn: notDrawn }),
+  };
 }
 
 /** designStudy for a version 1.1 circuit (design/network/networkDesignStudy.ts). */

@@ -3,6 +3,7 @@ import type { CommandOutput } from './analyze.js';
 import type { DesignProgress } from '../design/types.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_SPEC_FAILS, UsageError } from './errors.js';
 import { reportWidth, terminalColumns, widthOption } from './width.js';
+import { TRADEOFF_EFFORT } from '../design/tradeoffEffort.js';
 
 export interface DesignArgs {
   file: string;
@@ -17,6 +18,8 @@ export interface DesignArgs {
   quiet?: boolean;
   /** Keep only designs that meet the spec under part tolerances. */
   robust?: 'worst-case' | 'yield';
+  /** Most fast-model evaluations one trade-off curve may take (default TRADEOFF_EFFORT). */
+  curveEffort?: number;
   width?: number;
 }
 
@@ -77,6 +80,9 @@ export async function runDesign(
   if (args.maxTime !== undefined && !(Number.isInteger(args.maxTime) && args.maxTime >= 1)) {
     throw new UsageError(`--max-time ${args.maxTime}: give whole seconds, at least 1`);
   }
+  if (args.curveEffort !== undefined && !(Number.isInteger(args.curveEffort) && args.curveEffort >= 1)) {
+    throw new UsageError(`--curve-effort ${args.curveEffort}: give a whole number of evaluations, at least 1`);
+  }
   const width = reportWidth(args.width, { isTTY: tty.columns !== undefined, columns: tty.columns });
   const fs = await import('node:fs');
   if (args.write !== undefined && !args.force && fs.existsSync(args.write)) {
@@ -98,13 +104,14 @@ export async function runDesign(
       top: args.top,
       tradeoff: args.charts,
       deadline,
+      ...(args.curveEffort !== undefined && { curveEffort: args.curveEffort }),
       ...(args.robust && { robust: args.robust }),
       ...(bar && { onProgress: (f: number, d?: DesignProgress) => bar.update(f, d) }),
     });
   } finally {
     bar?.done();
   }
-  const { result, tradeoff, robust, tradeoffOutOfTime } = study;
+  const { result, tradeoff, robust, tradeoffOutOfTime, tradeoffNotDrawn } = study;
 
   let written: string | undefined;
   let changes;
@@ -132,6 +139,8 @@ export async function runDesign(
     ...(written && { written, changes }),
     ...(robust && { robust }),
     ...(tradeoffOutOfTime && { tradeoffOutOfTime }),
+    ...(tradeoffNotDrawn && { tradeoffNotDrawn }),
+    ...(args.curveEffort !== undefined && { curveEffort: args.curveEffort }),
     width,
   };
   const stdout = designReport(project, result, args.format, options);
@@ -178,6 +187,11 @@ export function designCommand(
           requiresArg: true,
         })
         .option('charts', { describe: 'Compute and draw the settling/ripple trade-off (--no-charts: faster)', type: 'boolean', default: true })
+        .option('curve-effort', {
+          describe: `Most fast-model evaluations one trade-off curve may take (default ${TRADEOFF_EFFORT}, a few seconds); a curve that needs more is not drawn, and the report says so`,
+          type: 'number',
+          requiresArg: true,
+        })
         .example('$0 design sample-configs/design-tight-ripple.yaml', 'Ranked designs, trade-off chart, comparison')
         .example('$0 design board.yaml --top 3 --no-charts', 'Three best designs, no trade-off curves')
         .example('$0 design board.yaml --write board-designed.yaml', 'Save design #1 as a new project file')

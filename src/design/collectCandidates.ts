@@ -60,6 +60,12 @@ export interface CollectState {
   cut?: boolean;
   /** Stop the walk once performance.now() passes this (ms; `design --max-time`); `cut` then tells. */
   deadline?: number;
+  /**
+   * Stop the walk once `evaluated` passes this, as at the deadline (the trade-off curves' effort
+   * limit, tradeoffCurves.ts); `cut` then tells. Unlike `budget` every pruning stays: what a capped
+   * walk collected is thrown away, so where the cut falls changes no answer.
+   */
+  cap?: number;
   /** Pareto mode (trade-off curves, paretoSearch.ts): several ripple limits in one walk. */
   pareto?: ParetoState;
   /**
@@ -469,7 +475,7 @@ export function collectCandidates(
       clockRead = state.evaluated;
       late = timeIsUp(state);
     }
-    if (!late && (state.budget === undefined || state.evaluated <= state.budget)) return false;
+    if (!late && (state.budget === undefined || state.evaluated <= state.budget) && (state.cap === undefined || state.evaluated <= state.cap)) return false;
     state.cut = true;
     return true;
   };

@@ -34,14 +34,18 @@ export interface ParetoStats {
  * (search.buffered) one walk per option, merged by rankCandidates.
  *
  * With a `deadline` (performance.now() in ms) a walk still running then stops and the answer is
- * null: no point is proven.
+ * null: no point is proven. With a `cap` likewise once the walks (fallbacks included) have made
+ * that many fast evaluations: a deterministic stop, where the deadline depends on the machine.
  *
- * Syntax: paretoSearch(problems, stages[, stats[, deadline]])
+ * Syntax: paretoSearch(problems, stages[, stats[, deadline[, cap]]])
  * Example: paretoSearch(limits.map((r) => designProblem(withRipple(p, r))), 2).map((c) => c?.settlingTime)
  */
 export function paretoSearch(problems: DesignProblem[], stages: number, stats?: ParetoStats): Array<Candidate | null>;
-export function paretoSearch(problems: DesignProblem[], stages: number, stats: ParetoStats | undefined, deadline: number | undefined): Array<Candidate | null> | null;
-export function paretoSearch(problems: DesignProblem[], stages: number, stats: ParetoStats = { evaluated: 0, fallbacks: 0 }, deadline?: number): Array<Candidate | null> | null {
+export function paretoSearch(problems: DesignProblem[], stages: number, stats: ParetoStats | undefined, deadline: number | undefined, cap?: number): Array<Candidate | null> | null;
+export function paretoSearch(problems: DesignProblem[], stages: number, stats: ParetoStats = { evaluated: 0, fallbacks: 0 }, deadline?: number, cap?: number): Array<Candidate | null> | null {
+  // Evaluations this call may still make (stats may arrive with a count from earlier calls).
+  const start = stats.evaluated;
+  const left = () => (cap === undefined ? undefined : Math.max(0, cap - (stats.evaluated - start)));
   const out: Array<Candidate | null> = problems.map(() => null);
   const base = problems[0];
   if (!base) return out;
@@ -69,9 +73,11 @@ export function paretoSearch(problems: DesignProblem[], stages: number, stats: P
     const limits = order.map((i) => rippleOf(problems[i]));
     state.pareto = { limits, best: limits.map(() => Infinity) };
     if (deadline !== undefined) state.deadline = deadline;
+    const capLeft = left();
+    if (capLeft !== undefined) state.cap = capLeft;
     collectCandidates(walkProblem, stages, state);
     stats.evaluated += state.evaluated;
-    // Out of time: no point of this curve is proven.
+    // Out of time or effort: no point of this curve is proven.
     if (state.cut) return null;
     const entries = [...state.entries].sort((a, b) => a.lb - b.lb || a.totalC - b.totalC);
     const verified = new Map<FastEntry, Candidate>();
@@ -101,7 +107,8 @@ export function paretoSearch(problems: DesignProblem[], stages: number, stats: P
   for (const i of order) {
     if (fallback.has(i)) {
       stats.fallbacks++;
-      const alone = bestDesigns(problems[i], 1, [stages], undefined, deadline !== undefined ? { deadline } : {});
+      const capLeft = left();
+      const alone = bestDesigns(problems[i], 1, [stages], undefined, { ...(deadline !== undefined && { deadline }), ...(capLeft !== undefined && { cap: capLeft }) });
       stats.evaluated += alone.evaluated;
       if (!alone.complete) return null;
       out[i] = alone.feasible[0] ?? null;

@@ -36,6 +36,8 @@ export interface SolveOptions {
   budget?: number;
   /** performance.now() in ms after which the search stops with what it has (`design --max-time`). */
   deadline?: number;
+  /** Largest number of fast evaluations before the walk stops, every pruning kept (CollectState.cap; complete: false then). */
+  cap?: number;
   /** Verify and rank only candidates this admits (DesignOptions.admit). */
   admit?: Admit;
 }
@@ -76,6 +78,7 @@ export function solveProblem(
   const state = newCollectState(problem, top);
   if (options.budget !== undefined) state.budget = options.budget;
   if (options.deadline !== undefined) state.deadline = options.deadline;
+  if (options.cap !== undefined) state.cap = options.cap;
   if (options.admit) state.admit = options.admit;
   const cap = state.theta; // the settling-time limit (or Infinity) before any lowering
   const collectAll = () => {

@@ -15,8 +15,13 @@ export interface TradeoffPoint<S extends AnyCandidateStage = CandidateStage> {
 
 export interface TradeoffCurve<S extends AnyCandidateStage = CandidateStage> {
   stages: number;
+  /** One per ripple limit; none when the curve was not drawn (`effortExceeded`). */
   points: TradeoffPoint<S>[];
+  /** Its proof needed more fast evaluations than TradeoffOptions.effort allows: not drawn. */
+  effortExceeded?: boolean;
 }
+
+export { TRADEOFF_EFFORT } from './tradeoffEffort.js';
 
 export interface TradeoffOptions {
   /** Ripple limits to try, V (default: `points` values log-spaced over spec ripple / 8 .. spec ripple * 8). */
@@ -27,6 +32,12 @@ export interface TradeoffOptions {
   onProgress?: (fraction: number) => void;
   /** performance.now() in ms after which the curves are given up: the answer is then [] (no point proven). */
   deadline?: number;
+  /**
+   * Most fast-model evaluations one stage count's curve may take (default: no limit): a curve that
+   * needs more is given up and returned without points, `effortExceeded` set; the others are drawn.
+   * Unlike the deadline, the same on every machine.
+   */
+  effort?: number;
 }
 
 /**
@@ -40,9 +51,11 @@ export interface TradeoffOptions {
  * when a lower bound on its settling time shows it dominated under every limit it could meet.
  * Same answers as one search per limit (tested against them and against exhaustive search).
  *
- * With `deadline` a walk still running then stops, and the answer is [] (no curves).
+ * With `deadline` a walk still running then stops, and the answer is [] (no curves). With
+ * `effort` a curve whose walk passes that many fast evaluations is given up alone (no points,
+ * `effortExceeded`).
  *
- * Syntax: tradeoffCurves(project, stageCounts, center[, { ripples, points, bits, onProgress, deadline }])
+ * Syntax: tradeoffCurves(project, stageCounts, center[, { ripples, points, bits, onProgress, deadline, effort }])
  * Example: tradeoffCurves(p, [1, 2], p.spec.ripple)[1].points[4].settlingTime   // s at the spec's ripple
  */
 export function tradeoffCurves(project: Project, stageCounts: number[], center: number, options: TradeoffOptions = {}): TradeoffCurve[] {
@@ -60,10 +73,15 @@ export function tradeoffCurves(project: Project, stageCounts: number[], center: 
   let done = 0;
   const curves: TradeoffCurve[] = [];
   for (const n of stageCounts) {
-    const best = paretoSearch(problems, n, undefined, options.deadline);
+    const best = paretoSearch(problems, n, undefined, options.deadline, options.effort);
     // Out of time: no curves at all rather than some (a missing curve would read as a missing stage count).
-    if (best === null) return [];
+    if (best === null && (options.effort === undefined || (options.deadline !== undefined && performance.now() > options.deadline))) return [];
     options.onProgress?.(++done / stageCounts.length);
+    // Beyond the effort limit: this curve alone is not drawn, and says so.
+    if (best === null) {
+      curves.push({ stages: n, points: [], effortExceeded: true });
+      continue;
+    }
     curves.push({ stages: n, points: ripples.map((ripple, i) => ({ ripple, settlingTime: best[i]?.settlingTime ?? null, best: best[i] })) });
   }
   return curves;

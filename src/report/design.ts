@@ -30,6 +30,10 @@ export interface DesignReportOptions {
   width?: number;
   /** The curves were asked for, but the time limit came first (text, Markdown, HTML say so). */
   tradeoffOutOfTime?: boolean;
+  /** Stage counts whose curve needed more than the effort limit (--curve-effort) and was not drawn. */
+  tradeoffNotDrawn?: number[];
+  /** That limit, fast-model evaluations (text, Markdown, HTML name it). */
+  curveEffort?: number;
 }
 
 // asciichart colour codes per curve (one stage, two, three), used only when colour is on.
@@ -127,6 +131,8 @@ export function designReport(project: Project, result: DesignResult, format: Des
       ...(options.written ? { written: options.written } : {}),
       ...(options.robust ? { robust: options.robust } : {}),
       ...(options.tradeoffOutOfTime && { tradeoffOutOfTime: true }),
+      ...(options.tradeoffNotDrawn && { tradeoffNotDrawn: options.tradeoffNotDrawn }),
+      ...(options.curveEffort !== undefined && { curveEffort: options.curveEffort }),
     });
     // The trade-off curve replaces the ASCII chart in its section; the page embeds the JSON.
     const curves = options.tradeoff ?? [];
@@ -143,6 +149,8 @@ export function designReport(project: Project, result: DesignResult, format: Des
     ...(options.robust ? { robust: options.robust } : {}),
     ...(options.width && { width: options.width }),
     ...(options.tradeoffOutOfTime && { tradeoffOutOfTime: true }),
+    ...(options.tradeoffNotDrawn && { tradeoffNotDrawn: options.tradeoffNotDrawn }),
+    ...(options.curveEffort !== undefined && { curveEffort: options.curveEffort }),
   });
   return renderDocument(doc, format, { color, ...(options.width && { width: options.width }) });
 }
@@ -151,10 +159,13 @@ export function designReport(project: Project, result: DesignResult, format: Des
  * The object `design --format json` prints (see designReport), as plain JSON data: what the
  * library API's design() returns.
  *
- * Syntax: designJson(result[, { tradeoff, written, changes, robust, tradeoffOutOfTime }])
+ * Syntax: designJson(result[, { tradeoff, written, changes, robust, tradeoffOutOfTime, tradeoffNotDrawn }])
  * Example: designJson(designSearch(p)).candidates[0].settlingTime
  */
-export function designJson(result: DesignResult, options: Pick<DesignReportOptions, 'tradeoff' | 'written' | 'changes' | 'robust' | 'tradeoffOutOfTime'> = {}) {
+export function designJson(
+  result: DesignResult,
+  options: Pick<DesignReportOptions, 'tradeoff' | 'written' | 'changes' | 'robust' | 'tradeoffOutOfTime' | 'tradeoffNotDrawn'> = {},
+) {
   const body = {
     pass: result.feasible,
     // false: stopped at --max-time; the designs meet the spec but are not proven the best
@@ -177,6 +188,8 @@ export function designJson(result: DesignResult, options: Pick<DesignReportOptio
     // true: the curves were given up at the time limit (--max-time), so `tradeoff` is empty
     // although they were asked for (an empty `tradeoff` otherwise: --no-charts or nothing feasible).
     tradeoffOutOfTime: options.tradeoffOutOfTime ?? false,
+    // Stage counts whose curve needed more fast-model evaluations than --curve-effort allows: not drawn.
+    tradeoffNotDrawn: options.tradeoffNotDrawn ?? [],
     basis: result.basis,
     written: options.written ?? null,
     changes: options.written ? (options.changes ?? []) : null,

@@ -1,5 +1,6 @@
 import { warningsSection } from './warnings.js';
 import type { TradeoffCurve as AnyTradeoffCurve } from '../design/tradeoffCurves.js';
+import { TRADEOFF_EFFORT } from '../design/tradeoffEffort.js';
 import type { RobustResult } from '../design/robustDesigns.js';
 import type { AnyCandidateStage, AnyDesignResult, Candidate as AnyStageCandidate, CandidateStage, SallenKeyCandidateStage } from '../design/types.js';
 import type { Project } from '../project/types.js';
@@ -27,6 +28,10 @@ export interface DesignDocumentOptions {
   width?: number;
   /** The trade-off curves were asked for, but the time limit (--max-time) came first. */
   tradeoffOutOfTime?: boolean;
+  /** Stage counts whose curve needed more than the effort limit and was not drawn. */
+  tradeoffNotDrawn?: number[];
+  /** That effort limit, fast-model evaluations (default TRADEOFF_EFFORT). */
+  curveEffort?: number;
 }
 
 /** Check names as the project file spells the limits. */
@@ -241,6 +246,17 @@ function tradeoffSection(curves: TradeoffCurve[], at: LsbScale, rippleLimit: num
   };
 }
 
+/** What the report says of curves given up at the effort limit (empty: none). */
+function notDrawnText(stageCounts: number[], effort: number): string {
+  if (stageCounts.length === 0) return '';
+  const which = stageCounts.map((n) => `${n} stage${n > 1 ? 's' : ''}`).join(', ');
+  const many = stageCounts.length > 1;
+  return (
+    `Not drawn: ${which}. Proving ${many ? 'those curves' : 'that curve'} takes more than ${effort.toLocaleString('en-US').replace(/,/g, ' ')} ` +
+    `fast-model evaluations (--curve-effort); a larger --curve-effort draws ${many ? 'them' : 'it'}, at the cost of time.`
+  );
+}
+
 function comparisonSection(current: Candidate, best: Candidate | undefined, lsbOf: (c: Candidate) => LsbScale): Section {
   const column = (c: Candidate | undefined, f: (c: Candidate) => string) => (c ? f(c) : '-');
   const row = (label: string, f: (c: Candidate) => string) => [label, column(current, f), column(best, f)];
@@ -360,7 +376,11 @@ export function designDocument(project: Project, result: DesignResult, options: 
   const curveScale = curveBits !== null && lsbByBits.has(curveBits) ? { lsb: lsbByBits.get(curveBits)!, bits: curveBits, mixed } : projectScale;
   const curveLimit = inLsb.ripple !== undefined && curveScale.lsb !== null ? inLsb.ripple * curveScale.lsb : L.ripple;
   const chart = tradeoffSection(options.tradeoff ?? [], curveScale, curveLimit, options);
-  if (chart) sections.push(chart);
+  const notDrawn = notDrawnText(options.tradeoffNotDrawn ?? [], options.curveEffort ?? TRADEOFF_EFFORT);
+  if (chart) {
+    if (notDrawn) chart.blocks.push({ kind: 'text', text: notDrawn });
+    sections.push(chart);
+  } else if (notDrawn) sections.push({ title: 'Trade-off: not drawn', blocks: [{ kind: 'text', text: notDrawn }] });
   // (an incomplete search says so above, curves included)
   else if (options.tradeoffOutOfTime && result.complete !== false) {
     sections.push({

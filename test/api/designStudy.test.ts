@@ -50,3 +50,37 @@ describe('the trade-off curves and the time limit', () => {
     expect(json.tradeoff).toEqual([]);
   });
 });
+
+describe('the trade-off curves and the effort limit (--curve-effort)', () => {
+  it('a curve whose walk needs more fast evaluations than the limit is not drawn; the others are the same as without it', () => {
+    // On this project the one-stage curve takes about 1 600 evaluations and the two-stage one about
+    // 46 000 (paretoSearch stats): a limit of 10 000 lies between them.
+    const p = project();
+    const free = tradeoffCurves(p, [1, 2], p.spec.ripple!);
+    const capped = tradeoffCurves(p, [1, 2], p.spec.ripple!, { effort: 10_000 });
+    expect(capped.map((c) => [c.stages, c.effortExceeded ?? false, c.points.length])).toEqual([
+      [1, false, 9],
+      [2, true, 0],
+    ]);
+    expect(capped[0]).toStrictEqual(free[0]);
+    // A limit above what each walk needs changes nothing.
+    expect(tradeoffCurves(p, [1, 2], p.spec.ripple!, { effort: 200_000 })).toStrictEqual(free);
+  });
+
+  it('designStudy lists the curve not drawn, and every report says so', () => {
+    const study = designStudy(project(), { top: 3, curveEffort: 10_000 });
+    expect(study.tradeoff!.map((c) => c.stages)).toEqual([1]);
+    expect(study.tradeoffNotDrawn).toEqual([2]);
+    const options = { tradeoff: study.tradeoff!, tradeoffNotDrawn: study.tradeoffNotDrawn!, curveEffort: 10_000, width: 100 };
+    const result = study.result as Parameters<typeof designReport>[1];
+    expect(designReport(project(), result, 'text', options)).toMatch(/Not drawn: 2 stages\. Proving that curve takes more than 10 000\s+fast-model evaluations/);
+    expect(designReport(project(), result, 'markdown', options)).toContain('Not drawn: 2 stages.');
+    const json = JSON.parse(designReport(project(), result, 'json', options));
+    expect(json.tradeoffNotDrawn).toEqual([2]);
+    expect(json.tradeoff.map((c: { stages: number }) => c.stages)).toEqual([1]);
+    // The default limit draws both curves of this project, and the JSON says none was left out.
+    const full = designStudy(project(), { top: 3 });
+    expect(full.tradeoff!.map((c) => c.stages)).toEqual([1, 2]);
+    expect(full.tradeoffNotDrawn).toBeUndefined();
+  });
+});

@@ -201,3 +201,16 @@ describe('design --max-time stops a long search cleanly', () => {
     expect(runBuilt(['design', sample, '--max-time', '1.5']).code).toBe(2);
   });
 });
+
+describe('design --curve-effort', () => {
+  it('passes the limit on (a low one leaves the two-stage curve out and says so) and refuses bad values', () => {
+    // The wide E24 bench project: its two-stage curve takes about 46 000 fast evaluations.
+    const file = join(root, 'scripts', 'bench-projects', 'wide-e24.yaml');
+    const r = runBuilt(['design', file, '--curve-effort', '10000', '--format', 'json', '--top', '1']);
+    const out = JSON.parse(r.stdout);
+    expect(out.tradeoffNotDrawn).toEqual([2]);
+    expect(out.tradeoff.map((c: { stages: number }) => c.stages)).toEqual([1]);
+    expect(runBuilt(['design', file, '--curve-effort', '0']).stderr).toMatch(/--curve-effort 0: give a whole number of evaluations/);
+    expect(runBuilt(['design', file, '--curve-effort', '2.5']).code).toBe(2);
+  });
+});
