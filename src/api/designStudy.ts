@@ -38,6 +38,8 @@ export interface DesignStudy {
   tradeoffOutOfTime?: boolean;
   /** Stage counts whose curve needed more than the effort limit (curveEffort) and was not drawn. */
   tradeoffNotDrawn?: number[];
+  /** The effort limit the curves were computed under, fast-model evaluations per curve (with tradeoffNotDrawn). */
+  curveEffort?: number;
 }
 
 /**
@@ -115,7 +117,7 @@ export function designStudy(project: Project, options: DesignStudyOptions = {}):
     ...(tradeoff && { tradeoff }),
     ...(robust && { robust }),
     ...(tradeoffOutOfTime && { tradeoffOutOfTime }),
-    ...(notDrawn.length > 0 && { tradeoffNotDrawn: notDrawn }),
+    ...(notDrawn.length > 0 && { tradeoffNotDrawn: notDrawn, curveEffort: effort }),
   };
 }
 

@@ -111,7 +111,7 @@ export async function runDesign(
   } finally {
     bar?.done();
   }
-  const { result, tradeoff, robust, tradeoffOutOfTime, tradeoffNotDrawn } = study;
+  const { result, tradeoff, robust, tradeoffOutOfTime, tradeoffNotDrawn, curveEffort } = study;
 
   let written: string | undefined;
   let changes;
@@ -140,7 +140,7 @@ export async function runDesign(
     ...(robust && { robust }),
     ...(tradeoffOutOfTime && { tradeoffOutOfTime }),
     ...(tradeoffNotDrawn && { tradeoffNotDrawn }),
-    ...(args.curveEffort !== undefined && { curveEffort: args.curveEffort }),
+    ...(curveEffort !== undefined && { curveEffort }),
     width,
   };
   const stdout = designReport(project, result, args.format, options);

@@ -1,6 +1,5 @@
 import { warningsSection } from './warnings.js';
 import type { TradeoffCurve as AnyTradeoffCurve } from '../design/tradeoffCurves.js';
-import { TRADEOFF_EFFORT } from '../design/tradeoffEffort.js';
 import type { RobustResult } from '../design/robustDesigns.js';
 import type { AnyCandidateStage, AnyDesignResult, Candidate as AnyStageCandidate, CandidateStage, SallenKeyCandidateStage } from '../design/types.js';
 import type { Project } from '../project/types.js';
@@ -30,7 +29,7 @@ export interface DesignDocumentOptions {
   tradeoffOutOfTime?: boolean;
   /** Stage counts whose curve needed more than the effort limit and was not drawn. */
   tradeoffNotDrawn?: number[];
-  /** That effort limit, fast-model evaluations (default TRADEOFF_EFFORT). */
+  /** That effort limit, fast-model evaluations (unnamed when not given). */
   curveEffort?: number;
 }
 
@@ -247,13 +246,15 @@ function tradeoffSection(curves: TradeoffCurve[], at: LsbScale, rippleLimit: num
 }
 
 /** What the report says of curves given up at the effort limit (empty: none). */
-function notDrawnText(stageCounts: number[], effort: number): string {
+function notDrawnText(stageCounts: number[], effort: number | undefined): string {
   if (stageCounts.length === 0) return '';
   const which = stageCounts.map((n) => `${n} stage${n > 1 ? 's' : ''}`).join(', ');
   const many = stageCounts.length > 1;
+  // (plain digits: a grouped number could be wrapped across two lines)
+  const limit = effort === undefined ? 'the' : `${effort},`;
   return (
-    `Not drawn: ${which}. Proving ${many ? 'those curves' : 'that curve'} takes more than ${effort.toLocaleString('en-US').replace(/,/g, ' ')} ` +
-    `fast-model evaluations (--curve-effort); a larger --curve-effort draws ${many ? 'them' : 'it'}, at the cost of time.`
+    `Not drawn: ${which}. Proving ${many ? 'those curves' : 'that curve'} takes more fast-model evaluations than ${limit} ` +
+    `the limit of --curve-effort; a larger --curve-effort draws ${many ? 'them' : 'it'}, at the cost of time.`
   );
 }
 
@@ -376,7 +377,7 @@ export function designDocument(project: Project, result: DesignResult, options: 
   const curveScale = curveBits !== null && lsbByBits.has(curveBits) ? { lsb: lsbByBits.get(curveBits)!, bits: curveBits, mixed } : projectScale;
   const curveLimit = inLsb.ripple !== undefined && curveScale.lsb !== null ? inLsb.ripple * curveScale.lsb : L.ripple;
   const chart = tradeoffSection(options.tradeoff ?? [], curveScale, curveLimit, options);
-  const notDrawn = notDrawnText(options.tradeoffNotDrawn ?? [], options.curveEffort ?? TRADEOFF_EFFORT);
+  const notDrawn = notDrawnText(options.tradeoffNotDrawn ?? [], options.curveEffort);
   if (chart) {
     if (notDrawn) chart.blocks.push({ kind: 'text', text: notDrawn });
     sections.push(chart);

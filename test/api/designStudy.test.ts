@@ -73,7 +73,8 @@ describe('the trade-off curves and the effort limit (--curve-effort)', () => {
     expect(study.tradeoffNotDrawn).toEqual([2]);
     const options = { tradeoff: study.tradeoff!, tradeoffNotDrawn: study.tradeoffNotDrawn!, curveEffort: 10_000, width: 100 };
     const result = study.result as Parameters<typeof designReport>[1];
-    expect(designReport(project(), result, 'text', options)).toMatch(/Not drawn: 2 stages\. Proving that curve takes more than 10 000\s+fast-model evaluations/);
+    expect(study.curveEffort).toBe(10_000);
+    expect(designReport(project(), result, 'text', options)).toMatch(/Not drawn: 2 stages\. Proving that curve takes more fast-model evaluations\s+than\s+10000,\s+the\s+limit\s+of\s+--curve-effort/);
     expect(designReport(project(), result, 'markdown', options)).toContain('Not drawn: 2 stages.');
     const json = JSON.parse(designReport(project(), result, 'json', options));
     expect(json.tradeoffNotDrawn).toEqual([2]);
