@@ -332,6 +332,37 @@ describe('search.margin: every design keeps the margin below every limit, as exh
   });
 });
 
+describe('the search without the margin is a side search with a budget (WITHOUT_MARGIN_BUDGET)', () => {
+  it('a hard space that no design meets even without the margin gets its explanation, not a search to the time limit', () => {
+    // Invented (a fuzz run's project): 12 V into 100 kohm with the default 2 % gain limit and a
+    // 30 % margin, two and three E24 stages from 10 ohm to 100 kohm. The search with the margin is
+    // proven out of reach from bounds; the one without it used to walk the three-stage space until
+    // the 60 s default time limit of the command (and with no deadline, for hours).
+    const p = parseProject(
+      `
+pwm: { frequency: 100 kHz, bits: 6, high: 12 V, low: 0 V, driver: { high: 40 ohm, low: 25 ohm }, duty: { min: 0 %, max: 100 % } }
+load: { resistance: 100k }
+spec:
+  ripple: 10 mV
+  settling: { band: 1 LSB, time: 5 ms, from: 0 %, to: 100 % }
+search:
+  stages: [2, 3]
+  series: E24
+  margin: 30 %
+  resistance: { min: 10, max: 100k }
+  capacitance: { min: 100p, max: 100u }
+  pin_current: 5 mA
+`,
+      'no-margin.yaml',
+    );
+    const r = designSearch(p, { top: 10, compare: false });
+    expect(r.feasible).toBe(false);
+    expect(r.complete).toBe(true);
+    // The explanation ran (the no-margin search found nothing within its budget): gain binds.
+    expect(r.diagnosis.join('\n')).toMatch(/gain binds/);
+  });
+});
+
 describe('the full-scale (gain) limit keeps divided-down outputs out', () => {
   it('10 kohm load, no droop limit: no design divides the output, exhaustive search agrees', () => {
     const o = { load: '{ resistance: 10k }', rmin: '10', rmax: '1k', cmin: '100n', cmax: '10u', series: 'E3', margin: '10 %', ripple: '2 LSB' };
