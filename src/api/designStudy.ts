@@ -24,7 +24,7 @@ export interface DesignStudyOptions {
   deadline?: number;
   /**
    * Most fast-model evaluations one stage count's trade-off curve may take (default
-   * TRADEOFF_EFFORT, tradeoffCurves.ts; Infinity: no limit). A curve that needs more is not drawn
+   * TRADEOFF_EFFORT, tradeoffEffort.ts; Infinity: no limit). A curve that needs more is not drawn
    * and is listed in `tradeoffNotDrawn`; the others are.
    */
   curveEffort?: number;

@@ -21,8 +21,6 @@ export interface TradeoffCurve<S extends AnyCandidateStage = CandidateStage> {
   effortExceeded?: boolean;
 }
 
-export { TRADEOFF_EFFORT } from './tradeoffEffort.js';
-
 export interface TradeoffOptions {
   /** Ripple limits to try, V (default: `points` values log-spaced over spec ripple / 8 .. spec ripple * 8). */
   ripples?: number[];

@@ -251,10 +251,10 @@ function notDrawnText(stageCounts: number[], effort: number | undefined): string
   const which = stageCounts.map((n) => `${n} stage${n > 1 ? 's' : ''}`).join(', ');
   const many = stageCounts.length > 1;
   // (plain digits: a grouped number could be wrapped across two lines)
-  const limit = effort === undefined ? 'the' : `${effort},`;
+  const limit = effort === undefined ? 'the limit' : `${effort}, the limit`;
   return (
     `Not drawn: ${which}. Proving ${many ? 'those curves' : 'that curve'} takes more fast-model evaluations than ${limit} ` +
-    `the limit of --curve-effort; a larger --curve-effort draws ${many ? 'them' : 'it'}, at the cost of time.`
+    `of --curve-effort; a larger --curve-effort draws ${many ? 'them' : 'it'}, at the cost of time.`
   );
 }
 

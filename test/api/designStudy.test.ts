@@ -76,6 +76,9 @@ describe('the trade-off curves and the effort limit (--curve-effort)', () => {
     expect(study.curveEffort).toBe(10_000);
     expect(designReport(project(), result, 'text', options)).toMatch(/Not drawn: 2 stages\. Proving that curve takes more fast-model evaluations\s+than\s+10000,\s+the\s+limit\s+of\s+--curve-effort/);
     expect(designReport(project(), result, 'markdown', options)).toContain('Not drawn: 2 stages.');
+    // Without the figure the note still reads (a library caller that passes only the list).
+    const unnamed = designReport(project(), result, 'text', { ...options, curveEffort: undefined, width: 200 });
+    expect(unnamed).toContain('takes more fast-model evaluations than the limit of --curve-effort;');
     const json = JSON.parse(designReport(project(), result, 'json', options));
     expect(json.tradeoffNotDrawn).toEqual([2]);
     expect(json.tradeoff.map((c: { stages: number }) => c.stages)).toEqual([1]);
