@@ -320,7 +320,7 @@ function histogramChart(
 ): string {
   const h = histogram(values, bins);
   // No finite sample (every one never settles): no bins to draw, only that row and the limit.
-  if (h.notFinite === values.length) {
+  if (h.notFinite > 0 && h.notFinite === values.length) {
     const barWidth = Math.max(10, Math.min(40, lineWidth - 13 - String(h.notFinite).length - 5));
     const lines = limit === undefined ? [] : [wrapParagraph(`limit ${fmtDigits(limit, 3)}: no sample settles`, lineWidth, `  ${'-'.repeat(13)}  `, ' '.repeat(17))];
     lines.push(`  ${'never settles'} |${'x'.repeat(barWidth)} ${h.notFinite}`);
