@@ -80,7 +80,7 @@ export function solveProblem(
   if (options.deadline !== undefined) state.deadline = options.deadline;
   if (options.cap !== undefined) state.cap = options.cap;
   if (options.admit) state.admit = options.admit;
-  const cap = state.theta; // the settling-time limit (or Infinity) before any lowering
+  const thetaLimit = state.theta; // the settling-time limit (or Infinity) before any lowering
   const collectAll = () => {
     stageCounts.forEach((n, i) =>
       collectCandidates(problem, n, state, (f) => onProgress?.((i + f) / stageCounts.length, { stages: n, best: state.best[0] ?? null })),
@@ -131,9 +131,9 @@ export function solveProblem(
       }
     }
     const thetaUsed = state.theta;
-    if (tN * (1 + 10 * SETTLING_TIE) <= thetaUsed || thetaUsed >= cap || state.cut) break;
+    if (tN * (1 + 10 * SETTLING_TIE) <= thetaUsed || thetaUsed >= thetaLimit || state.cut) break;
     // The walk pruned with a threshold below the truth: walk again with a wider one.
-    state.theta = Math.min(cap, tN < Infinity ? tN * (1 + REL) + 1e-12 : Math.max(thetaUsed * WIDEN, 1e-9));
+    state.theta = Math.min(thetaLimit, tN < Infinity ? tN * (1 + REL) + 1e-12 : Math.max(thetaUsed * WIDEN, 1e-9));
     state.dynamic = false;
     for (const e of state.entries) state.seen.add(keyOf(e.r, e.c));
     collectAll();

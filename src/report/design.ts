@@ -125,15 +125,17 @@ function curveRippleLimit(project: Project, result: DesignResult, curves: Tradeo
  */
 export function designReport(project: Project, result: DesignResult, format: DesignFormat, options: DesignReportOptions = {}): string {
   if (format === 'json') return JSON.stringify(designJson(result, options), null, 2) + '\n';
+  // What the HTML page and the text / Markdown document share.
+  const shared = {
+    ...(options.tradeoff ? { tradeoff: options.tradeoff } : {}),
+    ...(options.written ? { written: options.written } : {}),
+    ...(options.robust ? { robust: options.robust } : {}),
+    ...(options.tradeoffOutOfTime && { tradeoffOutOfTime: true }),
+    ...(options.tradeoffNotDrawn && { tradeoffNotDrawn: options.tradeoffNotDrawn }),
+    ...(options.curveEffort !== undefined && { curveEffort: options.curveEffort }),
+  };
   if (format === 'html') {
-    const doc = designDocument(project, result, {
-      ...(options.tradeoff ? { tradeoff: options.tradeoff } : {}),
-      ...(options.written ? { written: options.written } : {}),
-      ...(options.robust ? { robust: options.robust } : {}),
-      ...(options.tradeoffOutOfTime && { tradeoffOutOfTime: true }),
-      ...(options.tradeoffNotDrawn && { tradeoffNotDrawn: options.tradeoffNotDrawn }),
-      ...(options.curveEffort !== undefined && { curveEffort: options.curveEffort }),
-    });
+    const doc = designDocument(project, result, shared);
     // The trade-off curve replaces the ASCII chart in its section; the page embeds the JSON.
     const curves = options.tradeoff ?? [];
     return htmlPage(doc, {
@@ -143,14 +145,9 @@ export function designReport(project: Project, result: DesignResult, format: Des
   }
   const color = format === 'text' && (options.color ?? false);
   const doc = designDocument(project, result, {
-    ...(options.tradeoff ? { tradeoff: options.tradeoff } : {}),
+    ...shared,
     ...(color ? { chartColors: CURVE_COLORS } : {}),
-    ...(options.written ? { written: options.written } : {}),
-    ...(options.robust ? { robust: options.robust } : {}),
     ...(options.width && { width: options.width }),
-    ...(options.tradeoffOutOfTime && { tradeoffOutOfTime: true }),
-    ...(options.tradeoffNotDrawn && { tradeoffNotDrawn: options.tradeoffNotDrawn }),
-    ...(options.curveEffort !== undefined && { curveEffort: options.curveEffort }),
   });
   return renderDocument(doc, format, { color, ...(options.width && { width: options.width }) });
 }
