@@ -9,7 +9,7 @@ import { maximizeOverDuty } from './maximizeOverDuty.js';
 import { rippleCeiling, rippleCeilingPlan, rippleFloorSharp, type RippleCeilingPlan } from './rippleCeiling.js';
 import { rippleFloor, rippleFloorPlan, type RippleFloorPlan } from './rippleFloor.js';
 import { tupleBounds, type TupleBounds } from './settlingBounds.js';
-import { NO_FLOOR, settlingFloor, settlingFloorPlan } from './settlingFloor.js';
+import { floorStepScale, NO_FLOOR, pointSettlingFloor, settlingFloor, settlingFloorPlan } from './settlingFloor.js';
 import { slowestTimeConstant, twoSlowestTimeConstants } from './slowestTimeConstant.js';
 import { LIST_SHARE, listTuples, timeIsUp, tupleFloor, tupleQueue } from './listTuples.js';
 import { exceeds, REL } from './searchAllowance.js';
@@ -234,6 +234,16 @@ export function collectCandidates(
    * to lie on the right side of it (settlingFloor).
    */
   const minC = doubles(stages).fill(C[0]);
+  // floorStepScale of the last tuple asked (resistors only)
+  let scaleR: number[] = [];
+  let scale = 0;
+  const stepScaleOf = (rs: number[]): number => {
+    if (!sameAs(rs, scaleR)) {
+      scale = floorStepScale(problem, rs);
+      scaleR = rs.slice();
+    }
+    return scale;
+  };
   const tupleKey = (rs: number[], tb: TupleBounds, ceiling: number): number => tupleFloor(problem, rs, minC, tb, budgeted, ceiling);
 
   // Resistor tuples that pass the resistor-only checks (listTuples), taken in ascending order of
@@ -545,6 +555,25 @@ export function collectCandidates(
       const z0 = Math.abs(b.yStart - a.yStart);
       const excursion = b.yStart > a.yStart ? b.above : b.below;
       if (lti && z0 > problem.band + excursion && tau * Math.log(z0 / (problem.band + excursion)) > theta) return;
+    }
+    // Then this point's own floor (pointSettlingFloor: the proven floor with its target orbit's
+    // excursions, for unequal drivers too), which spares most of the exact bounds below that rule
+    // a point out: 2 323 of 3 075 in the wide E24 bench's two-stage curve walk (counted), where
+    // on 154 sampled points it came within 0.5 % of the engine's settling time. Budgeted walks go
+    // without it (their partial answers stay where they were).
+    if (!budgeted) {
+      twoSlowestTimeConstants(rs, cs, tb.driver, loadR, loadC, taus);
+      const scale = stepScaleOf(rs);
+      for (let j = 0; j < problem.steps.length; j++) {
+        const from = problem.steps[j][0];
+        const to = problem.steps[j][1];
+        const a = lite(rs, cs, from);
+        const b = lite(rs, cs, to);
+        const rising = to > from;
+        const head = lti ? Math.abs(b.yStart - a.yStart) : -Infinity;
+        const t = pointSettlingFloor(problem.period, Math.abs(to - from) * scale, head, problem.band, rising ? b.above : b.below, rising ? b.below : b.above, taus[0], taus[1], theta);
+        if (t > theta) return;
+      }
     }
     const model = use(rs, cs);
     let lb = 0;

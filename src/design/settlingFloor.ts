@@ -231,6 +231,46 @@ export function settlingFloor(plan: SettlingFloorPlan, tauA: number, tauB: numbe
 }
 
 /**
+ * The factor from a duty step to its size at the comparison ladder's output, S' = |to - from| *
+ * this (V): F / g_F * G_F of settlingFloorPlan's Method, from the resistors alone.
+ *
+ * Syntax: floorStepScale(problem, r)
+ * Example: floorStepScale(problem, [470, 16e3]) * 0.8   // V, S' of a 10 % -> 90 % step
+ */
+export function floorStepScale(problem: DesignProblem, r: ArrayLike<number>): number {
+  const k = problem.circuit;
+  const gF = Math.max(1 / (k.driverHigh + r[0]), 1 / (k.driverLow + r[0]));
+  let rest = 0;
+  for (let i = 1; i < r.length; i++) rest += r[i];
+  const rL = k.loadResistance;
+  const gainF = rL === null ? 1 : rL / (rL + 1 / gF + rest);
+  return (pinDriveStep(k, r[0]) * gainF) / gF;
+}
+
+const POINT_PLAN: ScratchFloorPlan = { period: 0, steps: [floorStep(1, -Infinity, 1, 1)] };
+
+/**
+ * A lower bound (s) on the settling time of one design after one duty step, from its fast
+ * ladder's two slowest time constants (tauA >= tauB) and its target's steady orbit: settlingFloor's
+ * bound with that orbit's own excursions in place of their caps. After a rising step the output
+ * is the target orbit less z(t); settled needs z <= band + `near` (the orbit's excursion on the
+ * side the output comes from, `above` after a rising step) at every instant, and z <= band - `far`
+ * where the orbit is at its far side, once a period (settlingFloorPlan's Method, with the actual
+ * extreme in place of the average). `head`: a lower bound on z(0), for equal drivers the actual
+ * output step at the period start |yStart(to) - yStart(from)| (the ladder is its own comparison
+ * ladder), else -Infinity. Infinity when the far side leaves the band (never settles).
+ *
+ * Syntax: pointSettlingFloor(period, scaled, head, band, near, far, tauA, tauB[, ceiling])
+ * Example: pointSettlingFloor(T, floorStepScale(problem, r) * 0.8, -Infinity, band, swing.above, swing.below, 3e-4, 1e-4)   // s
+ */
+export function pointSettlingFloor(period: number, scaled: number, head: number, band: number, near: number, far: number, tauA: number, tauB: number, ceiling = Infinity): number {
+  if (!(band - far > 0)) return Infinity;
+  POINT_PLAN.period = period;
+  setFloorStep(POINT_PLAN.steps[0], scaled, head, band + near, band - far);
+  return settlingFloor(POINT_PLAN, tauA, tauB, ceiling);
+}
+
+/**
  * The quick bound of settlingFloor for one step, without exponentials (see its Method): at most
  * the floor of that step for any tauB and any slowest time constant at least tauA, since each
  * term grows with tauA where it is positive.

@@ -1,9 +1,9 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { designProblem } from '../../src/design/designProblem.js';
-import { floorStep, NO_FLOOR, scratchFloorPlan, settlingFloor, settlingFloorPlan, settlingFloorQuick, type SettlingFloorPlan } from '../../src/design/settlingFloor.js';
+import { floorStep, floorStepScale, NO_FLOOR, pointSettlingFloor, scratchFloorPlan, settlingFloor, settlingFloorPlan, settlingFloorQuick, type SettlingFloorPlan } from '../../src/design/settlingFloor.js';
 import { slowestTimeConstant, twoSlowestTimeConstants } from '../../src/design/slowestTimeConstant.js';
-import { settlingTime, timeConstants, worstRipple } from '../../src/engine/index.js';
+import { modalLadderOf, settlingTime, steadySwing, timeConstants, worstRipple } from '../../src/engine/index.js';
 import type { Project } from '../../src/project/types.js';
 
 interface Scenario {
@@ -194,6 +194,75 @@ describe('settlingFloor', () => {
     expect(checked).toBeGreaterThan(100);
     // not a vacuous bound: on most such designs it is more than half the settling time
     expect(tight).toBeGreaterThan(checked / 2);
+  });
+});
+
+describe('pointSettlingFloor', () => {
+  it('with no excursions and no head is the one-step floor with the band as both thresholds', () => {
+    const plan: SettlingFloorPlan = { period: 1e-4, steps: [floorStep(2.4, -Infinity, 1.6e-3, 1.6e-3)] };
+    expect(pointSettlingFloor(1e-4, 2.4, -Infinity, 1.6e-3, 0, 0, 3e-3, 1e-3)).toBe(settlingFloor(plan, 3e-3, 1e-3));
+  });
+
+  it('is Infinity when the far side of the target orbit already leaves the band (never settles, model.md)', () => {
+    expect(pointSettlingFloor(1e-4, 2.4, -Infinity, 1.6e-3, 0, 1.6e-3, 3e-3, 1e-3)).toBe(Infinity);
+  });
+
+  it('never exceeds the engine settling time, equal or unequal drivers, and is tighter than the tuple floor (fast-check)', () => {
+    const arb = fc.record({
+      n: fc.integer({ min: 1, max: 3 }),
+      logR: fc.array(fc.double({ min: 2, max: 5, noNaN: true }), { minLength: 3, maxLength: 3 }),
+      logC: fc.array(fc.double({ min: -9, max: -5.5, noNaN: true }), { minLength: 3, maxLength: 3 }),
+      driverLow: fc.double({ min: 0, max: 80, noNaN: true }),
+      extra: fc.double({ min: -60, max: 80, noNaN: true }),
+      load: fc.option(fc.double({ min: 3, max: 7, noNaN: true })),
+      loadC: fc.constantFrom(0, 1e-10, 1e-9),
+      logF: fc.double({ min: 3, max: 5, noNaN: true }),
+      bandLsb: fc.double({ min: 0.25, max: 4, noNaN: true }),
+      alignment: fc.constantFrom<'edge' | 'center'>('edge', 'center'),
+      levels: fc.constantFrom<[number, number]>([0, 3.3], [0, 5], [0.2, 3.3], [-1, 2]),
+      step: fc.option(fc.tuple(fc.double({ min: 0.05, max: 0.95, noNaN: true }), fc.double({ min: 0.05, max: 0.95, noNaN: true }))),
+    });
+    let checked = 0;
+    let tight = 0;
+    let tighter = 0;
+    fc.assert(
+      fc.property(arb, (x) => {
+        if (x.step && Math.abs(x.step[0] - x.step[1]) < 0.05) return true;
+        const driverHigh = Math.max(0, x.driverLow + x.extra);
+        const lti = driverHigh === x.driverLow;
+        // no ripple limit of its own: the point floor takes the design's actual excursions
+        const p = problemOf({
+          f: 10 ** x.logF, alignment: x.alignment, low: x.levels[0], high: x.levels[1], driverHigh, driverLow: x.driverLow,
+          load: x.load === null ? null : 10 ** x.load, loadC: x.loadC, rippleLsb: 1e6, bandLsb: x.bandLsb, step: x.step,
+        });
+        const r = x.logR.slice(0, x.n).map((v) => 10 ** v);
+        const c = x.logC.slice(0, x.n).map((v) => 10 ** v);
+        const l = p.ladderOf(r, c);
+        const model = modalLadderOf(p.circuit, r, c);
+        const taus = twoSlowestTimeConstants(r, c, Math.min(driverHigh, x.driverLow), p.circuit.loadResistance, p.circuit.loadCapacitance, [0, 0]);
+        const scale = floorStepScale(p, r);
+        for (const [from, to] of p.steps) {
+          const settle = settlingTime(l, from, to, p.band).time;
+          const a = steadySwing(model, from);
+          const b = steadySwing(model, to);
+          const rising = to > from;
+          const floor = pointSettlingFloor(p.period, Math.abs(to - from) * scale, lti ? Math.abs(b.yStart - a.yStart) : -Infinity, p.band, rising ? b.above : b.below, rising ? b.below : b.above, taus[0], taus[1]);
+          // the engine says never (null): the floor may say anything; it says Infinity where the far side leaves the band
+          if (settle === null) continue;
+          checked++;
+          if (floor > 0.5 * settle) tight++;
+          const plan = settlingFloor(settlingFloorPlan(p, r), taus[0], taus[1]);
+          if (floor > plan) tighter++;
+          if (!(floor <= settle * (1 + 1e-9))) return false;
+        }
+        return true;
+      }),
+      { numRuns: 400 },
+    );
+    expect(checked).toBeGreaterThan(100);
+    // not a vacuous bound: on most designs more than half the settling time, and above the plan's floor
+    expect(tight).toBeGreaterThan(checked / 2);
+    expect(tighter).toBeGreaterThan(checked / 4);
   });
 });
 
