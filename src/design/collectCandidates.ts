@@ -547,14 +547,16 @@ export function collectCandidates(
       const b = lite(rs, cs, toDuties[j]);
       if (Math.max(b.above, b.below) > problem.band * NEVER_SETTLES) return;
     }
-    const tau = lti ? slowestTimeConstant(rs, cs, tb.driver, loadR, loadC) : 0;
-    for (let j = 0; j < problem.steps.length; j++) {
-      const step = problem.steps[j];
-      const a = lite(rs, cs, step[0]);
-      const b = lite(rs, cs, step[1]);
-      const z0 = Math.abs(b.yStart - a.yStart);
-      const excursion = b.yStart > a.yStart ? b.above : b.below;
-      if (lti && z0 > problem.band + excursion && tau * Math.log(z0 / (problem.band + excursion)) > theta) return;
+    if (lti) {
+      const tau = slowestTimeConstant(rs, cs, tb.driver, loadR, loadC);
+      for (let j = 0; j < problem.steps.length; j++) {
+        const step = problem.steps[j];
+        const a = lite(rs, cs, step[0]);
+        const b = lite(rs, cs, step[1]);
+        const z0 = Math.abs(b.yStart - a.yStart);
+        const excursion = b.yStart > a.yStart ? b.above : b.below;
+        if (z0 > problem.band + excursion && tau * Math.log(z0 / (problem.band + excursion)) > theta) return;
+      }
     }
     // Then this point's own floor (pointSettlingFloor: the proven floor with its target orbit's
     // excursions, for unequal drivers too), which spares most of the exact bounds below that rule
@@ -567,10 +569,10 @@ export function collectCandidates(
       for (let j = 0; j < problem.steps.length; j++) {
         const from = problem.steps[j][0];
         const to = problem.steps[j][1];
-        const a = lite(rs, cs, from);
         const b = lite(rs, cs, to);
         const rising = to > from;
-        const head = lti ? Math.abs(b.yStart - a.yStart) : -Infinity;
+        // (the step's start state only where it gives the head: equal drivers)
+        const head = lti ? Math.abs(b.yStart - lite(rs, cs, from).yStart) : -Infinity;
         const t = pointSettlingFloor(problem.period, Math.abs(to - from) * scale, head, problem.band, rising ? b.above : b.below, rising ? b.below : b.above, taus[0], taus[1], theta);
         if (t > theta) return;
       }
