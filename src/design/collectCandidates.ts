@@ -570,7 +570,9 @@ export function collectCandidates(
         const from = problem.steps[j][0];
         const to = problem.steps[j][1];
         const b = lite(rs, cs, to);
-        const rising = to > from;
+        // The output comes from below when the duty and the levels rise together (the files
+        // require high > low; the comparison's error has that sign, settlingFloor.ts).
+        const rising = to > from === problem.circuit.high > problem.circuit.low;
         // (the step's start state only where it gives the head: equal drivers)
         const head = lti ? Math.abs(b.yStart - lite(rs, cs, from).yStart) : -Infinity;
         const t = pointSettlingFloor(problem.period, Math.abs(to - from) * scale, head, problem.band, rising ? b.above : b.below, rising ? b.below : b.above, taus[0], taus[1], theta);
