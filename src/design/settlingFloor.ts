@@ -80,14 +80,7 @@ export function settlingFloorPlan(
   into?: ScratchFloorPlan,
 ): SettlingFloorPlan {
   const { circuit: k, steps, band, period } = problem;
-  const gH = 1 / (k.driverHigh + r[0]);
-  const gL = 1 / (k.driverLow + r[0]);
-  const gF = Math.max(gH, gL);
-  const f = pinDriveStep(k, r[0]);
-  let rest = 0;
-  for (let i = 1; i < r.length; i++) rest += r[i];
-  const rL = k.loadResistance;
-  const gainF = rL === null ? 1 : rL / (rL + 1 / gF + rest);
+  const { gF, gainF, drive: f } = comparisonLadder(problem, r);
   const lti = k.driverHigh === k.driverLow;
   const span = Math.abs(k.high - k.low);
   const ripple = limits.ripple ?? Infinity;
@@ -238,13 +231,28 @@ export function settlingFloor(plan: SettlingFloorPlan, tauA: number, tauB: numbe
  * Example: floorStepScale(problem, [470, 16e3]) * 0.8   // V, S' of a 10 % -> 90 % step
  */
 export function floorStepScale(problem: DesignProblem, r: ArrayLike<number>): number {
+  const { gF, gainF, drive } = comparisonLadder(problem, r);
+  return (drive * gainF) / gF;
+}
+
+/** The comparison ladder's figures settlingFloorPlan's Method uses (scratch, read at once). */
+const COMPARISON = { gF: 0.5, gainF: 0.5, drive: 0.5 };
+
+/**
+ * The comparison ladder of settlingFloorPlan's Method for resistors r: its pin conductance g_F
+ * (the larger one), its DC gain G_F to the output, and the pin's least drive step F
+ * (pinDriveStep.ts), written into a scratch object.
+ */
+function comparisonLadder(problem: DesignProblem, r: ArrayLike<number>): typeof COMPARISON {
   const k = problem.circuit;
   const gF = Math.max(1 / (k.driverHigh + r[0]), 1 / (k.driverLow + r[0]));
   let rest = 0;
   for (let i = 1; i < r.length; i++) rest += r[i];
   const rL = k.loadResistance;
-  const gainF = rL === null ? 1 : rL / (rL + 1 / gF + rest);
-  return (pinDriveStep(k, r[0]) * gainF) / gF;
+  COMPARISON.gF = gF;
+  COMPARISON.gainF = rL === null ? 1 : rL / (rL + 1 / gF + rest);
+  COMPARISON.drive = pinDriveStep(k, r[0]);
+  return COMPARISON;
 }
 
 const POINT_PLAN: ScratchFloorPlan = { period: 0, steps: [floorStep(1, -Infinity, 1, 1)] };
