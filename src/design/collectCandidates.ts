@@ -146,8 +146,9 @@ function paretoThreshold(pareto: ParetoState, ripple: number): number {
  * last staircase walked at a smaller value of it bound this staircase's steps from above. Every
  * ripple check from three stages on first bounds the ripple from below by the output at four
  * instants of the period, and DC checks read the periodic state's average alone. A point then gets the
- * cheaper bound tau_slow ln(z0 / (band + excursion)) from its own steady states, and only then the
- * exact settling lower bound (the engine's settlingLowerBound). The fast model is the engine's
+ * cheaper bound tau_slow ln(z0 / (band + excursion)) from its own steady states (equal drivers), its
+ * own floor (pointSettlingFloor, settlingFloor.ts: the proven floor with its target orbit's
+ * excursions), and only then the exact settling lower bound (the engine's settlingLowerBound). The fast model is the engine's
  * modal form of each candidate (modalLadderOf): steady states from steadySwing (scalar code for one
  * and two stages), periodicState for settling.
  *
