@@ -35,6 +35,38 @@ function problemOf(x: Scenario) {
 }
 
 /**
+ * An invented design to hold a floor to the engine: up to `stages` RC stages, drivers equal or
+ * not, with or without a load, and a project around it (problemOf's fields, drawn).
+ */
+function randomDesign(stages: number) {
+  return fc.record({
+    n: fc.integer({ min: 1, max: stages }),
+    logR: fc.array(fc.double({ min: 2, max: 5, noNaN: true }), { minLength: stages, maxLength: stages }),
+    logC: fc.array(fc.double({ min: -9, max: -5.5, noNaN: true }), { minLength: stages, maxLength: stages }),
+    driverLow: fc.double({ min: 0, max: 80, noNaN: true }),
+    extra: fc.double({ min: -60, max: 80, noNaN: true }),
+    load: fc.option(fc.double({ min: 3, max: 7, noNaN: true })),
+    loadC: fc.constantFrom(0, 1e-10, 1e-9),
+    logF: fc.double({ min: 3, max: 5, noNaN: true }),
+    bandLsb: fc.double({ min: 0.25, max: 4, noNaN: true }),
+    rippleLsb: fc.double({ min: 0.1, max: 8, noNaN: true }),
+    alignment: fc.constantFrom<'edge' | 'center'>('edge', 'center'),
+    levels: fc.constantFrom<[number, number]>([0, 3.3], [0, 5], [0.2, 3.3], [-1, 2]),
+    step: fc.option(fc.tuple(fc.double({ min: 0.05, max: 0.95, noNaN: true }), fc.double({ min: 0.05, max: 0.95, noNaN: true }))),
+  });
+}
+
+/** The problem (with ripple limit `rippleLsb`) and the parts of a randomDesign draw. */
+function designOf(x: ReturnType<typeof randomDesign> extends fc.Arbitrary<infer T> ? T : never, rippleLsb: number) {
+  const driverHigh = Math.max(0, x.driverLow + x.extra);
+  const p = problemOf({
+    f: 10 ** x.logF, alignment: x.alignment, low: x.levels[0], high: x.levels[1], driverHigh, driverLow: x.driverLow,
+    load: x.load === null ? null : 10 ** x.load, loadC: x.loadC, rippleLsb, bandLsb: x.bandLsb, step: x.step,
+  });
+  return { p, r: x.logR.slice(0, x.n).map((v) => 10 ** v), c: x.logC.slice(0, x.n).map((v) => 10 ** v), driverHigh };
+}
+
+/**
  * Last t with S (tau_a e^(-t/tau_a) - tau_b e^(-t/tau_b)) / (tau_a - tau_b) > threshold, by
  * bisection: the step response error of two real poles (overdamped second-order system; K. Ogata,
  * "Modern Control Engineering", 5th ed., section 5-3, from memory).
@@ -150,33 +182,13 @@ describe('settlingFloor', () => {
   });
 
   it('never exceeds the engine settling time of a design that meets the ripple limit, equal or unequal drivers (fast-check)', () => {
-    const arb = fc.record({
-      n: fc.integer({ min: 1, max: 4 }),
-      logR: fc.array(fc.double({ min: 2, max: 5, noNaN: true }), { minLength: 4, maxLength: 4 }),
-      logC: fc.array(fc.double({ min: -9, max: -5.5, noNaN: true }), { minLength: 4, maxLength: 4 }),
-      driverLow: fc.double({ min: 0, max: 80, noNaN: true }),
-      extra: fc.double({ min: -60, max: 80, noNaN: true }),
-      load: fc.option(fc.double({ min: 3, max: 7, noNaN: true })),
-      loadC: fc.constantFrom(0, 1e-10, 1e-9),
-      logF: fc.double({ min: 3, max: 5, noNaN: true }),
-      bandLsb: fc.double({ min: 0.25, max: 4, noNaN: true }),
-      rippleLsb: fc.double({ min: 0.1, max: 8, noNaN: true }),
-      alignment: fc.constantFrom<'edge' | 'center'>('edge', 'center'),
-      levels: fc.constantFrom<[number, number]>([0, 3.3], [0, 5], [0.2, 3.3], [-1, 2]),
-      step: fc.option(fc.tuple(fc.double({ min: 0.05, max: 0.95, noNaN: true }), fc.double({ min: 0.05, max: 0.95, noNaN: true }))),
-    });
+    const arb = randomDesign(4);
     let checked = 0;
     let tight = 0;
     fc.assert(
       fc.property(arb, (x) => {
         if (x.step && Math.abs(x.step[0] - x.step[1]) < 0.05) return true;
-        const driverHigh = Math.max(0, x.driverLow + x.extra);
-        const p = problemOf({
-          f: 10 ** x.logF, alignment: x.alignment, low: x.levels[0], high: x.levels[1], driverHigh, driverLow: x.driverLow,
-          load: x.load === null ? null : 10 ** x.load, loadC: x.loadC, rippleLsb: x.rippleLsb, bandLsb: x.bandLsb, step: x.step,
-        });
-        const r = x.logR.slice(0, x.n).map((v) => 10 ** v);
-        const c = x.logC.slice(0, x.n).map((v) => 10 ** v);
+        const { p, r, c, driverHigh } = designOf(x, x.rippleLsb);
         const l = p.ladderOf(r, c);
         const ripple = worstRipple(l, p.dutyMin, p.dutyMax).ripple;
         if (ripple > p.searchLimits.ripple!) return true; // the floor speaks of designs that meet the ripple limit
@@ -208,35 +220,16 @@ describe('pointSettlingFloor', () => {
   });
 
   it('never exceeds the engine settling time, equal or unequal drivers, and is tighter than the tuple floor (fast-check)', () => {
-    const arb = fc.record({
-      n: fc.integer({ min: 1, max: 3 }),
-      logR: fc.array(fc.double({ min: 2, max: 5, noNaN: true }), { minLength: 3, maxLength: 3 }),
-      logC: fc.array(fc.double({ min: -9, max: -5.5, noNaN: true }), { minLength: 3, maxLength: 3 }),
-      driverLow: fc.double({ min: 0, max: 80, noNaN: true }),
-      extra: fc.double({ min: -60, max: 80, noNaN: true }),
-      load: fc.option(fc.double({ min: 3, max: 7, noNaN: true })),
-      loadC: fc.constantFrom(0, 1e-10, 1e-9),
-      logF: fc.double({ min: 3, max: 5, noNaN: true }),
-      bandLsb: fc.double({ min: 0.25, max: 4, noNaN: true }),
-      alignment: fc.constantFrom<'edge' | 'center'>('edge', 'center'),
-      levels: fc.constantFrom<[number, number]>([0, 3.3], [0, 5], [0.2, 3.3], [-1, 2]),
-      step: fc.option(fc.tuple(fc.double({ min: 0.05, max: 0.95, noNaN: true }), fc.double({ min: 0.05, max: 0.95, noNaN: true }))),
-    });
+    const arb = randomDesign(3);
     let checked = 0;
     let tight = 0;
     let tighter = 0;
     fc.assert(
       fc.property(arb, (x) => {
         if (x.step && Math.abs(x.step[0] - x.step[1]) < 0.05) return true;
-        const driverHigh = Math.max(0, x.driverLow + x.extra);
-        const lti = driverHigh === x.driverLow;
         // no ripple limit of its own: the point floor takes the design's actual excursions
-        const p = problemOf({
-          f: 10 ** x.logF, alignment: x.alignment, low: x.levels[0], high: x.levels[1], driverHigh, driverLow: x.driverLow,
-          load: x.load === null ? null : 10 ** x.load, loadC: x.loadC, rippleLsb: 1e6, bandLsb: x.bandLsb, step: x.step,
-        });
-        const r = x.logR.slice(0, x.n).map((v) => 10 ** v);
-        const c = x.logC.slice(0, x.n).map((v) => 10 ** v);
+        const { p, r, c, driverHigh } = designOf(x, 1e6);
+        const lti = driverHigh === x.driverLow;
         const l = p.ladderOf(r, c);
         const model = modalLadderOf(p.circuit, r, c);
         const taus = twoSlowestTimeConstants(r, c, Math.min(driverHigh, x.driverLow), p.circuit.loadResistance, p.circuit.loadCapacitance, [0, 0]);
