@@ -25,8 +25,8 @@ const space = fc.record({
   band: fc.constantFrom('0.25 LSB', '0.5 LSB', '1 LSB'),
   step: fc.constantFrom('', ', from: 10 %, to: 90 %', ', from: 80 %, to: 20 %'),
   droop: fc.constantFrom('', '  droop: 40 LSB'),
-  stages: fc.constantFrom('[1, 2]', '[2]'),
-  series: fc.constantFrom('E3', 'E6'),
+  stages: fc.constantFrom<string>('[1, 2]', '[2]'),
+  series: fc.constantFrom<string>('E3', 'E6'),
   rmin: fc.constantFrom('100', '1k'),
   cmin: fc.constantFrom('10n', '100n'),
 });
@@ -68,6 +68,24 @@ describe('design search on random invented small spaces', () => {
     // not vacuous: most spaces hold designs
     expect(nonEmpty).toBeGreaterThan(RUNS / 2);
   }, 60_000 + RUNS * 2_000);
+
+  // Three stages cost brute force about 2.7 s a space (E3): a seventh of the count.
+  const THREE = Math.max(1, Math.round(RUNS / 7));
+  it(`ranks the same top 3 as exhaustive search with three stages (${THREE} spaces)`, () => {
+    let threeStage = 0;
+    fc.assert(
+      fc.property(space, fc.constantFrom('[3]', '[2, 3]'), (x, stages) => {
+        const p = projectOf({ ...x, stages, series: 'E3' });
+        const found = designSearch(p, { top: 3, compare: false, diagnose: false });
+        const brute = bruteForce(p, 3).ranked;
+        if (brute.some((c) => c.stages.length === 3)) threeStage++;
+        expect(found.candidates.map(designKey)).toEqual(brute.map(designKey));
+      }),
+      { numRuns: THREE, seed: 33 },
+    );
+    // not vacuous: three-stage designs among the answers
+    expect(threeStage).toBeGreaterThan(0);
+  }, 60_000 + THREE * 10_000);
 
   it('draws each trade-off point as the exhaustive optimum under its ripple limit (6 spaces)', () => {
     fc.assert(
