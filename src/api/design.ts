@@ -22,11 +22,7 @@ export interface DesignApiOptions {
  * Example: design('sample-configs/design-tight-ripple.yaml', { top: 3 }).candidates[0].settlingTime
  */
 export function design(input: ProjectInput, options: DesignApiOptions = {}) {
-  const study = designStudy(projectOf(input, 'design', { filter: false }), options);
-  return designJson(study.result, {
-    ...(study.tradeoff && { tradeoff: study.tradeoff }),
-    ...(study.robust && { robust: study.robust }),
-    ...(study.tradeoffOutOfTime && { tradeoffOutOfTime: true }),
-    ...(study.tradeoffNotDrawn && { tradeoffNotDrawn: study.tradeoffNotDrawn }),
-  });
+  // The study's other fields are the report's options by the same names (as the command passes them).
+  const { result, ...figures } = designStudy(projectOf(input, 'design', { filter: false }), options);
+  return designJson(result, figures);
 }

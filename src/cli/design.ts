@@ -111,7 +111,8 @@ export async function runDesign(
   } finally {
     bar?.done();
   }
-  const { result, tradeoff, robust, tradeoffOutOfTime, tradeoffNotDrawn, curveEffort } = study;
+  // The study's other fields (curves, robust verdicts, curves not drawn) are the report's options by the same names.
+  const { result, ...figures } = study;
 
   let written: string | undefined;
   let changes;
@@ -134,13 +135,9 @@ export async function runDesign(
     }
   }
   const options = {
-    ...(tradeoff && { tradeoff }),
+    ...figures,
     color: args.format === 'text' && tty.color,
     ...(written && { written, changes }),
-    ...(robust && { robust }),
-    ...(tradeoffOutOfTime && { tradeoffOutOfTime }),
-    ...(tradeoffNotDrawn && { tradeoffNotDrawn }),
-    ...(curveEffort !== undefined && { curveEffort }),
     width,
   };
   const stdout = designReport(project, result, args.format, options);
